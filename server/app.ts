@@ -1,0 +1,112 @@
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { Passport } from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import { pinoHttp } from 'pino-http';
+import type { AppDeps } from './app-deps';
+import { csrfProtection } from './auth/csrf';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import { authRoutes } from './modules/auth/auth.routes';
+import { authService } from './modules/auth/auth.service';
+import { healthRoutes } from './modules/health/health.routes';
+import { membersRoutes } from './modules/members/members.routes';
+import { membersService } from './modules/members/members.service';
+import { usersRepository } from './modules/members/users.repository';
+import { organisationsRoutes } from './modules/organisations/organisations.routes';
+import { outboxRoutes } from './modules/outbox/outbox.routes';
+
+const CLIENT_DIR = fileURLToPath(new URL('../dist/client', import.meta.url));
+const SESSION_DAYS = 7;
+
+/** The whole HTTP application, without listening, so tests run it in-process. */
+export function createApp(deps: AppDeps): Express {
+  const { config, db, logger } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.isProduction ? 1 : false);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'", 'data:'],
+          'worker-src': ["'self'", 'blob:'],
+          'frame-src': ["'self'"],
+          'upgrade-insecure-requests': config.isProduction ? [] : null,
+        },
+      },
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+    }),
+  );
+
+  const auth = authService(deps);
+  const members = membersService(deps);
+  const users = usersRepository(db);
+
+  const passport = new Passport();
+  passport.use(
+    new LocalStrategy({ usernameField: 'email' }, (email, password, done) => {
+      auth.verifyCredentials(email, password).then((u) => done(null, u ?? false), done);
+    }),
+  );
+  passport.serializeUser((user, done) => done(null, user.id));
+  passport.deserializeUser((id: number, done) => {
+    users.findAuthUser(id).then((u) => done(null, u ?? false), done);
+  });
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(
+    session({
+      name: 'ridgeload.sid',
+      secret: config.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      store: new ConnectSessionKnexStore({ knex: db, tableName: 'sessions', createTable: true }),
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.isProduction,
+        maxAge: SESSION_DAYS * 24 * 3_600_000,
+      },
+    }),
+  );
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(csrfProtection);
+
+  api.use(healthRoutes(db));
+  api.use(authRoutes(deps, auth, members));
+  api.use(organisationsRoutes(db));
+  api.use(membersRoutes(members));
+  if (!config.isProduction) api.use(outboxRoutes(db));
+  api.use(apiNotFound);
+
+  app.use('/api', api);
+
+  if (existsSync(join(CLIENT_DIR, 'index.html'))) {
+    app.use(express.static(CLIENT_DIR, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(join(CLIENT_DIR, 'index.html')));
+  }
+
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,81 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { z } from 'zod';
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('0.0.0.0'),
+  DATA_DIR: z.string().min(1).default('./data'),
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must have at least 32 characters').optional(),
+  APP_URL: z.url().optional(),
+  SMTP_URL: z.url().optional(),
+  DEV_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  MAIL_FROM: z.string().default('Ridgeload <no-reply@ridgeload.test>'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
+  LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
+  RESET_RATE_LIMIT: z.coerce.number().int().positive().default(5),
+  SEED_DEMO: z.enum(['auto', 'never']).default('auto'),
+});
+
+export interface Config {
+  nodeEnv: 'development' | 'production' | 'test';
+  isProduction: boolean;
+  port: number;
+  host: string;
+  dataDir: string;
+  databaseFile: string;
+  sessionSecret: string;
+  appUrl: string;
+  smtpUrl?: string;
+  devSmtpPort: number;
+  mailFrom: string;
+  logLevel: string;
+  loginRateLimit: number;
+  resetRateLimit: number;
+  seedDemo: 'auto' | 'never';
+}
+
+export class ConfigError extends Error {}
+
+/** Reads the environment once at start-up; a bad value stops the process with the variable named. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `${i.path.join('.') || '(environment)'}: ${i.message}`);
+    throw new ConfigError(`Invalid configuration:\n  ${lines.join('\n  ')}`);
+  }
+  const e = parsed.data;
+  const dataDir = resolve(e.DATA_DIR);
+  mkdirSync(dataDir, { recursive: true });
+  return {
+    nodeEnv: e.NODE_ENV,
+    isProduction: e.NODE_ENV === 'production',
+    port: e.PORT,
+    host: e.HOST,
+    dataDir,
+    databaseFile: join(dataDir, 'ridgeload.sqlite'),
+    sessionSecret: e.SESSION_SECRET ?? readOrCreateSecret(dataDir),
+    appUrl: (e.APP_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
+    smtpUrl: e.SMTP_URL,
+    devSmtpPort: e.DEV_SMTP_PORT,
+    mailFrom: e.MAIL_FROM,
+    logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),
+    loginRateLimit: e.LOGIN_RATE_LIMIT,
+    resetRateLimit: e.RESET_RATE_LIMIT,
+    seedDemo: e.SEED_DEMO,
+  };
+}
+
+/** A secret made on first run and kept in DATA_DIR, so sessions survive a restart. */
+function readOrCreateSecret(dataDir: string): string {
+  const file = join(dataDir, 'session-secret');
+  if (existsSync(file)) {
+    const existing = readFileSync(file, 'utf8').trim();
+    if (existing.length >= 32) return existing;
+  }
+  const secret = randomBytes(48).toString('base64url');
+  writeFileSync(file, secret + '\n', { mode: 0o600 });
+  return secret;
+}

@@ -1,0 +1,121 @@
+import { OWNER_ROLE, ROLE_LABELS, ROLES_BY_KIND, type Role } from '../../../shared/domain/roles';
+import type { AppDeps } from '../../app-deps';
+import type { AuthUser } from '../../auth/auth-user';
+import { hashPassword } from '../../auth/passwords';
+import { hashToken, newToken } from '../../auth/tokens';
+import { isoInHours } from '../../db/time';
+import { AppError } from '../../http/app-error';
+import { renderEmail } from '../../mail/templates';
+import { organisationsRepository } from '../organisations/organisations.repository';
+import { invitationsRepository } from './invitations.repository';
+import { usersRepository } from './users.repository';
+
+export const INVITATION_HOURS = 7 * 24;
+
+function assertRoleFitsOrganisation(actor: AuthUser, role: Role) {
+  if (!ROLES_BY_KIND[actor.organisation.kind].includes(role)) {
+    throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [
+      { path: 'role', message: `A ${actor.organisation.kind} firm cannot have the role ${ROLE_LABELS[role]}` },
+    ]);
+  }
+}
+
+export function membersService({ db, mailer, config, logger }: AppDeps) {
+  const users = usersRepository(db);
+  const invitations = invitationsRepository(db);
+  const organisations = organisationsRepository(db);
+
+  return {
+    list: (actor: AuthUser) => users.listMembers(actor.organisation.id),
+
+    async changeRole(actor: AuthUser, userId: number, role: Role) {
+      assertRoleFitsOrganisation(actor, role);
+      return db.transaction(async (trx) => {
+        const member = await users.findMember(actor.organisation.id, userId, trx);
+        if (!member) throw AppError.notFound('Member');
+        const owner = OWNER_ROLE[actor.organisation.kind];
+        if (member.role === owner && role !== owner && (await users.countWithRole(actor.organisation.id, owner, trx)) <= 1) {
+          throw AppError.conflict('last_owner', 'A firm needs at least one owner; make someone else owner first');
+        }
+        await users.updateRole(actor.organisation.id, userId, role, trx);
+        return { ...member, role };
+      });
+    },
+
+    async remove(actor: AuthUser, userId: number) {
+      if (userId === actor.id) throw AppError.conflict('cannot_remove_self', 'You cannot remove yourself; ask another owner');
+      const member = await users.findMember(actor.organisation.id, userId);
+      if (!member) throw AppError.notFound('Member');
+      await users.remove(actor.organisation.id, userId);
+    },
+
+    listInvitations: (actor: AuthUser) => invitations.listPending(actor.organisation.id),
+
+    async invite(actor: AuthUser, email: string, role: Role) {
+      assertRoleFitsOrganisation(actor, role);
+      if (await users.findByEmail(email)) {
+        throw AppError.conflict('already_member', 'This e-mail address already has a Ridgeload account');
+      }
+      const { token, tokenHash } = newToken();
+      const invitation = await invitations.create({
+        organisation_id: actor.organisation.id,
+        email,
+        role,
+        token_hash: tokenHash,
+        invited_by: actor.id,
+        expires_at: isoInHours(INVITATION_HOURS),
+      });
+      const url = `${config.appUrl}/invitations/${encodeURIComponent(token)}`;
+      try {
+        await mailer.send(
+          renderEmail({
+            to: email,
+            subject: `${actor.name} invited you to ${actor.organisation.name} on Ridgeload`,
+            heading: `Join ${actor.organisation.name}`,
+            paragraphs: [
+              `${actor.name} has invited you to work in Ridgeload for ${actor.organisation.name} as ${ROLE_LABELS[role]}.`,
+              'The link works once and for seven days.',
+            ],
+            action: { label: 'Accept the invitation', url },
+            footnote: 'If you do not know this firm, ignore this e-mail.',
+          }),
+        );
+      } catch (err) {
+        logger.error({ err }, 'invitation e-mail failed');
+      }
+      return invitation;
+    },
+
+    async revokeInvitation(actor: AuthUser, id: number) {
+      if (!(await invitations.revoke(actor.organisation.id, id))) throw AppError.notFound('Invitation');
+    },
+
+    async previewInvitation(token: string) {
+      const invitation = await invitations.findUsable(hashToken(token));
+      if (!invitation) throw new AppError(404, 'token_invalid', 'This invitation has expired, was revoked or was already used');
+      const org = (await organisations.findById(invitation.organisation_id))!;
+      return { email: invitation.email, role: invitation.role, organisation: { name: org.name, kind: org.kind } };
+    },
+
+    /** Creates the account and uses the invitation in one transaction; a second use finds it gone. */
+    async acceptInvitation(token: string, input: { name: string; password: string }): Promise<AuthUser> {
+      const passwordHash = await hashPassword(input.password);
+      const userId = await db.transaction(async (trx) => {
+        const invitation = await invitations.findUsable(hashToken(token), trx);
+        if (!invitation || !(await invitations.markAccepted(invitation.id, trx))) {
+          throw new AppError(404, 'token_invalid', 'This invitation has expired, was revoked or was already used');
+        }
+        if (await trx('users').where({ email: invitation.email }).first()) {
+          throw AppError.conflict('already_member', 'This e-mail address already has a Ridgeload account; sign in instead');
+        }
+        return users.create(
+          { organisation_id: invitation.organisation_id, email: invitation.email, name: input.name, role: invitation.role, password_hash: passwordHash },
+          trx,
+        );
+      });
+      return (await users.findAuthUser(userId))!;
+    },
+  };
+}
+
+export type MembersService = ReturnType<typeof membersService>;

@@ -1,0 +1,76 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import pino from 'pino';
+import request from 'supertest';
+import type { Express } from 'express';
+import { createApp } from '../../server/app';
+import { loadConfig, type Config } from '../../server/config/env';
+import { createDb, migrateLatest, type Db } from '../../server/db/knex';
+import { startMailCapture } from './mail-capture';
+
+export interface TestApp {
+  app: Express;
+  db: Db;
+  config: Config;
+  mail: Awaited<ReturnType<typeof startMailCapture>>;
+  close: () => Promise<void>;
+}
+
+/** A fresh app on its own migrated SQLite file in a temp folder, with mail captured in-process. */
+export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+  const dir = mkdtempSync(join(tmpdir(), 'ridgeload-test-'));
+  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, ...env });
+  const db = createDb(config.databaseFile);
+  await migrateLatest(db);
+  const mail = await startMailCapture();
+  const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: 'silent' }) });
+  return {
+    app,
+    db,
+    config,
+    mail,
+    close: async () => {
+      await mail.close();
+      await db.destroy();
+      rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** A supertest agent that keeps cookies and sends the CSRF token on every state-changing call. */
+export class Client {
+  readonly agent: ReturnType<typeof request.agent>;
+  private token?: string;
+
+  constructor(app: Express) {
+    this.agent = request.agent(app);
+  }
+
+  async csrf(): Promise<string> {
+    const res = await this.agent.get('/api/auth/csrf').expect(200);
+    this.token = res.body.token as string;
+    return this.token;
+  }
+
+  get(path: string) {
+    return this.agent.get(path);
+  }
+
+  async send(method: 'post' | 'patch' | 'put' | 'delete', path: string, body?: unknown) {
+    const token = this.token ?? (await this.csrf());
+    const req = this.agent[method](path).set('X-CSRF-Token', token);
+    return body === undefined ? req : req.send(body as object);
+  }
+
+  post = (path: string, body?: unknown) => this.send('post', path, body);
+  patch = (path: string, body?: unknown) => this.send('patch', path, body);
+  delete = (path: string) => this.send('delete', path);
+
+  /** Signs in and refreshes the token, since the session id changes at sign-in. */
+  async login(email: string, password: string) {
+    const res = await this.post('/api/auth/login', { email, password });
+    if (res.status === 200) await this.csrf();
+    return res;
+  }
+}

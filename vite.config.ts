@@ -1,0 +1,48 @@
+import { defineConfig } from 'vitest/config';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+const apiPort = process.env.PORT ?? '3000';
+
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  publicDir: 'src/public',
+  build: { outDir: 'dist/client', emptyOutDir: true, sourcemap: true },
+  server: { proxy: { '/api': `http://localhost:${apiPort}` } },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: { name: 'unit', include: ['shared/**/*.test.ts', 'server/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'ui',
+          include: ['src/**/*.test.{ts,tsx}'],
+          environment: 'jsdom',
+          setupFiles: ['tests/setup/ui-setup.ts'],
+        },
+      },
+      {
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts', 'tests/cli/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 20_000,
+          hookTimeout: 30_000,
+        },
+      },
+      {
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 90_000,
+          hookTimeout: 240_000,
+        },
+      },
+    ],
+  },
+});
