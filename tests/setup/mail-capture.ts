@@ -21,7 +21,7 @@ export async function startMailCapture(): Promise<{ mailer: Mailer; messages: Ca
       simpleParser(stream)
         .then((mail: ParsedMail) => {
           const to = Array.isArray(mail.to) ? mail.to.map((a) => a.text).join(', ') : (mail.to?.text ?? '');
-          const m = { to, subject: mail.subject ?? '', text: mail.text ?? '', html: mail.html };
+          const m: CapturedMail = { to, subject: mail.subject ?? '', text: mail.text ?? '', html: mail.html ?? false };
           messages.push(m);
           for (const w of waiters.filter((x) => to.includes(x.to))) {
             waiters.splice(waiters.indexOf(w), 1);

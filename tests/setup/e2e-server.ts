@@ -1,0 +1,53 @@
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import type { AddressInfo } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import pino from 'pino';
+import { createApp } from '../../server/app';
+import { loadConfig } from '../../server/config/env';
+import { createDb, migrateLatest, type Db } from '../../server/db/knex';
+import { runSeeds } from '../../server/db/seed-runner';
+import { startDevSmtp } from '../../server/mail/dev-smtp';
+import { createSmtpMailer } from '../../server/mail/mailer';
+
+export interface E2eServer {
+  url: string;
+  db: Db;
+  close: () => Promise<void>;
+}
+
+/**
+ * The real product as `npm start` runs it: built client, migrated and seeded database, the local
+ * mail fake, on a free port of loopback.
+ */
+export async function startE2eServer(): Promise<E2eServer> {
+  if (!existsSync(new URL('../../dist/client/index.html', import.meta.url))) {
+    throw new Error('The client is not built: run `npm run build` first (npm test does it).');
+  }
+  const dir = mkdtempSync(join(tmpdir(), 'ridgeload-e2e-'));
+  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '100' });
+  const db = createDb(config.databaseFile);
+  await migrateLatest(db);
+  await runSeeds(db);
+  const smtp = await startDevSmtp(db, 0);
+  const mailer = createSmtpMailer(`smtp://127.0.0.1:${smtp.port}`, config.mailFrom);
+  const app = createApp({ config, db, mailer, logger: pino({ level: 'silent' }) });
+  const server = await new Promise<import('node:http').Server>((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const { port } = server.address() as AddressInfo;
+  const url = `http://127.0.0.1:${port}`;
+  config.appUrl = url; // links in e-mails point at this server
+  return {
+    url,
+    db,
+    close: async () => {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections?.();
+      mailer.close();
+      await smtp.close();
+      await db.destroy();
+      rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}
