@@ -19,5 +19,7 @@ export async function launchBrowser(): Promise<Browser> {
   // Without the system's NSS libraries, the package uses the copies it ships for serverless hosts.
   if (!SYSTEM_NSS.some(existsSync)) process.env.AWS_EXECUTION_ENV ??= 'AWS_Lambda_nodejs20.x';
   const { default: packaged } = await import('@sparticuz/chromium');
-  return chromium.launch({ executablePath: await packaged.executablePath(), args: packaged.args, headless: true });
+  // Its serverless flags include --single-process, where closing one context ends the browser.
+  const args = packaged.args.filter((a) => a !== '--single-process' && a !== '--no-zygote');
+  return chromium.launch({ executablePath: await packaged.executablePath(), args, headless: true });
 }

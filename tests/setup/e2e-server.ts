@@ -1,4 +1,5 @@
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -25,14 +26,14 @@ export async function startE2eServer(): Promise<E2eServer> {
     throw new Error('The client is not built: run `npm run build` first (npm test does it).');
   }
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-e2e-'));
-  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '100' });
+  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '100', RESET_RATE_LIMIT: '100' });
   const db = createDb(config.databaseFile);
   await migrateLatest(db);
   await runSeeds(db);
   const smtp = await startDevSmtp(db, 0);
   const mailer = createSmtpMailer(`smtp://127.0.0.1:${smtp.port}`, config.mailFrom);
   const app = createApp({ config, db, mailer, logger: pino({ level: 'silent' }) });
-  const server = await new Promise<import('node:http').Server>((resolve) => {
+  const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
   const { port } = server.address() as AddressInfo;

@@ -1,0 +1,16 @@
+import { Link } from 'react-router-dom';
+import { useOutboxAvailable } from '../features/outbox/api/get-outbox';
+
+/**
+ * The outbox link, outside production only. A development build always shows it; a built
+ * client shows it when the server answers for the outbox (npm start runs the mail fake).
+ */
+export function DevFooterLinks() {
+  const available = useOutboxAvailable();
+  if (import.meta.env.PROD && !available) return null;
+  return (
+    <Link to="/outbox" className="inline-flex min-h-tap items-center font-medium text-ink-700 underline underline-offset-2">
+      Outbox (mail sent by this server)
+    </Link>
+  );
+}

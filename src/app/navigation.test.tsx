@@ -1,0 +1,52 @@
+import { screen, within } from '@testing-library/react';
+import { describe, expect, it, vi } from 'vitest';
+import { ROLES } from '../../shared/domain/roles';
+import { can } from '../../shared/domain/policy';
+import { AppShell } from '../components/layout/app-shell';
+import { renderWithProviders } from '../test-utils/render-with-providers';
+import { navItemsForRole } from './navigation';
+import type { Role } from '../../shared/domain/roles';
+
+function renderShellFor(role: Role) {
+  renderWithProviders(
+    <AppShell
+      navItems={navItemsForRole(role)}
+      homePath="/"
+      person={{ name: 'Kit Trelawny', roleLabel: role, organisationName: 'Carn Tile Supplies' }}
+      onSignOut={vi.fn()}
+    >
+      <p>page</p>
+    </AppShell>,
+  );
+  return within(screen.getByRole('navigation', { name: 'Main' }));
+}
+
+describe('role-aware navigation', () => {
+  it('shows a driver no Team link, but Home and Branches', () => {
+    const nav = renderShellFor('driver');
+    expect(nav.queryByRole('link', { name: 'Team' })).toBeNull();
+    expect(nav.getByRole('link', { name: 'Home' }).getAttribute('href')).toBe('/driver');
+    expect(nav.getByRole('link', { name: 'Branches' })).toBeTruthy();
+  });
+
+  it('shows a contractor owner the Team link and no Branches link', () => {
+    const nav = renderShellFor('contractor_owner');
+    expect(nav.getByRole('link', { name: 'Team' }).getAttribute('href')).toBe('/team');
+    expect(nav.queryByRole('link', { name: 'Branches' })).toBeNull();
+  });
+
+  it('shows a merchant owner Team and Branches', () => {
+    const nav = renderShellFor('merchant_owner');
+    expect(nav.getByRole('link', { name: 'Team' })).toBeTruthy();
+    expect(nav.getByRole('link', { name: 'Branches' })).toBeTruthy();
+  });
+
+  it('offers each role exactly the sections the policy lets it read', () => {
+    for (const role of ROLES) {
+      const labels = navItemsForRole(role).map((item) => item.label);
+      expect(labels.includes('Team')).toBe(can(role, 'members:read'));
+      expect(labels.includes('Branches')).toBe(can(role, 'branches:read'));
+      expect(labels.includes('Organisation')).toBe(can(role, 'organisation:read'));
+    }
+  });
+});

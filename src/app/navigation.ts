@@ -1,0 +1,29 @@
+import { can } from '../../shared/domain/policy';
+import type { Action } from '../../shared/domain/policy';
+import type { Role } from '../../shared/domain/roles';
+import type { NavItem } from '../components/layout/app-shell';
+import { homePathForRole } from './home-path';
+
+interface SectionEntry extends NavItem {
+  /** The policy action a role needs to use the page; the link shows only to roles that have it. */
+  action: Action;
+}
+
+const SECTIONS: readonly SectionEntry[] = [
+  { to: '/organisation', label: 'Organisation', icon: 'organisation', action: 'organisation:read' },
+  { to: '/branches', label: 'Branches', icon: 'branches', action: 'branches:read' },
+  { to: '/team', label: 'Team', icon: 'team', action: 'members:read' },
+];
+
+/** The navigation a role sees: its home, then every section the policy lets it read. */
+export function navItemsForRole(role: Role): NavItem[] {
+  return [
+    { to: homePathForRole(role), label: 'Home', icon: 'home' },
+    ...SECTIONS.filter((section) => can(role, section.action)).map(({ to, label, icon }) => ({ to, label, icon })),
+  ];
+}
+
+/** The action each section's route requires; the route guard and the navigation share it. */
+export function actionForSection(path: string): Action | undefined {
+  return SECTIONS.find((section) => section.to === path)?.action;
+}

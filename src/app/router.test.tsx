@@ -1,0 +1,125 @@
+import { QueryClientProvider } from '@tanstack/react-query';
+import { fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { describe, expect, it } from 'vitest';
+import type { Role } from '../../shared/domain/roles';
+import { ToastProvider } from '../components/ui/toast';
+import { createTestQueryClient, stubFetch } from '../test-utils/render-with-providers';
+import type { MockResponse } from '../test-utils/render-with-providers';
+import { appRoutes } from './router';
+
+const unauthenticated = { status: 401, body: { error: { code: 'unauthenticated', message: 'Sign in first' } } };
+
+function sessionFor(role: Role) {
+  const merchant = role !== 'contractor_owner' && role !== 'contractor_estimator';
+  return {
+    user: { id: 11, email: 'sam@carnbrea-tiles.test', name: 'Sam Tregear', role },
+    organisation: { id: 5, name: merchant ? 'Carnbrea Tile Supplies' : 'Polwith Roofing', kind: merchant ? 'merchant' : 'contractor' },
+  };
+}
+
+const organisation = {
+  id: 5,
+  name: 'Carnbrea Tile Supplies',
+  kind: 'merchant',
+  branches: [{ id: 1, name: 'Carnbrea Yard', address: '2 Quarry Row', town: 'Carnbrea', phone: '01632 960 201' }],
+};
+
+function renderApp(path: string, extra: Record<string, MockResponse | MockResponse[]>) {
+  const fetchMock = stubFetch({
+    'GET /api/dev/outbox': { status: 200, body: { messages: [] } },
+    'GET /api/organisation': { status: 200, body: organisation },
+    'GET /api/members': { status: 200, body: { members: [] } },
+    'GET /api/invitations': { status: 200, body: { invitations: [] } },
+    ...extra,
+  });
+  const queryClient = createTestQueryClient();
+  const router = createMemoryRouter(appRoutes(queryClient), { initialEntries: [path] });
+  render(
+    <QueryClientProvider client={queryClient}>
+      <ToastProvider>
+        <RouterProvider router={router} />
+      </ToastProvider>
+    </QueryClientProvider>,
+  );
+  return { router, fetchMock };
+}
+
+describe('app routes', () => {
+  it('sends a signed-out visitor of /team to sign in, remembering where they were going', async () => {
+    const { router } = renderApp('/team', { 'GET /api/auth/me': unauthenticated });
+    expect(await screen.findByRole('heading', { level: 1, name: 'Sign in' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/sign-in');
+    expect(router.state.location.search).toBe('?next=%2Fteam');
+  });
+
+  it.each([
+    ['driver', '/driver', 'On the road'],
+    ['merchant_dispatcher', '/yard', 'Yard and transport'],
+    ['merchant_sales', '/desk', 'Order desk'],
+    ['contractor_estimator', '/contractor', 'Estimating'],
+  ] as const)('sends a signed-in %s visiting /sign-in to %s', async (role, path, heading) => {
+    const { router } = renderApp('/sign-in', { 'GET /api/auth/me': { status: 200, body: sessionFor(role) } });
+    expect(await screen.findByRole('heading', { level: 1, name: heading })).toBeTruthy();
+    expect(router.state.location.pathname).toBe(path);
+    expect(screen.getByTestId(`role-home-${role}`)).toBeTruthy();
+  });
+
+  it('shows the branches on the driver’s home from the API', async () => {
+    renderApp('/driver', { 'GET /api/auth/me': { status: 200, body: sessionFor('driver') } });
+    expect(await screen.findByText('Carnbrea Yard')).toBeTruthy();
+    expect(screen.getByText('Hello, Sam.')).toBeTruthy();
+  });
+
+  it('moves someone on to their own home when they open another role’s home', async () => {
+    const { router } = renderApp('/contractor', { 'GET /api/auth/me': { status: 200, body: sessionFor('driver') } });
+    await screen.findByTestId('role-home-driver');
+    expect(router.state.location.pathname).toBe('/driver');
+  });
+
+  it('refuses the team page to a driver with a 403 page', async () => {
+    renderApp('/team', { 'GET /api/auth/me': { status: 200, body: sessionFor('driver') } });
+    expect(await screen.findByRole('heading', { level: 1, name: 'This page is not part of your role' })).toBeTruthy();
+  });
+
+  it('shows the 404 page for an unknown address', async () => {
+    renderApp('/no/such/page', { 'GET /api/auth/me': unauthenticated });
+    expect(await screen.findByRole('heading', { level: 1, name: 'There is no page at this address' })).toBeTruthy();
+  });
+
+  it('signs in and honours ?next=', async () => {
+    const { router } = renderApp('/sign-in?next=%2Fteam', {
+      'GET /api/auth/me': unauthenticated,
+      'GET /api/auth/csrf': { status: 200, body: { token: 'csrf' } },
+      'POST /api/auth/login': { status: 200, body: sessionFor('merchant_owner') },
+    });
+    fireEvent.input(await screen.findByLabelText('E-mail'), { target: { value: 'sam@carnbrea-tiles.test' } });
+    fireEvent.input(screen.getByLabelText('Password'), { target: { value: 'ridgeload-demo' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
+    expect(await screen.findByRole('heading', { level: 1, name: 'Team' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/team');
+  });
+
+  it('ignores a ?next= that points off the site', async () => {
+    const { router } = renderApp('/sign-in?next=https%3A%2F%2Felsewhere.test%2F', {
+      'GET /api/auth/me': unauthenticated,
+      'GET /api/auth/csrf': { status: 200, body: { token: 'csrf' } },
+      'POST /api/auth/login': { status: 200, body: sessionFor('driver') },
+    });
+    fireEvent.input(await screen.findByLabelText('E-mail'), { target: { value: 'sam@carnbrea-tiles.test' } });
+    fireEvent.input(screen.getByLabelText('Password'), { target: { value: 'ridgeload-demo' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/driver'));
+  });
+
+  it('shows the forgotten-password confirmation in the same words whatever the server knows', async () => {
+    renderApp('/forgot-password', {
+      'GET /api/auth/me': unauthenticated,
+      'GET /api/auth/csrf': { status: 200, body: { token: 'csrf' } },
+      'POST /api/auth/password/forgot': { status: 202, body: { ok: true } },
+    });
+    fireEvent.input(await screen.findByLabelText('E-mail'), { target: { value: 'nobody@nowhere.test' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Send the link' }));
+    expect((await screen.findByText(/If an account uses/)).textContent).toContain('nobody@nowhere.test');
+  });
+});

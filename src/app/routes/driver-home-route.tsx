@@ -1,0 +1,26 @@
+import { SectionBoundary } from '../../components/errors/section-boundary';
+import { BranchList } from '../../features/organisation/components/branch-list';
+import { firstName } from '../../lib/format';
+import { usePageTitle } from '../../lib/use-page-title';
+import { useCurrentSession } from '../current-session';
+import { RoleHome } from './role-home';
+
+/** Phone-first: big type, one column, call buttons a gloved thumb can hit. */
+export function DriverHomeRoute() {
+  usePageTitle('On the road');
+  const { user, organisation } = useCurrentSession();
+  return (
+    <RoleHome role={user.role}>
+      <header className="mb-6">
+        <p className="text-xl text-ink-700">Hello, {firstName(user.name)}.</p>
+        <h1 className="mt-1 text-3xl font-bold sm:text-4xl">On the road</h1>
+        <p className="mt-2 text-lg text-ink-700">Driving for {organisation.name}</p>
+      </header>
+      <div className="text-lg">
+        <SectionBoundary name="branches">
+          <BranchList title="Your branches" large />
+        </SectionBoundary>
+      </div>
+    </RoleHome>
+  );
+}

@@ -1,0 +1,7 @@
+/** Query keys of the auth feature; invalidate by prefix (authKeys.all clears everything here). */
+export const authKeys = {
+  all: ['auth'] as const,
+  session: () => [...authKeys.all, 'session'] as const,
+  invitations: () => [...authKeys.all, 'invitation'] as const,
+  invitation: (token: string) => [...authKeys.invitations(), token] as const,
+};

@@ -1,0 +1,30 @@
+const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+  hour: '2-digit',
+  minute: '2-digit',
+});
+
+/** SQLite hands out "YYYY-MM-DD HH:MM:SS" in UTC without a zone; treat it as UTC. */
+export function parseTimestamp(value: string): Date | null {
+  const iso = /^\d{4}-\d{2}-\d{2} \d{2}:\d{2}/.test(value) ? `${value.replace(' ', 'T')}Z` : value;
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? null : date;
+}
+
+export function formatDate(value: string): string {
+  const date = parseTimestamp(value);
+  return date ? dateFormat.format(date) : value;
+}
+
+export function formatDateTime(value: string): string {
+  const date = parseTimestamp(value);
+  return date ? dateTimeFormat.format(date) : value;
+}
+
+/** The first word of a person's name, for greetings. */
+export function firstName(name: string): string {
+  return name.trim().split(/\s+/)[0] ?? name;
+}
