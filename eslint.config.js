@@ -1,9 +1,16 @@
+import { readdirSync } from 'node:fs';
 import js from '@eslint/js';
 import globals from 'globals';
 import tseslint from 'typescript-eslint';
 
-/** Dependency directions: shared is pure; src and server never import each other. */
+/** Dependency directions: shared is pure; src and server never import each other; features stay apart. */
 const restrict = (patterns) => ['error', { patterns }];
+const features = readdirSync(new URL('./src/features', import.meta.url), { withFileTypes: true })
+  .filter((d) => d.isDirectory())
+  .map((d) => d.name);
+const clientRules = [
+  { group: ['**/server/**', 'express', 'knex', 'better-sqlite3', 'node:*'], message: 'src/ never imports server code.' },
+];
 
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', 'data/**', 'tmp/**', 'coverage/**'] },
@@ -28,12 +35,20 @@ export default tseslint.config(
   },
   {
     files: ['src/**/*.{ts,tsx}'],
+    rules: { 'no-restricted-imports': restrict(clientRules) },
+  },
+  ...features.map((feature) => ({
+    files: [`src/features/${feature}/**/*.{ts,tsx}`],
     rules: {
       'no-restricted-imports': restrict([
-        { group: ['**/server/**', 'express', 'knex', 'better-sqlite3', 'node:*'], message: 'src/ never imports server code.' },
+        ...clientRules,
+        {
+          group: features.filter((f) => f !== feature).map((f) => `**/features/${f}/**`),
+          message: 'Features do not import each other; combine them in a route module under src/app/.',
+        },
       ]),
     },
-  },
+  })),
   {
     files: ['server/**/*.ts'],
     rules: {

@@ -26,7 +26,7 @@ describe('every API route declares its access rule', () => {
     expect(unknown).toEqual([]);
   });
 
-  it('keeps public routes to the sign-in flows, the CSRF token, health and the development outbox', () => {
+  it('keeps public routes to the sign-in flows, the CSRF token, health, the example schedule and the development outbox', () => {
     const publicRoutes = listRoutes(t.app)
       .filter((r) => r.access && 'public' in r.access)
       .map((r) => `${r.method} ${r.path}`)
@@ -35,6 +35,7 @@ describe('every API route declares its access rule', () => {
       [
         'GET /api/auth/csrf',
         'GET /api/dev/outbox',
+        'GET /api/examples/roof-schedule.csv',
         'GET /api/health',
         'GET /api/invitations/:token',
         'POST /api/auth/login',

@@ -1,0 +1,410 @@
+import type { Knex } from 'knex';
+import type { ProductCategory, SystemRole, SystemSettings } from '../shared/schemas/catalogue.schema';
+
+/**
+ * The demo merchants' catalogues: invented products (no maker's names or figures), each branch's
+ * prices in pence and stock for several roofs, and two roof systems at every branch: a single-lap
+ * concrete interlocking tile and a double-lap covering (plain tile or slate). Technical figures are
+ * typical of their kind and meant for the demo only; a real job follows the tile maker's data.
+ */
+
+interface DemoProduct {
+  sku: string;
+  name: string;
+  category: ProductCategory;
+  unit: string;
+  pack_size: number;
+  pack_weight_kg: number;
+  technical: Record<string, unknown>;
+}
+
+interface DemoSystem {
+  name: string;
+  description: string;
+  settings: SystemSettings;
+  components: Partial<Record<SystemRole, string>>;
+}
+
+export interface DemoMerchant {
+  organisation: string;
+  products: DemoProduct[];
+  /** Pence per pack at the first branch; other branches vary by their factor. */
+  prices: Record<string, number>;
+  /** Packs on hand at the first branch, and the level at which the desk reorders. */
+  stock: Record<string, [onHand: number, reorder: number]>;
+  branches: { name: string; priceFactor: number; stockFactor: number }[];
+  systems: DemoSystem[];
+}
+
+const interlockingTile = (sku: string, name: string, f: { length: number; width: number; cover: number; bands: [number, number][]; kg: number; perPallet: number }): DemoProduct => ({
+  sku,
+  name,
+  category: 'tile',
+  unit: 'tile',
+  pack_size: 1,
+  pack_weight_kg: f.kg,
+  technical: {
+    kind: 'single_lap',
+    length_mm: f.length,
+    width_mm: f.width,
+    // About 3 mm of play at the side lock each way (common practice for single-lap tiles).
+    cover_width_mm: { min: f.cover - 3, nominal: f.cover, max: f.cover + 3 },
+    headlap_mm: f.bands.map(([from, min]) => ({ from_pitch_deg: from, min_mm: min })),
+    bond: 'broken',
+    halves_per_tile: 2,
+    weight_kg: f.kg,
+    per_pallet: f.perPallet,
+    nails_per_tile: 1,
+  },
+});
+
+const ridge = (sku: string, name: string, category: 'ridge' | 'hip', cover: number, kg: number): DemoProduct => ({
+  sku,
+  name,
+  category,
+  unit: 'piece',
+  pack_size: 1,
+  pack_weight_kg: kg,
+  technical: { cover_mm: cover, weight_kg: kg },
+});
+
+const batten = (sku: string, name: string, width: number, depth: number, kgPerM: number): DemoProduct => ({
+  sku,
+  name,
+  category: 'batten',
+  unit: 'length',
+  pack_size: 1,
+  pack_weight_kg: Math.round(kgPerM * 4.8 * 100) / 100,
+  technical: { stock_length_mm: 4800, width_mm: width, depth_mm: depth, kg_per_m: kgPerM },
+});
+
+const nails = (sku: string, name: string, category: 'batten_nail' | 'tile_nail', perBox: number, f: { length: number; diameter: number; g: number }): DemoProduct => ({
+  sku,
+  name,
+  category,
+  unit: 'nail',
+  pack_size: perBox,
+  pack_weight_kg: Math.round(perBox * f.g) / 1000,
+  technical: { length_mm: f.length, diameter_mm: f.diameter, nail_g: f.g },
+});
+
+const clips = (sku: string, name: string, perBag: number, g: number): DemoProduct => ({
+  sku,
+  name,
+  category: 'clip',
+  unit: 'clip',
+  pack_size: perBag,
+  pack_weight_kg: Math.round(perBag * g) / 1000,
+  technical: { clip_g: g },
+});
+
+const underlay = (sku: string, name: string): DemoProduct => ({
+  sku,
+  name,
+  category: 'underlay',
+  unit: 'roll',
+  pack_size: 1,
+  pack_weight_kg: 6.5,
+  technical: { roll_width_mm: 1000, roll_length_mm: 50_000, roll_kg: 6.5 },
+});
+
+const valley = (sku: string, name: string, metres: number, kg: number): DemoProduct => ({
+  sku,
+  name,
+  category: 'valley',
+  unit: 'm',
+  pack_size: metres,
+  pack_weight_kg: kg,
+  technical: { weight_kg: kg },
+});
+
+const everyTile: SystemSettings = { rafter_spacing_mm: 600, fixing: { rule: 'every_tile' }, underlay: { head_lap_mm: 150 } };
+
+export const DEMO_CATALOGUES: DemoMerchant[] = [
+  {
+    organisation: 'Tollerbeck Roofing Supplies',
+    products: [
+      interlockingTile('TRS-FL420-SG', 'Flatlock 420 concrete interlocking tile, slate grey', {
+        length: 420, width: 330, cover: 300, bands: [[22.5, 100], [30, 75]], kg: 4.4, perPallet: 180,
+      }),
+      {
+        sku: 'TRS-KP265-BR',
+        name: 'Kilnworth clay plain tile 265 × 165, brindle',
+        category: 'tile',
+        unit: 'tile',
+        pack_size: 1,
+        pack_weight_kg: 1.15,
+        technical: {
+          kind: 'double_lap',
+          length_mm: 265,
+          width_mm: 165,
+          // 65 mm headlap from 35° (NHBC 7.2.19 table for plain tiles).
+          headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }],
+          bond: 'broken',
+          halves_per_tile: 2,
+          weight_kg: 1.15,
+          per_pallet: 800,
+          nails_per_tile: 2,
+        },
+      },
+      ridge('TRS-RHR-SG', 'Half-round concrete ridge, slate grey', 'ridge', 420, 4.8),
+      ridge('TRS-HTR-SG', 'Third-round concrete hip, slate grey', 'hip', 420, 4.6),
+      ridge('TRS-RCL-BR', 'Clay half-round ridge, brindle', 'ridge', 430, 5.2),
+      ridge('TRS-HCL-BR', 'Clay third-round hip, brindle', 'hip', 430, 4.9),
+      batten('TRS-BAT-3825', 'Treated softwood batten 38 × 25 mm, 4.8 m', 38, 25, 0.45),
+      nails('TRS-NB65-1K', 'Galvanised batten nails 65 × 3.35 mm, box of 1000', 'batten_nail', 1000, { length: 65, diameter: 3.35, g: 4.5 }),
+      nails('TRS-NT38-1K', 'Aluminium tile nails 38 × 3.35 mm, box of 1000', 'tile_nail', 1000, { length: 38, diameter: 3.35, g: 1.5 }),
+      clips('TRS-CLP-FL', 'Tail clips for Flatlock 420, bag of 100', 100, 6),
+      underlay('TRS-UVP-50', 'Vapour-permeable underlay 1 m × 50 m'),
+      valley('TRS-VAL-3M', 'Moulded valley trough, 3 m length', 3, 4.2),
+    ],
+    prices: {
+      'TRS-FL420-SG': 128,
+      'TRS-KP265-BR': 74,
+      'TRS-RHR-SG': 650,
+      'TRS-HTR-SG': 690,
+      'TRS-RCL-BR': 1150,
+      'TRS-HCL-BR': 1120,
+      'TRS-BAT-3825': 440,
+      'TRS-NB65-1K': 1850,
+      'TRS-NT38-1K': 2450,
+      'TRS-CLP-FL': 1650,
+      'TRS-UVP-50': 6400,
+      'TRS-VAL-3M': 2890,
+    },
+    stock: {
+      // Enough for the example development (twenty houses) and a few single roofs besides.
+      'TRS-FL420-SG': [60000, 12000],
+      'TRS-KP265-BR': [40000, 8000],
+      'TRS-RHR-SG': [900, 150],
+      'TRS-HTR-SG': [2000, 300],
+      'TRS-RCL-BR': [400, 80],
+      'TRS-HCL-BR': [600, 100],
+      'TRS-BAT-3825': [5000, 800],
+      'TRS-NB65-1K': [80, 15],
+      'TRS-NT38-1K': [120, 20],
+      'TRS-CLP-FL': [200, 40],
+      'TRS-UVP-50': [250, 40],
+      'TRS-VAL-3M': [60, 10],
+    },
+    branches: [
+      { name: 'Tollerbeck Yard', priceFactor: 1, stockFactor: 1 },
+      { name: 'Cindermoor Depot', priceFactor: 1.04, stockFactor: 0.6 },
+    ],
+    systems: [
+      {
+        name: 'Flatlock 420 interlocking tile roof',
+        description: 'Single-lap flat concrete interlocking tile, broken bond, with half-round ridge, third-round hip and 38 × 25 battens.',
+        settings: everyTile,
+        components: {
+          tile: 'TRS-FL420-SG',
+          ridge: 'TRS-RHR-SG',
+          hip: 'TRS-HTR-SG',
+          batten: 'TRS-BAT-3825',
+          batten_nail: 'TRS-NB65-1K',
+          tile_nail: 'TRS-NT38-1K',
+          clip: 'TRS-CLP-FL',
+          underlay: 'TRS-UVP-50',
+          valley: 'TRS-VAL-3M',
+        },
+      },
+      {
+        name: 'Kilnworth clay plain tile roof',
+        description: 'Double-lap clay plain tile at 100 mm gauge (65 mm headlap), with clay ridge and hip, twice-nailed.',
+        settings: { ...everyTile, waste_pct: { tiles: 7 } },
+        components: {
+          tile: 'TRS-KP265-BR',
+          ridge: 'TRS-RCL-BR',
+          hip: 'TRS-HCL-BR',
+          batten: 'TRS-BAT-3825',
+          batten_nail: 'TRS-NB65-1K',
+          tile_nail: 'TRS-NT38-1K',
+          underlay: 'TRS-UVP-50',
+          valley: 'TRS-VAL-3M',
+        },
+      },
+    ],
+  },
+  {
+    organisation: 'Caddonmere Tile & Timber',
+    products: [
+      interlockingTile('CTT-WL380-RU', 'Wharf-Lock 380 concrete interlocking tile, russet', {
+        length: 380, width: 230, cover: 200, bands: [[25, 90], [30, 75]], kg: 2.6, perPallet: 350,
+      }),
+      {
+        sku: 'CTT-SL5025-BG',
+        name: 'Pellingsby blue-grey slate 500 × 250 mm',
+        category: 'tile',
+        unit: 'slate',
+        pack_size: 1,
+        pack_weight_kg: 2.1,
+        technical: {
+          kind: 'double_lap',
+          length_mm: 500,
+          width_mm: 250,
+          // Headlap grows as the pitch falls (common practice; figures from memory, not a maker's table).
+          headlap_mm: [
+            { from_pitch_deg: 22.5, min_mm: 100 },
+            { from_pitch_deg: 27.5, min_mm: 90 },
+            { from_pitch_deg: 35, min_mm: 75 },
+          ],
+          bond: 'broken',
+          halves_per_tile: 2,
+          weight_kg: 2.1,
+          per_pallet: 400,
+          nails_per_tile: 2,
+        },
+      },
+      ridge('CTT-RSR-RU', 'Segmental concrete ridge, russet', 'ridge', 410, 4.5),
+      ridge('CTT-HSR-RU', 'Segmental concrete hip, russet', 'hip', 410, 4.5),
+      ridge('CTT-RAN-BG', 'Blue clay angle ridge 450 mm', 'ridge', 420, 4.4),
+      batten('CTT-BAT-3825', 'Graded treated batten 38 × 25 mm, 4.8 m', 38, 25, 0.45),
+      // Natural slate on 600 mm centres needs 50 × 25 battens (BS 5534 Table 3 as reproduced by the NFRC).
+      batten('CTT-BAT-5025', 'Graded treated batten 50 × 25 mm, 4.8 m', 50, 25, 0.59),
+      nails('CTT-NB65-1K', 'Galvanised batten nails 65 × 3.35 mm, box of 1000', 'batten_nail', 1000, { length: 65, diameter: 3.35, g: 4.5 }),
+      nails('CTT-NT38-1K', 'Aluminium tile nails 38 × 3.35 mm, box of 1000', 'tile_nail', 1000, { length: 38, diameter: 3.35, g: 1.5 }),
+      nails('CTT-NS30-500', 'Copper slate nails 30 × 3.35 mm, box of 500', 'tile_nail', 500, { length: 30, diameter: 3.35, g: 2.4 }),
+      clips('CTT-CLP-WL', 'Tail clips for Wharf-Lock 380, bag of 100', 100, 5),
+      underlay('CTT-UVP-50', 'Breathable roof underlay 1 m × 50 m'),
+      valley('CTT-VAL-3M', 'Lead-free valley lining, 3 m length', 3, 5.1),
+    ],
+    prices: {
+      'CTT-WL380-RU': 89,
+      'CTT-SL5025-BG': 215,
+      'CTT-RSR-RU': 615,
+      'CTT-HSR-RU': 640,
+      'CTT-RAN-BG': 980,
+      'CTT-BAT-3825': 455,
+      'CTT-BAT-5025': 585,
+      'CTT-NB65-1K': 1795,
+      'CTT-NT38-1K': 2395,
+      'CTT-NS30-500': 3450,
+      'CTT-CLP-WL': 1590,
+      'CTT-UVP-50': 6150,
+      'CTT-VAL-3M': 3190,
+    },
+    stock: {
+      'CTT-WL380-RU': [90000, 15000],
+      'CTT-SL5025-BG': [60000, 10000],
+      'CTT-RSR-RU': [900, 150],
+      'CTT-HSR-RU': [2000, 300],
+      'CTT-RAN-BG': [900, 150],
+      'CTT-BAT-3825': [5000, 800],
+      'CTT-BAT-5025': [9000, 1500],
+      'CTT-NB65-1K': [80, 15],
+      'CTT-NT38-1K': [120, 20],
+      'CTT-NS30-500': [300, 50],
+      'CTT-CLP-WL': [300, 50],
+      'CTT-UVP-50': [250, 40],
+      'CTT-VAL-3M': [50, 8],
+    },
+    branches: [
+      { name: 'Caddonmere Wharf', priceFactor: 1, stockFactor: 1 },
+      { name: 'Pellingsby Yard', priceFactor: 0.97, stockFactor: 0.7 },
+    ],
+    systems: [
+      {
+        name: 'Wharf-Lock 380 interlocking tile roof',
+        description: 'Single-lap concrete interlocking tile with segmental ridge and hip on 38 × 25 battens.',
+        settings: everyTile,
+        components: {
+          tile: 'CTT-WL380-RU',
+          ridge: 'CTT-RSR-RU',
+          hip: 'CTT-HSR-RU',
+          batten: 'CTT-BAT-3825',
+          batten_nail: 'CTT-NB65-1K',
+          tile_nail: 'CTT-NT38-1K',
+          clip: 'CTT-CLP-WL',
+          underlay: 'CTT-UVP-50',
+          valley: 'CTT-VAL-3M',
+        },
+      },
+      {
+        name: 'Pellingsby slate roof 500 × 250',
+        description: 'Double-lap natural slate, twice-nailed with copper nails, on 50 × 25 battens, with blue clay angle ridge.',
+        settings: { ...everyTile, waste_pct: { tiles: 8 } },
+        components: {
+          tile: 'CTT-SL5025-BG',
+          ridge: 'CTT-RAN-BG',
+          batten: 'CTT-BAT-5025',
+          batten_nail: 'CTT-NB65-1K',
+          tile_nail: 'CTT-NS30-500',
+          underlay: 'CTT-UVP-50',
+          valley: 'CTT-VAL-3M',
+        },
+      },
+    ],
+  },
+];
+
+const idOf = (row: unknown) => (typeof row === 'object' && row !== null ? (row as { id: number }).id : (row as number));
+
+/**
+ * Puts one merchant's catalogue into the database: its products, each branch's prices and stock, and
+ * every system at every branch given. Returns the ids made, by SKU and by branch.
+ */
+export async function installCatalogue(
+  knex: Knex,
+  organisationId: number,
+  branches: { id: number; priceFactor: number; stockFactor: number }[],
+  merchant: Pick<DemoMerchant, 'products' | 'prices' | 'stock' | 'systems'>,
+): Promise<{ productIds: Map<string, number>; systemIds: { branchId: number; name: string; id: number }[] }> {
+  const now = new Date().toISOString();
+  return knex.transaction(async (trx) => {
+    const productIds = new Map<string, number>();
+    const systemIds: { branchId: number; name: string; id: number }[] = [];
+    for (const p of merchant.products) {
+      const [row] = await trx('products')
+        .insert({ organisation_id: organisationId, ...p, technical: JSON.stringify(p.technical), created_at: now, updated_at: now })
+        .returning('id');
+      productIds.set(p.sku, idOf(row));
+    }
+    for (const b of branches) {
+      for (const p of merchant.products) {
+        const [onHand, reorder] = merchant.stock[p.sku];
+        await trx('branch_products').insert({
+          branch_id: b.id,
+          product_id: productIds.get(p.sku),
+          pack_price: Math.round(merchant.prices[p.sku] * b.priceFactor),
+          on_hand: Math.round(onHand * b.stockFactor),
+          reserved: 0,
+          reorder_level: Math.round(reorder * b.stockFactor),
+          updated_at: now,
+        });
+      }
+      for (const s of merchant.systems) {
+        const [sys] = await trx('roof_systems')
+          .insert({
+            organisation_id: organisationId,
+            branch_id: b.id,
+            name: s.name,
+            description: s.description,
+            settings: JSON.stringify(s.settings),
+            created_at: now,
+            updated_at: now,
+          })
+          .returning('id');
+        systemIds.push({ branchId: b.id, name: s.name, id: idOf(sys) });
+        for (const [role, sku] of Object.entries(s.components)) {
+          await trx('roof_system_components').insert({ roof_system_id: idOf(sys), role, product_id: productIds.get(sku as string) });
+        }
+      }
+    }
+    return { productIds, systemIds };
+  });
+}
+
+/** Safe to run again: a merchant that already has its first product is left as it is. */
+export async function seed(knex: Knex): Promise<void> {
+  for (const merchant of DEMO_CATALOGUES) {
+    const org = await knex('organisations').where({ name: merchant.organisation, kind: 'merchant' }).first();
+    if (!org) continue;
+    if (await knex('products').where({ organisation_id: org.id, sku: merchant.products[0].sku }).first()) continue;
+    const branches: { id: number; priceFactor: number; stockFactor: number }[] = [];
+    for (const b of merchant.branches) {
+      const branch = await knex('branches').where({ organisation_id: org.id, name: b.name }).first();
+      if (branch) branches.push({ id: branch.id, priceFactor: b.priceFactor, stockFactor: b.stockFactor });
+    }
+    await installCatalogue(knex, org.id, branches, merchant);
+  }
+}

@@ -1,0 +1,93 @@
+import { DELIVERY_METHOD_LABELS, orderReference } from '../../../shared/schemas/order.schema';
+import type { AppDeps } from '../../app-deps';
+import { renderEmail } from '../../mail/templates';
+import type { OrderRow } from './orders.repository';
+
+export type OrderMailEvent = 'placed' | 'amended' | 'cancelled' | 'changes_offered' | 'changes_accepted' | 'changes_declined';
+
+interface Letter {
+  subject: string;
+  heading: string;
+  paragraphs: string[];
+}
+
+const money = (minor: number) => `£${(minor / 100).toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 })}`;
+const when = (o: OrderRow) => `${o.requested_date}${o.time_window ? `, ${o.time_window}` : ''}`;
+
+/** What each side is told at each step; the desk hears of what the contractor does and the other way round. */
+function letters(event: OrderMailEvent, o: OrderRow, note?: string): { contractor?: Letter; desk?: Letter } {
+  const ref = orderReference(o.id);
+  const place = `${o.branch_name} (${o.merchant_name})`;
+  const delivery = `${DELIVERY_METHOD_LABELS[o.delivery_method]} at ${o.site_name} on ${when(o)}.`;
+  const noted = note ? [`Note: ${note}`] : [];
+  switch (event) {
+    case 'placed':
+      return {
+        contractor: {
+          subject: `Order ${ref} sent to ${o.branch_name}`,
+          heading: `Order ${ref} is with ${o.branch_name}`,
+          paragraphs: [`Your order of ${o.line_count} lines (${money(o.subtotal)} before tax) went to ${place}.`, delivery, 'You will hear from us when the merchant confirms it or offers changes.'],
+        },
+        desk: {
+          subject: `New order ${ref} from ${o.contractor_name}`,
+          heading: `New order for ${o.branch_name}`,
+          paragraphs: [`${o.contractor_name} sent order ${ref}: ${o.line_count} lines, ${money(o.subtotal)} before tax.`, delivery, ...(o.po_reference ? [`Their reference: ${o.po_reference}.`] : [])],
+        },
+      };
+    case 'amended':
+      return {
+        contractor: { subject: `Order ${ref} changed`, heading: `Order ${ref} changed`, paragraphs: [`Your changes went to ${place}.`, delivery] },
+        desk: { subject: `Order ${ref} changed by ${o.contractor_name}`, heading: `Order ${ref} changed`, paragraphs: [`${o.contractor_name} changed order ${ref}; check it again before confirming.`, delivery] },
+      };
+    case 'cancelled':
+      return {
+        contractor: { subject: `Order ${ref} cancelled`, heading: `Order ${ref} cancelled`, paragraphs: [`The order to ${place} is cancelled.`, ...noted] },
+        desk: { subject: `Order ${ref} cancelled by ${o.contractor_name}`, heading: `Order ${ref} cancelled`, paragraphs: [`${o.contractor_name} cancelled order ${ref}.`, ...noted] },
+      };
+    case 'changes_offered':
+      return {
+        contractor: {
+          subject: `${o.branch_name} offers changes to order ${ref}`,
+          heading: `Changes offered on order ${ref}`,
+          paragraphs: [`${place} answered your order with changes (quantities, substitutes or the delivery day). Accept or decline them in Ridgeload.`, ...noted],
+        },
+      };
+    case 'changes_accepted':
+      return {
+        contractor: { subject: `You accepted the changes to order ${ref}`, heading: `Changes accepted on order ${ref}`, paragraphs: [`${place} will now confirm the order.`, delivery] },
+        desk: { subject: `${o.contractor_name} accepted your changes to order ${ref}`, heading: `Changes accepted on order ${ref}`, paragraphs: ['The order is ready to confirm.', delivery] },
+      };
+    case 'changes_declined':
+      return {
+        contractor: { subject: `You declined the changes to order ${ref}`, heading: `Changes declined on order ${ref}`, paragraphs: [`${place} has been told and will answer again.`, ...noted] },
+        desk: { subject: `${o.contractor_name} declined your changes to order ${ref}`, heading: `Changes declined on order ${ref}`, paragraphs: ['The order stands as it was sent.', ...noted] },
+      };
+  }
+}
+
+/** Sends an order's e-mails after its change is committed; a mail failure is logged, never undoes the change. */
+export async function sendOrderMail(
+  { mailer, logger, config }: Pick<AppDeps, 'mailer' | 'logger' | 'config'>,
+  event: OrderMailEvent,
+  order: OrderRow,
+  to: { contractor: string[]; desk: string[] },
+  note?: string,
+): Promise<void> {
+  const content = letters(event, order, note);
+  const url = `${config.appUrl}/orders/${order.id}`;
+  const jobs: Promise<void>[] = [];
+  for (const [side, letter] of [
+    ['contractor', content.contractor],
+    ['desk', content.desk],
+  ] as const) {
+    if (!letter) continue;
+    for (const address of to[side]) {
+      jobs.push(
+        mailer
+          .send(renderEmail({ to: address, ...letter, action: { label: 'Open the order', url }, footnote: 'Figures are estimates; check them against the tile maker’s fixing specification.' }))
+          .catch((err: unknown) => logger.error({ err, order: order.id, event }, 'order e-mail failed')),
+      );
+    }
+  }
+  await Promise.all(jobs);
+}

@@ -1,0 +1,256 @@
+import type { RoofSystem } from '../schemas/roof-system.schema';
+
+export type AccessoryItem = 'underlay_rolls' | 'battens' | 'batten_nails' | 'tile_nails' | 'ridge_tiles' | 'hip_tiles';
+
+export interface PalletFace {
+  building: string;
+  face: string;
+  tiles: number;
+}
+
+export interface PalletItem {
+  item: AccessoryItem;
+  quantity: number;
+  weight_kg: number;
+}
+
+export interface Pallet {
+  /** Pallet number, in the order the pallets come off at site (1 = first off). */
+  n: number;
+  kind: 'tiles' | 'accessories';
+  tiles: number;
+  /** Gross: contents and the pallet itself. */
+  weight_kg: number;
+  /** Faces the tiles serve (whole faces over every copy); spare tiles (the waste allowance) have face "spare". */
+  faces: PalletFace[];
+  /** Accessories on an accessory pallet. */
+  items: PalletItem[];
+}
+
+export interface Load {
+  /** Lorry load number, in delivery order. */
+  load: number;
+  /** Pallet numbers in the order they go onto the lorry: what comes off first is loaded last. */
+  pallets: number[];
+  weight_kg: number;
+}
+
+export interface DeliveryIssue {
+  code: 'pallet_over_max' | 'pallet_over_payload' | 'delivery_plan_too_large';
+  message: string;
+}
+
+export interface Accessory {
+  item: AccessoryItem;
+  quantity: number;
+  unit_kg: number;
+}
+
+export interface DeliveryInput {
+  tilesOrdered: number;
+  /** Net tiles of one copy of each face and its quantity, in schedule order; the rest of tilesOrdered is spare. */
+  faces: ReadonlyArray<{ building: string; face: string; tiles: number; quantity: number }>;
+  /** Needed at the start (underlay, battens, nails): off first. */
+  firstOff: Accessory[];
+  /** Needed at the end (ridge and hip tiles): off last. */
+  lastOff: Accessory[];
+}
+
+export interface DeliveryPlan {
+  pallets: Pallet[];
+  loads: Load[];
+  tile_pallets: number;
+  accessory_pallets: number;
+  weight_kg: number;
+  issues: DeliveryIssue[];
+}
+
+function round1(v: number): number {
+  return Math.round(v * 10) / 10;
+}
+
+/** Shared by every tile pallet (no accessories) and accessory pallet (no faces): not to be written to. */
+const NO_ITEMS: PalletItem[] = Object.freeze([]) as unknown as PalletItem[];
+const NO_FACES: PalletFace[] = Object.freeze([]) as unknown as PalletFace[];
+
+/** Accessory pallets made up to a net capacity in kg, items in the order given, whole units only. */
+function packAccessories(items: readonly Accessory[], capacityKg: number, build: boolean): { pallets: PalletItem[][]; count: number } {
+  const pallets: PalletItem[][] = [];
+  let count = 0;
+  let current: PalletItem[] | null = null;
+  let room = 0;
+  const open = () => {
+    count++;
+    room = capacityKg;
+    current = build ? [] : null;
+    if (current) pallets.push(current);
+  };
+  let started = false;
+  for (const it of items) {
+    let units = it.quantity;
+    if (units <= 0) continue;
+    if (it.unit_kg <= 0) {
+      // Weightless in the system (no weight given): rides on whatever pallet is open.
+      if (!started) {
+        open();
+        started = true;
+      }
+      if (current) (current as PalletItem[]).push({ item: it.item, quantity: units, weight_kg: 0 });
+      continue;
+    }
+    const perFull = Math.max(1, Math.floor(capacityKg / it.unit_kg + 1e-9));
+    while (units > 0) {
+      if (!started) {
+        open();
+        started = true;
+      }
+      let fit = Math.floor(room / it.unit_kg + 1e-9);
+      if (fit <= 0) {
+        if (room < capacityKg) {
+          open();
+          continue;
+        }
+        fit = 1; // one unit heavier than a pallet: it goes alone
+      }
+      if (room === capacityKg && units >= 2 * perFull && !build) {
+        // Counting only: whole pallets of this item in one step.
+        const whole = Math.floor(units / perFull) - 1;
+        count += whole;
+        units -= whole * perFull;
+        continue;
+      }
+      const take = Math.min(units, fit);
+      if (current) (current as PalletItem[]).push({ item: it.item, quantity: take, weight_kg: round1(take * it.unit_kg) });
+      units -= take;
+      room -= take * it.unit_kg;
+      if (units > 0) open();
+    }
+  }
+  return { pallets, count };
+}
+
+/**
+ * Delivery: tiles on pallets of per_pallet (the last one part-full), each listing its count, gross
+ * weight and the faces it serves, in schedule order; accessories on pallets made up to max_pallet_kg,
+ * underlay, battens and nails first off and ridge and hip tiles last. Pallets are numbered in the order
+ * they come off; lorry loads are filled in that order up to the payload and the pallet slots, and each
+ * load is loaded in reverse, so what comes off first is loaded last. Weights in kg.
+ */
+export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallets: number): DeliveryPlan {
+  const { tile, truck } = system;
+  const issues: DeliveryIssue[] = [];
+  const tare = truck.pallet_tare_kg;
+  const capacity = Math.max(1e-9, truck.max_pallet_kg - tare);
+  const tilePallets = input.tilesOrdered > 0 ? Math.ceil(input.tilesOrdered / tile.per_pallet) : 0;
+  const firstCount = packAccessories(input.firstOff, capacity, false).count;
+  const lastCount = packAccessories(input.lastOff, capacity, false).count;
+  const accessoryKg = [...input.firstOff, ...input.lastOff].reduce((sum, a) => sum + a.quantity * a.unit_kg, 0);
+  const totalPallets = tilePallets + firstCount + lastCount;
+  const weight = input.tilesOrdered * tile.weight_kg + accessoryKg + totalPallets * tare;
+
+  const fullTilePallet = tile.per_pallet * tile.weight_kg + tare;
+  if (tilePallets > 0 && Math.min(input.tilesOrdered, tile.per_pallet) * tile.weight_kg + tare > truck.max_pallet_kg) {
+    issues.push({
+      code: 'pallet_over_max',
+      message: `a full pallet of ${tile.per_pallet} tiles weighs ${round1(fullTilePallet)} kg, more than the ${truck.max_pallet_kg} kg the crane and yard are set to handle`,
+    });
+  }
+  if (totalPallets > maxPallets) {
+    issues.push({
+      code: 'delivery_plan_too_large',
+      message: `the job needs ${totalPallets} pallets, more than ${maxPallets}: split it into smaller jobs for a pallet list and lorry loads`,
+    });
+    return {
+      pallets: [],
+      loads: [],
+      tile_pallets: tilePallets,
+      accessory_pallets: firstCount + lastCount,
+      weight_kg: weight,
+      issues,
+    };
+  }
+
+  const pallets: Pallet[] = [];
+  const addAccessoryPallets = (items: readonly Accessory[]) => {
+    for (const content of packAccessories(items, capacity, true).pallets) {
+      const kg = content.reduce((s, it) => s + it.weight_kg, 0) + tare;
+      pallets.push({ n: pallets.length + 1, kind: 'accessories', tiles: 0, weight_kg: round1(kg), faces: NO_FACES, items: content });
+    }
+  };
+  addAccessoryPallets(input.firstOff);
+
+  // Stream the faces' tiles onto pallets, then the spare tiles.
+  const sources = input.faces;
+  let faceIdx = 0;
+  let faceLeft = sources.length > 0 ? sources[0].tiles * sources[0].quantity : 0;
+  let netLeft = 0;
+  for (const f of sources) netLeft += f.tiles * f.quantity;
+  let spareLeft = Math.max(0, input.tilesOrdered - netLeft);
+  let toPlace = input.tilesOrdered;
+  const palletFaces: PalletFace[] = [];
+  for (let p = 0; p < tilePallets; p++) {
+    const count = Math.min(tile.per_pallet, toPlace);
+    toPlace -= count;
+    let room = count;
+    let served = 0;
+    while (room > 0 && faceIdx < sources.length) {
+      if (faceLeft <= 0) {
+        faceIdx++;
+        faceLeft = faceIdx < sources.length ? sources[faceIdx].tiles * sources[faceIdx].quantity : 0;
+        continue;
+      }
+      const take = Math.min(room, faceLeft);
+      const f = sources[faceIdx];
+      palletFaces[served++] = { building: f.building, face: f.face, tiles: take };
+      faceLeft -= take;
+      room -= take;
+    }
+    if (room > 0 && spareLeft > 0) {
+      const take = Math.min(room, spareLeft);
+      palletFaces[served++] = { building: '', face: 'spare', tiles: take };
+      spareLeft -= take;
+    }
+    pallets.push({
+      n: pallets.length + 1,
+      kind: 'tiles',
+      tiles: count,
+      weight_kg: round1(count * tile.weight_kg + tare),
+      // An exact-size copy: a big job holds one of these per pallet.
+      faces: palletFaces.slice(0, served),
+      items: NO_ITEMS,
+    });
+  }
+  addAccessoryPallets(input.lastOff);
+
+  const loads: Load[] = [];
+  let onLoad: Pallet[] = [];
+  let loadKg = 0;
+  let overPayload = 0;
+  const close = () => {
+    if (onLoad.length === 0) return;
+    loads.push({ load: loads.length + 1, pallets: onLoad.map((p) => p.n).reverse(), weight_kg: round1(loadKg) });
+    onLoad = [];
+    loadKg = 0;
+  };
+  for (const p of pallets) {
+    if (onLoad.length > 0 && (onLoad.length >= truck.pallet_slots || loadKg + p.weight_kg > truck.payload_kg + 1e-9)) close();
+    if (p.weight_kg > truck.payload_kg) overPayload++;
+    onLoad.push(p);
+    loadKg += p.weight_kg;
+  }
+  close();
+  if (overPayload > 0) {
+    issues.push({
+      code: 'pallet_over_payload',
+      message: `${overPayload} pallet(s) weigh more than the lorry's ${truck.payload_kg} kg payload and travel alone, over the limit: use a bigger lorry`,
+    });
+  }
+  return {
+    pallets,
+    loads,
+    tile_pallets: tilePallets,
+    accessory_pallets: firstCount + lastCount,
+    weight_kg: weight,
+    issues,
+  };
+}

@@ -1,0 +1,121 @@
+/** Batten rows (0 = eaves) that carry stacks: every nth from the top row down, floor(courses ÷ n) of them. */
+export function loadingRowIndices(courses: number, everyNth: number): number[] {
+  const count = Math.floor(courses / everyNth);
+  const rows: number[] = [];
+  for (let i = 0; i < count; i++) rows.push(courses - 1 - i * everyNth);
+  return rows;
+}
+
+export interface FaceLoading {
+  /** Places for a stack: rafters crossed by the loading rows. */
+  positions: number;
+  stacks: number;
+  /** Stacks on each loading batten, the top one first (loading battens are every nth from the top). */
+  stacks_by_row: number[];
+  /** Tiles a stack would need to hold when there are too few positions; null when they suffice. */
+  needed_stack: number | null;
+}
+
+/**
+ * Roof loading of one face: stacks of stack_size tiles over the rafters on every nth batten, spread
+ * evenly from the top of the face down (upper rows take any odd stack). Stacks = ceil(tiles ÷ stack
+ * size). `rowPositions` gives the rafters crossed by each loading row, top row first (its first `rows`
+ * entries).
+ */
+export function planFaceLoading(
+  tiles: number,
+  rowPositions: readonly number[],
+  stackSize: number,
+  rows: number = rowPositions.length,
+): FaceLoading {
+  const stacks = Math.ceil(tiles / stackSize);
+  let positions = 0;
+  for (let i = 0; i < rows; i++) positions += rowPositions[i];
+  // Sized up front: a job holds one of these per face.
+  const placed: number[] = new Array<number>(rows);
+  for (let i = 0; i < rows; i++) placed[i] = 0;
+  if (positions === 0) {
+    return { positions, stacks, stacks_by_row: placed, needed_stack: stacks > 0 ? tiles : null };
+  }
+  let left = Math.min(stacks, positions);
+  // Share out evenly in rounds so a full row passes its share on to the rows below it.
+  while (left > 0) {
+    let open = 0;
+    for (let i = 0; i < rows; i++) if (placed[i] < rowPositions[i]) open++;
+    if (open === 0) break;
+    const share = Math.floor(left / open);
+    let extra = left - share * open;
+    for (let i = 0; i < rows; i++) {
+      if (placed[i] >= rowPositions[i]) continue;
+      const want = share + (extra > 0 ? 1 : 0);
+      if (extra > 0) extra--;
+      const take = Math.min(want, rowPositions[i] - placed[i]);
+      placed[i] += take;
+      left -= take;
+    }
+  }
+  return {
+    positions,
+    stacks,
+    stacks_by_row: placed,
+    needed_stack: stacks > positions ? Math.ceil(tiles / positions) : null,
+  };
+}
+
+export interface RidgeSide {
+  building: string;
+  face: string;
+  top_mm: number;
+  load_kg: number;
+}
+
+export interface RidgeBalance {
+  building: string;
+  faces: [string, string];
+  load_kg: [number, number];
+  difference_kg: number;
+}
+
+function sameRidge(a: number, b: number): boolean {
+  if (a === 0 || b === 0) return a === b;
+  return Math.abs(a - b) <= 0.01 * Math.max(a, b);
+}
+
+/**
+ * Pairs the faces of one building that meet at a ridge, so both slopes can be loaded in step: faces
+ * with the same top length (within 1 %) pair in schedule order, and hip ends (top 0) pair with each
+ * other at the two ends of the ridge. Returns the pairs and the faces left without a partner.
+ */
+export function pairRidgeFaces(sides: readonly RidgeSide[]): { pairs: RidgeBalance[]; unpaired: RidgeSide[] } {
+  const pairs: RidgeBalance[] = [];
+  const unpaired: RidgeSide[] = [];
+  const partner: number[] = new Array<number>(sides.length).fill(-1);
+  for (let i = 0; i < sides.length; i++) {
+    if (partner[i] >= 0) continue;
+    for (let j = i + 1; j < sides.length; j++) {
+      if (partner[j] < 0 && sameRidge(sides[i].top_mm, sides[j].top_mm)) {
+        partner[i] = j;
+        partner[j] = i;
+        break;
+      }
+    }
+  }
+  // Pairs in the order their second face is listed, as a person reads the schedule.
+  for (let j = 0; j < sides.length; j++) {
+    const i = partner[j];
+    if (i < 0) {
+      unpaired.push(sides[j]);
+      continue;
+    }
+    if (i > j) continue;
+    const other = sides[i];
+    const side = sides[j];
+    pairs.push({
+      building: side.building,
+      faces: [other.face, side.face],
+      load_kg: [other.load_kg, side.load_kg],
+      difference_kg: Math.round(Math.abs(other.load_kg - side.load_kg) * 10) / 10,
+    });
+  }
+  return { pairs, unpaired };
+}

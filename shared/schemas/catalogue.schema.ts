@@ -1,0 +1,147 @@
+import { z } from 'zod';
+import { roofSystemSchema } from './roof-system.schema';
+
+/**
+ * The merchants' catalogue: products with the technical fields the engine reads, roof systems (a tile
+ * and the accessories that go with it) and each branch's price and stock. Lengths in mm, weights in
+ * kg (nails and clips in grams each), money in integer minor units, stock in packs.
+ */
+
+export const PRODUCT_CATEGORIES = [
+  'tile',
+  'ridge',
+  'hip',
+  'batten',
+  'batten_nail',
+  'tile_nail',
+  'clip',
+  'underlay',
+  'valley',
+  'accessory',
+] as const;
+export type ProductCategory = (typeof PRODUCT_CATEGORIES)[number];
+
+/** Words shown for each category, in the order a bill of materials lists them. */
+export const CATEGORY_LABELS: Record<ProductCategory, string> = {
+  tile: 'Tiles',
+  ridge: 'Ridge',
+  hip: 'Hip',
+  batten: 'Battens',
+  batten_nail: 'Batten nails',
+  tile_nail: 'Tile nails',
+  clip: 'Clips',
+  underlay: 'Underlay',
+  valley: 'Valley lining',
+  accessory: 'Accessories',
+};
+
+/** The parts of a roof system; every role but hip, clip and valley is needed for a whole roof. */
+export const SYSTEM_ROLES = ['tile', 'ridge', 'hip', 'batten', 'batten_nail', 'tile_nail', 'clip', 'underlay', 'valley'] as const;
+export type SystemRole = (typeof SYSTEM_ROLES)[number];
+export const REQUIRED_SYSTEM_ROLES: readonly SystemRole[] = ['tile', 'ridge', 'batten', 'batten_nail', 'tile_nail', 'underlay'];
+
+const positive = () => z.number({ error: 'must be a number' }).positive({ error: 'must be more than 0' });
+const whole = (min: number) => z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(min, { error: `must be at least ${min}` });
+
+/** A tile's technical fields are the engine's own tile input. */
+export const tileTechnicalSchema = roofSystemSchema.shape.tile.unwrap();
+export const ridgeTechnicalSchema = z.object({ cover_mm: positive(), weight_kg: positive() });
+export const battenTechnicalSchema = z.object({
+  stock_length_mm: positive(),
+  width_mm: positive(),
+  depth_mm: positive(),
+  kg_per_m: positive(),
+});
+export const nailTechnicalSchema = z.object({ length_mm: positive(), diameter_mm: positive(), nail_g: positive() });
+export const clipTechnicalSchema = z.object({ clip_g: positive() });
+export const underlayTechnicalSchema = z.object({ roll_width_mm: positive(), roll_length_mm: positive(), roll_kg: positive() });
+/** A valley lining is sold in lengths: its unit is the metre and its pack_size the metres in one length. */
+export const valleyTechnicalSchema = z.object({ weight_kg: positive() });
+
+export const TECHNICAL_SCHEMAS = {
+  tile: tileTechnicalSchema,
+  ridge: ridgeTechnicalSchema,
+  hip: ridgeTechnicalSchema,
+  batten: battenTechnicalSchema,
+  batten_nail: nailTechnicalSchema,
+  tile_nail: nailTechnicalSchema,
+  clip: clipTechnicalSchema,
+  underlay: underlayTechnicalSchema,
+  valley: valleyTechnicalSchema,
+  accessory: z.object({}).catchall(z.unknown()),
+} satisfies Record<ProductCategory, z.ZodType>;
+
+export type TileTechnical = z.input<typeof tileTechnicalSchema>;
+export type RidgeTechnical = z.infer<typeof ridgeTechnicalSchema>;
+export type BattenTechnical = z.infer<typeof battenTechnicalSchema>;
+export type NailTechnical = z.infer<typeof nailTechnicalSchema>;
+export type UnderlayTechnical = z.infer<typeof underlayTechnicalSchema>;
+
+/**
+ * What a roof system sets beyond its products: how it is set out, battened, fixed, wasted, loaded and
+ * carried. Any part may be left out and takes the engine's default.
+ */
+export const systemSettingsSchema = z
+  .object({
+    setting_out: roofSystemSchema.shape.setting_out.unwrap().partial(),
+    rafter_spacing_mm: positive(),
+    batten: z.object({ min_supports: whole(2), min_length_mm: z.number().min(0) }).partial(),
+    underlay: z.object({ head_lap_mm: z.number().min(0) }).partial(),
+    fixing: z.object({ rule: z.enum(['every_tile', 'perimeter_and_alternate_courses']) }).partial(),
+    waste_pct: z.object({ tiles: z.number(), battens: z.number(), underlay: z.number(), ridge_hip: z.number() }).partial(),
+    roof_loading: z.object({ stack_size: whole(1), every_nth_batten: whole(1) }).partial(),
+    truck: z.object({ payload_kg: positive(), pallet_slots: whole(1), pallet_tare_kg: z.number().min(0), max_pallet_kg: positive() }).partial(),
+  })
+  .partial();
+export type SystemSettings = z.infer<typeof systemSettingsSchema>;
+
+/** How much of a product a branch can send, as the contractor sees it (stock figures stay with the merchant). */
+export const STOCK_STATES = ['in_stock', 'low', 'out_of_stock'] as const;
+export type StockState = (typeof STOCK_STATES)[number];
+
+export const productSummarySchema = z.object({
+  id: z.number().int(),
+  sku: z.string(),
+  name: z.string(),
+  category: z.enum(PRODUCT_CATEGORIES),
+  unit: z.string(),
+  pack_size: z.number().int(),
+  pack_weight_kg: z.number(),
+});
+export type ProductSummary = z.infer<typeof productSummarySchema>;
+
+export const branchRefSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  town: z.string(),
+  merchant: z.object({ id: z.number().int(), name: z.string() }),
+});
+export type BranchRef = z.infer<typeof branchRefSchema>;
+
+export const systemComponentSchema = z.object({
+  role: z.enum(SYSTEM_ROLES),
+  product: productSummarySchema,
+  /** Price of one pack at this branch, minor units. */
+  unit_price: z.number().int(),
+  stock: z.enum(STOCK_STATES),
+});
+
+/** A roof system as a branch offers it. `system` is the engine's input built from the products. */
+export const roofSystemOfferSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  description: z.string(),
+  branch: branchRefSchema,
+  tile: tileTechnicalSchema,
+  system: roofSystemSchema,
+  components: z.array(systemComponentSchema),
+  prices: z.record(z.string(), z.number().int()),
+});
+export type RoofSystemOffer = z.infer<typeof roofSystemOfferSchema>;
+
+export const systemsListQuerySchema = z.object({
+  branch_id: z.coerce.number().int().positive().optional(),
+  merchant_id: z.coerce.number().int().positive().optional(),
+  kind: z.enum(['single_lap', 'double_lap']).optional(),
+});
+export const systemsListSchema = z.object({ systems: z.array(roofSystemOfferSchema) });

@@ -1,0 +1,465 @@
+import { z } from 'zod';
+import { PRODUCT_CATEGORIES, branchRefSchema } from './catalogue.schema';
+import { CRANE_LIFT, OVERHEAD_LINES, VEHICLE_ACCESS } from './project.schema';
+
+/**
+ * The order book both sides share, and quote requests. Quantities are whole packs (the unit the
+ * merchant sells); money is integer minor units; dates are YYYY-MM-DD; a time window is HH:MM-HH:MM.
+ */
+
+/** Stages of an order, in plain words. */
+export const ORDER_STATUSES = ['sent', 'changes_offered', 'agreed', 'confirmed', 'on_the_road', 'delivered', 'cancelled', 'turned_down'] as const;
+export type OrderStatus = (typeof ORDER_STATUSES)[number];
+
+export const ORDER_STATUS_LABELS: Record<OrderStatus, string> = {
+  sent: 'Sent to the merchant',
+  changes_offered: 'Changes offered by the merchant',
+  agreed: 'Changes agreed, waiting for confirmation',
+  confirmed: 'Confirmed',
+  on_the_road: 'On the road',
+  delivered: 'Delivered',
+  cancelled: 'Cancelled',
+  turned_down: 'Turned down by the merchant',
+};
+
+export type OrderParty = 'contractor' | 'merchant';
+
+/**
+ * Who may move an order from which stages to which. The contractor's side is built with the
+ * contractor workspace; the merchant's confirm, turn-down, dispatch and delivery steps with the desk.
+ */
+export const ORDER_TRANSITIONS = {
+  amend: { by: 'contractor', from: ['sent', 'changes_offered', 'agreed'], to: 'sent' },
+  cancel: { by: 'contractor', from: ['sent', 'changes_offered', 'agreed'], to: 'cancelled' },
+  accept_changes: { by: 'contractor', from: ['changes_offered'], to: 'agreed' },
+  decline_changes: { by: 'contractor', from: ['changes_offered'], to: 'sent' },
+  offer_changes: { by: 'merchant', from: ['sent', 'agreed'], to: 'changes_offered' },
+  confirm: { by: 'merchant', from: ['sent', 'agreed'], to: 'confirmed' },
+  turn_down: { by: 'merchant', from: ['sent', 'changes_offered', 'agreed'], to: 'turned_down' },
+  dispatch: { by: 'merchant', from: ['confirmed'], to: 'on_the_road' },
+  deliver: { by: 'merchant', from: ['on_the_road'], to: 'delivered' },
+} as const satisfies Record<string, { by: OrderParty; from: readonly OrderStatus[]; to: OrderStatus }>;
+export type OrderAction = keyof typeof ORDER_TRANSITIONS;
+
+/** Actions a party may take on an order in a given stage. */
+export function allowedOrderActions(status: OrderStatus, party: OrderParty): OrderAction[] {
+  return (Object.keys(ORDER_TRANSITIONS) as OrderAction[]).filter((a) => {
+    const t = ORDER_TRANSITIONS[a];
+    return t.by === party && (t.from as readonly OrderStatus[]).includes(status);
+  });
+}
+
+/** How each line stands after the merchant's answer. */
+export const ORDER_LINE_STATUSES = ['asked', 'agreed', 'part_agreed', 'back_ordered', 'replaced', 'not_available', 'substitute'] as const;
+export type OrderLineStatus = (typeof ORDER_LINE_STATUSES)[number];
+
+export const DELIVERY_METHODS = ['ground', 'roof'] as const;
+export const DELIVERY_METHOD_LABELS: Record<(typeof DELIVERY_METHODS)[number], string> = {
+  ground: 'Set down at ground level',
+  roof: 'Lifted onto the roof by the lorry crane',
+};
+
+export const PROPOSAL_STATUSES = ['open', 'accepted', 'declined', 'superseded'] as const;
+
+const isRealDate = (s: string) => {
+  const d = new Date(`${s}T00:00:00Z`);
+  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === s;
+};
+
+export const isoDateSchema = z
+  .string({ error: 'must be a date YYYY-MM-DD' })
+  .regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'must be a date YYYY-MM-DD' })
+  .refine(isRealDate, { error: 'is not a real date' });
+
+const minutes = (hhmm: string) => Number(hhmm.slice(0, 2)) * 60 + Number(hhmm.slice(3, 5));
+
+export const timeWindowSchema = z
+  .string({ error: 'must be a time window HH:MM-HH:MM' })
+  .regex(/^([01]\d|2[0-3]):[0-5]\d-([01]\d|2[0-3]):[0-5]\d$/, { error: 'must be a time window HH:MM-HH:MM, e.g. 07:30-12:00' })
+  .refine((w) => minutes(w.slice(0, 5)) < minutes(w.slice(6, 11)), { error: 'must end after it starts' });
+
+const text = (max: number) => z.string().trim().max(max, { error: `must be at most ${max} characters` });
+const packs = () =>
+  z
+    .number({ error: 'must be a whole number of packs' })
+    .int({ error: 'must be a whole number of packs' })
+    .min(1, { error: 'must be at least 1' })
+    .max(1_000_000, { error: 'must be at most 1,000,000' });
+
+export const orderLineInputSchema = z.object({
+  product_id: z.number().int().positive(),
+  quantity: packs(),
+});
+
+const linesInput = z
+  .array(orderLineInputSchema)
+  .min(1, { error: 'an order needs at least one line' })
+  .max(200, { error: 'at most 200 lines' })
+  .superRefine((lines, ctx) => {
+    const seen = new Set<number>();
+    lines.forEach((l, i) => {
+      if (seen.has(l.product_id)) ctx.addIssue({ code: 'custom', path: [i, 'product_id'], message: 'this product is already on the order' });
+      seen.add(l.product_id);
+    });
+  });
+
+export const placeOrderBodySchema = z
+  .object({
+    estimate_id: z.number().int().positive(),
+    branch_id: z.number().int().positive(),
+    requested_date: isoDateSchema,
+    time_window: timeWindowSchema.nullable().optional(),
+    delivery_method: z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' }),
+    notes: text(2000).optional(),
+    po_reference: text(60).optional(),
+    /** Packs of each product; left out, the estimate's lines are ordered as they are. */
+    lines: linesInput.optional(),
+  })
+  .strict();
+export type PlaceOrderBody = z.input<typeof placeOrderBodySchema>;
+
+/** An amendment names the revision it was made on, so it never overwrites a change it has not seen. */
+export const amendOrderBodySchema = z
+  .object({
+    revision: z.number().int().positive(),
+    requested_date: isoDateSchema.optional(),
+    time_window: timeWindowSchema.nullable().optional(),
+    delivery_method: z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' }).optional(),
+    notes: text(2000).optional(),
+    po_reference: text(60).optional(),
+    lines: linesInput.optional(),
+  })
+  .strict()
+  .refine((b) => Object.keys(b).some((k) => k !== 'revision'), { error: 'send at least one field to change' });
+export type AmendOrderBody = z.input<typeof amendOrderBodySchema>;
+
+export const cancelOrderBodySchema = z.object({ reason: text(500).optional() }).strict();
+export const answerProposalBodySchema = z.object({ note: text(500).optional() }).strict();
+
+/** The desk's answer to an order: what it can send now, what follows later, what it offers instead, and when. */
+export const proposalBodySchema = z
+  .object({
+    revision: z.number().int().positive(),
+    message: text(2000).optional(),
+    lines: z
+      .array(
+        z.object({
+          line_id: z.number().int().positive(),
+          confirmed_quantity: z.number().int().min(0),
+          back_order_quantity: z.number().int().min(0).default(0),
+          substitute: z
+            .object({
+              product_id: z.number().int().positive(),
+              quantity: packs(),
+              /** Price of one pack; the branch's price when left out. */
+              unit_price: z.number().int().min(0).optional(),
+            })
+            .optional(),
+          note: text(500).optional(),
+        }),
+      )
+      .max(200)
+      .optional(),
+    proposed_date: isoDateSchema.optional(),
+    proposed_time_window: timeWindowSchema.optional(),
+    proposed_slot_id: z.number().int().positive().optional(),
+  })
+  .strict()
+  .refine((b) => (b.lines?.length ?? 0) > 0 || b.proposed_date || b.proposed_slot_id, {
+    error: 'propose at least one line change, a date or a slot',
+  });
+export type ProposalBody = z.input<typeof proposalBodySchema>;
+
+export const ORDER_SORTS = ['placed_at', 'requested_date', 'status', 'subtotal', 'updated_at'] as const;
+
+export const orderListQuerySchema = z.object({
+  status: z.enum(ORDER_STATUSES).optional(),
+  branch_id: z.coerce.number().int().positive().optional(),
+  project_id: z.coerce.number().int().positive().optional(),
+  q: z.string().trim().max(100).optional(),
+  sort: z.enum(ORDER_SORTS).default('placed_at'),
+  dir: z.enum(['asc', 'desc']).default('desc'),
+  page: z.coerce.number().int().min(1).default(1),
+  page_size: z.coerce.number().int().min(1).max(100).default(25),
+});
+export type OrderListQuery = z.input<typeof orderListQuerySchema>;
+
+export const orgRefSchema = z.object({ id: z.number().int(), name: z.string() });
+
+export const orderSiteSchema = z.object({
+  name: z.string(),
+  site_address: z.string(),
+  site_postcode: z.string(),
+  contact_name: z.string(),
+  contact_phone: z.string(),
+  vehicle_access: z.enum(VEHICLE_ACCESS),
+  crane_lift: z.enum(CRANE_LIFT),
+  overhead_lines: z.enum(OVERHEAD_LINES),
+  set_down_place: z.string(),
+  access_notes: z.string(),
+});
+export type OrderSite = z.infer<typeof orderSiteSchema>;
+
+export const orderLineSchema = z.object({
+  id: z.number().int(),
+  position: z.number().int(),
+  product_id: z.number().int(),
+  sku: z.string(),
+  description: z.string(),
+  category: z.enum(PRODUCT_CATEGORIES),
+  unit: z.string(),
+  pack_size: z.number().int(),
+  pack_weight_kg: z.number(),
+  /** Packs asked for. */
+  quantity: z.number().int(),
+  /** Packs the merchant agreed to send; null until it answers. */
+  confirmed_quantity: z.number().int().nullable(),
+  back_order_quantity: z.number().int(),
+  reserved_quantity: z.number().int(),
+  unit_price: z.number().int(),
+  /** unit_price × (agreed, or asked, packs + back-ordered packs). */
+  total: z.number().int(),
+  status: z.enum(ORDER_LINE_STATUSES),
+  replaces_line_id: z.number().int().nullable(),
+});
+export type OrderLine = z.infer<typeof orderLineSchema>;
+
+export const proposalLineSchema = z.object({
+  order_line_id: z.number().int(),
+  sku: z.string(),
+  description: z.string(),
+  quantity: z.number().int(),
+  confirmed_quantity: z.number().int(),
+  back_order_quantity: z.number().int(),
+  substitute: z
+    .object({
+      product_id: z.number().int(),
+      sku: z.string(),
+      description: z.string(),
+      unit: z.string(),
+      pack_size: z.number().int(),
+      quantity: z.number().int(),
+      unit_price: z.number().int(),
+      total: z.number().int(),
+    })
+    .nullable(),
+  note: z.string(),
+});
+
+const personRef = z.object({ id: z.number().int(), name: z.string() }).nullable();
+
+export const proposalSchema = z.object({
+  id: z.number().int(),
+  status: z.enum(PROPOSAL_STATUSES),
+  order_revision: z.number().int(),
+  message: z.string(),
+  proposed_date: z.string().nullable(),
+  proposed_time_window: z.string().nullable(),
+  proposed_slot_id: z.number().int().nullable(),
+  proposed_at: z.string(),
+  proposed_by: personRef,
+  answered_at: z.string().nullable(),
+  answered_by: personRef,
+  lines: z.array(proposalLineSchema),
+});
+export type Proposal = z.infer<typeof proposalSchema>;
+
+export const orderEventSchema = z.object({
+  id: z.number().int(),
+  kind: z.string(),
+  at: z.string(),
+  actor: z.object({ name: z.string(), organisation: orgRefSchema.nullable() }),
+  summary: z.string(),
+  data: z.record(z.string(), z.unknown()),
+});
+export type OrderEvent = z.infer<typeof orderEventSchema>;
+
+export const orderSummarySchema = z.object({
+  id: z.number().int(),
+  reference: z.string(),
+  status: z.enum(ORDER_STATUSES),
+  status_label: z.string(),
+  revision: z.number().int(),
+  contractor: orgRefSchema,
+  branch: branchRefSchema,
+  project: z.object({ id: z.number().int(), name: z.string() }),
+  requested_date: z.string(),
+  time_window: z.string().nullable(),
+  delivery_method: z.enum(DELIVERY_METHODS),
+  po_reference: z.string(),
+  subtotal: z.number().int(),
+  line_count: z.number().int(),
+  placed_at: z.string(),
+  updated_at: z.string(),
+});
+export type OrderSummary = z.infer<typeof orderSummarySchema>;
+
+export const orderSchema = orderSummarySchema.extend({
+  estimate_id: z.number().int().nullable(),
+  quote_id: z.number().int().nullable(),
+  notes: z.string(),
+  site: orderSiteSchema,
+  lines: z.array(orderLineSchema),
+  proposals: z.array(proposalSchema),
+  timeline: z.array(orderEventSchema),
+  /** What the caller's side may do now (see ORDER_TRANSITIONS). */
+  allowed_actions: z.array(z.string()),
+  cautions: z.array(z.string()),
+  confirmed_at: z.string().nullable(),
+  cancelled_at: z.string().nullable(),
+});
+export type Order = z.infer<typeof orderSchema>;
+
+export const orderListSchema = z.object({
+  orders: z.array(orderSummarySchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  page_size: z.number().int(),
+});
+
+export const orderParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+export const proposalParamsSchema = z.object({ id: z.coerce.number().int().positive(), proposalId: z.coerce.number().int().positive() });
+
+/** The reference both sides quote on the phone. */
+export function orderReference(id: number): string {
+  return `RL-${String(id).padStart(6, '0')}`;
+}
+
+// Quote requests: one request to up to three branches; each branch answers with its own products and prices.
+
+export const QUOTE_REQUEST_STATUSES = ['open', 'accepted', 'withdrawn'] as const;
+export const QUOTE_STATUSES = ['asked', 'answered', 'declined', 'accepted', 'not_chosen', 'withdrawn'] as const;
+export const QUOTE_STATUS_LABELS: Record<(typeof QUOTE_STATUSES)[number], string> = {
+  asked: 'Waiting for a price',
+  answered: 'Priced',
+  declined: 'The merchant cannot quote',
+  accepted: 'Accepted: became an order',
+  not_chosen: 'Another quote was accepted',
+  withdrawn: 'Request withdrawn',
+};
+export const MAX_QUOTE_BRANCHES = 3;
+
+export const createQuoteRequestBodySchema = z
+  .object({
+    estimate_id: z.number().int().positive(),
+    branch_ids: z
+      .array(z.number().int().positive())
+      .min(1, { error: 'choose at least one merchant branch' })
+      .max(MAX_QUOTE_BRANCHES, { error: `a quote request goes to at most ${MAX_QUOTE_BRANCHES} branches` })
+      .refine((ids) => new Set(ids).size === ids.length, { error: 'a branch is chosen twice' }),
+    requested_date: isoDateSchema,
+    time_window: timeWindowSchema.nullable().optional(),
+    delivery_method: z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' }),
+    notes: text(2000).optional(),
+    po_reference: text(60).optional(),
+  })
+  .strict();
+export type CreateQuoteRequestBody = z.input<typeof createQuoteRequestBodySchema>;
+
+export const answerQuoteBodySchema = z
+  .object({
+    lines: z
+      .array(
+        z.object({
+          request_line_id: z.number().int().positive(),
+          product_id: z.number().int().positive(),
+          /** Packs offered; enough packs for the quantity asked when left out. */
+          packs: packs().optional(),
+          /** Price of one pack; the branch's price when left out. */
+          unit_price: z.number().int().min(0).optional(),
+          note: text(500).optional(),
+        }),
+      )
+      .min(1, { error: 'price at least one line, or decline the request' })
+      .max(200),
+    valid_until: isoDateSchema.optional(),
+    message: text(2000).optional(),
+  })
+  .strict();
+export type AnswerQuoteBody = z.input<typeof answerQuoteBodySchema>;
+export const declineQuoteBodySchema = z.object({ message: text(2000).optional() }).strict();
+
+export const quoteRequestLineSchema = z.object({
+  id: z.number().int(),
+  position: z.number().int(),
+  category: z.enum(PRODUCT_CATEGORIES),
+  description: z.string(),
+  /** The engine's quantity from the estimate, in `unit`. */
+  quantity: z.number(),
+  unit: z.string(),
+});
+
+export const quoteLineSchema = z.object({
+  request_line_id: z.number().int(),
+  product_id: z.number().int().nullable(),
+  sku: z.string().nullable(),
+  description: z.string(),
+  unit: z.string(),
+  pack_size: z.number().int(),
+  packs: z.number().int(),
+  unit_price: z.number().int(),
+  total: z.number().int(),
+  note: z.string(),
+});
+
+export const quoteSchema = z.object({
+  id: z.number().int(),
+  status: z.enum(QUOTE_STATUSES),
+  status_label: z.string(),
+  branch: branchRefSchema,
+  message: z.string(),
+  valid_until: z.string().nullable(),
+  total: z.number().int().nullable(),
+  answered_at: z.string().nullable(),
+  order_id: z.number().int().nullable(),
+  lines: z.array(quoteLineSchema),
+});
+export type Quote = z.infer<typeof quoteSchema>;
+
+export const quoteComparisonSchema = z.object({
+  quote_ids: z.array(z.number().int()),
+  rows: z.array(
+    z.object({
+      request_line_id: z.number().int(),
+      category: z.enum(PRODUCT_CATEGORIES),
+      description: z.string(),
+      quantity: z.number(),
+      unit: z.string(),
+      /** One entry per quote, in quote_ids order; null where that merchant offers nothing for the line. */
+      offers: z.array(z.object({ sku: z.string().nullable(), description: z.string(), packs: z.number().int(), unit_price: z.number().int(), total: z.number().int() }).nullable()),
+    }),
+  ),
+  totals: z.array(z.object({ quote_id: z.number().int(), total: z.number().int().nullable(), lines_offered: z.number().int(), lines_missing: z.number().int() })),
+});
+
+export const quoteRequestSchema = z.object({
+  id: z.number().int(),
+  status: z.enum(QUOTE_REQUEST_STATUSES),
+  contractor: orgRefSchema,
+  project: z.object({ id: z.number().int(), name: z.string() }),
+  site: orderSiteSchema,
+  estimate_id: z.number().int(),
+  requested_date: z.string(),
+  time_window: z.string().nullable(),
+  delivery_method: z.enum(DELIVERY_METHODS),
+  po_reference: z.string(),
+  notes: z.string(),
+  lines: z.array(quoteRequestLineSchema),
+  /** The contractor sees every branch's quote; a merchant only its own. */
+  quotes: z.array(quoteSchema),
+  /** Side by side, for the contractor only (null for a merchant). */
+  comparison: quoteComparisonSchema.nullable(),
+  cautions: z.array(z.string()),
+  created_at: z.string(),
+  updated_at: z.string(),
+});
+export type QuoteRequest = z.infer<typeof quoteRequestSchema>;
+
+export const quoteRequestListSchema = z.object({
+  quote_requests: z.array(
+    quoteRequestSchema.pick({ id: true, status: true, contractor: true, project: true, requested_date: true, created_at: true, updated_at: true }).extend({
+      quotes: z.array(quoteSchema.pick({ id: true, status: true, branch: true, total: true })),
+    }),
+  ),
+});
+export const quoteParamsSchema = z.object({ id: z.coerce.number().int().positive() });

@@ -1,0 +1,139 @@
+import { execFile } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { EXAMPLE_SCHEDULE_CSV } from '../../shared/engine/example-schedule';
+
+const ROOT = resolve(__dirname, '../..');
+const TSX = join(ROOT, 'node_modules/.bin/tsx');
+const CLI = join(ROOT, 'server/cli/estimate.ts');
+const HEADER = 'building,face,quantity,pitch_deg,rafter_mm,run_mm,eaves_mm,top_mm,left,right,top';
+
+let dir = '';
+
+function file(name: string, content: string): string {
+  const path = join(dir, name);
+  writeFileSync(path, content);
+  return path;
+}
+
+function run(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  return new Promise((done) => {
+    execFile(TSX, [CLI, ...args], { cwd: ROOT, maxBuffer: 64 * 1024 * 1024 }, (error, stdout, stderr) => {
+      const code = error ? (typeof error.code === 'number' ? error.code : 1) : 0;
+      done({ code, stdout, stderr });
+    });
+  });
+}
+
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'ridgeload-cli-'));
+});
+afterAll(() => {
+  rmSync(dir, { recursive: true, force: true });
+});
+
+describe.concurrent('estimate CLI', () => {
+  it('prints the estimate of a schedule as JSON on stdout and exits 0, with the default system', async () => {
+    const r = await run(['--schedule', file('example.csv', EXAMPLE_SCHEDULE_CSV)]);
+    expect(r.code).toBe(0);
+    expect(r.stderr).toBe('');
+    const result = JSON.parse(r.stdout);
+    expect(result.faces).toHaveLength(7);
+    expect(result.faces[0]).toMatchObject({ building: 'Alder', face: 'Front', quantity: 12, headlap_mm: 75 });
+    expect(result.totals.tiles).toBe(result.faces.reduce((s: number, f: { tiles: number; quantity: number }) => s + f.tiles * f.quantity, 0));
+    expect(result.loads.length).toBeGreaterThan(0);
+  });
+
+  it('uses the roof system given with --system (partial: the rest takes defaults)', async () => {
+    const schedule = file('sys.csv', EXAMPLE_SCHEDULE_CSV);
+    const plain = await run([`--schedule=${schedule}`]);
+    const system = file('system.json', JSON.stringify({ waste_pct: { tiles: 20 }, truck: { pallet_slots: 4 } }));
+    const r = await run(['--schedule', schedule, '--system', system]);
+    expect(r.code).toBe(0);
+    const a = JSON.parse(plain.stdout);
+    const b = JSON.parse(r.stdout);
+    expect(b.totals.tiles).toBe(a.totals.tiles);
+    expect(b.totals.tiles_order).toBe(Math.ceil((a.totals.tiles * 120) / 100));
+    expect(Math.max(...b.loads.map((l: { pallets: number[] }) => l.pallets.length))).toBe(4);
+  });
+
+  it('reads a semicolon file with decimal commas and reports unknown columns as warnings in the JSON', async () => {
+    const r = await run(['--schedule', file('semi.csv', '\uFEFFface;pitch_deg;rafter_mm;eaves_mm;notes\r\nFront;37,5;4000;9000;north side\r\n')]);
+    expect(r.code).toBe(0);
+    const result = JSON.parse(r.stdout);
+    expect(result.faces[0].pitch_deg).toBe(37.5);
+    expect(result.warnings.map((w: { code: string }) => w.code)).toContain('unknown_column');
+  });
+
+  it('prints --help on stdout and exits 0', async () => {
+    const r = await run(['--help']);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/--schedule <file>/);
+    expect(r.stderr).toBe('');
+  });
+
+  it.each([
+    ['a negative eaves length', 'A,Front,1,35,4000,,-9000,,,,', 'row 2, column eaves_mm: must be a positive number of millimetres'],
+    ['text where a number belongs', 'A,Front,1,35,long,,9000,,,,', "row 2, column rafter_mm: must be a number, not 'long'"],
+    ['metres in a millimetre column', 'A,Front,1,35,4.2,,9000,,,,', 'row 2, column rafter_mm: looks like metres (4.2); give millimetres, e.g. 4200'],
+    ['an unknown edge word', 'A,Front,1,35,4000,,9000,,gable,verge,ridge', "row 2, column left: unknown edge 'gable': use verge, hip, valley or abutment"],
+    ['a pitch below the tile’s lowest', 'A,Front,1,15,4000,,9000,,,,', 'row 2, column pitch_deg: 15° is below the lowest pitch this tile may be laid at (22.5°)'],
+    ['rafter and run that disagree', 'A,Front,1,40,5200,3900,9000,,,,', 'row 2, column run_mm: does not agree with rafter_mm'],
+  ])('rejects %s: nothing on stdout, the problem on stderr, exit 2', async (_name, row, message) => {
+    const r = await run(['--schedule', file(`bad-${message.length}-${row.length}.csv`, `${HEADER}\n${row}\n`)]);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr.startsWith(message)).toBe(true);
+  });
+
+  it('lists every problem, one line each: duplicate faces and a missing column', async () => {
+    const dup = await run(['--schedule', file('dup.csv', `${HEADER}\nA,Front,1,35,4000,,9000,,,,\nA,Front,1,35,4000,,9000,,,,\nA,Back,x,35,4000,,0,,,,\n`)]);
+    expect(dup.code).toBe(2);
+    expect(dup.stdout).toBe('');
+    expect(dup.stderr.trim().split('\n')).toEqual([
+      "row 3, column face: duplicate face 'Front' in building 'A' (first at row 2)",
+      "row 4, column quantity: must be a number, not 'x'",
+      'row 4, column eaves_mm: must be a positive number of millimetres',
+    ]);
+    const missing = await run(['--schedule', file('missing.csv', 'face,rafter_mm,eaves_mm\nFront,4000,9000\n')]);
+    expect(missing.code).toBe(2);
+    expect(missing.stderr.trim()).toBe('row 1, column pitch_deg: this required column is missing');
+  });
+
+  it('rejects a bad roof system field by its path', async () => {
+    const system = file('bad-system.json', JSON.stringify({ tile: { kind: 'single_lap', length_mm: -420 } }));
+    const r = await run(['--schedule', file('ok.csv', EXAMPLE_SCHEDULE_CSV), '--system', system]);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toMatch(/^system field tile\.length_mm: must be more than 0$/m);
+  });
+
+  it('rejects a system file that is not JSON', async () => {
+    const r = await run(['--schedule', file('ok2.csv', EXAMPLE_SCHEDULE_CSV), '--system', file('broken.json', '{ tile: ')]);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toMatch(/^the system file '.*broken\.json' is not valid JSON: /);
+  });
+
+  it('says so when a file cannot be read', async () => {
+    const r = await run(['--schedule', join(dir, 'no-such.csv')]);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim()).toBe(`cannot read the schedule file '${join(dir, 'no-such.csv')}': no such file`);
+  });
+
+  it('explains its usage when --schedule is missing or an argument is unknown', async () => {
+    const none = await run([]);
+    expect(none.code).toBe(2);
+    expect(none.stdout).toBe('');
+    expect(none.stderr).toMatch(/^--schedule is required\n\nUsage:/);
+    const unknown = await run(['--schedule', 'x.csv', '--fast']);
+    expect(unknown.code).toBe(2);
+    expect(unknown.stderr).toMatch(/^unknown argument '--fast'/);
+    const dangling = await run(['--schedule']);
+    expect(dangling.stderr).toMatch(/^--schedule needs a file name/);
+  });
+});
