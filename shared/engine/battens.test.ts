@@ -127,6 +127,32 @@ describe('batten cutting plan (NHBC Standards 7.2.17, published)', () => {
       { numRuns: 300 },
     );
   });
+  it('spans at least min_supports rafters even where the minimum length alone would allow less, or reports the piece (property)', () => {
+    // Short stock and a four-rafter minimum leave two joint places a piece, so the stagger often has to
+    // give way; each piece must still rest on four rafters. Some rows cannot be cut so at all (2.5 m from
+    // 2.4 m lengths): every piece that breaks the rule must then be reported as forced short.
+    const four = roofSystemSchema.parse({ batten: { stock_length_mm: 2_400, min_length_mm: 0, min_supports: 4 } });
+    fc.assert(
+      fc.property(fc.integer({ min: 300, max: 40_000 }), fc.integer({ min: 500, max: 15_000 }), (eaves, rafter) => {
+        const p = plan(gable(eaves, rafter), four);
+        let onTooFewRafters = 0;
+        for (const row of p.rows) {
+          if (row.pieces_mm.length < 2) continue;
+          let start = row.from_mm;
+          for (let i = 0; i < row.pieces_mm.length; i++) {
+            const end = i < row.joints_mm.length ? row.joints_mm[i] : row.to_mm;
+            if (supportsOf(start, end, four.rafter_spacing_mm) < 4) onTooFewRafters++;
+            start = end;
+          }
+        }
+        return onTooFewRafters <= p.forced_short;
+      }),
+      { numRuns: 200 },
+    );
+    // A 9 m row cuts into four pieces of at least four rafters each.
+    const nine = plan(gable(9_000, 3_000), four);
+    expect(nine.forced_short).toBe(0);
+  });
 });
 
 describe('stock lengths', () => {
@@ -146,7 +172,7 @@ describe('stock lengths', () => {
     );
   });
 
-  it('cuts shorter pieces from the offcuts of longer ones where an offcut is long enough', () => {
+  it('cuts shorter pieces from the offcuts of longer ones where an offcut is long enough (common practice)', () => {
     const tally = new PieceTally(4_800);
     tally.add(3_000, 2);
     tally.add(1_800, 2);

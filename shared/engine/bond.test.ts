@@ -21,12 +21,12 @@ const gable = (eaves: number) => [
 ];
 
 describe('bond', () => {
-  it('breaks every second course, starting with the second from the eaves', () => {
+  it('breaks every second course, starting with the second from the eaves (common practice)', () => {
     expect([0, 1, 2, 3, 4].map((i) => isBrokenCourse('broken', i))).toEqual([false, true, false, true, false]);
     expect([0, 1, 2, 3].map((i) => isBrokenCourse('straight', i))).toEqual([false, false, false, false]);
   });
 
-  it('gives a broken course n − 1 whole tiles and a half at each verge', () => {
+  it('gives a broken course n − 1 whole tiles and a half at each verge (common practice)', () => {
     const fit = { tiles: 30, cover_mm: 300, overhang_mm: 45, fits: true };
     expect(vergeCourse(fit, false)).toEqual({ whole: 30, halves: 0, cut: 0, perimeter: 2 });
     expect(vergeCourse(fit, true)).toEqual({ whole: 29, halves: 2, cut: 0, perimeter: 2 });

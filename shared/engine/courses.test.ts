@@ -25,7 +25,7 @@ const slate = {
 describe('double-lap gauge = (length − headlap) ÷ 2', () => {
   // Published: A Treatise on Architecture and Building Construction (Colliery Engineer Co.),
   // estimating volume: "deduct the lap from the length of the slate, and divide the remainder by 2".
-  it('a 20 in slate with a 3 in lap has an 8½ in gauge (Treatise worked example)', () => {
+  it('a 20 in slate with a 3 in lap has an 8½ in gauge (Treatise worked example, published)', () => {
     expect(maxGauge('double_lap', 20, 3)).toBe(8.5);
   });
 
@@ -92,6 +92,14 @@ describe('courses', () => {
     expect(c).toMatchObject({ tiny: true, courses: 1, gauge_mm: 0 });
     const d = setOutCourses(200, 40, system({ tile: plainTile }));
     expect(d).toMatchObject({ tiny: true, courses: 2 });
+  });
+
+  it('puts the under-eaves batten of a face too short for two battens below the other one, not on it', () => {
+    const c = setOutCourses(200, 40, system({ tile: plainTile }));
+    if (!c) throw new Error('no set-out');
+    expect(c.courses).toBe(2);
+    expect(rowHeight(c, 0)).toBe(60); // one maximum gauge (100 mm) below the batten at 160 mm
+    expect(rowHeight(c, 1)).toBe(160);
   });
 
   it('puts the first batten at tile length − eaves overhang and the top one top_gap below the top', () => {

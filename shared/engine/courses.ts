@@ -117,11 +117,12 @@ function fill(
 
 /**
  * Height of batten row i (0 = eaves) in mm up the slope from the eaves line. The under-eaves batten of
- * a double-lap roof sits one gauge below the first batten, never below the eaves line.
+ * a double-lap roof sits one gauge below the first batten (the maximum gauge on a face too short for
+ * two battens, so the two rows never share a height), never below the eaves line.
  */
 export function rowHeight(c: CourseSetOut, i: number): number {
   if (c.eaves_course) {
-    if (i === 0) return Math.max(0, c.first_batten_mm - c.gauge_mm);
+    if (i === 0) return Math.max(0, c.first_batten_mm - (c.gauge_mm > 0 ? c.gauge_mm : c.max_gauge_mm));
     return c.first_batten_mm + (i - 1) * c.gauge_mm;
   }
   return c.first_batten_mm + i * c.gauge_mm;

@@ -81,6 +81,8 @@ export const SYSTEM_DEFAULTS = {
     batten_nail_g: 4.5,
     /** A 38 × 3.35 mm aluminium tile nail. */
     tile_nail_g: 1.5,
+    /** A stainless-steel tile clip (invented typical figure). */
+    clip_g: 6,
   },
   waste_pct: { tiles: 5, battens: 10, underlay: 10, ridge_hip: 5 },
   roof_loading: { stack_size: 6, every_nth_batten: 2 },
@@ -104,6 +106,25 @@ export const RIDGE_BALANCE_TOLERANCE = 0.1;
 
 /** At and above this pitch every tile is usually nailed whatever the fixing rule. */
 export const EVERY_TILE_PITCH_DEG = 45;
+
+/** At and above this pitch the tail of every single-lap tile is usually clipped as well as nailed. */
+export const EVERY_TILE_CLIP_PITCH_DEG = 55;
+
+/**
+ * Clips, by tile kind, for each `fixing.clips` field left out. Single-lap tiles: a clip at the tail of
+ * every eaves-course tile, a clip on every verge tile (whole or half) of every course, and from 55° a
+ * clip at the tail of every tile. Double-lap tiles and slates are nailed, not clipped, unless told.
+ */
+export const SINGLE_LAP_CLIP_DEFAULTS = {
+  eaves: true,
+  verges: true,
+  every_tile_from_pitch_deg: EVERY_TILE_CLIP_PITCH_DEG as number | null,
+};
+export const DOUBLE_LAP_CLIP_DEFAULTS = {
+  eaves: false,
+  verges: false,
+  every_tile_from_pitch_deg: null as number | null,
+};
 
 /** Shown with every loading and delivery plan. */
 export const SAFETY_CAUTIONS = [

@@ -36,7 +36,7 @@ describe('delivery', () => {
     ]);
   });
 
-  it('sends underlay and battens off first and ridge tiles last, and numbers pallets in the order they come off', () => {
+  it('sends underlay and battens off first and ridge tiles last, and numbers pallets in the order they come off (common practice)', () => {
     const plan = planDelivery(input(), system(), 1_000);
     expect(plan.pallets.map((p) => p.n)).toEqual([1, 2, 3, 4, 5]);
     expect(plan.pallets.map((p) => p.kind)).toEqual(['accessories', 'tiles', 'tiles', 'tiles', 'accessories']);
@@ -44,7 +44,7 @@ describe('delivery', () => {
     expect(plan.pallets[4].items).toEqual([{ item: 'ridge_tiles', quantity: 25, weight_kg: 125 }]);
   });
 
-  it('loads what comes off first last', () => {
+  it('loads what comes off first last (common practice)', () => {
     const plan = planDelivery(input(), system(), 1_000);
     expect(plan.loads).toHaveLength(1);
     expect(plan.loads[0].pallets).toEqual([5, 4, 3, 2, 1]);

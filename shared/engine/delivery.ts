@@ -1,6 +1,6 @@
 import type { RoofSystem } from '../schemas/roof-system.schema';
 
-export type AccessoryItem = 'underlay_rolls' | 'battens' | 'batten_nails' | 'tile_nails' | 'ridge_tiles' | 'hip_tiles';
+export type AccessoryItem = 'underlay_rolls' | 'battens' | 'batten_nails' | 'tile_nails' | 'clips' | 'ridge_tiles' | 'hip_tiles';
 
 export interface PalletFace {
   building: string;
@@ -50,7 +50,7 @@ export interface DeliveryInput {
   tilesOrdered: number;
   /** Net tiles of one copy of each face and its quantity, in schedule order; the rest of tilesOrdered is spare. */
   faces: ReadonlyArray<{ building: string; face: string; tiles: number; quantity: number }>;
-  /** Needed at the start (underlay, battens, nails): off first. */
+  /** Needed at the start (underlay, battens, nails, clips): off first. */
   firstOff: Accessory[];
   /** Needed at the end (ridge and hip tiles): off last. */
   lastOff: Accessory[];
@@ -132,7 +132,7 @@ function packAccessories(items: readonly Accessory[], capacityKg: number, build:
 /**
  * Delivery: tiles on pallets of per_pallet (the last one part-full), each listing its count, gross
  * weight and the faces it serves, in schedule order; accessories on pallets made up to max_pallet_kg,
- * underlay, battens and nails first off and ridge and hip tiles last. Pallets are numbered in the order
+ * underlay, battens, nails and clips first off and ridge and hip tiles last. Pallets are numbered in the order
  * they come off; lorry loads are filled in that order up to the payload and the pallet slots, and each
  * load is loaded in reverse, so what comes off first is loaded last. Weights in kg.
  */

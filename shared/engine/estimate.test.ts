@@ -31,13 +31,13 @@ describe('the estimate', () => {
       expect.arrayContaining([
         'building', 'face', 'quantity', 'pitch_deg', 'rafter_mm', 'slope_area_m2', 'headlap_mm', 'gauge_mm', 'courses',
         'tiles_per_course', 'cover_width_mm', 'verge_overhang_mm', 'whole_tiles', 'half_tiles', 'cut_tiles', 'tiles',
-        'batten_m', 'stacks', 'stack_positions', 'load_kg', 'setting_out_marks_mm',
+        'batten_m', 'stacks', 'stack_positions', 'load_kg', 'setting_out_marks_mm', 'clips',
       ]),
     );
     expect(Object.keys(r.totals).sort()).toEqual(
       [
         'slope_area_m2', 'plan_area_m2', 'tiles', 'tiles_order', 'half_tiles', 'cut_tiles', 'batten_m', 'batten_lengths',
-        'batten_nails', 'tile_nails', 'ridge_m', 'ridge_tiles', 'hip_m', 'hip_tiles', 'valley_m', 'underlay_rolls', 'pallets', 'weight_kg',
+        'batten_nails', 'tile_nails', 'clips', 'ridge_m', 'ridge_tiles', 'hip_m', 'hip_tiles', 'valley_m', 'underlay_rolls', 'pallets', 'weight_kg',
       ].sort(),
     );
     expect(r.faces.map((f) => `${f.building}/${f.face}`)).toEqual([
@@ -62,6 +62,18 @@ describe('the estimate', () => {
     expect(f.batten_m / f.slope_area_m2).toBeCloseTo(10, 0);
   });
 
+  it('shows the gauge rounded down to 0.1 mm, so it never reads above the maximum gauge', () => {
+    // A 500 mm slate at 60.1 mm headlap: maximum gauge (500 − 60.1) ÷ 2 = 219.95 mm (Treatise rule, published).
+    const slate = { kind: 'double_lap' as const, length_mm: 500, width_mm: 250, headlap_mm: [{ from_pitch_deg: 20, min_mm: 60.1 }], weight_kg: 2, per_pallet: 800 };
+    const face: Face = {
+      building: '1', face: 'Main', quantity: 1, pitch_deg: 30, rafter_mm: 450 + 10 * 219.95 + 40, run_mm: 1,
+      eaves_mm: 5_000, top_mm: 5_000, left: 'verge', right: 'verge', top: 'ridge',
+    };
+    const f = estimate([face], roofSystemSchema.parse({ tile: slate })).faces[0];
+    expect(f.courses).toBe(12);
+    expect(f.gauge_mm).toBe(219.9);
+  });
+
   it('orders tiles with waste: ceil(net × (1 + waste ÷ 100)), and pallets for what is ordered', () => {
     expect(orderQuantity(1_000, 5)).toBe(1_050);
     expect(orderQuantity(1_001, 5)).toBe(1_052);
@@ -70,6 +82,15 @@ describe('the estimate', () => {
     expect(r.totals.tiles_order).toBe(Math.ceil((r.totals.tiles * 110) / 100));
     expect(r.totals.pallets).toBe(Math.ceil(r.totals.tiles_order / 180));
     expect(r.pallets.filter((p) => p.kind === 'tiles').reduce((s, p) => s + p.tiles, 0)).toBe(r.totals.tiles_order);
+  });
+
+  it('orders batten lengths and hip tiles with their own waste on the net figures', () => {
+    const net = ok(runEstimateFromCsv(EXAMPLE_SCHEDULE_CSV, { waste_pct: { battens: 0, ridge_hip: 0 } })).totals;
+    const r = ok(runEstimateFromCsv(EXAMPLE_SCHEDULE_CSV, { waste_pct: { battens: 10, ridge_hip: 5 } })).totals;
+    expect(net.hip_tiles).toBeGreaterThan(0);
+    expect(r.batten_lengths).toBe(Math.ceil((net.batten_lengths * 110) / 100));
+    expect(r.hip_tiles).toBe(Math.ceil((net.hip_tiles * 105) / 100));
+    expect(r.ridge_tiles).toBe(Math.ceil((net.ridge_tiles * 105) / 100));
   });
 
   it('orders underlay rolls by slope area over the roll’s cover (roll width − head lap) × length, with waste', () => {
@@ -216,6 +237,7 @@ function checkInvariants(r: EngineResult, faces: GenFace[], input: RoofSystemInp
   if (r.totals.tiles !== sum((f) => f.tiles)) return 'tiles total';
   if (r.totals.half_tiles !== sum((f) => f.half_tiles)) return 'half tiles total';
   if (r.totals.cut_tiles !== sum((f) => f.cut_tiles)) return 'cut tiles total';
+  if (r.totals.clips !== sum((f) => f.clips)) return 'clips total';
   if (Math.abs(r.totals.batten_m - sum((f) => f.batten_m)) > 0.01 * sum(() => 1) + 0.01) return 'batten total';
   if (Math.abs(r.totals.slope_area_m2 - sum((f) => f.slope_area_m2)) > 0.01 * sum(() => 1) + 0.01) return 'area total';
   if (r.totals.tiles_order < r.totals.tiles) return 'ordered below net';
@@ -224,7 +246,7 @@ function checkInvariants(r: EngineResult, faces: GenFace[], input: RoofSystemInp
   for (const f of r.faces) {
     const headlap = headlapFor(system.tile.headlap_mm, f.pitch_deg);
     if (headlap === null || f.headlap_mm !== headlap) return 'headlap';
-    if (f.gauge_mm > maxGauge(system.tile.kind, system.tile.length_mm, headlap) + 0.05) return `gauge ${f.gauge_mm} above max`;
+    if (f.gauge_mm > maxGauge(system.tile.kind, system.tile.length_mm, headlap) + 1e-9) return `gauge ${f.gauge_mm} above max`;
     if (f.tiles < f.whole_tiles + f.cut_tiles) return 'tiles below pieces';
     if (f.stacks !== Math.ceil(f.tiles / system.roof_loading.stack_size)) return 'stacks';
   }
@@ -270,6 +292,7 @@ describe('properties of the estimate over generated schedules', () => {
           t2.tiles === 2 * t1.tiles &&
           t2.batten_nails === 2 * t1.batten_nails &&
           t2.tile_nails === 2 * t1.tile_nails &&
+          t2.clips === 2 * t1.clips &&
           t2.cut_tiles === 2 * t1.cut_tiles &&
           Math.abs(t2.slope_area_m2 - 2 * t1.slope_area_m2) <= 0.011 &&
           Math.abs(t2.batten_m - 2 * t1.batten_m) <= 0.011

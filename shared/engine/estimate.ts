@@ -2,8 +2,10 @@ import type { RoofSystem, RoofSystemInput } from '../schemas/roof-system.schema'
 import { scheduleSchema, type Face, type Schedule } from '../schemas/schedule.schema';
 import { JointScratch, PieceTally, planFaceBattens, planStockLengths, type BattenRow, type FaceBattens } from './battens';
 import { isBrokenCourse, rakeToRakeCourse, tilesForHalves, vergeCourse, vergeToRakeCourse, type CoursePieces } from './bond';
+import { clipRule, clipsEveryTile, courseClips, type ClipRule } from './clips';
 import { lowestPitch, rowHeight, setOutCourses, type CourseSetOut } from './courses';
 import {
+  EVERY_TILE_CLIP_PITCH_DEG,
   EVERY_TILE_PITCH_DEG,
   MAX_DELIVERY_PALLETS,
   RIDGE_BALANCE_TOLERANCE,
@@ -23,6 +25,8 @@ import { ENGINE_VERSION } from './version';
 
 const r1 = (v: number) => Math.round(v * 10) / 10;
 const r2 = (v: number) => Math.round(v * 100) / 100;
+/** Down to 0.1 mm: a gauge shown rounded up could read above the maximum gauge and open the lap. */
+const down1 = (v: number) => Math.floor(v * 10 + 1e-6) / 10;
 
 /**
  * Order quantity with waste: ceil(net × (1 + waste % ÷ 100)). Rounded to 1e-6 first so that 1000 at
@@ -97,6 +101,7 @@ interface Scratch {
   batten_nails: number;
   tile_nails: number;
   inset: { left: number; right: number };
+  clips: ClipRule;
 }
 
 function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings: EngineWarning[], scratch: Scratch): FaceResult {
@@ -110,7 +115,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
       warnings,
       face,
       'tiny_face',
-      `the face is too short for a first and a top batten (${Math.round(face.rafter_mm)} mm up the slope); counted as ${setOut.courses === 1 ? 'one course' : 'two courses'} on one batten row`,
+      `the face is too short for a first and a top batten (${Math.round(face.rafter_mm)} mm up the slope); counted as ${setOut.courses === 1 ? 'one course on one batten row' : 'the eaves course and one course, on two batten rows'}`,
     );
   }
 
@@ -122,6 +127,8 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   let halves = 0;
   let cut = 0;
   let nailed = 0;
+  let clips = 0;
+  const everyTileClipped = clipsEveryTile(scratch.clips, face.pitch_deg);
   let tilesPerCourse = 0;
   let coverUsed = cover.nominal;
   let overhangUsed: number | null;
@@ -132,8 +139,8 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
     const fit = fitBetweenVerges(face.eaves_mm, tile.width_mm, cover, so.verge_overhang_mm);
     if (!fit.fits) {
       warnFace(
-      warnings,
-      face,
+        warnings,
+        face,
         'no_whole_tile_fit',
         `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`,
       );
@@ -146,6 +153,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
       halves += course.halves;
       cut += course.cut;
       nailed += nailedPieces(system.fixing.rule, course, i, C);
+      clips += courseClips(scratch.clips, course, i, 2, everyTileClipped);
     }
     tilesPerCourse = fit.tiles;
     coverUsed = fit.cover_mm;
@@ -168,6 +176,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
       halves += course.halves;
       cut += course.cut;
       nailed += nailedPieces(system.fixing.rule, course, i, C);
+      clips += courseClips(scratch.clips, course, i, oneVerge ? 1 : 0, everyTileClipped);
       const inCourse = Math.ceil(course.whole + course.cut + course.halves / 2);
       if (inCourse > tilesPerCourse) tilesPerCourse = inCourse;
     }
@@ -183,6 +192,15 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
       face,
       'fixing_rule_pitch',
       `at ${face.pitch_deg}° (45° and above) every tile is normally nailed; the perimeter-and-alternate-courses rule was applied as set: check the tile maker's fixing specification`,
+    );
+  }
+
+  if (tile.kind === 'single_lap' && face.pitch_deg >= EVERY_TILE_CLIP_PITCH_DEG && !everyTileClipped) {
+    warnFace(
+      warnings,
+      face,
+      'clip_rule_pitch',
+      `at ${face.pitch_deg}° (55° and above) the tail of every tile is normally clipped as well as nailed; the clip rule was applied as set: check the tile maker's fixing specification`,
     );
   }
 
@@ -227,7 +245,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
     rafter_mm: r1(face.rafter_mm),
     slope_area_m2: r2(slope),
     headlap_mm: setOut.headlap_mm,
-    gauge_mm: r1(setOut.gauge_mm),
+    gauge_mm: down1(setOut.gauge_mm),
     courses: C,
     tiles_per_course: tilesPerCourse,
     cover_width_mm: r1(coverUsed),
@@ -240,6 +258,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
     stacks: loading.stacks,
     stack_positions: loading.positions,
     load_kg: r1(tiles * tile.weight_kg),
+    clips,
     setting_out_marks_mm: settingOutMarks(marksTiles, coverUsed, marksOverhang),
     setting_out_from: reference,
     stacks_by_row: loading.stacks_by_row,
@@ -277,6 +296,7 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
     batten_nails: 0,
     tile_nails: 0,
     inset: { left: 0, right: 0 },
+    clips: clipRule(system),
   };
   const faces: FaceResult[] = [];
   const byBuilding = new Map<string, { edges: BuildingEdgeTally; ridgeFaces: number[] }>();
@@ -289,6 +309,7 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
   let battenM = 0;
   let battenNailCount = 0;
   let tileNailCount = 0;
+  let clipCount = 0;
 
   for (let i = 0; i < schedule.length; i++) {
     const face = schedule[i];
@@ -304,6 +325,7 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
     battenM += (scratch.batten_mm / 1000) * q;
     battenNailCount += scratch.batten_nails * q;
     tileNailCount += scratch.tile_nails * q;
+    clipCount += f.clips * q;
 
     let b = byBuilding.get(face.building);
     if (!b) {
@@ -334,7 +356,12 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
       warnBuilding(warnings, building, 'odd_valley_edges', `${edges.valley_edges} valley edges: a valley is shared by two faces, so one valley is counted at half its length; check the schedule`);
     }
     if (edges.mixed_quantity) {
-      warnBuilding(warnings, building, 'mixed_quantity', 'faces of this building have different quantities; its ridge and hips are taken as quantity-weighted lengths');
+      warnBuilding(
+        warnings,
+        building,
+        'mixed_quantity',
+        'faces of this building have different quantities: ridge and hip tiles are rounded up for each group of faces with the same quantity; check that both slopes of each ridge have the same quantity',
+      );
     }
     const sides: RidgeSide[] = [];
     for (const i of b.ridgeFaces) {
@@ -383,6 +410,7 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
         { item: 'battens', quantity: battenLengths, unit_kg: (system.batten.kg_per_m * system.batten.stock_length_mm) / 1000 },
         { item: 'batten_nails', quantity: battenNailCount, unit_kg: system.fixing.batten_nail_g / 1000 },
         { item: 'tile_nails', quantity: tileNailCount, unit_kg: system.fixing.tile_nail_g / 1000 },
+        { item: 'clips', quantity: clipCount, unit_kg: system.fixing.clip_g / 1000 },
       ],
       lastOff: [
         { item: 'ridge_tiles', quantity: ridgeOrder, unit_kg: system.ridge.weight_kg },
@@ -408,6 +436,7 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
       batten_lengths: battenLengths,
       batten_nails: battenNailCount,
       tile_nails: tileNailCount,
+      clips: clipCount,
       ridge_m: r2(ridgeMm / 1000),
       ridge_tiles: ridgeOrder,
       hip_m: r2(hipMm / 1000),

@@ -30,23 +30,23 @@ describe('batten nails', () => {
 });
 
 describe('tile nails', () => {
-  it('nails every piece laid, whole, half or cut, under the every-tile rule (BS 5534: every single-lap tile mechanically fixed, published)', () => {
+  it('nails every piece laid, whole, half or cut, under the every-tile rule (BS 5534:2014 as summarised by a roofing consultant, secondary: every single-lap tile mechanically fixed)', () => {
     expect(nailedPieces('every_tile', course, 3, 10)).toBe(13);
   });
 
-  it('under the perimeter rule nails all of the eaves course, the top course and every second course', () => {
+  it('under the perimeter rule nails all of the eaves course, the top course and every second course (common practice)', () => {
     expect(nailedPieces('perimeter_and_alternate_courses', course, 0, 10)).toBe(13);
     expect(nailedPieces('perimeter_and_alternate_courses', course, 9, 10)).toBe(13);
     expect(nailedPieces('perimeter_and_alternate_courses', course, 1, 10)).toBe(13);
     expect(nailedPieces('perimeter_and_alternate_courses', course, 5, 10)).toBe(13);
   });
 
-  it('in the other courses nails only the perimeter pieces: verge tiles and cuts at hips and valleys (BS 5534: perimeter tiles fixed, published)', () => {
+  it('in the other courses nails only the perimeter pieces: verge tiles and cuts at hips and valleys (BS 5534:2014 as summarised by a roofing consultant, secondary: perimeter tiles fixed)', () => {
     expect(nailedPieces('perimeter_and_alternate_courses', course, 2, 10)).toBe(3);
     expect(nailedPieces('perimeter_and_alternate_courses', { whole: 1, halves: 0, cut: 0, perimeter: 2 }, 2, 10)).toBe(1);
   });
 
-  it('counts nails_per_tile for each nailed piece and warns about the perimeter rule at 45° and above', () => {
+  it('counts nails_per_tile for each nailed piece and warns about the perimeter rule at 45° and above (BS 5534:2014 as summarised, secondary: one nail a tile from 45°)', () => {
     const face = { building: '1', face: 'F', quantity: 2, pitch_deg: 50, rafter_mm: 370 + 4 * 320 + 40, run_mm: 1, eaves_mm: 8_940, top_mm: 8_940, left: 'verge' as const, right: 'verge' as const, top: 'ridge' as const };
     const every = estimate([face], roofSystemSchema.parse({ fixing: { rule: 'every_tile' } }));
     const f = every.faces[0];

@@ -15,7 +15,7 @@ import {
 const FT = 304.8; // mm in a foot
 
 describe('slope area = plan area ÷ cos(pitch)', () => {
-  // Published: trigonometry, as tabulated in /work/shared/TRADE.md "Geometry".
+  // Trigonometry: the slope factor 1 ÷ cos(pitch), tabulated to four places.
   it.each([
     [30, 1.1547],
     [35, 1.2208],
@@ -47,7 +47,7 @@ describe('slope area = plan area ÷ cos(pitch)', () => {
 });
 
 describe('hip rafter of an equal-pitch hip', () => {
-  // Published: US Navy "Builder" training manual worked example (TRADE.md, Geometry).
+  // Published: US Navy "Builder" training manual, hip rafter worked example.
   it('21.21 ft of hip run with 10 ft of rise gives a 23.45 ft hip (US Navy Builder manual)', () => {
     expect(hipRafterLength(21.21, 10)).toBeCloseTo(23.45, 2);
   });
@@ -68,6 +68,15 @@ describe('insets and widths of a face', () => {
 
   it('gives all the set-back to the one raking side and none to a verge', () => {
     expect(insets(oneHip)).toEqual({ left: 2_000, right: 0 });
+  });
+
+  it('gives the set-back to the hip, not to an abutment beside it: a wall runs square up the slope', () => {
+    const baySide: FaceShape = { eaves_mm: 900, top_mm: 0, rafter_mm: 1_100, left: 'abutment', right: 'hip' };
+    expect(insets(baySide)).toEqual({ left: 0, right: 900 });
+    expect(insets({ ...baySide, left: 'valley', right: 'abutment', top_mm: 1_500 })).toEqual({ left: -600, right: 0 });
+    // With no hip or valley, an abutment is the raking side (a lean-to against a sloping wall).
+    expect(insets({ ...baySide, left: 'verge', right: 'abutment', top_mm: 500 })).toEqual({ left: 0, right: 400 });
+    expect(insets({ ...baySide, left: 'abutment', right: 'abutment', top_mm: 500 })).toEqual({ left: 200, right: 200 });
   });
 
   it('gives a face that widens upwards a negative inset', () => {

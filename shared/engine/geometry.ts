@@ -48,15 +48,23 @@ export function isRaking(edge: EdgeKind): boolean {
   return edge !== 'verge';
 }
 
+/** A hip or valley runs diagonally on plan, so the top edge's set-back belongs to it before an abutment. */
+function isDiagonal(edge: EdgeKind): boolean {
+  return edge === 'hip' || edge === 'valley';
+}
+
 /**
- * How far the top edge is set back from the eaves at each side, in mm. A verge is square to the eaves,
- * so the whole set-back (eaves − top) goes to the raking sides, shared equally between two.
- * Negative when the face widens upwards (a valley face). Writes into `out` when given.
+ * How far the top edge is set back from the eaves at each side, in mm. A verge is square to the eaves and
+ * takes none. Hips and valleys take the whole set-back (eaves − top), shared equally between two; an
+ * abutment takes a share only when the other side is not a hip or valley, because a wall beside a hip
+ * (the side of a bay or porch canopy) runs square up the slope. So both faces of one hip give it the
+ * same length. Negative when the face widens upwards (a valley face). Writes into `out` when given.
  */
 export function insets(face: FaceShape, out: { left: number; right: number } = { left: 0, right: 0 }): { left: number; right: number } {
   const setBack = face.eaves_mm - face.top_mm;
-  const l = isRaking(face.left);
-  const r = isRaking(face.right);
+  const diagonal = isDiagonal(face.left) || isDiagonal(face.right);
+  const l = diagonal ? isDiagonal(face.left) : isRaking(face.left);
+  const r = diagonal ? isDiagonal(face.right) : isRaking(face.right);
   out.left = l ? (r ? setBack / 2 : setBack) : 0;
   out.right = r ? (l ? setBack / 2 : setBack) : 0;
   return out;

@@ -46,6 +46,19 @@ describe('roof loading', () => {
     expect(detail.face).toEqual(f);
   });
 
+  it('counts the loading battens from the top batten down, so a hip end loads its narrow top rows too (common practice)', () => {
+    const hipEnd: Face = { ...gable('East', 8_400, 5_091), top_mm: 0, left: 'hip', right: 'hip' };
+    const detail = faceDetail(hipEnd, sys);
+    const f = estimate([hipEnd], sys).faces[0];
+    expect(f.courses).toBe(15);
+    // Battens 15, 13, … 3 from the eaves carry stacks; batten 1 at the eaves does not.
+    expect(detail.loading.map((l) => l.batten)).toEqual([15, 13, 11, 9, 7, 5, 3]);
+    const supports = (batten: number) => detail.battens[batten - 1].supports;
+    expect(detail.loading.map((l) => l.positions)).toEqual([15, 13, 11, 9, 7, 5, 3].map(supports));
+    expect(f.stack_positions).toBe([15, 13, 11, 9, 7, 5, 3].map(supports).reduce((a, b) => a + b, 0));
+    expect(f.stacks_by_row).toEqual(detail.loading.map((l) => l.stacks));
+  });
+
   it('spreads evenly and passes on what a full row cannot hold to the rows below', () => {
     expect(planFaceLoading(60, [4, 4, 4], 6)).toEqual({ positions: 12, stacks: 10, stacks_by_row: [4, 3, 3], needed_stack: null });
     expect(planFaceLoading(60, [1, 10, 10], 6).stacks_by_row).toEqual([1, 5, 4]);

@@ -27,6 +27,11 @@ export interface FaceResult {
   stacks: number;
   stack_positions: number;
   load_kg: number;
+  /**
+   * Tile clips on this face: a tail clip on every eaves-course piece, a clip on every verge piece, and
+   * from the clip pitch a tail clip on every piece (fixing.clips; defaults by tile kind).
+   */
+  clips: number;
   setting_out_marks_mm: number[];
   /** Edge the marks are measured from. */
   setting_out_from: SettingOutFrom;
@@ -52,6 +57,8 @@ export interface Totals {
   batten_lengths: number;
   batten_nails: number;
   tile_nails: number;
+  /** Tile clips, counted as the faces' clips (no waste: they are sold by the pack). */
+  clips: number;
   ridge_m: number;
   /** Ridge tiles to order, waste included. */
   ridge_tiles: number;

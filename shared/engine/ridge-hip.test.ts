@@ -16,7 +16,7 @@ function face(partial: Partial<Face> & Pick<Face, 'face' | 'eaves_mm' | 'rafter_
 }
 
 describe('ridge', () => {
-  it('is half the top edges of the ridge faces plus the whole top of each mono-ridge face', () => {
+  it('is half the top edges of the ridge faces plus the whole top of each mono-ridge face (two slopes share a ridge: common practice)', () => {
     const e = buildingEdges(
       [
         edgeFace({ quantity: 1, rafter_mm: 4_000, eaves_mm: 9_000, top_mm: 9_000, top: 'ridge', left: 'verge', right: 'verge' }),
@@ -38,6 +38,17 @@ describe('ridge', () => {
     expect(buildingEdges(two(4_200), 420, 420).ridge_tiles).toBe(10);
     expect(buildingEdges(two(4_201), 420, 420).ridge_tiles).toBe(11);
     expect(buildingEdges(two(9_000), 450, 420).ridge_tiles).toBe(20);
+  });
+
+  it('rounds each house’s ridge on its own when some faces of the building have another quantity (common practice)', () => {
+    // 40 houses of a gable type, 20 of them with a lean-to porch: each house still needs 11 ridge tiles
+    // for its 4.3 m ridge (the last one cut), so 440, not 172 m ÷ 0.42 m = 410.
+    const gable = (name: string) => face({ face: name, quantity: 40, eaves_mm: 4_300, rafter_mm: 4_000 });
+    const porch = face({ face: 'Porch', quantity: 20, eaves_mm: 2_000, rafter_mm: 1_500, pitch_deg: 25, top: 'abutment' });
+    const r = estimate([gable('Front'), gable('Back'), porch], roofSystemSchema.parse({ waste_pct: { ridge_hip: 0 } }));
+    expect(r.totals.ridge_m).toBe(172);
+    expect(r.totals.ridge_tiles).toBe(40 * 11);
+    expect(r.warnings.map((w) => w.code)).toContain('mixed_quantity');
   });
 
   it('rounds each identical house’s ridge on its own when a building has a quantity', () => {
@@ -65,6 +76,21 @@ describe('hips and valleys', () => {
     expect(r.totals.hip_m).toBeCloseTo((4 * Math.hypot(rafter, run)) / 1000, 2);
     expect(r.totals.ridge_m).toBeCloseTo((length - 2 * run) / 1000, 2);
     expect(r.warnings.filter((w) => w.code === 'odd_hip_edges')).toEqual([]);
+  });
+
+  it('gives a hipped canopy against a wall the same hip from both faces that share it (trigonometry)', () => {
+    // A bay canopy: a front face between two hips, and two triangular sides, each with a hip and the wall.
+    const run = 900;
+    const rafter = 1_100;
+    const canopy = [
+      face({ face: 'Front', eaves_mm: 2 * run + 1_000, top_mm: 1_000, rafter_mm: rafter, left: 'hip', right: 'hip', top: 'abutment' }),
+      face({ face: 'Left', eaves_mm: run, top_mm: 0, rafter_mm: rafter, left: 'abutment', right: 'hip', top: 'abutment' }),
+      face({ face: 'Right', eaves_mm: run, top_mm: 0, rafter_mm: rafter, left: 'hip', right: 'abutment', top: 'abutment' }),
+    ];
+    const r = estimate(canopy, roofSystemSchema.parse({}));
+    // Two hips, each √(rafter² + run²) on the slope; half from the front face, half from a side.
+    expect(r.totals.hip_m).toBeCloseTo((2 * Math.hypot(rafter, run)) / 1000, 2);
+    expect(r.totals.ridge_m).toBe(0);
   });
 
   it('halves each raking edge because two faces share it, and reports valleys apart from hips', () => {

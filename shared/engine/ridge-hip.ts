@@ -47,9 +47,9 @@ export interface BuildingEdges {
 /**
  * Ridge, hips and valleys of one building, mm. Ridge = (sum of top_mm of ridge faces) ÷ 2 + top_mm of
  * mono-ridge faces; each raking edge √(rafter² + inset²), halved because two faces share it. Ridge
- * tiles = ceil(ridge length ÷ ridge cover), hip tiles likewise. When every face has the same quantity
- * (n identical houses) each house's ridge is rounded up on its own; otherwise quantity-weighted lengths
- * are rounded once.
+ * tiles = ceil(ridge length ÷ ridge cover), hip tiles likewise, rounded up for one copy of the faces
+ * that share a quantity and then multiplied by it: 40 houses each need their own part-used last tile,
+ * and a porch on 20 of them does not change that.
  */
 export function buildingEdges(faces: readonly EdgeFace[], ridgeCoverMm: number, hipCoverMm: number): BuildingEdges {
   const tally = new BuildingEdgeTally();
@@ -59,14 +59,11 @@ export function buildingEdges(faces: readonly EdgeFace[], ridgeCoverMm: number, 
 
 /** Running sums of one building's edges, face by face (what buildingEdges does, without keeping the faces). */
 export class BuildingEdgeTally {
-  private q0 = -1;
-  private same = true;
-  private ridge = 0;
-  private hip = 0;
-  private valley = 0;
-  private singleRidge = 0;
-  private singleHip = 0;
-  private singleValley = 0;
+  // One copy's lengths for each quantity met, in the order first met (a building has one or a few).
+  private readonly quantities: number[] = [];
+  private readonly ridge: number[] = [];
+  private readonly hip: number[] = [];
+  private readonly valley: number[] = [];
   private hips = 0;
   private valleys = 0;
 
@@ -82,41 +79,40 @@ export class BuildingEdgeTally {
     const rightLen = right === 'hip' || right === 'valley' ? rakingEdgeLength(rafterMm, insetRight) / 2 : 0;
     const hip = (left === 'hip' ? leftLen : 0) + (right === 'hip' ? rightLen : 0);
     const valley = (left === 'valley' ? leftLen : 0) + (right === 'valley' ? rightLen : 0);
-    if (this.q0 < 0) this.q0 = quantity;
-    else if (quantity !== this.q0) this.same = false;
-    this.singleRidge += ridge;
-    this.singleHip += hip;
-    this.singleValley += valley;
-    this.ridge += ridge * quantity;
-    this.hip += hip * quantity;
-    this.valley += valley * quantity;
+    let g = this.quantities.indexOf(quantity);
+    if (g < 0) {
+      g = this.quantities.length;
+      this.quantities.push(quantity);
+      this.ridge.push(0);
+      this.hip.push(0);
+      this.valley.push(0);
+    }
+    this.ridge[g] += ridge;
+    this.hip[g] += hip;
+    this.valley[g] += valley;
     this.hips += (left === 'hip' ? 1 : 0) + (right === 'hip' ? 1 : 0);
     this.valleys += (left === 'valley' ? 1 : 0) + (right === 'valley' ? 1 : 0);
   }
 
   finish(ridgeCoverMm: number, hipCoverMm: number): BuildingEdges {
-    const q = this.q0 < 0 ? 0 : this.q0;
-    if (this.same) {
-      return {
-        ridge_mm: this.singleRidge * q,
-        hip_mm: this.singleHip * q,
-        valley_mm: this.singleValley * q,
-        ridge_tiles: tilesFor(this.singleRidge, ridgeCoverMm) * q,
-        hip_tiles: tilesFor(this.singleHip, hipCoverMm) * q,
-        hip_edges: this.hips,
-        valley_edges: this.valleys,
-        mixed_quantity: false,
-      };
-    }
-    return {
-      ridge_mm: this.ridge,
-      hip_mm: this.hip,
-      valley_mm: this.valley,
-      ridge_tiles: tilesFor(this.ridge, ridgeCoverMm),
-      hip_tiles: tilesFor(this.hip, hipCoverMm),
+    const out: BuildingEdges = {
+      ridge_mm: 0,
+      hip_mm: 0,
+      valley_mm: 0,
+      ridge_tiles: 0,
+      hip_tiles: 0,
       hip_edges: this.hips,
       valley_edges: this.valleys,
-      mixed_quantity: true,
+      mixed_quantity: this.quantities.length > 1,
     };
+    for (let g = 0; g < this.quantities.length; g++) {
+      const q = this.quantities[g];
+      out.ridge_mm += this.ridge[g] * q;
+      out.hip_mm += this.hip[g] * q;
+      out.valley_mm += this.valley[g] * q;
+      out.ridge_tiles += tilesFor(this.ridge[g], ridgeCoverMm) * q;
+      out.hip_tiles += tilesFor(this.hip[g], hipCoverMm) * q;
+    }
+    return out;
   }
 }

@@ -31,6 +31,16 @@ describe('tiles per course between two verges', () => {
     expect(fit.cover_mm).toBeLessThan(300);
   });
 
+  it('of two whole numbers of tiles that fit, takes the one whose cover at the target overhang is nearest the nominal', () => {
+    const wide = { min: 290, nominal: 300, max: 310 }; // a tile with more side-lock play than the default
+    // 9150 mm: 30 gaps need 297 mm of cover at 45 mm overhang, 29 gaps 307.2 mm; 297 is nearer 300.
+    expect(fitBetweenVerges(9_150, w, wide, overhang)).toEqual({ tiles: 31, cover_mm: 297, overhang_mm: 45, fits: true });
+    // 9000 mm: 29 gaps need 302.1 mm, 30 gaps 292 mm; 302.1 is nearer.
+    const fit = fitBetweenVerges(9_000, w, wide, overhang);
+    expect(fit).toMatchObject({ tiles: 30, overhang_mm: 45, fits: true });
+    expect(fit.cover_mm).toBeCloseTo(8_760 / 29, 9);
+  });
+
   it('moves the overhang within its range when the play alone cannot close the gap', () => {
     // 8 tiles at maximum cover reach 7 × 303 + 330 = 2451; the verge overhangs then take the rest.
     const fit = fitBetweenVerges(2_380, w, cover, overhang);

@@ -149,6 +149,26 @@ export const roofSystemSchema = z
           .default(d.fixing.rule),
         batten_nail_g: nonNegative().default(d.fixing.batten_nail_g),
         tile_nail_g: nonNegative().default(d.fixing.tile_nail_g),
+        // Each field left out follows the tile kind (SINGLE_LAP_CLIP_DEFAULTS, DOUBLE_LAP_CLIP_DEFAULTS);
+        // the engine resolves them, as the fixing section is read without the tile.
+        clips: z
+          .strictObject({
+            eaves: z.boolean({ error: 'must be true or false' }).optional(),
+            verges: z.boolean({ error: 'must be true or false' }).optional(),
+            every_tile_from_pitch_deg: z
+              .union(
+                [
+                  num('must be a pitch in degrees above 0 and at most 90, or null for never')
+                    .gt(0, { error: 'must be a pitch in degrees above 0 and at most 90, or null for never' })
+                    .max(90, { error: 'must be a pitch in degrees above 0 and at most 90, or null for never' }),
+                  z.null(),
+                ],
+                { error: 'must be a pitch in degrees above 0 and at most 90, or null for never' },
+              )
+              .optional(),
+          })
+          .prefault({}),
+        clip_g: nonNegative().default(d.fixing.clip_g),
       })
       .prefault({}),
     waste_pct: z

@@ -10,6 +10,10 @@ interface SectionEntry extends NavItem {
 }
 
 const SECTIONS: readonly SectionEntry[] = [
+  // TODO: give sites, orders and quotes their own icons when nav-icon.tsx next changes.
+  { to: '/sites', label: 'Sites', icon: 'branches', action: 'projects:read' },
+  { to: '/orders', label: 'Orders', icon: 'organisation', action: 'orders:place' },
+  { to: '/quotes', label: 'Quotes', icon: 'organisation', action: 'orders:place' },
   { to: '/organisation', label: 'Organisation', icon: 'organisation', action: 'organisation:read' },
   { to: '/branches', label: 'Branches', icon: 'branches', action: 'branches:read' },
   { to: '/team', label: 'Team', icon: 'team', action: 'members:read' },

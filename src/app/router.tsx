@@ -6,6 +6,26 @@ import { RootErrorPage, RouteErrorPage } from '../components/errors/route-error-
 import { PageLoading } from '../components/ui/page-loading';
 import { redirectIfSignedIn, requireAction, requireHomeOf, requireSession, rootRedirect } from './route-guards';
 import { AcceptInvitationRoute } from './routes/accept-invitation-route';
+import { AmendOrderRoute } from './routes/amend-order-route';
+import { EstimateCaution, FaceDrawingCaution, NewEstimateCaution, OrderCaution, PlaceOrderCaution } from './routes/cautions';
+import { CompareEstimatesRoute } from './routes/compare-estimates-route';
+import { EditSiteRoute } from './routes/edit-site-route';
+import { EstimateRoute } from './routes/estimate-route';
+import { FaceRoute } from './routes/face-route';
+import { NewEstimateRoute } from './routes/new-estimate-route';
+import { NewSiteRoute } from './routes/new-site-route';
+import { OrderRoute } from './routes/order-route';
+import { OrdersRoute } from './routes/orders-route';
+import { PlaceOrderRoute } from './routes/place-order-route';
+import { QuoteRequestRoute } from './routes/quote-request-route';
+import { QuoteRoute } from './routes/quote-route';
+import { QuotesRoute } from './routes/quotes-route';
+import { guardedRoute } from './routes/route-loaders';
+import { ScheduleEditRoute } from './routes/schedule-edit-route';
+import { ScheduleImportRoute } from './routes/schedule-import-route';
+import { ScheduleVersionRoute } from './routes/schedule-version-route';
+import { SiteRoute } from './routes/site-route';
+import { SitesRoute } from './routes/sites-route';
 import { AppLayoutRoute } from './routes/app-layout-route';
 import { BranchesRoute } from './routes/branches-route';
 import { ContractorHomeRoute } from './routes/contractor-home-route';
@@ -24,6 +44,37 @@ import { TeamRoute } from './routes/team-route';
 import { YardHomeRoute } from './routes/yard-home-route';
 
 const pageError = <RouteErrorPage />;
+
+/** The contractor workspace: sites and their schedules, estimates, orders and quote requests. */
+function contractorRoutes(queryClient: QueryClient): RouteObject[] {
+  const page = (path: string, action: Parameters<typeof guardedRoute>[1], element: RouteObject['element'], idParams: string[] = [], handle?: RouteObject['handle']): RouteObject => ({
+    path,
+    loader: guardedRoute(queryClient, action, ...idParams),
+    element,
+    errorElement: pageError,
+    ...(handle ? { handle } : {}),
+  });
+  return [
+    page('sites', 'projects:read', <SitesRoute />),
+    page('sites/new', 'projects:write', <NewSiteRoute />),
+    page('sites/:projectId', 'projects:read', <SiteRoute />, ['projectId']),
+    page('sites/:projectId/edit', 'projects:write', <EditSiteRoute />, ['projectId']),
+    page('sites/:projectId/schedule/import', 'projects:write', <ScheduleImportRoute />, ['projectId']),
+    page('sites/:projectId/schedule/edit', 'projects:write', <ScheduleEditRoute />, ['projectId']),
+    page('sites/:projectId/schedules/:version', 'projects:read', <ScheduleVersionRoute />, ['projectId', 'version']),
+    page('sites/:projectId/estimates/new', 'estimates:write', <NewEstimateRoute />, ['projectId'], { caution: <NewEstimateCaution /> }),
+    page('estimates/compare', 'estimates:read', <CompareEstimatesRoute />),
+    page('estimates/:estimateId', 'estimates:read', <EstimateRoute />, ['estimateId'], { caution: <EstimateCaution /> }),
+    page('estimates/:estimateId/faces/:faceIndex', 'estimates:read', <FaceRoute />, ['estimateId'], { caution: <FaceDrawingCaution /> }),
+    page('estimates/:estimateId/order', 'orders:place', <PlaceOrderRoute />, ['estimateId'], { caution: <PlaceOrderCaution /> }),
+    page('estimates/:estimateId/quote', 'orders:place', <QuoteRequestRoute />, ['estimateId'], { caution: <PlaceOrderCaution /> }),
+    page('orders', 'orders:place', <OrdersRoute />),
+    page('orders/:orderId', 'orders:place', <OrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
+    page('orders/:orderId/amend', 'orders:place', <AmendOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
+    page('quotes', 'orders:place', <QuotesRoute />),
+    page('quotes/:requestId', 'orders:place', <QuoteRoute />, ['requestId']),
+  ];
+}
 
 /** Every route of the client. Loaders only guard; pages fetch their own data and show its states. */
 export function appRoutes(queryClient: QueryClient): RouteObject[] {
@@ -94,6 +145,7 @@ export function appRoutes(queryClient: QueryClient): RouteObject[] {
               element: <OrganisationRoute />,
               errorElement: pageError,
             },
+            ...contractorRoutes(queryClient),
           ],
         },
         { path: '*', element: <NotFoundRoute /> },

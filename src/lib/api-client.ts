@@ -25,6 +25,7 @@ export function isApiError(error: unknown): error is ApiError {
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 export interface RequestOptions<TSchema extends z.ZodType | undefined> {
+  /** Sent as JSON, or as multipart when it is a FormData (file uploads). */
   body?: unknown;
   /** Parses the response body; without it the body is ignored (e.g. 204). */
   schema?: TSchema;
@@ -94,13 +95,15 @@ export function createApiClient(options: ApiClientOptions = {}) {
 
   async function send(method: Method, path: string, body: unknown, signal: AbortSignal | undefined, token: string | null) {
     const headers: Record<string, string> = { Accept: 'application/json' };
-    if (body !== undefined) headers['Content-Type'] = 'application/json';
+    // A FormData body (file uploads) sets its own multipart Content-Type with the boundary.
+    const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
+    if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
     if (token) headers['X-CSRF-Token'] = token;
     try {
       return await fetch(path, {
         method,
         headers,
-        body: body === undefined ? undefined : JSON.stringify(body),
+        body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
         credentials: 'same-origin',
         signal,
       });

@@ -28,3 +28,14 @@ export function formatDateTime(value: string): string {
 export function firstName(name: string): string {
   return name.trim().split(/\s+/)[0] ?? name;
 }
+
+const pounds = new Intl.NumberFormat('en-GB', { style: 'currency', currency: 'GBP' });
+
+/**
+ * Minor units (pence) as pounds and pence. Money travels as whole pence everywhere and becomes a
+ * decimal only here, at the edge of the screen.
+ */
+export function formatMoney(minor: number | null | undefined): string {
+  if (minor === null || minor === undefined) return '—';
+  return pounds.format(minor / 100);
+}

@@ -44,6 +44,8 @@ describe.concurrent('estimate CLI', () => {
     expect(result.faces[0]).toMatchObject({ building: 'Alder', face: 'Front', quantity: 12, headlap_mm: 75 });
     expect(result.totals.tiles).toBe(result.faces.reduce((s: number, f: { tiles: number; quantity: number }) => s + f.tiles * f.quantity, 0));
     expect(result.loads.length).toBeGreaterThan(0);
+    expect(result.totals.clips).toBe(result.faces.reduce((s: number, f: { clips: number; quantity: number }) => s + f.clips * f.quantity, 0));
+    expect(result.totals.clips).toBeGreaterThan(0);
   });
 
   it('uses the roof system given with --system (partial: the rest takes defaults)', async () => {
@@ -109,6 +111,17 @@ describe.concurrent('estimate CLI', () => {
     expect(r.code).toBe(2);
     expect(r.stdout).toBe('');
     expect(r.stderr).toMatch(/^system field tile\.length_mm: must be more than 0$/m);
+  });
+
+  it('counts clips with the clip rule given, and names a bad clip field by its path', async () => {
+    const schedule = file('clips.csv', EXAMPLE_SCHEDULE_CSV);
+    const none = await run(['--schedule', schedule, '--system', file('no-clips.json', JSON.stringify({ fixing: { clips: { eaves: false, verges: false } } }))]);
+    expect(none.code).toBe(0);
+    expect(JSON.parse(none.stdout).totals.clips).toBe(0);
+    const bad = await run(['--schedule', schedule, '--system', file('bad-clips.json', JSON.stringify({ fixing: { clips: { eaves: 'yes' } } }))]);
+    expect(bad.code).toBe(2);
+    expect(bad.stdout).toBe('');
+    expect(bad.stderr.trim()).toBe('system field fixing.clips.eaves: must be true or false');
   });
 
   it('rejects a system file that is not JSON', async () => {

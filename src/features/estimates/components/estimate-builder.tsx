@@ -1,0 +1,288 @@
+import { useCallback, useDeferredValue, useEffect, useId, useMemo, useRef, useState } from 'react';
+import type { FormEvent } from 'react';
+import { DEFAULT_TILE, SYSTEM_DEFAULTS } from '../../../../shared/engine/defaults';
+import type { Estimate } from '../../../../shared/schemas/estimate.schema';
+import type { Face } from '../../../../shared/schemas/schedule.schema';
+import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
+import { useZodForm } from '../../../components/form/use-zod-form';
+import { Alert, ErrorAlert } from '../../../components/ui/alert';
+import { Card } from '../../../components/ui/card';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
+import { useCreateEstimate } from '../api/create-estimate';
+import { useSystems } from '../api/get-systems';
+import { HEADLAP_ROWS, WASTE_FIELDS, estimateFormSchema, headlapField, previewEstimate, tileField } from '../lib/estimate-form';
+import type { PreviewOutcome } from '../lib/estimate-form';
+import { placeWarnings } from '../lib/warnings';
+import { FaceBreakdownTable } from './face-breakdown-table';
+import { SystemPicker } from './system-picker';
+
+const WASTE_LABELS: Record<(typeof WASTE_FIELDS)[number], string> = {
+  tiles: 'Tiles',
+  battens: 'Battens',
+  underlay: 'Underlay',
+  ridge_hip: 'Ridge and hip',
+};
+
+function readValues(form: HTMLFormElement | null): Record<string, string> {
+  const values: Record<string, string> = {};
+  if (!form) return values;
+  for (const [key, value] of new FormData(form).entries()) if (typeof value === 'string') values[key] = value;
+  return values;
+}
+
+const n = (v: number, digits = 0) => v.toLocaleString('en-GB', { maximumFractionDigits: digits });
+
+function Preview({ outcome }: { outcome: PreviewOutcome }) {
+  const placed = useMemo(() => (outcome.state === 'ready' ? placeWarnings(outcome.result) : null), [outcome]);
+  if (outcome.state === 'empty') return <EmptyState title="Choose a roof system">The figures appear here as soon as the system is complete.</EmptyState>;
+  if (outcome.state === 'problems') {
+    return (
+      <Alert tone="danger" title="These faces and this system do not go together yet" live={false}>
+        <ul className="list-disc space-y-1 pl-5">
+          {outcome.problems.map((p) => (
+            <li key={p}>{p}</li>
+          ))}
+        </ul>
+      </Alert>
+    );
+  }
+  const { totals } = outcome.result;
+  const figures: [string, string][] = [
+    ['Tiles to order', n(totals.tiles_order)],
+    ['Ridge tiles', n(totals.ridge_tiles)],
+    ['Hip tiles', n(totals.hip_tiles)],
+    ['Batten lengths', n(totals.batten_lengths)],
+    ['Batten nails', n(totals.batten_nails)],
+    ['Tile nails', n(totals.tile_nails)],
+    ['Underlay rolls', n(totals.underlay_rolls)],
+    ['Tile pallets', n(totals.pallets)],
+    ['Weight', `${n(totals.weight_kg / 1000, 1)} t`],
+  ];
+  return (
+    <div className="space-y-4">
+      <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3" data-testid="estimate-preview">
+        {figures.map(([label, value]) => (
+          <div key={label} className="rounded-md bg-mortar-50 px-3 py-2">
+            <dt className="text-sm text-ink-600">{label}</dt>
+            <dd className="text-lg font-bold tabular-nums">{value}</dd>
+          </div>
+        ))}
+      </dl>
+      {outcome.result.warnings.length > 0 ? (
+        <Alert tone="caution" title={`${outcome.result.warnings.length} ${outcome.result.warnings.length === 1 ? 'thing' : 'things'} to check`} live={false}>
+          <ul className="list-disc space-y-1 pl-5">
+            {outcome.result.warnings.map((w, i) => (
+              <li key={`${w.code}-${i}`}>
+                {w.face ? <span className="font-semibold">{w.building} · {w.face}: </span> : w.building ? <span className="font-semibold">{w.building}: </span> : null}
+                {w.message}
+              </li>
+            ))}
+          </ul>
+        </Alert>
+      ) : null}
+      {placed ? <FaceBreakdownTable faces={outcome.result.faces} warningsByFace={placed.byFace} compact /> : null}
+    </div>
+  );
+}
+
+function GenericSystemFields() {
+  return (
+    <div className="space-y-4">
+      <p className="text-sm text-ink-700">
+        Type the figures from the tile maker&rsquo;s data sheet. Anything left blank takes Ridgeload&rsquo;s generic figures, which are
+        typical of the kind and no maker&rsquo;s product.
+      </p>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField
+          name={tileField('kind')}
+          label="Kind of tile"
+          defaultValue={DEFAULT_TILE.kind}
+          options={[
+            { value: 'single_lap', label: 'Single lap (interlocking)' },
+            { value: 'double_lap', label: 'Double lap (plain tile or slate)' },
+          ]}
+        />
+        <TextField name={tileField('name')} label="Name (for you)" autoComplete="off" />
+        <TextField name={tileField('length_mm')} label="Length (mm)" inputMode="decimal" defaultValue={DEFAULT_TILE.length_mm} />
+        <TextField name={tileField('width_mm')} label="Width (mm)" inputMode="decimal" defaultValue={DEFAULT_TILE.width_mm} />
+        <TextField name={tileField('weight_kg')} label="Weight of one tile (kg)" inputMode="decimal" defaultValue={DEFAULT_TILE.weight_kg} />
+        <TextField name={tileField('per_pallet')} label="Tiles a pallet" inputMode="numeric" defaultValue={DEFAULT_TILE.per_pallet} />
+      </div>
+      <fieldset>
+        <legend className="mb-1.5 font-medium">Cover width (mm), for a single-lap tile</legend>
+        <p className="mb-2 text-sm text-ink-600">The side lock&rsquo;s play: closed up, nominal, spread. Leave blank for a double-lap tile.</p>
+        <div className="grid grid-cols-3 gap-3">
+          <TextField name={tileField('cover_width_mm.min')} label="Closed" inputMode="decimal" defaultValue={DEFAULT_TILE.cover_width_mm.min} />
+          <TextField name={tileField('cover_width_mm.nominal')} label="Nominal" inputMode="decimal" defaultValue={DEFAULT_TILE.cover_width_mm.nominal} />
+          <TextField name={tileField('cover_width_mm.max')} label="Spread" inputMode="decimal" defaultValue={DEFAULT_TILE.cover_width_mm.max} />
+        </div>
+      </fieldset>
+      <fieldset>
+        <legend className="mb-1.5 font-medium">Headlap by pitch</legend>
+        <p className="mb-2 text-sm text-ink-600">From each pitch up, the least headlap. The lowest pitch given is the lowest the tile may be laid at.</p>
+        <div className="space-y-2">
+          {Array.from({ length: HEADLAP_ROWS }, (_, i) => (
+            <div key={i} className="grid grid-cols-2 gap-3">
+              <TextField name={headlapField(i, 'from_pitch_deg')} label={`From pitch (°), band ${i + 1}`} inputMode="decimal" defaultValue={DEFAULT_TILE.headlap_mm[i]?.from_pitch_deg} />
+              <TextField name={headlapField(i, 'min_mm')} label={`Headlap (mm), band ${i + 1}`} inputMode="decimal" defaultValue={DEFAULT_TILE.headlap_mm[i]?.min_mm} />
+            </div>
+          ))}
+        </div>
+      </fieldset>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField
+          name={tileField('bond')}
+          label="Bond"
+          defaultValue={DEFAULT_TILE.bond}
+          options={[
+            { value: '', label: 'As usual for the kind' },
+            { value: 'broken', label: 'Broken bond' },
+            { value: 'straight', label: 'Straight bond' },
+          ]}
+        />
+        <TextField name={tileField('nails_per_tile')} label="Nails a tile" inputMode="numeric" hint="Blank: as usual for the kind" />
+        <TextField name="system.rafter_spacing_mm" label="Rafter centres (mm)" inputMode="decimal" defaultValue={SYSTEM_DEFAULTS.rafter_spacing_mm} />
+      </div>
+    </div>
+  );
+}
+
+interface EstimateBuilderProps {
+  projectId: number;
+  /** The faces of the schedule version being estimated, as the engine reads them. */
+  faces: readonly Face[];
+  scheduleVersion: number;
+  onCreated: (estimate: Estimate) => void;
+}
+
+/**
+ * Choosing the roof system for an estimate, with the engine's figures worked out in the browser as
+ * the form changes; saving asks the server to work them out again, price them and keep them.
+ */
+export function EstimateBuilder({ projectId, faces, scheduleVersion, onCreated }: EstimateBuilderProps) {
+  const systems = useSystems();
+  const create = useCreateEstimate(projectId);
+  const wrapper = useRef<HTMLDivElement>(null);
+  const kindId = useId();
+  const [source, setSource] = useState<'catalogue' | 'generic'>('catalogue');
+  const [kind, setKind] = useState<'all' | 'single_lap' | 'double_lap'>('all');
+  const [chosenId, setChosenId] = useState<number | null>(null);
+  const [values, setValues] = useState<Record<string, string>>({});
+  const deferredValues = useDeferredValue(values);
+
+  const form = useZodForm({
+    schema: estimateFormSchema,
+    onSubmit: async (body) => onCreated(await create.mutateAsync({ ...body, schedule_version: scheduleVersion })),
+  });
+
+  const refresh = useCallback(() => setValues(readValues(wrapper.current?.closest('form') ?? null)), []);
+  // Inputs that appear or change their defaults (another system's waste) are read once they are on the page.
+  useEffect(refresh, [refresh, systems.data, source, chosenId]);
+
+  function onChange(event: FormEvent<HTMLDivElement>) {
+    const target = event.target as HTMLInputElement;
+    if (target.name === 'source') setSource(target.value === 'generic' ? 'generic' : 'catalogue');
+    if (target.name === 'system_id') setChosenId(Number(target.value));
+    refresh();
+  }
+
+  const offers = systems.data ?? [];
+  const shown = kind === 'all' ? offers : offers.filter((o) => o.tile.kind === kind);
+  const chosen = offers.find((o) => o.id === chosenId) ?? null;
+  const wasteDefaults = source === 'catalogue' && chosen ? chosen.system.waste_pct : SYSTEM_DEFAULTS.waste_pct;
+
+  const outcome = useMemo<PreviewOutcome>(() => {
+    const parsed = estimateFormSchema.safeParse(deferredValues);
+    if (!parsed.success) {
+      const issues = parsed.error.issues.filter((issue) => issue.path[0] !== 'system_id');
+      // Nothing chosen yet is not a problem to list; a half-typed figure is.
+      if (issues.length === 0) return { state: 'empty' };
+      return { state: 'problems', problems: issues.map((issue) => `${String(issue.path[0] ?? 'system').replace(/^system\.|^waste_pct\./, '')}: ${issue.message}`) };
+    }
+    return previewEstimate(faces, parsed.data, offers);
+  }, [deferredValues, faces, offers]);
+
+  return (
+    <Form form={form} label="New estimate" className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+      <div ref={wrapper} onChange={onChange} onInput={onChange} className="space-y-6">
+        <Card title="Roof system">
+          <fieldset className="mb-4">
+            <legend className="sr-only">Where the system comes from</legend>
+            <div className="grid gap-2 sm:grid-cols-2">
+              {[
+                { value: 'catalogue', label: 'A merchant’s roof system', hint: 'Tile and matching accessories, priced by the branch' },
+                { value: 'generic', label: 'A generic system', hint: 'Type the tile’s figures; quantities only, no prices' },
+              ].map((option) => (
+                <label key={option.value} className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50">
+                  <input type="radio" name="source" value={option.value} defaultChecked={option.value === 'catalogue'} className="mt-1 h-5 w-5 accent-clay-600" />
+                  <span>
+                    <span className="block font-medium">{option.label}</span>
+                    <span className="block text-sm text-ink-600">{option.hint}</span>
+                  </span>
+                </label>
+              ))}
+            </div>
+          </fieldset>
+
+          <div hidden={source !== 'catalogue'} className="space-y-4">
+            <div className="max-w-xs">
+              <label htmlFor={kindId} className="mb-1.5 block font-medium">
+                Show
+              </label>
+              <select id={kindId} value={kind} onChange={(event) => setKind(event.target.value as typeof kind)} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-2">
+                <option value="all">Every kind of tile</option>
+                <option value="single_lap">Single-lap tiles</option>
+                <option value="double_lap">Plain tiles and slates</option>
+              </select>
+            </div>
+            {form.fieldErrors.system_id ? (
+              <p id={`${form.id}-system-error`} className="text-sm font-medium text-brick-700">
+                {form.fieldErrors.system_id}
+              </p>
+            ) : null}
+            {systems.isPending ? (
+              <SkeletonBlock label="Loading the merchants’ roof systems" lines={4} />
+            ) : systems.isError ? (
+              <ErrorAlert error={systems.error} title="The roof systems could not be loaded" onRetry={() => void systems.refetch()} />
+            ) : shown.length === 0 ? (
+              <EmptyState title="No roof systems to choose from">Merchants have not listed any of this kind yet; a generic system works meanwhile.</EmptyState>
+            ) : (
+              <SystemPicker
+                systems={shown}
+                faces={faces}
+                chosenId={chosenId}
+                error={form.fieldErrors.system_id}
+                describedBy={form.fieldErrors.system_id ? `${form.id}-system-error` : undefined}
+              />
+            )}
+          </div>
+
+          <div hidden={source !== 'generic'}>
+            <GenericSystemFields />
+          </div>
+        </Card>
+
+        <Card title="Waste allowed">
+          <p className="mb-3 text-sm text-ink-700">Per cent over the net quantities, for cutting and breakage. They start from the system&rsquo;s own figures.</p>
+          <div key={`${source}-${chosenId ?? 'none'}`} className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+            {WASTE_FIELDS.map((field) => (
+              <TextField key={field} name={`waste_pct.${field}`} label={`${WASTE_LABELS[field]} (%)`} inputMode="decimal" defaultValue={wasteDefaults[field]} />
+            ))}
+          </div>
+        </Card>
+
+        <SubmitButton size="lg">Save the estimate</SubmitButton>
+      </div>
+
+      <div className="xl:sticky xl:top-6">
+        <Card title="Preview">
+          <p className="mb-3 text-sm text-ink-600" aria-live="polite">
+            Worked out in your browser by the same rules the saved estimate uses, for schedule version {scheduleVersion} ({faces.length} {faces.length === 1 ? 'face' : 'faces'}). Prices come when you save.
+          </p>
+          <Preview outcome={outcome} />
+        </Card>
+      </div>
+    </Form>
+  );
+}

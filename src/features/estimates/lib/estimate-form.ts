@@ -1,0 +1,135 @@
+import { z } from 'zod';
+import { checkFacesAgainstSystem, estimate } from '../../../../shared/engine/estimate';
+import type { EngineResult, InputProblem } from '../../../../shared/engine/result';
+import { parseRoofSystem } from '../../../../shared/engine/roof-system';
+import type { RoofSystemOffer } from '../../../../shared/schemas/catalogue.schema';
+import { wastePctSchema } from '../../../../shared/schemas/estimate.schema';
+import type { CreateEstimateBody } from '../../../../shared/schemas/estimate.schema';
+import type { Face } from '../../../../shared/schemas/schedule.schema';
+
+/**
+ * The estimate form's fields are flat inputs named by the path the API reports errors on
+ * (waste_pct.tiles, system.tile.length_mm, system.tile.headlap_mm[0].min_mm), so a refusal from the
+ * server lands on the same input the browser would have marked.
+ */
+export const WASTE_FIELDS = ['tiles', 'battens', 'underlay', 'ridge_hip'] as const;
+export const HEADLAP_ROWS = 3;
+
+export const tileField = (name: string) => `system.tile.${name}`;
+export const headlapField = (i: number, name: 'from_pitch_deg' | 'min_mm') => `system.tile.headlap_mm[${i}].${name}`;
+
+type Ctx = z.core.$RefinementCtx<unknown>;
+
+function numberAt(values: Record<string, string>, name: string, ctx: Ctx, required: boolean): number | undefined {
+  const text = (values[name] ?? '').trim().replace(',', '.');
+  if (text === '') {
+    if (required) ctx.addIssue({ code: 'custom', path: [name], message: 'is required' });
+    return undefined;
+  }
+  const value = Number(text);
+  if (!Number.isFinite(value)) {
+    ctx.addIssue({ code: 'custom', path: [name], message: 'must be a number' });
+    return undefined;
+  }
+  return value;
+}
+
+function readWaste(values: Record<string, string>, ctx: Ctx) {
+  const waste: Record<string, number> = {};
+  for (const key of WASTE_FIELDS) {
+    const value = numberAt(values, `waste_pct.${key}`, ctx, false);
+    if (value !== undefined) waste[key] = value;
+  }
+  const checked = wastePctSchema.safeParse(waste);
+  if (!checked.success) {
+    for (const issue of checked.error.issues) ctx.addIssue({ code: 'custom', path: [`waste_pct.${issue.path.join('.')}`], message: issue.message });
+  }
+  return waste;
+}
+
+/** The generic system's fields as the engine's roof-system input; blank optional fields take the engine's defaults. */
+function readGenericSystem(values: Record<string, string>, ctx: Ctx): Record<string, unknown> {
+  const kind = values[tileField('kind')] === 'double_lap' ? 'double_lap' : 'single_lap';
+  const tile: Record<string, unknown> = { kind };
+  const name = (values[tileField('name')] ?? '').trim();
+  if (name) tile.name = name;
+  for (const field of ['length_mm', 'width_mm', 'weight_kg', 'per_pallet'] as const) {
+    const value = numberAt(values, tileField(field), ctx, true);
+    if (value !== undefined) tile[field] = value;
+  }
+  const nails = numberAt(values, tileField('nails_per_tile'), ctx, false);
+  if (nails !== undefined) tile.nails_per_tile = nails;
+  const bond = values[tileField('bond')];
+  if (bond === 'broken' || bond === 'straight') tile.bond = bond;
+  const cover = ['min', 'nominal', 'max'].map((part) => numberAt(values, tileField(`cover_width_mm.${part}`), ctx, false));
+  if (cover.some((v) => v !== undefined)) {
+    const [min, nominal, max] = cover;
+    tile.cover_width_mm = { min: min ?? nominal, nominal: nominal ?? min, max: max ?? nominal };
+  }
+  const bands: { from_pitch_deg: number; min_mm: number }[] = [];
+  for (let i = 0; i < HEADLAP_ROWS; i++) {
+    const from = numberAt(values, headlapField(i, 'from_pitch_deg'), ctx, false);
+    const lap = numberAt(values, headlapField(i, 'min_mm'), ctx, false);
+    if (from === undefined && lap === undefined) continue;
+    if (from === undefined) ctx.addIssue({ code: 'custom', path: [headlapField(i, 'from_pitch_deg')], message: 'give the pitch this headlap applies from' });
+    if (lap === undefined) ctx.addIssue({ code: 'custom', path: [headlapField(i, 'min_mm')], message: 'give the headlap for this pitch' });
+    if (from !== undefined && lap !== undefined) bands.push({ from_pitch_deg: from, min_mm: lap });
+  }
+  if (bands.length === 0) ctx.addIssue({ code: 'custom', path: [headlapField(0, 'min_mm')], message: 'give at least one pitch and its headlap' });
+  tile.headlap_mm = bands;
+  const system: Record<string, unknown> = { tile };
+  const spacing = numberAt(values, 'system.rafter_spacing_mm', ctx, false);
+  if (spacing !== undefined) system.rafter_spacing_mm = spacing;
+  return system;
+}
+
+/** Engine field paths (tile.headlap_mm[0].min_mm) as the form's input names. */
+export function systemProblemsToFields(problems: readonly InputProblem[]): { path: string; message: string }[] {
+  return problems.map((p) => ({ path: p.field ? (p.field.startsWith('waste_pct') ? p.field : `system.${p.field}`) : 'system', message: p.message }));
+}
+
+/**
+ * Reads the form into the API body: a merchant's system by id, or a generic system typed in, and
+ * the waste allowances. The generic system is checked with the engine's own roof-system reader.
+ */
+export const estimateFormSchema = z.record(z.string(), z.string()).transform((values, ctx): CreateEstimateBody => {
+  const waste = readWaste(values, ctx);
+  const waste_pct = Object.keys(waste).length > 0 ? waste : undefined;
+  if (values.source === 'generic') {
+    const system = readGenericSystem(values, ctx);
+    const parsed = parseRoofSystem({ ...system, ...(waste_pct ? { waste_pct } : {}) });
+    if (!parsed.ok) for (const p of systemProblemsToFields(parsed.errors)) ctx.addIssue({ code: 'custom', path: [p.path], message: p.message });
+    return { system, ...(waste_pct ? { waste_pct } : {}) };
+  }
+  const id = Number(values.system_id);
+  if (!values.system_id || !Number.isInteger(id) || id <= 0) {
+    ctx.addIssue({ code: 'custom', path: ['system_id'], message: 'choose a roof system, or type in a generic one' });
+    return z.NEVER;
+  }
+  return { system_id: id, ...(waste_pct ? { waste_pct } : {}) };
+});
+
+export type PreviewOutcome =
+  | { state: 'empty' }
+  | { state: 'problems'; problems: string[] }
+  | { state: 'ready'; result: EngineResult };
+
+/** The engine's estimate of the schedule with the system as the form stands, worked out in the browser. */
+export function previewEstimate(faces: readonly Face[], body: CreateEstimateBody | null, offers: readonly RoofSystemOffer[]): PreviewOutcome {
+  if (!body) return { state: 'empty' };
+  let input: Record<string, unknown>;
+  if (body.system_id !== undefined) {
+    const offer = offers.find((o) => o.id === body.system_id);
+    if (!offer) return { state: 'empty' };
+    input = { ...offer.system, waste_pct: { ...offer.system.waste_pct, ...body.waste_pct } };
+  } else {
+    input = { ...(body.system ?? {}), ...(body.waste_pct ? { waste_pct: body.waste_pct } : {}) };
+  }
+  const system = parseRoofSystem(input);
+  if (!system.ok) return { state: 'problems', problems: system.errors.map((e) => `${e.field ?? 'system'}: ${e.message}`) };
+  const unsuitable = checkFacesAgainstSystem(faces, system.system);
+  if (unsuitable.length > 0) {
+    return { state: 'problems', problems: unsuitable.map((p) => `${faces[(p.row ?? 1) - 1]?.building} · ${faces[(p.row ?? 1) - 1]?.face}: ${p.message}`) };
+  }
+  return { state: 'ready', result: estimate([...faces], system.system) };
+}

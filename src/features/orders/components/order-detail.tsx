@@ -1,0 +1,300 @@
+import { useId, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { CRANE_LIFT_LABELS, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS_LABELS } from '../../../../shared/schemas/project.schema';
+import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
+import type { Order, OrderLine, Proposal } from '../../../../shared/schemas/order.schema';
+import { Alert, errorMessage } from '../../../components/ui/alert';
+import { Button, buttonClasses } from '../../../components/ui/button';
+import { Card } from '../../../components/ui/card';
+import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
+import { useToast } from '../../../components/ui/toast';
+import { formatDate, formatDateTime } from '../../../lib/format';
+import { useAnswerProposal } from '../api/answer-proposal';
+import { useCancelOrder } from '../api/cancel-order';
+import { formatMoney } from '../../../lib/format';
+import { OrderStages, OrderStatusBadge } from './order-status';
+
+const LINE_STATUS_WORDS: Record<OrderLine['status'], string> = {
+  asked: 'Asked for',
+  agreed: 'Agreed',
+  part_agreed: 'Part agreed',
+  back_ordered: 'To follow',
+  replaced: 'Replaced',
+  not_available: 'Not available',
+  substitute: 'Substitute',
+};
+
+const lineHelper = dataTableColumns<OrderLine>();
+const lineColumns = lineHelper.columns([
+  lineHelper.accessor('description', {
+    header: 'Item',
+    sortFn: 'text',
+    cell: (info) => (
+      <span className="block min-w-52">
+        <span className="font-medium">{info.getValue()}</span>
+        <span className="block font-mono text-xs text-ink-600">{info.row.original.sku}</span>
+      </span>
+    ),
+  }),
+  lineHelper.accessor('quantity', {
+    header: 'Asked',
+    sortFn: 'alphanumeric',
+    cell: (info) => (
+      <span className="whitespace-nowrap tabular-nums">
+        {info.getValue().toLocaleString('en-GB')} {info.row.original.pack_size > 1 ? `× ${info.row.original.pack_size}` : ''}
+      </span>
+    ),
+  }),
+  lineHelper.accessor((row) => row.confirmed_quantity ?? -1, {
+    id: 'confirmed',
+    header: 'Agreed',
+    sortFn: 'alphanumeric',
+    cell: (info) => <span className="tabular-nums">{info.row.original.confirmed_quantity === null ? '—' : info.row.original.confirmed_quantity.toLocaleString('en-GB')}</span>,
+  }),
+  lineHelper.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
+  lineHelper.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{LINE_STATUS_WORDS[info.getValue()]}</span> }),
+  lineHelper.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
+  lineHelper.accessor('total', { header: 'Total', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
+]);
+
+function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal }) {
+  const answer = useAnswerProposal(order.id);
+  const toast = useToast();
+  const noteId = useId();
+  const [note, setNote] = useState('');
+  const open = proposal.status === 'open';
+  const canAnswer = open && order.allowed_actions.includes('accept_changes');
+  const respond = (kind: 'accept' | 'decline') =>
+    answer.mutate(
+      { proposalId: proposal.id, answer: kind, note: note.trim() || undefined },
+      {
+        onSuccess: () => toast.show(kind === 'accept' ? 'Changes accepted; the merchant can now confirm the order.' : 'Changes declined; the order stands as you sent it.', 'success'),
+        onError: (error) => toast.show(errorMessage(error), 'danger'),
+      },
+    );
+  const changed = proposal.lines.filter((l) => l.confirmed_quantity !== l.quantity || l.back_order_quantity > 0 || l.substitute);
+  return (
+    <article className={`space-y-3 rounded-md border p-4 ${open ? 'border-ochre-500 bg-ochre-50' : 'border-mortar-300 bg-white'}`}>
+      <header className="flex flex-wrap items-baseline justify-between gap-2">
+        <h3 className="font-semibold">
+          {open ? 'Changes offered by the merchant' : `Offer of ${formatDateTime(proposal.proposed_at)}`}
+          <span className="ml-2 text-sm font-normal text-ink-600">
+            {proposal.status === 'open' ? 'waiting for your answer' : proposal.status === 'accepted' ? 'accepted' : proposal.status === 'declined' ? 'declined' : 'lapsed (the order changed)'}
+          </span>
+        </h3>
+        <span className="text-sm text-ink-600">
+          {proposal.proposed_by?.name ?? 'The merchant'}, {formatDateTime(proposal.proposed_at)}
+        </span>
+      </header>
+      {proposal.message ? <p className="whitespace-pre-line">{proposal.message}</p> : null}
+      {proposal.proposed_date || proposal.proposed_time_window ? (
+        <p>
+          <span className="font-medium">Delivery offered:</span> {proposal.proposed_date ? formatDate(proposal.proposed_date) : formatDate(order.requested_date)}
+          {proposal.proposed_time_window ? `, ${proposal.proposed_time_window}` : ''}
+        </p>
+      ) : null}
+      {changed.length > 0 ? (
+        <ul className="space-y-1">
+          {changed.map((line) => (
+            <li key={line.order_line_id}>
+              <span className="font-medium">{line.description}</span>: {line.confirmed_quantity} of {line.quantity} packs now
+              {line.back_order_quantity > 0 ? `, ${line.back_order_quantity} to follow` : ''}
+              {line.substitute ? `; offered instead: ${line.substitute.quantity} × ${line.substitute.description} at ${formatMoney(line.substitute.unit_price)} (${formatMoney(line.substitute.total)})` : ''}
+              {line.note ? ` — ${line.note}` : ''}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {canAnswer ? (
+        <div className="space-y-3">
+          <div>
+            <label htmlFor={noteId} className="mb-1.5 block font-medium">
+              A note with your answer (optional)
+            </label>
+            <input id={noteId} value={note} maxLength={500} onChange={(event) => setNote(event.target.value)} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" />
+          </div>
+          <div className="flex flex-wrap gap-2">
+            <Button busy={answer.isPending && answer.variables?.answer === 'accept'} disabled={answer.isPending} onClick={() => respond('accept')}>
+              Accept the changes
+            </Button>
+            <Button variant="secondary" busy={answer.isPending && answer.variables?.answer === 'decline'} disabled={answer.isPending} onClick={() => respond('decline')}>
+              Decline
+            </Button>
+          </div>
+        </div>
+      ) : null}
+    </article>
+  );
+}
+
+function CancelOrder({ order }: { order: Order }) {
+  const cancel = useCancelOrder(order.id);
+  const toast = useToast();
+  const reasonId = useId();
+  const [confirming, setConfirming] = useState(false);
+  const [reason, setReason] = useState('');
+  if (!confirming) {
+    return (
+      <Button variant="ghost" onClick={() => setConfirming(true)}>
+        Cancel the order
+      </Button>
+    );
+  }
+  return (
+    <div role="group" aria-label="Cancel the order?" className="w-full space-y-2 rounded-md border border-brick-600 bg-brick-50 p-3">
+      <label htmlFor={reasonId} className="block font-medium">
+        Why (the merchant sees this; optional)
+      </label>
+      <input id={reasonId} value={reason} maxLength={500} onChange={(event) => setReason(event.target.value)} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" autoFocus />
+      <div className="flex flex-wrap gap-2">
+        <Button
+          variant="danger"
+          busy={cancel.isPending}
+          onClick={() =>
+            cancel.mutate(reason.trim() || undefined, {
+              onSuccess: () => {
+                setConfirming(false);
+                toast.show(`${order.reference} is cancelled.`, 'success');
+              },
+              onError: (error) => toast.show(errorMessage(error), 'danger'),
+            })
+          }
+        >
+          Yes, cancel {order.reference}
+        </Button>
+        <Button variant="secondary" onClick={() => setConfirming(false)}>
+          Keep the order
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+/** One order as the contractor follows it: its stage, what was asked and agreed, the merchant's offers and the history. */
+export function OrderDetail({ order }: { order: Order }) {
+  const openProposals = order.proposals.filter((p) => p.status === 'open');
+  const pastProposals = order.proposals.filter((p) => p.status !== 'open');
+  const canAmend = order.allowed_actions.includes('amend');
+  const canCancel = order.allowed_actions.includes('cancel');
+  return (
+    <div className="space-y-6">
+      <Card>
+        <div className="flex flex-wrap items-center justify-between gap-3">
+          <OrderStatusBadge status={order.status} />
+          <span className="text-sm text-ink-600">
+            Placed {formatDateTime(order.placed_at)} · revision {order.revision}
+          </span>
+        </div>
+        <div className="mt-4">
+          <OrderStages status={order.status} />
+        </div>
+        {order.status === 'cancelled' ? (
+          <Alert tone="info" className="mt-4" title="Cancelled" live={false}>
+            {order.cancelled_at ? `Cancelled ${formatDateTime(order.cancelled_at)}.` : null}
+          </Alert>
+        ) : order.status === 'turned_down' ? (
+          <Alert tone="danger" className="mt-4" title="The merchant cannot take this order" live={false}>
+            See the history below for their reason; a quote request to other merchants may help.
+          </Alert>
+        ) : null}
+        {canAmend || canCancel ? (
+          <div className="mt-4 flex flex-wrap items-center gap-2 border-t border-mortar-200 pt-4">
+            {canAmend ? (
+              <Link to={`/orders/${order.id}/amend`} className={buttonClasses('secondary')}>
+                Amend the order
+              </Link>
+            ) : null}
+            {canCancel ? <CancelOrder order={order} /> : null}
+            <p className="w-full text-sm text-ink-600">You can change or cancel the order until the merchant confirms it.</p>
+          </div>
+        ) : null}
+      </Card>
+
+      {openProposals.map((proposal) => (
+        <ProposalCard key={proposal.id} order={order} proposal={proposal} />
+      ))}
+
+      <div className="grid items-start gap-6 lg:grid-cols-2">
+        <Card title="Delivery">
+          <dl className="grid grid-cols-[minmax(7rem,auto)_1fr] gap-x-6 gap-y-2">
+            <dt className="text-sm text-ink-600">From</dt>
+            <dd>
+              {order.branch.merchant.name}, {order.branch.name} ({order.branch.town})
+            </dd>
+            <dt className="text-sm text-ink-600">Day wanted</dt>
+            <dd className="font-semibold">
+              {formatDate(order.requested_date)}
+              {order.time_window ? `, ${order.time_window}` : ', any time'}
+            </dd>
+            <dt className="text-sm text-ink-600">Unloading</dt>
+            <dd>{DELIVERY_METHOD_LABELS[order.delivery_method]}</dd>
+            <dt className="text-sm text-ink-600">PO reference</dt>
+            <dd>{order.po_reference || '—'}</dd>
+            <dt className="text-sm text-ink-600">Notes</dt>
+            <dd className="whitespace-pre-line">{order.notes || '—'}</dd>
+          </dl>
+        </Card>
+        <Card title="Site, as sent">
+          <dl className="grid grid-cols-[minmax(7rem,auto)_1fr] gap-x-6 gap-y-2">
+            <dt className="text-sm text-ink-600">Site</dt>
+            <dd>
+              <Link to={`/sites/${order.project.id}`} className="font-medium text-clay-700 underline underline-offset-2">
+                {order.site.name}
+              </Link>
+              <span className="block">
+                {order.site.site_address}
+                {order.site.site_postcode ? `, ${order.site.site_postcode}` : ''}
+              </span>
+            </dd>
+            <dt className="text-sm text-ink-600">Contact</dt>
+            <dd>
+              {order.site.contact_name || '—'} {order.site.contact_phone}
+            </dd>
+            <dt className="text-sm text-ink-600">Access</dt>
+            <dd>
+              {VEHICLE_ACCESS_LABELS[order.site.vehicle_access]}; {CRANE_LIFT_LABELS[order.site.crane_lift]}; {OVERHEAD_LINES_LABELS[order.site.overhead_lines]}
+            </dd>
+            <dt className="text-sm text-ink-600">Set-down</dt>
+            <dd>{order.site.set_down_place || '—'}</dd>
+            <dt className="text-sm text-ink-600">Notes</dt>
+            <dd className="whitespace-pre-line">{order.site.access_notes || '—'}</dd>
+          </dl>
+        </Card>
+      </div>
+
+      <Card title="Lines">
+        <DataTable caption="Lines of the order" captionHidden columns={lineColumns} data={order.lines} getRowId={(line) => String(line.id)} minWidthClass="min-w-[48rem]" />
+        <p className="mt-3 text-right text-lg">
+          Subtotal: <span className="font-bold tabular-nums">{formatMoney(order.subtotal)}</span>
+        </p>
+      </Card>
+
+      {pastProposals.length > 0 ? (
+        <Card title="Earlier offers">
+          <div className="space-y-3">
+            {pastProposals.map((proposal) => (
+              <ProposalCard key={proposal.id} order={order} proposal={proposal} />
+            ))}
+          </div>
+        </Card>
+      ) : null}
+
+      <Card title="History">
+        <ol className="relative space-y-4 border-l-2 border-mortar-300 pl-5" aria-label="What happened, oldest first">
+          {[...order.timeline]
+            .sort((a, b) => a.at.localeCompare(b.at) || a.id - b.id)
+            .map((event) => (
+              <li key={event.id} className="relative">
+                <span className="absolute top-1.5 -left-[1.72rem] h-3 w-3 rounded-full border-2 border-white bg-clay-600" aria-hidden="true" />
+                <p className="font-medium">{event.summary}</p>
+                <p className="text-sm text-ink-600">
+                  {formatDateTime(event.at)} · {event.actor.name}
+                  {event.actor.organisation ? `, ${event.actor.organisation.name}` : ''}
+                </p>
+              </li>
+            ))}
+        </ol>
+      </Card>
+    </div>
+  );
+}

@@ -1,0 +1,254 @@
+import { createContext, useCallback, useContext, useEffect, useMemo, useRef, useState } from 'react';
+import { DELIVERY_METHODS, DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
+import type { Order } from '../../../../shared/schemas/order.schema';
+import { Form, RadioGroupField, SubmitButton, TextField } from '../../../components/form/form';
+import { useZodForm } from '../../../components/form/use-zod-form';
+import type { ZodForm } from '../../../components/form/use-zod-form';
+import { Alert } from '../../../components/ui/alert';
+import { Card } from '../../../components/ui/card';
+import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
+import { useAmendOrder } from '../api/amend-order';
+import type { AmendOrderValues } from '../api/amend-order';
+import { usePlaceOrder } from '../api/place-order';
+import type { PlaceOrderValues } from '../api/place-order';
+import { formatMoney } from '../../../lib/format';
+import { lineField, orderFormSchema, todayIso } from '../lib/order-form';
+import type { OrderFormTarget, OrderLineOption } from '../lib/order-form';
+
+export interface OrderSiteAccess {
+  name: string;
+  crane_lift: 'allowed' | 'not_allowed' | 'unknown';
+  overhead_lines: 'none' | 'present' | 'unknown';
+  set_down_place: string;
+  access_notes: string;
+  vehicle_access: string;
+}
+
+interface OrderFormProps {
+  target: OrderFormTarget;
+  branchName: string;
+  lines: readonly OrderLineOption[];
+  site: OrderSiteAccess;
+  /** Starting values when amending. */
+  current?: Pick<Order, 'requested_date' | 'time_window' | 'delivery_method' | 'notes' | 'po_reference'>;
+  onDone: (order: Order) => void;
+}
+
+interface LineRow {
+  index: number;
+  option: OrderLineOption;
+}
+
+interface LinesState {
+  form: ZodForm;
+  packs: Record<number, number | null>;
+}
+
+// Cells read the form and the running packs from here, so the columns stay the same objects and the
+// table never remounts an input (and loses what was typed) when the subtotal changes.
+const LinesContext = createContext<LinesState | null>(null);
+
+function useLines(): LinesState {
+  const state = useContext(LinesContext);
+  if (!state) throw new Error('Line cells need the lines table around them');
+  return state;
+}
+
+function IncludeCell({ index, option }: LineRow) {
+  const { form } = useLines();
+  const name = lineField(index, 'include');
+  return (
+    <input
+      type="checkbox"
+      name={name}
+      defaultChecked={!option.excluded}
+      aria-label={`Order ${option.description}`}
+      aria-invalid={form.fieldErrors[name] ? true : undefined}
+      onChange={() => form.clearFieldError(name)}
+      className="h-5 w-5 accent-clay-600"
+    />
+  );
+}
+
+function ItemCell({ index, option }: LineRow) {
+  const { form } = useLines();
+  const error = form.fieldErrors[lineField(index, 'include')];
+  return (
+    <span className="block min-w-52">
+      <span className="font-medium">{option.description}</span>
+      {option.sku ? <span className="block font-mono text-xs text-ink-600">{option.sku}</span> : null}
+      {option.needed !== undefined ? (
+        <span className="block text-xs text-ink-600">
+          Estimate: {option.needed.toLocaleString('en-GB')} {unitWord(option.unit, option.needed)}
+          {option.pack_size > 1 ? ` in packs of ${option.pack_size.toLocaleString('en-GB')}` : ''}
+        </span>
+      ) : null}
+      {error ? <span className="block text-sm font-medium text-brick-700">{error}</span> : null}
+    </span>
+  );
+}
+
+function PacksCell({ index, option }: LineRow) {
+  const { form } = useLines();
+  const name = lineField(index, 'quantity');
+  const error = form.fieldErrors[name];
+  const id = `${form.id}-line-${index}`;
+  return (
+    <div className="w-28">
+      <label htmlFor={id} className="sr-only">
+        Packs of {option.description}
+      </label>
+      <input
+        id={id}
+        name={name}
+        type="number"
+        inputMode="numeric"
+        min={1}
+        step={1}
+        defaultValue={option.packs}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        onInput={() => form.clearFieldError(name)}
+        className={`block min-h-tap w-full rounded-md border bg-white px-2 tabular-nums ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`}
+      />
+      {error ? (
+        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-brick-700">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+function LineTotalCell({ index, option }: LineRow) {
+  const { packs } = useLines();
+  const count = packs[index];
+  return <span className="whitespace-nowrap tabular-nums">{count === null || count === undefined || option.unit_price === null ? '—' : formatMoney(count * option.unit_price)}</span>;
+}
+
+const lineHelper = dataTableColumns<LineRow>();
+const lineColumns = lineHelper.columns([
+  lineHelper.display({ id: 'include', header: 'Order', cell: (info) => <IncludeCell {...info.row.original} /> }),
+  lineHelper.display({ id: 'item', header: 'Item', cell: (info) => <ItemCell {...info.row.original} /> }),
+  lineHelper.display({ id: 'packs', header: 'Packs', cell: (info) => <PacksCell {...info.row.original} /> }),
+  lineHelper.display({ id: 'price', header: 'Pack price', cell: (info) => <span className="whitespace-nowrap tabular-nums">{formatMoney(info.row.original.option.unit_price)}</span> }),
+  lineHelper.display({ id: 'total', header: 'Line total', cell: (info) => <LineTotalCell {...info.row.original} /> }),
+]);
+
+function LinesTable({ form, lines, packs }: { form: ZodForm; lines: readonly OrderLineOption[]; packs: Record<number, number | null> }) {
+  const rows = useMemo(() => lines.map((option, index) => ({ index, option })), [lines]);
+  const state = useMemo(() => ({ form, packs }), [form, packs]);
+  return (
+    <LinesContext.Provider value={state}>
+      <DataTable caption="Lines of the order" captionHidden columns={lineColumns} data={rows} getRowId={(row) => String(row.option.product_id)} minWidthClass="min-w-[40rem]" />
+    </LinesContext.Provider>
+  );
+}
+
+/** "tile" → "tiles"; metres stay "m". */
+function unitWord(unit: string, quantity: number): string {
+  return quantity === 1 || unit === 'm' ? unit : `${unit}s`;
+}
+
+function splitWindow(window: string | null | undefined): [string, string] {
+  if (!window) return ['', ''];
+  const [from, to] = window.split('-');
+  return [from ?? '', to ?? ''];
+}
+
+/**
+ * Placing an order with one merchant branch, or amending one until the merchant confirms: the day
+ * and window, how it is unloaded, notes and PO reference, and the lines with their packs.
+ */
+export function OrderForm({ target, branchName, lines, site, current, onDone }: OrderFormProps) {
+  const place = usePlaceOrder();
+  // Hooks run whatever the mode; only the one that matches the target is used.
+  const amend = useAmendOrder(target.mode === 'amend' ? target.order_id : 0);
+  const schema = useMemo(() => orderFormSchema(target, lines, site), [target, lines, site]);
+  const form = useZodForm({
+    schema,
+    onSubmit: async (body) => {
+      const order = target.mode === 'place' ? await place.mutateAsync(body as PlaceOrderValues) : await amend.mutateAsync(body as AmendOrderValues);
+      onDone(order);
+    },
+  });
+  const wrapper = useRef<HTMLDivElement>(null);
+  const [packs, setPacks] = useState<Record<number, number | null>>({});
+  const [method, setMethod] = useState(current?.delivery_method ?? 'ground');
+  const readLines = useCallback(() => {
+    const formElement = wrapper.current?.closest('form');
+    if (!formElement) return;
+    const data = new FormData(formElement);
+    const next: Record<number, number | null> = {};
+    lines.forEach((_, i) => {
+      const raw = String(data.get(lineField(i, 'quantity')) ?? '');
+      next[i] = data.get(lineField(i, 'include')) === 'on' && /^\d+$/.test(raw) ? Number(raw) : null;
+    });
+    setPacks(next);
+    setMethod(String(data.get('delivery_method') ?? 'ground') as typeof method);
+  }, [lines]);
+  useEffect(readLines, [readLines]);
+
+  const subtotal = lines.reduce((sum, option, i) => sum + (packs[i] && option.unit_price !== null ? packs[i]! * option.unit_price : 0), 0);
+  const [from, to] = splitWindow(current ? current.time_window : '07:30-12:00');
+
+  return (
+    <Form form={form} label={target.mode === 'place' ? `Order from ${branchName}` : 'Amend the order'} className="space-y-6">
+      <div ref={wrapper} onChange={readLines} onInput={readLines} className="space-y-6">
+        <Card title="Delivery">
+          <div className="space-y-4">
+            <div className="grid gap-4 sm:grid-cols-3">
+              <TextField name="requested_date" label="Day wanted" type="date" min={todayIso()} defaultValue={current?.requested_date} />
+              <TextField name="time_window" label="Window from" type="time" defaultValue={from} />
+              <TextField name="time_window_to" label="Window to" type="time" defaultValue={to} />
+            </div>
+            <p className="-mt-2 text-sm text-ink-600">Leave both window times blank for any time in the working day.</p>
+            <RadioGroupField
+              name="delivery_method"
+              legend="How it comes off the lorry"
+              defaultValue={current?.delivery_method ?? 'ground'}
+              options={DELIVERY_METHODS.map((value) => ({
+                value,
+                label: DELIVERY_METHOD_LABELS[value],
+                description: value === 'roof' ? 'Pallets lifted onto the scaffold or roof by the lorry crane' : 'Pallets left at the set-down place',
+              }))}
+            />
+            {method === 'roof' ? (
+              site.crane_lift === 'not_allowed' ? (
+                <Alert tone="danger" title="This site says no crane lift" live={false}>
+                  Choose ground set-down, or change the site&rsquo;s access details if that has changed.
+                </Alert>
+              ) : (
+                <Alert tone="caution" title="A crane lift needs a lift plan" live={false}>
+                  A competent person plans the lift: where the lorry stands, the exclusion zone below the load, and where the pallets land.
+                  Land them only where the scaffold or roof structure is made to take them, spread over both slopes.
+                  {site.overhead_lines !== 'none' ? ` Overhead lines are ${site.overhead_lines === 'present' ? 'recorded near the site' : 'not yet checked'}: the crane keeps its clearance.` : ''}
+                </Alert>
+              )
+            ) : null}
+            <div className="grid gap-4 sm:grid-cols-2">
+              <TextField name="po_reference" label="Your PO reference" autoComplete="off" defaultValue={current?.po_reference} />
+              <TextField name="notes" label="Notes for this delivery" autoComplete="off" defaultValue={current?.notes} hint="The site’s access notes go with the order already." />
+            </div>
+            <div className="rounded-md bg-mortar-50 px-3 py-2 text-sm">
+              <p className="font-semibold">Site access, as the merchant will see it</p>
+              <p>
+                {site.set_down_place ? `Set down: ${site.set_down_place}. ` : ''}
+                {site.access_notes || 'No access notes on the site.'}
+              </p>
+            </div>
+          </div>
+        </Card>
+
+        <Card title="Lines">
+          <p className="mb-3 text-sm text-ink-700">Whole packs, as {branchName} sells them. Untick a line to leave it off, or change the packs.</p>
+          <LinesTable form={form} lines={lines} packs={packs} />
+          <p className="mt-3 text-right text-lg">
+            Subtotal at today&rsquo;s prices: <span className="font-bold tabular-nums" data-testid="order-subtotal">{formatMoney(subtotal)}</span>
+          </p>
+        </Card>
+      </div>
+      <SubmitButton size="lg">{target.mode === 'place' ? `Send the order to ${branchName}` : 'Send the changes'}</SubmitButton>
+    </Form>
+  );
+}

@@ -1,0 +1,54 @@
+import { Link } from 'react-router-dom';
+import { ErrorAlert } from '../../../components/ui/alert';
+import { buttonClasses } from '../../../components/ui/button';
+import { Card } from '../../../components/ui/card';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
+import { formatDateTime } from '../../../lib/format';
+import { useCurrentSchedule } from '../api/get-current-schedule';
+import { ScheduleFacesTable } from './schedule-faces-table';
+import { ScheduleHistory, sourceWords } from './schedule-history';
+
+interface CurrentScheduleProps {
+  projectId: number;
+  /** An archived site takes no new versions. */
+  readOnly: boolean;
+}
+
+/** The schedule in use on a site, with the ways to replace it and its earlier versions. */
+export function CurrentSchedule({ projectId, readOnly }: CurrentScheduleProps) {
+  const schedule = useCurrentSchedule(projectId);
+  const actions = readOnly ? null : (
+    <div className="flex flex-wrap gap-2">
+      <Link to={`/sites/${projectId}/schedule/import`} className={buttonClasses(schedule.data ? 'secondary' : 'primary')}>
+        {schedule.data ? 'Import a new version' : 'Import a schedule'}
+      </Link>
+      <Link to={`/sites/${projectId}/schedule/edit`} className={buttonClasses('secondary')}>
+        {schedule.data ? 'Edit the faces' : 'Enter faces by hand'}
+      </Link>
+    </div>
+  );
+  return (
+    <Card title="Roof schedule" actions={actions}>
+      {schedule.isPending ? (
+        <SkeletonBlock label="Loading the roof schedule" lines={4} />
+      ) : schedule.isError ? (
+        <ErrorAlert error={schedule.error} title="The roof schedule could not be loaded" onRetry={() => void schedule.refetch()} />
+      ) : !schedule.data ? (
+        <EmptyState title="No roof schedule yet">Import a CSV with one row per roof face, or enter the faces by hand.</EmptyState>
+      ) : (
+        <div className="space-y-4">
+          <p className="text-sm text-ink-700">
+            Version {schedule.data.version} · {schedule.data.faces.length} {schedule.data.faces.length === 1 ? 'face' : 'faces'} ·{' '}
+            {sourceWords(schedule.data)} · {formatDateTime(schedule.data.created_at)}
+          </p>
+          <ScheduleFacesTable faces={schedule.data.faces} />
+          <details className="rounded-md border border-mortar-300 px-4 py-2">
+            <summary className="min-h-tap cursor-pointer content-center font-semibold">Earlier versions</summary>
+            <ScheduleHistory projectId={projectId} />
+          </details>
+        </div>
+      )}
+    </Card>
+  );
+}
