@@ -87,7 +87,12 @@ export const systemSettingsSchema = z
     rafter_spacing_mm: positive(),
     batten: z.object({ min_supports: whole(2), min_length_mm: z.number().min(0) }).partial(),
     underlay: z.object({ head_lap_mm: z.number().min(0) }).partial(),
-    fixing: z.object({ rule: z.enum(['every_tile', 'perimeter_and_alternate_courses']) }).partial(),
+    fixing: z
+      .object({
+        rule: z.enum(['every_tile', 'perimeter_and_alternate_courses']),
+        clips: z.object({ eaves: z.boolean(), verges: z.boolean(), every_tile_from_pitch_deg: z.number().gt(0).max(90).nullable() }).partial(),
+      })
+      .partial(),
     waste_pct: z.object({ tiles: z.number(), battens: z.number(), underlay: z.number(), ridge_hip: z.number() }).partial(),
     roof_loading: z.object({ stack_size: whole(1), every_nth_batten: whole(1) }).partial(),
     truck: z.object({ payload_kg: positive(), pallet_slots: whole(1), pallet_tare_kg: z.number().min(0), max_pallet_kg: positive() }).partial(),

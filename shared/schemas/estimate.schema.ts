@@ -37,7 +37,7 @@ export const createEstimateBodySchema = z
 export type CreateEstimateBody = z.input<typeof createEstimateBodySchema>;
 
 /** Which engine total a line's quantity is, so the screen can say where each figure comes from. */
-export const ENGINE_FIGURES = ['tiles_order', 'ridge_tiles', 'hip_tiles', 'ridge_and_hip_tiles', 'batten_lengths', 'batten_nails', 'tile_nails', 'underlay_rolls', 'valley_m'] as const;
+export const ENGINE_FIGURES = ['tiles_order', 'ridge_tiles', 'hip_tiles', 'ridge_and_hip_tiles', 'batten_lengths', 'batten_nails', 'tile_nails', 'clips', 'underlay_rolls', 'valley_m'] as const;
 export type EngineFigure = (typeof ENGINE_FIGURES)[number];
 
 export const estimateLineSchema = z.object({

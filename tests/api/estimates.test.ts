@@ -157,8 +157,11 @@ describe('making an estimate', () => {
       pallets: direct.pallets.length,
       loads: direct.loads.length,
     });
-    // Clips are part of the system but the engine does not count them: they are listed, not guessed.
-    expect(e.not_counted).toEqual([expect.objectContaining({ category: 'clip', sku: 'TRS-CLP-FL' })]);
+    // Clips are the engine's count (eaves and verges of a single-lap roof, common practice), in whole packs.
+    expect(direct.totals.clips).toBeGreaterThan(0);
+    expect(line('clip')).toMatchObject({ sku: 'TRS-CLP-FL', quantity: direct.totals.clips, figure: 'clips' });
+    expect(line('clip').packs).toBe(Math.ceil(direct.totals.clips / line('clip').pack_size));
+    expect(e.not_counted).toEqual([]);
   });
 
   it('lays a plain tile roof at no more than the textbook gauge and about 10 m of batten per m²', async () => {

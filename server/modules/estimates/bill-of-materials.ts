@@ -42,6 +42,7 @@ const FIGURES: { category: SystemRole; figure: EngineFigure; unit: string; value
   { category: 'batten', figure: 'batten_lengths', unit: 'length', value: (t) => t.batten_lengths },
   { category: 'batten_nail', figure: 'batten_nails', unit: 'nail', value: (t) => t.batten_nails },
   { category: 'tile_nail', figure: 'tile_nails', unit: 'nail', value: (t) => t.tile_nails },
+  { category: 'clip', figure: 'clips', unit: 'clip', value: (t) => t.clips },
   { category: 'underlay', figure: 'underlay_rolls', unit: 'roll', value: (t) => t.underlay_rolls },
   { category: 'valley', figure: 'valley_m', unit: 'm', value: (t) => t.valley_m },
 ];
@@ -75,8 +76,8 @@ function genericDescription(category: SystemRole, s: RoofSystem): string {
  * The bill of materials of an engine result. With a merchant's system each quantity is met by the
  * system's product in whole packs at the branch's pack price; a system without a hip product lays
  * its ridge piece on the hips, so the two counts share one line. Without products (a generic system)
- * the lines carry the engine's quantities and no price. Components the engine does not count (clips)
- * and counted items with no product (valleys on a system without a valley lining) are listed apart.
+ * the lines carry the engine's quantities and no price. Counted items with no product (valleys on a
+ * system without a valley lining) are listed apart.
  */
 export function billOfMaterials(
   result: EngineResult,
@@ -140,14 +141,5 @@ export function billOfMaterials(
     });
   }
 
-  const clip = components?.get('clip');
-  if (clip) {
-    notCounted.push({
-      category: 'clip',
-      sku: clip.product.sku,
-      description: clip.product.name,
-      message: "clips are not counted by the estimate: the tile maker's fixing specification for the site says where they go; add them to the order by hand",
-    });
-  }
   return { lines, not_counted: notCounted };
 }

@@ -23,6 +23,7 @@ const FIGURE_WORDS: Record<BillLine['figure'], string> = {
   batten_lengths: 'stock lengths from the cutting plan, waste included',
   batten_nails: 'one nail at every rafter crossing',
   tile_nails: 'nails by the fixing rule',
+  clips: 'clips at the eaves, the verges and, on steep pitches, every tail',
   underlay_rolls: 'rolls for the slope area with laps, waste included',
   valley_m: 'valley length',
 };
