@@ -1,7 +1,6 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { ConnectSessionKnexStore } from 'connect-session-knex';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -10,6 +9,7 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './app-deps';
 import { csrfProtection } from './auth/csrf';
+import { SessionStore } from './auth/session-store';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { authRoutes } from './modules/auth/auth.routes';
 import { authService } from './modules/auth/auth.service';
@@ -26,6 +26,19 @@ import { organisationsRoutes } from './modules/organisations/organisations.route
 import { ordersRoutes } from './modules/orders/orders.routes';
 import { ordersService } from './modules/orders/orders.service';
 import { outboxRoutes } from './modules/outbox/outbox.routes';
+import { fleetRoutes } from './modules/fleet/fleet.routes';
+import { fleetService } from './modules/fleet/fleet.service';
+import { invoicesRoutes } from './modules/invoices/invoices.routes';
+import { invoicesService } from './modules/invoices/invoices.service';
+import { paymentWebhookRoutes, paymentsRoutes } from './modules/payments/payments.routes';
+import { paymentsService } from './modules/payments/payments.service';
+import { priceListRoutes } from './modules/price-list/price-list.routes';
+import { priceListService } from './modules/price-list/price-list.service';
+import { slotsRoutes } from './modules/slots/slots.routes';
+import { slotsService } from './modules/slots/slots.service';
+import { stockRoutes } from './modules/stock/stock.routes';
+import { stockService } from './modules/stock/stock.service';
+import { createStripeClient } from './payments/stripe-client';
 import { projectsRoutes } from './modules/projects/projects.routes';
 import { projectsService } from './modules/projects/projects.service';
 import { quotesRoutes } from './modules/quotes/quotes.routes';
@@ -84,7 +97,10 @@ export function createApp(deps: AppDeps): Express {
     users.findAuthUser(id).then((u) => done(null, u ?? false), done);
   });
 
+  const payments = paymentsService(deps, createStripeClient(config.stripe));
   const api = express.Router();
+  // The payment provider's signed events need the raw body and carry no session or CSRF token.
+  api.use(paymentWebhookRoutes(payments));
   api.use(express.json({ limit: '1mb' }));
   api.use(
     session({
@@ -93,7 +109,7 @@ export function createApp(deps: AppDeps): Express {
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      store: new ConnectSessionKnexStore({ knex: db, tableName: 'sessions', createTable: true }),
+      store: new SessionStore(db),
       cookie: {
         httpOnly: true,
         sameSite: 'lax',
@@ -120,6 +136,12 @@ export function createApp(deps: AppDeps): Express {
   api.use(exportsRoutes(estimates, projects));
   api.use(ordersRoutes(orders));
   api.use(quotesRoutes(quotesService(deps, orders)));
+  api.use(priceListRoutes(priceListService(deps)));
+  api.use(stockRoutes(stockService(deps)));
+  api.use(fleetRoutes(fleetService(deps)));
+  api.use(slotsRoutes(slotsService(deps), orders.linesOf));
+  api.use(invoicesRoutes(invoicesService(deps, payments)));
+  api.use(paymentsRoutes(payments));
   if (!config.isProduction) api.use(outboxRoutes(db));
   api.use(apiNotFound);
 

@@ -5,9 +5,11 @@ import { createDb, migrateLatest } from './db/knex';
 import { seedDemoIfEmpty } from './db/seed-runner';
 import { startDevSmtp } from './mail/dev-smtp';
 import { createSmtpMailer } from './mail/mailer';
+import { PAYMENT_WEBHOOK_PATH, startDevPayments } from './payments/dev-payments';
+import type { StripeFake } from './payments/stripe-fake';
 
 async function main() {
-  const config = loadConfig();
+  let config = loadConfig();
   const logger = pino({ level: config.logLevel });
   const db = createDb(config.databaseFile);
   await migrateLatest(db);
@@ -22,11 +24,26 @@ async function main() {
   }
   const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
 
+  // Card payments: the real service in production; otherwise the local fake, unless a key is given.
+  let payments: StripeFake | undefined;
+  if (config.isProduction) {
+    if (!config.stripe.secretKey || !config.stripe.webhookSecret) throw new ConfigError('STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET are required in production');
+    if (config.stripe.apiBase) throw new ConfigError('STRIPE_API_BASE points the payment SDK at a local fake: leave it unset in production');
+  } else if (!config.stripe.secretKey) {
+    const dev = await startDevPayments(config);
+    payments = dev.fake;
+    config = dev.config;
+  }
+
   const app = createApp({ config, db, mailer, logger });
   const server = app.listen(config.port, config.host, () => {
     const url = `http://localhost:${config.port}`;
     logger.info(`Ridgeload is running at ${url}`);
     if (devSmtp) logger.info(`mail is captured by the local fake; read it at ${url}/outbox`);
+    if (payments) {
+      payments.setWebhookUrl(`http://127.0.0.1:${config.port}${PAYMENT_WEBHOOK_PATH}`);
+      logger.info(`card payments go to the local payment fake at ${payments.url} (test card 4242 4242 4242 4242)`);
+    }
     console.log(`\n  Ridgeload: ${url}\n  Demo sign-in: contractor@demo.test / ridgeload-demo (see README)\n`);
   });
 
@@ -34,6 +51,7 @@ async function main() {
     server.close();
     mailer.close();
     await devSmtp?.close();
+    await payments?.close();
     await db.destroy();
     process.exit(0);
   };

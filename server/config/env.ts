@@ -17,6 +17,16 @@ const envSchema = z.object({
   LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
   RESET_RATE_LIMIT: z.coerce.number().int().positive().default(5),
   SEED_DEMO: z.enum(['auto', 'never']).default('auto'),
+  CURRENCY: z
+    .string()
+    .regex(/^[A-Za-z]{3}$/, 'CURRENCY must be a three-letter ISO 4217 code such as GBP')
+    .transform((c) => c.toUpperCase())
+    .default('GBP'),
+  STRIPE_SECRET_KEY: z.string().min(8).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).optional(),
+  /** Where the SDK sends its calls when it is not the real service: the local fake in development and tests. */
+  STRIPE_API_BASE: z.url().optional(),
+  DEV_STRIPE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
 });
 
 export interface Config {
@@ -35,6 +45,17 @@ export interface Config {
   loginRateLimit: number;
   resetRateLimit: number;
   seedDemo: 'auto' | 'never';
+  /** ISO 4217 code of the one currency money is kept in (minor units). */
+  currency: string;
+  stripe: StripeConfig;
+}
+
+/** The card-payment provider: the real service in production, the local fake (apiBase) elsewhere. */
+export interface StripeConfig {
+  secretKey?: string;
+  webhookSecret?: string;
+  apiBase?: string;
+  devPort: number;
 }
 
 export class ConfigError extends Error {}
@@ -65,6 +86,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     loginRateLimit: e.LOGIN_RATE_LIMIT,
     resetRateLimit: e.RESET_RATE_LIMIT,
     seedDemo: e.SEED_DEMO,
+    currency: e.CURRENCY,
+    stripe: { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET, apiBase: e.STRIPE_API_BASE, devPort: e.DEV_STRIPE_PORT },
   };
 }
 

@@ -32,6 +32,8 @@ export const POLICY = {
   'invoices:read': ['contractor_owner', 'contractor_estimator', 'merchant_owner', 'merchant_sales'],
   'invoices:issue': ['merchant_owner', 'merchant_sales'],
   'payments:make': ['contractor_owner', 'contractor_estimator'],
+  'orders:comment': ['contractor_owner', 'contractor_estimator', 'merchant_owner', 'merchant_sales', 'merchant_dispatcher'],
+  'accounts:manage': ['merchant_owner', 'merchant_sales'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

@@ -310,9 +310,14 @@ export const orderSchema = orderSummarySchema.extend({
 });
 export type Order = z.infer<typeof orderSchema>;
 
+/** The order book counts matches up to this many; past it, `total` is this and `total_capped` is true ("10,000+"). */
+export const ORDER_COUNT_CAP = 10_000;
+
 export const orderListSchema = z.object({
   orders: z.array(orderSummarySchema),
   total: z.number().int(),
+  /** True when more orders match than ORDER_COUNT_CAP: total is then a floor, not the count. */
+  total_capped: z.boolean().default(false),
   page: z.number().int(),
   page_size: z.number().int(),
 });
@@ -463,3 +468,124 @@ export const quoteRequestListSchema = z.object({
   ),
 });
 export const quoteParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+
+// The merchant's desk: confirming against stock, turning down, the delivery, comments, the order book's filters.
+
+/** Several stages at once for the order book, as a comma list: `sent,agreed`. */
+const statusList = z
+  .string()
+  .trim()
+  .max(200)
+  .transform((s, ctx) => {
+    const parts = s.split(',').map((p) => p.trim()).filter(Boolean);
+    for (const p of parts) {
+      if (!(ORDER_STATUSES as readonly string[]).includes(p)) {
+        ctx.addIssue({ code: 'custom', message: `"${p}" is not a stage; use ${ORDER_STATUSES.join(', ')}` });
+        return z.NEVER;
+      }
+    }
+    return parts as OrderStatus[];
+  });
+
+/** The dates the order book filters on: the delivery day asked for, or the day the order was sent. */
+export const ORDER_DATE_FIELDS = ['requested_date', 'placed_at'] as const;
+
+/**
+ * The order book's query: the contractor's filters plus the desk's (several stages, a contractor,
+ * a date range). Dates are inclusive YYYY-MM-DD; `date_field` says which date they filter.
+ */
+export const orderBookQuerySchema = orderListQuerySchema
+  .extend({
+    statuses: statusList.optional(),
+    contractor_id: z.coerce.number().int().positive().optional(),
+    date_from: isoDateSchema.optional(),
+    date_to: isoDateSchema.optional(),
+    date_field: z.enum(ORDER_DATE_FIELDS).default('requested_date'),
+  })
+  .refine((q) => !q.date_from || !q.date_to || q.date_from <= q.date_to, { path: ['date_to'], error: 'must be on or after date_from' });
+export type OrderBookQuery = z.input<typeof orderBookQuerySchema>;
+
+/** Confirming: packs to send now per line (the rest is back-ordered), and optionally the slot to book. */
+export const confirmOrderBodySchema = z
+  .object({
+    lines: z
+      .array(z.object({ line_id: z.number().int().positive(), quantity: z.number().int().min(0).max(1_000_000) }))
+      .max(200)
+      .superRefine((lines, ctx) => {
+        const seen = new Set<number>();
+        lines.forEach((l, i) => {
+          if (seen.has(l.line_id)) ctx.addIssue({ code: 'custom', path: [i, 'line_id'], message: 'this line is listed twice' });
+          seen.add(l.line_id);
+        });
+      })
+      .optional(),
+    slot_id: z.number().int().positive().optional(),
+  })
+  .strict();
+export type ConfirmOrderBody = z.input<typeof confirmOrderBodySchema>;
+
+/** One line short of stock in a refused confirmation: packs free at the branch and packs asked for. */
+export const stockShortfallSchema = z.object({ sku: z.string(), line_id: z.number().int(), available: z.number().int(), requested: z.number().int(), message: z.string() });
+
+export const turnDownBodySchema = z.object({ reason: text(500).min(1, { error: 'say why, so the contractor can order elsewhere' }) }).strict();
+
+export const bookSlotBodySchema = z.object({ slot_id: z.number().int().positive() }).strict();
+
+export const commentBodySchema = z.object({ body: text(2000).min(1, { error: 'write a comment' }) }).strict();
+
+export const orderCommentSchema = z.object({
+  id: z.number().int(),
+  body: z.string(),
+  at: z.string(),
+  author: z.object({ id: z.number().int().nullable(), name: z.string(), organisation: orgRefSchema }),
+  /** Which side wrote it, so each side can tell its own comments from the other's. */
+  side: z.enum(['contractor', 'merchant']),
+});
+export type OrderComment = z.infer<typeof orderCommentSchema>;
+
+/** What the driver records at the site: packs handed over per line (others as sent), who took them, notes. */
+export const recordDeliveryBodySchema = z
+  .object({
+    lines: z
+      .array(z.object({ line_id: z.number().int().positive(), delivered_quantity: z.number().int().min(0).max(1_000_000) }))
+      .max(200)
+      .optional(),
+    received_by: text(120).min(1, { error: 'name the person who took the delivery' }),
+    notes: text(2000).optional(),
+    /** When it was handed over; now when left out. */
+    delivered_at: z.iso.datetime({ error: 'must be an ISO date and time' }).optional(),
+  })
+  .strict();
+export type RecordDeliveryBody = z.input<typeof recordDeliveryBodySchema>;
+
+/** The booked delivery as both sides see it on the order. */
+export const orderSlotSchema = z.object({
+  slot_id: z.number().int(),
+  date: z.string(),
+  time_window: z.string(),
+  lorry: z.object({ id: z.number().int(), registration: z.string(), has_crane: z.boolean() }),
+  driver: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+  weight_kg: z.number(),
+  pallets: z.number().int(),
+  booked_at: z.string(),
+});
+
+export const orderDeliverySchema = z.object({
+  delivered_at: z.string(),
+  received_by: z.string(),
+  notes: z.string(),
+  recorded_by: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+});
+
+/**
+ * An order as the detail page shows it: the shared order, the packs delivered per line, the booked
+ * slot, the delivery record, the comments and the invoice once there is one.
+ */
+export const orderDetailSchema = orderSchema.extend({
+  lines: z.array(orderLineSchema.extend({ delivered_quantity: z.number().int().nullable() })),
+  slot: orderSlotSchema.nullable(),
+  delivery: orderDeliverySchema.nullable(),
+  comments: z.array(orderCommentSchema),
+  invoice: z.object({ id: z.number().int(), number: z.string() }).nullable(),
+});
+export type OrderDetail = z.infer<typeof orderDetailSchema>;

@@ -26,7 +26,7 @@ describe('every API route declares its access rule', () => {
     expect(unknown).toEqual([]);
   });
 
-  it('keeps public routes to the sign-in flows, the CSRF token, health, the example schedule and the development outbox', () => {
+  it('keeps public routes to the sign-in flows, the CSRF token, health, the example schedule, the development outbox and the signed payment webhook', () => {
     const publicRoutes = listRoutes(t.app)
       .filter((r) => r.access && 'public' in r.access)
       .map((r) => `${r.method} ${r.path}`)
@@ -44,6 +44,7 @@ describe('every API route declares its access rule', () => {
         'POST /api/auth/password/reset',
         'POST /api/auth/signup',
         'POST /api/invitations/:token/accept',
+        'POST /api/payments/webhook',
       ].sort(),
     );
   });

@@ -1,4 +1,6 @@
 import { mkdtempSync, rmSync } from 'node:fs';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import pino from 'pino';
@@ -7,6 +9,8 @@ import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config/env';
 import { createDb, migrateLatest, type Db } from '../../server/db/knex';
+import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
+import type { StripeFake } from '../../server/payments/stripe-fake';
 import { startMailCapture } from './mail-capture';
 
 export interface TestApp {
@@ -14,23 +18,39 @@ export interface TestApp {
   db: Db;
   config: Config;
   mail: Awaited<ReturnType<typeof startMailCapture>>;
+  /** The local card-payment fake this app's SDK talks to; its events reach the app over loopback. */
+  payments: StripeFake;
+  /** Where the app listens on loopback, for the payment fake's webhooks and redirects. */
+  url: string;
   close: () => Promise<void>;
 }
 
 /** A fresh app on its own migrated SQLite file in a temp folder, with mail captured in-process. */
 export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-test-'));
-  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, ...env });
+  const dev = await startDevPayments(loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, ...env }), 0);
+  const config = dev.config;
   const db = createDb(config.databaseFile);
   await migrateLatest(db);
   const mail = await startMailCapture();
   const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: 'silent' }) });
+  const server = await new Promise<Server>((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  config.appUrl = url;
+  dev.fake.setWebhookUrl(`${url}${PAYMENT_WEBHOOK_PATH}`);
   return {
     app,
     db,
     config,
     mail,
+    payments: dev.fake,
+    url,
     close: async () => {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections();
+      await dev.fake.close();
       await mail.close();
       await db.destroy();
       rmSync(dir, { recursive: true, force: true });

@@ -44,9 +44,12 @@ describe('billOfMaterials', () => {
       ['batten', component(3, 'B', 'length', 1, 400)],
       ['batten_nail', component(4, 'BN', 'nail', 1000, 1800)],
       ['tile_nail', component(5, 'TN', 'nail', 1000, 2400)],
+      ['clip', component(7, 'C', 'clip', 100, 900)],
       ['underlay', component(6, 'U', 'roll', 1, 6000)],
     ]);
     const { lines, not_counted } = billOfMaterials(result, system, components);
+    // Clips are the engine's count, bought in whole packs.
+    expect(lines.find((l) => l.category === 'clip')).toMatchObject({ quantity: result.totals.clips, packs: Math.ceil(result.totals.clips / 100), figure: 'clips' });
     expect(result.totals.hip_tiles).toBeGreaterThan(0);
     const ridge = lines.find((l) => l.category === 'ridge')!;
     expect(ridge).toMatchObject({ quantity: result.totals.ridge_tiles + result.totals.hip_tiles, figure: 'ridge_and_hip_tiles' });
@@ -61,6 +64,7 @@ describe('billOfMaterials', () => {
     const { lines, not_counted } = billOfMaterials(result, system, new Map([['tile', component(1, 'T', 'tile', 1, 100)]]));
     expect(lines.map((l) => l.category)).toEqual(['tile']);
     expect(not_counted.map((n) => n.category)).toContain('valley');
+    expect(not_counted.map((n) => n.category)).toContain('clip');
   });
 
   it('gives a generic system the engine quantities with no prices', () => {

@@ -3,7 +3,25 @@ import type { AppDeps } from '../../app-deps';
 import { renderEmail } from '../../mail/templates';
 import type { OrderRow } from './orders.repository';
 
-export type OrderMailEvent = 'placed' | 'amended' | 'cancelled' | 'changes_offered' | 'changes_accepted' | 'changes_declined';
+export type OrderMailEvent =
+  | 'placed'
+  | 'amended'
+  | 'cancelled'
+  | 'changes_offered'
+  | 'changes_accepted'
+  | 'changes_declined'
+  | 'confirmed'
+  | 'turned_down'
+  | 'slot_booked'
+  | 'dispatched'
+  | 'delivered';
+
+/** The booked delivery, for the e-mails that name it. */
+export interface MailSlot {
+  date: string;
+  time_window: string;
+  registration: string;
+}
 
 interface Letter {
   subject: string;
@@ -15,11 +33,12 @@ const money = (minor: number) => `£${(minor / 100).toLocaleString('en-GB', { mi
 const when = (o: OrderRow) => `${o.requested_date}${o.time_window ? `, ${o.time_window}` : ''}`;
 
 /** What each side is told at each step; the desk hears of what the contractor does and the other way round. */
-function letters(event: OrderMailEvent, o: OrderRow, note?: string): { contractor?: Letter; desk?: Letter } {
+function letters(event: OrderMailEvent, o: OrderRow, note?: string, slot?: MailSlot): { contractor?: Letter; desk?: Letter } {
   const ref = orderReference(o.id);
   const place = `${o.branch_name} (${o.merchant_name})`;
   const delivery = `${DELIVERY_METHOD_LABELS[o.delivery_method]} at ${o.site_name} on ${when(o)}.`;
   const noted = note ? [`Note: ${note}`] : [];
+  const booked = slot ? `Delivery booked for ${slot.date}, ${slot.time_window}, on lorry ${slot.registration}.` : 'The delivery slot will follow; you will hear when it is booked.';
   switch (event) {
     case 'placed':
       return {
@@ -62,6 +81,33 @@ function letters(event: OrderMailEvent, o: OrderRow, note?: string): { contracto
         contractor: { subject: `You declined the changes to order ${ref}`, heading: `Changes declined on order ${ref}`, paragraphs: [`${place} has been told and will answer again.`, ...noted] },
         desk: { subject: `${o.contractor_name} declined your changes to order ${ref}`, heading: `Changes declined on order ${ref}`, paragraphs: ['The order stands as it was sent.', ...noted] },
       };
+    case 'confirmed':
+      return {
+        contractor: {
+          subject: `Order ${ref} confirmed by ${o.branch_name}`,
+          heading: `Order ${ref} is confirmed`,
+          paragraphs: [`${place} confirmed your order and holds the stock for it (${money(o.subtotal)} before tax). Any back-ordered packs are listed on the order.`, booked],
+        },
+      };
+    case 'turned_down':
+      return {
+        contractor: { subject: `${o.branch_name} cannot supply order ${ref}`, heading: `Order ${ref} turned down`, paragraphs: [`${place} cannot supply this order.`, ...noted, 'You can send the estimate to another branch or ask for quotes.'] },
+      };
+    case 'slot_booked':
+      return { contractor: { subject: `Delivery booked for order ${ref}`, heading: `Delivery booked for order ${ref}`, paragraphs: [booked, delivery] } };
+    case 'dispatched':
+      return {
+        contractor: {
+          subject: `Order ${ref} is out for delivery`,
+          heading: `Order ${ref} is on its way`,
+          paragraphs: [`The lorry has left ${o.branch_name}. ${booked}`, `Have someone at ${o.site_name} to take the delivery and keep the set-down place clear.`],
+        },
+      };
+    case 'delivered':
+      return {
+        contractor: { subject: `Order ${ref} delivered`, heading: `Order ${ref} delivered`, paragraphs: [`The driver recorded the delivery at ${o.site_name}. Any shortage is shown on the order.`] },
+        desk: { subject: `Order ${ref} delivered to ${o.contractor_name}`, heading: `Order ${ref} delivered`, paragraphs: ['The delivery is recorded: the order can be invoiced.'] },
+      };
   }
 }
 
@@ -72,8 +118,9 @@ export async function sendOrderMail(
   order: OrderRow,
   to: { contractor: string[]; desk: string[] },
   note?: string,
+  slot?: MailSlot,
 ): Promise<void> {
-  const content = letters(event, order, note);
+  const content = letters(event, order, note, slot);
   const url = `${config.appUrl}/orders/${order.id}`;
   const jobs: Promise<void>[] = [];
   for (const [side, letter] of [

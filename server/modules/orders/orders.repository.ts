@@ -1,12 +1,15 @@
 import type {
+  OrderComment,
   OrderEvent,
   OrderLine,
   OrderLineStatus,
   OrderSite,
   OrderStatus,
   Proposal,
-  orderListQuerySchema,
+  orderBookQuerySchema,
 } from '../../../shared/schemas/order.schema';
+import { ORDER_COUNT_CAP } from '../../../shared/schemas/order.schema';
+import { invoiceNumber } from '../../../shared/schemas/invoice.schema';
 import type { z } from 'zod';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
@@ -71,7 +74,7 @@ export interface NewEvent {
   data?: Record<string, unknown>;
 }
 
-type ListFilter = z.output<typeof orderListQuerySchema>;
+type ListFilter = z.output<typeof orderBookQuerySchema>;
 
 const ORDER_COLUMNS = [
   'o.id',
@@ -102,13 +105,15 @@ const ORDER_COLUMNS = [
   'o.updated_at',
 ];
 
+const nextDay = (date: string) => new Date(Date.parse(`${date}T00:00:00Z`) + 86_400_000).toISOString().slice(0, 10);
+
 const likePattern = (q: string) => `%${q.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 function toOrder(r: Record<string, unknown>): OrderRow {
   return { ...(r as unknown as OrderRow), site: JSON.parse(r.site as string) as OrderSite, line_count: Number(r.line_count ?? 0) };
 }
 
-function toLine(r: Record<string, unknown>): OrderLine {
+function toLine(r: Record<string, unknown>): StoredOrderLine {
   return {
     id: r.id as number,
     position: r.position as number,
@@ -127,8 +132,11 @@ function toLine(r: Record<string, unknown>): OrderLine {
     total: r.total as number,
     status: r.status as OrderLineStatus,
     replaces_line_id: (r.replaces_line_id as number | null) ?? null,
+    delivered_quantity: (r.delivered_quantity as number | null) ?? null,
   };
 }
+
+export type StoredOrderLine = OrderLine & { delivered_quantity: number | null };
 
 export function ordersRepository(db: Db) {
   const scoped = (trx: Db, party: OrderParty) => {
@@ -220,32 +228,55 @@ export function ordersRepository(db: Db) {
       return row ? toOrder(row) : undefined;
     },
 
-    async list(party: OrderParty, f: ListFilter): Promise<{ rows: OrderRow[]; total: number }> {
-      const base = () => {
-        const q = scoped(db, party);
+    /**
+     * The order book, filtered, sorted and paged in SQL. The count needs none of the joins (they
+     * follow not-null foreign keys), so it runs on an index alone, and it stops at ORDER_COUNT_CAP:
+     * counting every one of 100,000 orders on each page turn costs more than the page itself.
+     */
+    async list(party: OrderParty, f: ListFilter): Promise<{ rows: OrderRow[]; total: number; capped: boolean }> {
+      const ref = f.q ? f.q.match(/^(?:rl-?)?0*(\d{1,9})$/i) : null;
+      const filter = (q: ReturnType<Db>) => {
+        if (party.kind === 'contractor') q.where('o.contractor_organisation_id', party.organisationId);
+        else q.where('o.merchant_organisation_id', party.organisationId);
         if (f.status) q.where('o.status', f.status);
+        if (f.statuses && f.statuses.length > 0) q.whereIn('o.status', f.statuses);
         if (f.branch_id) q.where('o.branch_id', f.branch_id);
         if (f.project_id) q.where('o.project_id', f.project_id);
+        if (f.contractor_id) q.where('o.contractor_organisation_id', f.contractor_id);
+        // placed_at is an ISO timestamp: a day range runs from the day's start to the next day's start.
+        if (f.date_from) q.where(`o.${f.date_field}`, '>=', f.date_from);
+        if (f.date_to) {
+          if (f.date_field === 'placed_at') q.where('o.placed_at', '<', nextDay(f.date_to));
+          else q.where('o.requested_date', '<=', f.date_to);
+        }
         if (f.q) {
-          const ref = f.q.match(/^(?:rl-?)?0*(\d{1,9})$/i);
           const pattern = likePattern(f.q);
           q.where((w) => {
             if (ref) w.orWhere('o.id', Number(ref[1]));
-            for (const col of ['o.po_reference', 'o.site_name', 'co.name', 'b.name']) w.orWhereRaw(`lower(??) like ? escape '\\'`, [col, pattern]);
+            w.orWhereRaw(`lower(??) like ? escape '\\'`, ['o.po_reference', pattern]).orWhereRaw(`lower(??) like ? escape '\\'`, ['o.site_name', pattern]);
+            w.orWhereExists(db('organisations as co').whereRaw('?? = ??', ['co.id', 'o.contractor_organisation_id']).whereRaw(`lower(??) like ? escape '\\'`, ['co.name', pattern]));
+            w.orWhereExists(db('branches as b').whereRaw('?? = ??', ['b.id', 'o.branch_id']).whereRaw(`lower(??) like ? escape '\\'`, ['b.name', pattern]));
           });
         }
         return q;
       };
-      const totalRow = await base().count({ n: '*' }).first();
-      const rows = await base()
-        .select([...ORDER_COLUMNS, lineCount(db)])
+      const matches = filter(db('orders as o')).select(db.raw('1')).limit(ORDER_COUNT_CAP + 1);
+      const counted = Number((await db.from(matches.as('m')).count({ n: '*' }).first())?.n ?? 0);
+      const capped = counted > ORDER_COUNT_CAP;
+      const total = Math.min(counted, ORDER_COUNT_CAP);
+      if (total === 0 || (!capped && (f.page - 1) * f.page_size >= total)) return { rows: [], total, capped };
+      // Page the ids on the index first, then fetch the joined columns for those rows only.
+      const ids = await filter(db('orders as o'))
         .orderBy([
           { column: `o.${f.sort}`, order: f.dir },
           { column: 'o.id', order: f.dir },
         ])
         .limit(f.page_size)
-        .offset((f.page - 1) * f.page_size);
-      return { rows: rows.map(toOrder), total: Number(totalRow?.n ?? 0) };
+        .offset((f.page - 1) * f.page_size)
+        .pluck('o.id') as number[];
+      const rows = await scoped(db, party).whereIn('o.id', ids).select([...ORDER_COLUMNS, lineCount(db)]);
+      const byId = new Map(rows.map((r) => [r.id as number, r]));
+      return { rows: ids.map((oid) => toOrder(byId.get(oid)!)), total, capped };
     },
 
     /**
@@ -269,7 +300,44 @@ export function ordersRepository(db: Db) {
       return n > 0;
     },
 
-    async lines(orderId: number, trx: Db = db): Promise<OrderLine[]> {
+    /** A line after the desk's confirmation: what it sends now, what follows, what is held from stock. */
+    async setConfirmed(trx: Db, lineId: number, v: { confirmed_quantity: number; back_order_quantity: number; reserved_quantity: number; total: number; status: OrderLineStatus }): Promise<void> {
+      await trx('order_lines').where({ id: lineId }).update(v);
+    },
+
+    async setDelivered(trx: Db, lineId: number, delivered: number): Promise<void> {
+      await trx('order_lines').where({ id: lineId }).update({ delivered_quantity: delivered, reserved_quantity: 0 });
+    },
+
+    async comments(orderId: number, trx: Db = db): Promise<(OrderComment & { organisationKind: string })[]> {
+      const rows = await trx('order_comments as c')
+        .join('organisations as o', 'o.id', 'c.author_organisation_id')
+        .where('c.order_id', orderId)
+        .select('c.id', 'c.body', 'c.created_at', 'c.author_user_id', 'c.author_name', 'o.id as org_id', 'o.name as org_name', 'o.kind as org_kind')
+        .orderBy('c.id');
+      return rows.map((r) => ({
+        id: r.id,
+        body: r.body,
+        at: r.created_at,
+        author: { id: r.author_user_id, name: r.author_name, organisation: { id: r.org_id, name: r.org_name } },
+        side: r.org_kind === 'merchant' ? 'merchant' : 'contractor',
+        organisationKind: r.org_kind,
+      }));
+    },
+
+    async insertComment(trx: Db, orderId: number, c: { userId: number; name: string; organisationId: number; body: string }): Promise<number> {
+      const [row] = await trx('order_comments')
+        .insert({ order_id: orderId, author_user_id: c.userId, author_name: c.name, author_organisation_id: c.organisationId, body: c.body, created_at: nowIso() })
+        .returning('id');
+      return (row as { id: number }).id;
+    },
+
+    async invoiceOf(orderId: number, trx: Db = db): Promise<{ id: number; number: string } | null> {
+      const row = await trx('invoices').where({ order_id: orderId }).first('id', 'number');
+      return row ? { id: row.id, number: invoiceNumber(row.number) } : null;
+    },
+
+    async lines(orderId: number, trx: Db = db): Promise<StoredOrderLine[]> {
       const rows = await trx('order_lines').where({ order_id: orderId }).orderBy('position');
       return rows.map(toLine);
     },

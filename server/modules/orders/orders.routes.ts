@@ -1,12 +1,17 @@
 import {
   amendOrderBodySchema,
   answerProposalBodySchema,
+  bookSlotBodySchema,
   cancelOrderBodySchema,
-  orderListQuerySchema,
+  commentBodySchema,
+  confirmOrderBodySchema,
+  orderBookQuerySchema,
   orderParamsSchema,
   placeOrderBodySchema,
   proposalBodySchema,
   proposalParamsSchema,
+  recordDeliveryBodySchema,
+  turnDownBodySchema,
 } from '../../../shared/schemas/order.schema';
 import { currentUser } from '../../auth/policy';
 import { apiRouter } from '../../http/endpoint';
@@ -19,7 +24,7 @@ export function ordersRoutes(orders: OrdersService) {
     res.status(201).json(await orders.place(currentUser(req), body));
   });
 
-  r.get('/orders', { access: { action: 'orders:read' }, query: orderListQuerySchema }, async (req, res, { query }) => {
+  r.get('/orders', { access: { action: 'orders:read' }, query: orderBookQuerySchema }, async (req, res, { query }) => {
     res.json(await orders.list(currentUser(req), query));
   });
 
@@ -62,6 +67,38 @@ export function ordersRoutes(orders: OrdersService) {
       res.json(await orders.declineChanges(currentUser(req), params.id, params.proposalId, body.note));
     },
   );
+
+  r.post('/orders/:id/confirm', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: confirmOrderBodySchema }, async (req, res, { params, body }) => {
+    res.json(await orders.confirm(currentUser(req), params.id, body));
+  });
+
+  r.post('/orders/:id/turn-down', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: turnDownBodySchema }, async (req, res, { params, body }) => {
+    res.json(await orders.turnDown(currentUser(req), params.id, body.reason));
+  });
+
+  r.put('/orders/:id/slot', { access: { action: 'slots:book' }, params: orderParamsSchema, body: bookSlotBodySchema }, async (req, res, { params, body }) => {
+    res.json(await orders.bookSlot(currentUser(req), params.id, body.slot_id));
+  });
+
+  r.delete('/orders/:id/slot', { access: { action: 'slots:book' }, params: orderParamsSchema }, async (req, res, { params }) => {
+    res.json(await orders.unbookSlot(currentUser(req), params.id));
+  });
+
+  r.post('/orders/:id/dispatch', { access: { action: 'slots:book' }, params: orderParamsSchema }, async (req, res, { params }) => {
+    res.json(await orders.dispatch(currentUser(req), params.id));
+  });
+
+  r.post('/orders/:id/delivery', { access: { action: 'deliveries:record' }, params: orderParamsSchema, body: recordDeliveryBodySchema }, async (req, res, { params, body }) => {
+    res.json(await orders.recordDelivery(currentUser(req), params.id, body));
+  });
+
+  r.get('/orders/:id/comments', { access: { action: 'orders:comment' }, params: orderParamsSchema }, async (req, res, { params }) => {
+    res.json(await orders.comments(currentUser(req), params.id));
+  });
+
+  r.post('/orders/:id/comments', { access: { action: 'orders:comment' }, params: orderParamsSchema, body: commentBodySchema }, async (req, res, { params, body }) => {
+    res.status(201).json(await orders.comment(currentUser(req), params.id, body.body));
+  });
 
   return r.router;
 }

@@ -10,10 +10,13 @@ import {
   type OrderLineStatus,
   type OrderSite,
   type OrderSummary,
+  type OrderDetail,
   type amendOrderBodySchema,
-  type orderListQuerySchema,
+  type confirmOrderBodySchema,
+  type orderBookQuerySchema,
   type placeOrderBodySchema,
   type proposalBodySchema,
+  type recordDeliveryBodySchema,
 } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
@@ -24,13 +27,17 @@ import { catalogueRepository, type BranchProductRow } from '../catalogue/catalog
 import { orderCautions } from '../estimates/cautions';
 import { estimatesRepository } from '../estimates/estimates.repository';
 import { projectsService } from '../projects/projects.service';
+import { slotsService } from '../slots/slots.service';
+import { stockRepository } from '../stock/stock.repository';
 import { sendOrderMail, type OrderMailEvent } from './order-mail';
 import { ordersRepository, type NewOrderLine, type OrderParty, type OrderRow } from './orders.repository';
 
 type PlaceBody = z.output<typeof placeOrderBodySchema>;
 type AmendBody = z.output<typeof amendOrderBodySchema>;
 type ProposalBody = z.output<typeof proposalBodySchema>;
-type ListQuery = z.output<typeof orderListQuerySchema>;
+type ListQuery = z.output<typeof orderBookQuerySchema>;
+type ConfirmBody = z.output<typeof confirmOrderBodySchema>;
+type DeliveryBody = z.output<typeof recordDeliveryBodySchema>;
 
 /** The policy action behind each order step, so a role sees only the steps it may take. */
 const ACTION_POLICY: Record<OrderAction, Action> = {
@@ -78,11 +85,14 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
   const catalogue = catalogueRepository(db);
   const estimates = estimatesRepository(db);
   const projects = projectsService(deps);
+  const slots = slotsService(deps);
+  const stock = stockRepository(db);
 
   async function notify(event: OrderMailEvent, orderId: number, party: OrderParty, note?: string) {
     const order = (await orders.find(party, orderId))!;
-    const [contractor, desk] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id)]);
-    await sendOrderMail(deps, event, order, { contractor, desk }, note);
+    const [contractor, desk, booking] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id), slots.booking(orderId)]);
+    const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id) : undefined;
+    await sendOrderMail(deps, event, order, { contractor, desk }, note, slot ? { date: slot.date, time_window: slot.time_window, registration: slot.registration } : undefined);
   }
 
   /** Lines priced at the branch now; each product must be one the branch sells. */
@@ -115,12 +125,20 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     };
   }
 
-  async function get(user: AuthUser, id: number): Promise<Order> {
+  async function get(user: AuthUser, id: number): Promise<OrderDetail> {
     const party = partyOf(user);
     const order = await orders.find(party, id);
     if (!order) throw AppError.notFound('Order');
-    const [lines, proposals, timeline] = await Promise.all([orders.lines(id), orders.proposals(id), orders.events(id)]);
-    return {
+    const [lines, proposals, timeline, comments, booking, invoice] = await Promise.all([
+      orders.lines(id),
+      orders.proposals(id),
+      orders.events(id),
+      orders.comments(id),
+      slots.booking(id),
+      orders.invoiceOf(id),
+    ]);
+    const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id) : undefined;
+    const detail: Order = {
       ...summary(order),
       estimate_id: party.kind === 'contractor' ? order.estimate_id : null,
       quote_id: order.quote_id,
@@ -133,6 +151,39 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       cautions: orderCautions(order.delivery_method, order.site),
       confirmed_at: order.confirmed_at,
       cancelled_at: order.cancelled_at,
+    };
+    // Steps beyond the stage changes: booking the lorry once confirmed, invoicing once goods are promised.
+    if (party.kind === 'merchant') {
+      if (order.status === 'confirmed' && can(user.role, 'slots:book')) detail.allowed_actions.push('book_slot');
+      if (['confirmed', 'on_the_road', 'delivered'].includes(order.status) && !invoice && can(user.role, 'invoices:issue')) detail.allowed_actions.push('issue_invoice');
+    }
+    return {
+      ...detail,
+      lines,
+      slot:
+        booking && slot
+          ? {
+              slot_id: slot.id,
+              date: slot.date,
+              time_window: slot.time_window,
+              lorry: { id: slot.lorry_id, registration: slot.registration, has_crane: slot.has_crane },
+              driver: slot.driver_user_id ? { id: slot.driver_user_id, name: slot.driver_name ?? '' } : null,
+              weight_kg: booking.weight_kg,
+              pallets: booking.pallets,
+              booked_at: booking.booked_at,
+            }
+          : null,
+      delivery:
+        booking?.delivered_at
+          ? {
+              delivered_at: booking.delivered_at,
+              received_by: booking.received_by ?? '',
+              notes: booking.delivery_notes ?? '',
+              recorded_by: booking.recorded_by ? { id: booking.recorded_by, name: booking.recorded_by_name ?? '' } : null,
+            }
+          : null,
+      comments: comments.map(({ organisationKind: _kind, ...c }) => c),
+      invoice,
     };
   }
 
@@ -197,8 +248,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     newLine,
 
     async list(user: AuthUser, query: ListQuery) {
-      const { rows, total } = await orders.list(partyOf(user), query);
-      return { orders: rows.map(summary), total, page: query.page, page_size: query.page_size };
+      const { rows, total, capped } = await orders.list(partyOf(user), query);
+      return { orders: rows.map(summary), total, total_capped: capped, page: query.page, page_size: query.page_size };
     },
 
     /**
@@ -484,6 +535,218 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       await notify('changes_declined', id, partyOf(user), note);
       return get(user, id);
     },
+
+    /**
+     * The desk confirms: each line's packs to send now are held from the branch's stock in the same
+     * transaction (the rest is back-ordered), and the order is booked into a slot when one is given.
+     * If any line lacks the stock, nothing is held and the answer is 409 insufficient_stock naming
+     * each SKU with the packs free and the packs asked for.
+     */
+    async confirm(user: AuthUser, id: number, body: ConfirmBody) {
+      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      const t = ORDER_TRANSITIONS.confirm;
+      await db.transaction(async (trx) => {
+        const order = await orders.find(partyOf(user), id, trx);
+        if (!order) throw AppError.notFound('Order');
+        if (!(t.from as readonly string[]).includes(order.status)) throw locked(order, 'confirm');
+        const lines = await orders.lines(id, trx);
+        const wanted = new Map((body.lines ?? []).map((l) => [l.line_id, l.quantity]));
+        const problems: { path: string; message: string }[] = [];
+        (body.lines ?? []).forEach((l, i) => {
+          if (!lines.some((x) => x.id === l.line_id)) problems.push({ path: `lines.${i}.line_id`, message: 'is not a line of this order' });
+        });
+        const plan = lines.map((line) => {
+          // What is open to send: the agreed packs after accepted changes, the packs asked for otherwise.
+          const open = line.confirmed_quantity ?? line.quantity;
+          const send = wanted.get(line.id) ?? open;
+          return { line, open, send, back: line.back_order_quantity + Math.max(0, open - send) };
+        });
+        plan.forEach((p) => {
+          if (p.send > p.open) {
+            const i = (body.lines ?? []).findIndex((l) => l.line_id === p.line.id);
+            problems.push({ path: `lines.${i}.quantity`, message: `at most the ${p.open} packs ${order.status === 'agreed' ? 'agreed' : 'asked for'}` });
+          }
+        });
+        if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some lines cannot be confirmed like this', problems);
+
+        const byProduct = new Map<number, { sku: string; line_id: number; requested: number }>();
+        for (const p of plan) {
+          if (p.send === 0) continue;
+          const prev = byProduct.get(p.line.product_id);
+          byProduct.set(p.line.product_id, { sku: p.line.sku, line_id: prev?.line_id ?? p.line.id, requested: (prev?.requested ?? 0) + p.send });
+        }
+        const shortfall = async () => {
+          const levels = await stock.levels(trx, order.branch_id, [...byProduct.keys()]);
+          return [...byProduct.entries()]
+            .map(([productId, w]) => ({ ...w, available: Math.max(0, (levels.get(productId)?.on_hand ?? 0) - (levels.get(productId)?.reserved ?? 0)) }))
+            .filter((w) => w.available < w.requested)
+            .map((w) => ({ sku: w.sku, line_id: w.line_id, available: w.available, requested: w.requested, message: `${w.sku}: ${w.available} packs free at ${order.branch_name}, ${w.requested} asked` }));
+        };
+        const insufficient = (details: Awaited<ReturnType<typeof shortfall>>) =>
+          AppError.conflict('insufficient_stock', `Not enough stock at ${order.branch_name} to confirm ${orderReference(order.id)}: confirm part and back-order the rest, or offer a substitute`, details);
+        const short = await shortfall();
+        if (short.length > 0) throw insufficient(short);
+        for (const [productId, w] of byProduct) {
+          if (!(await stock.reserve(trx, order.branch_id, productId, w.requested))) throw insufficient(await shortfall());
+        }
+        const substituted = new Set(lines.filter((l) => l.replaces_line_id !== null).map((l) => l.replaces_line_id));
+        for (const p of plan) {
+          const status: OrderLineStatus = p.line.status === 'substitute' ? 'substitute' : lineStatus(p.line.quantity, p.send, p.back, substituted.has(p.line.id));
+          await orders.setConfirmed(trx, p.line.id, { confirmed_quantity: p.send, back_order_quantity: p.back, reserved_quantity: p.send, total: p.line.unit_price * (p.send + p.back), status });
+        }
+        const after = await orders.lines(id, trx);
+        const subtotal = after.reduce((sum, l) => sum + l.total, 0);
+        if (!(await orders.updateIf(trx, id, { statuses: t.from, revision: order.revision }, { status: t.to, confirmed_at: nowIso(), subtotal }, true))) {
+          throw AppError.conflict('order_changed', 'The order changed at the same moment; reload it and try again');
+        }
+        await orders.supersedeOpenProposals(trx, id);
+        let slotNote = '';
+        if (body.slot_id) {
+          const slot = await slots.book(trx, user, order, body.slot_id, await slots.loadOf(trx, order, after));
+          slotNote = `; delivery booked ${slot.date} ${slot.time_window} on ${slot.registration}`;
+        }
+        const backOrdered = plan.reduce((sum, p) => sum + (p.back - p.line.back_order_quantity), 0);
+        await orders.insertEvent(trx, id, {
+          kind: 'confirmed',
+          actor: actorOf(user),
+          summary: `Confirmed ${plan.filter((p) => p.send > 0).length} lines from stock${backOrdered > 0 ? `, ${backOrdered} packs back-ordered` : ''}${slotNote}`,
+          data: { reserved: Object.fromEntries(plan.map((p) => [p.line.sku, p.send])), back_ordered: backOrdered, ...(body.slot_id ? { slot_id: body.slot_id } : {}) },
+        });
+      });
+      await notify('confirmed', id, partyOf(user));
+      return get(user, id);
+    },
+
+    /** The desk cannot supply the order: it is closed with the reason, and the contractor can order elsewhere. */
+    async turnDown(user: AuthUser, id: number, reason: string) {
+      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      const t = ORDER_TRANSITIONS.turn_down;
+      await db.transaction(async (trx) => {
+        const order = await orders.find(partyOf(user), id, trx);
+        if (!order) throw AppError.notFound('Order');
+        if (!(t.from as readonly string[]).includes(order.status)) throw locked(order, 'turn_down');
+        if (!(await orders.updateIf(trx, id, { statuses: t.from, revision: order.revision }, { status: t.to }, true))) {
+          throw AppError.conflict('order_changed', 'The order changed at the same moment; reload it and try again');
+        }
+        await orders.supersedeOpenProposals(trx, id);
+        await orders.insertEvent(trx, id, { kind: 'turned_down', actor: actorOf(user), summary: `Turned down: ${reason}`, data: { reason } });
+      });
+      await notify('turned_down', id, partyOf(user), reason);
+      return get(user, id);
+    },
+
+    /** Books a confirmed order into a slot, or moves it to another; the contractor is told the day. */
+    async bookSlot(user: AuthUser, id: number, slotId: number) {
+      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      await db.transaction(async (trx) => {
+        const order = await orders.find(partyOf(user), id, trx);
+        if (!order) throw AppError.notFound('Order');
+        if (order.status !== 'confirmed') throw AppError.conflict('order_not_confirmed', `Only a confirmed order can be booked onto a lorry; ${orderReference(id)} is ${ORDER_STATUS_LABELS[order.status].toLowerCase()}`);
+        const slot = await slots.book(trx, user, order, slotId, await slots.loadOf(trx, order, await orders.lines(id, trx)));
+        await orders.insertEvent(trx, id, { kind: 'slot_booked', actor: actorOf(user), summary: `Delivery booked ${slot.date} ${slot.time_window} on ${slot.registration}`, data: { slot_id: slot.id } });
+      });
+      await notify('slot_booked', id, partyOf(user));
+      return get(user, id);
+    },
+
+    async unbookSlot(user: AuthUser, id: number) {
+      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      await db.transaction(async (trx) => {
+        const order = await orders.find(partyOf(user), id, trx);
+        if (!order) throw AppError.notFound('Order');
+        if (order.status !== 'confirmed') throw AppError.conflict('order_not_confirmed', 'The lorry has left: the booking can no longer change');
+        if (!(await slots.unbook(trx, id))) throw AppError.conflict('not_booked', `${orderReference(id)} is not booked into a slot`);
+        await orders.insertEvent(trx, id, { kind: 'slot_released', actor: actorOf(user), summary: 'Delivery slot released', data: {} });
+      });
+      return get(user, id);
+    },
+
+    /** The lorry leaves the yard: the order must be booked into a slot with a driver. */
+    async dispatch(user: AuthUser, id: number) {
+      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      const t = ORDER_TRANSITIONS.dispatch;
+      await db.transaction(async (trx) => {
+        const order = await orders.find(partyOf(user), id, trx);
+        if (!order) throw AppError.notFound('Order');
+        if (!(t.from as readonly string[]).includes(order.status)) throw locked(order, 'dispatch');
+        const booking = await slots.booking(id, trx);
+        if (!booking) throw AppError.conflict('not_booked', `Book ${orderReference(id)} into a delivery slot before it goes out`);
+        const slot = (await slots.slot(user.organisation.id, booking.slot_id, trx))!;
+        if (!slot.driver_user_id) throw AppError.conflict('no_driver', `Assign a driver to ${slot.registration} on ${slot.date} ${slot.time_window} first`);
+        if (!(await orders.updateIf(trx, id, { statuses: t.from }, { status: t.to }, false))) throw AppError.conflict('order_changed', 'The order changed at the same moment; reload it and try again');
+        await orders.insertEvent(trx, id, { kind: 'dispatched', actor: actorOf(user), summary: `Out for delivery on ${slot.registration} with ${slot.driver_name}`, data: { slot_id: slot.id } });
+      });
+      await notify('dispatched', id, partyOf(user));
+      return get(user, id);
+    },
+
+    /**
+     * The driver records the hand-over: packs delivered per line (as loaded when left out), who took
+     * them, notes. The order's hold on stock ends; what was handed over leaves the branch's on-hand
+     * count (packs brought back stay in it). Shortfalls are kept on the line for a credit note.
+     */
+    async recordDelivery(user: AuthUser, id: number, body: DeliveryBody) {
+      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      const t = ORDER_TRANSITIONS.deliver;
+      await db.transaction(async (trx) => {
+        const order = await orders.find(partyOf(user), id, trx);
+        if (!order) throw AppError.notFound('Order');
+        if (!(t.from as readonly string[]).includes(order.status)) throw AppError.conflict('order_not_on_the_road', `${orderReference(id)} is ${ORDER_STATUS_LABELS[order.status].toLowerCase()}: a delivery is recorded once it is on the road`);
+        const booking = await slots.booking(id, trx);
+        const slot = booking ? await slots.slot(user.organisation.id, booking.slot_id, trx) : undefined;
+        if (user.role === 'driver' && slot?.driver_user_id !== user.id) throw AppError.forbidden('Only the driver of this run records its delivery');
+        const lines = await orders.lines(id, trx);
+        const given = new Map((body.lines ?? []).map((l) => [l.line_id, l.delivered_quantity]));
+        const problems: { path: string; message: string }[] = [];
+        (body.lines ?? []).forEach((l, i) => {
+          const line = lines.find((x) => x.id === l.line_id);
+          if (!line) problems.push({ path: `lines.${i}.line_id`, message: 'is not a line of this order' });
+          else if (l.delivered_quantity > line.reserved_quantity) problems.push({ path: `lines.${i}.delivered_quantity`, message: `at most the ${line.reserved_quantity} packs loaded` });
+        });
+        if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some delivered quantities are not valid', problems);
+        const short: string[] = [];
+        for (const line of lines) {
+          const delivered = given.get(line.id) ?? line.reserved_quantity;
+          if (!(await stock.consume(trx, order.branch_id, line.product_id, line.reserved_quantity, delivered))) {
+            throw AppError.conflict('stock_changed', `The stock of ${line.sku} at ${order.branch_name} no longer covers this delivery; count it and try again`);
+          }
+          await orders.setDelivered(trx, line.id, delivered);
+          if (delivered < line.reserved_quantity) short.push(`${line.sku} ${delivered} of ${line.reserved_quantity}`);
+        }
+        const at = body.delivered_at ?? nowIso();
+        if (booking) await slots.recordDelivery(trx, id, { delivered_at: at, received_by: body.received_by, delivery_notes: body.notes ?? '', recorded_by: user.id });
+        if (!(await orders.updateIf(trx, id, { statuses: t.from }, { status: t.to }, false))) throw AppError.conflict('order_changed', 'The order changed at the same moment; reload it and try again');
+        await orders.insertEvent(trx, id, {
+          kind: 'delivered',
+          actor: actorOf(user),
+          summary: `Delivered, received by ${body.received_by}${short.length > 0 ? `; short: ${short.join(', ')}` : ''}`,
+          data: { received_by: body.received_by, delivered_at: at, short, ...(body.notes ? { notes: body.notes } : {}) },
+        });
+      });
+      await notify('delivered', id, partyOf(user));
+      return get(user, id);
+    },
+
+    async comments(user: AuthUser, id: number) {
+      if (!(await orders.find(partyOf(user), id))) throw AppError.notFound('Order');
+      return { comments: (await orders.comments(id)).map(({ organisationKind: _kind, ...c }) => c) };
+    },
+
+    /** A comment between the two sides; it goes on the timeline too. */
+    async comment(user: AuthUser, id: number, body: string) {
+      const commentId = await db.transaction(async (trx) => {
+        const order = await orders.find(partyOf(user), id, trx);
+        if (!order) throw AppError.notFound('Order');
+        const cid = await orders.insertComment(trx, id, { userId: user.id, name: user.name, organisationId: user.organisation.id, body });
+        await orders.insertEvent(trx, id, { kind: 'commented', actor: actorOf(user), summary: `Comment: ${body.length > 120 ? `${body.slice(0, 117)}…` : body}`, data: { comment_id: cid } });
+        return cid;
+      });
+      const c = (await orders.comments(id)).find((x) => x.id === commentId)!;
+      const { organisationKind: _kind, ...comment } = c;
+      return comment;
+    },
+
+    linesOf: (orderId: number) => orders.lines(orderId),
   };
 }
 

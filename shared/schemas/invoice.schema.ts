@@ -1,0 +1,157 @@
+import { z } from 'zod';
+import { branchRefSchema } from './catalogue.schema';
+import { orgRefSchema } from './order.schema';
+
+/**
+ * Invoices and credit notes. Numbers run per merchant without gaps (INV-000001, CN-000001); money is
+ * integer minor units of the configured currency; each line carries its tax rate in basis points
+ * (2000 = 20 %) and its tax is rounded to the minor unit per line.
+ */
+
+export const INVOICE_BASES = ['delivered', 'confirmed'] as const;
+export const PAY_BY = ['account', 'card'] as const;
+export const PAY_BY_LABELS: Record<(typeof PAY_BY)[number], string> = { account: 'On account, by the due date', card: 'By card' };
+export const INVOICE_STATUSES = ['unpaid', 'part_paid', 'paid', 'credited'] as const;
+export type InvoiceStatus = (typeof INVOICE_STATUSES)[number];
+export const INVOICE_STATUS_LABELS: Record<InvoiceStatus, string> = {
+  unpaid: 'Not paid yet',
+  part_paid: 'Partly paid',
+  paid: 'Paid',
+  credited: 'Cleared by credit notes',
+};
+export const CREDIT_REASONS = ['shortage', 'damage', 'return'] as const;
+export const CREDIT_REASON_LABELS: Record<(typeof CREDIT_REASONS)[number], string> = {
+  shortage: 'Short on delivery',
+  damage: 'Damaged on delivery',
+  return: 'Returned to the branch',
+};
+
+export const PAYMENT_STATUSES = ['open', 'succeeded', 'failed'] as const;
+export const REFUND_STATUSES = ['pending', 'succeeded', 'failed'] as const;
+
+export const invoiceNumber = (n: number) => `INV-${String(n).padStart(6, '0')}`;
+export const creditNoteNumber = (n: number) => `CN-${String(n).padStart(6, '0')}`;
+
+export const invoiceLineSchema = z.object({
+  id: z.number().int(),
+  position: z.number().int(),
+  order_line_id: z.number().int().nullable(),
+  sku: z.string(),
+  description: z.string(),
+  unit: z.string(),
+  pack_size: z.number().int(),
+  quantity: z.number().int(),
+  unit_price: z.number().int(),
+  tax_rate_bp: z.number().int(),
+  net: z.number().int(),
+  tax: z.number().int(),
+  total: z.number().int(),
+  /** Packs already credited on this line. */
+  credited_quantity: z.number().int(),
+});
+
+export const paymentSchema = z.object({
+  id: z.number().int(),
+  method: z.literal('card'),
+  status: z.enum(PAYMENT_STATUSES),
+  amount: z.number().int(),
+  currency: z.string(),
+  checkout_url: z.string().nullable(),
+  last_error: z.string().nullable(),
+  paid_at: z.string().nullable(),
+  created_at: z.string(),
+});
+export type Payment = z.infer<typeof paymentSchema>;
+
+export const creditNoteSchema = z.object({
+  id: z.number().int(),
+  number: z.string(),
+  invoice_id: z.number().int(),
+  reason: z.enum(CREDIT_REASONS),
+  notes: z.string(),
+  subtotal: z.number().int(),
+  tax_total: z.number().int(),
+  total: z.number().int(),
+  lines: z.array(
+    z.object({ invoice_line_id: z.number().int(), sku: z.string(), description: z.string(), quantity: z.number().int(), unit_price: z.number().int(), tax_rate_bp: z.number().int(), net: z.number().int(), tax: z.number().int(), total: z.number().int() }),
+  ),
+  refund: z.object({ status: z.enum(REFUND_STATUSES), amount: z.number().int(), last_error: z.string().nullable() }).nullable(),
+  created_at: z.string(),
+});
+export type CreditNote = z.infer<typeof creditNoteSchema>;
+
+export const invoiceSummarySchema = z.object({
+  id: z.number().int(),
+  number: z.string(),
+  status: z.enum(INVOICE_STATUSES),
+  status_label: z.string(),
+  order: z.object({ id: z.number().int(), reference: z.string() }),
+  contractor: orgRefSchema,
+  branch: branchRefSchema,
+  currency: z.string(),
+  issue_date: z.string(),
+  due_date: z.string().nullable(),
+  pay_by: z.enum(PAY_BY),
+  subtotal: z.number().int(),
+  tax_total: z.number().int(),
+  total: z.number().int(),
+  credited: z.number().int(),
+  paid: z.number().int(),
+  /** total − credited − paid, never below 0. */
+  balance: z.number().int(),
+  overdue: z.boolean(),
+});
+export type InvoiceSummary = z.infer<typeof invoiceSummarySchema>;
+
+export const invoiceSchema = invoiceSummarySchema.extend({
+  basis: z.enum(INVOICE_BASES),
+  site_name: z.string(),
+  po_reference: z.string(),
+  lines: z.array(invoiceLineSchema),
+  credit_notes: z.array(creditNoteSchema),
+  payments: z.array(paymentSchema),
+  created_at: z.string(),
+});
+export type Invoice = z.infer<typeof invoiceSchema>;
+
+export const invoiceListQuerySchema = z.object({
+  status: z.enum(INVOICE_STATUSES).optional(),
+  contractor_id: z.coerce.number().int().positive().optional(),
+  page: z.coerce.number().int().min(1).default(1),
+  page_size: z.coerce.number().int().min(1).max(100).default(25),
+});
+export const invoiceListSchema = z.object({ invoices: z.array(invoiceSummarySchema), total: z.number().int(), page: z.number().int(), page_size: z.number().int() });
+export const invoiceParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+
+export const creditNoteBodySchema = z
+  .object({
+    reason: z.enum(CREDIT_REASONS, { error: `must be one of ${CREDIT_REASONS.join(', ')}` }),
+    notes: z.string().trim().max(2000).optional(),
+    lines: z
+      .array(z.object({ invoice_line_id: z.number().int().positive(), quantity: z.number().int().min(1, { error: 'must be at least 1' }) }))
+      .min(1, { error: 'credit at least one line' })
+      .max(200)
+      .superRefine((lines, ctx) => {
+        const seen = new Set<number>();
+        lines.forEach((l, i) => {
+          if (seen.has(l.invoice_line_id)) ctx.addIssue({ code: 'custom', path: [i, 'invoice_line_id'], message: 'this line is listed twice' });
+          seen.add(l.invoice_line_id);
+        });
+      }),
+  })
+  .strict();
+export type CreditNoteBody = z.input<typeof creditNoteBodySchema>;
+
+// Account customers: a contractor the merchant lets pay by a due date.
+
+export const accountSchema = z.object({
+  contractor: orgRefSchema,
+  /** Days from the invoice date to the due date; null = no account (pays by card). */
+  terms_days: z.number().int().nullable(),
+  orders: z.number().int(),
+});
+export const accountListSchema = z.object({ accounts: z.array(accountSchema) });
+export const accountParamsSchema = z.object({ contractorId: z.coerce.number().int().positive() });
+export const putAccountBodySchema = z
+  .object({ terms_days: z.number({ error: 'must be a number' }).int({ error: 'must be whole days' }).min(0, { error: 'must not be negative' }).max(120, { error: 'must be at most 120 days' }) })
+  .strict();

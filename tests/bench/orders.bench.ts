@@ -1,0 +1,233 @@
+/**
+ * Order-book benchmark: 100,000 orders (with their lines) in a temporary SQLite file, then the
+ * merchant's order list endpoint (filtered by stage and branch, sorted, paged, signed in) under
+ * concurrent load with autocannon against the whole app in this process on 127.0.0.1, and a bare
+ * Express JSON route in the same run for comparison. Prints p50/p99 latency and requests per second
+ * for both and their ratio, and ends with one JSON line. Target: list p99 within 3× of the bare route.
+ *
+ *   npm run bench:orders [-- --check] [-- --seconds=10]
+ */
+import { mkdtempSync, rmSync } from 'node:fs';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import autocannon from 'autocannon';
+import express from 'express';
+import pino from 'pino';
+import { createApp } from '../../server/app';
+import { hashPassword } from '../../server/auth/passwords';
+import { loadConfig } from '../../server/config/env';
+import { createDb, migrateLatest, type Db } from '../../server/db/knex';
+import { ORDER_STATUSES } from '../../shared/schemas/order.schema';
+
+const ORDERS = 100_000;
+const CONTRACTORS = 200;
+const LINES_PER_ORDER = 3;
+const CONNECTIONS = 10;
+const TARGET_RATIO = 3;
+const SECONDS = Number(process.argv.find((a) => a.startsWith('--seconds='))?.split('=')[1] ?? 10);
+const PASSWORD = 'bench-password-123';
+
+/** Small seeded generator (mulberry32), so every run lists the same book. */
+function rng(seed: number) {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const idOf = (row: unknown) => (typeof row === 'object' && row !== null ? (row as { id: number }).id : (row as number));
+
+/** One merchant with two branches, 200 contractors with a site each, and 100,000 orders over two years. */
+async function seedBook(db: Db) {
+  const now = new Date().toISOString();
+  const hash = await hashPassword(PASSWORD);
+  const merchant = idOf((await db('organisations').insert({ name: 'Benchmark Roofing Supplies', kind: 'merchant', created_at: now }).returning('id'))[0]);
+  const branches: number[] = [];
+  for (const name of ['North Yard', 'South Depot']) {
+    branches.push(idOf((await db('branches').insert({ organisation_id: merchant, name, address: '1 Bench Road', town: 'Benchton', created_at: now }).returning('id'))[0]));
+  }
+  await db('users').insert({ organisation_id: merchant, email: 'desk@bench.test', name: 'Bench Desk', role: 'merchant_sales', password_hash: hash, created_at: now });
+  const product = idOf((await db('products').insert({ organisation_id: merchant, sku: 'BEN-TILE', name: 'Bench tile', category: 'tile', unit: 'tile', pack_size: 1, pack_weight_kg: 4.4, technical: '{}', created_at: now, updated_at: now }).returning('id'))[0]);
+  const contractors: { org: number; project: number }[] = [];
+  await db.transaction(async (trx) => {
+    for (let i = 0; i < CONTRACTORS; i++) {
+      const org = idOf((await trx('organisations').insert({ name: `Contractor ${String(i).padStart(3, '0')} Roofing`, kind: 'contractor', created_at: now }).returning('id'))[0]);
+      const project = idOf((await trx('projects').insert({ organisation_id: org, name: `Site ${i}`, site_address: `${i} Bench Lane`, created_at: now, updated_at: now }).returning('id'))[0]);
+      contractors.push({ org, project });
+    }
+  });
+  const rand = rng(7);
+  const site = JSON.stringify({ name: 'Site', site_address: '1 Bench Lane', site_postcode: '', contact_name: '', contact_phone: '', vehicle_access: 'any', crane_lift: 'allowed', overhead_lines: 'none', set_down_place: '', access_notes: '' });
+  const start = Date.parse('2025-01-01T00:00:00Z');
+  const BATCH = 500;
+  for (let done = 0; done < ORDERS; done += BATCH * 20) {
+    await db.transaction(async (trx) => {
+      for (let b = done; b < Math.min(ORDERS, done + BATCH * 20); b += BATCH) {
+        const rows = [];
+        for (let i = b; i < Math.min(ORDERS, b + BATCH); i++) {
+          const c = contractors[Math.floor(rand() * contractors.length)];
+          const placed = new Date(start + Math.floor(rand() * 700 * 86_400_000));
+          const placedAt = placed.toISOString();
+          rows.push({
+            contractor_organisation_id: c.org,
+            merchant_organisation_id: merchant,
+            branch_id: branches[Math.floor(rand() * branches.length)],
+            project_id: c.project,
+            status: ORDER_STATUSES[Math.floor(rand() * ORDER_STATUSES.length)],
+            revision: 1,
+            requested_date: new Date(placed.getTime() + Math.floor(rand() * 30) * 86_400_000).toISOString().slice(0, 10),
+            delivery_method: rand() < 0.5 ? 'ground' : 'roof',
+            po_reference: `PO-${i}`,
+            notes: '',
+            site_name: `Site ${i % 997}`,
+            site,
+            subtotal: Math.floor(rand() * 2_000_000),
+            placed_at: placedAt,
+            updated_at: placedAt,
+          });
+        }
+        const ids = (await trx('orders').insert(rows).returning('id')).map(idOf);
+        const lines = ids.flatMap((orderId) =>
+          Array.from({ length: LINES_PER_ORDER }, (_, p) => ({
+            order_id: orderId,
+            position: p + 1,
+            product_id: product,
+            sku: 'BEN-TILE',
+            description: 'Bench tile',
+            category: 'tile',
+            unit: 'tile',
+            pack_size: 1,
+            pack_weight_kg: 4.4,
+            quantity: 100,
+            back_order_quantity: 0,
+            reserved_quantity: 0,
+            unit_price: 100,
+            total: 10_000,
+            status: 'asked',
+          })),
+        );
+        for (let i = 0; i < lines.length; i += 500) await trx('order_lines').insert(lines.slice(i, i + 500));
+      }
+    });
+  }
+  await db.raw('analyze');
+  return { branches };
+}
+
+function listen(app: express.Express): Promise<Server> {
+  return new Promise((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+}
+
+/** Signs the desk in over HTTP like a browser does and returns the session cookie. */
+async function signIn(base: string): Promise<string> {
+  const first = await fetch(`${base}/api/auth/csrf`);
+  const cookie = (first.headers.get('set-cookie') ?? '').split(';')[0];
+  const { token } = (await first.json()) as { token: string };
+  const res = await fetch(`${base}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'x-csrf-token': token, cookie },
+    body: JSON.stringify({ email: 'desk@bench.test', password: PASSWORD }),
+  });
+  if (res.status !== 200) throw new Error(`sign-in failed: ${res.status} ${await res.text()}`);
+  return (res.headers.get('set-cookie') ?? cookie).split(';')[0];
+}
+
+function run(url: string, paths: string[], headers: Record<string, string>): Promise<autocannon.Result> {
+  let i = 0;
+  return new Promise((resolve, reject) => {
+    autocannon(
+      {
+        url,
+        connections: CONNECTIONS,
+        duration: SECONDS,
+        headers,
+        requests: [{ setupRequest: (req) => ({ ...req, path: paths[i++ % paths.length] }) }],
+      },
+      (err, result) => (err ? reject(err) : resolve(result)),
+    );
+  });
+}
+
+async function main() {
+  const dir = mkdtempSync(join(tmpdir(), 'ridgeload-bench-'));
+  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '1000' });
+  const db = createDb(config.databaseFile);
+  try {
+    await migrateLatest(db);
+    const t0 = performance.now();
+    const { branches } = await seedBook(db);
+    const count = Number((await db('orders').count({ n: '*' }).first())?.n);
+    console.log(`seeded ${count.toLocaleString('en-GB')} orders (${(count * LINES_PER_ORDER).toLocaleString('en-GB')} lines) in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+
+    const mailer = { send: async () => {}, close: () => {} };
+    const app = createApp({ config, db, mailer, logger: pino({ level: 'silent' }) });
+    const server = await listen(app);
+    const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+    const cookie = await signIn(base);
+
+    const bare = express();
+    bare.get('/bare', (_req, res) => {
+      res.json({ orders: [], total: 0, page: 1, page_size: 25 });
+    });
+    const bareServer = await listen(bare);
+    const bareBase = `http://127.0.0.1:${(bareServer.address() as AddressInfo).port}`;
+
+    // What a desk does all day: open stages at one branch, by delivery day; newest first; a contractor's; a date range.
+    const paths = [
+      `/api/orders?statuses=sent,agreed&branch_id=${branches[0]}&sort=requested_date&dir=asc&page=1&page_size=25`,
+      `/api/orders?status=confirmed&sort=placed_at&dir=desc&page=2&page_size=25`,
+      `/api/orders?branch_id=${branches[1]}&sort=placed_at&dir=desc&page=1&page_size=50`,
+      `/api/orders?statuses=sent,changes_offered,agreed&date_from=2026-03-01&date_to=2026-03-31&sort=requested_date&dir=asc&page=1&page_size=25`,
+      `/api/orders?sort=updated_at&dir=desc&page=3&page_size=25`,
+    ];
+    for (const p of paths) {
+      const res = await fetch(`${base}${p}`, { headers: { cookie } });
+      const body = (await res.json()) as { orders: unknown[]; total: number };
+      if (res.status !== 200 || body.orders.length === 0) throw new Error(`${p} answered ${res.status} with ${body.orders?.length} orders`);
+      console.log(`  ${p.slice(12)} → ${body.total.toLocaleString('en-GB')} matching, ${body.orders.length} on the page`);
+    }
+
+    await run(bareBase, ['/bare'], {}); // warm-up of the load generator itself, not reported
+    const list = await run(base, paths, { cookie });
+    const plain = await run(bareBase, ['/bare'], {});
+    server.close();
+    bareServer.close();
+    server.closeAllConnections();
+    bareServer.closeAllConnections();
+
+    const errors = list.errors + list.non2xx + plain.errors + plain.non2xx;
+    const fmt = (name: string, r: autocannon.Result) =>
+      `${name.padEnd(12)} p50 ${String(r.latency.p50).padStart(4)} ms   p99 ${String(r.latency.p99).padStart(4)} ms   ${Math.round(r.requests.average).toLocaleString('en-GB').padStart(6)} req/s   (${r.requests.total.toLocaleString('en-GB')} requests, ${CONNECTIONS} connections, ${SECONDS} s)`;
+    console.log(fmt('order list', list));
+    console.log(fmt('bare route', plain));
+    const ratio = Math.round((list.latency.p99 / Math.max(plain.latency.p99, 1)) * 100) / 100;
+    console.log(`ratio p99 list/bare ${ratio} (target ≤ ${TARGET_RATIO})${errors ? `; ${errors} errors or non-2xx answers` : ''}`);
+    console.log(
+      JSON.stringify({
+        orders: count,
+        list_p99_ms: list.latency.p99,
+        bare_p99_ms: plain.latency.p99,
+        ratio_p99: ratio,
+        list_rps: Math.round(list.requests.average),
+        bare_rps: Math.round(plain.requests.average),
+      }),
+    );
+    if (process.argv.includes('--check') && (ratio > TARGET_RATIO || errors > 0)) process.exitCode = 1;
+  } finally {
+    await db.destroy();
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+main().catch((err: unknown) => {
+  console.error(err);
+  process.exit(1);
+});
