@@ -10,9 +10,12 @@ import { createDb, migrateLatest, type Db } from '../../server/db/knex';
 import { runSeeds } from '../../server/db/seed-runner';
 import { startDevSmtp } from '../../server/mail/dev-smtp';
 import { createSmtpMailer } from '../../server/mail/mailer';
+import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
 
 export interface E2eServer {
   url: string;
+  /** The local payment fake's address (its hosted card page lives there). */
+  paymentsUrl: string;
   db: Db;
   close: () => Promise<void>;
 }
@@ -26,7 +29,8 @@ export async function startE2eServer(): Promise<E2eServer> {
     throw new Error('The client is not built: run `npm run build` first (npm test does it).');
   }
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-e2e-'));
-  const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '100', RESET_RATE_LIMIT: '100' });
+  const payments = await startDevPayments(loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '100', RESET_RATE_LIMIT: '100' }), 0);
+  const config = payments.config;
   const db = createDb(config.databaseFile);
   await migrateLatest(db);
   await runSeeds(db);
@@ -38,15 +42,18 @@ export async function startE2eServer(): Promise<E2eServer> {
   });
   const { port } = server.address() as AddressInfo;
   const url = `http://127.0.0.1:${port}`;
-  config.appUrl = url; // links in e-mails point at this server
+  config.appUrl = url; // links in e-mails and payment return addresses point at this server
+  payments.fake.setWebhookUrl(`${url}${PAYMENT_WEBHOOK_PATH}`);
   return {
     url,
+    paymentsUrl: payments.fake.url,
     db,
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections?.();
       mailer.close();
       await smtp.close();
+      await payments.fake.close();
       await db.destroy();
       rmSync(dir, { recursive: true, force: true });
     },
