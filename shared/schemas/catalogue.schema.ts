@@ -123,6 +123,9 @@ export const branchRefSchema = z.object({
 });
 export type BranchRef = z.infer<typeof branchRefSchema>;
 
+/** GET /api/merchant-branches: every branch a contractor can order from or ask for a quote. */
+export const merchantBranchesListSchema = z.object({ branches: z.array(branchRefSchema) });
+
 export const systemComponentSchema = z.object({
   role: z.enum(SYSTEM_ROLES),
   product: productSummarySchema,

@@ -458,6 +458,12 @@ export const quoteRequestSchema = z.object({
   created_at: z.string(),
   updated_at: z.string(),
 });
+
+/** POST /api/quotes/:id/accept: the order the quote became, and the request with its other quotes closed. */
+export const acceptQuoteResponseSchema = z.object({
+  order: z.object({ id: z.number().int(), status: z.enum(ORDER_STATUSES), reference: z.string() }),
+  quote_request: quoteRequestSchema,
+});
 export type QuoteRequest = z.infer<typeof quoteRequestSchema>;
 
 export const quoteRequestListSchema = z.object({

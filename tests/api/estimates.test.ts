@@ -4,7 +4,7 @@ import { SAFETY_CAUTIONS } from '../../shared/engine/defaults';
 import { estimate } from '../../shared/engine/estimate';
 import { EXAMPLE_SCHEDULE_CSV } from '../../shared/engine/example-schedule';
 import { ENGINE_VERSION } from '../../shared/engine/version';
-import { roofSystemOfferSchema, systemsListSchema } from '../../shared/schemas/catalogue.schema';
+import { roofSystemOfferSchema, systemsListSchema, merchantBranchesListSchema } from '../../shared/schemas/catalogue.schema';
 import { estimateComparisonSchema, estimateListSchema, estimateSchema } from '../../shared/schemas/estimate.schema';
 import { roofSystemSchema } from '../../shared/schemas/roof-system.schema';
 import { scheduleSchema } from '../../shared/schemas/schedule.schema';
@@ -109,6 +109,7 @@ describe('roof systems offered by merchant branches', () => {
     const { c } = await signedIn();
     const res = await c.get('/api/merchant-branches');
     expect(res.status).toBe(200);
+    merchantBranchesListSchema.parse(res.body);
     const ids = res.body.branches.map((x: { id: number }) => x.id);
     expect(ids).toEqual(expect.arrayContaining([a.branchId, b.branchId]));
     expect(res.body.branches.find((x: { id: number }) => x.id === b.branchId)).toEqual({ id: b.branchId, name: expect.any(String), town: 'Testbury', merchant: { id: b.organisationId, name: expect.any(String) } });

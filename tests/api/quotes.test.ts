@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, kindOfRole } from '../../shared/domain/roles';
-import { quoteRequestListSchema, quoteRequestSchema } from '../../shared/schemas/order.schema';
+import { acceptQuoteResponseSchema, quoteRequestListSchema, quoteRequestSchema } from '../../shared/schemas/order.schema';
 import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
 import { Client, createTestApp, type TestApp } from '../setup/test-app';
 import { makeOrgWithUser, makeUser, TEST_PASSWORD } from '../setup/factories';
@@ -165,6 +165,7 @@ describe('merchants answer and the contractor compares', () => {
 
     const accepted = await k.c.post(`/api/quotes/${quoteFor(a.branchId)}/accept`);
     expect(accepted.status).toBe(201);
+    acceptQuoteResponseSchema.parse(accepted.body);
     expect(accepted.body.order).toMatchObject({ status: 'sent', reference: expect.stringMatching(/^RL-/) });
     const order = (await k.c.get(`/api/orders/${accepted.body.order.id}`)).body;
     expect(order).toMatchObject({ quote_id: quoteFor(a.branchId), branch: { id: a.branchId }, requested_date: inDays(12), time_window: '07:00-11:00', po_reference: 'YC-19' });

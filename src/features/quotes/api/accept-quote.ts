@@ -1,18 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { ORDER_STATUSES, quoteRequestSchema } from '../../../../shared/schemas/order.schema';
+import { acceptQuoteResponseSchema } from '../../../../shared/schemas/order.schema';
 import { apiClient } from '../../../lib/api-client';
 import { quoteKeys } from './keys';
 
-// TODO: use a shared schema for this answer once order.schema.ts exports one.
-const acceptQuoteSchema = z.object({
-  order: z.object({ id: z.number().int(), status: z.enum(ORDER_STATUSES), reference: z.string() }),
-  quote_request: quoteRequestSchema,
-});
-
 /** Accepting one merchant's quote turns it into an order at its prices; the other quotes are closed. */
 export function acceptQuote(quoteId: number) {
-  return apiClient.post(`/api/quotes/${quoteId}/accept`, { schema: acceptQuoteSchema });
+  return apiClient.post(`/api/quotes/${quoteId}/accept`, { schema: acceptQuoteResponseSchema });
 }
 
 export function useAcceptQuote() {

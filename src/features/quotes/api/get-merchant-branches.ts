@@ -1,14 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
-import { branchRefSchema } from '../../../../shared/schemas/catalogue.schema';
+import { merchantBranchesListSchema } from '../../../../shared/schemas/catalogue.schema';
 import { apiClient } from '../../../lib/api-client';
 import { merchantBranchKeys } from './keys';
 
-// TODO: use a shared merchant-branches list schema once catalogue.schema.ts exports one.
-const merchantBranchesSchema = z.object({ branches: z.array(branchRefSchema) });
-
 export function fetchMerchantBranches(signal?: AbortSignal) {
-  return apiClient.get('/api/merchant-branches', { schema: merchantBranchesSchema, signal });
+  return apiClient.get('/api/merchant-branches', { schema: merchantBranchesListSchema, signal });
 }
 
 export function merchantBranchesQueryOptions() {
