@@ -30,6 +30,11 @@ import { AppLayoutRoute } from './routes/app-layout-route';
 import { BranchesRoute } from './routes/branches-route';
 import { ContractorHomeRoute } from './routes/contractor-home-route';
 import { DeskHomeRoute } from './routes/desk-home-route';
+import { DeskOrderRoute } from './routes/desk-order-route';
+import { DeskOrdersRoute } from './routes/desk-orders-route';
+import { CatalogueRoute } from './routes/catalogue-route';
+import { InvoiceRoute } from './routes/invoice-route';
+import { InvoicesRoute } from './routes/invoices-route';
 import { DriverHomeRoute } from './routes/driver-home-route';
 import { ForgotPasswordRoute } from './routes/forgot-password-route';
 import { NotFoundRoute } from './routes/not-found-route';
@@ -73,6 +78,25 @@ function contractorRoutes(queryClient: QueryClient): RouteObject[] {
     page('orders/:orderId/amend', 'orders:place', <AmendOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
     page('quotes', 'orders:place', <QuotesRoute />),
     page('quotes/:requestId', 'orders:place', <QuoteRoute />, ['requestId']),
+  ];
+}
+
+/** The merchant's side: the order book and its orders. */
+function merchantRoutes(queryClient: QueryClient): RouteObject[] {
+  const page = (path: string, action: Parameters<typeof guardedRoute>[1], element: RouteObject['element'], idParams: string[] = [], handle?: RouteObject['handle']): RouteObject => ({
+    path,
+    loader: guardedRoute(queryClient, action, ...idParams),
+    element,
+    errorElement: pageError,
+    ...(handle ? { handle } : {}),
+  });
+  return [
+    page('desk/orders', 'orders:confirm', <DeskOrdersRoute />),
+    page('desk/orders/:orderId', 'orders:confirm', <DeskOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
+    page('catalogue', 'catalogue:read', <CatalogueRoute />),
+    // Both sides: the desk issues and credits, the contractor pays (the card page sends it back here).
+    page('invoices', 'invoices:read', <InvoicesRoute />),
+    page('invoices/:invoiceId', 'invoices:read', <InvoiceRoute />, ['invoiceId']),
   ];
 }
 
@@ -146,6 +170,7 @@ export function appRoutes(queryClient: QueryClient): RouteObject[] {
               errorElement: pageError,
             },
             ...contractorRoutes(queryClient),
+            ...merchantRoutes(queryClient),
           ],
         },
         { path: '*', element: <NotFoundRoute /> },

@@ -3,6 +3,7 @@ import { ROLE_LABELS } from '../../../shared/domain/roles';
 import { SectionBoundary } from '../../components/errors/section-boundary';
 import { PageHeader } from '../../components/ui/page-header';
 import { TextLink } from '../../components/ui/text-link';
+import { WaitingOrders } from '../../features/desk/components/waiting-orders';
 import { BranchList } from '../../features/organisation/components/branch-list';
 import { OrganisationSummary } from '../../features/organisation/components/organisation-summary';
 import { usePageTitle } from '../../lib/use-page-title';
@@ -15,7 +16,10 @@ export function DeskHomeRoute() {
   return (
     <RoleHome role={user.role}>
       <PageHeader title="Order desk" lead={`${organisation.name} · ${user.name}, ${ROLE_LABELS[user.role]}`} />
-      <div className="grid items-start gap-6 lg:grid-cols-[1fr_2fr]">
+      <SectionBoundary name="waiting orders">
+        <WaitingOrders />
+      </SectionBoundary>
+      <div className="mt-6 grid items-start gap-6 lg:grid-cols-[1fr_2fr]">
         <SectionBoundary name="organisation">
           <OrganisationSummary
             title="Your business"

@@ -1,4 +1,5 @@
 import { SectionBoundary } from '../../components/errors/section-boundary';
+import { TodaysLoads } from '../../features/deliveries/components/todays-loads';
 import { BranchList } from '../../features/organisation/components/branch-list';
 import { firstName } from '../../lib/format';
 import { usePageTitle } from '../../lib/use-page-title';
@@ -16,7 +17,10 @@ export function DriverHomeRoute() {
         <h1 className="mt-1 text-3xl font-bold sm:text-4xl">On the road</h1>
         <p className="mt-2 text-lg text-ink-700">Driving for {organisation.name}</p>
       </header>
-      <div className="text-lg">
+      <div className="space-y-8 text-lg">
+        <SectionBoundary name="loads">
+          <TodaysLoads />
+        </SectionBoundary>
         <SectionBoundary name="branches">
           <BranchList title="Your branches" large />
         </SectionBoundary>

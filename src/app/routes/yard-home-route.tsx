@@ -2,6 +2,7 @@ import { ROLE_LABELS } from '../../../shared/domain/roles';
 import { SectionBoundary } from '../../components/errors/section-boundary';
 import { PageHeader } from '../../components/ui/page-header';
 import { TextLink } from '../../components/ui/text-link';
+import { YardBoard } from '../../features/fleet/components/yard-board';
 import { BranchList } from '../../features/organisation/components/branch-list';
 import { TeamSummary } from '../../features/team/components/team-summary';
 import { usePageTitle } from '../../lib/use-page-title';
@@ -14,7 +15,10 @@ export function YardHomeRoute() {
   return (
     <RoleHome role={user.role}>
       <PageHeader title="Yard and transport" lead={`${organisation.name} · ${user.name}, ${ROLE_LABELS[user.role]}`} />
-      <div className="grid items-start gap-6 lg:grid-cols-[2fr_1fr]">
+      <SectionBoundary name="slots and lorries">
+        <YardBoard />
+      </SectionBoundary>
+      <div className="mt-8 grid items-start gap-6 lg:grid-cols-[2fr_1fr]">
         <SectionBoundary name="branches">
           <BranchList title="Branches and yards" />
         </SectionBoundary>

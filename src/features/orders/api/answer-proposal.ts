@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { orderSchema } from '../../../../shared/schemas/order.schema';
+import { orderDetailSchema } from '../../../../shared/schemas/order.schema';
 import { apiClient } from '../../../lib/api-client';
 import { orderKeys } from './keys';
 
@@ -7,7 +7,7 @@ export type ProposalAnswer = 'accept' | 'decline';
 
 /** The contractor's answer to the merchant's offered changes: all of them, or none. */
 export function answerProposal(orderId: number, proposalId: number, answer: ProposalAnswer, note?: string) {
-  return apiClient.post(`/api/orders/${orderId}/proposals/${proposalId}/${answer}`, { body: note ? { note } : {}, schema: orderSchema });
+  return apiClient.post(`/api/orders/${orderId}/proposals/${proposalId}/${answer}`, { body: note ? { note } : {}, schema: orderDetailSchema });
 }
 
 export function useAnswerProposal(orderId: number) {

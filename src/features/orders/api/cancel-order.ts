@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { orderSchema } from '../../../../shared/schemas/order.schema';
+import { orderDetailSchema } from '../../../../shared/schemas/order.schema';
 import { apiClient } from '../../../lib/api-client';
 import { orderKeys } from './keys';
 
 export function cancelOrder(id: number, reason?: string) {
-  return apiClient.post(`/api/orders/${id}/cancel`, { body: reason ? { reason } : {}, schema: orderSchema });
+  return apiClient.post(`/api/orders/${id}/cancel`, { body: reason ? { reason } : {}, schema: orderDetailSchema });
 }
 
 export function useCancelOrder(id: number) {

@@ -1,10 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { orderSchema } from '../../../../shared/schemas/order.schema';
+import { orderDetailSchema } from '../../../../shared/schemas/order.schema';
 import { apiClient } from '../../../lib/api-client';
 import { orderKeys } from './keys';
 
 export function fetchOrder(id: number, signal?: AbortSignal) {
-  return apiClient.get(`/api/orders/${id}`, { schema: orderSchema, signal });
+  return apiClient.get(`/api/orders/${id}`, { schema: orderDetailSchema, signal });
 }
 
 export function orderQueryOptions(id: number) {

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { orderSchema } from '../../../../shared/schemas/order.schema';
+import { orderDetailSchema } from '../../../../shared/schemas/order.schema';
 import type { placeOrderBodySchema } from '../../../../shared/schemas/order.schema';
 import { apiClient } from '../../../lib/api-client';
 import { orderKeys } from './keys';
@@ -8,7 +8,7 @@ import { orderKeys } from './keys';
 export type PlaceOrderValues = z.output<typeof placeOrderBodySchema>;
 
 export function placeOrder(body: PlaceOrderValues) {
-  return apiClient.post('/api/orders', { body, schema: orderSchema });
+  return apiClient.post('/api/orders', { body, schema: orderDetailSchema });
 }
 
 export function usePlaceOrder() {

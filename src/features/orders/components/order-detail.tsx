@@ -2,7 +2,7 @@ import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { CRANE_LIFT_LABELS, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS_LABELS } from '../../../../shared/schemas/project.schema';
 import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
-import type { Order, OrderLine, Proposal } from '../../../../shared/schemas/order.schema';
+import type { Order, OrderDetail as OrderDetailData, OrderLine, Proposal } from '../../../../shared/schemas/order.schema';
 import { Alert, errorMessage } from '../../../components/ui/alert';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -171,7 +171,7 @@ function CancelOrder({ order }: { order: Order }) {
 }
 
 /** One order as the contractor follows it: its stage, what was asked and agreed, the merchant's offers and the history. */
-export function OrderDetail({ order }: { order: Order }) {
+export function OrderDetail({ order }: { order: OrderDetailData }) {
   const openProposals = order.proposals.filter((p) => p.status === 'open');
   const pastProposals = order.proposals.filter((p) => p.status !== 'open');
   const canAmend = order.allowed_actions.includes('amend');
@@ -226,6 +226,41 @@ export function OrderDetail({ order }: { order: Order }) {
               {formatDate(order.requested_date)}
               {order.time_window ? `, ${order.time_window}` : ', any time'}
             </dd>
+            <dt className="text-sm text-ink-600">Booked</dt>
+            <dd data-testid="booked-slot">
+              {order.slot ? (
+                <>
+                  <span className="font-semibold">
+                    {formatDate(order.slot.date)}, {order.slot.time_window}
+                  </span>
+                  <span className="block text-sm">
+                    Lorry {order.slot.lorry.registration}
+                    {order.slot.lorry.has_crane ? ' with crane' : ''}
+                    {order.slot.driver ? `, driver ${order.slot.driver.name}` : ''}
+                  </span>
+                </>
+              ) : (
+                'No delivery slot booked yet'
+              )}
+            </dd>
+            {order.invoice ? (
+              <>
+                <dt className="text-sm text-ink-600">Invoice</dt>
+                <dd>
+                  <Link to={`/invoices/${order.invoice.id}`} className="font-semibold text-clay-700 underline underline-offset-2">
+                    {order.invoice.number}: view and pay
+                  </Link>
+                </dd>
+              </>
+            ) : null}
+            {order.delivery ? (
+              <>
+                <dt className="text-sm text-ink-600">Delivered</dt>
+                <dd>
+                  {formatDateTime(order.delivery.delivered_at)}, taken by {order.delivery.received_by}
+                </dd>
+              </>
+            ) : null}
             <dt className="text-sm text-ink-600">Unloading</dt>
             <dd>{DELIVERY_METHOD_LABELS[order.delivery_method]}</dd>
             <dt className="text-sm text-ink-600">PO reference</dt>

@@ -1,0 +1,51 @@
+import { useState } from 'react';
+import { CATEGORY_LABELS } from '../../../../shared/schemas/catalogue.schema';
+import type { StockItem } from '../../../../shared/schemas/stock.schema';
+import { ErrorAlert } from '../../../components/ui/alert';
+import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
+import { formatMoney } from '../../../lib/format';
+import { useStock } from '../api/get-stock';
+
+const STATE_WORDS: Record<StockItem['state'], string> = { in_stock: 'In stock', low: 'At or below reorder level', out_of_stock: 'None free' };
+
+const h = dataTableColumns<StockItem>();
+const columns = h.columns([
+  h.accessor('sku', { header: 'SKU', sortFn: 'text', cell: (info) => <span className="font-mono text-sm whitespace-nowrap">{info.getValue()}</span> }),
+  h.accessor('name', { header: 'Product', sortFn: 'text', cell: (info) => <span className="block min-w-56 text-sm">{info.getValue()}</span> }),
+  h.accessor('category', { header: 'Kind', sortFn: 'text', cell: (info) => CATEGORY_LABELS[info.getValue()] }),
+  h.accessor('pack_size', { header: 'Pack', sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap tabular-nums">{info.getValue()} {info.row.original.unit}</span> }),
+  h.accessor('pack_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
+  h.accessor('on_hand', { header: 'On hand', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue().toLocaleString('en-GB')}</span> }),
+  h.accessor('reserved', { header: 'Reserved', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue().toLocaleString('en-GB')}</span> }),
+  h.accessor('available', { header: 'Available', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{info.getValue().toLocaleString('en-GB')}</span> }),
+  h.accessor('reorder_level', { header: 'Reorder at', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue().toLocaleString('en-GB')}</span> }),
+  h.accessor('state', {
+    header: 'State',
+    sortFn: 'text',
+    cell: (info) => (
+      <span className={`rounded px-2 py-0.5 text-sm whitespace-nowrap ${info.getValue() === 'in_stock' ? '' : info.getValue() === 'low' ? 'bg-ochre-100 font-semibold text-ochre-800' : 'bg-brick-50 font-semibold text-brick-800'}`}>
+        {STATE_WORDS[info.getValue()]}
+      </span>
+    ),
+  }),
+]);
+
+/** A branch's products with price and stock; those at or below their reorder level stand out. */
+export function StockTable({ branchId }: { branchId: number }) {
+  const stock = useStock(branchId);
+  const [lowOnly, setLowOnly] = useState(false);
+  if (stock.isPending) return <SkeletonBlock label="Loading the stock" lines={6} />;
+  if (stock.isError) return <ErrorAlert error={stock.error} title="The stock could not be loaded" onRetry={() => void stock.refetch()} />;
+  const items = lowOnly ? stock.data.items.filter((i) => i.state !== 'in_stock') : stock.data.items;
+  const low = stock.data.items.filter((i) => i.state !== 'in_stock').length;
+  return (
+    <div className="space-y-3">
+      <label className="flex min-h-tap items-center gap-3">
+        <input type="checkbox" checked={lowOnly} onChange={(e) => setLowOnly(e.target.checked)} className="h-5 w-5" />
+        Only what is at or below its reorder level ({low})
+      </label>
+      <DataTable caption={`Stock at ${stock.data.branch.name}`} captionHidden columns={columns} data={items} getRowId={(i) => String(i.product_id)} minWidthClass="min-w-[72rem]" initialSorting={[{ id: 'sku', desc: false }]} />
+    </div>
+  );
+}

@@ -1,0 +1,113 @@
+import { useMemo, useState } from 'react';
+import type { OrderDetail } from '../../../../shared/schemas/order.schema';
+import type { StockItem } from '../../../../shared/schemas/stock.schema';
+import { Form, SubmitButton } from '../../../components/form/form';
+import { useZodForm } from '../../../components/form/use-zod-form';
+import { useToast } from '../../../components/ui/toast';
+import { useConfirmOrder } from '../api/confirm-order';
+import { confirmFormSchema, confirmableLines, openPacks, sendField, suggestedSend } from '../lib/confirm-form';
+import { ConflictDetails, isDeskConflict } from './conflict-details';
+import { SlotChoices } from './slot-choices';
+
+interface ConfirmOrderFormProps {
+  order: OrderDetail;
+  /** The branch's stock by product id; lines start from what is free when that is less than asked. */
+  stock: ReadonlyMap<number, StockItem>;
+}
+
+/**
+ * Confirming all or part of an order: packs to send now per line (the rest is back-ordered), held
+ * from the branch's stock in one step, and optionally a slot booked at the same time.
+ */
+export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
+  const lines = useMemo(() => confirmableLines(order), [order]);
+  const confirm = useConfirmOrder(order.id);
+  const toast = useToast();
+  const [conflict, setConflict] = useState<unknown>(null);
+  const [sends, setSends] = useState<Record<number, string>>(() => Object.fromEntries(lines.map((l) => [l.id, String(suggestedSend(l, stock.get(l.product_id)?.available))])));
+  const form = useZodForm({
+    schema: confirmFormSchema(lines),
+    onSubmit: async (body) => {
+      setConflict(null);
+      try {
+        const confirmed = await confirm.mutateAsync(body);
+        toast.show(`${confirmed.reference} is confirmed${confirmed.slot ? ` for ${confirmed.slot.date}, ${confirmed.slot.time_window}` : ''}.`, 'success');
+      } catch (error) {
+        if (isDeskConflict(error)) {
+          setConflict(error);
+          return;
+        }
+        throw error;
+      }
+    },
+  });
+  const descriptions = useMemo(() => new Map(order.lines.map((l) => [l.sku, l.description])), [order.lines]);
+  return (
+    <Form form={form} label="Confirm the order">
+      {conflict ? <ConflictDetails error={conflict} descriptions={descriptions} /> : null}
+      <div className="overflow-x-auto rounded-md border border-mortar-300 bg-white" role="region" aria-label="Packs to send" tabIndex={0}>
+        <table className="w-full min-w-[44rem] border-collapse text-left text-sm">
+          <caption className="sr-only">Packs to send now per line</caption>
+          <thead className="bg-mortar-100">
+            <tr>
+              <th scope="col" className="px-3 py-2">Item</th>
+              <th scope="col" className="px-3 py-2 text-right">Open</th>
+              <th scope="col" className="px-3 py-2 text-right">Free at branch</th>
+              <th scope="col" className="px-3 py-2">Send now</th>
+              <th scope="col" className="px-3 py-2 text-right">Back-order</th>
+            </tr>
+          </thead>
+          <tbody>
+            {lines.map((line, i) => {
+              const item = stock.get(line.product_id);
+              const open = openPacks(line);
+              const typed = sends[line.id] ?? '';
+              const send = /^\d+$/.test(typed.trim()) ? Number(typed) : null;
+              const error = form.fieldErrors[sendField(i)];
+              const inputId = `${form.id}-send-${line.id}`;
+              const short = item !== undefined && item.available < open;
+              return (
+                <tr key={line.id} className="border-t border-mortar-200 align-top">
+                  <td className="px-3 py-2">
+                    <label htmlFor={inputId} className="font-medium">
+                      {line.description}
+                    </label>
+                    <span className="block font-mono text-xs text-ink-600">{line.sku}</span>
+                  </td>
+                  <td className="px-3 py-2 text-right tabular-nums">{open}</td>
+                  <td className={`px-3 py-2 text-right tabular-nums ${short ? 'font-semibold text-brick-700' : ''}`}>{item ? item.available : '—'}</td>
+                  <td className="px-3 py-2">
+                    <input
+                      id={inputId}
+                      name={sendField(i)}
+                      inputMode="numeric"
+                      value={typed}
+                      onChange={(event) => {
+                        const value = event.target.value;
+                        setSends((s) => ({ ...s, [line.id]: value }));
+                        form.clearFieldError(sendField(i));
+                      }}
+                      aria-invalid={error ? true : undefined}
+                      aria-describedby={error ? `${inputId}-error` : undefined}
+                      className={`block min-h-tap w-24 rounded-md border bg-white px-2 text-right tabular-nums ${error ? 'border-brick-600' : 'border-ink-300'}`}
+                    />
+                    {error ? (
+                      <p id={`${inputId}-error`} className="mt-1 text-sm font-medium text-brick-700">
+                        {error}
+                      </p>
+                    ) : null}
+                  </td>
+                  <td className="px-3 py-2 text-right tabular-nums" data-testid={`back-order-${line.id}`}>
+                    {send === null || send > open ? '—' : open - send}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      <SlotChoices branchId={order.branch.id} initialDate={order.requested_date} allowNone />
+      <SubmitButton>Confirm and reserve the stock</SubmitButton>
+    </Form>
+  );
+}

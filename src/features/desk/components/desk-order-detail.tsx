@@ -1,0 +1,223 @@
+import { useMemo, useState } from 'react';
+import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
+import { CRANE_LIFT_LABELS, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS_LABELS } from '../../../../shared/schemas/project.schema';
+import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
+import type { OrderDetail } from '../../../../shared/schemas/order.schema';
+import type { StockItem } from '../../../../shared/schemas/stock.schema';
+import { Alert, ErrorAlert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { Card } from '../../../components/ui/card';
+import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
+import { formatDate, formatDateTime, formatMoney } from '../../../lib/format';
+import { useBranchStock } from '../api/get-branch-stock';
+import { ConfirmOrderForm } from './confirm-order-form';
+import { DeskStatusBadge } from './desk-status-badge';
+import { OfferChangesForm } from './offer-changes-form';
+import { OrderComments } from './order-comments';
+import { OrderTimeline } from './order-timeline';
+import { SlotBooking } from './slot-booking';
+import { TurnDownForm } from './turn-down-form';
+
+type DeskLine = OrderDetail['lines'][number] & { available: number | null; reorder_level: number | null };
+
+const LINE_WORDS: Record<OrderDetail['lines'][number]['status'], string> = {
+  asked: 'Asked for',
+  agreed: 'Agreed',
+  part_agreed: 'Part agreed',
+  back_ordered: 'To follow',
+  replaced: 'Replaced',
+  not_available: 'Not available',
+  substitute: 'Substitute',
+};
+
+const h = dataTableColumns<DeskLine>();
+const lineColumns = h.columns([
+  h.accessor('description', {
+    header: 'Item',
+    sortFn: 'text',
+    cell: (info) => (
+      <span className="block min-w-48">
+        <span className="font-medium">{info.getValue()}</span>
+        <span className="block font-mono text-xs text-ink-600">{info.row.original.sku}</span>
+      </span>
+    ),
+  }),
+  h.accessor('quantity', { header: 'Asked', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
+  h.accessor((row) => row.available ?? -1, {
+    id: 'available',
+    header: 'Free at branch',
+    sortFn: 'alphanumeric',
+    cell: (info) => {
+      const { available, reorder_level, quantity, confirmed_quantity } = info.row.original;
+      if (available === null) return '—';
+      const short = available < (confirmed_quantity ?? quantity);
+      const low = reorder_level !== null && available <= reorder_level;
+      return (
+        <span className={`tabular-nums ${short ? 'font-semibold text-brick-700' : low ? 'text-ochre-800' : ''}`}>
+          {available}
+          {short ? ' (short)' : low ? ' (low)' : ''}
+        </span>
+      );
+    },
+  }),
+  h.accessor((row) => row.confirmed_quantity ?? -1, { id: 'confirmed', header: 'Confirmed', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.row.original.confirmed_quantity ?? '—'}</span> }),
+  h.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
+  h.accessor('reserved_quantity', { header: 'Reserved', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
+  h.accessor((row) => row.delivered_quantity ?? -1, { id: 'delivered', header: 'Delivered', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.row.original.delivered_quantity ?? '—'}</span> }),
+  h.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{LINE_WORDS[info.getValue()]}</span> }),
+  h.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
+  h.accessor('total', { header: 'Total', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
+]);
+
+/** The booked delivery, as both sides see it. */
+export function BookedSlot({ slot }: { slot: NonNullable<OrderDetail['slot']> }) {
+  return (
+    <dl className="grid grid-cols-[minmax(7rem,auto)_1fr] gap-x-6 gap-y-1" aria-label="Booked delivery">
+      <dt className="text-sm text-ink-600">Day</dt>
+      <dd className="font-semibold">
+        {formatDate(slot.date)}, {slot.time_window}
+      </dd>
+      <dt className="text-sm text-ink-600">Lorry</dt>
+      <dd>
+        {slot.lorry.registration}
+        {slot.lorry.has_crane ? ' (crane)' : ''}
+      </dd>
+      <dt className="text-sm text-ink-600">Driver</dt>
+      <dd>{slot.driver?.name ?? 'not assigned yet'}</dd>
+      <dt className="text-sm text-ink-600">Load</dt>
+      <dd className="tabular-nums">
+        {Math.round(slot.weight_kg).toLocaleString('en-GB')} kg on {slot.pallets} pallets
+      </dd>
+    </dl>
+  );
+}
+
+type Panel = 'confirm' | 'offer' | 'turn_down';
+
+/** One order as the desk answers it: stock per line, confirm or offer changes, the slot, comments and history. */
+export function DeskOrderDetail({ order, invoiceAction }: { order: OrderDetail; invoiceAction?: ReactNode }) {
+  const stock = useBranchStock(order.branch.id);
+  const stockByProduct = useMemo(() => new Map<number, StockItem>((stock.data?.items ?? []).map((s) => [s.product_id, s])), [stock.data]);
+  const rows = useMemo<DeskLine[]>(
+    () => order.lines.map((l) => ({ ...l, available: stockByProduct.get(l.product_id)?.available ?? null, reorder_level: stockByProduct.get(l.product_id)?.reorder_level ?? null })),
+    [order.lines, stockByProduct],
+  );
+  const can = (action: string) => order.allowed_actions.includes(action);
+  const panels: Panel[] = [...(can('confirm') ? (['confirm'] as const) : []), ...(can('offer_changes') ? (['offer'] as const) : []), ...(can('turn_down') ? (['turn_down'] as const) : [])];
+  const [panel, setPanel] = useState<Panel | null>(null);
+  const shown = panel && panels.includes(panel) ? panel : (panels[0] ?? null);
+  const openProposal = order.proposals.find((p) => p.status === 'open');
+  const bookable = order.status === 'confirmed';
+  return (
+    <div className="space-y-6">
+      <Card>
+        <div className="flex flex-wrap items-center justify-between gap-3">
+          <DeskStatusBadge status={order.status} />
+          <span className="text-sm text-ink-600">
+            {order.contractor.name} · placed {formatDateTime(order.placed_at)} · revision {order.revision}
+          </span>
+        </div>
+        {openProposal ? (
+          <Alert tone="info" className="mt-4" title="Changes offered, waiting for the contractor" live={false}>
+            Offered {formatDateTime(openProposal.proposed_at)}
+            {openProposal.message ? `: ${openProposal.message}` : '.'}
+          </Alert>
+        ) : null}
+        {invoiceAction ? <div className="mt-4 border-t border-mortar-200 pt-4">{invoiceAction}</div> : null}
+      </Card>
+
+      {panels.length > 0 ? (
+        <Card title="Answer the order">
+          <div className="mb-4 flex flex-wrap gap-2" role="group" aria-label="What to do">
+            {panels.map((p) => (
+              <Button key={p} variant={shown === p ? 'primary' : 'secondary'} aria-pressed={shown === p} onClick={() => setPanel(p)}>
+                {p === 'confirm' ? 'Confirm all or part' : p === 'offer' ? 'Offer changes or a substitute' : 'Turn down'}
+              </Button>
+            ))}
+          </div>
+          {stock.isPending ? (
+            <SkeletonBlock label="Loading the branch's stock" lines={3} />
+          ) : stock.isError ? (
+            <ErrorAlert error={stock.error} title="The branch's stock could not be loaded" onRetry={() => void stock.refetch()} />
+          ) : shown === 'confirm' ? (
+            <ConfirmOrderForm key={order.revision} order={order} stock={stockByProduct} />
+          ) : shown === 'offer' ? (
+            <OfferChangesForm key={order.revision} order={order} stock={stock.data.items} onDone={() => setPanel(null)} />
+          ) : shown === 'turn_down' ? (
+            <TurnDownForm orderId={order.id} reference={order.reference} />
+          ) : null}
+        </Card>
+      ) : null}
+
+      <div className="grid items-start gap-6 lg:grid-cols-2">
+        <Card title="Delivery">
+          {order.slot ? <BookedSlot slot={order.slot} /> : <p className="mb-3 text-ink-700">No slot booked yet.</p>}
+          <p className="mt-3 text-sm text-ink-700">
+            Asked for {formatDate(order.requested_date)}
+            {order.time_window ? `, ${order.time_window}` : ', any time'} · {DELIVERY_METHOD_LABELS[order.delivery_method]}
+            {order.po_reference ? ` · PO ${order.po_reference}` : ''}
+          </p>
+          {order.notes ? <p className="mt-2 whitespace-pre-line text-sm">{order.notes}</p> : null}
+          {order.delivery ? (
+            <p className="mt-3 font-medium">
+              Delivered {formatDateTime(order.delivery.delivered_at)}, taken by {order.delivery.received_by}
+              {order.delivery.notes ? ` — ${order.delivery.notes}` : ''}
+            </p>
+          ) : null}
+          {bookable ? (
+            <div className="mt-4 border-t border-mortar-200 pt-4">
+              <SlotBooking order={order} />
+            </div>
+          ) : null}
+        </Card>
+        <Card title="Site">
+          <dl className="grid grid-cols-[minmax(7rem,auto)_1fr] gap-x-6 gap-y-2">
+            <dt className="text-sm text-ink-600">Site</dt>
+            <dd>
+              {order.site.name}
+              <span className="block">
+                {order.site.site_address}
+                {order.site.site_postcode ? `, ${order.site.site_postcode}` : ''}
+              </span>
+            </dd>
+            <dt className="text-sm text-ink-600">Contact</dt>
+            <dd>
+              {order.site.contact_name || '—'} {order.site.contact_phone}
+            </dd>
+            <dt className="text-sm text-ink-600">Access</dt>
+            <dd>
+              {VEHICLE_ACCESS_LABELS[order.site.vehicle_access]}; {CRANE_LIFT_LABELS[order.site.crane_lift]}; {OVERHEAD_LINES_LABELS[order.site.overhead_lines]}
+            </dd>
+            <dt className="text-sm text-ink-600">Set-down</dt>
+            <dd>{order.site.set_down_place || '—'}</dd>
+            <dt className="text-sm text-ink-600">Notes</dt>
+            <dd className="whitespace-pre-line">{order.site.access_notes || '—'}</dd>
+          </dl>
+        </Card>
+      </div>
+
+      <Card title="Lines">
+        <DataTable caption="Lines of the order" captionHidden columns={lineColumns} data={rows} getRowId={(line) => String(line.id)} minWidthClass="min-w-[64rem]" />
+        <p className="mt-3 text-right text-lg">
+          Subtotal: <span className="font-bold tabular-nums">{formatMoney(order.subtotal)}</span>
+        </p>
+      </Card>
+
+      <div className="grid items-start gap-6 lg:grid-cols-2">
+        <Card title="Comments">
+          <OrderComments orderId={order.id} comments={order.comments} />
+        </Card>
+        <Card title="History">
+          <OrderTimeline events={order.timeline} />
+        </Card>
+      </div>
+      <p>
+        <Link to="/desk/orders" className="text-clay-700 underline underline-offset-2">
+          Back to the order book
+        </Link>
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,40 @@
+import { commentBodySchema } from '../../../../shared/schemas/order.schema';
+import type { OrderComment } from '../../../../shared/schemas/order.schema';
+import { Form, SubmitButton, TextField } from '../../../components/form/form';
+import { useZodForm } from '../../../components/form/use-zod-form';
+import { formatDateTime } from '../../../lib/format';
+import { useAddComment } from '../api/add-comment';
+
+/** Comments between the desk and the contractor, oldest first; the other side's are set apart. */
+export function OrderComments({ orderId, comments }: { orderId: number; comments: readonly OrderComment[] }) {
+  const add = useAddComment(orderId);
+  const form = useZodForm({
+    schema: commentBodySchema,
+    onSubmit: async ({ body }, { reset }) => {
+      await add.mutateAsync(body);
+      reset();
+    },
+  });
+  return (
+    <div className="space-y-4">
+      {comments.length === 0 ? (
+        <p className="text-ink-600">No comments yet.</p>
+      ) : (
+        <ol className="space-y-3" aria-label="Comments, oldest first">
+          {comments.map((c) => (
+            <li key={c.id} className={`rounded-md border px-3 py-2 ${c.side === 'merchant' ? 'border-mortar-300 bg-white' : 'ml-6 border-ochre-500 bg-ochre-50'}`}>
+              <p className="whitespace-pre-line">{c.body}</p>
+              <p className="mt-1 text-sm text-ink-600">
+                {c.author.name}, {c.author.organisation.name} · {formatDateTime(c.at)}
+              </p>
+            </li>
+          ))}
+        </ol>
+      )}
+      <Form form={form} label="Add a comment" className="space-y-3">
+        <TextField name="body" label="Comment" maxLength={2000} />
+        <SubmitButton>Add the comment</SubmitButton>
+      </Form>
+    </div>
+  );
+}

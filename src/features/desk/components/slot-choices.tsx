@@ -1,0 +1,74 @@
+import { useId, useState } from 'react';
+import { ErrorAlert } from '../../../components/ui/alert';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
+import { formatDate } from '../../../lib/format';
+import { useBranchSlots } from '../api/get-branch-slots';
+
+const kg = (value: number) => `${Math.round(value).toLocaleString('en-GB')} kg`;
+
+interface SlotChoicesProps {
+  branchId: number;
+  /** The day to show first: the day the contractor asked for. */
+  initialDate: string;
+  /** Offer "book later" as the first choice (confirming without a slot). */
+  allowNone?: boolean;
+  currentSlotId?: number | null;
+}
+
+/**
+ * The branch's slots on a day, with what each lorry can still carry, as radio choices named
+ * slot_id. The server checks this order's own weight and pallets when it books.
+ */
+export function SlotChoices({ branchId, initialDate, allowNone = false, currentSlotId = null }: SlotChoicesProps) {
+  const dateId = useId();
+  const [date, setDate] = useState(initialDate);
+  const slots = useBranchSlots(branchId, date);
+  return (
+    <fieldset className="space-y-3">
+      <legend className="font-semibold">Delivery slot</legend>
+      <div>
+        <label htmlFor={dateId} className="mb-1.5 block font-medium">
+          Day
+        </label>
+        <input id={dateId} type="date" value={date} onChange={(event) => setDate(event.target.value)} className="block min-h-tap rounded-md border border-ink-300 bg-white px-3" />
+      </div>
+      {allowNone ? (
+        <label className="flex min-h-tap items-center gap-3">
+          <input type="radio" name="slot_id" value="" defaultChecked className="h-5 w-5" />
+          <span>Book a slot later</span>
+        </label>
+      ) : null}
+      {slots.isPending && slots.fetchStatus !== 'idle' ? (
+        <SkeletonBlock label="Loading the slots" lines={2} />
+      ) : slots.isError ? (
+        <ErrorAlert error={slots.error} title="The slots could not be loaded" onRetry={() => void slots.refetch()} />
+      ) : slots.data && slots.data.slots.length === 0 ? (
+        <p className="text-ink-600">No slots at this branch on {formatDate(date)}. Try another day.</p>
+      ) : slots.data ? (
+        <ul className="space-y-2" aria-label={`Slots on ${formatDate(date)}`}>
+          {slots.data.slots.map((slot) => {
+            const full = slot.remaining_pallets <= 0 || slot.remaining_kg <= 0;
+            return (
+              <li key={slot.id}>
+                <label className={`flex min-h-tap items-start gap-3 rounded-md border px-3 py-2 ${full ? 'border-mortar-200 bg-mortar-50 text-ink-600' : 'border-mortar-300 bg-white'}`}>
+                  <input type="radio" name="slot_id" value={slot.id} defaultChecked={slot.id === currentSlotId} disabled={full && slot.id !== currentSlotId} className="mt-1 h-5 w-5" />
+                  <span>
+                    <span className="font-semibold">
+                      {slot.time_window} · {slot.lorry.registration}
+                    </span>{' '}
+                    <span className="text-sm">{slot.lorry.name}{slot.lorry.has_crane ? `, crane up to ${kg(slot.lorry.crane_max_kg ?? 0)}` : ', no crane'}</span>
+                    <span className="block text-sm tabular-nums">
+                      {kg(slot.remaining_kg)} of {kg(slot.payload_kg)} left · {slot.remaining_pallets} of {slot.pallet_slots} pallet slots left
+                      {slot.driver ? ` · driver ${slot.driver.name}` : ' · no driver yet'}
+                      {full ? ' · full' : ''}
+                    </span>
+                  </span>
+                </label>
+              </li>
+            );
+          })}
+        </ul>
+      ) : null}
+    </fieldset>
+  );
+}

@@ -1,0 +1,140 @@
+import { useId, useState } from 'react';
+import type { Slot } from '../../../../shared/schemas/slot.schema';
+import { ErrorAlert, errorMessage } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
+import { useToast } from '../../../components/ui/toast';
+import { formatDate } from '../../../lib/format';
+import { useAssignDriver } from '../api/assign-driver';
+import { useDispatchOrder } from '../api/dispatch-order';
+import { useDrivers } from '../api/get-drivers';
+import { useSlotDay } from '../api/get-slot-day';
+
+const kg = (value: number) => `${Math.round(value).toLocaleString('en-GB')} kg`;
+const pct = (used: number, of: number) => (of > 0 ? Math.min(100, Math.round((used / of) * 100)) : 0);
+
+function Capacity({ label, used, of, text }: { label: string; used: number; of: number; text: string }) {
+  return (
+    <div>
+      <div className="flex justify-between text-sm">
+        <span>{label}</span>
+        <span className="tabular-nums">{text}</span>
+      </div>
+      <div className="h-2 rounded bg-mortar-200" role="meter" aria-label={label} aria-valuemin={0} aria-valuemax={of} aria-valuenow={used}>
+        <div className={`h-2 rounded ${pct(used, of) >= 100 ? 'bg-brick-600' : 'bg-moss-600'}`} style={{ width: `${pct(used, of)}%` }} />
+      </div>
+    </div>
+  );
+}
+
+function SlotRow({ slot, drivers }: { slot: Slot; drivers: { id: number; name: string }[] }) {
+  const assign = useAssignDriver();
+  const dispatch = useDispatchOrder();
+  const toast = useToast();
+  const selectId = useId();
+  return (
+    <li className="space-y-3 rounded-md border border-mortar-300 bg-white p-4">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h3 className="font-semibold">
+          {slot.time_window} · {slot.lorry.registration} <span className="font-normal text-ink-700">{slot.lorry.name}{slot.lorry.has_crane ? `, crane ${kg(slot.lorry.crane_max_kg ?? 0)}` : ''}</span>
+        </h3>
+        <div className="flex items-center gap-2">
+          <label htmlFor={selectId} className="text-sm font-medium">
+            Driver
+          </label>
+          <select
+            id={selectId}
+            value={slot.driver?.id ?? ''}
+            disabled={assign.isPending}
+            onChange={(e) =>
+              assign.mutate(
+                { slotId: slot.id, driverId: e.target.value ? Number(e.target.value) : null },
+                { onSuccess: () => toast.show('Driver assigned.', 'success'), onError: (error) => toast.show(errorMessage(error), 'danger') },
+              )
+            }
+            className="block min-h-tap rounded-md border border-ink-300 bg-white px-2"
+          >
+            <option value="">No driver</option>
+            {drivers.map((d) => (
+              <option key={d.id} value={d.id}>
+                {d.name}
+              </option>
+            ))}
+          </select>
+        </div>
+      </div>
+      <div className="grid gap-3 sm:grid-cols-2">
+        <Capacity label="Payload" used={slot.booked_kg} of={slot.payload_kg} text={`${kg(slot.booked_kg)} of ${kg(slot.payload_kg)}`} />
+        <Capacity label="Pallet slots" used={slot.booked_pallets} of={slot.pallet_slots} text={`${slot.booked_pallets} of ${slot.pallet_slots}`} />
+      </div>
+      {slot.bookings.length > 0 ? (
+        <ul className="divide-y divide-mortar-200" aria-label={`Orders on ${slot.lorry.registration} ${slot.time_window}`}>
+          {slot.bookings.map((b) => (
+            <li key={b.order_id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+              <span>
+                <span className="font-semibold">{b.reference}</span> · {b.contractor.name} · {b.site_name} · {kg(b.weight_kg)}, {b.pallets} pallets{b.delivery_method === 'roof' ? ' · crane onto the roof' : ''}
+                <span className="ml-2 text-sm text-ink-600">{b.status.replace(/_/g, ' ')}</span>
+              </span>
+              {b.status === 'confirmed' ? (
+                <Button
+                  variant="secondary"
+                  busy={dispatch.isPending && dispatch.variables === b.order_id}
+                  onClick={() =>
+                    dispatch.mutate(b.order_id, { onSuccess: () => toast.show(`${b.reference} is on the road.`, 'success'), onError: (error) => toast.show(errorMessage(error), 'danger') })
+                  }
+                >
+                  Send out
+                </Button>
+              ) : null}
+            </li>
+          ))}
+        </ul>
+      ) : (
+        <p className="text-sm text-ink-600">Nothing booked.</p>
+      )}
+    </li>
+  );
+}
+
+const today = () => new Date().toISOString().slice(0, 10);
+
+/** A branch's slots on a day: what each lorry carries, who drives it, and sending the loads out. */
+export function SlotCalendar({ branchId }: { branchId: number }) {
+  const dateId = useId();
+  const [date, setDate] = useState(today);
+  const slots = useSlotDay(branchId, date);
+  const drivers = useDrivers();
+  const shift = (days: number) => setDate((d) => new Date(Date.parse(`${d}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10));
+  return (
+    <section aria-label="Slot calendar" className="space-y-4">
+      <div className="flex flex-wrap items-end gap-2">
+        <Button variant="secondary" onClick={() => shift(-1)}>
+          Day before
+        </Button>
+        <div>
+          <label htmlFor={dateId} className="mb-1 block text-sm font-medium">
+            Day
+          </label>
+          <input id={dateId} type="date" value={date} onChange={(e) => setDate(e.target.value)} className="block min-h-tap rounded-md border border-ink-300 bg-white px-3" />
+        </div>
+        <Button variant="secondary" onClick={() => shift(1)}>
+          Day after
+        </Button>
+      </div>
+      {slots.isPending ? (
+        <SkeletonBlock label="Loading the slots" lines={4} />
+      ) : slots.isError ? (
+        <ErrorAlert error={slots.error} title="The slots could not be loaded" onRetry={() => void slots.refetch()} />
+      ) : slots.data.slots.length === 0 ? (
+        <EmptyState title={`No slots on ${formatDate(date)}`}>Lorries have no slots in the calendar that day.</EmptyState>
+      ) : (
+        <ul className="space-y-3">
+          {slots.data.slots.map((slot) => (
+            <SlotRow key={slot.id} slot={slot} drivers={drivers.data?.drivers ?? []} />
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,40 @@
+import { useId, useState } from 'react';
+import { Card } from '../../../components/ui/card';
+import { ErrorAlert } from '../../../components/ui/alert';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
+import { useYardBranches } from '../api/get-yard-branches';
+import { LorriesTable } from './lorries-table';
+import { SlotCalendar } from './slot-calendar';
+
+/** The dispatcher's board: one branch at a time, its slot calendar and its lorries. */
+export function YardBoard() {
+  const branches = useYardBranches();
+  const branchId = useId();
+  const [chosen, setChosen] = useState<number | null>(null);
+  if (branches.isPending) return <SkeletonBlock label="Loading the branches" lines={3} />;
+  if (branches.isError) return <ErrorAlert error={branches.error} title="The branches could not be loaded" onRetry={() => void branches.refetch()} />;
+  const current = chosen ?? branches.data[0]?.id ?? null;
+  if (current === null) return <p>No branches yet.</p>;
+  return (
+    <div className="space-y-6">
+      <div>
+        <label htmlFor={branchId} className="mb-1 block font-medium">
+          Branch
+        </label>
+        <select id={branchId} value={current} onChange={(e) => setChosen(Number(e.target.value))} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
+          {branches.data.map((b) => (
+            <option key={b.id} value={b.id}>
+              {b.name}, {b.town}
+            </option>
+          ))}
+        </select>
+      </div>
+      <Card title="Delivery slots">
+        <SlotCalendar key={current} branchId={current} />
+      </Card>
+      <Card title="Lorries">
+        <LorriesTable branchId={current} />
+      </Card>
+    </div>
+  );
+}
