@@ -67,7 +67,7 @@ async function placeOrderAsEstimator(page: Page, date: string): Promise<Placed> 
 }
 
 describe('the demo desk confirms the order the demo estimator placed', () => {
-  it('the estimator orders, the desk confirms it into a lorry slot, the estimator sees the slot; once delivered the desk invoices it', async () => {
+  it('the estimator orders, the desk confirms it into a lorry slot, the estimator sees the slot; once delivered the desk invoices it and the estimator pays by card', async () => {
     const date = nextWorkingDay();
     const estimatorContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const deskContext = await browser.newContext({ viewport: { width: 1440, height: 900 } });
@@ -166,6 +166,12 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       await stockTable.waitFor();
       expect(await stockTable.getByRole('row').count()).toBeGreaterThan(1);
 
+      // This firm has account terms with the merchant; the desk takes them off so this invoice is paid by card.
+      const me = (await (await estimator.request.get(`${server.url}/api/auth/me`)).json()) as { organisation: { id: number } };
+      const deskToken = ((await (await desk.request.get(`${server.url}/api/auth/csrf`)).json()) as { token: string }).token;
+      const offAccount = await desk.request.delete(`${server.url}/api/accounts/${me.organisation.id}`, { headers: { 'X-CSRF-Token': deskToken } });
+      expect([200, 204]).toContain(offAccount.status());
+
       // The desk invoices what was delivered.
       await desk.goto(`${server.url}/desk/orders/${placed.id}`);
       await desk.getByRole('button', { name: 'Issue the invoice for what was delivered' }).click();
@@ -199,6 +205,20 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       await estimator.waitForURL(new RegExp(`/invoices/${invoiceId}$`));
       await estimator.getByRole('heading', { level: 1, name: `Invoice ${invoiceNumber}` }).waitFor();
       expect(await estimator.getByTestId('invoice-balance').innerText()).toMatch(/^£[\d,]+\.\d{2}$/);
+
+      // …and pays it by card on the payment service's own page (the local fake): the card number never
+      // reaches Ridgeload. 4242 4242 4242 4242 is the payment service's published always-succeeds test card.
+      await estimator.getByRole('button', { name: /^Pay £[\d,]+\.\d{2} by card$/ }).click();
+      await estimator.waitForURL((url) => url.href.startsWith(server.paymentsUrl));
+      await estimator.getByLabel('Card number').fill('4242 4242 4242 4242');
+      await estimator.getByLabel('Expiry (MM/YY)').fill('12/30');
+      await estimator.getByLabel('Security code').fill('123');
+      await estimator.getByRole('button', { name: /^Pay / }).click();
+      await estimator.waitForURL(new RegExp(`/invoices/${invoiceId}\\?payment=done`));
+      await estimator.getByText('Payment received').waitFor({ timeout: 20_000 });
+      const paid = (await (await estimator.request.get(`${server.url}/api/invoices/${invoiceId}`)).json()) as { balance: number; payments: { status: string; amount: number }[] };
+      expect(paid.balance).toBe(0);
+      expect(paid.payments.filter((pay) => pay.status === 'succeeded').map((pay) => pay.amount)).toEqual([invoice.total]);
 
       expect(failures).toEqual([]);
     } finally {
