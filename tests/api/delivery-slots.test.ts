@@ -3,8 +3,9 @@ import { ROLES, kindOfRole } from '../../shared/domain/roles';
 import { orderDetailSchema } from '../../shared/schemas/order.schema';
 import { loadingSheetSchema, slotDaySchema } from '../../shared/schemas/slot.schema';
 import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
-import { Client, createTestApp, type TestApp } from '../setup/test-app';
-import { makeOrgWithUser, makeUser, TEST_PASSWORD } from '../setup/factories';
+import { createTestApp, type TestApp } from '../setup/test-app';
+import { GABLE_CSV as GABLE, inDays, signIn } from '../setup/scenario';
+import { makeOrgWithUser, makeUser } from '../setup/factories';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -13,8 +14,6 @@ beforeAll(async () => {
 afterAll(async () => t.close());
 
 const [TOLLERBECK] = DEMO_CATALOGUES;
-const GABLE = ['building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top', 'House,Front,1,40,5000,8000,verge,verge,ridge', 'House,Back,1,40,5000,8000,verge,verge,ridge', ''].join('\n');
-const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 const DAY = inDays(3);
 
 // A full pallet of this tile: 180 tiles × 4.4 kg + a 25 kg timber pallet = 817 kg
@@ -22,11 +21,7 @@ const DAY = inDays(3);
 const TILES_PER_PALLET = 180;
 const FULL_PALLET_KG = Math.round((180 * 4.4 + 25) * 10) / 10; // 817 kg
 
-async function login(email: string) {
-  const c = new Client(t.app);
-  expect((await c.login(email, TEST_PASSWORD)).status).toBe(200);
-  return c;
-}
+const login = (email: string) => signIn(t.app, email);
 
 async function merchant() {
   const owner = await makeOrgWithUser(t.db, 'merchant', 'merchant_owner');

@@ -6,8 +6,9 @@ import { ROLES, kindOfRole } from '../../shared/domain/roles';
 import { invoiceSchema } from '../../shared/schemas/invoice.schema';
 import { startPaymentResultSchema } from '../../shared/schemas/payment.schema';
 import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
-import { Client, createTestApp, type TestApp } from '../setup/test-app';
-import { makeOrgWithUser, makeUser, TEST_PASSWORD } from '../setup/factories';
+import { createTestApp, type TestApp } from '../setup/test-app';
+import { GABLE_CSV as GABLE, inDays, signIn } from '../setup/scenario';
+import { makeOrgWithUser, makeUser } from '../setup/factories';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -16,19 +17,13 @@ beforeAll(async () => {
 afterAll(async () => t.close());
 
 const [TOLLERBECK] = DEMO_CATALOGUES;
-const GABLE = ['building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top', 'House,Front,1,40,5000,8000,verge,verge,ridge', 'House,Back,1,40,5000,8000,verge,verge,ridge', ''].join('\n');
-const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 const today = () => new Date().toISOString().slice(0, 10);
 
 // The provider's published test cards: 4242… succeeds, 4000 0000 0000 0002 is a generic decline.
 const CARD_OK = '4242 4242 4242 4242';
 const CARD_DECLINED = '4000 0000 0000 0002';
 
-async function login(email: string) {
-  const c = new Client(t.app);
-  expect((await c.login(email, TEST_PASSWORD)).status).toBe(200);
-  return c;
-}
+const login = (email: string) => signIn(t.app, email);
 
 async function merchant() {
   const owner = await makeOrgWithUser(t.db, 'merchant', 'merchant_owner');

@@ -4,8 +4,9 @@ import { ROLES, kindOfRole } from '../../shared/domain/roles';
 import { productSchema, merchantRoofSystemListSchema } from '../../shared/schemas/price-list.schema';
 import { stockListSchema } from '../../shared/schemas/stock.schema';
 import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
-import { Client, createTestApp, type TestApp } from '../setup/test-app';
-import { makeOrgWithUser, makeUser, TEST_PASSWORD } from '../setup/factories';
+import { type Client, createTestApp, type TestApp } from '../setup/test-app';
+import { signIn } from '../setup/scenario';
+import { makeOrgWithUser, makeUser } from '../setup/factories';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -15,11 +16,7 @@ afterAll(async () => t.close());
 
 const [TOLLERBECK] = DEMO_CATALOGUES;
 
-async function login(email: string) {
-  const c = new Client(t.app);
-  expect((await c.login(email, TEST_PASSWORD)).status).toBe(200);
-  return c;
-}
+const login = (email: string) => signIn(t.app, email);
 
 async function merchant() {
   const owner = await makeOrgWithUser(t.db, 'merchant', 'merchant_owner');

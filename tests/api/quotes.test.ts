@@ -2,8 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, kindOfRole } from '../../shared/domain/roles';
 import { acceptQuoteResponseSchema, quoteRequestListSchema, quoteRequestSchema } from '../../shared/schemas/order.schema';
 import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
-import { Client, createTestApp, type TestApp } from '../setup/test-app';
-import { makeOrgWithUser, makeUser, TEST_PASSWORD } from '../setup/factories';
+import { createTestApp, type TestApp } from '../setup/test-app';
+import { GABLE_CSV as GABLE, inDays, signIn } from '../setup/scenario';
+import { makeOrgWithUser, makeUser } from '../setup/factories';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -12,19 +13,8 @@ beforeAll(async () => {
 afterAll(async () => t.close());
 
 const [TOLLERBECK, CADDONMERE] = DEMO_CATALOGUES;
-const GABLE = [
-  'building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top',
-  'House,Front,1,40,5000,8000,verge,verge,ridge',
-  'House,Back,1,40,5000,8000,verge,verge,ridge',
-  '',
-].join('\n');
-const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
-async function login(email: string) {
-  const c = new Client(t.app);
-  expect((await c.login(email, TEST_PASSWORD)).status).toBe(200);
-  return c;
-}
+const login = (email: string) => signIn(t.app, email);
 
 async function merchant(catalogue = TOLLERBECK) {
   const owner = await makeOrgWithUser(t.db, 'merchant', 'merchant_owner');
