@@ -5,6 +5,7 @@ import { ROLES_BY_KIND } from '../../shared/domain/roles';
 import { RootErrorPage, RouteErrorPage } from '../components/errors/route-error-page';
 import { PageLoading } from '../components/ui/page-loading';
 import { redirectIfSignedIn, requireAction, requireHomeOf, requireSession, rootRedirect } from './route-guards';
+import { AccountsRoute } from './routes/accounts-route';
 import { AcceptInvitationRoute } from './routes/accept-invitation-route';
 import { AmendOrderRoute } from './routes/amend-order-route';
 import { EstimateCaution, FaceDrawingCaution, NewEstimateCaution, OrderCaution, PlaceOrderCaution } from './routes/cautions';
@@ -32,10 +33,13 @@ import { ContractorHomeRoute } from './routes/contractor-home-route';
 import { DeskHomeRoute } from './routes/desk-home-route';
 import { DeskOrderRoute } from './routes/desk-order-route';
 import { DeskOrdersRoute } from './routes/desk-orders-route';
+import { DeskQuoteRoute } from './routes/desk-quote-route';
+import { DeskQuotesRoute } from './routes/desk-quotes-route';
 import { CatalogueRoute } from './routes/catalogue-route';
 import { InvoiceRoute } from './routes/invoice-route';
 import { InvoicesRoute } from './routes/invoices-route';
 import { DriverHomeRoute } from './routes/driver-home-route';
+import { FleetRoute } from './routes/fleet-route';
 import { ForgotPasswordRoute } from './routes/forgot-password-route';
 import { NotFoundRoute } from './routes/not-found-route';
 import { OrganisationRoute } from './routes/organisation-route';
@@ -93,10 +97,14 @@ function merchantRoutes(queryClient: QueryClient): RouteObject[] {
   return [
     page('desk/orders', 'orders:confirm', <DeskOrdersRoute />),
     page('desk/orders/:orderId', 'orders:confirm', <DeskOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
+    page('desk/quotes', 'orders:confirm', <DeskQuotesRoute />),
+    page('desk/quotes/:requestId', 'orders:confirm', <DeskQuoteRoute />, ['requestId']),
+    page('fleet', 'fleet:manage', <FleetRoute />),
     page('catalogue', 'catalogue:read', <CatalogueRoute />),
     // Both sides: the desk issues and credits, the contractor pays (the card page sends it back here).
     page('invoices', 'invoices:read', <InvoicesRoute />),
     page('invoices/:invoiceId', 'invoices:read', <InvoiceRoute />, ['invoiceId']),
+    page('accounts', 'accounts:manage', <AccountsRoute />),
   ];
 }
 

@@ -1,0 +1,85 @@
+import { useMemo } from 'react';
+import type { Lorry } from '../../../../shared/schemas/fleet.schema';
+import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
+import { useZodForm } from '../../../components/form/use-zod-form';
+import { useToast } from '../../../components/ui/toast';
+import { useCreateSlot, useGenerateSlots } from '../api/create-slots';
+import { useDrivers } from '../api/get-drivers';
+import { generateFormSchema, lorryChoiceField, slotFormSchema, WEEKDAYS, weekdayField } from '../lib/slot-forms';
+
+const lorryLabel = (l: Lorry) => `${l.registration}${l.name ? ` · ${l.name}` : ''}`;
+
+/** One extra slot for one lorry on one day (a Saturday run, a second afternoon). */
+export function CreateSlotForm({ branchId, lorries }: { branchId: number; lorries: readonly Lorry[] }) {
+  const create = useCreateSlot(branchId);
+  const drivers = useDrivers();
+  const toast = useToast();
+  const form = useZodForm({
+    schema: slotFormSchema,
+    onSubmit: async (body) => {
+      const slot = await create.mutateAsync(body);
+      toast.show(`Slot added: ${slot.lorry.registration}, ${slot.date} ${slot.time_window}.`, 'success');
+    },
+  });
+  return (
+    <Form form={form} label="Add one slot">
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField name="lorry_id" label="Lorry" options={lorries.map((l) => ({ value: String(l.id), label: lorryLabel(l) }))} />
+        <TextField name="date" type="date" label="Day" />
+        <TextField name="time_window" label="Time window" hint="HH:MM-HH:MM, e.g. 07:30-12:00" autoComplete="off" />
+        <SelectField
+          name="driver_id"
+          label="Driver (optional)"
+          options={[{ value: '', label: 'Not yet' }, ...(drivers.data?.drivers ?? []).map((d) => ({ value: String(d.id), label: d.name }))]}
+        />
+      </div>
+      <SubmitButton>Add the slot</SubmitButton>
+    </Form>
+  );
+}
+
+/** A calendar of slots for a run of days: every window for each chosen lorry on each chosen weekday. */
+export function GenerateSlotsForm({ branchId, lorries }: { branchId: number; lorries: readonly Lorry[] }) {
+  const generate = useGenerateSlots(branchId);
+  const toast = useToast();
+  const schema = useMemo(() => generateFormSchema(lorries.map((l) => l.id)), [lorries]);
+  const form = useZodForm({
+    schema,
+    onSubmit: async (body) => {
+      const result = await generate.mutateAsync(body);
+      toast.show(`${result.created} slots made${result.skipped ? `, ${result.skipped} already there` : ''}.`, 'success');
+    },
+  });
+  return (
+    <Form form={form} label="Make slots for a run of days">
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField name="from" type="date" label="First day" />
+        <TextField name="to" type="date" label="Last day" hint="At most 62 days after the first." />
+      </div>
+      <TextField name="windows" label="Time windows" hint="Comma between windows, e.g. 07:30-12:00, 12:30-16:30" autoComplete="off" />
+      <fieldset>
+        <legend className="mb-1.5 font-medium text-ink-900">Weekdays</legend>
+        <div className="flex flex-wrap gap-3">
+          {WEEKDAYS.map((w) => (
+            <label key={w.day} className="flex min-h-tap cursor-pointer items-center gap-2">
+              <input type="checkbox" name={weekdayField(w.day)} defaultChecked={w.day <= 5} className="h-5 w-5 accent-clay-600" />
+              {w.label}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      <fieldset>
+        <legend className="mb-1.5 font-medium text-ink-900">Lorries (none ticked: every lorry of the branch)</legend>
+        <div className="flex flex-wrap gap-3">
+          {lorries.map((l) => (
+            <label key={l.id} className="flex min-h-tap cursor-pointer items-center gap-2">
+              <input type="checkbox" name={lorryChoiceField(l.id)} className="h-5 w-5 accent-clay-600" />
+              {lorryLabel(l)}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      <SubmitButton>Make the slots</SubmitButton>
+    </Form>
+  );
+}
