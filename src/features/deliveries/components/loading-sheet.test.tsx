@@ -39,6 +39,7 @@ function sheet(status = 'on_the_road'): LoadingSheetData {
             pallets: [
               { load_position: 2, n: 1, kind: 'tiles', weight_kg: 1080, tiles: 240, faces: [{ building: 'Alder', face: 'Front', tiles: 240 }], items: [] },
               { load_position: 1, n: 2, kind: 'tiles', weight_kg: 1070, tiles: 238, faces: [{ building: 'Alder', face: 'Rear', tiles: 200 }, { building: 'spare', face: '', tiles: 38 }], items: [] },
+              { load_position: 3, n: 3, kind: 'accessories', weight_kg: 96, tiles: 0, faces: [], items: [{ item: 'ridge_tiles', quantity: 24, weight_kg: 96 }] },
             ],
             lines: [{ line_id: 101, sku: 'TRS-FL420-SG', description: 'Interlocking tile, slate grey', unit: 'pack', quantity: 2 }],
             notes: ['Set down: Hardstanding by the cabin'],
@@ -54,7 +55,9 @@ describe('LoadingSheet', () => {
   it('lists the pallets in loading order with the roof faces each serves, and the cautions', () => {
     renderWithProviders(<LoadingSheet sheet={sheet()} />);
     const pallets = screen.getAllByTestId('pallet');
-    expect(pallets.map((p) => p.querySelector('p')?.textContent)).toEqual(['Load 1st: pallet 2 · 238 tiles', 'Load 2nd: pallet 1 · 240 tiles']);
+    expect(pallets.map((p) => p.querySelector('p')?.textContent)).toEqual(['Load 1st: pallet 2 · 238 tiles', 'Load 2nd: pallet 1 · 240 tiles', 'Load 3rd: pallet 3 · accessories']);
+    // Accessories are named in words, not the engine's keys.
+    expect(within(pallets[2]).getByText('Ridge tiles: 24')).toBeTruthy();
     expect(within(pallets[0]).getByText('Alder · Rear')).toBeTruthy();
     expect(within(pallets[0]).getByText('spare (waste allowance)')).toBeTruthy();
     expect(screen.getByText('Overhead lines on site: keep the crane clear')).toBeTruthy();

@@ -1,8 +1,21 @@
+import type { AccessoryItem } from '../../../../shared/engine/delivery';
 import type { LoadingSheet as LoadingSheetData } from '../../../../shared/schemas/slot.schema';
 import { Alert } from '../../../components/ui/alert';
 import { buttonClasses } from '../../../components/ui/button';
 import { formatDate } from '../../../lib/format';
 import { RecordDeliveryForm } from './record-delivery-form';
+
+/** What each accessory on a pallet is, in the words of the yard. */
+const ITEM_WORDS: Record<AccessoryItem, string> = {
+  underlay_rolls: 'Underlay rolls',
+  battens: 'Battens (stock lengths)',
+  batten_nails: 'Batten nails',
+  tile_nails: 'Tile nails',
+  clips: 'Tile clips',
+  ridge_tiles: 'Ridge tiles',
+  hip_tiles: 'Hip tiles',
+};
+const itemWords = (item: string) => (ITEM_WORDS as Record<string, string>)[item] ?? item;
 
 type Run = LoadingSheetData['runs'][number];
 type Stop = Run['stops'][number];
@@ -41,7 +54,7 @@ function PalletCard({ pallet }: { pallet: Pallet }) {
         <ul className="mt-2 space-y-1 text-lg">
           {pallet.items.map((item) => (
             <li key={item.item}>
-              {item.item}: {item.quantity.toLocaleString('en-GB')}
+              {itemWords(item.item)}: {item.quantity.toLocaleString('en-GB')}
             </li>
           ))}
         </ul>
