@@ -1,5 +1,6 @@
-import { useId, useState } from 'react';
+import { useState } from 'react';
 import { ErrorAlert } from '../../../components/ui/alert';
+import { BranchSelect } from '../../../components/ui/branch-select';
 import { buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
@@ -11,7 +12,6 @@ import { StockTable } from './stock-table';
 /** Prices and stock per branch, with the sheets to export and import them. */
 export function CatalogueBoard({ canImportPrices, canImportStock }: { canImportPrices: boolean; canImportStock: boolean }) {
   const branches = useCatalogueBranches();
-  const selectId = useId();
   const [chosen, setChosen] = useState<number | null>(null);
   if (branches.isPending) return <SkeletonBlock label="Loading the branches" lines={3} />;
   if (branches.isError) return <ErrorAlert error={branches.error} title="The branches could not be loaded" onRetry={() => void branches.refetch()} />;
@@ -19,18 +19,7 @@ export function CatalogueBoard({ canImportPrices, canImportStock }: { canImportP
   if (branchId === null) return <p>No branches yet.</p>;
   return (
     <div className="space-y-6">
-      <div>
-        <label htmlFor={selectId} className="mb-1 block font-medium">
-          Branch
-        </label>
-        <select id={selectId} value={branchId} onChange={(e) => setChosen(Number(e.target.value))} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
-          {branches.data.map((b) => (
-            <option key={b.id} value={b.id}>
-              {b.name}, {b.town}
-            </option>
-          ))}
-        </select>
-      </div>
+      <BranchSelect branches={branches.data} value={branchId} onChange={setChosen} />
       <Card title="Products, prices and stock">
         <StockTable key={branchId} branchId={branchId} />
       </Card>

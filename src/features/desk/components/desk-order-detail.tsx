@@ -1,11 +1,11 @@
 import { useMemo, useState } from 'react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { CRANE_LIFT_LABELS, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS_LABELS } from '../../../../shared/schemas/project.schema';
 import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
 import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Alert, ErrorAlert } from '../../../components/ui/alert';
+import { OrderSiteDetails } from '../../../components/orders/order-site-details';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
@@ -173,28 +173,7 @@ export function DeskOrderDetail({ order, invoiceAction }: { order: OrderDetail; 
           ) : null}
         </Card>
         <Card title="Site">
-          <dl className="grid grid-cols-[minmax(7rem,auto)_1fr] gap-x-6 gap-y-2">
-            <dt className="text-sm text-ink-600">Site</dt>
-            <dd>
-              {order.site.name}
-              <span className="block">
-                {order.site.site_address}
-                {order.site.site_postcode ? `, ${order.site.site_postcode}` : ''}
-              </span>
-            </dd>
-            <dt className="text-sm text-ink-600">Contact</dt>
-            <dd>
-              {order.site.contact_name || '—'} {order.site.contact_phone}
-            </dd>
-            <dt className="text-sm text-ink-600">Access</dt>
-            <dd>
-              {VEHICLE_ACCESS_LABELS[order.site.vehicle_access]}; {CRANE_LIFT_LABELS[order.site.crane_lift]}; {OVERHEAD_LINES_LABELS[order.site.overhead_lines]}
-            </dd>
-            <dt className="text-sm text-ink-600">Set-down</dt>
-            <dd>{order.site.set_down_place || '—'}</dd>
-            <dt className="text-sm text-ink-600">Notes</dt>
-            <dd className="whitespace-pre-line">{order.site.access_notes || '—'}</dd>
-          </dl>
+          <OrderSiteDetails site={order.site} />
         </Card>
       </div>
 

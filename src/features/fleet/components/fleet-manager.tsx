@@ -1,6 +1,7 @@
-import { useId, useState } from 'react';
+import { useState } from 'react';
 import type { Lorry } from '../../../../shared/schemas/fleet.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
+import { BranchSelect } from '../../../components/ui/branch-select';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -73,7 +74,6 @@ function BranchFleet({ branchId }: { branchId: number }) {
 /** The dispatcher's fleet page: one branch at a time, its lorries and the slots they offer. */
 export function FleetManager() {
   const branches = useYardBranches();
-  const selectId = useId();
   const [chosen, setChosen] = useState<number | null>(null);
   if (branches.isPending) return <SkeletonBlock label="Loading the branches" lines={3} />;
   if (branches.isError) return <ErrorAlert error={branches.error} title="The branches could not be loaded" onRetry={() => void branches.refetch()} />;
@@ -81,18 +81,7 @@ export function FleetManager() {
   if (current === null) return <EmptyState title="No branches yet">Add a branch first; lorries belong to a branch.</EmptyState>;
   return (
     <div className="space-y-6">
-      <div>
-        <label htmlFor={selectId} className="mb-1 block font-medium">
-          Branch
-        </label>
-        <select id={selectId} value={current} onChange={(e) => setChosen(Number(e.target.value))} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
-          {branches.data.map((b) => (
-            <option key={b.id} value={b.id}>
-              {b.name}, {b.town}
-            </option>
-          ))}
-        </select>
-      </div>
+      <BranchSelect branches={branches.data} value={current} onChange={setChosen} />
       <BranchFleet key={current} branchId={current} />
     </div>
   );

@@ -1,5 +1,6 @@
-import { useId, useState } from 'react';
+import { useState } from 'react';
 import { Card } from '../../../components/ui/card';
+import { BranchSelect } from '../../../components/ui/branch-select';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useYardBranches } from '../api/get-yard-branches';
@@ -9,7 +10,6 @@ import { SlotCalendar } from './slot-calendar';
 /** The dispatcher's board: one branch at a time, its slot calendar and its lorries. */
 export function YardBoard() {
   const branches = useYardBranches();
-  const branchId = useId();
   const [chosen, setChosen] = useState<number | null>(null);
   if (branches.isPending) return <SkeletonBlock label="Loading the branches" lines={3} />;
   if (branches.isError) return <ErrorAlert error={branches.error} title="The branches could not be loaded" onRetry={() => void branches.refetch()} />;
@@ -17,18 +17,7 @@ export function YardBoard() {
   if (current === null) return <p>No branches yet.</p>;
   return (
     <div className="space-y-6">
-      <div>
-        <label htmlFor={branchId} className="mb-1 block font-medium">
-          Branch
-        </label>
-        <select id={branchId} value={current} onChange={(e) => setChosen(Number(e.target.value))} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
-          {branches.data.map((b) => (
-            <option key={b.id} value={b.id}>
-              {b.name}, {b.town}
-            </option>
-          ))}
-        </select>
-      </div>
+      <BranchSelect branches={branches.data} value={current} onChange={setChosen} />
       <Card title="Delivery slots">
         <SlotCalendar key={current} branchId={current} />
       </Card>

@@ -1,9 +1,9 @@
 import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { CRANE_LIFT_LABELS, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS_LABELS } from '../../../../shared/schemas/project.schema';
 import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
 import type { Order, OrderDetail as OrderDetailData, OrderLine, Proposal } from '../../../../shared/schemas/order.schema';
 import { Alert, errorMessage } from '../../../components/ui/alert';
+import { OrderSiteDetails } from '../../../components/orders/order-site-details';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
@@ -270,30 +270,14 @@ export function OrderDetail({ order }: { order: OrderDetailData }) {
           </dl>
         </Card>
         <Card title="Site, as sent">
-          <dl className="grid grid-cols-[minmax(7rem,auto)_1fr] gap-x-6 gap-y-2">
-            <dt className="text-sm text-ink-600">Site</dt>
-            <dd>
+          <OrderSiteDetails
+            site={order.site}
+            name={
               <Link to={`/sites/${order.project.id}`} className="font-medium text-clay-700 underline underline-offset-2">
                 {order.site.name}
               </Link>
-              <span className="block">
-                {order.site.site_address}
-                {order.site.site_postcode ? `, ${order.site.site_postcode}` : ''}
-              </span>
-            </dd>
-            <dt className="text-sm text-ink-600">Contact</dt>
-            <dd>
-              {order.site.contact_name || '—'} {order.site.contact_phone}
-            </dd>
-            <dt className="text-sm text-ink-600">Access</dt>
-            <dd>
-              {VEHICLE_ACCESS_LABELS[order.site.vehicle_access]}; {CRANE_LIFT_LABELS[order.site.crane_lift]}; {OVERHEAD_LINES_LABELS[order.site.overhead_lines]}
-            </dd>
-            <dt className="text-sm text-ink-600">Set-down</dt>
-            <dd>{order.site.set_down_place || '—'}</dd>
-            <dt className="text-sm text-ink-600">Notes</dt>
-            <dd className="whitespace-pre-line">{order.site.access_notes || '—'}</dd>
-          </dl>
+            }
+          />
         </Card>
       </div>
 
