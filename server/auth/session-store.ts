@@ -1,36 +1,91 @@
 import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { SessionData } from 'express-session';
+import { LRUCache } from 'lru-cache';
 import type { Db } from '../db/knex';
 
 const TOUCH_EVERY_MS = 5 * 60_000;
-const REMEMBERED_SIDS = 50_000;
+const REMEMBERED_SESSIONS = 10_000;
+
+interface Remembered {
+  json: string;
+  expires: number;
+  touchedAt: number;
+}
 
 /**
- * Sessions in the database. express-session touches the stored expiry on every response, which
- * would make every signed-in read a database write; with a 7-day rolling session, moving the expiry
- * at most every few minutes keeps the same behaviour for a fraction of the writes.
+ * Sessions in the database, with the ones in use remembered in memory.
+ *
+ * Every signed-in request reads its session; this process is the only one that writes the sessions
+ * table (one SQLite file, one server), so a write-through copy in memory answers those reads without
+ * a query and stays exact: set, touch and destroy go to the database and to the copy together. The
+ * copy is kept as JSON text so no request can change another's session object.
+ *
+ * express-session also touches the stored expiry on every response, which would make every
+ * signed-in read a database write; with a 7-day rolling session, moving the stored expiry at most
+ * every few minutes keeps the same behaviour for a fraction of the writes (the copy's expiry moves
+ * every time).
  */
 export class SessionStore extends ConnectSessionKnexStore {
-  private readonly lastTouch = new Map<string, number>();
+  private readonly remembered = new LRUCache<string, Remembered>({ max: REMEMBERED_SESSIONS });
 
   constructor(db: Db) {
     super({ knex: db, tableName: 'sessions', createTable: true });
   }
 
+  override async get(sid: string, callback: (err: unknown, session?: SessionData | null) => void): Promise<SessionData | null> {
+    const copy = this.remembered.get(sid);
+    if (copy) {
+      if (copy.expires > Date.now()) {
+        const session = JSON.parse(copy.json) as SessionData;
+        callback(null, session);
+        return session;
+      }
+      this.remembered.delete(sid);
+    }
+    const session = (await super.get(sid, callback)) as SessionData | null;
+    if (session) this.remember(sid, session, 0);
+    return session;
+  }
+
+  override async set(sid: string, session: SessionData, callback?: (err?: unknown) => void): Promise<void> {
+    this.remembered.delete(sid);
+    await super.set(sid, session, callback);
+    this.remember(sid, session, Date.now());
+  }
+
   override async touch(sid: string, session: SessionData, callback?: () => void): Promise<void> {
     const now = Date.now();
-    const last = this.lastTouch.get(sid);
-    if (last !== undefined && now - last < TOUCH_EVERY_MS) {
+    const copy = this.remembered.get(sid);
+    if (copy && now - copy.touchedAt < TOUCH_EVERY_MS) {
+      copy.expires = expiryOf(session, copy.expires);
       callback?.();
       return;
     }
-    if (this.lastTouch.size >= REMEMBERED_SIDS) this.lastTouch.clear();
-    this.lastTouch.set(sid, now);
-    return super.touch(sid, session, callback);
+    await super.touch(sid, session, callback);
+    if (copy) {
+      copy.expires = expiryOf(session, copy.expires);
+      copy.touchedAt = now;
+    }
   }
 
   override async destroy(sid: string, callback?: (err?: unknown) => void): Promise<number> {
-    this.lastTouch.delete(sid);
+    this.remembered.delete(sid);
     return super.destroy(sid, callback);
   }
+
+  override async clear(callback?: (err?: unknown) => void): Promise<number> {
+    this.remembered.clear();
+    return super.clear(callback);
+  }
+
+  private remember(sid: string, session: SessionData, touchedAt: number) {
+    this.remembered.set(sid, { json: JSON.stringify(session), expires: expiryOf(session, Date.now()), touchedAt });
+  }
+}
+
+/** The cookie's expiry as the session carries it (a Date, or ISO text once read back from JSON). */
+function expiryOf(session: SessionData, fallback: number): number {
+  const e = session.cookie?.expires as Date | string | null | undefined;
+  const t = e ? new Date(e).getTime() : NaN;
+  return Number.isFinite(t) ? t : fallback + 86_400_000;
 }

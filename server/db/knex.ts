@@ -8,7 +8,8 @@ export type Db = Knex;
  * and a busy timeout so concurrent writers queue instead of failing.
  */
 export function createDb(filename: string): Db {
-  return knexFactory({
+  const open: { connection?: Connection } = {};
+  const db = knexFactory({
     client: 'better-sqlite3',
     connection: { filename },
     useNullAsDefault: true,
@@ -26,6 +27,7 @@ export function createDb(filename: string): Db {
           conn.pragma('foreign_keys = ON');
           conn.pragma('busy_timeout = 5000');
           conn.pragma('synchronous = NORMAL');
+          open.connection = conn;
           done(null, conn);
         } catch (err) {
           done(err as Error, conn);
@@ -34,11 +36,34 @@ export function createDb(filename: string): Db {
     },
     migrations: { migrationSource: new MigrationSource() },
   });
+  openConnections.set(db, open);
+  return db;
+}
+
+interface Statement {
+  get: (...params: unknown[]) => unknown;
 }
 
 interface Connection {
+  open: boolean;
+  inTransaction: boolean;
   pragma: (s: string) => unknown;
-  prepare: (sql: string) => unknown;
+  prepare: (sql: string) => Statement;
+}
+
+const openConnections = new WeakMap<Db, { connection?: Connection }>();
+
+/**
+ * One row read straight from the open connection, without knex's query building and pool hand-over
+ * (which cost several times the read itself on the busiest paths). better-sqlite3 runs it at once on
+ * the app's one connection, so it is only done when no transaction is open there: it then sees
+ * exactly what is committed. Returns `{ row }`, or null when a transaction is open or no connection
+ * is open yet — then ask through knex, which waits for the transaction to end.
+ */
+export function peekRow<T>(db: Db, sql: string, ...params: unknown[]): { row: T | undefined } | null {
+  const conn = openConnections.get(db)?.connection;
+  if (!conn?.open || conn.inTransaction) return null;
+  return { row: conn.prepare(sql).get(...params) as T | undefined };
 }
 
 const STATEMENT_CACHE_SIZE = 1000;
@@ -51,7 +76,7 @@ const STATEMENT_CACHE_SIZE = 1000;
  */
 function cachePreparedStatements(conn: Connection): void {
   const prepare = conn.prepare.bind(conn);
-  const cache = new Map<string, unknown>();
+  const cache = new Map<string, Statement>();
   conn.prepare = (sql: string) => {
     let statement = cache.get(sql);
     if (statement === undefined) {

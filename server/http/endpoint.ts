@@ -23,12 +23,34 @@ type Out<S> = S extends z.ZodType ? z.output<S> : undefined;
 
 export type EndpointHandler<P, Q, B> = (req: Request, res: Response, valid: Valid<P, Q, B>) => Promise<unknown> | unknown;
 
+/** '/orders/:id' → 'orders'; '/branches/:id/stock' → 'branches'. Lower case, as Express matches paths regardless of case. */
+const firstSegment = (path: string) => {
+  const end = path.indexOf('/', 1);
+  return path.slice(1, end === -1 ? undefined : end).toLowerCase();
+};
+
 /**
  * A router whose every route must state its access rule and may state zod schemas for params,
  * query and body. Validation failures become 422 with field paths (see error-handler).
+ *
+ * The API mounts some twenty of these side by side; a request for /orders would otherwise be
+ * matched against every route of every module before it. `router` is a gate that passes a request
+ * to the module only when one of its routes starts with the request's first path segment (it keeps
+ * the module's route stack, so the route inventory still sees every route).
  */
 export function apiRouter() {
-  const router = Router();
+  const inner = Router();
+  const segments = new Set<string>();
+  const router = Object.assign(
+    (req: Request, res: Response, next: NextFunction) => {
+      if (!segments.has(firstSegment(req.path))) {
+        next();
+        return;
+      }
+      inner(req, res, next);
+    },
+    { stack: inner.stack },
+  );
   const add =
     (method: Method) =>
     <P extends z.ZodType = z.ZodType, Q extends z.ZodType = z.ZodType, B extends z.ZodType = z.ZodType>(
@@ -48,7 +70,9 @@ export function apiRouter() {
           next(err);
         }
       };
-      router[method](path, accessGuard(spec.access), ...(spec.before ?? []), run);
+      if (path.startsWith('/:')) throw new Error(`${path}: an API route starts with a fixed segment`);
+      segments.add(firstSegment(path));
+      inner[method](path, accessGuard(spec.access), ...(spec.before ?? []), run);
     };
   return {
     router,

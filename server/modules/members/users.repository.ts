@@ -1,5 +1,6 @@
 import type { Role } from '../../../shared/domain/roles';
 import type { AuthUser } from '../../auth/auth-user';
+import { LRUCache } from 'lru-cache';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 
@@ -15,7 +16,48 @@ export interface UserRow {
 
 const PUBLIC_COLUMNS = ['id', 'email', 'name', 'role', 'created_at'] as const;
 
+/**
+ * Signed-in users as every request sees them, remembered per database. Each request needs its user
+ * and organisation; they change only through this repository (role, removal), which forgets the
+ * user at once. A read that began before such a change is not remembered (the user's generation has
+ * moved), so an old role can never be put back. The time limit only bounds memory.
+ */
+interface AuthUserMemory {
+  users: LRUCache<number, AuthUser>;
+  generations: Map<number, number>;
+}
+const memories = new WeakMap<Db, AuthUserMemory>();
+function memoryOf(db: Db): AuthUserMemory {
+  let m = memories.get(db);
+  if (!m) {
+    m = { users: new LRUCache({ max: 10_000, ttl: 10 * 60_000 }), generations: new Map() };
+    memories.set(db, m);
+  }
+  return m;
+}
+
 export function usersRepository(db: Db) {
+  const memory = memoryOf(db);
+  const forget = (userId: number) => {
+    memory.users.delete(userId);
+    memory.generations.set(userId, (memory.generations.get(userId) ?? 0) + 1);
+  };
+  async function readAuthUser(id: number): Promise<AuthUser | undefined> {
+    const row = await db('users as u')
+      .join('organisations as o', 'o.id', 'u.organisation_id')
+      .select('u.id', 'u.email', 'u.name', 'u.role', 'o.id as org_id', 'o.name as org_name', 'o.kind as org_kind')
+      .where('u.id', id)
+      .first();
+    if (!row) return undefined;
+    return {
+      id: row.id,
+      email: row.email,
+      name: row.name,
+      role: row.role,
+      organisation: { id: row.org_id, name: row.org_name, kind: row.org_kind },
+    };
+  }
+
   return {
     async findByEmail(email: string): Promise<UserRow | undefined> {
       return db('users').where({ email: email.toLowerCase() }).first();
@@ -23,19 +65,12 @@ export function usersRepository(db: Db) {
 
     /** The session's view of a user: the person and their organisation in one read. */
     async findAuthUser(id: number): Promise<AuthUser | undefined> {
-      const row = await db('users as u')
-        .join('organisations as o', 'o.id', 'u.organisation_id')
-        .select('u.id', 'u.email', 'u.name', 'u.role', 'o.id as org_id', 'o.name as org_name', 'o.kind as org_kind')
-        .where('u.id', id)
-        .first();
-      if (!row) return undefined;
-      return {
-        id: row.id,
-        email: row.email,
-        name: row.name,
-        role: row.role,
-        organisation: { id: row.org_id, name: row.org_name, kind: row.org_kind },
-      };
+      const known = memory.users.get(id);
+      if (known) return known;
+      const generation = memory.generations.get(id) ?? 0;
+      const user = await readAuthUser(id);
+      if (user && (memory.generations.get(id) ?? 0) === generation) memory.users.set(id, user);
+      return user;
     },
 
     async create(
@@ -49,6 +84,7 @@ export function usersRepository(db: Db) {
     },
 
     async setPassword(userId: number, passwordHash: string, trx: Db = db): Promise<void> {
+      forget(userId);
       await trx('users').where({ id: userId }).update({ password_hash: passwordHash });
     },
 
@@ -66,11 +102,15 @@ export function usersRepository(db: Db) {
     },
 
     async updateRole(organisationId: number, userId: number, role: Role, trx: Db = db): Promise<void> {
+      forget(userId);
       await trx('users').where({ organisation_id: organisationId, id: userId }).update({ role });
+      forget(userId);
     },
 
     async remove(organisationId: number, userId: number, trx: Db = db): Promise<void> {
+      forget(userId);
       await trx('users').where({ organisation_id: organisationId, id: userId }).delete();
+      forget(userId);
     },
   };
 }

@@ -1,0 +1,67 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from '../setup/test-app';
+import { contractorWithEstimate, merchantWithCatalogue, orderBody } from '../setup/order-scenario';
+import { signIn } from '../setup/scenario';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp({ LOGIN_RATE_LIMIT: '1000' });
+});
+afterAll(async () => t.close());
+
+type Book = { orders: { id: number; status: string; po_reference: string; line_count: number; branch: { name: string }; contractor: { name: string } }[]; total: number };
+
+/**
+ * The order book is answered from memory until something it shows changes. Each check changes the
+ * book a different way — through the API, and behind the API's back straight in the database — and
+ * expects the very next read to show it.
+ */
+describe('the order book never shows a stale answer', () => {
+  it('shows a new order, a confirmation, a rename and a direct database change on the next read', async () => {
+    const m = await merchantWithCatalogue(t);
+    const k = await contractorWithEstimate(t, m);
+    const desk = await signIn(t.app, m.salesEmail);
+    const book = async (query = 'sort=placed_at&dir=desc') => (await desk.get(`/api/orders?${query}`)).body as Book;
+
+    expect((await book()).total).toBe(0);
+    const first = (await k.c.post('/api/orders', orderBody(k, m, { po_reference: 'PO-FRESH-1' }))).body as { id: number };
+    const afterPlacing = await book();
+    expect(afterPlacing.orders.map((o) => o.po_reference)).toEqual(['PO-FRESH-1']);
+    const asked = await book('statuses=sent&sort=placed_at&dir=desc');
+    expect(asked.total).toBe(1);
+
+    expect((await desk.post(`/api/orders/${first.id}/confirm`, {})).status).toBe(200);
+    expect((await book()).orders[0].status).toBe('confirmed');
+    expect((await book('statuses=sent&sort=placed_at&dir=desc')).total).toBe(0);
+
+    // The contractor's side of the same order moves too.
+    const mine = (await k.c.get('/api/orders?sort=placed_at&dir=desc')).body as Book;
+    expect(mine.orders[0].status).toBe('confirmed');
+
+    await t.db('branches').where({ id: m.branchId }).update({ name: 'Renamed Yard' });
+    expect((await book()).orders[0].branch.name).toBe('Renamed Yard');
+    await t.db('organisations').where({ id: k.organisationId }).update({ name: 'Renamed Roofing' });
+    expect((await book()).orders[0].contractor.name).toBe('Renamed Roofing');
+
+    await t.db('orders').where({ id: first.id }).update({ po_reference: 'PO-EDITED' });
+    expect((await book()).orders[0].po_reference).toBe('PO-EDITED');
+
+    const lines = (await book()).orders[0].line_count;
+    const last = (await t.db('order_lines').where({ order_id: first.id }).max({ id: 'id' }).first()) as { id: number };
+    await t.db('order_lines').where({ id: last.id }).delete();
+    expect((await book()).orders[0].line_count).toBe(lines - 1);
+  });
+
+  it("keeps one merchant's reads apart from another's", async () => {
+    const a = await merchantWithCatalogue(t);
+    const b = await merchantWithCatalogue(t);
+    const k = await contractorWithEstimate(t, a);
+    await k.c.post('/api/orders', orderBody(k, a, { po_reference: 'PO-ONLY-A' }));
+    const deskA = await signIn(t.app, a.salesEmail);
+    const deskB = await signIn(t.app, b.salesEmail);
+    const q = '/api/orders?sort=placed_at&dir=desc';
+    expect((await deskA.get(q)).body.total).toBe(1);
+    expect((await deskB.get(q)).body.total).toBe(0);
+    expect((await deskA.get(q)).body.total).toBe(1);
+  });
+});

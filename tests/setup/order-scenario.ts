@@ -1,0 +1,49 @@
+import { expect } from 'vitest';
+import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
+import { makeOrgWithUser, makeUser } from './factories';
+import { GABLE_CSV, inDays, signIn } from './scenario';
+import type { TestApp } from './test-app';
+
+/** A merchant with one branch selling a demo catalogue, and its desk, yard and driver. */
+export async function merchantWithCatalogue(t: TestApp, catalogue = DEMO_CATALOGUES[0]) {
+  const owner = await makeOrgWithUser(t.db, 'merchant', 'merchant_owner');
+  const installed = await installCatalogue(t.db, owner.organisationId, [{ id: owner.branchId!, priceFactor: 1, stockFactor: 1 }], catalogue);
+  const sales = await makeUser(t.db, owner.organisationId, 'merchant_sales');
+  const dispatcher = await makeUser(t.db, owner.organisationId, 'merchant_dispatcher');
+  const driver = await makeUser(t.db, owner.organisationId, 'driver');
+  return {
+    organisationId: owner.organisationId,
+    branchId: owner.branchId!,
+    ownerEmail: owner.email,
+    salesEmail: sales.email,
+    dispatcherEmail: dispatcher.email,
+    driverEmail: driver.email,
+    driverId: driver.userId,
+    product: (sku: string) => installed.productIds.get(sku)!,
+    systemId: installed.systemIds[0].id,
+  };
+}
+export type TestMerchant = Awaited<ReturnType<typeof merchantWithCatalogue>>;
+
+/** A contractor's estimator with a site, the gable schedule imported and an estimate from the merchant's first system. */
+export async function contractorWithEstimate(t: TestApp, m: TestMerchant) {
+  const u = await makeOrgWithUser(t.db, 'contractor', 'contractor_estimator');
+  const c = await signIn(t.app, u.email);
+  const p = await c.post('/api/projects', { name: 'Ferncombe Mews', site_address: '1–4 Ferncombe Mews, Tollerbeck', crane_lift: 'allowed', overhead_lines: 'none' });
+  const token = await c.csrf();
+  await c.agent.post(`/api/projects/${p.body.id}/schedule`).set('X-CSRF-Token', token).set('Content-Type', 'text/csv').send(GABLE_CSV);
+  const e = await c.post(`/api/projects/${p.body.id}/estimates`, { system_id: m.systemId });
+  expect(e.status).toBe(201);
+  return { ...u, c, projectId: p.body.id as number, estimate: e.body as { id: number } };
+}
+
+/** The body of an order for the estimate, sent to the merchant's branch a week ahead. */
+export const orderBody = (k: { estimate: { id: number } }, m: { branchId: number }, over: Record<string, unknown> = {}) => ({
+  estimate_id: k.estimate.id,
+  branch_id: m.branchId,
+  requested_date: inDays(7),
+  time_window: '07:30-12:00',
+  delivery_method: 'ground',
+  po_reference: 'PO-4471',
+  ...over,
+});
