@@ -535,6 +535,16 @@ export const stockShortfallSchema = z.object({ sku: z.string(), line_id: z.numbe
 
 export const turnDownBodySchema = z.object({ reason: text(500).min(1, { error: 'say why, so the contractor can order elsewhere' }) }).strict();
 
+/** Starting the delivery of an order's back-ordered packs: the day (and window) it is now wanted. */
+export const followUpBodySchema = z
+  .object({
+    requested_date: isoDateSchema,
+    time_window: timeWindowSchema.nullable().optional(),
+    note: text(500).optional(),
+  })
+  .strict();
+export type FollowUpBody = z.input<typeof followUpBodySchema>;
+
 export const bookSlotBodySchema = z.object({ slot_id: z.number().int().positive() }).strict();
 
 export const commentBodySchema = z.object({ body: text(2000).min(1, { error: 'write a comment' }) }).strict();
@@ -583,6 +593,8 @@ export const orderDeliverySchema = z.object({
   recorded_by: z.object({ id: z.number().int(), name: z.string() }).nullable(),
 });
 
+export const orderLinkSchema = z.object({ id: z.number().int(), reference: z.string(), status: z.enum(ORDER_STATUSES), status_label: z.string() });
+
 /**
  * An order as the detail page shows it: the shared order, the packs delivered per line, the booked
  * slot, the delivery record, the comments and the invoice once there is one.
@@ -593,5 +605,11 @@ export const orderDetailSchema = orderSchema.extend({
   delivery: orderDeliverySchema.nullable(),
   comments: z.array(orderCommentSchema),
   invoice: z.object({ id: z.number().int(), number: z.string() }).nullable(),
+  /** The order whose back-ordered packs this one carries. */
+  follows: orderLinkSchema.nullable(),
+  /** The order that carries this one's back-ordered packs, once started. */
+  followed_by: orderLinkSchema.nullable(),
+  /** Packs promised on this order that travel later (its lines' back-ordered packs). */
+  back_ordered_packs: z.number().int(),
 });
 export type OrderDetail = z.infer<typeof orderDetailSchema>;

@@ -14,7 +14,9 @@ export type OrderMailEvent =
   | 'turned_down'
   | 'slot_booked'
   | 'dispatched'
-  | 'delivered';
+  | 'delivered'
+  | 'follow_up_started'
+  | 'commented';
 
 /** The booked delivery, for the e-mails that name it. */
 export interface MailSlot {
@@ -30,10 +32,12 @@ interface Letter {
 }
 
 const money = (minor: number) => `£${(minor / 100).toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 })}`;
+/** A comment quoted in the letter, cut short if long (the whole of it is on the order). */
+const quote = (text = '') => `“${text.length > 600 ? `${text.slice(0, 597)}…` : text}”`;
 const when = (o: OrderRow) => `${o.requested_date}${o.time_window ? `, ${o.time_window}` : ''}`;
 
 /** What each side is told at each step; the desk hears of what the contractor does and the other way round. */
-function letters(event: OrderMailEvent, o: OrderRow, note?: string, slot?: MailSlot): { contractor?: Letter; desk?: Letter } {
+function letters(event: OrderMailEvent, o: OrderRow, note?: string, slot?: MailSlot, actor?: 'contractor' | 'merchant'): { contractor?: Letter; desk?: Letter } {
   const ref = orderReference(o.id);
   const place = `${o.branch_name} (${o.merchant_name})`;
   const delivery = `${DELIVERY_METHOD_LABELS[o.delivery_method]} at ${o.site_name} on ${when(o)}.`;
@@ -103,6 +107,25 @@ function letters(event: OrderMailEvent, o: OrderRow, note?: string, slot?: MailS
           paragraphs: [`The lorry has left ${o.branch_name}. ${booked}`, `Have someone at ${o.site_name} to take the delivery and keep the set-down place clear.`],
         },
       };
+    case 'follow_up_started':
+      return {
+        contractor: {
+          subject: `Back-ordered packs follow as order ${ref}`,
+          heading: `Your back-ordered packs are on their way to being sent`,
+          paragraphs: [
+            `${place} has started the delivery of the packs it back-ordered${o.follows_order_id ? ` on order ${orderReference(o.follows_order_id)}` : ''}: order ${ref}, ${o.line_count} lines (${money(o.subtotal)} before tax, at the prices already agreed).`,
+            delivery,
+            ...noted,
+            'You will hear again when it is confirmed against stock and booked onto a lorry.',
+          ],
+        },
+      };
+    case 'commented':
+      return {
+        ...(actor === 'merchant'
+          ? { contractor: { subject: `${o.branch_name} commented on order ${ref}`, heading: `A comment on order ${ref}`, paragraphs: [`${place} wrote:`, quote(note)] } }
+          : { desk: { subject: `${o.contractor_name} commented on order ${ref}`, heading: `A comment on order ${ref}`, paragraphs: [`${o.contractor_name} wrote:`, quote(note)] } }),
+      };
     case 'delivered':
       return {
         contractor: { subject: `Order ${ref} delivered`, heading: `Order ${ref} delivered`, paragraphs: [`The driver recorded the delivery at ${o.site_name}. Any shortage is shown on the order.`] },
@@ -119,8 +142,10 @@ export async function sendOrderMail(
   to: { contractor: string[]; desk: string[] },
   note?: string,
   slot?: MailSlot,
+  /** Who took the step, where the letter depends on it (a comment goes to the other side). */
+  actor?: 'contractor' | 'merchant',
 ): Promise<void> {
-  const content = letters(event, order, note, slot);
+  const content = letters(event, order, note, slot, actor);
   const url = `${config.appUrl}/orders/${order.id}`;
   const jobs: Promise<void>[] = [];
   for (const [side, letter] of [

@@ -11,7 +11,7 @@ import type {
 import { ORDER_COUNT_CAP } from '../../../shared/schemas/order.schema';
 import { invoiceNumber } from '../../../shared/schemas/invoice.schema';
 import type { z } from 'zod';
-import type { Db } from '../../db/knex';
+import { peekRow, type Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 
 /** Whose view: a contractor sees the orders it placed, a merchant the orders sent to its branches. */
@@ -32,6 +32,8 @@ export interface OrderRow {
   project_id: number;
   estimate_id: number | null;
   quote_id: number | null;
+  /** The order whose back-ordered packs this one carries. */
+  follows_order_id: number | null;
   status: OrderStatus;
   revision: number;
   requested_date: string;
@@ -88,6 +90,7 @@ const ORDER_COLUMNS = [
   'o.project_id',
   'o.estimate_id',
   'o.quote_id',
+  'o.follows_order_id',
   'o.status',
   'o.revision',
   'o.requested_date',
@@ -138,6 +141,40 @@ function toLine(r: Record<string, unknown>): StoredOrderLine {
 
 export type StoredOrderLine = OrderLine & { delivered_quantity: number | null };
 
+/**
+ * The order book's filter, in SQL. The count needs none of the joins (they follow not-null foreign
+ * keys), so it runs on an index alone, and it stops at ORDER_COUNT_CAP: counting every one of
+ * 100,000 orders on each page turn costs more than the page itself.
+ */
+function bookFilter(db: Db, party: OrderParty, f: ListFilter) {
+  const ref = f.q ? f.q.match(/^(?:rl-?)?0*(\d{1,9})$/i) : null;
+  return (q: ReturnType<Db>) => {
+    if (party.kind === 'contractor') q.where('o.contractor_organisation_id', party.organisationId);
+    else q.where('o.merchant_organisation_id', party.organisationId);
+    if (f.status) q.where('o.status', f.status);
+    if (f.statuses && f.statuses.length > 0) q.whereIn('o.status', f.statuses);
+    if (f.branch_id) q.where('o.branch_id', f.branch_id);
+    if (f.project_id) q.where('o.project_id', f.project_id);
+    if (f.contractor_id) q.where('o.contractor_organisation_id', f.contractor_id);
+    // placed_at is an ISO timestamp: a day range runs from the day's start to the next day's start.
+    if (f.date_from) q.where(`o.${f.date_field}`, '>=', f.date_from);
+    if (f.date_to) {
+      if (f.date_field === 'placed_at') q.where('o.placed_at', '<', nextDay(f.date_to));
+      else q.where('o.requested_date', '<=', f.date_to);
+    }
+    if (f.q) {
+      const pattern = likePattern(f.q);
+      q.where((w) => {
+        if (ref) w.orWhere('o.id', Number(ref[1]));
+        w.orWhereRaw(`lower(??) like ? escape '\\'`, ['o.po_reference', pattern]).orWhereRaw(`lower(??) like ? escape '\\'`, ['o.site_name', pattern]);
+        w.orWhereExists(db('organisations as co').whereRaw('?? = ??', ['co.id', 'o.contractor_organisation_id']).whereRaw(`lower(??) like ? escape '\\'`, ['co.name', pattern]));
+        w.orWhereExists(db('branches as b').whereRaw('?? = ??', ['b.id', 'o.branch_id']).whereRaw(`lower(??) like ? escape '\\'`, ['b.name', pattern]));
+      });
+    }
+    return q;
+  };
+}
+
 export function ordersRepository(db: Db) {
   const scoped = (trx: Db, party: OrderParty) => {
     const q = trx('orders as o')
@@ -154,7 +191,7 @@ export function ordersRepository(db: Db) {
   return {
     async insertOrder(
       trx: Db,
-      o: Omit<OrderRow, 'id' | 'contractor_name' | 'merchant_name' | 'branch_name' | 'branch_town' | 'line_count' | 'revision' | 'confirmed_at' | 'cancelled_at' | 'updated_at'>,
+      o: Omit<OrderRow, 'id' | 'contractor_name' | 'merchant_name' | 'branch_name' | 'branch_town' | 'line_count' | 'revision' | 'confirmed_at' | 'cancelled_at' | 'updated_at' | 'follows_order_id'> & { follows_order_id?: number | null },
       lines: NewOrderLine[],
     ): Promise<number> {
       const [row] = await trx('orders')
@@ -165,6 +202,7 @@ export function ordersRepository(db: Db) {
           project_id: o.project_id,
           estimate_id: o.estimate_id,
           quote_id: o.quote_id,
+          follows_order_id: o.follows_order_id ?? null,
           status: o.status,
           revision: 1,
           requested_date: o.requested_date,
@@ -233,50 +271,35 @@ export function ordersRepository(db: Db) {
      * follow not-null foreign keys), so it runs on an index alone, and it stops at ORDER_COUNT_CAP:
      * counting every one of 100,000 orders on each page turn costs more than the page itself.
      */
-    async list(party: OrderParty, f: ListFilter): Promise<{ rows: OrderRow[]; total: number; capped: boolean }> {
-      const ref = f.q ? f.q.match(/^(?:rl-?)?0*(\d{1,9})$/i) : null;
-      const filter = (q: ReturnType<Db>) => {
-        if (party.kind === 'contractor') q.where('o.contractor_organisation_id', party.organisationId);
-        else q.where('o.merchant_organisation_id', party.organisationId);
-        if (f.status) q.where('o.status', f.status);
-        if (f.statuses && f.statuses.length > 0) q.whereIn('o.status', f.statuses);
-        if (f.branch_id) q.where('o.branch_id', f.branch_id);
-        if (f.project_id) q.where('o.project_id', f.project_id);
-        if (f.contractor_id) q.where('o.contractor_organisation_id', f.contractor_id);
-        // placed_at is an ISO timestamp: a day range runs from the day's start to the next day's start.
-        if (f.date_from) q.where(`o.${f.date_field}`, '>=', f.date_from);
-        if (f.date_to) {
-          if (f.date_field === 'placed_at') q.where('o.placed_at', '<', nextDay(f.date_to));
-          else q.where('o.requested_date', '<=', f.date_to);
-        }
-        if (f.q) {
-          const pattern = likePattern(f.q);
-          q.where((w) => {
-            if (ref) w.orWhere('o.id', Number(ref[1]));
-            w.orWhereRaw(`lower(??) like ? escape '\\'`, ['o.po_reference', pattern]).orWhereRaw(`lower(??) like ? escape '\\'`, ['o.site_name', pattern]);
-            w.orWhereExists(db('organisations as co').whereRaw('?? = ??', ['co.id', 'o.contractor_organisation_id']).whereRaw(`lower(??) like ? escape '\\'`, ['co.name', pattern]));
-            w.orWhereExists(db('branches as b').whereRaw('?? = ??', ['b.id', 'o.branch_id']).whereRaw(`lower(??) like ? escape '\\'`, ['b.name', pattern]));
-          });
-        }
-        return q;
-      };
-      const matches = filter(db('orders as o')).select(db.raw('1')).limit(ORDER_COUNT_CAP + 1);
+    /** How many orders match the filter, stopping at ORDER_COUNT_CAP (paging and sort play no part). */
+    async count(party: OrderParty, f: ListFilter): Promise<{ total: number; capped: boolean }> {
+      const matches = bookFilter(db, party, f)(db('orders as o')).select(db.raw('1')).limit(ORDER_COUNT_CAP + 1);
       const counted = Number((await db.from(matches.as('m')).count({ n: '*' }).first())?.n ?? 0);
-      const capped = counted > ORDER_COUNT_CAP;
-      const total = Math.min(counted, ORDER_COUNT_CAP);
-      if (total === 0 || (!capped && (f.page - 1) * f.page_size >= total)) return { rows: [], total, capped };
-      // Page the ids on the index first, then fetch the joined columns for those rows only.
-      const ids = await filter(db('orders as o'))
+      return { total: Math.min(counted, ORDER_COUNT_CAP), capped: counted > ORDER_COUNT_CAP };
+    },
+
+    /** One page of the book in the asked order: the ids are paged on an index, then only those rows are joined. */
+    async page(party: OrderParty, f: ListFilter): Promise<OrderRow[]> {
+      const ids = (await bookFilter(db, party, f)(db('orders as o'))
         .orderBy([
           { column: `o.${f.sort}`, order: f.dir },
           { column: 'o.id', order: f.dir },
         ])
         .limit(f.page_size)
         .offset((f.page - 1) * f.page_size)
-        .pluck('o.id') as number[];
+        .pluck('o.id')) as number[];
+      if (ids.length === 0) return [];
       const rows = await scoped(db, party).whereIn('o.id', ids).select([...ORDER_COLUMNS, lineCount(db)]);
       const byId = new Map(rows.map((r) => [r.id as number, r]));
-      return { rows: ids.map((oid) => toOrder(byId.get(oid)!)), total, capped };
+      return ids.map((oid) => toOrder(byId.get(oid)!));
+    },
+
+    /** What changes whenever anything an order-book row shows changes (kept by triggers in the database). */
+    async bookVersion(organisationId: number): Promise<number> {
+      const peeked = peekRow<{ version: number }>(db, 'select version from order_book_versions where organisation_id = ?', organisationId);
+      if (peeked) return peeked.row?.version ?? 0;
+      const row = (await db('order_book_versions').where('organisation_id', organisationId).first('version')) as { version: number } | undefined;
+      return row?.version ?? 0;
     },
 
     /**
@@ -470,6 +493,11 @@ export function ordersRepository(db: Db) {
             note: l.note,
           })),
       }));
+    },
+
+    /** The order that carries this one's back-ordered packs, if one has been started. */
+    async followUpOf(orderId: number, trx: Db = db): Promise<{ id: number; status: OrderStatus } | undefined> {
+      return trx('orders').where({ follows_order_id: orderId }).first('id', 'status');
     },
 
     /** The people who run a merchant's order desk: they hear of every new order and change. */

@@ -5,6 +5,7 @@ import {
   cancelOrderBodySchema,
   commentBodySchema,
   confirmOrderBodySchema,
+  followUpBodySchema,
   orderBookQuerySchema,
   orderParamsSchema,
   placeOrderBodySchema,
@@ -25,7 +26,7 @@ export function ordersRoutes(orders: OrdersService) {
   });
 
   r.get('/orders', { access: { action: 'orders:read' }, query: orderBookQuerySchema }, async (req, res, { query }) => {
-    res.json(await orders.list(currentUser(req), query));
+    res.type('application/json').send(await orders.listJson(currentUser(req), query));
   });
 
   r.get('/orders/:id', { access: { action: 'orders:read' }, params: orderParamsSchema }, async (req, res, { params }) => {
@@ -90,6 +91,10 @@ export function ordersRoutes(orders: OrdersService) {
 
   r.post('/orders/:id/delivery', { access: { action: 'deliveries:record' }, params: orderParamsSchema, body: recordDeliveryBodySchema }, async (req, res, { params, body }) => {
     res.json(await orders.recordDelivery(currentUser(req), params.id, body));
+  });
+
+  r.post('/orders/:id/follow-up', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: followUpBodySchema }, async (req, res, { params, body }) => {
+    res.status(201).json(await orders.startFollowUp(currentUser(req), params.id, body));
   });
 
   r.get('/orders/:id/comments', { access: { action: 'orders:comment' }, params: orderParamsSchema }, async (req, res, { params }) => {

@@ -11,6 +11,8 @@ import {
   type OrderSite,
   type OrderSummary,
   type OrderDetail,
+  type OrderStatus,
+  type FollowUpBody,
   type amendOrderBodySchema,
   type confirmOrderBodySchema,
   type orderBookQuerySchema,
@@ -29,6 +31,7 @@ import { estimatesRepository } from '../estimates/estimates.repository';
 import { projectsService } from '../projects/projects.service';
 import { slotsService } from '../slots/slots.service';
 import { stockRepository } from '../stock/stock.repository';
+import { orderBookCache } from './order-book-cache';
 import { sendOrderMail, type OrderMailEvent } from './order-mail';
 import { ordersRepository, type NewOrderLine, type OrderParty, type OrderRow } from './orders.repository';
 
@@ -55,6 +58,8 @@ const ACTION_POLICY: Record<OrderAction, Action> = {
 export const partyOf = (user: AuthUser): OrderParty => ({ kind: user.organisation.kind, organisationId: user.organisation.id });
 const actorOf = (user: AuthUser) => ({ userId: user.id, name: user.name, organisationId: user.organisation.id });
 const todayIso = () => nowIso().slice(0, 10);
+/** Stages in which back-ordered packs are owed: once the first part is confirmed. */
+const FOLLOW_UP_FROM: readonly OrderStatus[] = ['confirmed', 'on_the_road', 'delivered'];
 
 function invalid(path: string, message: string): AppError {
   return AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path, message }]);
@@ -92,7 +97,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     const order = (await orders.find(party, orderId))!;
     const [contractor, desk, booking] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id), slots.booking(orderId)]);
     const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id) : undefined;
-    await sendOrderMail(deps, event, order, { contractor, desk }, note, slot ? { date: slot.date, time_window: slot.time_window, registration: slot.registration } : undefined);
+    await sendOrderMail(deps, event, order, { contractor, desk }, note, slot ? { date: slot.date, time_window: slot.time_window, registration: slot.registration } : undefined, party.kind);
   }
 
   /** Lines priced at the branch now; each product must be one the branch sells. */
@@ -129,14 +134,17 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     const party = partyOf(user);
     const order = await orders.find(party, id);
     if (!order) throw AppError.notFound('Order');
-    const [lines, proposals, timeline, comments, booking, invoice] = await Promise.all([
+    const [lines, proposals, timeline, comments, booking, invoice, followUp, follows] = await Promise.all([
       orders.lines(id),
       orders.proposals(id),
       orders.events(id),
       orders.comments(id),
       slots.booking(id),
       orders.invoiceOf(id),
+      orders.followUpOf(id),
+      order.follows_order_id ? orders.find(party, order.follows_order_id) : Promise.resolve(undefined),
     ]);
+    const backOrdered = lines.reduce((sum, l) => sum + l.back_order_quantity, 0);
     const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id) : undefined;
     const detail: Order = {
       ...summary(order),
@@ -156,7 +164,9 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     if (party.kind === 'merchant') {
       if (order.status === 'confirmed' && can(user.role, 'slots:book')) detail.allowed_actions.push('book_slot');
       if (['confirmed', 'on_the_road', 'delivered'].includes(order.status) && !invoice && can(user.role, 'invoices:issue')) detail.allowed_actions.push('issue_invoice');
+      if (FOLLOW_UP_FROM.includes(order.status) && backOrdered > 0 && !followUp && can(user.role, 'orders:confirm')) detail.allowed_actions.push('start_follow_up');
     }
+    const link = (o: { id: number; status: OrderStatus }) => ({ id: o.id, reference: orderReference(o.id), status: o.status, status_label: ORDER_STATUS_LABELS[o.status] });
     return {
       ...detail,
       lines,
@@ -184,6 +194,9 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           : null,
       comments: comments.map(({ organisationKind: _kind, ...c }) => c),
       invoice,
+      follows: follows ? link(follows) : null,
+      followed_by: followUp ? link(followUp) : null,
+      back_ordered_packs: backOrdered,
     };
   }
 
@@ -207,6 +220,12 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       updated_at: o.updated_at,
     };
   }
+
+  const book = orderBookCache({
+    version: orders.bookVersion,
+    count: orders.count,
+    page: async (party: OrderParty, f: ListQuery) => JSON.stringify((await orders.page(party, f)).map(summary)),
+  });
 
   /** Loads a contractor's order inside a transaction and checks the step is allowed at this revision. */
   async function forStep(trx: Db, user: AuthUser, id: number, action: OrderAction, revision?: number) {
@@ -247,9 +266,14 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     summary,
     newLine,
 
-    async list(user: AuthUser, query: ListQuery) {
-      const { rows, total, capped } = await orders.list(partyOf(user), query);
-      return { orders: rows.map(summary), total, total_capped: capped, page: query.page, page_size: query.page_size };
+    /**
+     * A page of the order book as JSON text ({orders, total, total_capped, page, page_size}): the
+     * book is read far more than it changes, so each page is read and serialised once per change
+     * (see order-book-cache) rather than once per reader.
+     */
+    async listJson(user: AuthUser, query: ListQuery): Promise<string> {
+      const { page, total, capped } = await book.read(partyOf(user), query);
+      return `{"orders":${page ?? '[]'},"total":${total},"total_capped":${capped},"page":${query.page},"page_size":${query.page_size}}`;
     },
 
     /**
@@ -727,6 +751,84 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       return get(user, id);
     },
 
+    /**
+     * Starts the delivery of an order's back-ordered packs: a new order to the same branch and site,
+     * one line per back-ordered line at the price agreed on the first order, waiting for the desk to
+     * confirm it against stock (it is already agreed with the contractor, so it arrives as agreed).
+     * Both orders name each other on their timelines; the first keeps its back-order figures as the
+     * record of what was promised. One follow-up per order.
+     */
+    async startFollowUp(user: AuthUser, id: number, body: FollowUpBody) {
+      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      assertNotPast(body.requested_date, 'requested_date');
+      const followUpId = await db.transaction(async (trx) => {
+        const order = await orders.find(partyOf(user), id, trx);
+        if (!order) throw AppError.notFound('Order');
+        if (!FOLLOW_UP_FROM.includes(order.status)) {
+          throw AppError.conflict('order_not_confirmed', `${orderReference(id)} is ${ORDER_STATUS_LABELS[order.status].toLowerCase()}: back-ordered packs follow once the order is confirmed`);
+        }
+        const existing = await orders.followUpOf(id, trx);
+        if (existing) throw AppError.conflict('follow_up_exists', `The back-ordered packs of ${orderReference(id)} already follow as ${orderReference(existing.id)}`, [{ message: `already follows as ${orderReference(existing.id)}`, order_id: existing.id, reference: orderReference(existing.id) }]);
+        const owed = (await orders.lines(id, trx)).filter((l) => l.back_order_quantity > 0);
+        if (owed.length === 0) throw AppError.conflict('nothing_back_ordered', `${orderReference(id)} has no back-ordered packs to send`);
+        const lines: NewOrderLine[] = owed.map((l) => ({
+          product_id: l.product_id,
+          sku: l.sku,
+          description: l.description,
+          category: l.category,
+          unit: l.unit,
+          pack_size: l.pack_size,
+          pack_weight_kg: l.pack_weight_kg,
+          quantity: l.back_order_quantity,
+          unit_price: l.unit_price,
+          total: l.unit_price * l.back_order_quantity,
+          status: 'asked',
+        }));
+        const packs = lines.reduce((sum, l) => sum + l.quantity, 0);
+        const subtotal = lines.reduce((sum, l) => sum + l.total, 0);
+        const newId = await orders.insertOrder(
+          trx,
+          {
+            contractor_organisation_id: order.contractor_organisation_id,
+            merchant_organisation_id: order.merchant_organisation_id,
+            branch_id: order.branch_id,
+            project_id: order.project_id,
+            estimate_id: order.estimate_id,
+            quote_id: null,
+            follows_order_id: order.id,
+            status: 'agreed',
+            requested_date: body.requested_date,
+            time_window: body.time_window !== undefined ? body.time_window : order.time_window,
+            delivery_method: order.delivery_method,
+            po_reference: order.po_reference,
+            notes: body.note ?? '',
+            site_name: order.site_name,
+            site: order.site,
+            subtotal,
+            placed_by: order.placed_by,
+            placed_at: nowIso(),
+          },
+          lines,
+        );
+        const wanted = `${body.requested_date}${body.time_window ? ` ${body.time_window}` : ''}`;
+        await orders.insertEvent(trx, newId, {
+          kind: 'follow_up_started',
+          actor: actorOf(user),
+          summary: `Carries the back-ordered packs of ${orderReference(order.id)}: ${lines.length} lines, ${packs} packs, wanted ${wanted}`,
+          data: { follows_order_id: order.id, lines: lines.length, packs, subtotal },
+        });
+        await orders.insertEvent(trx, order.id, {
+          kind: 'follow_up_started',
+          actor: actorOf(user),
+          summary: `Back-ordered packs (${packs}) follow as ${orderReference(newId)}, wanted ${wanted}`,
+          data: { follow_up_order_id: newId, packs },
+        });
+        return newId;
+      });
+      await notify('follow_up_started', followUpId, partyOf(user), body.note);
+      return get(user, followUpId);
+    },
+
     async comments(user: AuthUser, id: number) {
       if (!(await orders.find(partyOf(user), id))) throw AppError.notFound('Order');
       return { comments: (await orders.comments(id)).map(({ organisationKind: _kind, ...c }) => c) };
@@ -742,6 +844,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         return cid;
       });
       const c = (await orders.comments(id)).find((x) => x.id === commentId)!;
+      await notify('commented', id, partyOf(user), body);
       const { organisationKind: _kind, ...comment } = c;
       return comment;
     },

@@ -10,7 +10,7 @@ import {
   tableFeatures,
   useTable,
 } from '@tanstack/react-table';
-import type { ColumnDef, RowData, SortingState } from '@tanstack/react-table';
+import type { Column, ColumnDef, RowData, SortDirection, SortingState } from '@tanstack/react-table';
 
 /** The features every Ridgeload table has: click-to-sort headers, sorted in the browser. */
 export const dataTableFeatures = tableFeatures({
@@ -27,7 +27,26 @@ export function dataTableColumns<TRow extends RowData>() {
   return createColumnHelper<DataTableFeatures, TRow>();
 }
 
-interface DataTableProps<TRow extends RowData> {
+/** One column the rows are ordered by, as a server reports and accepts it. */
+export interface ServerSort<TSortId extends string = string> {
+  id: TSortId;
+  desc: boolean;
+}
+
+/**
+ * Sorting owned by the caller (usually the server, over every matching row rather than one page):
+ * the table shows the rows in the order given and only reports which header was pressed.
+ */
+export interface ServerSorting<TSortId extends string = string> {
+  /** The order the rows arrived in; null when it matches no column. */
+  sorting: ServerSort<TSortId> | null;
+  /** Column ids the server can sort by; every other header stays plain text. */
+  sortable: readonly TSortId[];
+  /** Called with the order asked for: the pressed column, flipped if it was already the sort. */
+  onSortingChange: (next: ServerSort<TSortId>) => void;
+}
+
+interface DataTableProps<TRow extends RowData, TSortId extends string = string> {
   /** Narrower screens scroll sideways below this width instead of squeezing words apart. */
   minWidthClass?: string;
   /** Visible caption naming the table (screen readers announce it on entry). */
@@ -36,7 +55,10 @@ interface DataTableProps<TRow extends RowData> {
   columns: readonly DataTableColumn<TRow>[];
   data: readonly TRow[];
   getRowId: (row: TRow) => string;
+  /** Client-side mode only: the order the rows start in. */
   initialSorting?: SortingState;
+  /** Server-driven mode: the table never reorders rows itself (see ServerSorting). */
+  serverSorting?: ServerSorting<TSortId>;
   empty?: ReactNode;
 }
 
@@ -53,9 +75,21 @@ const ariaSort = { asc: 'ascending', desc: 'descending' } as const;
 
 /**
  * The one table of the app. Sorting headers are real buttons (Tab to reach, Enter or Space to
- * sort) and each sortable column reports its order through aria-sort.
+ * sort) and each sortable column reports its order through aria-sort. Without `serverSorting` the
+ * rows are sorted in the browser; with it they are shown as given and a header press asks the
+ * caller for another order.
  */
-export function DataTable<TRow extends RowData>({ caption, captionHidden = false, columns, data, getRowId, initialSorting = [], empty, minWidthClass = 'min-w-[36rem]' }: DataTableProps<TRow>) {
+export function DataTable<TRow extends RowData, TSortId extends string = string>({
+  caption,
+  captionHidden = false,
+  columns,
+  data,
+  getRowId,
+  initialSorting = [],
+  serverSorting,
+  empty,
+  minWidthClass = 'min-w-[36rem]',
+}: DataTableProps<TRow, TSortId>) {
   const captionId = useId();
   const table = useTable({
     features: dataTableFeatures,
@@ -63,7 +97,24 @@ export function DataTable<TRow extends RowData>({ caption, captionHidden = false
     data: data as TRow[],
     getRowId: (row: TRow) => getRowId(row),
     initialState: { sorting: initialSorting },
+    // The server has already ordered (and paged) the rows; sorting one page here would mislead.
+    ...(serverSorting ? { manualSorting: true, enableMultiSort: false, state: { sorting: serverSorting.sorting ? [serverSorting.sorting] : [] } } : {}),
   });
+
+  // Server mode reads the caller's sort straight from the props, so a header never shows an older copy.
+  const headerSort = (column: Column<DataTableFeatures, TRow, unknown>): { canSort: boolean; sorted: false | SortDirection; onClick?: (event: unknown) => void } => {
+    if (!serverSorting) {
+      return { canSort: column.getCanSort(), sorted: column.getIsSorted(), onClick: column.getToggleSortingHandler() };
+    }
+    const id = column.id as TSortId;
+    if (!serverSorting.sortable.includes(id)) return { canSort: false, sorted: false };
+    const current = serverSorting.sorting;
+    const sorted = current?.id === id ? (current.desc ? 'desc' : 'asc') : false;
+    // A second press flips the order; a first press starts where the column says (numbers largest first).
+    const firstDesc = column.columnDef.sortDescFirst ?? column.getAutoSortDir() === 'desc';
+    const desc = sorted ? sorted === 'asc' : firstDesc;
+    return { canSort: true, sorted, onClick: () => serverSorting.onSortingChange({ id, desc }) };
+  };
 
   const rows = table.getRowModel().rows;
 
@@ -83,8 +134,7 @@ export function DataTable<TRow extends RowData>({ caption, captionHidden = false
           {table.getHeaderGroups().map((group) => (
             <tr key={group.id}>
               {group.headers.map((header) => {
-                const canSort = header.column.getCanSort();
-                const sorted = header.column.getIsSorted();
+                const { canSort, sorted, onClick } = headerSort(header.column);
                 return (
                   <th
                     key={header.id}
@@ -95,7 +145,7 @@ export function DataTable<TRow extends RowData>({ caption, captionHidden = false
                     {header.isPlaceholder ? null : canSort ? (
                       <button
                         type="button"
-                        onClick={header.column.getToggleSortingHandler()}
+                        onClick={onClick}
                         className="-mx-2 inline-flex min-h-tap items-center gap-1.5 rounded px-2 hover:bg-mortar-200"
                       >
                         <table.FlexRender header={header} />

@@ -14,6 +14,7 @@ import { formatDate, formatDateTime, formatMoney } from '../../../lib/format';
 import { useBranchStock } from '../api/get-branch-stock';
 import { ConfirmOrderForm } from './confirm-order-form';
 import { DeskStatusBadge } from './desk-status-badge';
+import { FollowUpLinks, FollowUpPanel } from './follow-up-panel';
 import { OfferChangesForm } from './offer-changes-form';
 import { OrderComments } from './order-comments';
 import { OrderTimeline } from './order-timeline';
@@ -119,6 +120,7 @@ export function DeskOrderDetail({ order, invoiceAction }: { order: OrderDetail; 
             {order.contractor.name} · placed {formatDateTime(order.placed_at)} · revision {order.revision}
           </span>
         </div>
+        <FollowUpLinks order={order} />
         {openProposal ? (
           <Alert tone="info" className="mt-4" title="Changes offered, waiting for the contractor" live={false}>
             Offered {formatDateTime(openProposal.proposed_at)}
@@ -150,6 +152,8 @@ export function DeskOrderDetail({ order, invoiceAction }: { order: OrderDetail; 
           ) : null}
         </Card>
       ) : null}
+
+      {can('start_follow_up') ? <FollowUpPanel key={order.id} order={order} /> : null}
 
       <div className="grid items-start gap-6 lg:grid-cols-2">
         <Card title="Delivery">

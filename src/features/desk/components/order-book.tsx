@@ -21,22 +21,29 @@ const STAGE_CHOICES: { value: string; label: string }[] = [
   ...ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] })),
 ];
 
-const SORT_LABELS: Record<(typeof ORDER_SORTS)[number], string> = {
-  placed_at: 'Date placed',
-  requested_date: 'Day wanted',
-  status: 'Stage',
-  subtotal: 'Subtotal',
-  updated_at: 'Last change',
+type OrderSort = (typeof ORDER_SORTS)[number];
+type SortDir = OrderBookFilters['dir'];
+
+/** Each server sort in words, both ways round; the phone's sort picker and the live count use them. */
+const SORT_WORDS: Record<OrderSort, Record<SortDir, string>> = {
+  placed_at: { desc: 'newest placed first', asc: 'oldest placed first' },
+  requested_date: { asc: 'soonest wanted first', desc: 'latest wanted first' },
+  // The server orders stage codes as text, which groups each stage together in no business order.
+  status: { asc: 'grouped by stage', desc: 'grouped by stage, reversed' },
+  subtotal: { desc: 'largest subtotal first', asc: 'smallest subtotal first' },
+  updated_at: { desc: 'latest change first', asc: 'oldest change first' },
 };
+
+const SORT_CHOICES = ORDER_SORTS.flatMap((sort) => (Object.keys(SORT_WORDS[sort]) as SortDir[]).map((dir) => ({ value: `${sort}:${dir}`, sort, dir, label: SORT_WORDS[sort][dir] })));
 
 const PAGE_SIZES = [25, 50, 100];
 
 const h = dataTableColumns<OrderSummary>();
-// Sorting is the server's (over every matching order), so the columns do not re-sort one page.
+// Sorting is the server's (over every matching order, not one page): column ids that match an
+// ORDER_SORTS name get a header button, and the table itself never reorders rows.
 const columns = h.columns([
   h.accessor('reference', {
     header: 'Order',
-    enableSorting: false,
     cell: (info) => (
       <span className="block whitespace-nowrap">
         <Link to={`/desk/orders/${info.row.original.id}`} className="font-semibold text-clay-700 underline underline-offset-2">
@@ -46,12 +53,11 @@ const columns = h.columns([
       </span>
     ),
   }),
-  h.accessor((row) => row.contractor.name, { id: 'contractor', header: 'Contractor', enableSorting: false, cell: (info) => <span className="block min-w-36">{info.getValue()}</span> }),
-  h.accessor((row) => row.project.name, { id: 'site', header: 'Site', enableSorting: false, cell: (info) => <span className="block min-w-36">{info.getValue()}</span> }),
-  h.accessor((row) => row.branch.name, { id: 'branch', header: 'Branch', enableSorting: false }),
+  h.accessor((row) => row.contractor.name, { id: 'contractor', header: 'Contractor', cell: (info) => <span className="block min-w-36">{info.getValue()}</span> }),
+  h.accessor((row) => row.project.name, { id: 'site', header: 'Site', cell: (info) => <span className="block min-w-36">{info.getValue()}</span> }),
+  h.accessor((row) => row.branch.name, { id: 'branch', header: 'Branch' }),
   h.accessor('requested_date', {
     header: 'Wanted',
-    enableSorting: false,
     cell: (info) => (
       <span className="whitespace-nowrap">
         {formatDate(info.getValue())}
@@ -59,10 +65,11 @@ const columns = h.columns([
       </span>
     ),
   }),
-  h.accessor('status', { header: 'Stage', enableSorting: false, cell: (info) => <DeskStatusBadge status={info.getValue()} /> }),
-  h.accessor('line_count', { header: 'Lines', enableSorting: false, cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
-  h.accessor('subtotal', { header: 'Subtotal', enableSorting: false, cell: (info) => <span className="whitespace-nowrap tabular-nums">{formatMoney(info.getValue())}</span> }),
-  h.accessor('placed_at', { header: 'Placed', enableSorting: false, cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
+  h.accessor('status', { header: 'Stage', cell: (info) => <DeskStatusBadge status={info.getValue()} /> }),
+  h.accessor('line_count', { header: 'Lines', cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
+  h.accessor('subtotal', { header: 'Subtotal', cell: (info) => <span className="whitespace-nowrap tabular-nums">{formatMoney(info.getValue())}</span> }),
+  h.accessor('placed_at', { header: 'Placed', sortDescFirst: true, cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
+  h.accessor('updated_at', { header: 'Last change', sortDescFirst: true, cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
 ]);
 
 /** The filters as the address holds them; anything the server would refuse falls back to its default. */
@@ -84,6 +91,16 @@ export function filtersFromSearch(search: URLSearchParams): OrderBookFilters {
   };
 }
 
+/** What survives "Clear the filters": how the desk likes the list ordered and paged is not a filter. */
+function keepOnClear(search: URLSearchParams): URLSearchParams {
+  const kept = new URLSearchParams();
+  for (const key of ['sort', 'dir', 'page_size']) {
+    const value = search.get(key);
+    if (value) kept.set(key, value);
+  }
+  return kept;
+}
+
 const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
 const inputClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-3';
 
@@ -94,13 +111,19 @@ export function OrderBook() {
   const orders = useOrderBook(filters);
   const branches = useDeskBranches();
   const id = useId();
-  const set = (changes: Record<string, string | undefined>, resetPage = true) => {
+  /**
+   * The address is the order book's only state. A new sort or page is a step of its own in the
+   * history (Back returns to it); typing in the filters replaces the current step.
+   */
+  const set = (changes: Record<string, string | undefined>, { resetPage = true, step = false } = {}) => {
     const next = new URLSearchParams(search);
     for (const [k, v] of Object.entries(changes)) if (v === undefined || v === '') next.delete(k);
     else next.set(k, v);
     if (resetPage) next.delete('page');
-    setSearch(next, { replace: true });
+    setSearch(next, { replace: !step });
   };
+  // Another order puts a different set of orders on page 2, so a new sort starts again at page 1.
+  const sortBy = (sort: OrderSort, dir: SortDir) => set({ sort, dir }, { step: true });
   const onSearch = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const data = new FormData(event.currentTarget);
@@ -132,19 +155,21 @@ export function OrderBook() {
             ))}
           </select>
         </div>
-        <div>
-          <label htmlFor={`${id}-sort`} className="mb-1 block text-sm font-medium">Sort by</label>
-          <select id={`${id}-sort`} value={filters.sort} onChange={(e) => set({ sort: e.target.value })} className={selectClass}>
-            {ORDER_SORTS.map((s) => (
-              <option key={s} value={s}>{SORT_LABELS[s]}</option>
+        {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
+        <div className="sm:hidden">
+          <label htmlFor={`${id}-sort`} className="mb-1 block text-sm font-medium">Sort</label>
+          <select
+            id={`${id}-sort`}
+            value={`${filters.sort}:${filters.dir}`}
+            onChange={(e) => {
+              const choice = SORT_CHOICES.find((c) => c.value === e.target.value);
+              if (choice) sortBy(choice.sort, choice.dir);
+            }}
+            className={selectClass}
+          >
+            {SORT_CHOICES.map((c) => (
+              <option key={c.value} value={c.value}>{c.label.charAt(0).toUpperCase() + c.label.slice(1)}</option>
             ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor={`${id}-dir`} className="mb-1 block text-sm font-medium">Order</label>
-          <select id={`${id}-dir`} value={filters.dir} onChange={(e) => set({ dir: e.target.value })} className={selectClass}>
-            <option value="desc">Newest or largest first</option>
-            <option value="asc">Oldest or smallest first</option>
           </select>
         </div>
         <div>
@@ -156,7 +181,7 @@ export function OrderBook() {
           </select>
         </div>
       </div>
-      <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={search.toString()}>
+      <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={[filters.q, filters.date_from, filters.date_to].join('|')}>
         <div className="min-w-56 flex-1">
           <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">Search orders</label>
           <input id={`${id}-q`} name="q" type="search" defaultValue={filters.q ?? ''} placeholder="RL-000123, PO, site or contractor" className={`${inputClass} w-full`} />
@@ -179,7 +204,7 @@ export function OrderBook() {
         </div>
         <Button type="submit" variant="secondary">Search</Button>
         {filtered ? (
-          <Button variant="ghost" onClick={() => setSearch(new URLSearchParams(), { replace: true })}>
+          <Button variant="ghost" onClick={() => setSearch(keepOnClear(search), { replace: true })}>
             Clear the filters
           </Button>
         ) : null}
@@ -192,6 +217,7 @@ export function OrderBook() {
         <>
           <p className="text-sm text-ink-700" aria-live="polite">
             {orders.data.total_capped ? `More than ${total.toLocaleString('en-GB')}` : total.toLocaleString('en-GB')} {total === 1 ? 'order' : 'orders'}
+            {` · ${SORT_WORDS[filters.sort][filters.dir]}`}
             {orders.isPlaceholderData ? ' · updating…' : ''}
           </p>
           <div className={orders.isPlaceholderData ? 'opacity-60' : ''}>
@@ -201,19 +227,20 @@ export function OrderBook() {
               columns={columns}
               data={orders.data.orders}
               getRowId={(row) => String(row.id)}
-              minWidthClass="min-w-[64rem]"
+              serverSorting={{ sorting: { id: filters.sort, desc: filters.dir === 'desc' }, sortable: ORDER_SORTS, onSortingChange: (next) => sortBy(next.id, next.desc ? 'desc' : 'asc') }}
+              minWidthClass="min-w-[70rem]"
               empty={<EmptyState title={filtered ? 'No order matches' : 'No orders yet'}>{filtered ? 'Try another stage, branch, day or search.' : 'Orders from contractors arrive here.'}</EmptyState>}
             />
           </div>
           {pages > 1 ? (
             <nav aria-label="Pages of the order book" className="flex flex-wrap items-center gap-3">
-              <Button variant="secondary" disabled={page <= 1} onClick={() => set({ page: String(page - 1) }, false)}>
+              <Button variant="secondary" disabled={page <= 1} onClick={() => set({ page: String(page - 1) }, { resetPage: false, step: true })}>
                 Previous page
               </Button>
               <span className="text-sm">
                 Page {page} of {orders.data.total_capped ? `${pages}+` : pages}
               </span>
-              <Button variant="secondary" disabled={page >= pages && !orders.data.total_capped} onClick={() => set({ page: String(page + 1) }, false)}>
+              <Button variant="secondary" disabled={page >= pages && !orders.data.total_capped} onClick={() => set({ page: String(page + 1) }, { resetPage: false, step: true })}>
                 Next page
               </Button>
             </nav>

@@ -66,6 +66,9 @@ export function deskOrderFixture(overrides: Partial<OrderDetail> = {}): OrderDet
     delivery: null,
     comments: [],
     invoice: null,
+    follows: null,
+    followed_by: null,
+    back_ordered_packs: 0,
     ...overrides,
   };
 }
