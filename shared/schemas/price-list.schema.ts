@@ -104,18 +104,24 @@ export const branchProductParamsSchema = z.object({ id: z.coerce.number().int().
 
 // Roof systems: a tile and the accessories that go with it, at one branch.
 
+const roofSystemFields = {
+  name: text(160).min(1, { error: 'must not be empty' }),
+  description: text(500),
+  settings: systemSettingsSchema,
+  /** Product per role; tile, ridge, batten, batten_nail, tile_nail and underlay make a whole roof. */
+  components: z.partialRecord(z.enum(SYSTEM_ROLES), z.number().int().positive()),
+};
 export const roofSystemBodySchema = z
   .object({
     branch_id: z.number().int().positive(),
-    name: text(160).min(1, { error: 'must not be empty' }),
-    description: text(500).default(''),
-    settings: systemSettingsSchema.default({}),
-    /** Product per role; tile, ridge, batten, batten_nail, tile_nail and underlay make a whole roof. */
-    components: z.partialRecord(z.enum(SYSTEM_ROLES), z.number().int().positive()),
+    ...roofSystemFields,
+    description: roofSystemFields.description.default(''),
+    settings: roofSystemFields.settings.default({}),
   })
   .strict();
 export type RoofSystemBody = z.input<typeof roofSystemBodySchema>;
-export const updateRoofSystemBodySchema = roofSystemBodySchema.omit({ branch_id: true }).partial().strict();
+/** A change names only what changes: no defaults here, or a rename would wipe the description and settings. */
+export const updateRoofSystemBodySchema = z.object(roofSystemFields).partial().strict();
 
 export const merchantRoofSystemSchema = z.object({
   id: z.number().int(),

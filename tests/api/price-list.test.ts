@@ -81,10 +81,14 @@ describe('products', () => {
     expect(s.body).toMatchObject({ offerable: false, problems: ['has no underlay product'] });
     const fixed = await m.desk.patch(`/api/roof-systems/${s.body.id}`, { components: { ...Object.fromEntries(s.body.components.map((c: { role: string; product_id: number }) => [c.role, c.product_id])), underlay: m.product('TRS-UVP-50') } });
     expect(fixed.body).toMatchObject({ offerable: true, problems: [] });
+    // A change names only what changes: renaming keeps the description and the settings.
+    await m.desk.patch(`/api/roof-systems/${s.body.id}`, { description: 'For the Hollin Brow plots', settings: { rafter_spacing_mm: 450 } });
+    const renamed = await m.desk.patch(`/api/roof-systems/${s.body.id}`, { name: 'Flatlock on 50 × 25, plots' });
+    expect(renamed.body).toMatchObject({ name: 'Flatlock on 50 × 25, plots', description: 'For the Hollin Brow plots', settings: { rafter_spacing_mm: 450 }, offerable: true });
     const wrong = await m.desk.post('/api/roof-systems', { branch_id: m.branchId, name: 'x', components: { tile: m.product('TRS-RHR-SG') } });
     expect(wrong.body.error.details[0]).toMatchObject({ path: 'components.tile', message: expect.stringMatching(/ridge product/) });
     const list = merchantRoofSystemListSchema.parse((await m.desk.get(`/api/roof-systems?branch_id=${m.branchId}`)).body);
-    expect(list.systems.map((x) => x.name)).toContain('Flatlock on 50 × 25');
+    expect(list.systems.map((x) => x.name)).toContain('Flatlock on 50 × 25, plots');
     expect((await m.desk.delete(`/api/roof-systems/${s.body.id}`)).status).toBe(204);
     expect((await m.desk.get(`/api/roof-systems/${s.body.id}`)).status).toBe(404);
   });

@@ -51,8 +51,24 @@ export function fleetRepository(db: Db) {
       return (row as { id: number }).id;
     },
 
-    async update(orgId: number, id: number, v: Partial<LorryValues> & { archived_at?: string | null }): Promise<void> {
-      await db('lorries').where({ organisation_id: orgId, id }).update({ ...v, updated_at: nowIso() });
+    async update(orgId: number, id: number, v: Partial<LorryValues> & { archived_at?: string | null }, trx: Db = db): Promise<void> {
+      await trx('lorries').where({ organisation_id: orgId, id }).update({ ...v, updated_at: nowIso() });
+    },
+
+    /** The lorry's runs from a day on, with how many of their orders are still to be delivered and how many are done. */
+    async comingSlots(lorryId: number, fromDate: string, trx: Db = db): Promise<{ id: number; date: string; time_window: string; waiting: number; done: number }[]> {
+      const rows = await trx('delivery_slots as s')
+        .leftJoin('slot_bookings as sb', 'sb.slot_id', 's.id')
+        .where('s.lorry_id', lorryId)
+        .where('s.date', '>=', fromDate)
+        .groupBy('s.id')
+        .orderBy([{ column: 's.date' }, { column: 's.time_window' }])
+        .select('s.id', 's.date', 's.time_window', trx.raw('count(sb.id) - count(sb.delivered_at) as waiting'), trx.raw('count(sb.delivered_at) as done'));
+      return rows.map((r) => ({ id: r.id as number, date: r.date as string, time_window: r.time_window as string, waiting: Number(r.waiting), done: Number(r.done) }));
+    },
+
+    async removeSlots(ids: number[], trx: Db): Promise<void> {
+      if (ids.length > 0) await trx('delivery_slots').whereIn('id', ids).delete();
     },
 
     /** The heaviest booking on any of the lorry's future slots, to refuse shrinking it below what is booked. */

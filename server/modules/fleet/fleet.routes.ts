@@ -22,6 +22,9 @@ export function fleetRoutes(fleet: FleetService) {
   r.delete('/lorries/:id', { access: { action: 'fleet:manage' }, params: idParamsSchema }, async (req, res, { params }) => {
     res.json(await fleet.archive(currentUser(req), params.id));
   });
+  r.post('/lorries/:id/restore', { access: { action: 'fleet:manage' }, params: idParamsSchema }, async (req, res, { params }) => {
+    res.json(await fleet.restore(currentUser(req), params.id));
+  });
   r.get('/drivers', { access: { action: 'slots:read' } }, async (req, res) => {
     res.json(await fleet.drivers(currentUser(req)));
   });

@@ -51,9 +51,38 @@ export function fleetService({ db }: Pick<AppDeps, 'db'>) {
       return lorry(user, id);
     },
 
+    /**
+     * Takes a lorry out of service. Its coming runs go with it, so nobody books onto a lorry that is
+     * no longer there; a run with orders still to deliver holds it back (move them first), and runs
+     * already delivered today stay as the record.
+     */
     async archive(user: AuthUser, id: number) {
-      await lorry(user, id);
-      await fleet.update(user.organisation.id, id, { archived_at: nowIso() });
+      await db.transaction(async (trx) => {
+        const l = await fleet.find(user.organisation.id, id, trx);
+        if (!l) throw AppError.notFound('Lorry');
+        if (l.archived_at) return;
+        const coming = await fleet.comingSlots(id, nowIso().slice(0, 10), trx);
+        const booked = coming.filter((s) => s.waiting > 0);
+        if (booked.length > 0) {
+          throw AppError.conflict(
+            'lorry_booked',
+            `${l.registration} still has orders to deliver on ${booked.length === 1 ? 'a coming run' : `${booked.length} coming runs`}; move them to another lorry first`,
+            booked.map((s) => ({ message: `${s.date} ${s.time_window}: ${s.waiting} ${s.waiting === 1 ? 'order' : 'orders'} to deliver`, slot_id: s.id, date: s.date, time_window: s.time_window })),
+          );
+        }
+        await fleet.removeSlots(
+          coming.filter((s) => s.done === 0).map((s) => s.id),
+          trx,
+        );
+        await fleet.update(user.organisation.id, id, { archived_at: nowIso() }, trx);
+      });
+      return lorry(user, id);
+    },
+
+    /** Puts an archived lorry back in service (its runs are made again from the calendar). */
+    async restore(user: AuthUser, id: number) {
+      const l = await lorry(user, id);
+      if (l.archived_at) await fleet.update(user.organisation.id, id, { archived_at: null });
       return lorry(user, id);
     },
 

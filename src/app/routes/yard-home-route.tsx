@@ -1,3 +1,4 @@
+import { can } from '../../../shared/domain/policy';
 import { ROLE_LABELS } from '../../../shared/domain/roles';
 import { SectionBoundary } from '../../components/errors/section-boundary';
 import { PageHeader } from '../../components/ui/page-header';
@@ -16,7 +17,7 @@ export function YardHomeRoute() {
     <RoleHome role={user.role}>
       <PageHeader title="Yard and transport" lead={`${organisation.name} · ${user.name}, ${ROLE_LABELS[user.role]}`} />
       <SectionBoundary name="slots and lorries">
-        <YardBoard />
+        <YardBoard canManage={can(user.role, 'fleet:manage')} />
       </SectionBoundary>
       <div className="mt-8 grid items-start gap-6 lg:grid-cols-[2fr_1fr]">
         <SectionBoundary name="branches">

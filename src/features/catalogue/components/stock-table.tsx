@@ -1,16 +1,19 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { CATEGORY_LABELS } from '../../../../shared/schemas/catalogue.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { formatMoney } from '../../../lib/format';
 import { useStock } from '../api/get-stock';
+import { PriceEditForm } from './price-edit-form';
+import { StockEditForm } from './stock-edit-form';
 
 const STATE_WORDS: Record<StockItem['state'], string> = { in_stock: 'In stock', low: 'At or below reorder level', out_of_stock: 'None free' };
 
 const h = dataTableColumns<StockItem>();
-const columns = h.columns([
+const figureColumns = [
   h.accessor('sku', { header: 'SKU', sortFn: 'text', cell: (info) => <span className="font-mono text-sm whitespace-nowrap">{info.getValue()}</span> }),
   h.accessor('name', { header: 'Product', sortFn: 'text', cell: (info) => <span className="block min-w-56 text-sm">{info.getValue()}</span> }),
   h.accessor('category', { header: 'Kind', sortFn: 'text', cell: (info) => CATEGORY_LABELS[info.getValue()] }),
@@ -29,18 +32,62 @@ const columns = h.columns([
       </span>
     ),
   }),
-]);
+];
 
-/** A branch's products with price and stock; those at or below their reorder level stand out. */
-export function StockTable({ branchId }: { branchId: number }) {
+type EditKind = 'stock' | 'price';
+interface Editing {
+  productId: number;
+  kind: EditKind;
+}
+
+/** The change buttons come first so they are in reach on a phone without scrolling the wide table sideways. */
+function stockColumns(kinds: readonly EditKind[], onEdit: (item: StockItem, kind: EditKind) => void) {
+  if (kinds.length === 0) return h.columns(figureColumns);
+  return h.columns([
+    h.display({
+      id: 'edit',
+      header: () => <span className="sr-only">Change</span>,
+      cell: (info) => (
+        <div className="flex gap-2">
+          {kinds.includes('stock') ? (
+            <Button variant="secondary" onClick={() => onEdit(info.row.original, 'stock')} aria-label={`Edit stock of ${info.row.original.sku}`}>
+              Edit
+            </Button>
+          ) : null}
+          {kinds.includes('price') ? (
+            <Button variant="ghost" onClick={() => onEdit(info.row.original, 'price')} aria-label={`Change the price of ${info.row.original.sku}`}>
+              Price
+            </Button>
+          ) : null}
+        </div>
+      ),
+    }),
+    ...figureColumns,
+  ]);
+}
+
+/**
+ * A branch's products with price and stock; those at or below their reorder level stand out.
+ * `canEdit` (stock:manage) offers the count and reorder level, `canEditPrice` (catalogue:manage) the pack price.
+ */
+export function StockTable({ branchId, canEdit = false, canEditPrice = false }: { branchId: number; canEdit?: boolean; canEditPrice?: boolean }) {
   const stock = useStock(branchId);
   const [lowOnly, setLowOnly] = useState(false);
+  const [editing, setEditing] = useState<Editing | null>(null);
+  const columns = useMemo(() => {
+    const kinds: EditKind[] = [...(canEdit ? (['stock'] as const) : []), ...(canEditPrice ? (['price'] as const) : [])];
+    return stockColumns(kinds, (item, kind) => setEditing({ productId: item.product_id, kind }));
+  }, [canEdit, canEditPrice]);
   if (stock.isPending) return <SkeletonBlock label="Loading the stock" lines={6} />;
   if (stock.isError) return <ErrorAlert error={stock.error} title="The stock could not be loaded" onRetry={() => void stock.refetch()} />;
   const items = lowOnly ? stock.data.items.filter((i) => i.state !== 'in_stock') : stock.data.items;
   const low = stock.data.items.filter((i) => i.state !== 'in_stock').length;
+  const item = editing ? stock.data.items.find((i) => i.product_id === editing.productId) : undefined;
+  const close = () => setEditing(null);
   return (
     <div className="space-y-3">
+      {item && editing?.kind === 'stock' ? <StockEditForm key={`s${item.product_id}`} branchId={branchId} item={item} onDone={close} /> : null}
+      {item && editing?.kind === 'price' ? <PriceEditForm key={`p${item.product_id}`} branchId={branchId} item={item} onDone={close} /> : null}
       <label className="flex min-h-tap items-center gap-3">
         <input type="checkbox" checked={lowOnly} onChange={(e) => setLowOnly(e.target.checked)} className="h-5 w-5" />
         Only what is at or below its reorder level ({low})

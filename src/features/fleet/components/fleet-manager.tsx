@@ -8,10 +8,13 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useLorries } from '../api/get-lorries';
 import { useYardBranches } from '../api/get-yard-branches';
+import { ArchiveLorry } from './archive-lorry';
+import { ArchivedLorries } from './archived-lorries';
 import { LorryForm } from './lorry-form';
+import { SlotCalendar } from './slot-calendar';
 import { CreateSlotForm, GenerateSlotsForm } from './slot-forms';
 
-function LorryRow({ branchId, lorry }: { branchId: number; lorry: Lorry }) {
+function LorryRow({ branchId, lorry, canManage }: { branchId: number; lorry: Lorry; canManage: boolean }) {
   const [editing, setEditing] = useState(false);
   return (
     <li className="py-3">
@@ -23,11 +26,16 @@ function LorryRow({ branchId, lorry }: { branchId: number; lorry: Lorry }) {
             {lorry.payload_kg.toLocaleString('en-GB')} kg · {lorry.pallet_slots} pallet slots · {lorry.has_crane ? `crane lifts ${(lorry.crane_max_kg ?? 0).toLocaleString('en-GB')} kg` : 'no crane'}
           </span>
         </span>
-        <Button variant="secondary" onClick={() => setEditing((v) => !v)} aria-expanded={editing}>
-          {editing ? 'Close' : `Change ${lorry.registration}`}
-        </Button>
+        {canManage ? (
+          <div className="flex flex-wrap items-start gap-2">
+            <Button variant="secondary" onClick={() => setEditing((v) => !v)} aria-expanded={editing}>
+              {editing ? 'Close' : `Change ${lorry.registration}`}
+            </Button>
+            {editing ? null : <ArchiveLorry lorry={lorry} />}
+          </div>
+        ) : null}
       </div>
-      {editing ? (
+      {editing && canManage ? (
         <div className="mt-4">
           <LorryForm branchId={branchId} lorry={lorry} onDone={() => setEditing(false)} />
         </div>
@@ -36,7 +44,7 @@ function LorryRow({ branchId, lorry }: { branchId: number; lorry: Lorry }) {
   );
 }
 
-function BranchFleet({ branchId }: { branchId: number }) {
+function BranchFleet({ branchId, canManage }: { branchId: number; canManage: boolean }) {
   const lorries = useLorries(branchId);
   if (lorries.isPending) return <SkeletonBlock label="Loading the lorries" lines={3} />;
   if (lorries.isError) return <ErrorAlert error={lorries.error} title="The lorries could not be loaded" onRetry={() => void lorries.refetch()} />;
@@ -45,19 +53,27 @@ function BranchFleet({ branchId }: { branchId: number }) {
     <div className="space-y-6">
       <Card title="Lorries">
         {active.length === 0 ? (
-          <EmptyState title="No lorries yet">Add the branch&rsquo;s first lorry below; slots need a lorry.</EmptyState>
+          <EmptyState title="No lorries yet">{canManage ? 'Add the branch’s first lorry below; slots need a lorry.' : 'The branch has no lorries in service.'}</EmptyState>
         ) : (
           <ul className="divide-y divide-mortar-200">
             {active.map((l) => (
-              <LorryRow key={l.id} branchId={branchId} lorry={l} />
+              <LorryRow key={l.id} branchId={branchId} lorry={l} canManage={canManage} />
             ))}
           </ul>
         )}
+        <div className="mt-4 border-t border-mortar-200 pt-3">
+          <ArchivedLorries branchId={branchId} canManage={canManage} />
+        </div>
       </Card>
-      <Card title="Add a lorry">
-        <LorryForm branchId={branchId} />
+      <Card title="Slot calendar">
+        <SlotCalendar branchId={branchId} canManage={canManage} />
       </Card>
-      {active.length ? (
+      {canManage ? (
+        <Card title="Add a lorry">
+          <LorryForm branchId={branchId} />
+        </Card>
+      ) : null}
+      {canManage && active.length ? (
         <>
           <Card title="Make slots for a run of days">
             <GenerateSlotsForm branchId={branchId} lorries={active} />
@@ -71,8 +87,12 @@ function BranchFleet({ branchId }: { branchId: number }) {
   );
 }
 
-/** The dispatcher's fleet page: one branch at a time, its lorries and the slots they offer. */
-export function FleetManager() {
+/**
+ * The dispatcher's fleet page: one branch at a time, its lorries and the slots they offer.
+ * `canManage` is `can(role, 'fleet:manage')`; it defaults to true because the page's route is
+ * guarded by that action, and the server checks it again on every change.
+ */
+export function FleetManager({ canManage = true }: { canManage?: boolean }) {
   const branches = useYardBranches();
   const [chosen, setChosen] = useState<number | null>(null);
   if (branches.isPending) return <SkeletonBlock label="Loading the branches" lines={3} />;
@@ -82,7 +102,7 @@ export function FleetManager() {
   return (
     <div className="space-y-6">
       <BranchSelect branches={branches.data} value={current} onChange={setChosen} />
-      <BranchFleet key={current} branchId={current} />
+      <BranchFleet key={current} branchId={current} canManage={canManage} />
     </div>
   );
 }

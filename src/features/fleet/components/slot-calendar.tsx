@@ -1,15 +1,18 @@
 import { useId, useState } from 'react';
 import type { Slot } from '../../../../shared/schemas/slot.schema';
-import { ErrorAlert, errorMessage } from '../../../components/ui/alert';
+import { Alert, ErrorAlert, errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useToast } from '../../../components/ui/toast';
 import { formatDate } from '../../../lib/format';
-import { useAssignDriver } from '../api/assign-driver';
 import { useDispatchOrder } from '../api/dispatch-order';
 import { useDrivers } from '../api/get-drivers';
 import { useSlotDay } from '../api/get-slot-day';
+import { useRemoveSlot } from '../api/remove-slot';
+import { useUpdateSlot } from '../api/update-slot';
+import { ActionError } from './action-error';
+import { ChangeSlotForm } from './slot-forms';
 
 const kg = (value: number) => `${Math.round(value).toLocaleString('en-GB')} kg`;
 const pct = (used: number, of: number) => (of > 0 ? Math.min(100, Math.round((used / of) * 100)) : 0);
@@ -28,42 +31,95 @@ function Capacity({ label, used, of, text }: { label: string; used: number; of: 
   );
 }
 
-function SlotRow({ slot, drivers }: { slot: Slot; drivers: { id: number; name: string }[] }) {
-  const assign = useAssignDriver();
+/** Removing a slot, asked once more first; a slot with orders on it is refused by the server (409). */
+function RemoveSlot({ slot, onDone }: { slot: Slot; onDone: () => void }) {
+  const remove = useRemoveSlot();
+  const toast = useToast();
+  const booked = slot.bookings.length;
+  return (
+    <div className="space-y-3">
+      <Alert tone="caution" title={`Remove the ${slot.time_window} slot of ${slot.lorry.registration} on ${formatDate(slot.date)}?`} live={false}>
+        {booked
+          ? `${booked === 1 ? 'One order is' : `${booked} orders are`} booked on it. A slot with orders cannot be removed: move them to another slot first.`
+          : 'Nothing is booked on it. Removed, it no longer offers this window to the desk.'}
+      </Alert>
+      {remove.isError ? <ActionError error={remove.error} title="The slot was not removed" /> : null}
+      <div className="flex flex-wrap gap-2">
+        <Button
+          variant="danger"
+          busy={remove.isPending}
+          onClick={() =>
+            // The promise, not mutate's callbacks: the slot is gone from the refetched day (and unmounted) before they would run.
+            remove.mutateAsync(slot.id).then(
+              () => {
+                toast.show(`Slot removed: ${slot.lorry.registration}, ${slot.date} ${slot.time_window}.`, 'success');
+                onDone();
+              },
+              () => undefined, // shown at the slot from the mutation's state
+            )
+          }
+        >
+          Remove the slot
+        </Button>
+        <Button variant="ghost" autoFocus onClick={onDone}>
+          Keep it
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: number; name: string }[]; canManage: boolean }) {
+  const assign = useUpdateSlot();
   const dispatch = useDispatchOrder();
   const toast = useToast();
   const selectId = useId();
+  const [panel, setPanel] = useState<'change' | 'remove' | null>(null);
+  const named = `${slot.time_window} ${slot.lorry.registration}`;
   return (
     <li className="space-y-3 rounded-md border border-mortar-300 bg-white p-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="font-semibold">
           {slot.time_window} · {slot.lorry.registration} <span className="font-normal text-ink-700">{slot.lorry.name}{slot.lorry.has_crane ? `, crane ${kg(slot.lorry.crane_max_kg ?? 0)}` : ''}</span>
         </h3>
-        <div className="flex items-center gap-2">
-          <label htmlFor={selectId} className="text-sm font-medium">
-            Driver
-          </label>
-          <select
-            id={selectId}
-            value={slot.driver?.id ?? ''}
-            disabled={assign.isPending}
-            onChange={(e) =>
-              assign.mutate(
-                { slotId: slot.id, driverId: e.target.value ? Number(e.target.value) : null },
-                { onSuccess: () => toast.show('Driver assigned.', 'success'), onError: (error) => toast.show(errorMessage(error), 'danger') },
-              )
-            }
-            className="block min-h-tap rounded-md border border-ink-300 bg-white px-2"
-          >
-            <option value="">No driver</option>
-            {drivers.map((d) => (
-              <option key={d.id} value={d.id}>
-                {d.name}
-              </option>
-            ))}
-          </select>
-        </div>
+        {canManage ? (
+          <div className="flex flex-wrap items-center gap-2">
+            <label htmlFor={selectId} className="text-sm font-medium">
+              Driver
+            </label>
+            <select
+              id={selectId}
+              value={slot.driver?.id ?? ''}
+              disabled={assign.isPending}
+              onChange={(e) =>
+                assign.mutate(
+                  { slotId: slot.id, body: { driver_id: e.target.value ? Number(e.target.value) : null } },
+                  { onSuccess: () => toast.show('Driver assigned.', 'success'), onError: (error) => toast.show(errorMessage(error), 'danger') },
+                )
+              }
+              className="block min-h-tap rounded-md border border-ink-300 bg-white px-2"
+            >
+              <option value="">No driver</option>
+              {slot.driver && !drivers.some((d) => d.id === slot.driver?.id) ? <option value={slot.driver.id}>{slot.driver.name}</option> : null}
+              {drivers.map((d) => (
+                <option key={d.id} value={d.id}>
+                  {d.name}
+                </option>
+              ))}
+            </select>
+            <Button variant="secondary" aria-label={`Change ${named}`} aria-expanded={panel === 'change'} onClick={() => setPanel((p) => (p === 'change' ? null : 'change'))}>
+              Change
+            </Button>
+            <Button variant="secondary" aria-label={`Remove ${named}`} aria-expanded={panel === 'remove'} onClick={() => setPanel((p) => (p === 'remove' ? null : 'remove'))}>
+              Remove
+            </Button>
+          </div>
+        ) : (
+          <span className="text-sm">Driver: {slot.driver?.name ?? 'none yet'}</span>
+        )}
       </div>
+      {canManage && panel === 'change' ? <ChangeSlotForm slot={slot} drivers={drivers} onDone={() => setPanel(null)} /> : null}
+      {canManage && panel === 'remove' ? <RemoveSlot slot={slot} onDone={() => setPanel(null)} /> : null}
       <div className="grid gap-3 sm:grid-cols-2">
         <Capacity label="Payload" used={slot.booked_kg} of={slot.payload_kg} text={`${kg(slot.booked_kg)} of ${kg(slot.payload_kg)}`} />
         <Capacity label="Pallet slots" used={slot.booked_pallets} of={slot.pallet_slots} text={`${slot.booked_pallets} of ${slot.pallet_slots}`} />
@@ -99,8 +155,11 @@ function SlotRow({ slot, drivers }: { slot: Slot; drivers: { id: number; name: s
 
 const today = () => new Date().toISOString().slice(0, 10);
 
-/** A branch's slots on a day: what each lorry carries, who drives it, and sending the loads out. */
-export function SlotCalendar({ branchId }: { branchId: number }) {
+/**
+ * A branch's slots on a day: what each lorry carries, who drives it, and sending the loads out.
+ * With `canManage` (fleet:manage) each slot can be given a driver, changed or removed.
+ */
+export function SlotCalendar({ branchId, canManage }: { branchId: number; canManage: boolean }) {
   const dateId = useId();
   const [date, setDate] = useState(today);
   const slots = useSlotDay(branchId, date);
@@ -131,7 +190,7 @@ export function SlotCalendar({ branchId }: { branchId: number }) {
       ) : (
         <ul className="space-y-3">
           {slots.data.slots.map((slot) => (
-            <SlotRow key={slot.id} slot={slot} drivers={drivers.data?.drivers ?? []} />
+            <SlotRow key={slot.id} slot={slot} drivers={drivers.data?.drivers ?? []} canManage={canManage} />
           ))}
         </ul>
       )}

@@ -1,10 +1,15 @@
 import { useMemo } from 'react';
 import type { Lorry } from '../../../../shared/schemas/fleet.schema';
+import type { Slot } from '../../../../shared/schemas/slot.schema';
 import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
 import { useZodForm } from '../../../components/form/use-zod-form';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateSlot, useGenerateSlots } from '../api/create-slots';
 import { useDrivers } from '../api/get-drivers';
+import { useUpdateSlot } from '../api/update-slot';
+import { slotChangeFormSchema } from '../lib/slot-change';
 import { generateFormSchema, lorryChoiceField, slotFormSchema, WEEKDAYS, weekdayField } from '../lib/slot-forms';
 
 const lorryLabel = (l: Lorry) => `${l.registration}${l.name ? ` · ${l.name}` : ''}`;
@@ -80,6 +85,50 @@ export function GenerateSlotsForm({ branchId, lorries }: { branchId: number; lor
         </div>
       </fieldset>
       <SubmitButton>Make the slots</SubmitButton>
+    </Form>
+  );
+}
+
+/**
+ * Changing one slot: its time window and its driver, the two things a slot's own record holds (the
+ * lorry and the day are the slot itself; to move those, add a slot and move the orders). Only what
+ * differs is sent; a refusal (the lorry has that window already, the driver is not one of yours)
+ * shows in the form, beside the slot.
+ */
+export function ChangeSlotForm({ slot, drivers, onDone }: { slot: Slot; drivers: readonly { id: number; name: string }[]; onDone: () => void }) {
+  const update = useUpdateSlot();
+  const toast = useToast();
+  const driverId = slot.driver?.id ?? null;
+  const schema = useMemo(() => slotChangeFormSchema({ time_window: slot.time_window, driver_id: driverId }), [slot.time_window, driverId]);
+  // The slot's own driver is always a choice, so a driver list still loading never reads as "take the driver off".
+  const choices = [...(slot.driver && !drivers.some((d) => d.id === driverId) ? [slot.driver] : []), ...drivers];
+  const driverOptions = [{ value: '', label: 'No driver' }, ...choices.map((d) => ({ value: String(d.id), label: d.name }))];
+  const form = useZodForm({
+    schema,
+    onSubmit: async (body) => {
+      const saved = await update.mutateAsync({ slotId: slot.id, body });
+      toast.show(`Slot changed: ${saved.lorry.registration}, ${saved.time_window}${saved.driver ? `, ${saved.driver.name} driving` : ', no driver yet'}.`, 'success');
+      onDone();
+    },
+  });
+  const booked = slot.bookings.length;
+  return (
+    <Form form={form} label={`Change the slot ${slot.time_window} of ${slot.lorry.registration}`}>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField name="time_window" label="Time window" hint="HH:MM-HH:MM, e.g. 12:30-16:30" autoComplete="off" defaultValue={slot.time_window} />
+        <SelectField name="driver_id" label="Driver" options={driverOptions} defaultValue={driverId === null ? '' : String(driverId)} />
+      </div>
+      {booked ? (
+        <Alert tone="info" live={false}>
+          {booked === 1 ? 'One order is' : `${booked} orders are`} booked on this slot and move with it to the new window; tell the site if its delivery time changes.
+        </Alert>
+      ) : null}
+      <div className="flex flex-wrap gap-2">
+        <SubmitButton>Save the slot</SubmitButton>
+        <Button variant="ghost" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
     </Form>
   );
 }

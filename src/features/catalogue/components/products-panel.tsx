@@ -1,0 +1,151 @@
+import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import { CATEGORY_LABELS, PRODUCT_CATEGORIES } from '../../../../shared/schemas/catalogue.schema';
+import type { ProductCategory } from '../../../../shared/schemas/catalogue.schema';
+import type { Product } from '../../../../shared/schemas/price-list.schema';
+import { ErrorAlert, errorMessage } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { Card } from '../../../components/ui/card';
+import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
+import { useToast } from '../../../components/ui/toast';
+import { useArchiveProduct } from '../api/archive-product';
+import { useProducts } from '../api/get-products';
+import { useRestoreProduct } from '../api/restore-product';
+import type { ProductFilters } from '../api/keys';
+import { ProductForm } from './product-form';
+
+type Shown = NonNullable<ProductFilters['archived']>;
+const SHOWN_WORDS: Record<Shown, string> = { false: 'In the catalogue', true: 'Archived', all: 'All' };
+
+const h = dataTableColumns<Product>();
+const figureColumns = [
+  h.accessor('sku', { header: 'SKU', sortFn: 'text', cell: (info) => <span className="font-mono text-sm whitespace-nowrap">{info.getValue()}</span> }),
+  h.accessor('name', { header: 'Product', sortFn: 'text', cell: (info) => <span className="block min-w-48 text-sm">{info.getValue()}</span> }),
+  h.accessor('category', { header: 'Kind', sortFn: 'text', cell: (info) => CATEGORY_LABELS[info.getValue()] }),
+  h.accessor('pack_size', { header: 'Pack', sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap tabular-nums">{info.getValue()} {info.row.original.unit}</span> }),
+  h.accessor('pack_weight_kg', { header: 'Pack weight', sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap tabular-nums">{info.getValue().toLocaleString('en-GB')} kg</span> }),
+  h.accessor('tax_rate_bp', { header: 'Tax', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() / 100} %</span> }),
+  h.accessor((p) => p.branches.length, { id: 'branches', header: 'Sold at', sortFn: 'alphanumeric', cell: (info) => `${info.getValue()} ${info.getValue() === 1 ? 'branch' : 'branches'}` }),
+  h.accessor((p) => (p.archived_at ? 'Archived' : 'In the catalogue'), { id: 'status', header: 'Status', sortFn: 'text' }),
+];
+
+function ProductActions({ product, onEdit }: { product: Product; onEdit: (p: Product) => void }) {
+  const archive = useArchiveProduct();
+  const restore = useRestoreProduct();
+  const toast = useToast();
+  const onArchive = () =>
+    archive.mutate(product.id, {
+      onSuccess: () => toast.show(`${product.sku} is archived; restore it from the archived list.`, 'success'),
+      onError: (error) => toast.show(`${product.sku} could not be archived: ${errorMessage(error)}`, 'danger'),
+    });
+  const onRestore = () =>
+    restore.mutate(product.id, {
+      onSuccess: () => toast.show(`${product.sku} is back in the catalogue.`, 'success'),
+      onError: (error) => toast.show(`${product.sku} could not be restored: ${errorMessage(error)}`, 'danger'),
+    });
+  return (
+    <div className="flex gap-2">
+      <Button variant="secondary" onClick={() => onEdit(product)} aria-label={`Edit ${product.sku}`}>
+        Edit
+      </Button>
+      {product.archived_at ? (
+        <Button variant="secondary" busy={restore.isPending} onClick={onRestore} aria-label={`Restore ${product.sku}`}>
+          Restore
+        </Button>
+      ) : (
+        <Button variant="ghost" busy={archive.isPending} onClick={onArchive} aria-label={`Archive ${product.sku}`}>
+          Archive
+        </Button>
+      )}
+    </div>
+  );
+}
+
+/** The merchant's products, shared by every branch: filter, add, change, archive and restore. */
+export function ProductsPanel({ canManage }: { canManage: boolean }) {
+  const [archived, setArchived] = useState<Shown>('false');
+  const [category, setCategory] = useState<ProductCategory | ''>('');
+  const [editing, setEditing] = useState<Product | null>(null);
+  const [adding, setAdding] = useState(false);
+  const products = useProducts({ archived, ...(category ? { category } : {}) });
+  const formArea = useRef<HTMLDivElement>(null);
+  const openId = editing ? editing.id : adding ? 'new' : null;
+  useEffect(() => {
+    // The form opens above the table, often out of view of the row pressed: move focus (and the view) to it.
+    if (openId !== null) formArea.current?.querySelector('input')?.focus();
+  }, [openId]);
+  const shownId = useId();
+  const categoryId = useId();
+  const columns = useMemo(
+    () =>
+      canManage
+        ? h.columns([
+            h.display({ id: 'actions', header: () => <span className="sr-only">Change</span>, cell: (info) => <ProductActions product={info.row.original} onEdit={(p) => { setAdding(false); setEditing(p); }} /> }),
+            ...figureColumns,
+          ])
+        : h.columns(figureColumns),
+    [canManage],
+  );
+  return (
+    <div className="space-y-6">
+      <div ref={formArea} className="empty:hidden">
+        {editing ? (
+          <Card title={`Change ${editing.sku}`}>
+            <ProductForm key={editing.id} product={editing} onDone={() => setEditing(null)} />
+          </Card>
+        ) : null}
+        {adding && !editing ? (
+          <Card title="Add a product">
+            <ProductForm onDone={() => setAdding(false)} />
+          </Card>
+        ) : null}
+      </div>
+      <Card
+        title="Products"
+        actions={
+          canManage && !adding && !editing ? (
+            <Button onClick={() => setAdding(true)}>Add a product</Button>
+          ) : null
+        }
+      >
+        <div className="mb-4 flex flex-wrap gap-4">
+          <div>
+            <label htmlFor={shownId} className="mb-1 block font-medium">
+              Show
+            </label>
+            <select id={shownId} value={archived} onChange={(e) => setArchived(e.target.value as Shown)} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
+              {(Object.keys(SHOWN_WORDS) as Shown[]).map((s) => (
+                <option key={s} value={s}>
+                  {SHOWN_WORDS[s]}
+                </option>
+              ))}
+            </select>
+          </div>
+          <div>
+            <label htmlFor={categoryId} className="mb-1 block font-medium">
+              Category
+            </label>
+            <select id={categoryId} value={category} onChange={(e) => setCategory(e.target.value as ProductCategory | '')} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
+              <option value="">Every category</option>
+              {PRODUCT_CATEGORIES.map((c) => (
+                <option key={c} value={c}>
+                  {CATEGORY_LABELS[c]}
+                </option>
+              ))}
+            </select>
+          </div>
+        </div>
+        {products.isPending ? (
+          <SkeletonBlock label="Loading the products" lines={6} />
+        ) : products.isError ? (
+          <ErrorAlert error={products.error} title="The products could not be loaded" onRetry={() => void products.refetch()} />
+        ) : products.data.length === 0 ? (
+          <EmptyState title={archived === 'true' ? 'Nothing is archived' : 'No products here yet'}>{canManage && archived !== 'true' ? 'Add one with “Add a product”.' : null}</EmptyState>
+        ) : (
+          <DataTable caption="Products" captionHidden columns={columns} data={products.data} getRowId={(p) => String(p.id)} minWidthClass="min-w-[64rem]" initialSorting={[{ id: 'sku', desc: false }]} />
+        )}
+      </Card>
+    </div>
+  );
+}

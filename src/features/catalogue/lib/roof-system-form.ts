@@ -1,0 +1,46 @@
+import { z } from 'zod';
+import { SYSTEM_ROLES } from '../../../../shared/schemas/catalogue.schema';
+import type { SystemRole } from '../../../../shared/schemas/catalogue.schema';
+import { roofSystemBodySchema, updateRoofSystemBodySchema } from '../../../../shared/schemas/price-list.schema';
+import { textOf } from './form-values';
+
+/** Words for each part of a roof system. */
+export const ROLE_WORDS: Record<SystemRole, string> = {
+  tile: 'Tile',
+  ridge: 'Ridge tile',
+  hip: 'Hip tile',
+  batten: 'Batten',
+  batten_nail: 'Batten nail',
+  tile_nail: 'Tile nail',
+  clip: 'Clip',
+  underlay: 'Underlay',
+  valley: 'Valley lining',
+};
+
+/** Field name of a component's product picker: server details name `components.<role>`. */
+export const componentField = (role: string) => `components.${role}`;
+
+function readSystem(values: Record<string, unknown>): Record<string, unknown> {
+  const components: Record<string, number> = {};
+  for (const role of SYSTEM_ROLES) {
+    const chosen = textOf(values[componentField(role)]);
+    if (chosen) components[role] = Number(chosen);
+  }
+  return { name: textOf(values.name) ?? '', description: textOf(values.description) ?? '', components };
+}
+
+/** A new roof system: name, description and one product per role, at the branch given as `branch_id`. */
+export const createRoofSystemFormSchema = z
+  .record(z.string(), z.unknown())
+  .transform((values): unknown => ({ branch_id: values.branch_id, ...readSystem(values) }))
+  .pipe(roofSystemBodySchema);
+
+/**
+ * A changed roof system: every role is sent, so a role left on "none" is taken off. The stored
+ * settings (given as `settings`) are sent back as they are: the update schema fills a missing
+ * settings field with {}, which would wipe them.
+ */
+export const updateRoofSystemFormSchema = z
+  .record(z.string(), z.unknown())
+  .transform((values): unknown => ({ ...readSystem(values), settings: values.settings ?? {} }))
+  .pipe(updateRoofSystemBodySchema);
