@@ -1,0 +1,182 @@
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_PASSWORD } from '../../seeds/01-demo';
+import { launchBrowser } from '../setup/browser';
+import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+
+let server: E2eServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startE2eServer();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+const DAY = 86_400_000;
+const iso = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+
+/** The first Monday at least fifteen days ahead: past the demo calendar, so the new lorry's week is its own. */
+function mondayAhead(): string {
+  for (let d = 15; ; d++) if (new Date(Date.now() + d * DAY).getUTCDay() === 1) return iso(Date.now() + d * DAY);
+}
+
+async function signIn(page: Page, email: string, home: RegExp) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail', { exact: true }).fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+  await page.waitForURL(home);
+}
+
+/** JSON from the API as the signed-in page (its session cookie and CSRF token). */
+async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
+  return page.evaluate(
+    async ({ method, path, body }) => {
+      const headers: Record<string, string> = { Accept: 'application/json' };
+      if (method !== 'GET') {
+        const csrf = (await (await fetch('/api/auth/csrf')).json()) as { token: string };
+        headers['Content-Type'] = 'application/json';
+        headers['X-CSRF-Token'] = csrf.token;
+      }
+      const response = await fetch(path, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
+      const json = (await response.json()) as unknown;
+      if (!response.ok) throw new Error(`${method} ${path}: ${response.status} ${JSON.stringify(json)}`);
+      return json;
+    },
+    { method, path, body },
+  ) as Promise<T>;
+}
+
+interface SlotDay {
+  slots: { id: number; time_window: string; lorry: { registration: string }; driver: { id: number; name: string } | null; booked_kg: number; bookings: { order_id: number; weight_kg: number }[] }[];
+}
+
+const REGISTRATION = 'RL-TY07';
+const LORRY_NAME = 'Two-axle rigid with crane';
+const WINDOWS = ['07:30-12:00', '12:30-16:30'];
+
+describe('the demo yard adds a lorry, gives it a week of slots and sends a booked order out with a driver', () => {
+  it('the dispatcher adds a crane lorry, makes its slots for a run of weekdays, sees them on the calendar, and puts the driver on a booked run before sending it out', async () => {
+    const monday = mondayAhead();
+    const sunday = iso(Date.parse(`${monday}T00:00:00Z`) + 6 * DAY);
+    const saturday = iso(Date.parse(`${monday}T00:00:00Z`) + 5 * DAY);
+    const yardContext = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const estimatorContext = await browser.newContext();
+    const deskContext = await browser.newContext();
+    const failures: string[] = [];
+    try {
+      const yard = await yardContext.newPage();
+      yard.on('pageerror', (error) => failures.push(error.message));
+      await signIn(yard, 'dispatch@demo.test', /\/yard$/);
+      await yard.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Lorries and slots' }).click();
+      await yard.waitForURL(/\/fleet$/);
+      await yard.getByLabel('Branch', { exact: true }).selectOption({ label: 'Tollerbeck Yard, Tollerbeck' });
+
+      // A two-axle rigid: 18,000 kg gross (Road Vehicles (Authorised Weight) Regulations 1998) less about
+      // 9,000 kg of lorry and crane leaves 9,000 kg to carry; the crane limit is the demo's own figure.
+      const lorryForm = yard.getByRole('form', { name: 'Add a lorry' });
+      await lorryForm.getByLabel('Registration').fill(REGISTRATION);
+      await lorryForm.getByLabel('Name on the board (optional)').fill(LORRY_NAME);
+      await lorryForm.getByLabel('Payload (kg)').fill('9000');
+      await lorryForm.getByLabel('Pallet slots on the bed').fill('8');
+      await lorryForm.getByLabel('Has a crane (lorry-mounted)').check();
+      await lorryForm.getByLabel('Crane lifting limit (kg)').fill('900');
+      await lorryForm.getByRole('button', { name: 'Add the lorry' }).click();
+      await yard.getByText(`${REGISTRATION} is added.`).waitFor();
+      await yard.getByText(`${REGISTRATION} · ${LORRY_NAME}`, { exact: false }).first().waitFor();
+
+      // A week of its slots: two windows on each of the five working days, Monday to Friday by default.
+      const generate = yard.getByRole('form', { name: 'Make slots for a run of days' });
+      await generate.getByLabel('First day').fill(monday);
+      await generate.getByLabel('Last day').fill(sunday);
+      await generate.getByLabel('Time windows').fill(WINDOWS.join(', '));
+      await generate.getByLabel(`${REGISTRATION} · ${LORRY_NAME}`).check();
+      for (const day of ['Mon', 'Tue', 'Wed', 'Thu', 'Fri']) expect(await generate.getByLabel(day, { exact: true }).isChecked()).toBe(true);
+      expect(await generate.getByLabel('Sat', { exact: true }).isChecked()).toBe(false);
+      await generate.getByRole('button', { name: 'Make the slots' }).click();
+      await yard.getByText(`${5 * WINDOWS.length} slots made.`, { exact: true }).waitFor();
+      // Made again, the calendar keeps the slots it has.
+      await generate.getByRole('button', { name: 'Make the slots' }).click();
+      await yard.getByText(`0 slots made, ${5 * WINDOWS.length} already there.`, { exact: true }).waitFor();
+
+      // The calendar shows both runs on the Monday, empty, and none on the Saturday.
+      const calendar = yard.getByRole('region', { name: 'Slot calendar' });
+      const runOf = (window: string) => calendar.getByRole('listitem').filter({ has: yard.getByRole('heading', { name: new RegExp(`^${window} · ${REGISTRATION}`) }) });
+      await calendar.getByLabel('Day', { exact: true }).fill(monday);
+      for (const w of WINDOWS) {
+        await runOf(w).waitFor();
+        expect(await runOf(w).innerText()).toContain('Nothing booked.');
+        expect(await runOf(w).innerText()).toContain('0 kg of 9,000 kg');
+      }
+      await calendar.getByLabel('Day', { exact: true }).fill(saturday);
+      await expect.poll(() => runOf(WINDOWS[0]).count()).toBe(0);
+
+      // An order of the demo estimator, confirmed by the desk into the new lorry's Monday morning (through the API:
+      // the desk journey covers confirming on screen).
+      const estimator = await estimatorContext.newPage();
+      await signIn(estimator, 'estimator@demo.test', /\/contractor$/);
+      const { projects } = await api<{ projects: { id: number }[] }>(estimator, 'GET', '/api/projects?q=Hollin%20Brow');
+      const { branches } = await api<{ branches: { id: number; name: string }[] }>(estimator, 'GET', '/api/merchant-branches');
+      const branch = branches.find((b) => b.name === 'Tollerbeck Yard')!;
+      const { systems } = await api<{ systems: { id: number }[] }>(estimator, 'GET', `/api/systems?branch_id=${branch.id}`);
+      const estimate = await api<{ id: number; lines: { product_id: number | null }[] }>(estimator, 'POST', `/api/projects/${projects[0].id}/estimates`, { system_id: systems[0].id });
+      const lines = estimate.lines
+        .filter((l) => l.product_id !== null)
+        .slice(0, 3)
+        .map((l) => ({ product_id: l.product_id!, quantity: 2 }));
+      const order = await api<{ id: number; reference: string }>(estimator, 'POST', '/api/orders', {
+        estimate_id: estimate.id,
+        branch_id: branch.id,
+        requested_date: monday,
+        time_window: WINDOWS[0],
+        delivery_method: 'ground',
+        po_reference: 'HB-YARD-E2E',
+        lines,
+      });
+      const desk = await deskContext.newPage();
+      await signIn(desk, 'sales@demo.test', /\/desk$/);
+      const before = await api<SlotDay>(desk, 'GET', `/api/branches/${branch.id}/slots?date=${monday}`);
+      const morning = before.slots.find((s) => s.lorry.registration === REGISTRATION && s.time_window === WINDOWS[0])!;
+      expect(morning.driver).toBeNull();
+      await api(desk, 'POST', `/api/orders/${order.id}/confirm`, { slot_id: morning.id });
+
+      // The dispatcher opens the board again and sees it on the run; with no driver yet the lorry cannot go out.
+      await yard.reload();
+      await yard.getByLabel('Branch', { exact: true }).selectOption({ label: 'Tollerbeck Yard, Tollerbeck' });
+      await calendar.getByLabel('Day', { exact: true }).fill(monday);
+      const run = runOf(WINDOWS[0]);
+      const booking = run.getByRole('list', { name: `Orders on ${REGISTRATION} ${WINDOWS[0]}` }).getByRole('listitem').filter({ hasText: order.reference });
+      await booking.waitFor();
+      expect(await booking.innerText()).toContain('confirmed');
+      await booking.getByRole('button', { name: 'Send out' }).click();
+      await yard.getByText(new RegExp(`Assign a driver to ${REGISTRATION}`)).first().waitFor();
+      expect(await booking.innerText()).toContain('confirmed');
+
+      // The driver goes on the run, then the lorry goes out.
+      await run.getByLabel('Driver', { exact: true }).selectOption({ label: 'Kofi Brennagh' });
+      await yard.getByText('Driver assigned.').first().waitFor();
+      await booking.getByRole('button', { name: 'Send out' }).click();
+      await booking.filter({ hasText: 'on the road' }).waitFor();
+
+      const after = await api<SlotDay>(yard, 'GET', `/api/branches/${branch.id}/slots?date=${monday}`);
+      const sent = after.slots.find((s) => s.id === morning.id)!;
+      expect(sent.driver?.name).toBe('Kofi Brennagh');
+      expect(sent.bookings.map((b) => b.order_id)).toEqual([order.id]);
+      expect(sent.booked_kg).toBeCloseTo(sent.bookings[0].weight_kg, 1);
+      expect(sent.booked_kg).toBeGreaterThan(0);
+      expect(sent.booked_kg).toBeLessThanOrEqual(9000);
+      const detail = await api<{ status: string }>(yard, 'GET', `/api/orders/${order.id}`);
+      expect(detail.status).toBe('on_the_road');
+
+      expect(failures).toEqual([]);
+    } finally {
+      await yardContext.close();
+      await estimatorContext.close();
+      await deskContext.close();
+    }
+  });
+});
