@@ -1,10 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, kindOfRole } from '../../shared/domain/roles';
 import { orderDetailSchema, orderListSchema } from '../../shared/schemas/order.schema';
-import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
+import { DEMO_CATALOGUES } from '../../seeds/02-catalogue';
 import { createTestApp, type TestApp } from '../setup/test-app';
-import { GABLE_CSV as GABLE, inDays, signIn } from '../setup/scenario';
-import { makeOrgWithUser, makeUser } from '../setup/factories';
+import { inDays, signIn } from '../setup/scenario';
+import { contractorWithEstimate as sharedContractor, mailTo as sharedMailTo, merchantWithCatalogue, orderBody, type TestMerchant } from '../setup/order-scenario';
+import { makeOrgWithUser } from '../setup/factories';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -16,69 +17,14 @@ const [TOLLERBECK, CADDONMERE] = DEMO_CATALOGUES;
 
 const login = (email: string) => signIn(t.app, email);
 
-/** A merchant with one branch selling a demo catalogue, its desk, yard and driver, and a crane lorry with a slot. */
-async function merchant(catalogue = TOLLERBECK) {
-  const owner = await makeOrgWithUser(t.db, 'merchant', 'merchant_owner');
-  const installed = await installCatalogue(t.db, owner.organisationId, [{ id: owner.branchId!, priceFactor: 1, stockFactor: 1 }], catalogue);
-  const sales = await makeUser(t.db, owner.organisationId, 'merchant_sales');
-  const dispatcher = await makeUser(t.db, owner.organisationId, 'merchant_dispatcher');
-  const driver = await makeUser(t.db, owner.organisationId, 'driver');
-  return {
-    organisationId: owner.organisationId,
-    branchId: owner.branchId!,
-    ownerEmail: owner.email,
-    salesEmail: sales.email,
-    dispatcherEmail: dispatcher.email,
-    driverEmail: driver.email,
-    driverId: driver.userId,
-    product: (sku: string) => installed.productIds.get(sku)!,
-    systemId: installed.systemIds[0].id,
-  };
-}
-type Merchant = Awaited<ReturnType<typeof merchant>>;
-
-async function contractorWithEstimate(m: Merchant, access: Record<string, string> = {}) {
-  const u = await makeOrgWithUser(t.db, 'contractor', 'contractor_estimator');
-  const c = await login(u.email);
-  const p = await c.post('/api/projects', {
-    name: 'Ferncombe Mews',
-    site_address: '1–4 Ferncombe Mews, Tollerbeck',
-    contact_name: 'Lowri Haskett',
-    contact_phone: '07700 900 301',
-    crane_lift: 'allowed',
-    overhead_lines: 'none',
-    set_down_place: 'Verge by plot 1',
-    ...access,
-  });
-  const token = await c.csrf();
-  await c.agent.post(`/api/projects/${p.body.id}/schedule`).set('X-CSRF-Token', token).set('Content-Type', 'text/csv').send(GABLE);
-  const e = await c.post(`/api/projects/${p.body.id}/estimates`, { system_id: m.systemId });
-  expect(e.status).toBe(201);
-  return { ...u, c, projectId: p.body.id as number, estimate: e.body };
-}
-
-const orderBody = (k: { estimate: { id: number } }, m: { branchId: number }, over: Record<string, unknown> = {}) => ({
-  estimate_id: k.estimate.id,
-  branch_id: m.branchId,
-  requested_date: inDays(7),
-  time_window: '07:30-12:00',
-  delivery_method: 'ground',
-  po_reference: 'PO-4471',
-  ...over,
-});
+const merchant = (catalogue = TOLLERBECK) => merchantWithCatalogue(t, catalogue);
+type Merchant = TestMerchant;
+const contractorWithEstimate = (m: Merchant, access: Record<string, string> = {}) => sharedContractor(t, m, access);
 
 const stockOf = (m: Merchant, sku: string) => t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product(sku) }).first();
 const tileLine = (o: { lines: { sku: string }[] }) => o.lines.find((l) => l.sku === 'TRS-FL420-SG') as { id: number; quantity: number; sku: string };
 
-/** Mail to an address whose subject matches, waiting up to 5 s. */
-async function mailTo(address: string, subject: RegExp) {
-  for (let i = 0; i < 50; i++) {
-    const found = t.mail.messages.find((m) => m.to.includes(address) && subject.test(m.subject));
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`no e-mail to ${address} matching ${subject}`);
-}
+const mailTo = (address: string, subject: RegExp) => sharedMailTo(t, address, subject);
 
 describe('confirming an order against stock', () => {
   it('reserves every line in full, marks the order confirmed and tells the contractor', async () => {

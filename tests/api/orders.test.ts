@@ -1,10 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, kindOfRole } from '../../shared/domain/roles';
 import { orderListSchema, orderSchema } from '../../shared/schemas/order.schema';
-import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
+import { DEMO_CATALOGUES } from '../../seeds/02-catalogue';
 import { createTestApp, type TestApp } from '../setup/test-app';
-import { GABLE_CSV as GABLE, inDays, signIn } from '../setup/scenario';
-import { makeOrgWithUser, makeUser } from '../setup/factories';
+import { inDays, signIn } from '../setup/scenario';
+import { contractorWithEstimate as sharedContractor, merchantWithCatalogue, type TestMerchant } from '../setup/order-scenario';
+import { makeOrgWithUser } from '../setup/factories';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -14,49 +15,13 @@ afterAll(async () => t.close());
 
 const [TOLLERBECK, CADDONMERE] = DEMO_CATALOGUES;
 
-
 const login = (email: string) => signIn(t.app, email);
 
-/** A merchant with one branch selling a demo catalogue, and its desk (owner, sales), yard and driver. */
-async function merchant(catalogue = TOLLERBECK) {
-  const owner = await makeOrgWithUser(t.db, 'merchant', 'merchant_owner');
-  const installed = await installCatalogue(t.db, owner.organisationId, [{ id: owner.branchId!, priceFactor: 1, stockFactor: 1 }], catalogue);
-  const sales = await makeUser(t.db, owner.organisationId, 'merchant_sales');
-  const dispatcher = await makeUser(t.db, owner.organisationId, 'merchant_dispatcher');
-  const driver = await makeUser(t.db, owner.organisationId, 'driver');
-  return {
-    organisationId: owner.organisationId,
-    branchId: owner.branchId!,
-    ownerEmail: owner.email,
-    salesEmail: sales.email,
-    dispatcherEmail: dispatcher.email,
-    driverEmail: driver.email,
-    product: (sku: string) => installed.productIds.get(sku)!,
-    systemId: installed.systemIds[0].id,
-  };
-}
+const merchant = (catalogue = TOLLERBECK) => merchantWithCatalogue(t, catalogue);
 
 /** A contractor's estimator with a site (crane allowed, overhead lines present) and an estimate from the merchant's first system. */
-async function contractorWithEstimate(m: Awaited<ReturnType<typeof merchant>>, access: Record<string, string> = {}) {
-  const u = await makeOrgWithUser(t.db, 'contractor', 'contractor_estimator');
-  const c = await login(u.email);
-  const p = await c.post('/api/projects', {
-    name: 'Ferncombe Mews',
-    site_address: '1–4 Ferncombe Mews, Tollerbeck',
-    site_postcode: 'TB2 6FM',
-    contact_name: 'Lowri Haskett',
-    contact_phone: '07700 900 301',
-    crane_lift: 'allowed',
-    overhead_lines: 'present',
-    set_down_place: 'Verge by plot 1',
-    ...access,
-  });
-  const token = await c.csrf();
-  await c.agent.post(`/api/projects/${p.body.id}/schedule`).set('X-CSRF-Token', token).set('Content-Type', 'text/csv').send(GABLE);
-  const e = await c.post(`/api/projects/${p.body.id}/estimates`, { system_id: m.systemId });
-  expect(e.status).toBe(201);
-  return { ...u, c, projectId: p.body.id as number, estimate: e.body };
-}
+const contractorWithEstimate = (m: TestMerchant, access: Record<string, string> = {}) =>
+  sharedContractor(t, m, { site_postcode: 'TB2 6FM', overhead_lines: 'present', ...access });
 
 async function world() {
   const m = await merchant();

@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../seeds/01-demo';
 import { launchBrowser } from '../setup/browser';
+import { signInPage } from '../setup/e2e-pages';
 import { startE2eServer, type E2eServer } from '../setup/e2e-server';
 
 let server: E2eServer;
@@ -24,13 +24,7 @@ function nextWorkingDay(): string {
   }
 }
 
-async function signIn(page: Page, email: string, home: RegExp) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail', { exact: true }).fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-  await page.waitForURL(home);
-}
+const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, server.url, email, home);
 
 interface Placed {
   id: number;

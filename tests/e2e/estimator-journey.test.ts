@@ -2,8 +2,8 @@ import { readFile } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../seeds/01-demo';
 import { launchBrowser } from '../setup/browser';
+import { signInPage } from '../setup/e2e-pages';
 import { startE2eServer, type E2eServer } from '../setup/e2e-server';
 
 let server: E2eServer;
@@ -23,13 +23,7 @@ function inTwoWeeks(): string {
   return new Date(Date.now() + 14 * 86_400_000).toISOString().slice(0, 10);
 }
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail', { exact: true }).fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-  await page.waitForURL(/\/contractor$/);
-}
+const signIn = (page: Page, email: string) => signInPage(page, server.url, email, /\/contractor$/);
 
 /** The tile quantity on the bill's first line, as the page shows it ("22,176 tiles" → 22176). */
 async function tilesOnTheBill(page: Page): Promise<number> {

@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../seeds/01-demo';
 import { launchBrowser } from '../setup/browser';
+import { pageApi, signInPage } from '../setup/e2e-pages';
 import { startE2eServer, type E2eServer } from '../setup/e2e-server';
 
 let server: E2eServer;
@@ -24,32 +24,9 @@ function mondayAhead(): string {
   for (let d = 15; ; d++) if (new Date(Date.now() + d * DAY).getUTCDay() === 1) return iso(Date.now() + d * DAY);
 }
 
-async function signIn(page: Page, email: string, home: RegExp) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail', { exact: true }).fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-  await page.waitForURL(home);
-}
+const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, server.url, email, home);
 
-/** JSON from the API as the signed-in page (its session cookie and CSRF token). */
-async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
-  return page.evaluate(
-    async ({ method, path, body }) => {
-      const headers: Record<string, string> = { Accept: 'application/json' };
-      if (method !== 'GET') {
-        const csrf = (await (await fetch('/api/auth/csrf')).json()) as { token: string };
-        headers['Content-Type'] = 'application/json';
-        headers['X-CSRF-Token'] = csrf.token;
-      }
-      const response = await fetch(path, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
-      const json = (await response.json()) as unknown;
-      if (!response.ok) throw new Error(`${method} ${path}: ${response.status} ${JSON.stringify(json)}`);
-      return json;
-    },
-    { method, path, body },
-  ) as Promise<T>;
-}
+const api = pageApi;
 
 interface SlotDay {
   slots: { id: number; time_window: string; lorry: { registration: string }; driver: { id: number; name: string } | null; booked_kg: number; bookings: { order_id: number; weight_kg: number }[] }[];

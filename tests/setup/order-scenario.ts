@@ -25,16 +25,39 @@ export async function merchantWithCatalogue(t: TestApp, catalogue = DEMO_CATALOG
 }
 export type TestMerchant = Awaited<ReturnType<typeof merchantWithCatalogue>>;
 
-/** A contractor's estimator with a site, the gable schedule imported and an estimate from the merchant's first system. */
-export async function contractorWithEstimate(t: TestApp, m: TestMerchant) {
+/**
+ * A contractor's estimator with a site (crane allowed, no overhead lines unless `site` says otherwise),
+ * the gable schedule imported and an estimate from the merchant's first system.
+ */
+export async function contractorWithEstimate(t: TestApp, m: Pick<TestMerchant, 'systemId'>, site: Record<string, string> = {}) {
   const u = await makeOrgWithUser(t.db, 'contractor', 'contractor_estimator');
   const c = await signIn(t.app, u.email);
-  const p = await c.post('/api/projects', { name: 'Ferncombe Mews', site_address: '1–4 Ferncombe Mews, Tollerbeck', crane_lift: 'allowed', overhead_lines: 'none' });
+  const p = await c.post('/api/projects', {
+    name: 'Ferncombe Mews',
+    site_address: '1–4 Ferncombe Mews, Tollerbeck',
+    contact_name: 'Lowri Haskett',
+    contact_phone: '07700 900 301',
+    crane_lift: 'allowed',
+    overhead_lines: 'none',
+    set_down_place: 'Verge by plot 1',
+    ...site,
+  });
+  expect(p.status, JSON.stringify(p.body)).toBe(201);
   const token = await c.csrf();
   await c.agent.post(`/api/projects/${p.body.id}/schedule`).set('X-CSRF-Token', token).set('Content-Type', 'text/csv').send(GABLE_CSV);
   const e = await c.post(`/api/projects/${p.body.id}/estimates`, { system_id: m.systemId });
   expect(e.status).toBe(201);
-  return { ...u, c, projectId: p.body.id as number, estimate: e.body as { id: number } };
+  return { ...u, c, projectId: p.body.id as number, estimate: e.body };
+}
+
+/** The first e-mail to an address whose subject matches, waiting up to 5 s for it. */
+export async function mailTo(t: TestApp, address: string, subject: RegExp) {
+  for (let i = 0; i < 50; i++) {
+    const found = t.mail.messages.find((m) => m.to.includes(address) && subject.test(m.subject));
+    if (found) return found;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no e-mail to ${address} matching ${subject}`);
 }
 
 /** The body of an order for the estimate, sent to the merchant's branch a week ahead. */

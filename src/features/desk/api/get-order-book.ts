@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { orderListSchema } from '../../../../shared/schemas/order.schema';
 import { apiClient } from '../../../lib/api-client';
+import { LIVE_BOARD } from '../../../lib/live-board';
 import { deskKeys } from './keys';
 import type { OrderBookFilters } from './keys';
 
@@ -17,6 +18,7 @@ export function orderBookQueryOptions(filters: OrderBookFilters) {
     queryFn: ({ signal }) => fetchOrderBook(filters, signal),
     // The page stays on screen while the next page or filter loads.
     placeholderData: keepPreviousData,
+    ...LIVE_BOARD,
   });
 }
 

@@ -5,6 +5,7 @@ import { followUpBodySchema } from '../../../../shared/schemas/order.schema';
 import type { FollowUpBody, OrderDetail } from '../../../../shared/schemas/order.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/form';
 import { useZodForm } from '../../../components/form/use-zod-form';
+import { BackOrderLinks } from '../../../components/orders/back-order-links';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { useToast } from '../../../components/ui/toast';
@@ -167,30 +168,7 @@ export function FollowUpPanel({ order }: { order: OrderDetail }) {
   );
 }
 
-/** Which order carries this one's back-ordered packs, and which order this one's packs came from. */
+/** The linked orders on the desk's order page, pointing at the desk's own order pages. */
 export function FollowUpLinks({ order }: { order: Pick<OrderDetail, 'follows' | 'followed_by'> }) {
-  const path = (id: number) => `/desk/orders/${id}`;
-  if (!order.follows && !order.followed_by) return null;
-  return (
-    <ul className="mt-4 space-y-1" aria-label="Linked orders">
-      {order.followed_by ? (
-        <li>
-          The back-ordered packs follow as{' '}
-          <Link to={path(order.followed_by.id)} className="font-semibold text-clay-700 underline underline-offset-2">
-            {order.followed_by.reference}
-          </Link>{' '}
-          ({order.followed_by.status_label})
-        </li>
-      ) : null}
-      {order.follows ? (
-        <li>
-          Carries the back-ordered packs of{' '}
-          <Link to={path(order.follows.id)} className="font-semibold text-clay-700 underline underline-offset-2">
-            {order.follows.reference}
-          </Link>{' '}
-          ({order.follows.status_label})
-        </li>
-      ) : null}
-    </ul>
-  );
+  return <BackOrderLinks order={order} orderPath={(id) => `/desk/orders/${id}`} label="Linked orders" />;
 }

@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
 import type { Order, OrderDetail as OrderDetailData, OrderLine, Proposal } from '../../../../shared/schemas/order.schema';
 import { Alert, errorMessage } from '../../../components/ui/alert';
+import { BackOrderLinks } from '../../../components/orders/back-order-links';
 import { OrderSiteDetails } from '../../../components/orders/order-site-details';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -170,45 +171,18 @@ function CancelOrder({ order }: { order: Order }) {
   );
 }
 
-const linkClasses = 'font-semibold text-clay-700 underline underline-offset-2';
-
 /**
- * How this order and its back-ordered packs hang together: the order carrying them once the merchant
- * starts it, the order they came from, or a word that they will follow when nothing is started yet.
+ * The back-ordered packs seen from the contractor's side: the linked orders, or a word that they will
+ * follow when the merchant has not started them yet.
  */
-function BackOrderLinks({ order }: { order: Pick<OrderDetailData, 'status' | 'follows' | 'followed_by' | 'back_ordered_packs'> }) {
+function ContractorBackOrders({ order }: { order: Pick<OrderDetailData, 'status' | 'follows' | 'followed_by' | 'back_ordered_packs'> }) {
   // A cancelled or turned-down order sends nothing more, so nothing is promised to follow.
   const ended = order.status === 'cancelled' || order.status === 'turned_down';
-  const waiting = order.back_ordered_packs > 0 && !order.followed_by && !ended;
-  if (!order.follows && !order.followed_by && !waiting) return null;
-  return (
-    <ul className="mt-4 space-y-1" aria-label="Back-ordered packs">
-      {order.followed_by ? (
-        <li>
-          The back-ordered packs follow as{' '}
-          <Link to={`/orders/${order.followed_by.id}`} className={linkClasses}>
-            {order.followed_by.reference}
-          </Link>{' '}
-          ({order.followed_by.status_label})
-        </li>
-      ) : null}
-      {waiting ? (
-        <li>
-          {order.back_ordered_packs} back-ordered {order.back_ordered_packs === 1 ? 'pack follows' : 'packs follow'} as a separate order once the merchant has the stock; you will get an
-          e-mail when it is started.
-        </li>
-      ) : null}
-      {order.follows ? (
-        <li>
-          Carries the back-ordered packs of{' '}
-          <Link to={`/orders/${order.follows.id}`} className={linkClasses}>
-            {order.follows.reference}
-          </Link>{' '}
-          ({order.follows.status_label})
-        </li>
-      ) : null}
-    </ul>
-  );
+  const waiting =
+    order.back_ordered_packs > 0 && !order.followed_by && !ended
+      ? `${order.back_ordered_packs} back-ordered ${order.back_ordered_packs === 1 ? 'pack follows' : 'packs follow'} as a separate order once the merchant has the stock; you will get an e-mail when it is started.`
+      : undefined;
+  return <BackOrderLinks order={order} orderPath={(id) => `/orders/${id}`} waiting={waiting} />;
 }
 
 /** One order as the contractor follows it: its stage, what was asked and agreed, the merchant's offers and the history. */
@@ -229,7 +203,7 @@ export function OrderDetail({ order }: { order: OrderDetailData }) {
         <div className="mt-4">
           <OrderStages status={order.status} />
         </div>
-        <BackOrderLinks order={order} />
+        <ContractorBackOrders order={order} />
         {order.status === 'cancelled' ? (
           <Alert tone="info" className="mt-4" title="Cancelled" live={false}>
             {order.cancelled_at ? `Cancelled ${formatDateTime(order.cancelled_at)}.` : null}

@@ -1,50 +1,107 @@
-import { useId, useMemo, useState } from 'react';
-import { ORDER_STATUSES, ORDER_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
-import type { OrderStatus } from '../../../../shared/schemas/order.schema';
+import { useId } from 'react';
+import type { FormEvent } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import type { z } from 'zod';
+import { ORDER_STATUSES, ORDER_STATUS_LABELS, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useOrders } from '../api/get-orders';
-import { OrdersTable } from './orders-table';
+import type { OrderStatus } from '../../../../shared/schemas/order.schema';
+import { ORDERS_TABLE_SORTS, OrdersTable } from './orders-table';
+import type { OrderSort } from './orders-table';
 
 const PAGE_SIZE = 50;
 
-/** Every order of the firm, newest first, filtered by stage or searched by reference, PO, site or merchant. */
+type SortDir = 'asc' | 'desc';
+type ListSort = (typeof ORDERS_TABLE_SORTS)[number];
+
+/** Each sort of the list in words, both ways round; the phone's sort picker and the live count use them. */
+const SORT_WORDS: Record<ListSort, Record<SortDir, string>> = {
+  placed_at: { desc: 'newest placed first', asc: 'oldest placed first' },
+  requested_date: { asc: 'soonest wanted first', desc: 'latest wanted first' },
+  // The server orders stage codes as text: each stage comes together, in no order of progress.
+  status: { asc: 'grouped by stage', desc: 'grouped by stage, reversed' },
+  subtotal: { desc: 'largest subtotal first', asc: 'smallest subtotal first' },
+};
+
+const SORT_CHOICES = ORDERS_TABLE_SORTS.flatMap((sort) => (Object.keys(SORT_WORDS[sort]) as SortDir[]).map((dir) => ({ value: `${sort}:${dir}`, sort, dir, label: SORT_WORDS[sort][dir] })));
+
+/** The list's state as the address holds it. */
+export interface OrdersListState {
+  status?: OrderStatus;
+  q?: string;
+  sort: ListSort;
+  dir: SortDir;
+  page: number;
+}
+
+const shape = orderBookQuerySchema.shape;
+const isListSort = (sort: OrderSort): sort is ListSort => (ORDERS_TABLE_SORTS as readonly string[]).includes(sort);
+
+/**
+ * Reads the list's state from the address, each value as the server would read it. A value the
+ * server would refuse (a typed or outdated address) falls back to its default alone, so one bad
+ * page number does not throw away the stage and the sort.
+ */
+export function listStateFromSearch(search: URLSearchParams): OrdersListState {
+  const read = <S extends z.ZodType>(schema: S, key: string, fallback: z.output<S>): z.output<S> => {
+    const parsed = schema.safeParse(search.get(key) ?? undefined);
+    return parsed.success ? parsed.data : fallback;
+  };
+  const sort = read(shape.sort, 'sort', 'placed_at');
+  return {
+    status: read(shape.status, 'status', undefined),
+    q: read(shape.q, 'q', undefined) || undefined,
+    // A sort the table has no column for would leave every header unmarked, so it is not offered.
+    sort: isListSort(sort) ? sort : 'placed_at',
+    dir: read(shape.dir, 'dir', 'desc'),
+    page: read(shape.page, 'page', 1),
+  };
+}
+
+const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
+
+/** Every order of the firm, filtered by stage or searched by reference, PO, site or merchant; the server sorts and pages. */
 export function OrdersList() {
-  const statusId = useId();
-  const searchId = useId();
-  const [status, setStatus] = useState<OrderStatus | ''>('');
-  const [search, setSearch] = useState('');
-  const [q, setQ] = useState('');
-  const [page, setPage] = useState(1);
-  const filters = useMemo(() => ({ status: status || undefined, q: q || undefined, page, page_size: PAGE_SIZE }), [status, q, page]);
-  const orders = useOrders(filters);
-  const pages = orders.data ? Math.max(1, Math.ceil(orders.data.total / PAGE_SIZE)) : 1;
+  const id = useId();
+  const [search, setSearch] = useSearchParams();
+  const state = listStateFromSearch(search);
+  const orders = useOrders({ ...state, page_size: PAGE_SIZE });
+  /**
+   * The address is the list's only state, so a reload or a shared link shows the same page. A new
+   * sort or page is a step of its own in the history (Back returns to it); a filter replaces the step.
+   */
+  const set = (changes: Record<string, string | undefined>, { resetPage = true, step = false } = {}) => {
+    const next = new URLSearchParams(search);
+    for (const [k, v] of Object.entries(changes)) {
+      if (v === undefined || v === '') next.delete(k);
+      else next.set(k, v);
+    }
+    if (resetPage) next.delete('page');
+    setSearch(next, { replace: !step });
+  };
+  // Another order puts different orders on page 2, so a new sort starts again at page 1.
+  const sortBy = (sort: OrderSort, dir: SortDir) => set({ sort, dir }, { step: true });
+  const onSearch = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    set({ q: String(new FormData(event.currentTarget).get('q') ?? '').trim() });
+  };
+  const filtered = Boolean(state.status || state.q);
+  const total = orders.data?.total ?? 0;
+  const capped = orders.data?.total_capped ?? false;
+  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
+  const page = state.page;
   return (
     <section aria-label="Orders" className="space-y-4">
-      <form
-        role="search"
-        className="flex flex-wrap items-end gap-4"
-        onSubmit={(event) => {
-          event.preventDefault();
-          setQ(search.trim());
-          setPage(1);
-        }}
-      >
+      {/* Keyed on the address, so Back and Forward put the search words back in the box. */}
+      <form role="search" className="flex flex-wrap items-end gap-4" onSubmit={onSearch} key={state.q ?? ''}>
         <div>
-          <label htmlFor={statusId} className="mb-1.5 block font-medium">
+          <label htmlFor={`${id}-stage`} className="mb-1.5 block font-medium">
             Stage
           </label>
-          <select
-            id={statusId}
-            value={status}
-            onChange={(event) => {
-              setStatus(event.target.value as OrderStatus | '');
-              setPage(1);
-            }}
-            className="block min-h-tap rounded-md border border-ink-300 bg-white px-2"
-          >
+          <select id={`${id}-stage`} value={state.status ?? ''} onChange={(event) => set({ status: event.target.value })} className={selectClass}>
             <option value="">Every stage</option>
             {ORDER_STATUSES.map((s) => (
               <option key={s} value={s}>
@@ -53,16 +110,37 @@ export function OrdersList() {
             ))}
           </select>
         </div>
+        {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
+        <div className="sm:hidden">
+          <label htmlFor={`${id}-sort`} className="mb-1.5 block font-medium">
+            Sort
+          </label>
+          <select
+            id={`${id}-sort`}
+            value={`${state.sort}:${state.dir}`}
+            onChange={(event) => {
+              const choice = SORT_CHOICES.find((c) => c.value === event.target.value);
+              if (choice) sortBy(choice.sort, choice.dir);
+            }}
+            className={selectClass}
+          >
+            {SORT_CHOICES.map((c) => (
+              <option key={c.value} value={c.value}>
+                {c.label.charAt(0).toUpperCase() + c.label.slice(1)}
+              </option>
+            ))}
+          </select>
+        </div>
         <div className="min-w-56 flex-1">
-          <label htmlFor={searchId} className="mb-1.5 block font-medium">
+          <label htmlFor={`${id}-q`} className="mb-1.5 block font-medium">
             Search orders
           </label>
           <input
-            id={searchId}
+            id={`${id}-q`}
+            name="q"
             type="search"
-            value={search}
+            defaultValue={state.q ?? ''}
             placeholder="RL-000123, PO, site or merchant"
-            onChange={(event) => setSearch(event.target.value)}
             className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3"
           />
         </div>
@@ -76,22 +154,30 @@ export function OrdersList() {
         <ErrorAlert error={orders.error} title="The orders could not be loaded" onRetry={() => void orders.refetch()} />
       ) : (
         <>
-          <OrdersTable
-            orders={orders.data.orders}
-            empty={<EmptyState title={status || q ? 'No order matches' : 'No orders yet'}>{status || q ? 'Try another stage or search.' : 'Orders are placed from a saved estimate.'}</EmptyState>}
-          />
-          {pages > 1 ? (
-            <div className="flex flex-wrap items-center gap-3">
-              <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
+          <p className="text-sm text-ink-700" aria-live="polite">
+            {capped ? `More than ${total.toLocaleString('en-GB')}` : total.toLocaleString('en-GB')} {total === 1 ? 'order' : 'orders'}
+            {` · ${SORT_WORDS[state.sort][state.dir]}`}
+            {orders.isPlaceholderData ? ' · updating…' : ''}
+          </p>
+          <div className={orders.isPlaceholderData ? 'opacity-60' : ''}>
+            <OrdersTable
+              orders={orders.data.orders}
+              serverSorting={{ sorting: { id: state.sort, desc: state.dir === 'desc' }, sortable: ORDERS_TABLE_SORTS, onSortingChange: (next) => sortBy(next.id, next.desc ? 'desc' : 'asc') }}
+              empty={<EmptyState title={filtered ? 'No order matches' : 'No orders yet'}>{filtered ? 'Try another stage or search.' : 'Orders are placed from a saved estimate.'}</EmptyState>}
+            />
+          </div>
+          {pages > 1 || page > 1 ? (
+            <nav aria-label="Pages of the orders" className="flex flex-wrap items-center gap-3">
+              <Button variant="secondary" disabled={page <= 1} onClick={() => set({ page: String(page - 1) }, { resetPage: false, step: true })}>
                 Previous page
               </Button>
               <span className="text-sm">
-                Page {page} of {pages}
+                Page {page} of {capped ? `${pages}+` : pages}
               </span>
-              <Button variant="secondary" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
+              <Button variant="secondary" disabled={page >= pages && !capped} onClick={() => set({ page: String(page + 1) }, { resetPage: false, step: true })}>
                 Next page
               </Button>
-            </div>
+            </nav>
           ) : null}
         </>
       )}
