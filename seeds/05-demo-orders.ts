@@ -232,9 +232,15 @@ async function buildOrderBook(knex: Knex): Promise<void> {
   });
   await confirm(SALES1, battens, await slotIdOf('RL-TY02', day(2), MORNING));
 
-  // Confirmed from the Cindermoor depot's stock, waiting for the desk to book a lorry.
+  // Confirmed from the Cindermoor depot's stock with half the hip tiles back-ordered, waiting for the desk
+  // to book a lorry; the desk starts the follow-up order for the rest of the hips when they come in.
   const plot5 = await place(EST1, hbFlatlock, cindermoor.id, { requested_date: day(3), po_reference: 'HB-P05', lines: share(hbFlatlock, 1 / 20) });
-  await confirm(SALES1, plot5);
+  const plot5Hips = plot5.lines.find((l) => l.category === 'hip');
+  await orders.confirm(
+    as(SALES1, 'orders:confirm'),
+    plot5.id,
+    confirmOrderBodySchema.parse(plot5Hips && plot5Hips.quantity > 1 ? { lines: [{ line_id: plot5Hips.id, quantity: Math.floor(plot5Hips.quantity / 2) }] } : {}),
+  );
 
   // The desk offered changes: the hip tiles in two drops and a later day; the estimator has not answered.
   const plot6 = await place(EST1, hbFlatlock, tollerbeckYard.id, { requested_date: day(4), po_reference: 'HB-P06', lines: share(hbFlatlock, 1 / 20) });

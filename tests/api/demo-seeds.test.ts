@@ -39,6 +39,15 @@ describe('the demo seeds on a fresh database', () => {
     expect(seedMs).toBeLessThan(10_000);
   });
 
+  it('leave the desk a confirmed order with back-ordered packs to start a follow-up from', async () => {
+    const owed = await t.db('order_lines as l').join('orders as o', 'o.id', 'l.order_id').where('o.status', 'confirmed').where('l.back_order_quantity', '>', 0).first('o.id');
+    expect(owed).toBeDefined();
+    const desk = await demoClient('sales@demo.test');
+    const detail = (await desk.get(`/api/orders/${owed.id}`)).body as { allowed_actions: string[]; back_ordered_packs: number };
+    expect(detail.back_ordered_packs).toBeGreaterThan(0);
+    expect(detail.allowed_actions).toContain('start_follow_up');
+  });
+
   it('hold at each branch exactly the packs its confirmed and loaded orders reserve, and never more than it has', async () => {
     // Stock on hand less what is promised is what can still be sold (common practice in stock keeping).
     const stock = await t.db('branch_products').select('branch_id', 'product_id', 'on_hand', 'reserved');

@@ -1,0 +1,66 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser } from '../setup/browser';
+import { pageApi, signInPage } from '../setup/e2e-pages';
+import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+
+let server: E2eServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startE2eServer();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+interface Book {
+  orders: { id: number; reference: string; status: string; po_reference: string }[];
+}
+interface Detail {
+  id: number;
+  reference: string;
+  status: string;
+  back_ordered_packs: number;
+  follows: { id: number; reference: string } | null;
+  followed_by: { id: number; reference: string } | null;
+  lines: { sku: string; quantity: number; back_order_quantity: number; unit_price: number }[];
+}
+
+describe('the desk sends the back-ordered packs on later', () => {
+  it('starts the follow-up order from the part-confirmed demo order, lands on it, and the contractor sees both ends', { timeout: 90_000 }, async () => {
+    const desk = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
+    await signInPage(desk, server.url, 'sales@demo.test', /\/desk$/);
+    // The demo book holds one confirmed order with part of its hip tiles back-ordered (PO HB-P05).
+    const book = await pageApi<Book>(desk, 'GET', '/api/orders?statuses=confirmed&sort=placed_at&dir=desc&page_size=50');
+    const first = book.orders.find((o) => o.po_reference === 'HB-P05');
+    expect(first).toBeDefined();
+    const before = await pageApi<Detail>(desk, 'GET', `/api/orders/${first!.id}`);
+    const owed = before.lines.filter((l) => l.back_order_quantity > 0);
+    expect(owed.length).toBeGreaterThan(0);
+
+    await desk.goto(`${server.url}/desk/orders/${first!.id}`);
+    await desk.getByRole('heading', { name: 'Back-ordered packs' }).waitFor();
+    await desk.getByRole('button', { name: 'Start the follow-up order' }).click();
+    await desk.waitForURL((url) => /\/desk\/orders\/\d+$/.test(url.pathname) && !url.pathname.endsWith(`/${first!.id}`));
+    await desk.getByRole('list', { name: 'Linked orders' }).getByText(`Carries the back-ordered packs of ${first!.reference}`).waitFor();
+
+    const followId = Number(new URL(desk.url()).pathname.split('/').pop());
+    const follow = await pageApi<Detail>(desk, 'GET', `/api/orders/${followId}`);
+    expect(follow.status).toBe('agreed');
+    expect(follow.follows?.id).toBe(first!.id);
+    expect(follow.lines.map((l) => [l.sku, l.quantity, l.unit_price])).toEqual(owed.map((l) => [l.sku, l.back_order_quantity, l.unit_price]));
+
+    // The first order now points at it and offers no second follow-up.
+    await desk.goto(`${server.url}/desk/orders/${first!.id}`);
+    await desk.getByRole('list', { name: 'Linked orders' }).getByText(`The back-ordered packs follow as ${follow.reference}`).waitFor();
+    expect(await desk.getByRole('button', { name: 'Start the follow-up order' }).count()).toBe(0);
+
+    const estimator = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
+    await signInPage(estimator, server.url, 'estimator@demo.test', /\/contractor$/);
+    await estimator.goto(`${server.url}/orders/${followId}`);
+    await estimator.getByRole('list', { name: 'Back-ordered packs' }).getByText(`Carries the back-ordered packs of ${first!.reference}`).waitFor();
+  });
+});
