@@ -18,7 +18,10 @@ const LINE_PARTIES = (row: 'NEW' | 'OLD') => `
       UNION SELECT o.contractor_organisation_id, 1 FROM orders o WHERE o.id = ${row}.order_id
       ON CONFLICT (organisation_id) DO UPDATE SET version = version + 1;`;
 
-const EVERYONE = `UPDATE order_book_versions SET version = version + 1;`;
+// Every organisation, with or without a row yet (a row may be missing for one with no orders since).
+const EVERYONE = `
+    INSERT INTO order_book_versions (organisation_id, version) SELECT id, 1 FROM organisations WHERE true
+      ON CONFLICT (organisation_id) DO UPDATE SET version = version + 1;`;
 
 const TRIGGERS: [name: string, sql: string][] = [
   ['order_book_orders_insert', `AFTER INSERT ON orders BEGIN ${PARTIES('NEW')} END`],
@@ -35,6 +38,8 @@ export async function up(knex: Knex): Promise<void> {
     t.integer('organisation_id').primary().references('id').inTable('organisations').onDelete('CASCADE');
     t.integer('version').notNullable();
   });
+  // A row for every organisation there already is, so the first change to any of them moves a number.
+  await knex.raw('INSERT INTO order_book_versions (organisation_id, version) SELECT id, 1 FROM organisations');
   for (const [name, body] of TRIGGERS) await knex.raw(`CREATE TRIGGER ${name} ${body}`);
 }
 

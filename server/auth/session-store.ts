@@ -27,6 +27,15 @@ interface Remembered {
  */
 export class SessionStore extends ConnectSessionKnexStore {
   private readonly remembered = new LRUCache<string, Remembered>({ max: REMEMBERED_SESSIONS });
+  /**
+   * Moves on every set and destroy of a session id, so a database read that began before them
+   * (another request of the same session, at sign-out) cannot put the old session back in memory.
+   */
+  private readonly generations = new LRUCache<string, number>({ max: REMEMBERED_SESSIONS * 2 });
+
+  private bump(sid: string) {
+    this.generations.set(sid, (this.generations.get(sid) ?? 0) + 1);
+  }
 
   constructor(db: Db) {
     super({ knex: db, tableName: 'sessions', createTable: true });
@@ -42,13 +51,15 @@ export class SessionStore extends ConnectSessionKnexStore {
       }
       this.remembered.delete(sid);
     }
+    const generation = this.generations.get(sid) ?? 0;
     const session = (await super.get(sid, callback)) as SessionData | null;
-    if (session) this.remember(sid, session, 0);
+    if (session && (this.generations.get(sid) ?? 0) === generation) this.remember(sid, session, 0);
     return session;
   }
 
   override async set(sid: string, session: SessionData, callback?: (err?: unknown) => void): Promise<void> {
     this.remembered.delete(sid);
+    this.bump(sid);
     await super.set(sid, session, callback);
     this.remember(sid, session, Date.now());
   }
@@ -70,6 +81,7 @@ export class SessionStore extends ConnectSessionKnexStore {
 
   override async destroy(sid: string, callback?: (err?: unknown) => void): Promise<number> {
     this.remembered.delete(sid);
+    this.bump(sid);
     return super.destroy(sid, callback);
   }
 

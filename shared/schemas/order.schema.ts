@@ -53,6 +53,17 @@ export function allowedOrderActions(status: OrderStatus, party: OrderParty): Ord
 export const ORDER_LINE_STATUSES = ['asked', 'agreed', 'part_agreed', 'back_ordered', 'replaced', 'not_available', 'substitute'] as const;
 export type OrderLineStatus = (typeof ORDER_LINE_STATUSES)[number];
 
+/** How a line stands, in words, on both sides' order pages. */
+export const ORDER_LINE_STATUS_LABELS: Record<OrderLineStatus, string> = {
+  asked: 'Asked for',
+  agreed: 'Agreed',
+  part_agreed: 'Part agreed',
+  back_ordered: 'To follow',
+  replaced: 'Replaced',
+  not_available: 'Not available',
+  substitute: 'Substitute',
+};
+
 export const DELIVERY_METHODS = ['ground', 'roof'] as const;
 export const DELIVERY_METHOD_LABELS: Record<(typeof DELIVERY_METHODS)[number], string> = {
   ground: 'Set down at ground level',

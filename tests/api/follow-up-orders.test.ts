@@ -84,6 +84,19 @@ describe('back-ordered packs follow as an order of their own', () => {
     expect(await t.db('orders').where({ follows_order_id: order.id }).count({ n: '*' }).first()).toEqual({ n: 1 });
   });
 
+  it('lets the packs be sent on again once a follow-up is cancelled by the contractor', async () => {
+    const m = await merchantWithCatalogue(t);
+    const { k, desk, order } = await partConfirmed(m);
+    const first = (await desk.post(`/api/orders/${order.id}/follow-up`, { requested_date: inDays(10) })).body as { id: number };
+    expect((await k.c.post(`/api/orders/${first.id}/cancel`, { reason: 'Hips bought elsewhere for this plot' })).status).toBe(200);
+    const after = orderDetailSchema.parse((await desk.get(`/api/orders/${order.id}`)).body);
+    expect(after.followed_by).toBeNull();
+    expect(after.allowed_actions).toContain('start_follow_up');
+    const again = await desk.post(`/api/orders/${order.id}/follow-up`, { requested_date: inDays(12) });
+    expect(again.status).toBe(201);
+    expect(again.body.id).not.toBe(first.id);
+  });
+
   it('refuses an order with nothing back-ordered, one not yet confirmed, a past day, and anyone but the desk', async () => {
     const m = await merchantWithCatalogue(t);
     const k = await contractorWithEstimate(t, m);

@@ -53,6 +53,23 @@ describe('taking a lorry out of service', () => {
     expect(await t.db('delivery_slots').where({ lorry_id: lorryId }).count({ n: '*' }).first()).toEqual({ n: slots.length });
   });
 
+  it('takes no new booking on a run it keeps because a delivery on it is done', async () => {
+    const { m, yard, lorryId, slots } = await yardWithLorry('RL-AR05');
+    const desk = await signIn(t.app, m.salesEmail);
+    const k = await contractorWithEstimate(t, m);
+    const kept = (await k.c.post('/api/orders', orderBody(k, m, { requested_date: slots[0].date }))).body as { id: number };
+    expect((await desk.post(`/api/orders/${kept.id}/confirm`, { slot_id: slots[0].id })).status).toBe(200);
+    // The run's one order is delivered, so archiving keeps the run as the record.
+    await t.db('slot_bookings').where({ order_id: kept.id }).update({ delivered_at: new Date().toISOString(), received_by: 'Site agent' });
+    expect((await yard.delete(`/api/lorries/${lorryId}`)).status).toBe(200);
+    expect(await t.db('delivery_slots').where({ id: slots[0].id }).first()).toBeDefined();
+    const late = (await k.c.post('/api/orders', orderBody(k, m, { requested_date: slots[0].date }))).body as { id: number };
+    const refused = await desk.post(`/api/orders/${late.id}/confirm`, { slot_id: slots[0].id });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('lorry_archived');
+    expect((await t.db('orders').where({ id: late.id }).first()).status).toBe('sent');
+  });
+
   it('is for the yard and the owner only, and never reaches another merchant’s lorry', async () => {
     const { m, lorryId } = await yardWithLorry('RL-AR03');
     const desk = await signIn(t.app, m.salesEmail);

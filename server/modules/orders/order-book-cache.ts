@@ -1,7 +1,10 @@
 import { LRUCache } from 'lru-cache';
 import type { OrderParty } from './orders.repository';
 
-/** Pages and counts kept per organisation; each entry is a page of 25–100 summaries. */
+/**
+ * Pages (and counts) kept for all organisations together, least recently read out first; a page is
+ * 25–100 summaries as JSON, some 15–60 kB, so the pages take at most about 30 MB.
+ */
 const MAX_ENTRIES = 500;
 /** Only bounds memory: freshness comes from the version, which moves on every write. */
 const TTL_MS = 5 * 60_000;

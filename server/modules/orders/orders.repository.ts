@@ -495,9 +495,9 @@ export function ordersRepository(db: Db) {
       }));
     },
 
-    /** The order that carries this one's back-ordered packs, if one has been started. */
+    /** The live order that carries this one's back-ordered packs, if one has been started (not one cancelled or turned down since). */
     async followUpOf(orderId: number, trx: Db = db): Promise<{ id: number; status: OrderStatus } | undefined> {
-      return trx('orders').where({ follows_order_id: orderId }).first('id', 'status');
+      return trx('orders').where({ follows_order_id: orderId }).whereNotIn('status', ['cancelled', 'turned_down']).first('id', 'status');
     },
 
     /** The people who run a merchant's order desk: they hear of every new order and change. */

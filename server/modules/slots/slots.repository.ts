@@ -23,6 +23,8 @@ export interface SlotRow {
   payload_kg: number;
   pallet_slots: number;
   has_crane: boolean;
+  /** Set once the lorry is out of service: its remaining runs take no new bookings. */
+  lorry_archived_at: string | null;
   crane_max_kg: number | null;
   driver_name: string | null;
 }
@@ -59,6 +61,7 @@ const SLOT_COLUMNS = [
   'l.pallet_slots',
   'l.has_crane',
   'l.crane_max_kg',
+  'l.archived_at as lorry_archived_at',
   'u.name as driver_name',
 ];
 

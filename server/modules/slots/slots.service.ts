@@ -167,6 +167,7 @@ export function slotsService({ db }: Pick<AppDeps, 'db'>) {
       if (!slot) throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path: 'slot_id', message: 'is not one of your delivery slots' }]);
       if (slot.branch_id !== order.branch_id) throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path: 'slot_id', message: "is a slot of another branch: book a lorry of the order's branch" }]);
       if (slot.date < todayIso()) throw AppError.conflict('slot_past', `The slot on ${slot.date} has passed`);
+      if (slot.lorry_archived_at) throw AppError.conflict('lorry_archived', `${slot.registration} is out of service: book another lorry`);
       if (load.pallets === 0) throw AppError.conflict('nothing_to_deliver', 'Nothing on this order is confirmed to send yet');
       if (order.delivery_method === 'roof') {
         if (!slot.has_crane) throw AppError.conflict('crane_needed', `The order is lifted onto the roof, and ${slot.registration} has no crane: choose a crane lorry`);

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { CatalogueBoard } from './catalogue-board';
 
-const organisation = { id: 9, kind: 'merchant', name: 'Stanmoor Roofing Supplies', branches: [{ id: 3, name: 'Harrowgate yard', address: '4 Kiln Lane', town: 'Harrowgate', phone: null }] };
+const organisation = { id: 9, kind: 'merchant', name: 'Stanmoor Roofing Supplies', branches: [{ id: 3, name: 'Quillsby yard', address: '4 Kiln Lane', town: 'Quillsby', phone: null }] };
 
 describe('CatalogueBoard', () => {
   it('opens the section named in the address and moves between sections by link', async () => {

@@ -17,7 +17,7 @@ const products = [
   product(7, 'TRS-UVP-50', 'Vapour-open underlay, 50 m roll', 'underlay'),
   product(8, 'TRS-OLD-TILE', 'Old tile, no longer sold', 'tile', true),
 ];
-const branch = { id: 3, name: 'Harrowgate yard', town: 'Harrowgate', merchant: { id: 9, name: 'Stanmoor Roofing Supplies' } };
+const branch = { id: 3, name: 'Quillsby yard', town: 'Quillsby', merchant: { id: 9, name: 'Stanmoor Roofing Supplies' } };
 const savedSystem = (over: Record<string, unknown> = {}) => ({ id: 40, name: 'Flat tile on 38 × 25', description: '', branch, settings: {}, components: [], offerable: true, problems: [], archived_at: null, ...over });
 const choose = (label: string, value: string) => fireEvent.change(screen.getByLabelText(label), { target: { value } });
 const sentBody = (fetchMock: ReturnType<typeof stubFetch>, method: string, path: string) => {
@@ -39,7 +39,7 @@ describe('RoofSystemForm', () => {
     const fetchMock = stubFetch({ ...csrf, 'POST /api/roof-systems': { status: 201, body: savedSystem() } });
     renderWithProviders(<RoofSystemForm branchId={3} products={products} />);
     fireEvent.change(screen.getByLabelText('Name'), { target: { value: 'Flat tile on 38 × 25' } });
-    fireEvent.change(screen.getByLabelText('Description (optional)'), { target: { value: 'Brindle, for the Harrowgate estates' } });
+    fireEvent.change(screen.getByLabelText('Description (optional)'), { target: { value: 'Brindle, for the Quillsby estates' } });
     choose('Tile', '2');
     choose('Ridge tile', '3');
     choose('Batten', '4');
@@ -51,7 +51,7 @@ describe('RoofSystemForm', () => {
       expect(sentBody(fetchMock, 'POST', '/api/roof-systems')).toEqual({
         branch_id: 3,
         name: 'Flat tile on 38 × 25',
-        description: 'Brindle, for the Harrowgate estates',
+        description: 'Brindle, for the Quillsby estates',
         settings: {},
         components: { tile: 2, ridge: 3, batten: 4, batten_nail: 5, tile_nail: 6, underlay: 7 },
       }),
@@ -73,10 +73,10 @@ describe('RoofSystemForm', () => {
     expect(screen.getByLabelText('Ridge tile').getAttribute('aria-invalid')).toBe('true');
   });
 
-  it('changes a system with PATCH, sending every part still chosen (one set to None is taken off) and its stored settings unchanged', async () => {
+  it('changes a system with PATCH, sending every part still chosen (one set to None is taken off) and leaving its settings out so the stored ones stand', async () => {
     const system = merchantRoofSystemSchema.parse(
       savedSystem({
-        description: 'Brindle, for the Harrowgate estates',
+        description: 'Brindle, for the Quillsby estates',
         // 400 mm rafter centres: common practice for trussed rafters.
         settings: { rafter_spacing_mm: 400, waste_pct: { tiles: 3 } },
         components: [
@@ -95,8 +95,7 @@ describe('RoofSystemForm', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Save the roof system' }));
     await waitFor(() => expect(sentBody(fetchMock, 'PATCH', '/api/roof-systems/40')).toEqual({
         name: 'Flat tile on 38 × 25',
-        description: 'Brindle, for the Harrowgate estates',
-        settings: { rafter_spacing_mm: 400, waste_pct: { tiles: 3 } },
+        description: 'Brindle, for the Quillsby estates',
         components: { tile: 8, ridge: 3, batten: 4 },
       }));
     expect(await screen.findByText('Flat tile on 38 × 25 is saved; it is not offered yet: has no batten product.')).toBeTruthy();

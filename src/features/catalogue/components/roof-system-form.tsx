@@ -19,7 +19,7 @@ export function RoofSystemForm({ branchId, products, system = null, onDone }: { 
   const create = useCreateRoofSystem();
   const update = useUpdateRoofSystem(system?.id ?? 0);
   const toast = useToast();
-  const extraValues = useMemo(() => (system ? { settings: system.settings } : { branch_id: branchId }), [branchId, system]);
+  const extraValues = useMemo(() => (system ? {} : { branch_id: branchId }), [branchId, system]);
   const chosen = useMemo(() => new Map(system?.components.map((c) => [c.role, c.product_id]) ?? []), [system]);
   const form = useZodForm({
     schema: system ? updateRoofSystemFormSchema : createRoofSystemFormSchema,

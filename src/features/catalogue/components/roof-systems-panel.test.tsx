@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { RoofSystemsPanel } from './roof-systems-panel';
 
-const branch = { id: 3, name: 'Harrowgate yard', town: 'Harrowgate', merchant: { id: 9, name: 'Stanmoor Roofing Supplies' } };
+const branch = { id: 3, name: 'Quillsby yard', town: 'Quillsby', merchant: { id: 9, name: 'Stanmoor Roofing Supplies' } };
 const system = {
   id: 40,
   name: 'Flat tile on 38 × 25',

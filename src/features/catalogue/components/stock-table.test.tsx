@@ -18,7 +18,7 @@ const item = {
   state: 'in_stock',
   updated_at: '2026-11-30T08:00:00.000Z',
 };
-const list = (over: Partial<typeof item> = {}) => ({ status: 200, body: { branch: { id: 3, name: 'Harrowgate yard', town: 'Harrowgate' }, items: [{ ...item, ...over }] } });
+const list = (over: Partial<typeof item> = {}) => ({ status: 200, body: { branch: { id: 3, name: 'Quillsby yard', town: 'Quillsby' }, items: [{ ...item, ...over }] } });
 const patchBody = (fetchMock: ReturnType<typeof stubFetch>) => {
   const call = fetchMock.mock.calls.find(([url, init]) => String(url).endsWith('/api/branches/3/stock/11') && init?.method === 'PATCH');
   return call ? (JSON.parse(String(call[1]?.body)) as unknown) : undefined;
@@ -39,7 +39,7 @@ describe('StockTable editing', () => {
     expect(await screen.findByText('TRS-FL420-SG: 2,650 on hand, reorder at 600.')).toBeTruthy();
     expect(patchBody(fetchMock)).toEqual({ on_hand: 2_650 });
     await waitFor(() => expect(screen.queryByRole('form', { name: 'Change the stock of TRS-FL420-SG' })).toBeNull());
-    const table = screen.getByRole('table', { name: 'Stock at Harrowgate yard' });
+    const table = screen.getByRole('table', { name: 'Stock at Quillsby yard' });
     await waitFor(() => expect(within(table).getByText('2,650')).toBeTruthy());
   });
 
@@ -95,7 +95,7 @@ describe('StockTable editing', () => {
   it('offers no edit button to a role without stock:manage, and Cancel closes the form unchanged', async () => {
     stubFetch({ 'GET /api/branches/3/stock': list() });
     const { unmount } = renderWithProviders(<StockTable branchId={3} />);
-    await screen.findByRole('table', { name: 'Stock at Harrowgate yard' });
+    await screen.findByRole('table', { name: 'Stock at Quillsby yard' });
     expect(screen.queryByRole('button', { name: /^Edit stock/ })).toBeNull();
     unmount();
     renderWithProviders(<StockTable branchId={3} canEdit />);

@@ -36,11 +36,10 @@ export const createRoofSystemFormSchema = z
   .pipe(roofSystemBodySchema);
 
 /**
- * A changed roof system: every role is sent, so a role left on "none" is taken off. The stored
- * settings (given as `settings`) are sent back as they are: the update schema fills a missing
- * settings field with {}, which would wipe them.
+ * A changed roof system: every role is sent, so a role left on "none" is taken off. The settings are
+ * not on this form and are left out of the change, so the stored ones stand.
  */
 export const updateRoofSystemFormSchema = z
   .record(z.string(), z.unknown())
-  .transform((values): unknown => ({ ...readSystem(values), settings: values.settings ?? {} }))
+  .transform((values): unknown => readSystem(values))
   .pipe(updateRoofSystemBodySchema);

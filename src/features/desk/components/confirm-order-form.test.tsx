@@ -1,7 +1,7 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
-import { deskOrderFixture, stockFixture } from '../lib/order-fixture';
+import { orderFixture, stockFixture } from '../../../test-utils/order-fixture';
 import { ConfirmOrderForm } from './confirm-order-form';
 
 const SLOTS = 'GET /api/branches/3/slots?date=2027-03-01';
@@ -28,7 +28,7 @@ const slotDay = {
 };
 
 function renderForm(available: [number, number]) {
-  const order = deskOrderFixture();
+  const order = orderFixture();
   const stock = new Map([
     [11, stockFixture(11, 'TRS-FL420-SG', available[0])],
     [12, stockFixture(12, 'TRS-RHR-SG', available[1])],
@@ -46,7 +46,7 @@ const sentBody = (fetchMock: ReturnType<typeof stubFetch>) => {
 
 describe('ConfirmOrderForm', () => {
   it('starts a short line at the packs free and back-orders the rest, sending part quantities per line', async () => {
-    const confirmed = deskOrderFixture({ status: 'confirmed', allowed_actions: [] });
+    const confirmed = orderFixture({ status: 'confirmed', allowed_actions: [] });
     const fetchMock = stubFetch({ [SLOTS]: { status: 200, body: slotDay }, 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/confirm': { status: 200, body: confirmed } });
     renderForm([6, 50]);
     expect(sendInput('Interlocking tile, slate grey').value).toBe('6');
@@ -63,7 +63,7 @@ describe('ConfirmOrderForm', () => {
   });
 
   it('books the chosen slot in the same confirmation', async () => {
-    const fetchMock = stubFetch({ [SLOTS]: { status: 200, body: slotDay }, 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/confirm': { status: 200, body: deskOrderFixture({ status: 'confirmed' }) } });
+    const fetchMock = stubFetch({ [SLOTS]: { status: 200, body: slotDay }, 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/confirm': { status: 200, body: orderFixture({ status: 'confirmed' }) } });
     renderForm([50, 50]);
     fireEvent.click(await screen.findByRole('radio', { name: /07:30-12:00 · RL-TY01/ }));
     expect(screen.getByText(/12,000 kg of 14,000 kg left · 10 of 12 pallet slots left/)).toBeTruthy();

@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
+import { DELIVERY_METHOD_LABELS, ORDER_LINE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
 import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Alert, ErrorAlert } from '../../../components/ui/alert';
@@ -22,16 +22,6 @@ import { SlotBooking } from './slot-booking';
 import { TurnDownForm } from './turn-down-form';
 
 type DeskLine = OrderDetail['lines'][number] & { available: number | null; reorder_level: number | null };
-
-const LINE_WORDS: Record<OrderDetail['lines'][number]['status'], string> = {
-  asked: 'Asked for',
-  agreed: 'Agreed',
-  part_agreed: 'Part agreed',
-  back_ordered: 'To follow',
-  replaced: 'Replaced',
-  not_available: 'Not available',
-  substitute: 'Substitute',
-};
 
 const h = dataTableColumns<DeskLine>();
 const lineColumns = h.columns([
@@ -67,7 +57,7 @@ const lineColumns = h.columns([
   h.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
   h.accessor('reserved_quantity', { header: 'Reserved', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
   h.accessor((row) => row.delivered_quantity ?? -1, { id: 'delivered', header: 'Delivered', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.row.original.delivered_quantity ?? '—'}</span> }),
-  h.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{LINE_WORDS[info.getValue()]}</span> }),
+  h.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{ORDER_LINE_STATUS_LABELS[info.getValue()]}</span> }),
   h.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('total', { header: 'Total', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
 ]);

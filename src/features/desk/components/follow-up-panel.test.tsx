@@ -3,7 +3,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { deskKeys } from '../api/keys';
-import { deskOrderFixture, stockFixture } from '../lib/order-fixture';
+import { orderFixture, stockFixture } from '../../../test-utils/order-fixture';
 import { DeskOrderDetail } from './desk-order-detail';
 import { FollowUpPanel } from './follow-up-panel';
 
@@ -18,9 +18,9 @@ afterEach(() => {
 
 /** A confirmed order with 4 tiles and 2 ridges back-ordered, 1 ridge line sent in full. */
 function confirmedWithBackOrder(overrides: Partial<OrderDetail> = {}): OrderDetail {
-  const base = deskOrderFixture();
+  const base = orderFixture();
   const [tiles, ridge] = base.lines;
-  return deskOrderFixture({
+  return orderFixture({
     status: 'confirmed',
     status_label: 'Confirmed',
     time_window: '07:30-12:00',
@@ -36,7 +36,7 @@ function confirmedWithBackOrder(overrides: Partial<OrderDetail> = {}): OrderDeta
 }
 
 const followUp = () =>
-  deskOrderFixture({
+  orderFixture({
     id: 7,
     reference: 'RL-000007',
     status: 'agreed',

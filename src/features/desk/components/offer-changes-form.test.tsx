@@ -1,15 +1,15 @@
 import { fireEvent, screen, waitFor } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
-import { deskOrderFixture, stockFixture } from '../lib/order-fixture';
+import { orderFixture, stockFixture } from '../../../test-utils/order-fixture';
 import { OfferChangesForm } from './offer-changes-form';
 
 const stock = [stockFixture(11, 'TRS-FL420-SG', 6), stockFixture(12, 'TRS-RHR-SG', 50), stockFixture(13, 'TRS-FL420-BR', 40)];
 
 describe('OfferChangesForm', () => {
   it('offers part now, the rest to follow and a substitute, sending only the lines that change', async () => {
-    const order = deskOrderFixture();
-    const fetchMock = stubFetch({ 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/proposals': { status: 201, body: { proposal_id: 9, order: deskOrderFixture({ status: 'changes_offered' }) } } });
+    const order = orderFixture();
+    const fetchMock = stubFetch({ 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/proposals': { status: 201, body: { proposal_id: 9, order: orderFixture({ status: 'changes_offered' }) } } });
     renderWithProviders(<OfferChangesForm order={order} stock={stock} />);
     fireEvent.change(screen.getByLabelText('Packs now of TRS-FL420-SG'), { target: { value: '6' } });
     fireEvent.change(screen.getByLabelText('Packs to follow of TRS-FL420-SG'), { target: { value: '2' } });
@@ -29,7 +29,7 @@ describe('OfferChangesForm', () => {
 
   it('refuses now and to follow adding up to more than is open, and sends nothing', async () => {
     const fetchMock = stubFetch({});
-    renderWithProviders(<OfferChangesForm order={deskOrderFixture()} stock={stock} />);
+    renderWithProviders(<OfferChangesForm order={orderFixture()} stock={stock} />);
     fireEvent.change(screen.getByLabelText('Packs to follow of TRS-RHR-SG'), { target: { value: '1' } });
     fireEvent.click(screen.getByRole('button', { name: 'Send the offer' }));
     expect(await screen.findByText('now and to follow come to 6, more than the 5 packs open')).toBeTruthy();

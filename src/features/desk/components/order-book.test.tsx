@@ -1,51 +1,15 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
-import { describe, expect, it, vi } from 'vitest';
-import type { OrderSummary } from '../../../../shared/schemas/order.schema';
+import { describe, expect, it } from 'vitest';
+import { orderSummaryFixture, stubOrderListApi } from '../../../test-utils/order-book-fixture';
 import { renderWithProviders } from '../../../test-utils/render-with-providers';
 import { OrderBook, filtersFromSearch } from './order-book';
 
-/** Invented orders of an invented merchant; only the fields the order book shows matter here. */
-function order(id: number, overrides: Partial<OrderSummary> = {}): OrderSummary {
-  return {
-    id,
-    reference: `RL-${String(id).padStart(6, '0')}`,
-    status: 'sent',
-    status_label: 'Sent',
-    revision: 1,
-    contractor: { id: 5, name: 'Brackenfold Roofworks' },
-    branch: { id: 3, name: 'Tollerbeck Yard', town: 'Tollerbeck', merchant: { id: 2, name: 'Tollerbeck Roofing Supplies' } },
-    project: { id: 8, name: 'Hollin Brow' },
-    requested_date: '2027-03-10',
-    time_window: null,
-    delivery_method: 'ground',
-    po_reference: '',
-    subtotal: 61_440,
-    line_count: 3,
-    placed_at: '2027-03-01 09:00:00',
-    updated_at: '2027-03-01 09:00:00',
-    ...overrides,
-  };
-}
+const order = orderSummaryFixture;
 
 // Deliberately not in any order a browser sort would give: the screen must keep the server's order.
 const serverPage = [order(12, { subtotal: 9_000 }), order(4, { subtotal: 120_000 }), order(31, { subtotal: 45_000 })];
 
-/** Answers the order book's two calls and records every query string sent to /api/orders. */
-function stubOrderApi() {
-  const orderQueries: URLSearchParams[] = [];
-  const fetchMock = vi.fn(async (input: RequestInfo | URL) => {
-    const url = new URL(typeof input === 'string' ? input : input instanceof URL ? input.href : input.url, 'http://localhost');
-    const json = (body: unknown) => new Response(JSON.stringify(body), { status: 200, headers: { 'Content-Type': 'application/json' } });
-    if (url.pathname === '/api/organisation') return json({ id: 2, name: 'Tollerbeck Roofing Supplies', kind: 'merchant', branches: [] });
-    if (url.pathname === '/api/orders') {
-      orderQueries.push(url.searchParams);
-      return json({ orders: serverPage, total: 120, total_capped: false, page: Number(url.searchParams.get('page')), page_size: 25 });
-    }
-    return new Response(JSON.stringify({ error: { code: 'not_found', message: `No mocked answer for ${url.pathname}` } }), { status: 404 });
-  });
-  vi.stubGlobal('fetch', fetchMock);
-  return orderQueries;
-}
+const stubOrderApi = () => stubOrderListApi(serverPage, 25, { '/api/organisation': { id: 2, name: 'Tollerbeck Roofing Supplies', kind: 'merchant', branches: [] } });
 
 const sortOf = (q: URLSearchParams) => ({ sort: q.get('sort'), dir: q.get('dir'), page: q.get('page') });
 const header = (name: string) => screen.getByRole('columnheader', { name: new RegExp(`^${name}`) });

@@ -11,7 +11,7 @@ const booking = {
   order_id: 88,
   reference: 'RL-000088',
   status: 'confirmed',
-  contractor: { id: 12, name: 'Harrowgate Roofing' },
+  contractor: { id: 12, name: 'Quillsby Roofing' },
   site_name: 'Mill Lane plots 1-6',
   delivery_method: 'ground',
   weight_kg: 2_400,
@@ -35,7 +35,7 @@ const slot = {
   bookings: [] as (typeof booking)[],
 };
 
-const day = (slots: (typeof slot)[]) => ({ status: 200, body: { branch: { id: 3, name: 'North yard', town: 'Eastmoor' }, date: today, slots } });
+const day = (slots: (typeof slot)[]) => ({ status: 200, body: { branch: { id: 3, name: 'North yard', town: 'Quennick' }, date: today, slots } });
 const base = {
   'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
   'GET /api/drivers': { status: 200, body: { drivers: [{ id: 9, name: 'Dee Fenwick', email: 'dee@northyard.test' }, { id: 10, name: 'Sol Brant', email: 'sol@northyard.test' }] } },

@@ -1,80 +1,25 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { OrderDetail as OrderDetailData } from '../../../../shared/schemas/order.schema';
+import { fixtureLine, orderFixture } from '../../../test-utils/order-fixture';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { OrderDetail } from './order-detail';
 
 /** An invented confirmed order of Brackenfold Roofworks with 4 tile packs back-ordered. */
 function contractorOrder(overrides: Partial<OrderDetailData> = {}): OrderDetailData {
-  return {
-    id: 1,
-    reference: 'RL-000001',
+  return orderFixture({
     status: 'confirmed',
     status_label: 'Confirmed',
     revision: 2,
-    contractor: { id: 5, name: 'Brackenfold Roofworks' },
-    branch: { id: 3, name: 'Tollerbeck Yard', town: 'Tollerbeck', merchant: { id: 2, name: 'Tollerbeck Roofing Supplies' } },
-    project: { id: 9, name: 'Hollin Brow, plots 1–20' },
-    requested_date: '2027-03-01',
-    time_window: null,
-    delivery_method: 'ground',
-    po_reference: 'HB-1',
     subtotal: 30_720 * 10,
     line_count: 1,
-    placed_at: '2027-02-20 09:00:00',
     updated_at: '2027-02-21 09:00:00',
-    estimate_id: 4,
-    quote_id: null,
-    notes: '',
-    site: {
-      name: 'Hollin Brow, plots 1–20',
-      site_address: 'Hollin Brow, Tollerbeck',
-      site_postcode: '',
-      contact_name: 'Gethin Marlow',
-      contact_phone: '07700 900 001',
-      vehicle_access: 'rigid_only',
-      crane_lift: 'allowed',
-      overhead_lines: 'none',
-      set_down_place: 'Hardstanding by the cabin',
-      access_notes: '',
-    },
-    lines: [
-      {
-        id: 101,
-        position: 1,
-        product_id: 11,
-        sku: 'TRS-FL420-SG',
-        description: 'Interlocking tile, slate grey',
-        category: 'tile',
-        unit: 'pack',
-        pack_size: 240,
-        pack_weight_kg: 1100,
-        quantity: 10,
-        confirmed_quantity: 6,
-        back_order_quantity: 4,
-        reserved_quantity: 6,
-        unit_price: 30_720,
-        total: 30_720 * 10,
-        status: 'part_agreed',
-        replaces_line_id: null,
-        delivered_quantity: null,
-      },
-    ],
-    proposals: [],
-    timeline: [],
+    lines: [{ ...fixtureLine(101, 11, 'TRS-FL420-SG', 'Interlocking tile, slate grey', 10), confirmed_quantity: 6, back_order_quantity: 4, reserved_quantity: 6, status: 'part_agreed' }],
     allowed_actions: [],
-    cautions: [],
     confirmed_at: '2027-02-21 09:00:00',
-    cancelled_at: null,
-    slot: null,
-    delivery: null,
-    comments: [],
-    invoice: null,
-    follows: null,
-    followed_by: null,
     back_ordered_packs: 4,
     ...overrides,
-  };
+  });
 }
 
 const linked = () => screen.queryByRole('list', { name: 'Back-ordered packs' });

@@ -1,6 +1,6 @@
 import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
+import { DELIVERY_METHOD_LABELS, ORDER_LINE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
 import type { Order, OrderDetail as OrderDetailData, OrderLine, Proposal } from '../../../../shared/schemas/order.schema';
 import { Alert, errorMessage } from '../../../components/ui/alert';
 import { BackOrderLinks } from '../../../components/orders/back-order-links';
@@ -14,16 +14,6 @@ import { useAnswerProposal } from '../api/answer-proposal';
 import { useCancelOrder } from '../api/cancel-order';
 import { formatMoney } from '../../../lib/format';
 import { OrderStages, OrderStatusBadge } from './order-status';
-
-const LINE_STATUS_WORDS: Record<OrderLine['status'], string> = {
-  asked: 'Asked for',
-  agreed: 'Agreed',
-  part_agreed: 'Part agreed',
-  back_ordered: 'To follow',
-  replaced: 'Replaced',
-  not_available: 'Not available',
-  substitute: 'Substitute',
-};
 
 const lineHelper = dataTableColumns<OrderLine>();
 const lineColumns = lineHelper.columns([
@@ -53,7 +43,7 @@ const lineColumns = lineHelper.columns([
     cell: (info) => <span className="tabular-nums">{info.row.original.confirmed_quantity === null ? '—' : info.row.original.confirmed_quantity.toLocaleString('en-GB')}</span>,
   }),
   lineHelper.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
-  lineHelper.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{LINE_STATUS_WORDS[info.getValue()]}</span> }),
+  lineHelper.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{ORDER_LINE_STATUS_LABELS[info.getValue()]}</span> }),
   lineHelper.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   lineHelper.accessor('total', { header: 'Total', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
 ]);

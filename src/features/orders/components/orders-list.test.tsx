@@ -1,31 +1,10 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
-import { describe, expect, it, vi } from 'vitest';
-import type { OrderSummary } from '../../../../shared/schemas/order.schema';
+import { describe, expect, it } from 'vitest';
+import { orderSummaryFixture, stubOrderListApi } from '../../../test-utils/order-book-fixture';
 import { renderWithProviders } from '../../../test-utils/render-with-providers';
 import { OrdersList, listStateFromSearch } from './orders-list';
 
-/** Invented orders of an invented roofing firm; only the fields the list shows matter here. */
-function order(id: number, overrides: Partial<OrderSummary> = {}): OrderSummary {
-  return {
-    id,
-    reference: `RL-${String(id).padStart(6, '0')}`,
-    status: 'sent',
-    status_label: 'Sent',
-    revision: 1,
-    contractor: { id: 5, name: 'Brackenfold Roofworks' },
-    branch: { id: 3, name: 'Tollerbeck Yard', town: 'Tollerbeck', merchant: { id: 2, name: 'Tollerbeck Roofing Supplies' } },
-    project: { id: 8, name: 'Hollin Brow' },
-    requested_date: '2027-03-10',
-    time_window: null,
-    delivery_method: 'ground',
-    po_reference: '',
-    subtotal: 61_440,
-    line_count: 3,
-    placed_at: '2027-03-01 09:00:00',
-    updated_at: '2027-03-01 09:00:00',
-    ...overrides,
-  };
-}
+const order = orderSummaryFixture;
 
 // In no order a browser sort of any column would give: the screen must keep the server's order.
 const serverPage = [
@@ -34,23 +13,7 @@ const serverPage = [
   order(31, { subtotal: 45_000, requested_date: '2027-03-28', placed_at: '2027-03-01 09:00:00', status: 'sent' }),
 ];
 
-/** Answers GET /api/orders with 120 matches (three pages of 50) and records every query string sent. */
-function stubOrderApi() {
-  const queries: URLSearchParams[] = [];
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async (input: RequestInfo | URL) => {
-      const url = new URL(typeof input === 'string' ? input : input instanceof URL ? input.href : input.url, 'http://localhost');
-      if (url.pathname === '/api/orders') {
-        queries.push(url.searchParams);
-        const body = { orders: serverPage, total: 120, total_capped: false, page: Number(url.searchParams.get('page')), page_size: 50 };
-        return new Response(JSON.stringify(body), { status: 200, headers: { 'Content-Type': 'application/json' } });
-      }
-      return new Response(JSON.stringify({ error: { code: 'not_found', message: `No mocked answer for ${url.pathname}` } }), { status: 404 });
-    }),
-  );
-  return queries;
-}
+const stubOrderApi = () => stubOrderListApi(serverPage, 50);
 
 const asked = (q: URLSearchParams | undefined) => ({ sort: q?.get('sort'), dir: q?.get('dir'), page: q?.get('page'), status: q?.get('status') ?? null, q: q?.get('q') ?? null });
 const header = (name: string) => screen.getByRole('columnheader', { name: new RegExp(`^${name}`) });

@@ -1,9 +1,8 @@
-import type { OrderDetail } from '../../../../shared/schemas/order.schema';
-import type { StockItem } from '../../../../shared/schemas/stock.schema';
+import type { OrderDetail } from '../../shared/schemas/order.schema';
+import type { StockItem } from '../../shared/schemas/stock.schema';
 
-/** An invented order for component tests: two lines at Tollerbeck Yard, waiting for the desk. */
-export function deskOrderFixture(overrides: Partial<OrderDetail> = {}): OrderDetail {
-  const line = (id: number, product_id: number, sku: string, description: string, quantity: number): OrderDetail['lines'][number] => ({
+/** An invented order line for component tests: packs of 240 tiles at £307.20 a pack, nothing answered yet. */
+export const fixtureLine = (id: number, product_id: number, sku: string, description: string, quantity: number): OrderDetail['lines'][number] => ({
     id,
     position: id - 100,
     product_id,
@@ -23,6 +22,10 @@ export function deskOrderFixture(overrides: Partial<OrderDetail> = {}): OrderDet
     replaces_line_id: null,
     delivered_quantity: null,
   });
+
+/** An invented order for component tests: two lines at Tollerbeck Yard, waiting for the desk. */
+export function orderFixture(overrides: Partial<OrderDetail> = {}): OrderDetail {
+  const line = fixtureLine;
   return {
     id: 1,
     reference: 'RL-000001',
