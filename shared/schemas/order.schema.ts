@@ -483,7 +483,35 @@ export const quoteRequestListSchema = z.object({
       quotes: z.array(quoteSchema.pick({ id: true, status: true, branch: true, total: true })),
     }),
   ),
+  total: z.number().int(),
+  page: z.number().int(),
+  page_size: z.number().int(),
 });
+export type QuoteRequestList = z.infer<typeof quoteRequestListSchema>;
+
+/** Columns the quote-request list sorts by: when it was asked, and the delivery day wanted. */
+export const QUOTE_REQUEST_SORTS = ['created_at', 'requested_date'] as const;
+
+/**
+ * The quote-request list's query, for either side: the request's stage, only those still waiting for
+ * the caller's own price (a merchant's desk), a search over the request number, site, contractor and
+ * PO reference, a sort and a page.
+ */
+export const quoteRequestListQuerySchema = z
+  .object({
+    status: z.enum(QUOTE_REQUEST_STATUSES).optional(),
+    waiting: z
+      .enum(['true', 'false'])
+      .transform((v) => v === 'true')
+      .optional(),
+    q: z.string().trim().max(100, { error: 'must be at most 100 characters' }).optional(),
+    sort: z.enum(QUOTE_REQUEST_SORTS).default('created_at'),
+    dir: z.enum(['asc', 'desc']).default('desc'),
+    page: z.coerce.number().int().min(1).max(10_000).default(1),
+    page_size: z.coerce.number().int().min(1).max(100).default(25),
+  })
+  .strict();
+export type QuoteRequestListQuery = z.input<typeof quoteRequestListQuerySchema>;
 export const quoteParamsSchema = z.object({ id: z.coerce.number().int().positive() });
 
 // The merchant's desk: confirming against stock, turning down, the delivery, comments, the order book's filters.

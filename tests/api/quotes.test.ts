@@ -206,6 +206,51 @@ describe('merchants answer and the contractor compares', () => {
   });
 });
 
+describe('the quote-request list filters, searches, sorts and pages in SQL', () => {
+  it('pages a contractor’s requests newest first or by day wanted, counts them all, and finds one by number, site or PO', async () => {
+    const a = await merchant();
+    const k = await contractorWithEstimate(a.systemId);
+    const ids: number[] = [];
+    for (let i = 0; i < 5; i++) {
+      const res = await k.c.post('/api/quote-requests', { estimate_id: k.estimate.id, branch_ids: [a.branchId], requested_date: inDays(20 - i), delivery_method: 'ground', po_reference: `YC-${i}` });
+      expect(res.status).toBe(201);
+      ids.push(res.body.id);
+    }
+    const page = async (query: string) => quoteRequestListSchema.parse((await k.c.get(`/api/quote-requests?${query}`)).body);
+    const first = await page('page_size=2');
+    expect(first).toMatchObject({ total: 5, page: 1, page_size: 2 });
+    expect(first.quote_requests.map((r) => r.id)).toEqual([ids[4], ids[3]]);
+    expect((await page('page_size=2&page=3')).quote_requests.map((r) => r.id)).toEqual([ids[0]]);
+    expect((await page('sort=requested_date&dir=asc&page_size=5')).quote_requests.map((r) => r.id)).toEqual([ids[4], ids[3], ids[2], ids[1], ids[0]]);
+    expect((await page(`q=Q-${ids[2]}`)).quote_requests.map((r) => r.id)).toEqual([ids[2]]);
+    expect((await page('q=yc-3')).quote_requests.map((r) => r.id)).toEqual([ids[3]]);
+    expect((await page('q=yarrowby')).total).toBe(5);
+    expect((await page('q=nowhere')).total).toBe(0);
+
+    await k.c.post(`/api/quote-requests/${ids[1]}/withdraw`);
+    expect((await page('status=withdrawn')).quote_requests.map((r) => r.id)).toEqual([ids[1]]);
+    expect((await page('status=open')).total).toBe(4);
+
+    const bad = await k.c.get('/api/quote-requests?sort=price&page=0&status=lost&page_size=500');
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual(['page', 'page_size', 'sort', 'status']);
+  });
+
+  it('shows a desk only the requests still waiting for its own price when it asks', async () => {
+    const { a, b, k, request, quoteFor } = await asked();
+    const second = await k.c.post('/api/quote-requests', { estimate_id: k.estimate.id, branch_ids: [a.branchId, b.branchId], requested_date: inDays(15), delivery_method: 'ground' });
+    const deskA = await login(a.salesEmail);
+    await deskA.post(`/api/quotes/${quoteFor(a.branchId)}/answer`, { lines: [{ request_line_id: lineOf(request, 'tile'), product_id: a.product('TRS-FL420-SG') }] });
+    const waiting = quoteRequestListSchema.parse((await deskA.get('/api/quote-requests?waiting=true')).body);
+    expect(waiting.quote_requests.map((r) => r.id)).toEqual([second.body.id]);
+    const answered = quoteRequestListSchema.parse((await deskA.get('/api/quote-requests?waiting=false')).body);
+    expect(answered.quote_requests.map((r) => r.id)).toEqual([request.id]);
+    // The other merchant has answered neither.
+    const deskB = quoteRequestListSchema.parse((await (await login(b.salesEmail)).get('/api/quote-requests?waiting=true')).body);
+    expect(deskB.quote_requests.map((r) => r.id).sort()).toEqual([request.id, second.body.id].sort());
+  });
+});
+
 describe('no role reaches another organisation’s quote requests', () => {
   for (const role of ROLES) {
     it(`${role}: reading, answering, declining, accepting and withdrawing are refused and change nothing`, async () => {

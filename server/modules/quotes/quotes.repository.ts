@@ -1,8 +1,12 @@
-import type { OrderSite, Quote, QUOTE_REQUEST_STATUSES, QUOTE_STATUSES } from '../../../shared/schemas/order.schema';
+import type { Knex } from 'knex';
+import type { z } from 'zod';
+import type { OrderSite, Quote, QUOTE_REQUEST_STATUSES, QUOTE_STATUSES, quoteRequestListQuerySchema } from '../../../shared/schemas/order.schema';
 import type { ProductCategory } from '../../../shared/schemas/catalogue.schema';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 import type { OrderParty } from '../orders/orders.repository';
+
+type RequestListFilter = z.output<typeof quoteRequestListQuerySchema>;
 
 type RequestStatus = (typeof QUOTE_REQUEST_STATUSES)[number];
 type QuoteStatus = (typeof QUOTE_STATUSES)[number];
@@ -137,9 +141,39 @@ export function quotesRepository(db: Db) {
       return row ? toRequest(row) : undefined;
     },
 
-    async listRequests(party: OrderParty): Promise<QuoteRequestRow[]> {
-      const rows = await scopedRequests(db, party).select(REQUEST_COLUMNS).orderBy('r.id', 'desc').limit(200);
-      return rows.map(toRequest);
+    /** A page of the caller's quote requests, filtered and sorted in SQL, with how many match. */
+    async listRequests(party: OrderParty, f: RequestListFilter): Promise<{ rows: QuoteRequestRow[]; total: number }> {
+      const filtered = () => {
+        const q = scopedRequests(db, party);
+        if (f.status) q.where('r.status', f.status);
+        if (f.waiting !== undefined && party.kind === 'merchant') {
+          const mine = (w: Knex.QueryBuilder) =>
+            w.select('*').from('quotes as wq').whereRaw('?? = ??', ['wq.quote_request_id', 'r.id']).andWhere('wq.merchant_organisation_id', party.organisationId).andWhere('wq.status', 'asked');
+          if (f.waiting) q.whereExists(mine);
+          else q.whereNotExists(mine);
+        }
+        if (f.q) {
+          const ref = f.q.match(/^(?:q-?)?0*(\d{1,9})$/i);
+          const pattern = `%${f.q.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+          q.where((w) => {
+            if (ref) w.orWhere('r.id', Number(ref[1]));
+            w.orWhereRaw(`lower(??) like ? escape '\\'`, ['co.name', pattern])
+              .orWhereRaw(`lower(json_extract(??, '$.name')) like ? escape '\\'`, ['r.site', pattern])
+              .orWhereRaw(`lower(??) like ? escape '\\'`, ['r.po_reference', pattern]);
+          });
+        }
+        return q;
+      };
+      const counted = await db.from(filtered().select('r.id').as('m')).count({ n: '*' }).first();
+      const rows = await filtered()
+        .select(REQUEST_COLUMNS)
+        .orderBy([
+          { column: `r.${f.sort}`, order: f.dir },
+          { column: 'r.id', order: f.dir },
+        ])
+        .limit(f.page_size)
+        .offset((f.page - 1) * f.page_size);
+      return { rows: rows.map(toRequest), total: Number(counted?.n ?? 0) };
     },
 
     async requestLines(requestId: number, trx: Db = db): Promise<RequestLineRow[]> {

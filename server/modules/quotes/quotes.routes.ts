@@ -3,6 +3,7 @@ import {
   createQuoteRequestBodySchema,
   declineQuoteBodySchema,
   quoteParamsSchema,
+  quoteRequestListQuerySchema,
 } from '../../../shared/schemas/order.schema';
 import { currentUser } from '../../auth/policy';
 import { apiRouter } from '../../http/endpoint';
@@ -15,8 +16,8 @@ export function quotesRoutes(quotes: QuotesService) {
     res.status(201).json(await quotes.create(currentUser(req), body));
   });
 
-  r.get('/quote-requests', { access: { action: 'orders:read' } }, async (req, res) => {
-    res.json(await quotes.list(currentUser(req)));
+  r.get('/quote-requests', { access: { action: 'orders:read' }, query: quoteRequestListQuerySchema }, async (req, res, { query }) => {
+    res.json(await quotes.list(currentUser(req), query));
   });
 
   r.get('/quote-requests/:id', { access: { action: 'orders:read' }, params: quoteParamsSchema }, async (req, res, { params }) => {

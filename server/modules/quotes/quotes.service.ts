@@ -4,6 +4,7 @@ import {
   type QuoteRequest,
   type answerQuoteBodySchema,
   type createQuoteRequestBodySchema,
+  type quoteRequestListQuerySchema,
 } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
@@ -21,6 +22,7 @@ import { quotesRepository, type QuoteRequestRow, type QuoteRow, type RequestLine
 
 type CreateBody = z.output<typeof createQuoteRequestBodySchema>;
 type AnswerBody = z.output<typeof answerQuoteBodySchema>;
+type RequestListQuery = z.output<typeof quoteRequestListQuerySchema>;
 
 const invalid = (path: string, message: string) => AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path, message }]);
 
@@ -110,9 +112,9 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
   return {
     get,
 
-    async list(user: AuthUser) {
+    async list(user: AuthUser, query: RequestListQuery) {
       const party = partyOf(user);
-      const requests = await quotes.listRequests(party);
+      const { rows: requests, total } = await quotes.listRequests(party, query);
       const all = await quotes.quotesOf(
         requests.map((r) => r.id),
         party,
@@ -128,6 +130,9 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           updated_at: r.updated_at,
           quotes: all.filter((q) => q.quote_request_id === r.id).map((q) => ({ id: q.id, status: q.status, branch: q.branch, total: q.total })),
         })),
+        total,
+        page: query.page,
+        page_size: query.page_size,
       };
     },
 

@@ -1,21 +1,29 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { quoteRequestListSchema } from '../../../../shared/schemas/order.schema';
 import { apiClient } from '../../../lib/api-client';
 import { quoteDeskKeys } from './keys';
+import type { DeskQuoteRequestFilters } from './keys';
 
 /** The server scopes the list to the caller: a merchant sees only the requests sent to its branches. */
-export function fetchDeskQuoteRequests(signal?: AbortSignal) {
-  return apiClient.get('/api/quote-requests', { schema: quoteRequestListSchema, signal });
+export function fetchDeskQuoteRequests(filters: DeskQuoteRequestFilters, signal?: AbortSignal) {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(filters)) {
+    // "Not only the waiting ones" is the server's default, so it is left out rather than sent as false.
+    if (value === undefined || value === '' || value === false) continue;
+    params.set(key, String(value));
+  }
+  return apiClient.get(`/api/quote-requests?${params.toString()}`, { schema: quoteRequestListSchema, signal });
 }
 
-export function deskQuoteRequestsQueryOptions() {
+export function deskQuoteRequestsQueryOptions(filters: DeskQuoteRequestFilters) {
   return queryOptions({
-    queryKey: quoteDeskKeys.list(),
-    queryFn: ({ signal }) => fetchDeskQuoteRequests(signal),
-    select: (body) => body.quote_requests,
+    queryKey: quoteDeskKeys.list(filters),
+    queryFn: ({ signal }) => fetchDeskQuoteRequests(filters, signal),
+    // The page stays on screen while the next page or filter loads.
+    placeholderData: keepPreviousData,
   });
 }
 
-export function useDeskQuoteRequests() {
-  return useQuery(deskQuoteRequestsQueryOptions());
+export function useDeskQuoteRequests(filters: DeskQuoteRequestFilters) {
+  return useQuery(deskQuoteRequestsQueryOptions(filters));
 }

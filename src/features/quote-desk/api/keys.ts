@@ -1,8 +1,22 @@
+import type { QUOTE_REQUEST_SORTS, QUOTE_REQUEST_STATUSES } from '../../../../shared/schemas/order.schema';
+
+/** The desk's quote-request list query as the page sends it (see quoteRequestListQuerySchema). */
+export interface DeskQuoteRequestFilters {
+  status?: (typeof QUOTE_REQUEST_STATUSES)[number];
+  /** Only the requests some branch of ours has still to price. */
+  waiting?: boolean;
+  q?: string;
+  sort: (typeof QUOTE_REQUEST_SORTS)[number];
+  dir: 'asc' | 'desc';
+  page: number;
+  page_size: number;
+}
+
 /** Query keys of the desk's quote requests: the requests sent to the merchant's branches, and a branch's stock to price from. */
 export const quoteDeskKeys = {
   all: ['quote-desk'] as const,
   lists: () => [...quoteDeskKeys.all, 'list'] as const,
-  list: () => [...quoteDeskKeys.lists(), {}] as const,
+  list: (filters: DeskQuoteRequestFilters) => [...quoteDeskKeys.lists(), filters] as const,
   details: () => [...quoteDeskKeys.all, 'detail'] as const,
   detail: (id: number) => [...quoteDeskKeys.details(), id] as const,
   stock: (branchId: number) => [...quoteDeskKeys.all, 'stock', branchId] as const,

@@ -1,20 +1,24 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { quoteRequestListSchema } from '../../../../shared/schemas/order.schema';
 import { apiClient } from '../../../lib/api-client';
 import { quoteKeys } from './keys';
+import type { QuoteRequestFilters } from './keys';
 
-export function fetchQuoteRequests(signal?: AbortSignal) {
-  return apiClient.get('/api/quote-requests', { schema: quoteRequestListSchema, signal });
+export function fetchQuoteRequests(filters: QuoteRequestFilters, signal?: AbortSignal) {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(filters)) if (value !== undefined && value !== '') params.set(key, String(value));
+  return apiClient.get(`/api/quote-requests?${params.toString()}`, { schema: quoteRequestListSchema, signal });
 }
 
-export function quoteRequestsQueryOptions() {
+export function quoteRequestsQueryOptions(filters: QuoteRequestFilters) {
   return queryOptions({
-    queryKey: quoteKeys.list(),
-    queryFn: ({ signal }) => fetchQuoteRequests(signal),
-    select: (body) => body.quote_requests,
+    queryKey: quoteKeys.list(filters),
+    queryFn: ({ signal }) => fetchQuoteRequests(filters, signal),
+    // The page stays on screen while the next page or filter loads.
+    placeholderData: keepPreviousData,
   });
 }
 
-export function useQuoteRequests() {
-  return useQuery(quoteRequestsQueryOptions());
+export function useQuoteRequests(filters: QuoteRequestFilters) {
+  return useQuery(quoteRequestsQueryOptions(filters));
 }

@@ -1,33 +1,51 @@
-import { Link } from 'react-router-dom';
+import { useId } from 'react';
+import type { FormEvent } from 'react';
+import { Link, useSearchParams } from 'react-router-dom';
 import type { z } from 'zod';
-import { QUOTE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
+import { QUOTE_REQUEST_SORTS, QUOTE_REQUEST_STATUSES, QUOTE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
 import type { quoteRequestListSchema } from '../../../../shared/schemas/order.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
-import { formatDate } from '../../../lib/format';
+import { formatDate, formatMoney } from '../../../lib/format';
 import { useQuoteRequests } from '../api/get-quote-requests';
-import { formatMoney } from '../../../lib/format';
+import type { QuoteRequestFilters } from '../api/keys';
+import { quoteFiltersFromSearch } from '../lib/list-filters';
 
 type Row = z.infer<typeof quoteRequestListSchema>['quote_requests'][number];
+type RequestStatus = (typeof QUOTE_REQUEST_STATUSES)[number];
+type RequestSort = (typeof QUOTE_REQUEST_SORTS)[number];
+type SortDir = QuoteRequestFilters['dir'];
 
-const REQUEST_WORDS = { open: 'Open', accepted: 'Accepted', withdrawn: 'Withdrawn' } as const;
+const REQUEST_WORDS: Record<RequestStatus, string> = { open: 'Open', accepted: 'Accepted', withdrawn: 'Withdrawn' };
+
+/** Each server sort in words, both ways round; the phone's sort picker and the count line use them. */
+const SORT_WORDS: Record<RequestSort, Record<SortDir, string>> = {
+  created_at: { desc: 'newest asked first', asc: 'oldest asked first' },
+  requested_date: { asc: 'soonest wanted first', desc: 'latest wanted first' },
+};
+
+const SORT_CHOICES = QUOTE_REQUEST_SORTS.flatMap((sort) =>
+  (Object.keys(SORT_WORDS[sort]) as SortDir[]).map((dir) => ({ value: `${sort}:${dir}`, sort, dir, label: SORT_WORDS[sort][dir] })),
+);
 
 const helper = dataTableColumns<Row>();
+// Sorting is the server's (over every matching request, not one page): the column ids that match a
+// QUOTE_REQUEST_SORTS name get a header button, and the table itself never reorders rows.
 const columns = helper.columns([
   helper.accessor('id', {
     header: 'Request',
-    sortFn: 'alphanumeric',
     cell: (info) => (
       <Link to={`/quotes/${info.getValue()}`} className="font-semibold whitespace-nowrap text-clay-700 underline underline-offset-2">
         Request {info.getValue()}
       </Link>
     ),
   }),
-  helper.accessor((row) => row.project.name, { id: 'site', header: 'Site', sortFn: 'text' }),
-  helper.accessor('requested_date', { header: 'Wanted', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
-  helper.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => REQUEST_WORDS[info.getValue()] }),
+  helper.accessor((row) => row.project.name, { id: 'site', header: 'Site' }),
+  helper.accessor('requested_date', { header: 'Wanted', cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
+  helper.accessor('status', { header: 'Stage', cell: (info) => REQUEST_WORDS[info.getValue()] }),
   helper.display({
     id: 'quotes',
     header: 'Answers',
@@ -42,24 +60,154 @@ const columns = helper.columns([
       </ul>
     ),
   }),
-  helper.accessor('created_at', { header: 'Asked', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
+  helper.accessor('created_at', { header: 'Asked', sortDescFirst: true, cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
 ]);
 
-/** The firm's quote requests and how each merchant has answered. */
+/** The filters in force, in words, for the empty state: the estimator should see why the list is empty. */
+function filterWords(filters: QuoteRequestFilters): string[] {
+  return [filters.status ? `stage ${REQUEST_WORDS[filters.status]}` : '', filters.q ? `search “${filters.q}”` : ''].filter(Boolean);
+}
+
+/** What survives "Clear the filters": how the list is ordered and paged is not a filter. */
+function keepOnClear(search: URLSearchParams): URLSearchParams {
+  const kept = new URLSearchParams();
+  for (const key of ['sort', 'dir', 'page_size']) {
+    const value = search.get(key);
+    if (value) kept.set(key, value);
+  }
+  return kept;
+}
+
+const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
+const inputClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-3';
+
+/** The firm's quote requests and how each merchant has answered: filtered, sorted and paged by the server. */
 export function QuoteRequestsList() {
-  const requests = useQuoteRequests();
-  if (requests.isPending) return <SkeletonBlock label="Loading the quote requests" lines={4} />;
-  if (requests.isError) return <ErrorAlert error={requests.error} title="The quote requests could not be loaded" onRetry={() => void requests.refetch()} />;
+  const [search, setSearch] = useSearchParams();
+  const filters = quoteFiltersFromSearch(search);
+  const requests = useQuoteRequests(filters);
+  const id = useId();
+  /**
+   * The address is the list's only state, and every change is a step of its own in the history, so
+   * Back returns to the previous filter, sort or page. A new filter or sort puts other requests on
+   * page 2, so it starts again at page 1.
+   */
+  const set = (changes: Record<string, string | undefined>, { resetPage = true } = {}) => {
+    const next = new URLSearchParams(search);
+    for (const [k, v] of Object.entries(changes)) if (v === undefined || v === '') next.delete(k);
+    else next.set(k, v);
+    if (resetPage) next.delete('page');
+    setSearch(next);
+  };
+  const sortBy = (sort: RequestSort, dir: SortDir) => set({ sort, dir });
+  const goToPage = (page: number) => set({ page: page > 1 ? String(page) : undefined }, { resetPage: false });
+  const onSearch = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    set({ q: String(new FormData(event.currentTarget).get('q') ?? '').trim() });
+  };
+
+  const words = filterWords(filters);
+  const filtered = words.length > 0;
+  const page = filters.page;
+  const total = requests.data?.total ?? 0;
+  const rows = requests.data?.quote_requests ?? [];
+  const pages = Math.max(1, Math.ceil(total / (requests.data?.page_size ?? filters.page_size)));
+  // A page the list no longer reaches (requests closed since the link was made) is not "no requests".
+  const pastTheEnd = rows.length === 0 && total > 0;
+
   return (
-    <DataTable
-      caption="Quote requests"
-      captionHidden
-      columns={columns}
-      data={requests.data}
-      getRowId={(row) => String(row.id)}
-      initialSorting={[{ id: 'id', desc: true }]}
-      minWidthClass="min-w-[48rem]"
-      empty={<EmptyState title="No quote requests yet">Ask up to three merchants to price an estimate from the estimate&rsquo;s page.</EmptyState>}
-    />
+    <section aria-label="Quote requests" className="space-y-4">
+      <div className="flex flex-wrap items-end gap-3">
+        <div>
+          <label htmlFor={`${id}-stage`} className="mb-1 block text-sm font-medium">Stage</label>
+          <select id={`${id}-stage`} value={filters.status ?? ''} onChange={(e) => set({ status: e.target.value })} className={selectClass}>
+            <option value="">Every stage</option>
+            {QUOTE_REQUEST_STATUSES.map((s) => (
+              <option key={s} value={s}>{REQUEST_WORDS[s]}</option>
+            ))}
+          </select>
+        </div>
+        {/* On a phone the Asked header is off to the side of the scrolling table, so the sort is offered here too. */}
+        <div className="sm:hidden">
+          <label htmlFor={`${id}-sort`} className="mb-1 block text-sm font-medium">Sort</label>
+          <select
+            id={`${id}-sort`}
+            value={`${filters.sort}:${filters.dir}`}
+            onChange={(e) => {
+              const choice = SORT_CHOICES.find((c) => c.value === e.target.value);
+              if (choice) sortBy(choice.sort, choice.dir);
+            }}
+            className={selectClass}
+          >
+            {SORT_CHOICES.map((c) => (
+              <option key={c.value} value={c.value}>{c.label.charAt(0).toUpperCase() + c.label.slice(1)}</option>
+            ))}
+          </select>
+        </div>
+      </div>
+      {/* Keyed on the search so Back and Forward put the words of that step back in the box. */}
+      <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={filters.q ?? ''}>
+        <div className="min-w-56 flex-1">
+          <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">Search quote requests</label>
+          <input id={`${id}-q`} name="q" type="search" maxLength={100} defaultValue={filters.q ?? ''} placeholder="12 or Q-12, site or PO" className={`${inputClass} w-full`} />
+        </div>
+        <Button type="submit" variant="secondary">Search</Button>
+        {filtered ? (
+          <Button variant="ghost" onClick={() => setSearch(keepOnClear(search))}>
+            Clear the filters
+          </Button>
+        ) : null}
+      </form>
+      {requests.isPending ? (
+        <SkeletonBlock label="Loading the quote requests" lines={4} />
+      ) : requests.isError ? (
+        <ErrorAlert error={requests.error} title="The quote requests could not be loaded" onRetry={() => void requests.refetch()} />
+      ) : (
+        <>
+          <p className="text-sm text-ink-700" aria-live="polite">
+            {total.toLocaleString('en-GB')} {total === 1 ? 'request' : 'requests'}
+            {` · ${SORT_WORDS[filters.sort][filters.dir]}`}
+            {requests.isPlaceholderData ? ' · updating…' : ''}
+          </p>
+          <div className={requests.isPlaceholderData ? 'opacity-60' : ''}>
+            <DataTable
+              caption="Quote requests"
+              captionHidden
+              columns={columns}
+              data={rows}
+              getRowId={(row) => String(row.id)}
+              serverSorting={{ sorting: { id: filters.sort, desc: filters.dir === 'desc' }, sortable: QUOTE_REQUEST_SORTS, onSortingChange: (next) => sortBy(next.id, next.desc ? 'desc' : 'asc') }}
+              minWidthClass="min-w-[48rem]"
+              empty={
+                pastTheEnd ? (
+                  <EmptyState title={`Nothing on page ${page}`} action={<Button variant="secondary" onClick={() => goToPage(pages)}>Go to page {pages}</Button>}>
+                    The list has {pages === 1 ? 'one page' : `${pages} pages`} now.
+                  </EmptyState>
+                ) : filtered ? (
+                  <EmptyState title="No quote request matches" action={<Button variant="secondary" onClick={() => setSearch(keepOnClear(search))}>Clear the filters</Button>}>
+                    Showing {words.join(', ')}.
+                  </EmptyState>
+                ) : (
+                  <EmptyState title="No quote requests yet">Ask up to three merchants to price an estimate from the estimate&rsquo;s page.</EmptyState>
+                )
+              }
+            />
+          </div>
+          {pages > 1 || page > 1 ? (
+            <nav aria-label="Pages of the quote requests" className="flex flex-wrap items-center gap-3">
+              <Button variant="secondary" disabled={page <= 1} onClick={() => goToPage(page - 1)}>
+                Previous page
+              </Button>
+              <span className="text-sm">
+                Page {page} of {pages}
+              </span>
+              <Button variant="secondary" disabled={page >= pages} onClick={() => goToPage(page + 1)}>
+                Next page
+              </Button>
+            </nav>
+          ) : null}
+        </>
+      )}
+    </section>
   );
 }
