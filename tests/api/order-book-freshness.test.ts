@@ -52,6 +52,23 @@ describe('the order book never shows a stale answer', () => {
     expect((await book()).orders[0].line_count).toBe(lines - 1);
   });
 
+  it('tags each page so an unchanged book answers 304, and a changed one a new page', async () => {
+    const m = await merchantWithCatalogue(t);
+    const k = await contractorWithEstimate(t, m);
+    const placed = (await k.c.post('/api/orders', orderBody(k, m, { po_reference: 'PO-TAG' }))).body as { id: number };
+    const desk = await signIn(t.app, m.salesEmail);
+    const first = await desk.get('/api/orders?sort=placed_at&dir=desc');
+    const tag = first.headers.etag as string;
+    expect(tag).toMatch(/^W\/"[0-9a-f]+-[A-Za-z0-9+/]{27}"$/);
+    const again = await desk.agent.get('/api/orders?sort=placed_at&dir=desc').set('If-None-Match', tag);
+    expect(again.status).toBe(304);
+    expect((await desk.post(`/api/orders/${placed.id}/confirm`, {})).status).toBe(200);
+    const changed = await desk.agent.get('/api/orders?sort=placed_at&dir=desc').set('If-None-Match', tag);
+    expect(changed.status).toBe(200);
+    expect(changed.headers.etag).not.toBe(tag);
+    expect(changed.body.orders[0].status).toBe('confirmed');
+  });
+
   it("keeps one merchant's reads apart from another's", async () => {
     const a = await merchantWithCatalogue(t);
     const b = await merchantWithCatalogue(t);

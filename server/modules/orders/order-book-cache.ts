@@ -12,7 +12,8 @@ const TTL_MS = 5 * 60_000;
 export interface OrderBookSource<Filter, Page> {
   version(organisationId: number): Promise<number>;
   count(party: OrderParty, filter: Filter): Promise<{ total: number; capped: boolean }>;
-  page(party: OrderParty, filter: Filter): Promise<Page>;
+  /** The page to keep, given the filter's count (so the kept page can carry it). */
+  page(party: OrderParty, filter: Filter, count: { total: number; capped: boolean }): Promise<Page>;
 }
 
 /**
@@ -48,7 +49,7 @@ export function orderBookCache<Filter extends { page: number; page_size: number;
       if (rows) hits++;
       else {
         misses++;
-        rows = await source.page(party, filter);
+        rows = await source.page(party, filter, count);
         pages.set(pageKey, rows);
       }
       return { ...count, page: rows };

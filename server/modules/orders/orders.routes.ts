@@ -26,7 +26,10 @@ export function ordersRoutes(orders: OrdersService) {
   });
 
   r.get('/orders', { access: { action: 'orders:read' }, query: orderBookQuerySchema }, async (req, res, { query }) => {
-    res.type('application/json').send(await orders.listJson(currentUser(req), query));
+    const page = await orders.listPage(currentUser(req), query);
+    // A kept page carries its ETag, so Express does not hash the body again on every read.
+    if (page.etag) res.set('ETag', page.etag);
+    res.type('application/json').send(page.body);
   });
 
   r.get('/orders/:id', { access: { action: 'orders:read' }, params: orderParamsSchema }, async (req, res, { params }) => {

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { z } from 'zod';
 import { can, type Action } from '../../../shared/domain/policy';
 import {
@@ -58,6 +59,9 @@ const ACTION_POLICY: Record<OrderAction, Action> = {
 export const partyOf = (user: AuthUser): OrderParty => ({ kind: user.organisation.kind, organisationId: user.organisation.id });
 const actorOf = (user: AuthUser) => ({ userId: user.id, name: user.name, organisationId: user.organisation.id });
 const todayIso = () => nowIso().slice(0, 10);
+
+/** A weak ETag in the form Express gives a body (length and SHA-1), so conditional reads behave the same. */
+const weakEtag = (body: string) => `W/"${Buffer.byteLength(body).toString(16)}-${createHash('sha1').update(body, 'utf8').digest('base64').slice(0, 27)}"`;
 /** Stages in which back-ordered packs are owed: once the first part is confirmed. */
 const FOLLOW_UP_FROM: readonly OrderStatus[] = ['confirmed', 'on_the_road', 'delivered'];
 
@@ -221,10 +225,15 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     };
   }
 
+  const bookBody = (f: ListQuery, count: { total: number; capped: boolean }, summaries: OrderSummary[]) =>
+    JSON.stringify({ orders: summaries, total: count.total, total_capped: count.capped, page: f.page, page_size: f.page_size });
   const book = orderBookCache({
     version: orders.bookVersion,
     count: orders.count,
-    page: async (party: OrderParty, f: ListQuery) => JSON.stringify((await orders.page(party, f)).map(summary)),
+    page: async (party: OrderParty, f: ListQuery, count: { total: number; capped: boolean }) => {
+      const body = bookBody(f, count, (await orders.page(party, f)).map(summary));
+      return { body, etag: weakEtag(body) };
+    },
   });
 
   /** Loads a contractor's order inside a transaction and checks the step is allowed at this revision. */
@@ -267,13 +276,13 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     newLine,
 
     /**
-     * A page of the order book as JSON text ({orders, total, total_capped, page, page_size}): the
-     * book is read far more than it changes, so each page is read and serialised once per change
-     * (see order-book-cache) rather than once per reader.
+     * A page of the order book as JSON text ({orders, total, total_capped, page, page_size}) with its
+     * ETag: the book is read far more than it changes, so each page is read, serialised and tagged
+     * once per change (see order-book-cache) rather than once per reader.
      */
-    async listJson(user: AuthUser, query: ListQuery): Promise<string> {
+    async listPage(user: AuthUser, query: ListQuery): Promise<{ body: string; etag?: string }> {
       const { page, total, capped } = await book.read(partyOf(user), query);
-      return `{"orders":${page ?? '[]'},"total":${total},"total_capped":${capped},"page":${query.page},"page_size":${query.page_size}}`;
+      return page ?? { body: bookBody(query, { total, capped }, []) };
     },
 
     /**
