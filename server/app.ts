@@ -97,6 +97,7 @@ export function createApp(deps: AppDeps): Express {
     users.findAuthUser(id).then((u) => done(null, u ?? false), done);
   });
 
+  const sessionStore = new SessionStore(db);
   const payments = paymentsService(deps, createStripeClient(config.stripe));
   const api = express.Router();
   // The payment provider's signed events need the raw body and carry no session or CSRF token.
@@ -109,7 +110,7 @@ export function createApp(deps: AppDeps): Express {
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      store: new SessionStore(db),
+      store: sessionStore,
       cookie: {
         httpOnly: true,
         sameSite: 'lax',
@@ -123,7 +124,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(csrfProtection);
 
   api.use(healthRoutes(db));
-  api.use(authRoutes(deps, auth, members));
+  api.use(authRoutes(deps, auth, members, sessionStore));
   api.use(organisationsRoutes(db));
   api.use(membersRoutes(members));
   const projects = projectsService(deps);

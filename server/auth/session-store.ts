@@ -85,6 +85,26 @@ export class SessionStore extends ConnectSessionKnexStore {
     return super.destroy(sid, callback);
   }
 
+  /**
+   * Ends every session of one person (after a password reset: whoever held the old password is
+   * signed out everywhere). Sessions carry the user id inside their JSON, so the ids are found there,
+   * forgotten in memory and removed from the database.
+   */
+  async endAllFor(userId: number, except?: string): Promise<number> {
+    const knex = this.options.knex as Db;
+    const sids = (await knex('sessions').whereRaw("json_extract(sess, '$.passport.user') = ?", [userId]).pluck('sid')) as string[];
+    for (const [sid, copy] of this.remembered.entries()) {
+      if ((JSON.parse(copy.json) as { passport?: { user?: number } }).passport?.user === userId && !sids.includes(sid)) sids.push(sid);
+    }
+    const ending = sids.filter((sid) => sid !== except);
+    for (const sid of ending) {
+      this.remembered.delete(sid);
+      this.bump(sid);
+    }
+    if (ending.length > 0) await knex('sessions').whereIn('sid', ending).delete();
+    return ending.length;
+  }
+
   override async clear(callback?: (err?: unknown) => void): Promise<number> {
     this.remembered.clear();
     return super.clear(callback);

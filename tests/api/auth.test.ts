@@ -137,6 +137,29 @@ describe('password reset', () => {
     expect((await new Client(t.app).login(u.email, TEST_PASSWORD)).status).toBe(401);
   });
 
+  it('signs out every session that held the old password, and no one else', async () => {
+    const u = await makeOrgWithUser(t.db, 'contractor', 'contractor_estimator');
+    const other = await makeOrgWithUser(t.db, 'contractor', 'contractor_estimator');
+    const laptop = new Client(t.app);
+    const phone = new Client(t.app);
+    const colleague = new Client(t.app);
+    expect((await laptop.login(u.email, TEST_PASSWORD)).status).toBe(200);
+    expect((await phone.login(u.email, TEST_PASSWORD)).status).toBe(200);
+    expect((await colleague.login(other.email, TEST_PASSWORD)).status).toBe(200);
+    expect((await phone.get('/api/auth/me')).status).toBe(200);
+
+    const c = new Client(t.app);
+    await c.post('/api/auth/password/forgot', { email: u.email });
+    const token = tokenFrom((await t.mail.waitFor(u.email)).text, 'reset-password\\?token=');
+    expect((await c.post('/api/auth/password/reset', { token, password: 'a-brand-new-password' })).status).toBe(200);
+
+    expect((await laptop.get('/api/auth/me')).status).toBe(401);
+    expect((await phone.get('/api/auth/me')).status).toBe(401);
+    expect((await colleague.get('/api/auth/me')).status).toBe(200);
+    const left = await t.db('sessions').whereRaw("json_extract(sess, '$.passport.user') = ?", [u.userId]).count({ n: '*' }).first();
+    expect(Number(left?.n)).toBe(0);
+  });
+
   it('answers an unknown e-mail exactly as a known one and sends nothing', async () => {
     const before = t.mail.messages.length;
     const res = await new Client(t.app).post('/api/auth/password/forgot', { email: 'ghost@nowhere.test' });

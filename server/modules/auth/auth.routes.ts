@@ -9,6 +9,7 @@ import { tokenParamsSchema } from '../../../shared/schemas/members.schema';
 import type { AppDeps } from '../../app-deps';
 import { issueCsrfToken } from '../../auth/csrf';
 import { loginRateLimit, resetRateLimit } from '../../auth/rate-limits';
+import type { SessionStore } from '../../auth/session-store';
 import { currentUser } from '../../auth/policy';
 import { logIn, logOut, sessionBody } from '../../auth/session';
 import { AppError } from '../../http/app-error';
@@ -16,7 +17,7 @@ import { apiRouter } from '../../http/endpoint';
 import type { MembersService } from '../members/members.service';
 import type { AuthService } from './auth.service';
 
-export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersService) {
+export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersService, sessions: Pick<SessionStore, 'endAllFor'>) {
   const r = apiRouter();
   const resetLimit = resetRateLimit(deps.config.resetRateLimit);
 
@@ -62,8 +63,10 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
   r.post(
     '/auth/password/reset',
     { access: { public: 'using a reset link' }, before: [resetLimit], body: resetPasswordBodySchema },
-    async (_req, res, { body }) => {
-      await auth.resetPassword(body.token, body.password);
+    async (req, res, { body }) => {
+      const userId = await auth.resetPassword(body.token, body.password);
+      // Whoever held the old password is signed out everywhere (this browser is not signed in here).
+      await sessions.endAllFor(userId, req.sessionID);
       res.json({ ok: true });
     },
   );

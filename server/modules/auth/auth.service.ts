@@ -72,13 +72,15 @@ export function authService({ db, mailer, config, logger }: AppDeps) {
       }
     },
 
-    async resetPassword(token: string, password: string): Promise<void> {
+    /** Sets a new password from a usable reset link; returns whose password it was. */
+    async resetPassword(token: string, password: string): Promise<number> {
       const passwordHash = await hashPassword(password);
-      await db.transaction(async (trx) => {
+      return db.transaction(async (trx) => {
         const reset = await resets.findUsable(hashToken(token), trx);
         if (!reset) throw AppError.badRequest('token_invalid', 'This reset link has expired or was already used. Ask for a new one.');
         await users.setPassword(reset.user_id, passwordHash, trx);
         await resets.consumeAllForUser(reset.user_id, trx);
+        return reset.user_id as number;
       });
     },
   };
