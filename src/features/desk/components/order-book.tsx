@@ -1,10 +1,11 @@
 import { useId } from 'react';
 import type { FormEvent } from 'react';
-import { Link, useSearchParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import { ORDER_DATE_FIELDS, ORDER_SORTS, ORDER_STATUSES, ORDER_STATUS_LABELS, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import type { OrderSummary } from '../../../../shared/schemas/order.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { ListPager, PhoneSortSelect, keepListOrder, sortChoices, useListAddress } from '../../../components/ui/server-list';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
@@ -34,7 +35,7 @@ const SORT_WORDS: Record<OrderSort, Record<SortDir, string>> = {
   updated_at: { desc: 'latest change first', asc: 'oldest change first' },
 };
 
-const SORT_CHOICES = ORDER_SORTS.flatMap((sort) => (Object.keys(SORT_WORDS[sort]) as SortDir[]).map((dir) => ({ value: `${sort}:${dir}`, sort, dir, label: SORT_WORDS[sort][dir] })));
+const SORT_CHOICES = sortChoices(ORDER_SORTS, SORT_WORDS);
 
 const PAGE_SIZES = [25, 50, 100];
 
@@ -91,22 +92,12 @@ export function filtersFromSearch(search: URLSearchParams): OrderBookFilters {
   };
 }
 
-/** What survives "Clear the filters": how the desk likes the list ordered and paged is not a filter. */
-function keepOnClear(search: URLSearchParams): URLSearchParams {
-  const kept = new URLSearchParams();
-  for (const key of ['sort', 'dir', 'page_size']) {
-    const value = search.get(key);
-    if (value) kept.set(key, value);
-  }
-  return kept;
-}
-
 const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
 const inputClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-3';
 
 /** The merchant's order book: every order to its branches, filtered, sorted and paged by the server. */
 export function OrderBook() {
-  const [search, setSearch] = useSearchParams();
+  const { search, setSearch, set } = useListAddress();
   const filters = filtersFromSearch(search);
   const orders = useOrderBook(filters);
   const branches = useDeskBranches();
@@ -115,13 +106,6 @@ export function OrderBook() {
    * The address is the order book's only state. A new sort or page is a step of its own in the
    * history (Back returns to it); typing in the filters replaces the current step.
    */
-  const set = (changes: Record<string, string | undefined>, { resetPage = true, step = false } = {}) => {
-    const next = new URLSearchParams(search);
-    for (const [k, v] of Object.entries(changes)) if (v === undefined || v === '') next.delete(k);
-    else next.set(k, v);
-    if (resetPage) next.delete('page');
-    setSearch(next, { replace: !step });
-  };
   // Another order puts a different set of orders on page 2, so a new sort starts again at page 1.
   const sortBy = (sort: OrderSort, dir: SortDir) => set({ sort, dir }, { step: true });
   const onSearch = (event: FormEvent<HTMLFormElement>) => {
@@ -156,22 +140,7 @@ export function OrderBook() {
           </select>
         </div>
         {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
-        <div className="sm:hidden">
-          <label htmlFor={`${id}-sort`} className="mb-1 block text-sm font-medium">Sort</label>
-          <select
-            id={`${id}-sort`}
-            value={`${filters.sort}:${filters.dir}`}
-            onChange={(e) => {
-              const choice = SORT_CHOICES.find((c) => c.value === e.target.value);
-              if (choice) sortBy(choice.sort, choice.dir);
-            }}
-            className={selectClass}
-          >
-            {SORT_CHOICES.map((c) => (
-              <option key={c.value} value={c.value}>{c.label.charAt(0).toUpperCase() + c.label.slice(1)}</option>
-            ))}
-          </select>
-        </div>
+        <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />
         <div>
           <label htmlFor={`${id}-size`} className="mb-1 block text-sm font-medium">Per page</label>
           <select id={`${id}-size`} value={pageSize} onChange={(e) => set({ page_size: e.target.value })} className={selectClass}>
@@ -204,7 +173,7 @@ export function OrderBook() {
         </div>
         <Button type="submit" variant="secondary">Search</Button>
         {filtered ? (
-          <Button variant="ghost" onClick={() => setSearch(keepOnClear(search), { replace: true })}>
+          <Button variant="ghost" onClick={() => setSearch(keepListOrder(search), { replace: true })}>
             Clear the filters
           </Button>
         ) : null}
@@ -232,19 +201,7 @@ export function OrderBook() {
               empty={<EmptyState title={filtered ? 'No order matches' : 'No orders yet'}>{filtered ? 'Try another stage, branch, day or search.' : 'Orders from contractors arrive here.'}</EmptyState>}
             />
           </div>
-          {pages > 1 ? (
-            <nav aria-label="Pages of the order book" className="flex flex-wrap items-center gap-3">
-              <Button variant="secondary" disabled={page <= 1} onClick={() => set({ page: String(page - 1) }, { resetPage: false, step: true })}>
-                Previous page
-              </Button>
-              <span className="text-sm">
-                Page {page} of {orders.data.total_capped ? `${pages}+` : pages}
-              </span>
-              <Button variant="secondary" disabled={page >= pages && !orders.data.total_capped} onClick={() => set({ page: String(page + 1) }, { resetPage: false, step: true })}>
-                Next page
-              </Button>
-            </nav>
-          ) : null}
+          <ListPager label="Pages of the order book" page={page} pages={pages} capped={orders.data.total_capped} onPage={(p) => set({ page: String(p) }, { resetPage: false, step: true })} />
         </>
       )}
     </section>

@@ -1,10 +1,10 @@
 import { useId } from 'react';
 import type { FormEvent } from 'react';
-import { useSearchParams } from 'react-router-dom';
 import type { z } from 'zod';
 import { ORDER_STATUSES, ORDER_STATUS_LABELS, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { ListPager, PhoneSortSelect, sortChoices, useListAddress } from '../../../components/ui/server-list';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useOrders } from '../api/get-orders';
@@ -26,7 +26,7 @@ const SORT_WORDS: Record<ListSort, Record<SortDir, string>> = {
   subtotal: { desc: 'largest subtotal first', asc: 'smallest subtotal first' },
 };
 
-const SORT_CHOICES = ORDERS_TABLE_SORTS.flatMap((sort) => (Object.keys(SORT_WORDS[sort]) as SortDir[]).map((dir) => ({ value: `${sort}:${dir}`, sort, dir, label: SORT_WORDS[sort][dir] })));
+const SORT_CHOICES = sortChoices(ORDERS_TABLE_SORTS, SORT_WORDS);
 
 /** The list's state as the address holds it. */
 export interface OrdersListState {
@@ -66,22 +66,13 @@ const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white p
 /** Every order of the firm, filtered by stage or searched by reference, PO, site or merchant; the server sorts and pages. */
 export function OrdersList() {
   const id = useId();
-  const [search, setSearch] = useSearchParams();
+  const { search, set } = useListAddress();
   const state = listStateFromSearch(search);
   const orders = useOrders({ ...state, page_size: PAGE_SIZE });
   /**
    * The address is the list's only state, so a reload or a shared link shows the same page. A new
    * sort or page is a step of its own in the history (Back returns to it); a filter replaces the step.
    */
-  const set = (changes: Record<string, string | undefined>, { resetPage = true, step = false } = {}) => {
-    const next = new URLSearchParams(search);
-    for (const [k, v] of Object.entries(changes)) {
-      if (v === undefined || v === '') next.delete(k);
-      else next.set(k, v);
-    }
-    if (resetPage) next.delete('page');
-    setSearch(next, { replace: !step });
-  };
   // Another order puts different orders on page 2, so a new sort starts again at page 1.
   const sortBy = (sort: OrderSort, dir: SortDir) => set({ sort, dir }, { step: true });
   const onSearch = (event: FormEvent<HTMLFormElement>) => {
@@ -111,26 +102,7 @@ export function OrdersList() {
           </select>
         </div>
         {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
-        <div className="sm:hidden">
-          <label htmlFor={`${id}-sort`} className="mb-1.5 block font-medium">
-            Sort
-          </label>
-          <select
-            id={`${id}-sort`}
-            value={`${state.sort}:${state.dir}`}
-            onChange={(event) => {
-              const choice = SORT_CHOICES.find((c) => c.value === event.target.value);
-              if (choice) sortBy(choice.sort, choice.dir);
-            }}
-            className={selectClass}
-          >
-            {SORT_CHOICES.map((c) => (
-              <option key={c.value} value={c.value}>
-                {c.label.charAt(0).toUpperCase() + c.label.slice(1)}
-              </option>
-            ))}
-          </select>
-        </div>
+        <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={state.sort} dir={state.dir} onChoose={sortBy} labelClass="mb-1.5 block font-medium" />
         <div className="min-w-56 flex-1">
           <label htmlFor={`${id}-q`} className="mb-1.5 block font-medium">
             Search orders
@@ -166,19 +138,7 @@ export function OrdersList() {
               empty={<EmptyState title={filtered ? 'No order matches' : 'No orders yet'}>{filtered ? 'Try another stage or search.' : 'Orders are placed from a saved estimate.'}</EmptyState>}
             />
           </div>
-          {pages > 1 || page > 1 ? (
-            <nav aria-label="Pages of the orders" className="flex flex-wrap items-center gap-3">
-              <Button variant="secondary" disabled={page <= 1} onClick={() => set({ page: String(page - 1) }, { resetPage: false, step: true })}>
-                Previous page
-              </Button>
-              <span className="text-sm">
-                Page {page} of {capped ? `${pages}+` : pages}
-              </span>
-              <Button variant="secondary" disabled={page >= pages && !capped} onClick={() => set({ page: String(page + 1) }, { resetPage: false, step: true })}>
-                Next page
-              </Button>
-            </nav>
-          ) : null}
+          <ListPager label="Pages of the orders" page={page} pages={pages} capped={capped} onPage={(p) => set({ page: String(p) }, { resetPage: false, step: true })} />
         </>
       )}
     </section>

@@ -1,11 +1,12 @@
 import { useId } from 'react';
 import type { FormEvent } from 'react';
-import { Link, useSearchParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import type { z } from 'zod';
 import { QUOTE_REQUEST_SORTS, QUOTE_REQUEST_STATUSES, QUOTE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
 import type { quoteRequestListSchema } from '../../../../shared/schemas/order.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { ListPager, PhoneSortSelect, keepListOrder, sortChoices, useListAddress } from '../../../components/ui/server-list';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
@@ -27,9 +28,7 @@ const SORT_WORDS: Record<RequestSort, Record<SortDir, string>> = {
   requested_date: { asc: 'soonest wanted first', desc: 'latest wanted first' },
 };
 
-const SORT_CHOICES = QUOTE_REQUEST_SORTS.flatMap((sort) =>
-  (Object.keys(SORT_WORDS[sort]) as SortDir[]).map((dir) => ({ value: `${sort}:${dir}`, sort, dir, label: SORT_WORDS[sort][dir] })),
-);
+const SORT_CHOICES = sortChoices(QUOTE_REQUEST_SORTS, SORT_WORDS);
 
 const helper = dataTableColumns<Row>();
 // Sorting is the server's (over every matching request, not one page): the column ids that match a
@@ -68,22 +67,12 @@ function filterWords(filters: QuoteRequestFilters): string[] {
   return [filters.status ? `stage ${REQUEST_WORDS[filters.status]}` : '', filters.q ? `search “${filters.q}”` : ''].filter(Boolean);
 }
 
-/** What survives "Clear the filters": how the list is ordered and paged is not a filter. */
-function keepOnClear(search: URLSearchParams): URLSearchParams {
-  const kept = new URLSearchParams();
-  for (const key of ['sort', 'dir', 'page_size']) {
-    const value = search.get(key);
-    if (value) kept.set(key, value);
-  }
-  return kept;
-}
-
 const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
 const inputClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-3';
 
 /** The firm's quote requests and how each merchant has answered: filtered, sorted and paged by the server. */
 export function QuoteRequestsList() {
-  const [search, setSearch] = useSearchParams();
+  const { search, setSearch, set: setAddress } = useListAddress();
   const filters = quoteFiltersFromSearch(search);
   const requests = useQuoteRequests(filters);
   const id = useId();
@@ -92,13 +81,7 @@ export function QuoteRequestsList() {
    * Back returns to the previous filter, sort or page. A new filter or sort puts other requests on
    * page 2, so it starts again at page 1.
    */
-  const set = (changes: Record<string, string | undefined>, { resetPage = true } = {}) => {
-    const next = new URLSearchParams(search);
-    for (const [k, v] of Object.entries(changes)) if (v === undefined || v === '') next.delete(k);
-    else next.set(k, v);
-    if (resetPage) next.delete('page');
-    setSearch(next);
-  };
+  const set = (changes: Record<string, string | undefined>, { resetPage = true } = {}) => setAddress(changes, { resetPage, step: true });
   const sortBy = (sort: RequestSort, dir: SortDir) => set({ sort, dir });
   const goToPage = (page: number) => set({ page: page > 1 ? String(page) : undefined }, { resetPage: false });
   const onSearch = (event: FormEvent<HTMLFormElement>) => {
@@ -128,22 +111,7 @@ export function QuoteRequestsList() {
           </select>
         </div>
         {/* On a phone the Asked header is off to the side of the scrolling table, so the sort is offered here too. */}
-        <div className="sm:hidden">
-          <label htmlFor={`${id}-sort`} className="mb-1 block text-sm font-medium">Sort</label>
-          <select
-            id={`${id}-sort`}
-            value={`${filters.sort}:${filters.dir}`}
-            onChange={(e) => {
-              const choice = SORT_CHOICES.find((c) => c.value === e.target.value);
-              if (choice) sortBy(choice.sort, choice.dir);
-            }}
-            className={selectClass}
-          >
-            {SORT_CHOICES.map((c) => (
-              <option key={c.value} value={c.value}>{c.label.charAt(0).toUpperCase() + c.label.slice(1)}</option>
-            ))}
-          </select>
-        </div>
+        <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />
       </div>
       {/* Keyed on the search so Back and Forward put the words of that step back in the box. */}
       <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={filters.q ?? ''}>
@@ -153,7 +121,7 @@ export function QuoteRequestsList() {
         </div>
         <Button type="submit" variant="secondary">Search</Button>
         {filtered ? (
-          <Button variant="ghost" onClick={() => setSearch(keepOnClear(search))}>
+          <Button variant="ghost" onClick={() => setSearch(keepListOrder(search))}>
             Clear the filters
           </Button>
         ) : null}
@@ -184,7 +152,7 @@ export function QuoteRequestsList() {
                     The list has {pages === 1 ? 'one page' : `${pages} pages`} now.
                   </EmptyState>
                 ) : filtered ? (
-                  <EmptyState title="No quote request matches" action={<Button variant="secondary" onClick={() => setSearch(keepOnClear(search))}>Clear the filters</Button>}>
+                  <EmptyState title="No quote request matches" action={<Button variant="secondary" onClick={() => setSearch(keepListOrder(search))}>Clear the filters</Button>}>
                     Showing {words.join(', ')}.
                   </EmptyState>
                 ) : (
@@ -193,19 +161,7 @@ export function QuoteRequestsList() {
               }
             />
           </div>
-          {pages > 1 || page > 1 ? (
-            <nav aria-label="Pages of the quote requests" className="flex flex-wrap items-center gap-3">
-              <Button variant="secondary" disabled={page <= 1} onClick={() => goToPage(page - 1)}>
-                Previous page
-              </Button>
-              <span className="text-sm">
-                Page {page} of {pages}
-              </span>
-              <Button variant="secondary" disabled={page >= pages} onClick={() => goToPage(page + 1)}>
-                Next page
-              </Button>
-            </nav>
-          ) : null}
+          <ListPager label="Pages of the quote requests" page={page} pages={pages} onPage={goToPage} />
         </>
       )}
     </section>
