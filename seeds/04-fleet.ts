@@ -1,3 +1,4 @@
+import { BusinessCalendar, DEFAULT_BUSINESS_TIME_ZONE, addDays, isWorkingDay } from '../shared/domain/business-calendar';
 import type { Knex } from 'knex';
 
 /**
@@ -60,7 +61,7 @@ const idOf = (row: unknown) => (typeof row === 'object' && row !== null ? (row a
 /** Safe to run again: lorries already there are kept, and slots already in the calendar are skipped. */
 export async function seed(knex: Knex): Promise<void> {
   const now = new Date().toISOString();
-  const today = now.slice(0, 10);
+  const today = new BusinessCalendar(process.env.BUSINESS_TIME_ZONE ?? DEFAULT_BUSINESS_TIME_ZONE).today();
   for (const m of DEMO_FLEET) {
     const org = await knex('organisations').where({ name: m.organisation, kind: 'merchant' }).first();
     if (!org) continue;
@@ -76,10 +77,8 @@ export async function seed(knex: Knex): Promise<void> {
             lorry = { id: idOf(row) };
           }
           for (let d = 0; d < DAYS_AHEAD; d++) {
-            const date = new Date(Date.parse(`${today}T00:00:00Z`) + d * 86_400_000);
-            const weekday = date.getUTCDay();
-            if (weekday === 0 || weekday === 6) continue;
-            const iso = date.toISOString().slice(0, 10);
+            const iso = addDays(today, d);
+            if (!isWorkingDay(iso)) continue;
             for (const w of DEMO_WINDOWS) {
               if (await trx('delivery_slots').where({ lorry_id: lorry.id, date: iso, time_window: w }).first()) continue;
               await trx('delivery_slots').insert({

@@ -1,3 +1,4 @@
+import { BusinessCalendar, DEFAULT_BUSINESS_TIME_ZONE, addDays, nextWorkingDay } from '../shared/domain/business-calendar';
 import type { Knex } from 'knex';
 import pino from 'pino';
 import { can, type Action } from '../shared/domain/policy';
@@ -13,7 +14,6 @@ import {
 } from '../shared/schemas/order.schema';
 import type { AuthUser } from '../server/auth/auth-user';
 import type { Config } from '../server/config/env';
-import { nowIso } from '../server/db/time';
 import type { Mailer } from '../server/mail/mailer';
 import { estimatesService } from '../server/modules/estimates/estimates.service';
 import { invoicesRepository } from '../server/modules/invoices/invoices.repository';
@@ -78,6 +78,7 @@ function seedConfig(): Config {
     loginRateLimit: 10,
     resetRateLimit: 5,
     seedDemo: 'auto',
+    calendar: new BusinessCalendar(process.env.BUSINESS_TIME_ZONE ?? DEFAULT_BUSINESS_TIME_ZONE),
     currency: (process.env.CURRENCY ?? 'GBP').toUpperCase(),
     stripe: { devPort: 0 },
   };
@@ -86,17 +87,10 @@ function seedConfig(): Config {
 /** The demo history happened before anyone signed in: nobody is e-mailed about it. */
 const silentMailer: Mailer = { send: async () => {}, close: () => {} };
 
-const DAY = 86_400_000;
-const addDays = (date: string, n: number) => new Date(Date.parse(`${date}T00:00:00Z`) + n * DAY).toISOString().slice(0, 10);
-const isWeekend = (date: string) => [0, 6].includes(new Date(`${date}T00:00:00Z`).getUTCDay());
-
 /** The n-th working day after today (n ≥ 1), as YYYY-MM-DD. */
 function workingDay(today: string, n: number): string {
   let d = today;
-  for (let left = n; left > 0; ) {
-    d = addDays(d, 1);
-    if (!isWeekend(d)) left--;
-  }
+  for (let left = n; left > 0; left--) d = nextWorkingDay(d);
   return d;
 }
 
@@ -183,7 +177,7 @@ async function buildOrderBook(knex: Knex): Promise<void> {
       .filter((l) => l.product_id !== null && (!only || only.includes(l.category)))
       .map((l) => ({ product_id: l.product_id!, quantity: Math.max(1, Math.ceil(l.packs * fraction)) }));
 
-  const today = nowIso().slice(0, 10);
+  const today = deps.config.calendar.today();
   const day = (n: number) => workingDay(today, n);
 
   const place = (email: string, e: Estimate, branchId: number, body: { requested_date: string; po_reference: string; delivery_method?: 'ground' | 'roof'; time_window?: string; notes?: string; lines: { product_id: number; quantity: number }[] }) =>

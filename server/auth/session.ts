@@ -1,11 +1,13 @@
 import type { Request } from 'express';
 import type { SessionBody } from '../../shared/schemas/auth.schema';
+import type { BusinessCalendar } from '../../shared/domain/business-calendar';
 import type { AuthUser } from './auth-user';
 
-export function sessionBody(user: AuthUser): SessionBody {
+export function sessionBody(user: AuthUser, calendar: BusinessCalendar): SessionBody {
   return {
     user: { id: user.id, email: user.email, name: user.name, role: user.role },
     organisation: user.organisation,
+    calendar: { time_zone: calendar.timeZone, today: calendar.today() },
   };
 }
 

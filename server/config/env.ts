@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { z } from 'zod';
+import { BusinessCalendar, DEFAULT_BUSINESS_TIME_ZONE, isValidTimeZone } from '../../shared/domain/business-calendar';
 
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -27,6 +28,10 @@ const envSchema = z.object({
   /** Where the SDK sends its calls when it is not the real service: the local fake in development and tests. */
   STRIPE_API_BASE: z.url().optional(),
   DEV_STRIPE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  BUSINESS_TIME_ZONE: z
+    .string()
+    .refine(isValidTimeZone, 'BUSINESS_TIME_ZONE must be an IANA time-zone name such as Europe/London')
+    .default(DEFAULT_BUSINESS_TIME_ZONE),
 });
 
 export interface Config {
@@ -48,6 +53,8 @@ export interface Config {
   /** ISO 4217 code of the one currency money is kept in (minor units). */
   currency: string;
   stripe: StripeConfig;
+  /** The firm's one calendar: every "today", slot day and due date comes from it. */
+  calendar: BusinessCalendar;
 }
 
 /** The card-payment provider: the real service in production, the local fake (apiBase) elsewhere. */
@@ -88,6 +95,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     seedDemo: e.SEED_DEMO,
     currency: e.CURRENCY,
     stripe: { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET, apiBase: e.STRIPE_API_BASE, devPort: e.DEV_STRIPE_PORT },
+    calendar: new BusinessCalendar(e.BUSINESS_TIME_ZONE),
   };
 }
 

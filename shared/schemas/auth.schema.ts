@@ -54,9 +54,16 @@ export const sessionOrganisationSchema = z.object({
 });
 
 /** Body of POST /api/auth/login, POST /api/auth/signup, GET /api/auth/me and accepting an invitation. */
+/** The firm's calendar as the server sees it: the browser works out "today" in the same time zone. */
+export const sessionCalendarSchema = z.object({
+  time_zone: z.string(),
+  today: z.string(),
+});
+
 export const sessionBodySchema = z.object({
   user: sessionUserSchema,
   organisation: sessionOrganisationSchema,
+  calendar: sessionCalendarSchema,
 });
 
 export const csrfBodySchema = z.object({ token: z.string() });

@@ -1,3 +1,4 @@
+import { isIsoDate } from '../domain/business-calendar';
 import { z } from 'zod';
 import { PRODUCT_CATEGORIES, branchRefSchema } from './catalogue.schema';
 import { CRANE_LIFT, OVERHEAD_LINES, VEHICLE_ACCESS } from './project.schema';
@@ -72,10 +73,7 @@ export const DELIVERY_METHOD_LABELS: Record<(typeof DELIVERY_METHODS)[number], s
 
 export const PROPOSAL_STATUSES = ['open', 'accepted', 'declined', 'superseded'] as const;
 
-const isRealDate = (s: string) => {
-  const d = new Date(`${s}T00:00:00Z`);
-  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === s;
-};
+const isRealDate = isIsoDate;
 
 export const isoDateSchema = z
   .string({ error: 'must be a date YYYY-MM-DD' })

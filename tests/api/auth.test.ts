@@ -75,6 +75,7 @@ describe('sign-in and sign-out', () => {
     expect(res.body).toEqual({
       user: { id: u.userId, email: u.email, name: expect.any(String), role: 'merchant_sales' },
       organisation: { id: u.organisationId, name: expect.any(String), kind: 'merchant' },
+      calendar: { time_zone: 'Europe/London', today: t.config.calendar.today() },
     });
     const cookieAfter = String(res.headers['set-cookie']);
     expect(cookieAfter).toMatch(/ridgeload\.sid=/);

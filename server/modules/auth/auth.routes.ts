@@ -32,12 +32,12 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
       const user = await auth.verifyCredentials(body.email, body.password);
       if (!user) throw new AppError(401, 'invalid_credentials', 'E-mail or password is wrong');
       await logIn(req, user);
-      res.json(sessionBody(user));
+      res.json(sessionBody(user, deps.config.calendar));
     },
   );
 
   r.get('/auth/me', { access: { signedIn: true } }, (req, res) => {
-    res.json(sessionBody(currentUser(req)));
+    res.json(sessionBody(currentUser(req), deps.config.calendar));
   });
 
   r.post('/auth/logout', { access: { public: 'signing out is harmless when signed out' } }, async (req, res) => {
@@ -48,7 +48,7 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
   r.post('/auth/signup', { access: { public: 'creating a firm and its owner' }, body: signupBodySchema }, async (req, res, { body }) => {
     const user = await auth.signup(body);
     await logIn(req, user);
-    res.status(201).json(sessionBody(user));
+    res.status(201).json(sessionBody(user, deps.config.calendar));
   });
 
   r.post(
@@ -81,7 +81,7 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
     async (req, res, { params, body }) => {
       const user = await members.acceptInvitation(params.token, body);
       await logIn(req, user);
-      res.status(201).json(sessionBody(user));
+      res.status(201).json(sessionBody(user, deps.config.calendar));
     },
   );
 

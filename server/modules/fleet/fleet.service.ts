@@ -13,7 +13,7 @@ type UpdateBody = z.output<typeof updateLorryBodySchema>;
 const taken = (registration: string) =>
   AppError.conflict('registration_taken', `A lorry with the registration ${registration} is already in your fleet`, [{ path: 'registration', message: 'is already in your fleet' }]);
 
-export function fleetService({ db }: Pick<AppDeps, 'db'>) {
+export function fleetService({ db, config }: Pick<AppDeps, 'db' | 'config'>) {
   const fleet = fleetRepository(db);
   const branches = priceListRepository(db);
 
@@ -42,7 +42,7 @@ export function fleetService({ db }: Pick<AppDeps, 'db'>) {
       const hasCrane = body.has_crane ?? existing.has_crane;
       const craneMax = body.has_crane === false ? null : (body.crane_max_kg !== undefined ? body.crane_max_kg : existing.crane_max_kg);
       if (hasCrane && !craneMax) throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path: 'crane_max_kg', message: 'give the heaviest load the crane lifts, in kg' }]);
-      const peak = await fleet.bookedPeak(id, nowIso().slice(0, 10));
+      const peak = await fleet.bookedPeak(id, config.calendar.today());
       const problems: { path: string; message: string }[] = [];
       if (body.payload_kg !== undefined && body.payload_kg < peak.kg) problems.push({ path: 'payload_kg', message: `a coming slot already carries ${Math.ceil(peak.kg)} kg` });
       if (body.pallet_slots !== undefined && body.pallet_slots < peak.pallets) problems.push({ path: 'pallet_slots', message: `a coming slot already carries ${peak.pallets} pallets` });
@@ -61,7 +61,7 @@ export function fleetService({ db }: Pick<AppDeps, 'db'>) {
         const l = await fleet.find(user.organisation.id, id, trx);
         if (!l) throw AppError.notFound('Lorry');
         if (l.archived_at) return;
-        const coming = await fleet.comingSlots(id, nowIso().slice(0, 10), trx);
+        const coming = await fleet.comingSlots(id, config.calendar.today(), trx);
         const booked = coming.filter((s) => s.waiting > 0);
         if (booked.length > 0) {
           throw AppError.conflict(

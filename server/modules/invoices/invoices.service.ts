@@ -11,7 +11,7 @@ import {
 import { orderReference } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
-import { nowIso } from '../../db/time';
+import { addDays } from '../../../shared/domain/business-calendar';
 import { AppError } from '../../http/app-error';
 import { renderEmail } from '../../mail/templates';
 import { ordersRepository } from '../orders/orders.repository';
@@ -22,8 +22,6 @@ import { invoicesRepository, type InvoiceParty, type InvoiceRow, type NewInvoice
 type CreditBody = z.output<typeof creditNoteBodySchema>;
 
 const partyOf = (user: AuthUser): InvoiceParty => ({ kind: user.organisation.kind, organisationId: user.organisation.id });
-const todayIso = () => nowIso().slice(0, 10);
-const addDays = (date: string, n: number) => new Date(Date.parse(`${date}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 
 /** Tax of one line, rounded to the minor unit (half up) per line. */
 export const lineTax = (net: number, rateBp: number) => Math.round((net * rateBp) / 10_000);
@@ -35,7 +33,7 @@ function statusOf(r: Pick<InvoiceRow, 'total' | 'credited' | 'paid'>): InvoiceSt
   return r.paid > 0 ? 'part_paid' : 'unpaid';
 }
 
-function summaryOf(r: InvoiceRow): InvoiceSummary {
+function summaryOf(r: InvoiceRow, today: string): InvoiceSummary {
   const status = statusOf(r);
   const balance = Math.max(0, r.total - r.credited - r.paid);
   return {
@@ -56,7 +54,7 @@ function summaryOf(r: InvoiceRow): InvoiceSummary {
     credited: r.credited,
     paid: r.paid,
     balance,
-    overdue: Boolean(r.due_date && r.due_date < todayIso() && balance > 0),
+    overdue: Boolean(r.due_date && r.due_date < today && balance > 0),
   };
 }
 
@@ -75,7 +73,7 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     if (!row) throw AppError.notFound('Invoice');
     const [lines, notes, pays] = await Promise.all([invoices.lines(id), invoices.creditNotes(id), invoices.payments(id)]);
     return {
-      ...summaryOf(row),
+      ...summaryOf(row, config.calendar.today()),
       basis: row.basis,
       site_name: row.site_name,
       po_reference: row.po_reference,
@@ -135,7 +133,7 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
 
     async list(user: AuthUser, f: { status?: InvoiceStatus; contractor_id?: number; page: number; page_size: number }) {
       const { rows, total } = await invoices.list(partyOf(user), f);
-      return { invoices: rows.map(summaryOf), total, page: f.page, page_size: f.page_size };
+      return { invoices: rows.map((r) => summaryOf(r, config.calendar.today())), total, page: f.page, page_size: f.page_size };
     },
 
     /**
@@ -166,7 +164,7 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
           });
         if (invoiceLines.length === 0) throw AppError.conflict('nothing_to_invoice', `Nothing on ${orderReference(orderId)} was ${basis === 'delivered' ? 'delivered' : 'confirmed to send'}`);
         const terms = await invoices.terms(user.organisation.id, order.contractor_organisation_id, trx);
-        const issueDate = todayIso();
+        const issueDate = config.calendar.today();
         const subtotal = invoiceLines.reduce((s, l) => s + l.net, 0);
         const taxTotal = invoiceLines.reduce((s, l) => s + l.tax, 0);
         const number = await invoices.nextNumber(trx, user.organisation.id, 'invoice');

@@ -1,3 +1,4 @@
+import { addDays } from '../../../shared/domain/business-calendar';
 import type {
   OrderComment,
   OrderEvent,
@@ -108,7 +109,6 @@ const ORDER_COLUMNS = [
   'o.updated_at',
 ];
 
-const nextDay = (date: string) => new Date(Date.parse(`${date}T00:00:00Z`) + 86_400_000).toISOString().slice(0, 10);
 
 const likePattern = (q: string) => `%${q.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
@@ -159,7 +159,7 @@ function bookFilter(db: Db, party: OrderParty, f: ListFilter) {
     // placed_at is an ISO timestamp: a day range runs from the day's start to the next day's start.
     if (f.date_from) q.where(`o.${f.date_field}`, '>=', f.date_from);
     if (f.date_to) {
-      if (f.date_field === 'placed_at') q.where('o.placed_at', '<', nextDay(f.date_to));
+      if (f.date_field === 'placed_at') q.where('o.placed_at', '<', addDays(f.date_to, 1));
       else q.where('o.requested_date', '<=', f.date_to);
     }
     if (f.q) {

@@ -21,6 +21,7 @@ import {
   type proposalBodySchema,
   type recordDeliveryBodySchema,
 } from '../../../shared/schemas/order.schema';
+import type { BusinessCalendar } from '../../../shared/domain/business-calendar';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
@@ -58,7 +59,6 @@ const ACTION_POLICY: Record<OrderAction, Action> = {
 
 export const partyOf = (user: AuthUser): OrderParty => ({ kind: user.organisation.kind, organisationId: user.organisation.id });
 const actorOf = (user: AuthUser) => ({ userId: user.id, name: user.name, organisationId: user.organisation.id });
-const todayIso = () => nowIso().slice(0, 10);
 
 /** A weak ETag in the form Express gives a body (length and SHA-1), so conditional reads behave the same. */
 const weakEtag = (body: string) => `W/"${Buffer.byteLength(body).toString(16)}-${createHash('sha1').update(body, 'utf8').digest('base64').slice(0, 27)}"`;
@@ -69,8 +69,8 @@ function invalid(path: string, message: string): AppError {
   return AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path, message }]);
 }
 
-function assertNotPast(date: string, path: string) {
-  if (date < todayIso()) throw invalid(path, 'must be today or later');
+function assertNotPast(calendar: BusinessCalendar, date: string, path: string) {
+  if (calendar.isPast(date)) throw invalid(path, 'must be today or later');
 }
 
 /** Why a step cannot be taken on an order in its stage, in words for the person who tried. */
@@ -299,7 +299,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       await projects.requireOpen(user, estimate.project_id);
       const branch = (await catalogue.branchesByIds([body.branch_id])).get(body.branch_id);
       if (!branch) throw invalid('branch_id', 'is not a merchant branch');
-      assertNotPast(body.requested_date, 'requested_date');
+      assertNotPast(deps.config.calendar, body.requested_date, 'requested_date');
       const site = await siteSnapshot(user, estimate.project_id);
       assertCraneAllowed(body.delivery_method, site, 'delivery_method');
 
@@ -369,7 +369,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       await db.transaction(async (trx) => {
         const order = await forStep(trx, user, id, 'amend', body.revision);
         const method = body.delivery_method ?? order.delivery_method;
-        if (body.requested_date) assertNotPast(body.requested_date, 'requested_date');
+        if (body.requested_date) assertNotPast(deps.config.calendar, body.requested_date, 'requested_date');
         assertCraneAllowed(method, order.site, 'delivery_method');
         const changes: string[] = [];
         const values: Record<string, unknown> = { status: ORDER_TRANSITIONS.amend.to };
@@ -426,7 +426,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         const t = ORDER_TRANSITIONS.offer_changes;
         if (!(t.from as readonly string[]).includes(order.status)) throw locked(order, 'offer_changes');
         if (body.revision !== order.revision) throw AppError.conflict('order_changed', 'The contractor changed the order; reload it before answering');
-        if (body.proposed_date) assertNotPast(body.proposed_date, 'proposed_date');
+        if (body.proposed_date) assertNotPast(deps.config.calendar, body.proposed_date, 'proposed_date');
 
         const lines = await orders.lines(id, trx);
         const subIds = (body.lines ?? []).flatMap((l) => (l.substitute ? [l.substitute.product_id] : []));
@@ -769,7 +769,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
      */
     async startFollowUp(user: AuthUser, id: number, body: FollowUpBody) {
       if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
-      assertNotPast(body.requested_date, 'requested_date');
+      assertNotPast(deps.config.calendar, body.requested_date, 'requested_date');
       const followUpId = await db.transaction(async (trx) => {
         const order = await orders.find(partyOf(user), id, trx);
         if (!order) throw AppError.notFound('Order');

@@ -141,7 +141,7 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       const estimate = await estimates.find(user.organisation.id, body.estimate_id);
       if (!estimate) throw invalid('estimate_id', 'is not an estimate of yours');
       await projects.requireOpen(user, estimate.project_id);
-      if (body.requested_date < nowIso().slice(0, 10)) throw invalid('requested_date', 'must be today or later');
+      if (body.requested_date < config.calendar.today()) throw invalid('requested_date', 'must be today or later');
       const branches = await catalogue.branchesByIds(body.branch_ids);
       const missing = body.branch_ids.map((b, i) => (branches.has(b) ? null : { path: `branch_ids.${i}`, message: 'is not a merchant branch' })).filter((x) => x !== null);
       if (missing.length > 0) throw AppError.unprocessable('validation_failed', 'Some branches are not merchant branches', missing);
@@ -227,7 +227,7 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           note: l.note ?? '',
         };
       });
-      if (body.valid_until && body.valid_until < nowIso().slice(0, 10)) problems.push({ path: 'valid_until', message: 'must be today or later' });
+      if (body.valid_until && body.valid_until < config.calendar.today()) problems.push({ path: 'valid_until', message: 'must be today or later' });
       if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some lines of the quote are not valid', problems);
       const priced = lines.filter((l) => l !== null);
       const total = priced.reduce((s, l) => s + l.total, 0);
@@ -259,7 +259,7 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       const request = (await quotes.findRequest(party, quote.quote_request_id))!;
       if (request.status !== 'open') throw AppError.conflict('quote_closed', 'This quote request is closed');
       if (quote.status !== 'answered') throw AppError.conflict('quote_not_priced', `${quote.branch.name} has not priced this request`);
-      if (quote.valid_until && quote.valid_until < nowIso().slice(0, 10)) throw AppError.conflict('quote_expired', `This price was valid until ${quote.valid_until}`);
+      if (quote.valid_until && quote.valid_until < config.calendar.today()) throw AppError.conflict('quote_expired', `This price was valid until ${quote.valid_until}`);
       const products = await catalogue.branchProducts(
         quote.branch.id,
         quote.lines.map((l) => l.product_id).filter((p): p is number => p !== null),
@@ -274,7 +274,7 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         {
           estimate_id: request.estimate_id,
           branch_id: quote.branch.id,
-          requested_date: request.requested_date < nowIso().slice(0, 10) ? nowIso().slice(0, 10) : request.requested_date,
+          requested_date: request.requested_date < config.calendar.today() ? config.calendar.today() : request.requested_date,
           time_window: request.time_window,
           delivery_method: request.delivery_method,
           notes: request.notes,

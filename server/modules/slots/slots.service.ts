@@ -5,7 +5,7 @@ import type { createSlotBodySchema, generateSlotsBodySchema, LoadingSheet, updat
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
-import { nowIso } from '../../db/time';
+import { addDays } from '../../../shared/domain/business-calendar';
 import { AppError } from '../../http/app-error';
 import { orderCautions } from '../estimates/cautions';
 import { estimatesRepository } from '../estimates/estimates.repository';
@@ -27,14 +27,13 @@ export interface BookableOrder {
   delivery_method: 'ground' | 'roof';
 }
 
-const todayIso = () => nowIso().slice(0, 10);
 const kg = (v: number) => `${Math.round(v).toLocaleString('en-GB')} kg`;
 
 /** ISO weekday of a YYYY-MM-DD date: 1 = Monday … 7 = Sunday. */
 const weekday = (date: string) => ((new Date(`${date}T00:00:00Z`).getUTCDay() + 6) % 7) + 1;
-const addDays = (date: string, n: number) => new Date(Date.parse(`${date}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 
-export function slotsService({ db }: Pick<AppDeps, 'db'>) {
+export function slotsService({ db, config }: Pick<AppDeps, 'db' | 'config'>) {
+  const todayIso = () => config.calendar.today();
   const slots = slotsRepository(db);
   const fleet = fleetRepository(db);
   const branches = priceListRepository(db);

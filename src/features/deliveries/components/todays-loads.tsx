@@ -1,15 +1,15 @@
+import { businessCalendar } from '../../../lib/business-calendar';
 import { useId, useState } from 'react';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useLoadingSheet } from '../api/get-loading-sheet';
 import { LoadingSheet } from './loading-sheet';
 
-const today = () => new Date().toISOString().slice(0, 10);
 
 /** The driver's loads for a day, today first. */
 export function TodaysLoads() {
   const dateId = useId();
-  const [date, setDate] = useState(today);
+  const [date, setDate] = useState(() => businessCalendar().today());
   const sheet = useLoadingSheet(date);
   return (
     <section aria-label="Your loads" className="space-y-4">

@@ -1,3 +1,4 @@
+import { businessCalendar } from '../../../lib/business-calendar';
 import { useMemo, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { z } from 'zod';
@@ -13,11 +14,9 @@ import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/format';
 import { useStartFollowUp } from '../api/start-follow-up';
 
-/** A day as YYYY-MM-DD in the desk's own time zone, `days` after today. */
-export function localIsoDate(days = 0, now = new Date()): string {
-  const day = new Date(now.getFullYear(), now.getMonth(), now.getDate() + days, 12);
-  const local = new Date(day.getTime() - day.getTimezoneOffset() * 60_000);
-  return local.toISOString().slice(0, 10);
+/** A day as YYYY-MM-DD in the firm's calendar, `days` after today. */
+export function localIsoDate(days = 0): string {
+  return businessCalendar().fromToday(days);
 }
 
 /** A week gives the merchant time to get the packs in; the desk changes it when it knows better. */

@@ -1,3 +1,5 @@
+import { addDays } from '../../../../shared/domain/business-calendar';
+import { businessCalendar } from '../../../lib/business-calendar';
 import { useId, useState } from 'react';
 import type { Slot } from '../../../../shared/schemas/slot.schema';
 import { Alert, ErrorAlert, errorMessage } from '../../../components/ui/alert';
@@ -153,7 +155,6 @@ function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: numb
   );
 }
 
-const today = () => new Date().toISOString().slice(0, 10);
 
 /**
  * A branch's slots on a day: what each lorry carries, who drives it, and sending the loads out.
@@ -161,10 +162,10 @@ const today = () => new Date().toISOString().slice(0, 10);
  */
 export function SlotCalendar({ branchId, canManage }: { branchId: number; canManage: boolean }) {
   const dateId = useId();
-  const [date, setDate] = useState(today);
+  const [date, setDate] = useState(() => businessCalendar().today());
   const slots = useSlotDay(branchId, date);
   const drivers = useDrivers();
-  const shift = (days: number) => setDate((d) => new Date(Date.parse(`${d}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10));
+  const shift = (days: number) => setDate((d) => addDays(d, days));
   return (
     <section aria-label="Slot calendar" className="space-y-4">
       <div className="flex flex-wrap items-end gap-2">

@@ -1,3 +1,4 @@
+import { businessCalendar } from '../../../lib/business-calendar';
 import { z } from 'zod';
 import { amendOrderBodySchema, placeOrderBodySchema } from '../../../../shared/schemas/order.schema';
 import type { AmendOrderBody, PlaceOrderBody } from '../../../../shared/schemas/order.schema';
@@ -81,8 +82,7 @@ export function orderFormSchema(target: OrderFormTarget, options: readonly Order
   });
 }
 
-/** Today as YYYY-MM-DD in the person's own time zone: the earliest day a delivery can be asked for. */
-export function todayIso(now = new Date()): string {
-  const local = new Date(now.getTime() - now.getTimezoneOffset() * 60_000);
-  return local.toISOString().slice(0, 10);
+/** Today as YYYY-MM-DD in the firm's calendar: the earliest day a delivery can be asked for. */
+export function todayIso(): string {
+  return businessCalendar().today();
 }

@@ -1,3 +1,4 @@
+import { businessCalendar } from '../../../lib/business-calendar';
 import { useMemo, useState } from 'react';
 import { CATEGORY_LABELS } from '../../../../shared/schemas/catalogue.schema';
 import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
@@ -20,7 +21,7 @@ function QuoteHead({ quote, request, onAccepted }: { quote: Quote; request: Quot
   const toast = useToast();
   const [confirming, setConfirming] = useState(false);
   const totals = request.comparison?.totals.find((t) => t.quote_id === quote.id);
-  const expired = quote.valid_until !== null && quote.valid_until < new Date().toISOString().slice(0, 10);
+  const expired = quote.valid_until !== null && businessCalendar().isPast(quote.valid_until);
   const canAccept = request.status === 'open' && quote.status === 'answered' && !expired;
   return (
     <div className="space-y-2 rounded-md border border-mortar-300 bg-white p-4">

@@ -1,3 +1,4 @@
+import { businessCalendar } from '../../../lib/business-calendar';
 import { useMemo, useState } from 'react';
 import { DELIVERY_METHODS, DELIVERY_METHOD_LABELS, MAX_QUOTE_BRANCHES } from '../../../../shared/schemas/order.schema';
 import type { QuoteRequest } from '../../../../shared/schemas/order.schema';
@@ -18,10 +19,6 @@ interface QuoteRequestFormProps {
   onCreated: (request: QuoteRequest) => void;
 }
 
-function today(): string {
-  const now = new Date();
-  return new Date(now.getTime() - now.getTimezoneOffset() * 60_000).toISOString().slice(0, 10);
-}
 
 /** Asks up to three merchant branches to price an estimate's materials for one delivery. */
 export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, onCreated }: QuoteRequestFormProps) {
@@ -84,7 +81,7 @@ export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, 
       <Card title="Delivery wanted">
         <div className="space-y-4">
           <div className="grid gap-4 sm:grid-cols-3">
-            <TextField name="requested_date" label="Day wanted" type="date" min={today()} />
+            <TextField name="requested_date" label="Day wanted" type="date" min={businessCalendar().today()} />
             <TextField name="time_window" label="Window from" type="time" defaultValue="07:30" />
             <TextField name="time_window_to" label="Window to" type="time" defaultValue="12:00" />
           </div>
