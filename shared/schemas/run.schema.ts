@@ -1,0 +1,262 @@
+import { z } from 'zod';
+import { DELIVERY_METHODS, isoDateSchema, orderSiteSchema, orgRefSchema } from './order.schema';
+
+/**
+ * Runs and drops. A delivery slot (lorry × day × time window) is a run; the orders booked into it are
+ * its drops, in the order the yard sets (1 = the first drop off). The deck plan places every pallet of
+ * every drop on the lorry's deck; the yard ticks each position as loaded, and the run is sent out when
+ * all are loaded on its day. A run's id is its slot's id.
+ */
+
+export const RUN_STATUSES = ['planned', 'loading', 'loaded', 'on_the_road', 'done'] as const;
+export type RunStatus = (typeof RUN_STATUSES)[number];
+
+export const RUN_STATUS_LABELS: Record<RunStatus, string> = {
+  planned: 'To load',
+  loading: 'Loading',
+  loaded: 'Loaded, ready to go',
+  on_the_road: 'On the road',
+  done: 'All dropped',
+};
+
+export const runParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+export const runPositionParamsSchema = z.object({ id: z.coerce.number().int().positive(), index: z.coerce.number().int().min(0) });
+export const runDayQuerySchema = z.object({ date: isoDateSchema });
+export const runWeekQuerySchema = z.object({ from: isoDateSchema });
+
+export const runLorrySchema = z.object({
+  id: z.number().int(),
+  registration: z.string(),
+  name: z.string(),
+  has_crane: z.boolean(),
+  crane_max_kg: z.number().int().nullable(),
+  payload_kg: z.number().int(),
+  pallet_slots: z.number().int(),
+  deck_length_mm: z.number().int(),
+  deck_width_mm: z.number().int(),
+});
+
+/** A roof face a pallet's tiles serve. */
+export const palletFaceSchema = z.object({ building: z.string(), face: z.string(), tiles: z.number().int() });
+
+export const runDropSchema = z.object({
+  order_id: z.number().int(),
+  reference: z.string(),
+  /** 1 = the first drop off the lorry. */
+  position: z.number().int(),
+  /** Pallets of this drop (a count). */
+  pallets: z.number().int(),
+  weight_kg: z.number(),
+  status: z.string(),
+  contractor: orgRefSchema,
+  site_name: z.string(),
+  site_address: z.string(),
+  site_postcode: z.string(),
+  delivery_method: z.enum(DELIVERY_METHODS),
+  /** True when a line of the order is back-ordered or part-confirmed: a face will be short. */
+  short: z.boolean(),
+});
+
+export const deckPositionSchema = z.object({
+  /** 1 = the front of the deck (behind the cab). */
+  row: z.number().int(),
+  side: z.enum(['left', 'right']),
+  /** 1 = the first drop off. */
+  drop: z.number().int(),
+  order_id: z.number().int(),
+  /** The pallet's number within its order, as on its label. */
+  pallet: z.number().int(),
+  weight_kg: z.number(),
+  faces: z.array(palletFaceSchema),
+  loaded: z.boolean(),
+});
+export type DeckPosition = z.infer<typeof deckPositionSchema>;
+
+export const deckWarningSchema = z.object({ code: z.string(), message: z.string() });
+
+export const deckSchema = z.object({
+  positions: z.array(deckPositionSchema),
+  /** Indices into positions, the first loaded first. */
+  loading_sequence: z.array(z.number().int()),
+  left_kg: z.number(),
+  right_kg: z.number(),
+  /** Centre of gravity of the load along the deck, millimetres from the front. */
+  cog_from_front_mm: z.number(),
+  warnings: z.array(deckWarningSchema),
+});
+export type Deck = z.infer<typeof deckSchema>;
+
+/** What the yard picks for one drop: each product and how many packs/units. */
+export const pickLineSchema = z.object({
+  sku: z.string(),
+  description: z.string(),
+  unit: z.string(),
+  quantity: z.number(),
+  packs: z.number().int().nullable(),
+});
+
+export const runSchema = z.object({
+  id: z.number().int(),
+  branch_id: z.number().int(),
+  date: z.string(),
+  time_window: z.string(),
+  lorry: runLorrySchema,
+  driver: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+  status: z.enum(RUN_STATUSES),
+  dispatched_at: z.string().nullable(),
+  weight_kg: z.number(),
+  pallets: z.number().int(),
+  loaded_count: z.number().int(),
+  drops: z.array(runDropSchema),
+  deck: deckSchema,
+  pick_list: z.array(z.object({ order_id: z.number().int(), reference: z.string(), lines: z.array(pickLineSchema) })),
+});
+export type Run = z.infer<typeof runSchema>;
+export const runDaySchema = z.array(runSchema);
+
+/** A week of runs for the week view: a summary per run, no deck. */
+export const runWeekSchema = z.object({
+  from: z.string(),
+  days: z.array(
+    z.object({
+      date: z.string(),
+      runs: z.array(
+        z.object({
+          id: z.number().int(),
+          time_window: z.string(),
+          lorry: z.object({ id: z.number().int(), registration: z.string(), has_crane: z.boolean() }),
+          driver: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+          drops: z.number().int(),
+          weight_kg: z.number(),
+          pallets: z.number().int(),
+          loaded_count: z.number().int(),
+          status: z.enum(RUN_STATUSES),
+        }),
+      ),
+    }),
+  ),
+});
+export type RunWeek = z.infer<typeof runWeekSchema>;
+
+export const setDropOrderBodySchema = z.object({ order_ids: z.array(z.number().int().positive()).min(1).max(100) }).strict();
+
+export const sendOutBodySchema = z.object({ override_reason: z.string().trim().min(3).max(500).optional() }).strict();
+
+/** One pallet, as its label's QR code opens it. */
+export const palletParamsSchema = z.object({ id: z.coerce.number().int().positive(), pallet: z.coerce.number().int().positive() });
+export const palletViewSchema = z.object({
+  order_id: z.number().int(),
+  reference: z.string(),
+  site_name: z.string(),
+  pallet: z.number().int(),
+  pallets: z.number().int(),
+  drop: z.number().int().nullable(),
+  drops: z.number().int().nullable(),
+  run_id: z.number().int().nullable(),
+  /** Index into the run's deck.positions, to tick it loaded. */
+  position_index: z.number().int().nullable(),
+  weight_kg: z.number(),
+  faces: z.array(palletFaceSchema),
+  items: z.array(z.object({ description: z.string(), quantity: z.number(), unit: z.string() })),
+  loaded: z.boolean(),
+});
+export type PalletView = z.infer<typeof palletViewSchema>;
+
+// ---------------------------------------------------------------------------------------------
+// The driver's day and proof of delivery
+
+/** A roof face short of tiles on this drop, and when the rest is due. */
+export const shortFaceSchema = z.object({
+  building: z.string(),
+  face: z.string(),
+  tiles_short: z.number().int(),
+  /** The follow-up order bringing the rest, when there is one. */
+  follow_up_reference: z.string().nullable(),
+  due_date: z.string().nullable(),
+});
+
+/** For a crane drop: which pallets land on which roof face. */
+export const landingFaceSchema = z.object({
+  building: z.string(),
+  face: z.string(),
+  /** Pallet numbers (as on their labels) whose tiles go onto this face. */
+  pallets: z.array(z.number().int()),
+  tiles: z.number().int(),
+  /** The estimate's face id, so the phone can draw its stacks (null when the order has no estimate). */
+  estimate_face_index: z.number().int().nullable(),
+});
+
+export const driverDropSchema = z.object({
+  order_id: z.number().int(),
+  reference: z.string(),
+  position: z.number().int(),
+  status: z.string(),
+  contractor: orgRefSchema,
+  site: orderSiteSchema,
+  /** Opens the phone's own maps app at the site. */
+  maps_url: z.string(),
+  delivery_method: z.enum(DELIVERY_METHODS),
+  weight_kg: z.number(),
+  pallets: z.array(
+    z.object({
+      n: z.number().int(),
+      weight_kg: z.number(),
+      faces: z.array(palletFaceSchema),
+      items: z.array(z.object({ description: z.string(), quantity: z.number(), unit: z.string() })),
+    }),
+  ),
+  lines: z.array(z.object({ line_id: z.number().int(), sku: z.string(), description: z.string(), unit: z.string(), quantity: z.number().int() })),
+  notes: z.array(z.string()),
+  short_faces: z.array(shortFaceSchema),
+  landing_plan: z.array(landingFaceSchema),
+  estimate_id: z.number().int().nullable(),
+  delivered: z.boolean(),
+});
+export type DriverDrop = z.infer<typeof driverDropSchema>;
+
+export const driverRunSchema = z.object({
+  id: z.number().int(),
+  date: z.string(),
+  time_window: z.string(),
+  lorry: runLorrySchema,
+  status: z.enum(RUN_STATUSES),
+  /** The cautions once per run; the driver records having read them. */
+  cautions: z.array(z.string()),
+  cautions_read_at: z.string().nullable(),
+  drops: z.array(driverDropSchema),
+});
+export const driverDaySchema = z.object({ date: z.string(), driver: z.object({ id: z.number().int(), name: z.string() }), runs: z.array(driverRunSchema) });
+export type DriverDay = z.infer<typeof driverDaySchema>;
+export const driverDayQuerySchema = z.object({ date: isoDateSchema.optional() });
+
+export const DELIVERY_LINE_OUTCOMES = ['handed_over', 'short', 'damaged'] as const;
+
+/** The fields of a delivery record (JSON, or the text fields of the multipart form beside `signature` and `photos`). */
+export const proofLineSchema = z.object({
+  line_id: z.number().int().positive(),
+  handed_over: z.number().int().min(0),
+  short: z.number().int().min(0).default(0),
+  damaged: z.number().int().min(0).default(0),
+});
+export const proofPositionSchema = z.object({
+  lat: z.number().min(-90).max(90),
+  lng: z.number().min(-180).max(180),
+  accuracy_m: z.number().min(0).max(100_000).optional(),
+});
+
+export const deliveryProofSchema = z.object({
+  order_id: z.number().int(),
+  receiver_name: z.string(),
+  delivered_at: z.string(),
+  recorded_by: z.object({ id: z.number().int(), name: z.string() }),
+  position: proofPositionSchema.nullable(),
+  note: z.string(),
+  signature_url: z.string().nullable(),
+  photos: z.array(z.object({ id: z.number().int(), url: z.string(), thumbnail_url: z.string(), content_type: z.string() })),
+  lines: z.array(
+    z.object({ line_id: z.number().int(), sku: z.string(), description: z.string(), unit: z.string(), sent: z.number().int(), handed_over: z.number().int(), short: z.number().int(), damaged: z.number().int() }),
+  ),
+  /** The draft credit note raised for shortages and damages, for the desk to issue. */
+  credit_note_id: z.number().int().nullable(),
+});
+export type DeliveryProof = z.infer<typeof deliveryProofSchema>;
