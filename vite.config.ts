@@ -1,11 +1,17 @@
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { compression } from 'vite-plugin-compression2';
 
 const apiPort = process.env.PORT ?? '3000';
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  plugins: [
+    react(),
+    tailwindcss(),
+    // Brotli and gzip copies made once at build time; the server picks one by the browser's Accept-Encoding.
+    compression({ algorithms: ['brotliCompress', 'gzip'], threshold: 1024, deleteOriginalAssets: false }),
+  ],
   publicDir: 'src/public',
   // One bundle for now: the app is small enough that a split would cost more round trips than it saves.
   build: { outDir: 'dist/client', emptyOutDir: true, sourcemap: true, chunkSizeWarningLimit: 900 },

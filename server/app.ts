@@ -1,12 +1,13 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { pinoHttp } from 'pino-http';
+import { clientAssets } from './http/client-assets';
+import { CLIENT_DIR } from './paths';
 import type { AppDeps } from './app-deps';
 import { csrfProtection } from './auth/csrf';
 import { SessionStore } from './auth/session-store';
@@ -46,7 +47,6 @@ import { quotesService } from './modules/quotes/quotes.service';
 import { schedulesRoutes } from './modules/schedules/schedules.routes';
 import { schedulesService } from './modules/schedules/schedules.service';
 
-const CLIENT_DIR = fileURLToPath(new URL('../dist/client', import.meta.url));
 const SESSION_DAYS = 7;
 
 /** The whole HTTP application, without listening, so tests run it in-process. */
@@ -149,8 +149,9 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', api);
 
   if (existsSync(join(CLIENT_DIR, 'index.html'))) {
-    app.use(express.static(CLIENT_DIR, { index: false, maxAge: '1h' }));
-    app.get('/{*splat}', (_req, res) => res.sendFile(join(CLIENT_DIR, 'index.html')));
+    app.use(clientAssets(CLIENT_DIR));
+    // The page itself is checked again on every visit, so a new build reaches people at once.
+    app.get('/{*splat}', (_req, res) => res.sendFile(join(CLIENT_DIR, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }));
   }
 
   app.use(errorHandler);

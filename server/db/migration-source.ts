@@ -1,9 +1,11 @@
 import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { pathToFileURL } from 'node:url';
 import type { Knex } from 'knex';
+import { CODE_EXTENSION, MIGRATIONS_DIR } from '../paths';
 
-const MIGRATIONS_DIR = fileURLToPath(new URL('../../migrations', import.meta.url));
+/** Migrations are recorded under their source name (.ts) whether they run from source or compiled. */
+const sourceName = (file: string) => file.replace(/\.mjs$/, '.ts');
 
 /**
  * Loads the TypeScript migrations through our own import(), so the same files run under tsx
@@ -12,12 +14,12 @@ const MIGRATIONS_DIR = fileURLToPath(new URL('../../migrations', import.meta.url
 export class MigrationSource implements Knex.MigrationSource<string> {
   async getMigrations(): Promise<string[]> {
     return readdirSync(MIGRATIONS_DIR)
-      .filter((f) => /^\d{14}_[a-z0-9-]+\.ts$/.test(f))
+      .filter((f) => /^\d{14}_[a-z0-9-]+\.(ts|mjs)$/.test(f) && f.endsWith(CODE_EXTENSION))
       .sort();
   }
 
   getMigrationName(migration: string): string {
-    return migration;
+    return sourceName(migration);
   }
 
   async getMigration(migration: string): Promise<Knex.Migration> {
