@@ -41,6 +41,19 @@ export default defineConfig({
         },
       },
       {
+        // The same API suite again on PostgreSQL, each test file on a database of its own in one
+        // throw-away cluster.
+        test: {
+          name: 'api-pg',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          env: { TEST_DB: 'postgres' },
+          globalSetup: ['tests/setup/pg-global.ts'],
+          testTimeout: 20_000,
+          hookTimeout: 30_000,
+        },
+      },
+      {
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],

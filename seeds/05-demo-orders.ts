@@ -70,6 +70,7 @@ function seedConfig(): Config {
     host: '127.0.0.1',
     dataDir: '.',
     databaseFile: '',
+    database: '',
     sessionSecret: '',
     appUrl: process.env.APP_URL ?? 'http://localhost:3000',
     devSmtpPort: 0,

@@ -11,7 +11,7 @@ import type { StripeFake } from './payments/stripe-fake';
 async function main() {
   let config = loadConfig();
   const logger = pino({ level: config.logLevel });
-  const db = createDb(config.databaseFile);
+  const db = createDb(config.database);
   await migrateLatest(db);
   if (config.seedDemo === 'auto' && (await seedDemoIfEmpty(db))) logger.info('seeded the demo data');
 

@@ -1,6 +1,7 @@
 import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { SessionData } from 'express-session';
 import { LRUCache } from 'lru-cache';
+import { dialectOf, jsonTextSql } from '../db/dialect';
 import type { Db } from '../db/knex';
 
 const TOUCH_EVERY_MS = 5 * 60_000;
@@ -92,7 +93,9 @@ export class SessionStore extends ConnectSessionKnexStore {
    */
   async endAllFor(userId: number, except?: string): Promise<number> {
     const knex = this.options.knex as Db;
-    const sids = (await knex('sessions').whereRaw("json_extract(sess, '$.passport.user') = ?", [userId]).pluck('sid')) as string[];
+    const sids = (await knex('sessions')
+      .whereRaw(`${jsonTextSql(knex, ['passport', 'user'])} = ?`, ['sess', dialectOf(knex) === 'postgres' ? String(userId) : userId])
+      .pluck('sid')) as string[];
     for (const [sid, copy] of this.remembered.entries()) {
       if ((JSON.parse(copy.json) as { passport?: { user?: number } }).passport?.user === userId && !sids.includes(sid)) sids.push(sid);
     }

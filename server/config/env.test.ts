@@ -16,4 +16,12 @@ describe('configuration', () => {
     expect(() => loadConfig({ DATA_DIR: dir(), BUSINESS_TIME_ZONE: 'Europe/Atlantis' })).toThrow(ConfigError);
     expect(() => loadConfig({ DATA_DIR: dir(), BUSINESS_TIME_ZONE: 'Europe/Atlantis' })).toThrow(/BUSINESS_TIME_ZONE/);
   });
+
+  it('selects PostgreSQL with DATABASE_URL, and then requires SESSION_SECRET', () => {
+    expect(() => loadConfig({ DATA_DIR: dir(), DATABASE_URL: 'postgres://app@127.0.0.1:5432/ridgeload' })).toThrow(/SESSION_SECRET: required with DATABASE_URL/);
+    const config = loadConfig({ DATA_DIR: dir(), DATABASE_URL: 'postgres://app@127.0.0.1:5432/ridgeload', SESSION_SECRET: 'x'.repeat(40) });
+    expect(config.database).toBe('postgres://app@127.0.0.1:5432/ridgeload');
+    expect(loadConfig({ DATA_DIR: dir() }).database).toMatch(/ridgeload\.sqlite$/);
+    expect(() => loadConfig({ DATA_DIR: dir(), DATABASE_URL: 'mysql://x@y/z' })).toThrow(/DATABASE_URL/);
+  });
 });

@@ -4,7 +4,7 @@ import { runSeeds } from './seed-runner';
 
 const command = process.argv[2];
 const config = loadConfig();
-const db = createDb(config.databaseFile);
+const db = createDb(config.database);
 try {
   if (command === 'migrate') {
     const [batch, names] = await db.migrate.latest();

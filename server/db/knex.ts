@@ -1,13 +1,40 @@
 import knexFactory, { type Knex } from 'knex';
+import pg from 'pg';
 import { MigrationSource } from './migration-source';
 
 export type Db = Knex;
+
+/** True for a PostgreSQL connection string (postgres:// or postgresql://). */
+export const isPostgresUrl = (target: string) => /^postgres(ql)?:\/\//i.test(target);
+
+/**
+ * The database: a PostgreSQL connection string selects PostgreSQL (for more than one server);
+ * anything else is the path of a SQLite file (the zero-setup default).
+ */
+export function createDb(target: string): Db {
+  return isPostgresUrl(target) ? createPostgresDb(target) : createSqliteDb(target);
+}
+
+// Counts and sums come back from PostgreSQL as 64-bit integers or numerics, which pg hands out as
+// strings; every number the app keeps (minor units, kg, packs) fits a double exactly.
+pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
+pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
+
+function createPostgresDb(url: string): Db {
+  return knexFactory({
+    client: 'pg',
+    connection: url,
+    pool: { min: 0, max: Number(process.env.DATABASE_POOL_MAX ?? 10) },
+    acquireConnectionTimeout: 10_000,
+    migrations: { migrationSource: new MigrationSource() },
+  });
+}
 
 /**
  * SQLite through better-sqlite3: WAL so readers never wait on the writer, foreign keys enforced,
  * and a busy timeout so concurrent writers queue instead of failing.
  */
-export function createDb(filename: string): Db {
+function createSqliteDb(filename: string): Db {
   const open: { connection?: Connection } = {};
   const db = knexFactory({
     client: 'better-sqlite3',

@@ -1,3 +1,4 @@
+import { isUniqueViolation } from '../db/dialect';
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { ErrorBody } from '../../shared/schemas/error.schema';
@@ -48,5 +49,7 @@ function toErrorResponse(err: unknown): { status: number; body: ErrorBody; log: 
   if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) {
     return { status: e.status, body: { error: { code: 'bad_request', message: 'The request could not be read' } }, log: false };
   }
+  // A race the use case's own check did not catch: the database's unique rule kept it out.
+  if (isUniqueViolation(err)) return { status: 409, body: { error: { code: 'conflict', message: 'Someone else has just made the same change; reload to see it' } }, log: true };
   return { status: 500, body: { error: { code: 'internal', message: 'Something went wrong on our side' } }, log: true };
 }

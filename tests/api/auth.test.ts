@@ -1,3 +1,4 @@
+import { dialectOf, jsonTextSql } from '../../server/db/dialect';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { errorBodySchema } from '../../shared/schemas/error.schema';
 import { sessionBodySchema } from '../../shared/schemas/auth.schema';
@@ -157,7 +158,10 @@ describe('password reset', () => {
     expect((await laptop.get('/api/auth/me')).status).toBe(401);
     expect((await phone.get('/api/auth/me')).status).toBe(401);
     expect((await colleague.get('/api/auth/me')).status).toBe(200);
-    const left = await t.db('sessions').whereRaw("json_extract(sess, '$.passport.user') = ?", [u.userId]).count({ n: '*' }).first();
+    const left = await t.db('sessions')
+      .whereRaw(`${jsonTextSql(t.db, ['passport', 'user'])} = ?`, ['sess', dialectOf(t.db) === 'postgres' ? String(u.userId) : u.userId])
+      .count({ n: '*' })
+      .first();
     expect(Number(left?.n)).toBe(0);
   });
 

@@ -165,7 +165,7 @@ function run(url: string, paths: string[], headers: Record<string, string>): Pro
 async function main() {
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-bench-'));
   const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '1000' });
-  const db = createDb(config.databaseFile);
+  const db = createDb(config.database);
   try {
     await migrateLatest(db);
     const t0 = performance.now();

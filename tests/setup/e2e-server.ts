@@ -31,7 +31,7 @@ export async function startE2eServer(): Promise<E2eServer> {
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-e2e-'));
   const payments = await startDevPayments(loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '100', RESET_RATE_LIMIT: '100' }), 0);
   const config = payments.config;
-  const db = createDb(config.databaseFile);
+  const db = createDb(config.database);
   await migrateLatest(db);
   await runSeeds(db);
   const smtp = await startDevSmtp(db, 0);

@@ -12,6 +12,7 @@ import { createDb, migrateLatest, type Db } from '../../server/db/knex';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
 import type { StripeFake } from '../../server/payments/stripe-fake';
 import { startMailCapture } from './mail-capture';
+import { createTestPgDatabase } from './pg-database';
 
 export interface TestApp {
   app: Express;
@@ -25,12 +26,18 @@ export interface TestApp {
   close: () => Promise<void>;
 }
 
-/** A fresh app on its own migrated SQLite file in a temp folder, with mail captured in-process. */
+/**
+ * A fresh app on its own migrated database with mail captured in-process: a SQLite file in a temp
+ * folder, or (in the PostgreSQL pass of the suite, TEST_DB=postgres) a new database in the
+ * throw-away cluster.
+ */
 export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-test-'));
-  const dev = await startDevPayments(loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, ...env }), 0);
+  const pgDb = process.env.TEST_DB === 'postgres' ? await createTestPgDatabase() : undefined;
+  const pgEnv: Record<string, string> = pgDb ? { DATABASE_URL: pgDb.url, SESSION_SECRET: 'a-test-session-secret-of-forty-characters!' } : {};
+  const dev = await startDevPayments(loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, ...pgEnv, ...env }), 0);
   const config = dev.config;
-  const db = createDb(config.databaseFile);
+  const db = createDb(config.database);
   await migrateLatest(db);
   const mail = await startMailCapture();
   const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: 'silent' }) });
@@ -53,6 +60,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
       await dev.fake.close();
       await mail.close();
       await db.destroy();
+      await pgDb?.drop();
       rmSync(dir, { recursive: true, force: true });
     },
   };

@@ -1,3 +1,4 @@
+import { lockRow } from '../../db/dialect';
 import { createHash } from 'node:crypto';
 import type { z } from 'zod';
 import { can, type Action } from '../../../shared/domain/policy';
@@ -771,6 +772,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
       assertNotPast(deps.config.calendar, body.requested_date, 'requested_date');
       const followUpId = await db.transaction(async (trx) => {
+        await lockRow(trx, 'orders', id);
         const order = await orders.find(partyOf(user), id, trx);
         if (!order) throw AppError.notFound('Order');
         if (!FOLLOW_UP_FROM.includes(order.status)) {

@@ -1,3 +1,4 @@
+import { lockRow } from '../../db/dialect';
 import type Stripe from 'stripe';
 import { invoiceNumber, type Payment } from '../../../shared/schemas/invoice.schema';
 import { orderReference } from '../../../shared/schemas/order.schema';
@@ -104,6 +105,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
       if (balance <= 0) throw AppError.conflict('nothing_to_pay', `Invoice ${invoiceNumber(inv.number)} has nothing left to pay`);
       let superseded: PaymentRow | undefined;
       const { payment, created } = await db.transaction(async (trx) => {
+        await lockRow(trx, 'invoices', invoiceId);
         const open = await invoices.openPayment(invoiceId, trx);
         if (open && open.amount === balance) return { payment: open, created: false };
         if (open) {

@@ -1,3 +1,4 @@
+import { jsonTextSql } from '../../db/dialect';
 import type { Knex } from 'knex';
 import type { z } from 'zod';
 import type { OrderSite, Quote, QUOTE_REQUEST_STATUSES, QUOTE_STATUSES, quoteRequestListQuerySchema } from '../../../shared/schemas/order.schema';
@@ -158,7 +159,7 @@ export function quotesRepository(db: Db) {
           q.where((w) => {
             if (ref) w.orWhere('r.id', Number(ref[1]));
             w.orWhereRaw(`lower(??) like ? escape '\\'`, ['co.name', pattern])
-              .orWhereRaw(`lower(json_extract(??, '$.name')) like ? escape '\\'`, ['r.site', pattern])
+              .orWhereRaw(`lower(${jsonTextSql(db, ['name'])}) like ? escape '\\'`, ['r.site', pattern])
               .orWhereRaw(`lower(??) like ? escape '\\'`, ['r.po_reference', pattern]);
           });
         }

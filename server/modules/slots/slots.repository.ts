@@ -135,9 +135,18 @@ export function slotsRepository(db: Db) {
     async take(trx: Db, slotId: number, load: Pick<OrderLoad, 'weight_kg' | 'pallets'>): Promise<boolean> {
       const n = await trx('delivery_slots')
         .where('id', slotId)
-        .whereRaw('?? + ? <= (select ?? from ?? where ?? = ??) + ?', ['booked_kg', load.weight_kg, 'payload_kg', 'lorries', 'lorries.id', 'delivery_slots.lorry_id', KG_SLACK])
+        // Weights are fractional: the casts keep PostgreSQL from typing the bindings as integers.
+        .whereRaw('?? + CAST(? AS DOUBLE PRECISION) <= (select ?? from ?? where ?? = ??) + CAST(? AS DOUBLE PRECISION)', [
+          'booked_kg',
+          load.weight_kg,
+          'payload_kg',
+          'lorries',
+          'lorries.id',
+          'delivery_slots.lorry_id',
+          KG_SLACK,
+        ])
         .whereRaw('?? + ? <= (select ?? from ?? where ?? = ??)', ['booked_pallets', load.pallets, 'pallet_slots', 'lorries', 'lorries.id', 'delivery_slots.lorry_id'])
-        .update({ booked_kg: trx.raw('?? + ?', ['booked_kg', load.weight_kg]), booked_pallets: trx.raw('?? + ?', ['booked_pallets', load.pallets]), updated_at: nowIso() });
+        .update({ booked_kg: trx.raw('?? + CAST(? AS DOUBLE PRECISION)', ['booked_kg', load.weight_kg]), booked_pallets: trx.raw('?? + ?', ['booked_pallets', load.pallets]), updated_at: nowIso() });
       return n > 0;
     },
 
@@ -145,7 +154,7 @@ export function slotsRepository(db: Db) {
       await trx('delivery_slots')
         .where('id', slotId)
         .update({
-          booked_kg: trx.raw('case when ?? > ? then ?? - ? else 0 end', ['booked_kg', load.weight_kg, 'booked_kg', load.weight_kg]),
+          booked_kg: trx.raw('case when ?? > CAST(? AS DOUBLE PRECISION) then ?? - CAST(? AS DOUBLE PRECISION) else 0 end', ['booked_kg', load.weight_kg, 'booked_kg', load.weight_kg]),
           booked_pallets: trx.raw('case when ?? > ? then ?? - ? else 0 end', ['booked_pallets', load.pallets, 'booked_pallets', load.pallets]),
           updated_at: nowIso(),
         });

@@ -1,0 +1,28 @@
+import { randomBytes } from 'node:crypto';
+import knexFactory from 'knex';
+import { inject } from 'vitest';
+
+/** A new, empty database in the suite's throw-away PostgreSQL cluster, dropped by drop(). */
+export async function createTestPgDatabase(): Promise<{ url: string; drop: () => Promise<void> }> {
+  const adminUrl = inject('pgAdminUrl');
+  if (!adminUrl) throw new Error('TEST_DB=postgres needs the PostgreSQL cluster of tests/setup/pg-global.ts');
+  const name = `ridgeload_${process.pid}_${randomBytes(4).toString('hex')}`;
+  const admin = knexFactory({ client: 'pg', connection: adminUrl, pool: { min: 0, max: 1 } });
+  try {
+    await admin.raw(`CREATE DATABASE ${name}`);
+  } finally {
+    await admin.destroy();
+  }
+  const url = adminUrl.replace(/\/postgres$/, `/${name}`);
+  return {
+    url,
+    async drop() {
+      const a = knexFactory({ client: 'pg', connection: adminUrl, pool: { min: 0, max: 1 } });
+      try {
+        await a.raw(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+      } finally {
+        await a.destroy();
+      }
+    },
+  };
+}
