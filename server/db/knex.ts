@@ -67,6 +67,7 @@ function createSqliteDb(filename: string): Db {
   return db;
 }
 
+
 interface Statement {
   get: (...params: unknown[]) => unknown;
 }
@@ -104,7 +105,12 @@ const STATEMENT_CACHE_SIZE = 1000;
 function cachePreparedStatements(conn: Connection): void {
   const prepare = conn.prepare.bind(conn);
   const cache = new Map<string, Statement>();
-  conn.prepare = (sql: string) => {
+  conn.prepare = (text: string) => {
+    // Every transaction takes the write lock when it begins: a deferred one that reads and then
+    // writes fails at once with SQLITE_BUSY when another process wrote in between, whatever the busy
+    // timeout; an immediate one waits its turn, SQLite's busy handler retrying for up to the busy
+    // timeout, and only then fails (answered 503 with Retry-After by the error handler).
+    const sql = text === 'BEGIN;' ? 'BEGIN IMMEDIATE;' : text;
     let statement = cache.get(sql);
     if (statement === undefined) {
       statement = prepare(sql);

@@ -15,13 +15,14 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
 
 /** The central error handler: every error leaves as {error:{code,message,details?}}, never a stack. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
-  const { status, body, log } = toErrorResponse(err);
+  const { status, body, log, retryAfter } = toErrorResponse(err);
   if (log) req.log?.error({ err }, 'unhandled error');
   if (res.headersSent) return;
+  if (retryAfter) res.setHeader('Retry-After', String(retryAfter));
   res.status(status).json(body);
 };
 
-function toErrorResponse(err: unknown): { status: number; body: ErrorBody; log: boolean } {
+function toErrorResponse(err: unknown): { status: number; body: ErrorBody; log: boolean; retryAfter?: number } {
   if (err instanceof AppError) {
     return {
       status: err.status,
@@ -48,6 +49,9 @@ function toErrorResponse(err: unknown): { status: number; body: ErrorBody; log: 
   }
   if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) {
     return { status: e.status, body: { error: { code: 'bad_request', message: 'The request could not be read' } }, log: false };
+  }
+  if (e?.code === 'SQLITE_BUSY') {
+    return { status: 503, body: { error: { code: 'busy', message: 'The server is busy; try again in a moment' } }, log: true, retryAfter: 1 };
   }
   // A race the use case's own check did not catch: the database's unique rule kept it out.
   if (isUniqueViolation(err)) return { status: 409, body: { error: { code: 'conflict', message: 'Someone else has just made the same change; reload to see it' } }, log: true };
