@@ -26,19 +26,28 @@ export interface TestApp {
   close: () => Promise<void>;
 }
 
+const TEST_SESSION_SECRET = 'a-test-session-secret-of-forty-characters!';
+
 /**
  * A fresh app on its own migrated database with mail captured in-process: a SQLite file in a temp
  * folder, or (in the PostgreSQL pass of the suite, TEST_DB=postgres) a new database in the
  * throw-away cluster.
  */
-export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
+export async function createTestApp(env: Record<string, string> = {}, options: { sameDatabaseAs?: TestApp } = {}): Promise<TestApp> {
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-test-'));
-  const pgDb = process.env.TEST_DB === 'postgres' ? await createTestPgDatabase() : undefined;
-  const pgEnv: Record<string, string> = pgDb ? { DATABASE_URL: pgDb.url, SESSION_SECRET: 'a-test-session-secret-of-forty-characters!' } : {};
-  const dev = await startDevPayments(loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, ...pgEnv, ...env }), 0);
+  const other = options.sameDatabaseAs;
+  const pgDb = !other && process.env.TEST_DB === 'postgres' ? await createTestPgDatabase() : undefined;
+  const dbEnv: Record<string, string> = other
+    ? { ...(other.config.databaseUrl ? { DATABASE_URL: other.config.databaseUrl } : {}), SESSION_SECRET: other.config.sessionSecret }
+    : pgDb
+      ? { DATABASE_URL: pgDb.url, SESSION_SECRET: TEST_SESSION_SECRET }
+      : { SESSION_SECRET: TEST_SESSION_SECRET };
+  const dev = await startDevPayments(loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, ...dbEnv, ...env }), 0);
   const config = dev.config;
+  // A second server on the same database: the other app's SQLite file, or its PostgreSQL database.
+  if (other && !other.config.databaseUrl) Object.assign(config, { databaseFile: other.config.databaseFile, database: other.config.databaseFile });
   const db = createDb(config.database);
-  await migrateLatest(db);
+  if (!other) await migrateLatest(db);
   const mail = await startMailCapture();
   const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: 'silent' }) });
   const server = await new Promise<Server>((resolve) => {
@@ -61,6 +70,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
       await mail.close();
       await db.destroy();
       await pgDb?.drop();
+      // A second server leaves the database to the first.
       rmSync(dir, { recursive: true, force: true });
     },
   };

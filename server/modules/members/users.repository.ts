@@ -1,7 +1,6 @@
 import type { Role } from '../../../shared/domain/roles';
 import type { AuthUser } from '../../auth/auth-user';
-import { LRUCache } from 'lru-cache';
-import type { Db } from '../../db/knex';
+import { peekRow, type Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 
 export interface UserRow {
@@ -16,38 +15,33 @@ export interface UserRow {
 
 const PUBLIC_COLUMNS = ['id', 'email', 'name', 'role', 'created_at'] as const;
 
-/**
- * Signed-in users as every request sees them, remembered per database. Each request needs its user
- * and organisation; they change only through this repository (role, removal), which forgets the
- * user at once. A read that began before such a change is not remembered (the user's generation has
- * moved), so an old role can never be put back. The time limit only bounds memory.
- */
-interface AuthUserMemory {
-  users: LRUCache<number, AuthUser>;
-  generations: Map<number, number>;
+interface AuthUserRow {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  org_id: number;
+  org_name: string;
+  org_kind: AuthUser['organisation']['kind'];
 }
-const memories = new WeakMap<Db, AuthUserMemory>();
-function memoryOf(db: Db): AuthUserMemory {
-  let m = memories.get(db);
-  if (!m) {
-    m = { users: new LRUCache({ max: 10_000, ttl: 10 * 60_000 }), generations: new Map() };
-    memories.set(db, m);
-  }
-  return m;
-}
+const AUTH_USER_SQL =
+  'select u.id, u.email, u.name, u.role, o.id as org_id, o.name as org_name, o.kind as org_kind from users u join organisations o on o.id = u.organisation_id where u.id = ?';
 
 export function usersRepository(db: Db) {
-  const memory = memoryOf(db);
-  const forget = (userId: number) => {
-    memory.users.delete(userId);
-    memory.generations.set(userId, (memory.generations.get(userId) ?? 0) + 1);
-  };
+  /**
+   * Read on every signed-in request, never kept in memory, so a role change or a removal made through
+   * any server counts at once on all of them. On SQLite it goes straight to the open connection
+   * when no transaction is open there (the busiest read in the app).
+   */
   async function readAuthUser(id: number): Promise<AuthUser | undefined> {
-    const row = await db('users as u')
-      .join('organisations as o', 'o.id', 'u.organisation_id')
-      .select('u.id', 'u.email', 'u.name', 'u.role', 'o.id as org_id', 'o.name as org_name', 'o.kind as org_kind')
-      .where('u.id', id)
-      .first();
+    const peek = peekRow<AuthUserRow>(db, AUTH_USER_SQL, id);
+    const row = peek
+      ? peek.row
+      : ((await db('users as u')
+          .join('organisations as o', 'o.id', 'u.organisation_id')
+          .select('u.id', 'u.email', 'u.name', 'u.role', 'o.id as org_id', 'o.name as org_name', 'o.kind as org_kind')
+          .where('u.id', id)
+          .first()) as AuthUserRow | undefined);
     if (!row) return undefined;
     return {
       id: row.id,
@@ -65,12 +59,7 @@ export function usersRepository(db: Db) {
 
     /** The session's view of a user: the person and their organisation in one read. */
     async findAuthUser(id: number): Promise<AuthUser | undefined> {
-      const known = memory.users.get(id);
-      if (known) return known;
-      const generation = memory.generations.get(id) ?? 0;
-      const user = await readAuthUser(id);
-      if (user && (memory.generations.get(id) ?? 0) === generation) memory.users.set(id, user);
-      return user;
+      return readAuthUser(id);
     },
 
     async create(
@@ -84,7 +73,6 @@ export function usersRepository(db: Db) {
     },
 
     async setPassword(userId: number, passwordHash: string, trx: Db = db): Promise<void> {
-      forget(userId);
       await trx('users').where({ id: userId }).update({ password_hash: passwordHash });
     },
 
@@ -102,15 +90,11 @@ export function usersRepository(db: Db) {
     },
 
     async updateRole(organisationId: number, userId: number, role: Role, trx: Db = db): Promise<void> {
-      forget(userId);
       await trx('users').where({ organisation_id: organisationId, id: userId }).update({ role });
-      forget(userId);
     },
 
     async remove(organisationId: number, userId: number, trx: Db = db): Promise<void> {
-      forget(userId);
       await trx('users').where({ organisation_id: organisationId, id: userId }).delete();
-      forget(userId);
     },
   };
 }
