@@ -30,7 +30,7 @@ export class SessionStore extends ConnectSessionKnexStore {
 
   override async get(sid: string, callback: (err: unknown, session?: SessionData | null) => void): Promise<SessionData | null> {
     if (dialectOf(this.db) === 'sqlite') {
-      let peek: { row: { sess: string } | undefined } | null = null;
+      let peek: { row: { sess: string } | undefined } | null;
       try {
         peek = peekRow<{ sess: string }>(this.db, 'select sess from sessions where sid = ? and datetime(?) <= datetime(expired)', sid, new Date().toISOString());
       } catch {
