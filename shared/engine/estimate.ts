@@ -114,6 +114,10 @@ interface Scratch {
   tile_nails: number;
   inset: { left: number; right: number };
   clips: ClipRule;
+  /** Pieces of the face being counted, course by course. */
+  pieces: PieceCounts;
+  /** The face's counts as its openings change them. */
+  counts: { whole: number; cut: number; removed: number; batten_mm: number; area_mm2: number };
   /** Slope area of the face less its openings, and of its openings, m² (unrounded). */
   net_slope_m2: number;
   openings_m2: number;
@@ -121,6 +125,33 @@ interface Scratch {
   flashings: { side: number; top: number; apron: number; back: number };
   roof_windows: number;
   hatches: number;
+}
+
+interface PieceCounts {
+  whole: number;
+  halves: number;
+  cut: number;
+  eaves: number;
+  top: number;
+  tah: number;
+}
+
+/**
+ * Adds one course's pieces to a face's counts. Double lap: the under-eaves course (0) is of short eaves
+ * tiles and the top course (courses − 1) of short top tiles, every piece of them (their raking cuts are
+ * cut from them too).
+ */
+function addCourse(t: PieceCounts, course: CoursePieces, i: number, courses: number, doubleLap: boolean) {
+  if (doubleLap && (i === 0 || i === courses - 1)) {
+    const n = course.whole + course.halves + course.cut + course.tah;
+    if (i === 0) t.eaves += n;
+    else t.top += n;
+    return;
+  }
+  t.whole += course.whole;
+  t.halves += course.halves;
+  t.cut += course.cut;
+  t.tah += course.tah;
 }
 
 /** Flashing runs past both sides of a chimney or dormer by 150 mm (common practice, no source). */
@@ -196,26 +227,13 @@ function computeFace(
   const leftVerge = !isRaking(face.left);
   const rightVerge = !isRaking(face.right);
   const cover = tile.cover_width_mm;
-  let whole = 0;
-  let halves = 0;
-  let cut = 0;
-  let eavesTiles = 0;
-  let topTiles = 0;
-  let tah = 0;
-  // Double lap: the under-eaves course is of short eaves tiles and the top course of short top tiles,
-  // every piece of them (the raking cuts of those courses are cut from them too).
-  const addCourse = (course: CoursePieces, i: number) => {
-    if (doubleLap && (i === 0 || i === C - 1)) {
-      const n = course.whole + course.halves + course.cut + course.tah;
-      if (i === 0) eavesTiles += n;
-      else topTiles += n;
-      return;
-    }
-    whole += course.whole;
-    halves += course.halves;
-    cut += course.cut;
-    tah += course.tah;
-  };
+  const pieces = scratch.pieces;
+  pieces.whole = 0;
+  pieces.halves = 0;
+  pieces.cut = 0;
+  pieces.eaves = 0;
+  pieces.top = 0;
+  pieces.tah = 0;
   let nailed = 0;
   let clips = 0;
   const everyTileClipped = clipsEveryTile(scratch.clips, face.pitch_deg);
@@ -239,7 +257,7 @@ function computeFace(
     const broken = doubleLap ? doubleLapVergeCourse(fit, scratch.brokenCourse) : vergeCourse(fit, true, scratch.brokenCourse);
     for (let i = 0; i < C; i++) {
       const course = (doubleLap ? isDoubleLapBrokenCourse(i, C) : isBrokenCourse(tile.bond, i)) ? broken : straight;
-      addCourse(course, i);
+      addCourse(pieces, course, i, C, doubleLap);
       nailed += nailedPieces(system.fixing.rule, course, i, C);
       clips += courseClips(scratch.clips, course, i, 2, everyTileClipped);
     }
@@ -262,7 +280,7 @@ function computeFace(
         ? vergeToRakeCourse(width, overhang, tile.width_mm, cover.nominal, brokenHere, scratch.course)
         : rakeToRakeCourse(width, tile.width_mm, cover.nominal, scratch.course);
       if (doubleLap) halfToTileAndHalf(course);
-      addCourse(course, i);
+      addCourse(pieces, course, i, C, doubleLap);
       nailed += nailedPieces(system.fixing.rule, course, i, C);
       clips += courseClips(scratch.clips, course, i, oneVerge ? 1 : 0, everyTileClipped);
       const inCourse = Math.ceil(course.whole + course.cut + course.halves / 2 + course.tah * 1.5 - 1e-9);
@@ -272,7 +290,18 @@ function computeFace(
     marksOverhang = oneVerge ? overhang : 0;
     marksTiles = tilesToSpan(widest + marksOverhang, tile.width_mm, cover.nominal);
   }
-  const counts = { whole, cut, removed: 0, batten_mm: 0, area_mm2: 0 };
+  let whole = pieces.whole;
+  let cut = pieces.cut;
+  const halves = pieces.halves;
+  const eavesTiles = pieces.eaves;
+  const topTiles = pieces.top;
+  const tah = pieces.tah;
+  const counts = scratch.counts;
+  counts.whole = whole;
+  counts.cut = cut;
+  counts.removed = 0;
+  counts.batten_mm = 0;
+  counts.area_mm2 = 0;
   scratch.flashings.side = 0;
   scratch.flashings.top = 0;
   scratch.flashings.apron = 0;
@@ -406,7 +435,9 @@ function openingsByFace(openings: readonly Opening[]): Map<string, Opening[]> {
  */
 export function estimate(schedule: Schedule, system: RoofSystem, openings: readonly Opening[] = []): EngineResult {
   const problems = checkFacesAgainstSystem(schedule, system);
-  for (const p of checkOpeningsAgainstFaces(openings, schedule)) problems.push({ row: p.index + 1, column: p.column, message: p.message });
+  if (openings.length > 0) {
+    for (const p of checkOpeningsAgainstFaces(openings, schedule)) problems.push({ row: p.index + 1, column: p.column, message: p.message });
+  }
   if (problems.length > 0) throw new ScheduleRejectedError(problems);
   const openingsOf = openings.length > 0 ? openingsByFace(openings) : null;
 
@@ -426,6 +457,8 @@ export function estimate(schedule: Schedule, system: RoofSystem, openings: reado
     tile_nails: 0,
     inset: { left: 0, right: 0 },
     clips: clipRule(system),
+    pieces: { whole: 0, halves: 0, cut: 0, eaves: 0, top: 0, tah: 0 },
+    counts: { whole: 0, cut: 0, removed: 0, batten_mm: 0, area_mm2: 0 },
     net_slope_m2: 0,
     openings_m2: 0,
     flashings: { side: 0, top: 0, apron: 0, back: 0 },
