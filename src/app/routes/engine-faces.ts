@@ -6,7 +6,7 @@ import { faceKey, type Face } from '../../../shared/schemas/schedule.schema';
 export function engineFaces(faces: readonly StoredFace[]): Face[] {
   return [...faces]
     .sort((a, b) => a.position - b.position)
-    .map(({ building, face, quantity, pitch_deg, rafter_mm, run_mm, eaves_mm, top_mm, left, right, top }) => ({
+    .map(({ building, face, quantity, pitch_deg, rafter_mm, run_mm, eaves_mm, top_mm, left, right, top, ridge, top_assumed }) => ({
       building,
       face,
       quantity,
@@ -18,6 +18,8 @@ export function engineFaces(faces: readonly StoredFace[]): Face[] {
       left,
       right,
       top,
+      ...(ridge === null || ridge === undefined ? {} : { ridge }),
+      ...(top_assumed ? { top_assumed: true } : {}),
     }));
 }
 
@@ -29,4 +31,9 @@ export function openingsByFace(faces: readonly Face[], openings: readonly Stored
     byKey.set(key, [...(byKey.get(key) ?? []), { building, face, kind, width_mm, height_mm, quantity }]);
   }
   return faces.map((f) => byKey.get(faceKey(f.building, f.face)) ?? []);
+}
+
+/** Every stored opening as the engine reads it. */
+export function engineOpenings(openings: readonly StoredOpening[]): Opening[] {
+  return openings.map(({ building, face, kind, width_mm, height_mm, quantity }) => ({ building, face, kind, width_mm, height_mm, quantity }));
 }
