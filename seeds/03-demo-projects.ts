@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import { EXAMPLE_SCHEDULE_CSV, EXAMPLE_SCHEDULE_FILENAME } from '../shared/engine/example-schedule';
 import { parseScheduleCsv } from '../shared/engine/schedule-parse';
+import { EXAMPLE_OPENINGS_CSV } from '../shared/engine/example-openings';
+import { parseOpeningsCsv } from '../shared/engine/openings-parse';
 import { schedulesRepository } from '../server/modules/schedules/schedules.repository';
 
 /** A demo site for the demo estimator, with the example schedule already imported (invented place and people). */
@@ -34,6 +36,8 @@ export async function seed(knex: Knex): Promise<void> {
   if (await knex('projects').where({ organisation_id: org.id, name: DEMO_SITE.project.name }).first()) return;
   const parsed = parseScheduleCsv(EXAMPLE_SCHEDULE_CSV);
   if (!parsed.ok) throw new Error(`the example schedule does not parse: ${parsed.errors.map((e) => e.message).join('; ')}`);
+  const openings = parseOpeningsCsv(EXAMPLE_OPENINGS_CSV, parsed.faces);
+  if (!openings.ok) throw new Error(`the example openings do not parse: ${openings.errors.map((e) => e.message).join('; ')}`);
   const now = new Date().toISOString();
   await knex.transaction(async (trx) => {
     const [row] = await trx('projects')
@@ -48,6 +52,7 @@ export async function seed(knex: Knex): Promise<void> {
       source: 'csv',
       filename: EXAMPLE_SCHEDULE_FILENAME,
       faces: parsed.faces,
+      openings: openings.openings,
     });
   });
 }

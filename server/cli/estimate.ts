@@ -3,17 +3,20 @@
  * estimate as JSON on stdout and exits 0. Invalid input prints nothing on stdout, one line per problem
  * on stderr, and exits 2; so does bad usage or a file that cannot be read.
  *
- *   npm run --silent estimate -- --schedule roof.csv [--system system.json]
+ *   npm run --silent estimate -- --schedule roof.csv [--system system.json] [--openings openings.csv]
  */
 import { readFileSync } from 'node:fs';
 import { formatProblem, runEstimateFromCsv } from '../../shared/engine/estimate';
 
-const USAGE = `Usage: npm run --silent estimate -- --schedule <roof.csv> [--system <system.json>]
+const USAGE = `Usage: npm run --silent estimate -- --schedule <roof.csv> [--system <system.json>] [--openings <openings.csv>]
 
   --schedule <file>  roof schedule, CSV with a header row: face, pitch_deg, rafter_mm or run_mm,
-                     eaves_mm, and optionally building, quantity, top_mm, left, right, top
+                     eaves_mm, and optionally building, quantity, top_mm (required beside a hip or
+                     valley), left, right, top, ridge
   --system <file>    roof system, JSON; every field may be left out and takes its default
                      (left out entirely: the default tile and defaults throughout)
+  --openings <file>  openings in the faces, CSV with a header row: building, face, kind
+                     (roof_window, chimney, dormer, hatch), width_mm, height_mm, quantity
   --help             show this help
 
 Prints the estimate as JSON on stdout (exit 0). Problems with the input are printed on stderr,
@@ -30,8 +33,11 @@ class UsageError extends Error {}
 interface Args {
   schedule?: string;
   system?: string;
+  openings?: string;
   help: boolean;
 }
+
+const OPTIONS = { '--schedule': 'schedule', '--system': 'system', '--openings': 'openings' } as const;
 
 function parseArgs(argv: readonly string[]): Args {
   const args: Args = { help: false };
@@ -43,8 +49,8 @@ function parseArgs(argv: readonly string[]): Args {
     }
     const eq = arg.indexOf('=');
     const name = eq > 0 ? arg.slice(0, eq) : arg;
-    if (name !== '--schedule' && name !== '--system') throw new UsageError(`unknown argument '${arg}'`);
-    const key = name === '--schedule' ? 'schedule' : 'system';
+    if (!Object.hasOwn(OPTIONS, name)) throw new UsageError(`unknown argument '${arg}'`);
+    const key = OPTIONS[name as keyof typeof OPTIONS];
     if (args[key] !== undefined) throw new UsageError(`${name} is given twice`);
     let value: string | undefined;
     if (eq > 0) value = arg.slice(eq + 1);
@@ -88,8 +94,10 @@ function main(argv: readonly string[]): number {
   }
   let csv: string;
   let system: unknown;
+  let openings: string | undefined;
   try {
     csv = readText(args.schedule, 'schedule');
+    if (args.openings !== undefined) openings = readText(args.openings, 'openings');
     if (args.system !== undefined) {
       const text = readText(args.system, 'system');
       try {
@@ -104,7 +112,7 @@ function main(argv: readonly string[]): number {
     return EXIT_INPUT;
   }
 
-  const out = runEstimateFromCsv(csv, system);
+  const out = runEstimateFromCsv(csv, system, openings);
   if (!out.ok) {
     process.stderr.write(out.errors.map((p) => `${formatProblem(p)}\n`).join(''));
     return EXIT_INPUT;

@@ -28,9 +28,9 @@ describe('bond', () => {
 
   it('gives a broken course n − 1 whole tiles and a half at each verge (common practice)', () => {
     const fit = { tiles: 30, cover_mm: 300, overhang_mm: 45, fits: true };
-    expect(vergeCourse(fit, false)).toEqual({ whole: 30, halves: 0, cut: 0, perimeter: 2 });
-    expect(vergeCourse(fit, true)).toEqual({ whole: 29, halves: 2, cut: 0, perimeter: 2 });
-    expect(vergeCourse({ ...fit, fits: false }, true)).toEqual({ whole: 28, halves: 2, cut: 1, perimeter: 3 });
+    expect(vergeCourse(fit, false)).toEqual({ whole: 30, halves: 0, cut: 0, perimeter: 2, tah: 0 });
+    expect(vergeCourse(fit, true)).toEqual({ whole: 29, halves: 2, cut: 0, perimeter: 2, tah: 0 });
+    expect(vergeCourse({ ...fit, fits: false }, true)).toEqual({ whole: 28, halves: 2, cut: 1, perimeter: 3, tah: 0 });
   });
 
   it('cuts half tiles from whole tiles at the middle nail hole, two halves from one tile (common practice)', () => {
@@ -61,15 +61,15 @@ describe('bond', () => {
   });
 
   it('puts a half at the verge of a broken course that runs to a hip, and cuts the tile at the hip', () => {
-    expect(vergeToRakeCourse(3_000, 45, 330, 300, false)).toEqual({ whole: 10, halves: 0, cut: 1, perimeter: 2 });
-    expect(vergeToRakeCourse(3_000, 45, 330, 300, true)).toEqual({ whole: 9, halves: 1, cut: 1, perimeter: 2 });
-    expect(vergeToRakeCourse(0, 45, 330, 300, true)).toEqual({ whole: 0, halves: 0, cut: 0, perimeter: 0 });
-    expect(vergeToRakeCourse(100, 45, 330, 300, true)).toEqual({ whole: 0, halves: 1, cut: 0, perimeter: 1 });
+    expect(vergeToRakeCourse(3_000, 45, 330, 300, false)).toEqual({ whole: 10, halves: 0, cut: 1, perimeter: 2, tah: 0 });
+    expect(vergeToRakeCourse(3_000, 45, 330, 300, true)).toEqual({ whole: 9, halves: 1, cut: 1, perimeter: 2, tah: 0 });
+    expect(vergeToRakeCourse(0, 45, 330, 300, true)).toEqual({ whole: 0, halves: 0, cut: 0, perimeter: 0, tah: 0 });
+    expect(vergeToRakeCourse(100, 45, 330, 300, true)).toEqual({ whole: 0, halves: 1, cut: 0, perimeter: 1, tah: 0 });
   });
 
   it('cuts a tile at each raking edge of a course between two hips', () => {
-    expect(rakeToRakeCourse(3_000, 330, 300)).toEqual({ whole: 8, halves: 0, cut: 2, perimeter: 2 });
-    expect(rakeToRakeCourse(200, 330, 300)).toEqual({ whole: 0, halves: 0, cut: 1, perimeter: 1 });
-    expect(rakeToRakeCourse(0, 330, 300)).toEqual({ whole: 0, halves: 0, cut: 0, perimeter: 0 });
+    expect(rakeToRakeCourse(3_000, 330, 300)).toEqual({ whole: 8, halves: 0, cut: 2, perimeter: 2, tah: 0 });
+    expect(rakeToRakeCourse(200, 330, 300)).toEqual({ whole: 0, halves: 0, cut: 1, perimeter: 1, tah: 0 });
+    expect(rakeToRakeCourse(0, 330, 300)).toEqual({ whole: 0, halves: 0, cut: 0, perimeter: 0, tah: 0 });
   });
 });

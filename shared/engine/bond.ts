@@ -7,15 +7,53 @@ export interface CoursePieces {
   cut: number;
   /** Pieces at the verges and cut pieces at raking edges: the perimeter of the course. */
   perimeter: number;
+  /** Tiles-and-a-half (slates-and-a-half) at the verges of a broken double-lap course. */
+  tah: number;
 }
 
-function pieces(out: CoursePieces | undefined, whole: number, halves: number, cut: number, perimeter: number): CoursePieces {
-  if (!out) return { whole, halves, cut, perimeter };
+function pieces(out: CoursePieces | undefined, whole: number, halves: number, cut: number, perimeter: number, tah = 0): CoursePieces {
+  if (!out) return { whole, halves, cut, perimeter, tah };
   out.whole = whole;
   out.halves = halves;
   out.cut = cut;
   out.perimeter = perimeter;
+  out.tah = tah;
   return out;
+}
+
+/**
+ * Double lap (plain tiles, slates) keeps the bond in every second full course, starting with the
+ * second full course from the eaves: course index 2, 4, … of a face whose course 0 is the under-eaves
+ * course, never the top course (index courses − 1).
+ */
+export function isDoubleLapBrokenCourse(courseIndex: number, courses: number): boolean {
+  return courseIndex >= 2 && courseIndex <= courses - 2 && courseIndex % 2 === 0;
+}
+
+/**
+ * A broken double-lap course between two verges: the bond is kept with a tile-and-a-half at each
+ * verge in place of a half and a whole, so n − 3 whole tiles and two tiles-and-a-half cover the width
+ * of n tiles (a further cut tile when no whole number fits). A course under three tiles wide is laid
+ * straight.
+ */
+export function doubleLapVergeCourse(fit: VergeFit, out?: CoursePieces): CoursePieces {
+  const n = fit.tiles;
+  const cut = fit.fits ? 0 : 1;
+  if (n < 3) return pieces(out, n - cut, 0, cut, Math.min(n, 2));
+  return pieces(out, Math.max(0, n - 3 - cut), 0, cut, 2 + cut, 2);
+}
+
+/**
+ * Turns the half at the verge of a broken verge-to-rake course into a tile-and-a-half (double lap):
+ * one whole tile fewer, no half. Writes into `course`.
+ */
+export function halfToTileAndHalf(course: CoursePieces): CoursePieces {
+  if (course.halves > 0) {
+    course.whole = Math.max(0, course.whole - 1);
+    course.halves = 0;
+    course.tah = 1;
+  }
+  return course;
 }
 
 /** Broken bond shifts every second course by half a tile, starting with the second from the eaves. */

@@ -93,12 +93,12 @@ describe('tile clips', () => {
   });
 
   it('counts a course’s clips: tail clips on its pieces, a clip for each verge', () => {
-    const course = { whole: 10, halves: 2, cut: 1, perimeter: 3 };
+    const course = { whole: 10, halves: 2, cut: 1, perimeter: 3, tah: 0 };
     const rule = SINGLE_LAP_CLIP_DEFAULTS;
     expect(courseClips(rule, course, 0, 2, false)).toBe(13 + 2);
     expect(courseClips(rule, course, 1, 2, false)).toBe(2);
     expect(courseClips(rule, course, 1, 1, true)).toBe(13 + 1);
-    expect(courseClips(rule, { whole: 0, halves: 0, cut: 0, perimeter: 0 }, 0, 2, true)).toBe(0);
+    expect(courseClips(rule, { whole: 0, halves: 0, cut: 0, perimeter: 0, tah: 0 }, 0, 2, true)).toBe(0);
     expect(clipsEveryTile(rule, 55)).toBe(true);
     expect(clipsEveryTile(rule, 54.99)).toBe(false);
     expect(clipsEveryTile({ ...rule, every_tile_from_pitch_deg: null }, 89)).toBe(false);

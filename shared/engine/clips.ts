@@ -36,7 +36,7 @@ export function clipsEveryTile(rule: ClipRule, pitchDeg: number): boolean {
  * verge clip: the tile maker's specification says how they are fixed.
  */
 export function courseClips(rule: ClipRule, course: CoursePieces, courseIndex: number, vergeEdges: number, everyTile: boolean): number {
-  const pieces = course.whole + course.halves + course.cut;
+  const pieces = course.whole + course.halves + course.cut + course.tah;
   if (pieces === 0) return 0;
   const tail = everyTile || (rule.eaves && courseIndex === 0) ? pieces : 0;
   return tail + (rule.verges ? vergeEdges : 0);

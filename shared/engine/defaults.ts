@@ -66,7 +66,18 @@ export const SYSTEM_DEFAULTS = {
     kg_per_m: 0.45,
   },
   ridge: { cover_mm: 420, weight_kg: 5 },
-  hip: { cover_mm: 420, weight_kg: 5 },
+  /** A galvanised hip iron at the foot of each hip (invented typical weight). */
+  hip: { cover_mm: 420, weight_kg: 5, iron_kg: 0.3 },
+  /**
+   * Verges bedded in mortar, or dry: a clipped unit a course and a cap at each ridge end that finishes
+   * at a verge (invented typical weights).
+   */
+  verge: { kind: 'mortar' as 'mortar' | 'dry', unit_kg: 0.35, end_cap_kg: 0.4 },
+  /**
+   * Valleys lined (lead or a roll lining, ordered by the metre) or laid with preformed trough units,
+   * each unit_length_mm long and lapping the next by lap_mm (invented typical weight).
+   */
+  valley: { kind: 'lined' as 'lined' | 'trough', unit_length_mm: 3000, lap_mm: 150, unit_kg: 3 },
   underlay: {
     roll_width_mm: 1000,
     roll_length_mm: 50_000,

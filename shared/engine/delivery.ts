@@ -1,6 +1,20 @@
 import type { RoofSystem } from '../schemas/roof-system.schema';
 
-export type AccessoryItem = 'underlay_rolls' | 'battens' | 'batten_nails' | 'tile_nails' | 'clips' | 'ridge_tiles' | 'hip_tiles';
+export type AccessoryItem =
+  | 'underlay_rolls'
+  | 'battens'
+  | 'batten_nails'
+  | 'tile_nails'
+  | 'clips'
+  | 'ridge_tiles'
+  | 'hip_tiles'
+  | 'eaves_tiles'
+  | 'top_tiles'
+  | 'tile_and_half'
+  | 'valley_units'
+  | 'hip_irons'
+  | 'dry_verge_units'
+  | 'ridge_end_caps';
 
 export interface PalletFace {
   building: string;
@@ -23,7 +37,7 @@ export interface Pallet {
   weight_kg: number;
   /** Faces the tiles serve (whole faces over every copy); spare tiles (the waste allowance) have face "spare". */
   faces: PalletFace[];
-  /** Accessories on an accessory pallet. */
+  /** Accessories on an accessory pallet; on a tile pallet, the eaves tiles, top tiles and tiles-and-a-half it carries. */
   items: PalletItem[];
 }
 
@@ -50,6 +64,11 @@ export interface DeliveryInput {
   tilesOrdered: number;
   /** Net tiles of one copy of each face and its quantity, in schedule order; the rest of tilesOrdered is spare. */
   faces: ReadonlyArray<{ building: string; face: string; tiles: number; quantity: number }>;
+  /**
+   * Double-lap special pieces (eaves tiles, top tiles, tiles-and-a-half), ordered: they travel on the
+   * tile pallets after the full tiles, each taking a tile's place.
+   */
+  withTiles?: Accessory[];
   /** Needed at the start (underlay, battens, nails, clips): off first. */
   firstOff: Accessory[];
   /** Needed at the end (ridge and hip tiles): off last. */
@@ -131,7 +150,8 @@ function packAccessories(items: readonly Accessory[], capacityKg: number, build:
 
 /**
  * Delivery: tiles on pallets of per_pallet (the last one part-full), each listing its count, gross
- * weight and the faces it serves, in schedule order; accessories on pallets made up to max_pallet_kg,
+ * weight and the faces it serves, in schedule order, then the double-lap special pieces on the same
+ * pallets, a piece to a tile's place; accessories on pallets made up to max_pallet_kg,
  * underlay, battens, nails and clips first off and ridge and hip tiles last. Pallets are numbered in the order
  * they come off; lorry loads are filled in that order up to the payload and the pallet slots, and each
  * load is loaded in reverse, so what comes off first is loaded last. Weights in kg.
@@ -141,12 +161,20 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
   const issues: DeliveryIssue[] = [];
   const tare = truck.pallet_tare_kg;
   const capacity = Math.max(1e-9, truck.max_pallet_kg - tare);
-  const tilePallets = input.tilesOrdered > 0 ? Math.ceil(input.tilesOrdered / tile.per_pallet) : 0;
+  const specials = (input.withTiles ?? []).filter((a) => a.quantity > 0);
+  let specialCount = 0;
+  let specialKg = 0;
+  for (const a of specials) {
+    specialCount += a.quantity;
+    specialKg += a.quantity * a.unit_kg;
+  }
+  const pieces = input.tilesOrdered + specialCount;
+  const tilePallets = pieces > 0 ? Math.ceil(pieces / tile.per_pallet) : 0;
   const firstCount = packAccessories(input.firstOff, capacity, false).count;
   const lastCount = packAccessories(input.lastOff, capacity, false).count;
   const accessoryKg = [...input.firstOff, ...input.lastOff].reduce((sum, a) => sum + a.quantity * a.unit_kg, 0);
   const totalPallets = tilePallets + firstCount + lastCount;
-  const weight = input.tilesOrdered * tile.weight_kg + accessoryKg + totalPallets * tare;
+  const weight = input.tilesOrdered * tile.weight_kg + specialKg + accessoryKg + totalPallets * tare;
 
   const fullTilePallet = tile.per_pallet * tile.weight_kg + tare;
   if (tilePallets > 0 && Math.min(input.tilesOrdered, tile.per_pallet) * tile.weight_kg + tare > truck.max_pallet_kg) {
@@ -187,11 +215,30 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
   for (const f of sources) netLeft += f.tiles * f.quantity;
   let spareLeft = Math.max(0, input.tilesOrdered - netLeft);
   let toPlace = input.tilesOrdered;
+  let specialIdx = 0;
+  let specialLeft = specials.length > 0 ? specials[0].quantity : 0;
   const palletFaces: PalletFace[] = [];
   for (let p = 0; p < tilePallets; p++) {
     const count = Math.min(tile.per_pallet, toPlace);
     toPlace -= count;
     let room = count;
+    let specialRoom = tile.per_pallet - count;
+    let items: PalletItem[] = NO_ITEMS;
+    let itemsKg = 0;
+    while (specialRoom > 0 && specialIdx < specials.length) {
+      if (specialLeft <= 0) {
+        specialIdx++;
+        specialLeft = specialIdx < specials.length ? specials[specialIdx].quantity : 0;
+        continue;
+      }
+      const take = Math.min(specialRoom, specialLeft);
+      const a = specials[specialIdx];
+      if (items === NO_ITEMS) items = [];
+      items.push({ item: a.item, quantity: take, weight_kg: round1(take * a.unit_kg) });
+      itemsKg += take * a.unit_kg;
+      specialLeft -= take;
+      specialRoom -= take;
+    }
     let served = 0;
     while (room > 0 && faceIdx < sources.length) {
       if (faceLeft <= 0) {
@@ -214,10 +261,10 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
       n: pallets.length + 1,
       kind: 'tiles',
       tiles: count,
-      weight_kg: round1(count * tile.weight_kg + tare),
+      weight_kg: round1(count * tile.weight_kg + itemsKg + tare),
       // An exact-size copy: a big job holds one of these per pallet.
       faces: palletFaces.slice(0, served),
-      items: NO_ITEMS,
+      items,
     });
   }
   addAccessoryPallets(input.lastOff);

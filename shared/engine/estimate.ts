@@ -1,7 +1,18 @@
+import { checkOpeningsAgainstFaces, openingsSchema, type Opening } from '../schemas/openings.schema';
 import type { RoofSystem, RoofSystemInput } from '../schemas/roof-system.schema';
-import { scheduleSchema, type Face, type Schedule } from '../schemas/schedule.schema';
+import { faceKey, scheduleSchema, type Face, type Schedule } from '../schemas/schedule.schema';
 import { JointScratch, PieceTally, planFaceBattens, planStockLengths, type BattenRow, type FaceBattens } from './battens';
-import { isBrokenCourse, rakeToRakeCourse, tilesForHalves, vergeCourse, vergeToRakeCourse, type CoursePieces } from './bond';
+import {
+  doubleLapVergeCourse,
+  halfToTileAndHalf,
+  isBrokenCourse,
+  isDoubleLapBrokenCourse,
+  rakeToRakeCourse,
+  tilesForHalves,
+  vergeCourse,
+  vergeToRakeCourse,
+  type CoursePieces,
+} from './bond';
 import { clipRule, clipsEveryTile, courseClips, type ClipRule } from './clips';
 import { lowestPitch, rowHeight, setOutCourses, type CourseSetOut } from './courses';
 import {
@@ -13,10 +24,11 @@ import {
 } from './defaults';
 import { planDelivery } from './delivery';
 import { battenNails, nailedPieces } from './fixings';
-import { insets, isRaking, planAreaM2, slopeAreaM2, widthAt, type FaceShape } from './geometry';
-import { loadingRowIndices, pairRidgeFaces, planFaceLoading, type RidgeBalance, type RidgeSide } from './loading';
+import { insets, isRaking, planAreaM2, rakingEdgeLength, slopeAreaM2, widthAt, type FaceShape } from './geometry';
+import { loadingRowIndices, namedRidge, pairRidgeFaces, planFaceLoading, type RidgeBalance, type RidgeSide } from './loading';
 import { BuildingEdgeTally } from './ridge-hip';
-import type { EngineResult, EngineWarning, FaceResult, InputProblem } from './result';
+import type { EngineResult, EngineWarning, FaceResult, Flashings, InputProblem } from './result';
+import { parseOpeningsCsv } from './openings-parse';
 import { parseRoofSystem } from './roof-system';
 import { parseScheduleCsv, type ScheduleWarning } from './schedule-parse';
 import { settingOutMarks, settingOutReference } from './setting-out';
@@ -102,9 +114,91 @@ interface Scratch {
   tile_nails: number;
   inset: { left: number; right: number };
   clips: ClipRule;
+  /** Pieces of the face being counted, course by course. */
+  pieces: PieceCounts;
+  /** The face's counts as its openings change them. */
+  counts: { whole: number; cut: number; removed: number; batten_mm: number; area_mm2: number };
+  /** Slope area of the face less its openings, and of its openings, m² (unrounded). */
+  net_slope_m2: number;
+  openings_m2: number;
+  /** Flashings of one copy of the face, mm. */
+  flashings: { side: number; top: number; apron: number; back: number };
+  roof_windows: number;
+  hatches: number;
 }
 
-function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings: EngineWarning[], scratch: Scratch): FaceResult {
+interface PieceCounts {
+  whole: number;
+  halves: number;
+  cut: number;
+  eaves: number;
+  top: number;
+  tah: number;
+}
+
+/**
+ * Adds one course's pieces to a face's counts. Double lap: the under-eaves course (0) is of short eaves
+ * tiles and the top course (courses − 1) of short top tiles, every piece of them (their raking cuts are
+ * cut from them too).
+ */
+function addCourse(t: PieceCounts, course: CoursePieces, i: number, courses: number, doubleLap: boolean) {
+  if (doubleLap && (i === 0 || i === courses - 1)) {
+    const n = course.whole + course.halves + course.cut + course.tah;
+    if (i === 0) t.eaves += n;
+    else t.top += n;
+    return;
+  }
+  t.whole += course.whole;
+  t.halves += course.halves;
+  t.cut += course.cut;
+  t.tah += course.tah;
+}
+
+/** Flashing runs past both sides of a chimney or dormer by 150 mm (common practice, no source). */
+const FLASHING_PAST_SIDES_MM = 2 * 150;
+
+/** What the openings of one copy of a face take out and add, applied to its counted pieces. */
+function applyOpenings(
+  openings: readonly Opening[] | undefined,
+  gaugeMm: number,
+  coverMm: number,
+  counts: { whole: number; cut: number; removed: number; batten_mm: number; area_mm2: number },
+  scratch: Scratch,
+) {
+  if (!openings) return;
+  for (const o of openings) {
+    const q = o.quantity;
+    // Where the opening sits is not given: it crosses ceil(height ÷ gauge) courses, leaves out the whole
+    // tiles its width spans and cuts one tile each side of it in each course (a minimum).
+    const crossed = gaugeMm > 0 ? Math.ceil(o.height_mm / gaugeMm - 1e-9) : 1;
+    const leftOut = Math.min(counts.whole, crossed * Math.floor(o.width_mm / coverMm + 1e-9) * q);
+    counts.whole -= leftOut;
+    counts.removed += leftOut;
+    const toCut = Math.min(counts.whole, 2 * crossed * q);
+    counts.whole -= toCut;
+    counts.cut += toCut;
+    counts.batten_mm += o.width_mm * crossed * q;
+    counts.area_mm2 += o.width_mm * o.height_mm * q;
+    if (o.kind === 'chimney') {
+      scratch.flashings.side += 2 * o.height_mm * q;
+      scratch.flashings.apron += (o.width_mm + FLASHING_PAST_SIDES_MM) * q;
+      scratch.flashings.back += (o.width_mm + FLASHING_PAST_SIDES_MM) * q;
+    } else if (o.kind === 'dormer') {
+      scratch.flashings.side += 2 * o.height_mm * q;
+      scratch.flashings.apron += (o.width_mm + FLASHING_PAST_SIDES_MM) * q;
+    } else if (o.kind === 'roof_window') scratch.roof_windows += q;
+    else scratch.hatches += q;
+  }
+}
+
+function computeFace(
+  face: Face,
+  system: RoofSystem,
+  tally: PieceTally,
+  warnings: EngineWarning[],
+  scratch: Scratch,
+  openings?: readonly Opening[],
+): FaceResult {
   const { tile, setting_out: so } = system;
   const shape: FaceShape = face;
   const inset = insets(shape, scratch.inset);
@@ -119,13 +213,27 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
     );
   }
 
+  if (face.top_assumed) {
+    warnFace(
+      warnings,
+      face,
+      'top_assumed',
+      `no top_mm on a face with a hip or valley edge: its top was taken as its eaves (${Math.round(face.eaves_mm)} mm), which overstates a hip end and understates a valley face; give top_mm in a new version of the schedule`,
+    );
+  }
+
   const C = setOut.courses;
+  const doubleLap = tile.kind === 'double_lap';
   const leftVerge = !isRaking(face.left);
   const rightVerge = !isRaking(face.right);
   const cover = tile.cover_width_mm;
-  let whole = 0;
-  let halves = 0;
-  let cut = 0;
+  const pieces = scratch.pieces;
+  pieces.whole = 0;
+  pieces.halves = 0;
+  pieces.cut = 0;
+  pieces.eaves = 0;
+  pieces.top = 0;
+  pieces.tah = 0;
   let nailed = 0;
   let clips = 0;
   const everyTileClipped = clipsEveryTile(scratch.clips, face.pitch_deg);
@@ -146,12 +254,10 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
       );
     }
     const straight = vergeCourse(fit, false, scratch.course);
-    const broken = vergeCourse(fit, true, scratch.brokenCourse);
+    const broken = doubleLap ? doubleLapVergeCourse(fit, scratch.brokenCourse) : vergeCourse(fit, true, scratch.brokenCourse);
     for (let i = 0; i < C; i++) {
-      const course = isBrokenCourse(tile.bond, i) ? broken : straight;
-      whole += course.whole;
-      halves += course.halves;
-      cut += course.cut;
+      const course = (doubleLap ? isDoubleLapBrokenCourse(i, C) : isBrokenCourse(tile.bond, i)) ? broken : straight;
+      addCourse(pieces, course, i, C, doubleLap);
       nailed += nailedPieces(system.fixing.rule, course, i, C);
       clips += courseClips(scratch.clips, course, i, 2, everyTileClipped);
     }
@@ -169,21 +275,50 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
       // A course must reach the raking edge over the whole tile, from its tail up to its batten.
       const width = Math.max(widthAt(shape, Math.max(0, y - tile.length_mm)), widthAt(shape, Math.min(face.rafter_mm, y)));
       if (width > widest) widest = width;
+      const brokenHere = doubleLap ? isDoubleLapBrokenCourse(i, C) : isBrokenCourse(tile.bond, i);
       const course: CoursePieces = oneVerge
-        ? vergeToRakeCourse(width, overhang, tile.width_mm, cover.nominal, isBrokenCourse(tile.bond, i), scratch.course)
+        ? vergeToRakeCourse(width, overhang, tile.width_mm, cover.nominal, brokenHere, scratch.course)
         : rakeToRakeCourse(width, tile.width_mm, cover.nominal, scratch.course);
-      whole += course.whole;
-      halves += course.halves;
-      cut += course.cut;
+      if (doubleLap) halfToTileAndHalf(course);
+      addCourse(pieces, course, i, C, doubleLap);
       nailed += nailedPieces(system.fixing.rule, course, i, C);
       clips += courseClips(scratch.clips, course, i, oneVerge ? 1 : 0, everyTileClipped);
-      const inCourse = Math.ceil(course.whole + course.cut + course.halves / 2);
+      const inCourse = Math.ceil(course.whole + course.cut + course.halves / 2 + course.tah * 1.5 - 1e-9);
       if (inCourse > tilesPerCourse) tilesPerCourse = inCourse;
     }
     overhangUsed = oneVerge ? overhang : null;
     marksOverhang = oneVerge ? overhang : 0;
     marksTiles = tilesToSpan(widest + marksOverhang, tile.width_mm, cover.nominal);
   }
+  let whole = pieces.whole;
+  let cut = pieces.cut;
+  const halves = pieces.halves;
+  const eavesTiles = pieces.eaves;
+  const topTiles = pieces.top;
+  const tah = pieces.tah;
+  const counts = scratch.counts;
+  counts.whole = whole;
+  counts.cut = cut;
+  counts.removed = 0;
+  counts.batten_mm = 0;
+  counts.area_mm2 = 0;
+  scratch.flashings.side = 0;
+  scratch.flashings.top = 0;
+  scratch.flashings.apron = 0;
+  scratch.flashings.back = 0;
+  scratch.roof_windows = 0;
+  scratch.hatches = 0;
+  applyOpenings(openings, setOut.gauge_mm > 0 ? setOut.gauge_mm : setOut.max_gauge_mm, coverUsed, counts, scratch);
+  whole = counts.whole;
+  cut = counts.cut;
+  if (counts.removed > 0) {
+    // Left-out tiles are not nailed (under the perimeter rule about every second one is), nor clipped.
+    nailed = Math.max(0, nailed - (system.fixing.rule === 'every_tile' ? counts.removed : Math.ceil(counts.removed / 2)));
+    if (everyTileClipped) clips = Math.max(0, clips - counts.removed);
+  }
+  if (face.left === 'abutment') scratch.flashings.side += rakingEdgeLength(face.rafter_mm, inset.left);
+  if (face.right === 'abutment') scratch.flashings.side += rakingEdgeLength(face.rafter_mm, inset.right);
+  if (face.top === 'abutment') scratch.flashings.top += face.top_mm;
   const tiles = whole + cut + tilesForHalves(halves, tile.halves_per_tile);
 
   if (system.fixing.rule === 'perimeter_and_alternate_courses' && face.pitch_deg >= EVERY_TILE_PITCH_DEG) {
@@ -223,7 +358,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   for (let r = C - 1, k = Math.floor(C / system.roof_loading.every_nth_batten); k > 0; r -= system.roof_loading.every_nth_batten, k--) {
     rowPositions[loadingRows++] = scratch.supportsByRow[r];
   }
-  const loading = planFaceLoading(tiles, rowPositions, system.roof_loading.stack_size, loadingRows);
+  const loading = planFaceLoading(tiles + eavesTiles + topTiles + tah, rowPositions, system.roof_loading.stack_size, loadingRows);
   if (loading.needed_stack !== null) {
     warnFace(
       warnings,
@@ -235,7 +370,8 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
     );
   }
 
-  const slope = slopeAreaM2(shape);
+  const slope = Math.max(0, slopeAreaM2(shape) - counts.area_mm2 * 1e-6);
+  const battenMm = Math.max(0, battens.batten_mm - counts.batten_mm);
   const reference = settingOutReference(face.left, face.right);
   const result: FaceResult = {
     building: face.building,
@@ -254,32 +390,56 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
     half_tiles: halves,
     cut_tiles: cut,
     tiles,
-    batten_m: r2(battens.batten_mm / 1000),
+    eaves_tiles: eavesTiles,
+    top_tiles: topTiles,
+    tile_and_half: tah,
+    openings_area_m2: r2(counts.area_mm2 * 1e-6),
+    ridge: face.ridge ?? null,
+    batten_m: r2(battenMm / 1000),
     stacks: loading.stacks,
     stack_positions: loading.positions,
-    load_kg: r1(tiles * tile.weight_kg),
+    load_kg: r1(tiles * tile.weight_kg + eavesTiles * tile.eaves_tile_kg + topTiles * tile.top_tile_kg + tah * tile.tile_and_half_kg),
     clips,
     setting_out_marks_mm: settingOutMarks(marksTiles, coverUsed, marksOverhang),
     setting_out_from: reference,
     stacks_by_row: loading.stacks_by_row,
   };
   scratch.plan_m2 = planAreaM2(slope, face.pitch_deg);
-  scratch.batten_mm = battens.batten_mm;
+  scratch.net_slope_m2 = slope;
+  scratch.openings_m2 = counts.area_mm2 * 1e-6;
+  scratch.batten_mm = battenMm;
   scratch.batten_nails = battenNails(battens.crossings, battens.joints);
   scratch.tile_nails = nailed * tile.nails_per_tile;
   return result;
 }
 
+/** Groups openings by the face they sit in (building and face compared without case). */
+function openingsByFace(openings: readonly Opening[]): Map<string, Opening[]> {
+  const map = new Map<string, Opening[]>();
+  for (const o of openings) {
+    const key = faceKey(o.building, o.face);
+    const list = map.get(key);
+    if (list) list.push(o);
+    else map.set(key, [o]);
+  }
+  return map;
+}
+
 /**
- * The take-off and loading estimate of a checked schedule with a resolved roof system: per-face
- * figures in schedule order, job totals (faces × quantity), the pallet list, lorry loads, ridge load
- * balance and warnings. Lengths in mm (m in totals), areas m², weights kg. Throws
- * ScheduleRejectedError if a face's pitch is below the tile's lowest band (check with
- * checkFacesAgainstSystem, or use runEstimate / runEstimateFromCsv, which return errors instead).
+ * The take-off and loading estimate of a checked schedule with a resolved roof system, and the
+ * openings in its faces (each in every copy of its face): per-face figures in schedule order, job
+ * totals (faces × quantity), the pallet list, lorry loads, the load of each ridge and warnings.
+ * Lengths in mm (m in totals), areas m², weights kg. Throws ScheduleRejectedError if a face's pitch is
+ * below the tile's lowest band or an opening does not fit its face (check with checkFacesAgainstSystem
+ * and checkOpeningsAgainstFaces, or use runEstimate / runEstimateFromCsv, which return errors instead).
  */
-export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
+export function estimate(schedule: Schedule, system: RoofSystem, openings: readonly Opening[] = []): EngineResult {
   const problems = checkFacesAgainstSystem(schedule, system);
+  if (openings.length > 0) {
+    for (const p of checkOpeningsAgainstFaces(openings, schedule)) problems.push({ row: p.index + 1, column: p.column, message: p.message });
+  }
   if (problems.length > 0) throw new ScheduleRejectedError(problems);
+  const openingsOf = openings.length > 0 ? openingsByFace(openings) : null;
 
   const warnings: EngineWarning[] = [];
   const tally = new PieceTally(system.batten.stock_length_mm);
@@ -287,8 +447,8 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
     joints: new JointScratch(),
     setOut: { headlap_mm: 0, max_gauge_mm: 0, gauge_mm: 0, gauges: 0, courses: 0, first_batten_mm: 0, top_batten_mm: 0, tiny: false, eaves_course: false },
     battens: { batten_mm: 0, crossings: 0, joints: 0, stagger_relaxed: 0, forced_short: 0 },
-    course: { whole: 0, halves: 0, cut: 0, perimeter: 0 },
-    brokenCourse: { whole: 0, halves: 0, cut: 0, perimeter: 0 },
+    course: { whole: 0, halves: 0, cut: 0, perimeter: 0, tah: 0 },
+    brokenCourse: { whole: 0, halves: 0, cut: 0, perimeter: 0, tah: 0 },
     rowPositions: [],
     supportsByRow: [],
     plan_m2: 0,
@@ -297,15 +457,38 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
     tile_nails: 0,
     inset: { left: 0, right: 0 },
     clips: clipRule(system),
+    pieces: { whole: 0, halves: 0, cut: 0, eaves: 0, top: 0, tah: 0 },
+    counts: { whole: 0, cut: 0, removed: 0, batten_mm: 0, area_mm2: 0 },
+    net_slope_m2: 0,
+    openings_m2: 0,
+    flashings: { side: 0, top: 0, apron: 0, back: 0 },
+    roof_windows: 0,
+    hatches: 0,
   };
   const faces: FaceResult[] = [];
   const byBuilding = new Map<string, { edges: BuildingEdgeTally; ridgeFaces: number[] }>();
+  const dryVerges = system.verge.kind === 'dry';
+  const troughValleys = system.valley.kind === 'trough';
+  const troughCover = system.valley.unit_length_mm - system.valley.lap_mm;
 
   let slope = 0;
   let plan = 0;
   let tiles = 0;
   let halfTiles = 0;
   let cutTiles = 0;
+  let eavesTiles = 0;
+  let topTiles = 0;
+  let tahTiles = 0;
+  let openingsArea = 0;
+  let roofWindows = 0;
+  let hatches = 0;
+  const flashMm = { side: 0, top: 0, apron: 0, back: 0 };
+  let vergeMm = 0;
+  let eavesMm = 0;
+  let dryVergeUnits = 0;
+  let capEnds = 0; // ridge ends at a verge, each counted by both faces of a ridge (halved at the end)
+  let hipEdges = 0;
+  let valleyUnitEdges = 0;
   let battenM = 0;
   let battenNailCount = 0;
   let tileNailCount = 0;
@@ -313,19 +496,45 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
 
   for (let i = 0; i < schedule.length; i++) {
     const face = schedule[i];
-    const f = computeFace(face, system, tally, warnings, scratch);
+    const f = computeFace(face, system, tally, warnings, scratch, openingsOf?.get(faceKey(face.building, face.face)));
     const q = face.quantity;
     faces.push(f);
     // Totals come from the unrounded areas and lengths, so rounding a face never shifts the job.
-    slope += slopeAreaM2(face) * q;
+    slope += scratch.net_slope_m2 * q;
     plan += scratch.plan_m2 * q;
     tiles += f.tiles * q;
     halfTiles += f.half_tiles * q;
     cutTiles += f.cut_tiles * q;
+    eavesTiles += f.eaves_tiles * q;
+    topTiles += f.top_tiles * q;
+    tahTiles += f.tile_and_half * q;
+    openingsArea += scratch.openings_m2 * q;
+    roofWindows += scratch.roof_windows * q;
+    hatches += scratch.hatches * q;
+    flashMm.side += scratch.flashings.side * q;
+    flashMm.top += scratch.flashings.top * q;
+    flashMm.apron += scratch.flashings.apron * q;
+    flashMm.back += scratch.flashings.back * q;
     battenM += (scratch.batten_mm / 1000) * q;
     battenNailCount += scratch.batten_nails * q;
     tileNailCount += scratch.tile_nails * q;
     clipCount += f.clips * q;
+
+    // Fittings: a verge is square to the eaves, so its raking length is the rafter.
+    const vergeEdges = (face.left === 'verge' ? 1 : 0) + (face.right === 'verge' ? 1 : 0);
+    vergeMm += vergeEdges * face.rafter_mm * q;
+    eavesMm += face.eaves_mm * q;
+    if (dryVerges) {
+      dryVergeUnits += f.courses * vergeEdges * q;
+      // Both faces of a ridge see each of its ends; a mono ridge's ends are its face's alone.
+      if (face.top === 'ridge') capEnds += vergeEdges * q;
+      else if (face.top === 'mono_ridge') capEnds += 2 * vergeEdges * q;
+    }
+    hipEdges += ((face.left === 'hip' ? 1 : 0) + (face.right === 'hip' ? 1 : 0)) * q;
+    if (troughValleys) {
+      if (face.left === 'valley') valleyUnitEdges += Math.ceil(rakingEdgeLength(face.rafter_mm, scratch.inset.left) / troughCover - 1e-9) * q;
+      if (face.right === 'valley') valleyUnitEdges += Math.ceil(rakingEdgeLength(face.rafter_mm, scratch.inset.right) / troughCover - 1e-9) * q;
+    }
 
     let b = byBuilding.get(face.building);
     if (!b) {
@@ -333,7 +542,7 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
       byBuilding.set(face.building, b);
     }
     b.edges.addFace(q, face.rafter_mm, face.top_mm, face.top, face.left, face.right, scratch.inset.left, scratch.inset.right);
-    if (face.top === 'ridge') b.ridgeFaces.push(i);
+    if (face.top === 'ridge' || (face.top === 'mono_ridge' && face.ridge !== undefined)) b.ridgeFaces.push(i);
   }
 
   let ridgeMm = 0;
@@ -342,6 +551,18 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
   let ridgeTiles = 0;
   let hipTiles = 0;
   const ridges: RidgeBalance[] = [];
+  const checkBalance = (building: string, ridge: RidgeBalance) => {
+    const heavier = Math.max(...ridge.load_kg);
+    if (heavier > 0 && ridge.difference_kg > RIDGE_BALANCE_TOLERANCE * heavier) {
+      const named = ridge.ridge === null ? '' : `ridge ${ridge.ridge}: `;
+      warnBuilding(
+        warnings,
+        building,
+        'uneven_ridge_load',
+        `${named}faces ${ridge.faces.join(', ')} carry ${ridge.load_kg.join(', ')} kg: load the slopes in step and finish the lighter one early, so the roof is never loaded on one side`,
+      );
+    }
+  };
   for (const [building, b] of byBuilding) {
     const edges = b.edges.finish(system.ridge.cover_mm, system.hip.cover_mm);
     ridgeMm += edges.ridge_mm;
@@ -363,22 +584,46 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
         'faces of this building have different quantities: ridge and hip tiles are rounded up for each group of faces with the same quantity; check that both slopes of each ridge have the same quantity',
       );
     }
-    const sides: RidgeSide[] = [];
+    // Faces naming their ridge are grouped by the name (without case); the others are paired by top length.
+    const named = new Map<string, { name: string; sides: RidgeSide[]; mono: boolean }>();
+    const guessed: RidgeSide[] = [];
     for (const i of b.ridgeFaces) {
-      sides.push({ building, face: schedule[i].face, top_mm: schedule[i].top_mm, load_kg: faces[i].load_kg });
+      const face = schedule[i];
+      const side: RidgeSide = { building, face: face.face, top_mm: face.top_mm, load_kg: faces[i].load_kg };
+      if (face.ridge === undefined) {
+        guessed.push(side);
+        continue;
+      }
+      const key = face.ridge.trim().toLowerCase();
+      const group = named.get(key);
+      if (group) group.sides.push(side);
+      else named.set(key, { name: face.ridge.trim(), sides: [side], mono: face.top === 'mono_ridge' });
     }
-    const paired = pairRidgeFaces(sides);
+    for (const { name, sides, mono } of named.values()) {
+      const ridge = namedRidge(building, name, sides);
+      ridges.push(ridge);
+      if (sides.length === 1 && sides[0].top_mm > 0 && !mono) {
+        warnings.push({
+          code: 'unpaired_ridge_face',
+          building,
+          face: sides[0].face,
+          message: `no other face names ridge ${name}: the ridge is counted at half this face's top edge; check the schedule`,
+        });
+      }
+      checkBalance(building, ridge);
+    }
+    if (guessed.length > 0) {
+      warnBuilding(
+        warnings,
+        building,
+        'ridge_grouping_guessed',
+        `${guessed.length} face(s) meeting a ridge name no ridge: they were paired by equal top length, which can hide an uneven load; give the ridge column`,
+      );
+    }
+    const paired = pairRidgeFaces(guessed);
     for (const pair of paired.pairs) {
       ridges.push(pair);
-      const heavier = Math.max(pair.load_kg[0], pair.load_kg[1]);
-      if (heavier > 0 && pair.difference_kg > RIDGE_BALANCE_TOLERANCE * heavier) {
-        warnBuilding(
-          warnings,
-          building,
-          'uneven_ridge_load',
-          `faces ${pair.faces[0]} and ${pair.faces[1]} carry ${pair.load_kg[0]} and ${pair.load_kg[1]} kg: load the two slopes in step and finish the lighter one early, so the roof is never loaded on one side`,
-        );
-      }
+      checkBalance(building, pair);
     }
     for (const side of paired.unpaired) {
       if (side.top_mm === 0) continue; // a lone hip end touches the ridge at one point only
@@ -393,34 +638,56 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
 
   const waste = system.waste_pct;
   const tilesOrder = orderQuantity(tiles, waste.tiles);
+  const eavesOrder = orderQuantity(eavesTiles, waste.tiles);
+  const topOrder = orderQuantity(topTiles, waste.tiles);
+  const tahOrder = orderQuantity(tahTiles, waste.tiles);
   const stock = planStockLengths(tally, system.batten.stock_length_mm);
-  const battenLengths = orderQuantity(stock.lengths, waste.battens);
+  // Waste on the net metres first, then one rounding; never fewer than the cutting plan needs.
+  const battenLengths = Math.max(stock.lengths, orderQuantity((battenM * 1000) / system.batten.stock_length_mm, waste.battens));
   const perRollM2 = ((system.underlay.roll_width_mm - system.underlay.head_lap_mm) * system.underlay.roll_length_mm) / 1e6;
-  const underlayNet = slope > 0 ? Math.ceil(slope / perRollM2 - 1e-9) : 0;
-  const underlayRolls = orderQuantity(underlayNet, waste.underlay);
+  const underlayRolls = orderQuantity(slope / perRollM2, waste.underlay);
   const ridgeOrder = orderQuantity(ridgeTiles, waste.ridge_hip);
   const hipOrder = orderQuantity(hipTiles, waste.ridge_hip);
+  const ridgeEndCaps = Math.ceil(capEnds / 2);
+  const hipIrons = Math.ceil(hipEdges / 2);
+  const valleyUnits = Math.ceil(valleyUnitEdges / 2);
 
   const delivery = planDelivery(
     {
       tilesOrdered: tilesOrder,
       faces,
+      withTiles: [
+        { item: 'eaves_tiles', quantity: eavesOrder, unit_kg: system.tile.eaves_tile_kg },
+        { item: 'top_tiles', quantity: topOrder, unit_kg: system.tile.top_tile_kg },
+        { item: 'tile_and_half', quantity: tahOrder, unit_kg: system.tile.tile_and_half_kg },
+      ],
       firstOff: [
         { item: 'underlay_rolls', quantity: underlayRolls, unit_kg: system.underlay.roll_kg },
         { item: 'battens', quantity: battenLengths, unit_kg: (system.batten.kg_per_m * system.batten.stock_length_mm) / 1000 },
         { item: 'batten_nails', quantity: battenNailCount, unit_kg: system.fixing.batten_nail_g / 1000 },
         { item: 'tile_nails', quantity: tileNailCount, unit_kg: system.fixing.tile_nail_g / 1000 },
         { item: 'clips', quantity: clipCount, unit_kg: system.fixing.clip_g / 1000 },
+        { item: 'valley_units', quantity: valleyUnits, unit_kg: system.valley.unit_kg },
+        { item: 'hip_irons', quantity: hipIrons, unit_kg: system.hip.iron_kg },
+        { item: 'dry_verge_units', quantity: dryVergeUnits, unit_kg: system.verge.unit_kg },
       ],
       lastOff: [
         { item: 'ridge_tiles', quantity: ridgeOrder, unit_kg: system.ridge.weight_kg },
         { item: 'hip_tiles', quantity: hipOrder, unit_kg: system.hip.weight_kg },
+        { item: 'ridge_end_caps', quantity: ridgeEndCaps, unit_kg: system.verge.end_cap_kg },
       ],
     },
     system,
     MAX_DELIVERY_PALLETS,
   );
   for (const issue of delivery.issues) warnings.push({ code: issue.code, building: null, face: null, message: issue.message });
+
+  const flashings: Flashings = {
+    side_abutment_m: r2(flashMm.side / 1000),
+    top_abutment_m: r2(flashMm.top / 1000),
+    apron_m: r2(flashMm.apron / 1000),
+    back_gutter_m: r2(flashMm.back / 1000),
+  };
 
   return {
     engine_version: ENGINE_VERSION,
@@ -445,6 +712,22 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
       underlay_rolls: underlayRolls,
       pallets: delivery.tile_pallets,
       weight_kg: r1(delivery.weight_kg),
+      eaves_tiles: eavesTiles,
+      top_tiles: topTiles,
+      tile_and_half: tahTiles,
+      eaves_tiles_order: eavesOrder,
+      top_tiles_order: topOrder,
+      tile_and_half_order: tahOrder,
+      openings_area_m2: r2(openingsArea),
+      roof_windows: roofWindows,
+      hatches,
+      flashings,
+      verge_m: r2(vergeMm / 1000),
+      eaves_m: r2(eavesMm / 1000),
+      dry_verge_units: dryVergeUnits,
+      ridge_end_caps: ridgeEndCaps,
+      hip_irons: hipIrons,
+      valley_units: valleyUnits,
     },
     pallets: delivery.pallets,
     loads: delivery.loads,
@@ -453,6 +736,7 @@ export function estimate(schedule: Schedule, system: RoofSystem): EngineResult {
     cautions: SAFETY_CAUTIONS,
   };
 }
+
 
 /** One face in full, for a drawing of its battens, joints, stacks and chalk lines. */
 export interface FaceDetail {
@@ -467,10 +751,11 @@ export interface FaceDetail {
  * Everything about one face that the job result leaves out to stay small: each batten row's pieces and
  * joints, and the stacks on each loading batten. Same rules and figures as estimate() (mm, kg).
  */
-export function faceDetail(face: Face, system: RoofSystem): FaceDetail {
+export function faceDetail(face: Face, system: RoofSystem, openings: readonly Opening[] = []): FaceDetail {
   const problems = checkFacesAgainstSystem([face], system);
   if (problems.length > 0) throw new ScheduleRejectedError(problems);
-  const result = estimate([face], system).faces[0];
+  const key = faceKey(face.building, face.face);
+  const result = estimate([face], system, openings.filter((o) => faceKey(o.building, o.face) === key)).faces[0];
   const setOut = setOutCourses(face.rafter_mm, face.pitch_deg, system) as CourseSetOut;
   const plan = planFaceBattens(face, insets(face), setOut, system, null, 1, true);
   const rows = plan.rows ?? [];
@@ -479,7 +764,7 @@ export function faceDetail(face: Face, system: RoofSystem): FaceDetail {
     const row = rows.find((b) => b.y_mm === rowHeight(setOut, r));
     return row ? row.supports : 0;
   });
-  const placed = planFaceLoading(result.tiles, positions, system.roof_loading.stack_size);
+  const placed = planFaceLoading(result.tiles + result.eaves_tiles + result.top_tiles + result.tile_and_half, positions, system.roof_loading.stack_size);
   return {
     face: result,
     battens: rows,
@@ -498,28 +783,55 @@ function withParseWarnings(result: EngineResult, parseWarnings: readonly Schedul
 
 /**
  * The whole pipeline from CSV text: read the roof system (partial → full, errors naming the field),
- * read and check the schedule (errors naming row and column, every problem at once), estimate. A
- * rejected input gives errors and no result.
+ * read and check the schedule (errors naming row and column, every problem at once), read the
+ * openings file when there is one (its errors marked `file: 'openings'`), estimate. A rejected input
+ * gives errors and no result.
  */
-export function runEstimateFromCsv(csvText: string, systemInput?: RoofSystemInput | unknown): RunOutcome {
+export function runEstimateFromCsv(csvText: string, systemInput?: RoofSystemInput | unknown, openingsCsv?: string): RunOutcome {
   const sys = parseRoofSystem(systemInput ?? {});
   const parsed = parseScheduleCsv(csvText, sys.ok ? sys.system : undefined);
   const errors: InputProblem[] = [];
   if (!sys.ok) errors.push(...sys.errors);
   if (!parsed.ok) errors.push(...parsed.errors);
+  let openings: Opening[] = [];
+  const openingWarnings: ScheduleWarning[] = [];
+  if (openingsCsv !== undefined) {
+    const o = parseOpeningsCsv(openingsCsv, parsed.ok ? parsed.faces : undefined);
+    if (!o.ok) errors.push(...o.errors.map((p) => ({ ...p, file: 'openings' as const })));
+    else {
+      openings = o.openings;
+      openingWarnings.push(...o.warnings);
+    }
+  }
   if (errors.length > 0 || !sys.ok || !parsed.ok) return { ok: false, errors };
-  return { ok: true, result: withParseWarnings(estimate(parsed.faces, sys.system), parsed.warnings) };
+  return { ok: true, result: withParseWarnings(estimate(parsed.faces, sys.system, openings), [...parsed.warnings, ...openingWarnings]) };
 }
 
 /**
  * The whole pipeline from a JSON schedule (an array of rows as scheduleRowSchema describes). Errors
  * give the entry number (from 1) as row, and the column.
  */
-export function runEstimate(rows: unknown, systemInput?: RoofSystemInput | unknown): RunOutcome {
+export function runEstimate(rows: unknown, systemInput?: RoofSystemInput | unknown, openingRows: unknown = []): RunOutcome {
   const sys = parseRoofSystem(systemInput ?? {});
   const errors: InputProblem[] = [];
   if (!sys.ok) errors.push(...sys.errors);
   const parsed = scheduleSchema.safeParse(rows);
+  const openings = openingsSchema.safeParse(openingRows);
+  if (!openings.success) {
+    for (const issue of openings.error.issues) {
+      const [index, column] = issue.path;
+      errors.push({
+        file: 'openings',
+        ...(typeof index === 'number' ? { row: index + 1 } : {}),
+        ...(typeof column === 'string' ? { column } : {}),
+        message: issue.message,
+      });
+    }
+  } else if (parsed.success) {
+    for (const p of checkOpeningsAgainstFaces(openings.data, parsed.data)) {
+      errors.push({ file: 'openings', row: p.index + 1, column: p.column, message: p.message });
+    }
+  }
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       const [index, column] = issue.path;
@@ -532,13 +844,14 @@ export function runEstimate(rows: unknown, systemInput?: RoofSystemInput | unkno
   } else if (sys.ok) {
     errors.push(...checkFacesAgainstSystem(parsed.data, sys.system));
   }
-  if (errors.length > 0 || !sys.ok || !parsed.success) return { ok: false, errors };
-  return { ok: true, result: estimate(parsed.data, sys.system) };
+  if (errors.length > 0 || !sys.ok || !parsed.success || !openings.success) return { ok: false, errors };
+  return { ok: true, result: estimate(parsed.data, sys.system, openings.data) };
 }
 
 /** One line per problem, as the CLI and logs print it: `row 3, column eaves_mm: must be …`. */
 export function formatProblem(p: InputProblem): string {
   const where: string[] = [];
+  if (p.file === 'openings') where.push('openings file');
   if (p.row !== undefined) where.push(`row ${p.row}`);
   if (p.column !== undefined) where.push(`column ${p.column}`);
   if (p.field !== undefined) where.push(`system field ${p.field}`);

@@ -6,7 +6,7 @@ import { estimate } from './estimate';
 import { insets } from './geometry';
 import { battenNails, nailedPieces } from './fixings';
 
-const course = { whole: 10, halves: 2, cut: 1, perimeter: 3 };
+const course = { whole: 10, halves: 2, cut: 1, perimeter: 3, tah: 0 };
 
 describe('batten nails', () => {
   it('puts one nail at every rafter crossing and one more at each joint', () => {
@@ -43,7 +43,7 @@ describe('tile nails', () => {
 
   it('in the other courses nails only the perimeter pieces: verge tiles and cuts at hips and valleys (BS 5534:2014 as summarised by a roofing consultant, secondary: perimeter tiles fixed)', () => {
     expect(nailedPieces('perimeter_and_alternate_courses', course, 2, 10)).toBe(3);
-    expect(nailedPieces('perimeter_and_alternate_courses', { whole: 1, halves: 0, cut: 0, perimeter: 2 }, 2, 10)).toBe(1);
+    expect(nailedPieces('perimeter_and_alternate_courses', { whole: 1, halves: 0, cut: 0, perimeter: 2, tah: 0 }, 2, 10)).toBe(1);
   });
 
   it('counts nails_per_tile for each nailed piece and warns about the perimeter rule at 45° and above (BS 5534:2014 as summarised, secondary: one nail a tile from 45°)', () => {

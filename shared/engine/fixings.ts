@@ -11,13 +11,13 @@ export function battenNails(crossings: number, joints: number): number {
 }
 
 /**
- * Pieces nailed in one course (multiply by nails per tile). every_tile: every piece laid, whole, half
- * or cut. perimeter_and_alternate_courses: every piece of the eaves course, the top course and every
+ * Pieces nailed in one course (multiply by nails per tile). every_tile: every piece laid, whole, half,
+ * tile-and-a-half or cut. perimeter_and_alternate_courses: every piece of the eaves course, the top course and every
  * second course (the second, fourth… from the eaves); in the other courses the verge pieces and the
  * cut pieces at hips, valleys and abutments, which are perimeter tiles too.
  */
 export function nailedPieces(rule: FixingRule, course: CoursePieces, courseIndex: number, courses: number): number {
-  const all = course.whole + course.halves + course.cut;
+  const all = course.whole + course.halves + course.cut + course.tah;
   if (rule === 'every_tile') return all;
   if (courseIndex === 0 || courseIndex === courses - 1 || courseIndex % 2 === 1) return all;
   return Math.min(all, course.perimeter);

@@ -83,7 +83,7 @@ describe('roof loading', () => {
 
   it('loads the roof evenly on both sides: both slopes of a ridge are paired and their difference reported (common practice)', () => {
     const r = estimate([gable('Front', 9_000, 5_091), gable('Back', 9_000, 5_091)], sys);
-    expect(r.ridges).toEqual([{ building: 'A', faces: ['Front', 'Back'], load_kg: [r.faces[0].load_kg, r.faces[1].load_kg], difference_kg: 0 }]);
+    expect(r.ridges).toEqual([{ building: 'A', ridge: null, faces: ['Front', 'Back'], load_kg: [r.faces[0].load_kg, r.faces[1].load_kg], difference_kg: 0 }]);
     // A steeper back slope of the same ridge carries more tiles: the difference is reported and warned.
     const uneven = estimate([gable('Front', 9_000, 3_000, 30), gable('Back', 9_000, 5_091)], sys);
     expect(uneven.ridges[0].difference_kg).toBeCloseTo(Math.abs(uneven.faces[1].load_kg - uneven.faces[0].load_kg), 1);

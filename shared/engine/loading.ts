@@ -71,8 +71,15 @@ export interface RidgeSide {
 
 export interface RidgeBalance {
   building: string;
-  faces: [string, string];
-  load_kg: [number, number];
+  /** The ridge's name from the schedule; null when the faces were paired by their top length. */
+  ridge: string | null;
+  /** Faces meeting at the ridge, in schedule order (two when paired by top length). */
+  faces: string[];
+  load_kg: number[];
+  /**
+   * Heaviest less lightest slope (faces with a top edge); hip ends (top 0) are compared with each
+   * other, and the larger of the two differences is given.
+   */
   difference_kg: number;
 }
 
@@ -112,10 +119,41 @@ export function pairRidgeFaces(sides: readonly RidgeSide[]): { pairs: RidgeBalan
     const side = sides[j];
     pairs.push({
       building: side.building,
+      ridge: null,
       faces: [other.face, side.face],
       load_kg: [other.load_kg, side.load_kg],
       difference_kg: Math.round(Math.abs(other.load_kg - side.load_kg) * 10) / 10,
     });
   }
   return { pairs, unpaired };
+}
+
+function spread(loads: readonly number[]): number {
+  if (loads.length < 2) return 0;
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of loads) {
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  return hi - lo;
+}
+
+/**
+ * One named ridge of a building: every face that meets it, in schedule order. Its load difference is
+ * the heaviest less the lightest of its slopes (faces with a top edge); its hip ends (top 0), which
+ * meet it at a point, are compared with each other; the larger difference is given, kg to 0.1.
+ */
+export function namedRidge(building: string, ridge: string, sides: readonly RidgeSide[]): RidgeBalance {
+  const slopes: number[] = [];
+  const ends: number[] = [];
+  for (const s of sides) (s.top_mm > 0 ? slopes : ends).push(s.load_kg);
+  const difference = Math.max(spread(slopes), spread(ends));
+  return {
+    building,
+    ridge,
+    faces: sides.map((s) => s.face),
+    load_kg: sides.map((s) => s.load_kg),
+    difference_kg: Math.round(difference * 10) / 10,
+  };
 }

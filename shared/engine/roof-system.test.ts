@@ -21,6 +21,10 @@ describe('reading a roof system', () => {
       weight_kg: 1.1,
       per_pallet: 1000,
       nails_per_tile: 2,
+      // Left out, an eaves or top tile weighs as a full tile and a tile-and-a-half as 1.5 (common practice, no source).
+      eaves_tile_kg: 1.1,
+      top_tile_kg: 1.1,
+      tile_and_half_kg: 1.5 * 1.1,
     });
     expect(tileOnly.system.batten.stock_length_mm).toBe(4_800);
   });

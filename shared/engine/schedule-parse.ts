@@ -22,7 +22,7 @@ import { lowestPitch } from './courses';
 import type { InputProblem } from './result';
 
 export interface ScheduleWarning {
-  code: 'unknown_column';
+  code: 'unknown_column' | 'ridge_grouping_guessed';
   building: null;
   face: null;
   message: string;
@@ -183,7 +183,7 @@ class RowReader {
     return i < 0 ? '' : (this.cells[i] ?? '');
   }
 
-  text(c: 'face' | 'building', i: number, fallback: string | null): string {
+  text(c: 'face' | 'building' | 'ridge', i: number, fallback: string | null): string {
     const v = this.at(i).trim();
     if (v === '') {
       if (fallback === null && i >= 0) this.bad(c, SCHEDULE_MESSAGES.required);
@@ -285,6 +285,7 @@ class ScheduleReader {
     left: 'verge',
     right: 'verge',
     top: 'ridge',
+    ridge: undefined,
   };
   /** Rows of the file consumed so far (the header included). */
   private rowsBefore = 0;
@@ -394,6 +395,7 @@ class ScheduleReader {
     const left = reader.edge('left', col.left);
     const right = reader.edge('right', col.right);
     const topKind = reader.topEdge(col.top);
+    const ridgeName = col.ridge >= 0 ? reader.text('ridge', col.ridge, '') : '';
 
     if (faceName !== '') {
       const bKey = building.toLowerCase();
@@ -427,6 +429,7 @@ class ScheduleReader {
     candidate.left = left;
     candidate.right = right;
     candidate.top = topKind;
+    candidate.ridge = ridgeName === '' ? undefined : ridgeName;
     const cross = crossCheckFace(candidate);
     if (cross.length > 0) {
       for (const p of cross) errors.push({ row, column: p.column, message: p.message });

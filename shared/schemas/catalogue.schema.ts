@@ -9,6 +9,9 @@ import { roofSystemSchema } from './roof-system.schema';
 
 export const PRODUCT_CATEGORIES = [
   'tile',
+  'eaves_tile',
+  'top_tile',
+  'tile_and_half',
   'ridge',
   'hip',
   'batten',
@@ -17,6 +20,10 @@ export const PRODUCT_CATEGORIES = [
   'clip',
   'underlay',
   'valley',
+  'valley_trough',
+  'dry_verge',
+  'ridge_end_cap',
+  'hip_iron',
   'accessory',
 ] as const;
 export type ProductCategory = (typeof PRODUCT_CATEGORIES)[number];
@@ -24,6 +31,9 @@ export type ProductCategory = (typeof PRODUCT_CATEGORIES)[number];
 /** Words shown for each category, in the order a bill of materials lists them. */
 export const CATEGORY_LABELS: Record<ProductCategory, string> = {
   tile: 'Tiles',
+  eaves_tile: 'Eaves tiles',
+  top_tile: 'Top tiles',
+  tile_and_half: 'Tile-and-a-half',
   ridge: 'Ridge',
   hip: 'Hip',
   batten: 'Battens',
@@ -32,11 +42,36 @@ export const CATEGORY_LABELS: Record<ProductCategory, string> = {
   clip: 'Clips',
   underlay: 'Underlay',
   valley: 'Valley lining',
+  valley_trough: 'Valley troughs',
+  dry_verge: 'Dry verge units',
+  ridge_end_cap: 'Ridge end caps',
+  hip_iron: 'Hip irons',
   accessory: 'Accessories',
 };
 
-/** The parts of a roof system; every role but hip, clip and valley is needed for a whole roof. */
-export const SYSTEM_ROLES = ['tile', 'ridge', 'hip', 'batten', 'batten_nail', 'tile_nail', 'clip', 'underlay', 'valley'] as const;
+/**
+ * The parts of a roof system; every role but hip, clip, valley and the fittings is needed for a whole
+ * roof. A system with a dry verge product has dry verges; one with a valley trough has trough valleys;
+ * eaves tiles, top tiles and tiles-and-a-half are priced as their own products when the system names them.
+ */
+export const SYSTEM_ROLES = [
+  'tile',
+  'eaves_tile',
+  'top_tile',
+  'tile_and_half',
+  'ridge',
+  'hip',
+  'batten',
+  'batten_nail',
+  'tile_nail',
+  'clip',
+  'underlay',
+  'valley',
+  'valley_trough',
+  'dry_verge',
+  'ridge_end_cap',
+  'hip_iron',
+] as const;
 export type SystemRole = (typeof SYSTEM_ROLES)[number];
 export const REQUIRED_SYSTEM_ROLES: readonly SystemRole[] = ['tile', 'ridge', 'batten', 'batten_nail', 'tile_nail', 'underlay'];
 
@@ -57,6 +92,10 @@ export const clipTechnicalSchema = z.object({ clip_g: positive() });
 export const underlayTechnicalSchema = z.object({ roll_width_mm: positive(), roll_length_mm: positive(), roll_kg: positive() });
 /** A valley lining is sold in lengths: its unit is the metre and its pack_size the metres in one length. */
 export const valleyTechnicalSchema = z.object({ weight_kg: positive() });
+/** A piece sold by the count whose weight the engine needs (special tiles, fittings). */
+export const pieceTechnicalSchema = z.object({ weight_kg: positive() });
+/** A preformed valley trough unit: its length and the lap onto the next. */
+export const valleyTroughTechnicalSchema = z.object({ unit_length_mm: positive(), lap_mm: z.number().min(0), weight_kg: positive() });
 
 export const TECHNICAL_SCHEMAS = {
   tile: tileTechnicalSchema,
@@ -68,6 +107,13 @@ export const TECHNICAL_SCHEMAS = {
   clip: clipTechnicalSchema,
   underlay: underlayTechnicalSchema,
   valley: valleyTechnicalSchema,
+  eaves_tile: pieceTechnicalSchema,
+  top_tile: pieceTechnicalSchema,
+  tile_and_half: pieceTechnicalSchema,
+  valley_trough: valleyTroughTechnicalSchema,
+  dry_verge: pieceTechnicalSchema,
+  ridge_end_cap: pieceTechnicalSchema,
+  hip_iron: pieceTechnicalSchema,
   accessory: z.object({}).catchall(z.unknown()),
 } satisfies Record<ProductCategory, z.ZodType>;
 

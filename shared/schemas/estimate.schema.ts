@@ -37,7 +37,25 @@ export const createEstimateBodySchema = z
 export type CreateEstimateBody = z.input<typeof createEstimateBodySchema>;
 
 /** Which engine total a line's quantity is, so the screen can say where each figure comes from. */
-export const ENGINE_FIGURES = ['tiles_order', 'ridge_tiles', 'hip_tiles', 'ridge_and_hip_tiles', 'batten_lengths', 'batten_nails', 'tile_nails', 'clips', 'underlay_rolls', 'valley_m'] as const;
+export const ENGINE_FIGURES = [
+  'tiles_order',
+  'eaves_tiles_order',
+  'top_tiles_order',
+  'tile_and_half_order',
+  'ridge_tiles',
+  'hip_tiles',
+  'ridge_and_hip_tiles',
+  'batten_lengths',
+  'batten_nails',
+  'tile_nails',
+  'clips',
+  'underlay_rolls',
+  'valley_m',
+  'valley_units',
+  'dry_verge_units',
+  'ridge_end_caps',
+  'hip_irons',
+] as const;
 export type EngineFigure = (typeof ENGINE_FIGURES)[number];
 
 export const estimateLineSchema = z.object({

@@ -25,6 +25,8 @@ const percent = () => num().min(0, { error: 'must be 0 or more' }).max(100, { er
 export const TILE_KINDS = ['single_lap', 'double_lap'] as const;
 export const BONDS = ['broken', 'straight'] as const;
 export const FIXING_RULES = ['every_tile', 'perimeter_and_alternate_courses'] as const;
+export const VERGE_KINDS = ['mortar', 'dry'] as const;
+export const VALLEY_KINDS = ['lined', 'trough'] as const;
 
 const coverSchema = z.strictObject({ min: positive(), nominal: positive(), max: positive() });
 
@@ -47,6 +49,10 @@ const tileInputSchema = z.strictObject({
   weight_kg: positive(),
   per_pallet: wholeAtLeast(1),
   nails_per_tile: wholeAtLeast(0).optional(),
+  /** Double lap: weight of one eaves tile, top tile and tile-and-a-half; left out, a full tile, a full tile and 1.5 tiles. */
+  eaves_tile_kg: positive().optional(),
+  top_tile_kg: positive().optional(),
+  tile_and_half_kg: positive().optional(),
 });
 
 const tileSchema = tileInputSchema
@@ -59,6 +65,13 @@ const tileSchema = tileInputSchema
       });
     }
     const c = t.cover_width_mm;
+    if (t.kind === 'double_lap' && t.bond === 'straight') {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['bond'],
+        message: 'a double-lap tile or slate is always laid broken bond (a tile-and-a-half at the verges): leave bond out or give broken',
+      });
+    }
     if (c && !(c.min <= c.nominal && c.nominal <= c.max)) {
       ctx.addIssue({ code: 'custom', path: ['cover_width_mm'], message: 'must have min ≤ nominal ≤ max' });
     }
@@ -92,6 +105,9 @@ const tileSchema = tileInputSchema
       weight_kg: t.weight_kg,
       per_pallet: t.per_pallet,
       nails_per_tile: t.nails_per_tile ?? kindDefaults.nails_per_tile,
+      eaves_tile_kg: t.eaves_tile_kg ?? t.weight_kg,
+      top_tile_kg: t.top_tile_kg ?? t.weight_kg,
+      tile_and_half_kg: t.tile_and_half_kg ?? 1.5 * t.weight_kg,
     };
   });
 
@@ -128,8 +144,28 @@ export const roofSystemSchema = z
       .strictObject({ cover_mm: positive().default(d.ridge.cover_mm), weight_kg: nonNegative().default(d.ridge.weight_kg) })
       .prefault({}),
     hip: z
-      .strictObject({ cover_mm: positive().default(d.hip.cover_mm), weight_kg: nonNegative().default(d.hip.weight_kg) })
+      .strictObject({
+        cover_mm: positive().default(d.hip.cover_mm),
+        weight_kg: nonNegative().default(d.hip.weight_kg),
+        iron_kg: nonNegative().default(d.hip.iron_kg),
+      })
       .prefault({}),
+    verge: z
+      .strictObject({
+        kind: z.enum(VERGE_KINDS, { error: 'must be mortar or dry' }).default(d.verge.kind),
+        unit_kg: nonNegative().default(d.verge.unit_kg),
+        end_cap_kg: nonNegative().default(d.verge.end_cap_kg),
+      })
+      .prefault({}),
+    valley: z
+      .strictObject({
+        kind: z.enum(VALLEY_KINDS, { error: 'must be lined or trough' }).default(d.valley.kind),
+        unit_length_mm: positive().default(d.valley.unit_length_mm),
+        lap_mm: nonNegative().default(d.valley.lap_mm),
+        unit_kg: nonNegative().default(d.valley.unit_kg),
+      })
+      .prefault({})
+      .refine((v) => v.lap_mm < v.unit_length_mm, { error: 'lap_mm must be less than unit_length_mm', path: ['lap_mm'] }),
     underlay: z
       .strictObject({
         roll_width_mm: positive().default(d.underlay.roll_width_mm),
@@ -208,6 +244,13 @@ export const roofSystemSchema = z
         code: 'custom',
         path: ['batten', 'stock_length_mm'],
         message: `must be at least the minimum batten length (${s.batten.min_length_mm} mm)`,
+      });
+    }
+    if (s.truck.max_pallet_kg < s.truck.pallet_tare_kg + s.tile.weight_kg) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['truck', 'max_pallet_kg'],
+        message: `must be at least the empty pallet (pallet_tare_kg, ${s.truck.pallet_tare_kg} kg) and one tile (${s.tile.weight_kg} kg): a lighter limit leaves a pallet that cannot hold a tile`,
       });
     }
     if (s.setting_out.first_batten_mm === undefined && s.setting_out.eaves_overhang_mm >= s.tile.length_mm) {

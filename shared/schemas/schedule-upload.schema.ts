@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { OPENING_KINDS } from './openings.schema';
 import { EDGE_KINDS, SCHEDULE_LIMITS, TOP_KINDS } from './schedule.schema';
 
 /**
@@ -16,12 +17,19 @@ export const SCHEDULE_CONTENT_TYPES = ['text/csv', 'application/csv', 'text/plai
 
 export const SCHEDULE_SOURCES = ['csv', 'form'] as const;
 
-/** Faces typed or edited by hand: the whole list, each row as scheduleRowSchema reads it. */
+/** Openings in one schedule version: far more than any real development needs. */
+export const MAX_SCHEDULE_OPENINGS = 5000;
+
+/**
+ * Faces typed or edited by hand: the whole list, each row as scheduleRowSchema reads it, and the
+ * openings in them, each as openingRowSchema reads it (left out: none).
+ */
 export const putFacesBodySchema = z.object({
   faces: z
     .array(z.unknown())
     .min(1, { error: 'the schedule has no faces' })
     .max(MAX_SCHEDULE_FACES, { error: `at most ${MAX_SCHEDULE_FACES} faces` }),
+  openings: z.array(z.unknown()).max(MAX_SCHEDULE_OPENINGS, { error: `at most ${MAX_SCHEDULE_OPENINGS} openings` }).optional(),
 });
 
 export const storedFaceSchema = z.object({
@@ -39,8 +47,24 @@ export const storedFaceSchema = z.object({
   left: z.enum(EDGE_KINDS),
   right: z.enum(EDGE_KINDS),
   top: z.enum(TOP_KINDS),
+  /** The ridge line the top edge meets; null when not named. */
+  ridge: z.string().nullable(),
+  /** True for a face saved before top_mm was required beside a hip or valley: its top was taken as the eaves. */
+  top_assumed: z.boolean(),
 });
 export type StoredFace = z.infer<typeof storedFaceSchema>;
+
+export const storedOpeningSchema = z.object({
+  id: z.number().int(),
+  position: z.number().int(),
+  building: z.string(),
+  face: z.string(),
+  kind: z.enum(OPENING_KINDS),
+  width_mm: z.number(),
+  height_mm: z.number(),
+  quantity: z.number().int(),
+});
+export type StoredOpening = z.infer<typeof storedOpeningSchema>;
 
 export const scheduleVersionSchema = z.object({
   id: z.number().int(),
@@ -58,6 +82,7 @@ export const scheduleWarningSchema = z.object({ code: z.string(), message: z.str
 
 export const scheduleResponseSchema = scheduleVersionSchema.extend({
   faces: z.array(storedFaceSchema),
+  openings: z.array(storedOpeningSchema),
   warnings: z.array(scheduleWarningSchema),
 });
 export type ScheduleResponse = z.infer<typeof scheduleResponseSchema>;

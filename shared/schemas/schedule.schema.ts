@@ -24,6 +24,7 @@ export const SCHEDULE_COLUMNS = [
   'left',
   'right',
   'top',
+  'ridge',
 ] as const;
 export type ScheduleColumn = (typeof SCHEDULE_COLUMNS)[number];
 
@@ -50,7 +51,16 @@ export const SCHEDULE_MESSAGES = {
   quantity: `must be a whole number from 1 to ${SCHEDULE_LIMITS.maxQuantity}`,
   textTooLong: `must be at most ${SCHEDULE_LIMITS.maxTextLength} characters`,
   rafterOrRun: 'give rafter_mm or run_mm (or both)',
+  steepRun: 'give rafter_mm for faces of 80° and steeper',
+  topRequired: 'required on a face with a hip or valley edge',
+  ridgeOnAbutment: 'a face whose top is an abutment meets no ridge: leave ridge blank',
 } as const;
+
+/**
+ * From this pitch a rafter worked out from its run (run ÷ cos pitch) is too sensitive to the pitch to
+ * trust: at 80° a 1° slip moves it by about 10 %, so the rafter must be measured.
+ */
+export const STEEP_RUN_PITCH_DEG = 80;
 
 function formatNumber(v: number): string {
   return Number.isInteger(v) ? String(v) : String(Math.round(v * 1000) / 1000);
@@ -109,6 +119,8 @@ export interface FaceCandidate {
   left: EdgeKind;
   right: EdgeKind;
   top: TopKind;
+  /** Name of the ridge line the face's top edge meets, unique within its building. */
+  ridge?: string;
 }
 
 export interface FieldProblem {
@@ -118,14 +130,22 @@ export interface FieldProblem {
 
 const NO_PROBLEMS: FieldProblem[] = Object.freeze([]) as unknown as FieldProblem[];
 
+/** True when either side of the face is a hip or a valley: its top length is then not the eaves length. */
+export function hasDiagonalEdge(c: Pick<FaceCandidate, 'left' | 'right'>): boolean {
+  return c.left === 'hip' || c.left === 'valley' || c.right === 'hip' || c.right === 'valley';
+}
+
 /**
- * Checks that need several fields of one row: rafter or run present, rafter and run agreeing with
- * the pitch within 1 %, and a face between two verges being a rectangle.
+ * Checks that need several fields of one row: rafter or run present (rafter measured at 80° and
+ * steeper), rafter and run agreeing with the pitch within 1 %, a face between two verges being a
+ * rectangle, top_mm given beside a hip or valley, and a ridge named only under a ridge.
  */
 export function crossCheckFace(c: FaceCandidate): FieldProblem[] {
   let problems: FieldProblem[] = NO_PROBLEMS;
   if (c.rafter_mm === undefined && c.run_mm === undefined) {
     problems = [{ column: 'rafter_mm', message: SCHEDULE_MESSAGES.rafterOrRun }];
+  } else if (c.rafter_mm === undefined && c.pitch_deg >= STEEP_RUN_PITCH_DEG) {
+    problems = [{ column: 'run_mm', message: SCHEDULE_MESSAGES.steepRun }];
   } else if (c.rafter_mm !== undefined && c.run_mm !== undefined) {
     const fromRun = c.run_mm / Math.cos((c.pitch_deg * Math.PI) / 180);
     if (Math.abs(fromRun - c.rafter_mm) > SCHEDULE_LIMITS.rafterRunTolerance * c.rafter_mm) {
@@ -144,6 +164,14 @@ export function crossCheckFace(c: FaceCandidate): FieldProblem[] {
         message: `a face with verges on both sides is a rectangle: top_mm must equal eaves_mm (${formatNumber(c.eaves_mm)}) or be left blank`,
       });
     }
+  }
+  if (c.top_mm === undefined && hasDiagonalEdge(c)) {
+    if (problems === NO_PROBLEMS) problems = [];
+    problems.push({ column: 'top_mm', message: SCHEDULE_MESSAGES.topRequired });
+  }
+  if (c.ridge !== undefined && c.top === 'abutment') {
+    if (problems === NO_PROBLEMS) problems = [];
+    problems.push({ column: 'ridge', message: SCHEDULE_MESSAGES.ridgeOnAbutment });
   }
   return problems;
 }
@@ -166,6 +194,9 @@ export function resolveFace(c: FaceCandidate): Face {
     left: c.left,
     right: c.right,
     top: c.top,
+    ...(c.ridge === undefined ? {} : { ridge: c.ridge }),
+    // Only a stored schedule from before top_mm was required beside hips and valleys gets here without one.
+    ...(c.top_mm === undefined && !bothVerges && hasDiagonalEdge(c) ? { top_assumed: true } : {}),
   };
 }
 
@@ -219,6 +250,7 @@ export const scheduleRowSchema = z
     left: edgeField.optional().default('verge'),
     right: edgeField.optional().default('verge'),
     top: topField.optional().default('ridge'),
+    ridge: textField.optional(),
   })
   .superRefine((row, ctx) => {
     for (const p of crossCheckFace(row as FaceCandidate)) {
@@ -241,6 +273,10 @@ export const faceSchema = z.object({
   left: z.enum(EDGE_KINDS),
   right: z.enum(EDGE_KINDS),
   top: z.enum(TOP_KINDS),
+  /** The ridge line the top edge meets; faces of a building with the same name are one ridge. */
+  ridge: z.string().min(1).optional(),
+  /** Set on a stored face that has a hip or valley edge and no top_mm: top was taken as the eaves. */
+  top_assumed: z.boolean().optional(),
 });
 export type Face = z.infer<typeof faceSchema>;
 

@@ -35,6 +35,7 @@ describe('every API route declares its access rule', () => {
       [
         'GET /api/auth/csrf',
         'GET /api/dev/outbox',
+        'GET /api/examples/openings.csv',
         'GET /api/examples/roof-schedule.csv',
         'GET /api/health',
         'GET /api/invitations/:token',

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, kindOfRole } from '../../shared/domain/roles';
+import { EXAMPLE_OPENINGS_CSV } from '../../shared/engine/example-openings';
 import { EXAMPLE_SCHEDULE_CSV } from '../../shared/engine/example-schedule';
 import { parseScheduleCsv } from '../../shared/engine/schedule-parse';
 import { errorBodySchema } from '../../shared/schemas/error.schema';
@@ -79,7 +80,9 @@ describe('importing a schedule as CSV', () => {
     // The stored faces are exactly what the shared parser reads from the same file.
     const parsed = parseScheduleCsv(EXAMPLE_SCHEDULE_CSV);
     if (!parsed.ok) throw new Error('example does not parse');
-    expect(s.faces.map(({ id: _i, position: _p, ...f }) => f)).toEqual(parsed.faces);
+    expect(s.faces.map(({ id: _i, position: _p, top_assumed: _t, ridge, ...f }) => (ridge === null ? f : { ...f, ridge }))).toEqual(parsed.faces);
+    expect(s.faces[0]).toMatchObject({ ridge: 'Main', top_assumed: false });
+    expect(s.openings).toEqual([]);
     expect(await stored(id)).toEqual({ versions: 1, faces: 7 });
   });
 
@@ -262,6 +265,94 @@ describe('faces entered or edited by hand', () => {
     ]);
     expect(await stored(id)).toEqual({ versions: 0, faces: 0 });
     expect((await c.send('put', `/api/projects/${id}/schedule`, { faces: [] })).status).toBe(422);
+  });
+});
+
+describe('ridges and openings stored with the schedule version', () => {
+  async function sendOpenings(c: Client, projectId: number, body: string) {
+    const token = await c.csrf();
+    return c.agent.post(`/api/projects/${projectId}/schedule/openings`).set('X-CSRF-Token', token).set('Content-Type', 'text/csv').send(body);
+  }
+
+  it('imports an openings file for the current faces as a new version, and estimates with it', async () => {
+    const { c } = await signedIn();
+    const id = await siteOf(c);
+    expect((await sendCsv(c, id, EXAMPLE_SCHEDULE_CSV)).status).toBe(201);
+    const res = await sendOpenings(c, id, EXAMPLE_OPENINGS_CSV);
+    expect(res.status).toBe(201);
+    const s = scheduleResponseSchema.parse(res.body);
+    expect(s.version).toBe(2);
+    expect(s.faces).toHaveLength(7);
+    expect(s.openings.map(({ id: _i, position: _p, ...o }) => o)).toEqual([
+      { building: 'Alder', face: 'Back', kind: 'roof_window', width_mm: 780, height_mm: 1180, quantity: 2 },
+      { building: 'Birch', face: 'Front', kind: 'chimney', width_mm: 900, height_mm: 700, quantity: 1 },
+      { building: 'Birch', face: 'Back', kind: 'hatch', width_mm: 600, height_mm: 900, quantity: 1 },
+    ]);
+    const e = await c.post(`/api/projects/${id}/estimates`, { system: {} });
+    expect(e.status).toBe(201);
+    // Alder is built 12 times, with two roof windows in each back slope; Birch 8 times, each with a hatch.
+    expect(e.body.result.totals).toMatchObject({ roof_windows: 24, hatches: 8 });
+    expect(e.body.result.totals.flashings.back_gutter_m).toBeCloseTo(8 * 1.2, 2);
+    expect(e.body.result.ridges.find((r: { building: string }) => r.building === 'Alder')).toMatchObject({ ridge: 'Main', faces: ['Front', 'Back', 'East hip end', 'West hip end'] });
+  });
+
+  it('rejects an openings file naming a face not in the schedule or too big for its face, by row and column, storing nothing', async () => {
+    const { c } = await signedIn();
+    const id = await siteOf(c);
+    await sendCsv(c, id, EXAMPLE_SCHEDULE_CSV);
+    const details = expectInvalid(await sendOpenings(c, id, 'building,face,kind,width_mm,height_mm\nAlder,Side,chimney,600,900\nBirch,Porch,dormer,600,2500\n'));
+    expect(details).toEqual([
+      { row: 2, column: 'face', message: "no face 'Side' in building 'Alder' in the schedule" },
+      { row: 3, column: 'height_mm', message: "2500 mm is taller than face 'Porch' (rafter 1800 mm)" },
+    ]);
+    expect(await stored(id)).toEqual({ versions: 1, faces: 7 });
+  });
+
+  it('saves typed openings and ridge names with the faces, checked by the same rules', async () => {
+    const { c } = await signedIn();
+    const id = await siteOf(c);
+    const faces = [
+      { building: 'A', face: 'Front', pitch_deg: 40, rafter_mm: 3000, eaves_mm: 6000, ridge: 'Main' },
+      { building: 'A', face: 'Back', pitch_deg: 40, rafter_mm: 3000, eaves_mm: 6000, ridge: 'Main' },
+    ];
+    const res = await c.send('put', `/api/projects/${id}/schedule`, {
+      faces,
+      openings: [{ building: 'A', face: 'Back', kind: 'roof_window', width_mm: 780, height_mm: 1180 }],
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.faces.map((f: { ridge: string }) => f.ridge)).toEqual(['Main', 'Main']);
+    expect(res.body.openings).toMatchObject([{ face: 'Back', kind: 'roof_window', quantity: 1 }]);
+    const bad = await c.send('put', `/api/projects/${id}/schedule`, {
+      faces: [...faces, { building: 'A', face: 'Hip', pitch_deg: 40, rafter_mm: 3000, eaves_mm: 6000, left: 'hip', right: 'hip' }],
+      openings: [{ building: 'A', face: 'Back', kind: 'skylight', width_mm: 780, height_mm: 1180 }],
+    });
+    expect(expectInvalid(bad)).toEqual([
+      { row: 3, column: 'top_mm', path: 'faces.2.top_mm', message: 'required on a face with a hip or valley edge' },
+      { row: 1, column: 'kind', path: 'openings.0.kind', message: "unknown kind 'skylight': use roof_window, chimney, dormer or hatch" },
+    ]);
+    expect(await stored(id)).toEqual({ versions: 1, faces: 2 });
+  });
+
+  it('keeps opening a schedule stored before top_mm was required beside hips, and its estimate warns top_assumed', async () => {
+    const { c } = await signedIn();
+    const id = await siteOf(c);
+    await sendCsv(c, id, EXAMPLE_SCHEDULE_CSV);
+    // A face stored by an earlier version of the product: a hip edge, top taken as the eaves.
+    const schedule = await t.db('schedules').where({ project_id: id }).first();
+    await t.db('schedule_faces').where({ schedule_id: schedule.id, face: 'Front', building: 'Alder' }).update({ top_mm: 10200, top_assumed: true });
+    const s = await c.get(`/api/projects/${id}/schedule`);
+    expect(s.status).toBe(200);
+    expect(s.body.faces[0]).toMatchObject({ top_mm: 10200, top_assumed: true });
+    const e = await c.post(`/api/projects/${id}/estimates`, { system: {} });
+    expect(e.status).toBe(201);
+    expect(e.body.result.warnings.filter((w: { code: string }) => w.code === 'top_assumed').map((w: { face: string }) => w.face)).toEqual(['Front']);
+  });
+
+  it('downloads the example openings file without signing in', async () => {
+    const res = await request(t.app).get('/api/examples/openings.csv');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="?openings\.csv"?$/);
+    expect(res.text).toBe(EXAMPLE_OPENINGS_CSV);
   });
 });
 

@@ -83,6 +83,9 @@ describe.concurrent('estimate CLI', () => {
     ['an unknown edge word', 'A,Front,1,35,4000,,9000,,gable,verge,ridge', "row 2, column left: unknown edge 'gable': use verge, hip, valley or abutment"],
     ['a pitch below the tile’s lowest', 'A,Front,1,15,4000,,9000,,,,', 'row 2, column pitch_deg: 15° is below the lowest pitch this tile may be laid at (22.5°)'],
     ['rafter and run that disagree', 'A,Front,1,40,5200,3900,9000,,,,', 'row 2, column run_mm: does not agree with rafter_mm'],
+    ['a steep face given only by run', 'A,Front,1,82,,600,9000,,,,', 'row 2, column run_mm: give rafter_mm for faces of 80° and steeper'],
+    ['a hip face without top_mm', 'A,Front,1,35,4000,,9000,,hip,hip,ridge', 'row 2, column top_mm: required on a face with a hip or valley edge'],
+    ['a valley face without top_mm', 'A,Wing,1,35,4000,,9000,,verge,valley,ridge', 'row 2, column top_mm: required on a face with a hip or valley edge'],
   ])('rejects %s: nothing on stdout, the problem on stderr, exit 2', async (_name, row, message) => {
     const r = await run(['--schedule', file(`bad-${message.length}-${row.length}.csv`, `${HEADER}\n${row}\n`)]);
     expect(r.code).toBe(2);
@@ -122,6 +125,42 @@ describe.concurrent('estimate CLI', () => {
     expect(bad.code).toBe(2);
     expect(bad.stdout).toBe('');
     expect(bad.stderr.trim()).toBe('system field fixing.clips.eaves: must be true or false');
+  });
+
+  it.each([
+    ['a double-lap tile laid straight bond', { tile: { kind: 'double_lap', length_mm: 265, width_mm: 165, headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }], weight_kg: 1.1, per_pallet: 1000, bond: 'straight' } }, 'system field tile.bond: '],
+    ['a pallet limit below the empty pallet', { truck: { pallet_tare_kg: 25, max_pallet_kg: 20 } }, 'system field truck.max_pallet_kg: '],
+  ])('rejects %s, naming the field: nothing on stdout, exit 2', async (_name, system, start) => {
+    const r = await run(['--schedule', file(`sys-${start.length}.csv`, EXAMPLE_SCHEDULE_CSV), '--system', file(`sys-${start.length}.json`, JSON.stringify(system))]);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr.startsWith(start)).toBe(true);
+  });
+
+  it('takes an openings file: a roof window leaves tiles out, a chimney is flashed', async () => {
+    const schedule = file('open.csv', EXAMPLE_SCHEDULE_CSV);
+    const plain = JSON.parse((await run(['--schedule', schedule])).stdout);
+    const openings = file('openings.csv', 'building,face,kind,width_mm,height_mm,quantity\nBirch,Front,roof_window,780,1180,1\nBirch,Back,chimney,600,900,\n');
+    const r = await run(['--schedule', schedule, '--openings', openings]);
+    expect(r.code).toBe(0);
+    const result = JSON.parse(r.stdout);
+    expect(result.totals.tiles).toBeLessThan(plain.totals.tiles);
+    expect(result.totals.roof_windows).toBe(8);
+    expect(result.totals.flashings.back_gutter_m).toBeCloseTo(8 * 0.9, 2);
+  });
+
+  it('rejects a bad openings file, naming the file, row and column: nothing on stdout, exit 2', async () => {
+    const schedule = file('open2.csv', EXAMPLE_SCHEDULE_CSV);
+    const openings = file('bad-openings.csv', 'building,face,kind,width_mm,height_mm\nBirch,Front,roof_window,78000,1180\nBirch,Side,chimney,600,900\nBirch,Back,skylight,600,900\n');
+    const r = await run(['--schedule', schedule, '--openings', openings]);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim().split('\n')).toEqual([
+      "openings file, row 2, column width_mm: 78000 mm is wider than face 'Front' (9000 mm at its widest)",
+      "openings file, row 3, column face: no face 'Side' in building 'Birch' in the schedule",
+      "openings file, row 4, column kind: unknown kind 'skylight': use roof_window, chimney, dormer or hatch",
+    ]);
   });
 
   it('rejects a system file that is not JSON', async () => {

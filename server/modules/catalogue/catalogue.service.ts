@@ -45,15 +45,30 @@ export function buildSystem(row: SystemRow): BuiltSystem {
   const hip = byRole.has('hip') ? t('hip') : ridge;
   const batten = t('batten');
   const underlay = t('underlay');
+  const weight = (role: SystemRole) => (byRole.has(role) ? (t(role).weight_kg as number) : undefined);
+  const tile = {
+    ...t('tile'),
+    ...(byRole.has('eaves_tile') ? { eaves_tile_kg: weight('eaves_tile') } : {}),
+    ...(byRole.has('top_tile') ? { top_tile_kg: weight('top_tile') } : {}),
+    ...(byRole.has('tile_and_half') ? { tile_and_half_kg: weight('tile_and_half') } : {}),
+  };
+  const trough = t('valley_trough');
   const input = {
     ...(s.setting_out ? { setting_out: s.setting_out } : {}),
     ...(s.rafter_spacing_mm ? { rafter_spacing_mm: s.rafter_spacing_mm } : {}),
     ...(s.waste_pct ? { waste_pct: s.waste_pct } : {}),
     ...(s.roof_loading ? { roof_loading: s.roof_loading } : {}),
     ...(s.truck ? { truck: s.truck } : {}),
-    tile: t('tile'),
+    tile,
     ridge: { cover_mm: ridge.cover_mm, weight_kg: ridge.weight_kg },
-    hip: { cover_mm: hip.cover_mm, weight_kg: hip.weight_kg },
+    hip: { cover_mm: hip.cover_mm, weight_kg: hip.weight_kg, ...(byRole.has('hip_iron') ? { iron_kg: weight('hip_iron') } : {}) },
+    // The fittings a system names decide how its verges and valleys are done.
+    verge: byRole.has('dry_verge')
+      ? { kind: 'dry', unit_kg: weight('dry_verge'), ...(byRole.has('ridge_end_cap') ? { end_cap_kg: weight('ridge_end_cap') } : {}) }
+      : { kind: 'mortar' },
+    valley: byRole.has('valley_trough')
+      ? { kind: 'trough', unit_length_mm: trough.unit_length_mm, lap_mm: trough.lap_mm, unit_kg: trough.weight_kg }
+      : { kind: 'lined' },
     batten: { stock_length_mm: batten.stock_length_mm, kg_per_m: batten.kg_per_m, ...s.batten },
     underlay: { roll_width_mm: underlay.roll_width_mm, roll_length_mm: underlay.roll_length_mm, roll_kg: underlay.roll_kg, ...s.underlay },
     fixing: { ...s.fixing, batten_nail_g: t('batten_nail').nail_g, tile_nail_g: t('tile_nail').nail_g },

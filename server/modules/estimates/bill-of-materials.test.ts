@@ -46,8 +46,11 @@ describe('billOfMaterials', () => {
       ['tile_nail', component(5, 'TN', 'nail', 1000, 2400)],
       ['clip', component(7, 'C', 'clip', 100, 900)],
       ['underlay', component(6, 'U', 'roll', 1, 6000)],
+      ['hip_iron', component(8, 'HI', 'piece', 1, 350)],
     ]);
     const { lines, not_counted } = billOfMaterials(result, system, components);
+    // A hipped roof has four hips, each with an iron at its foot (common practice, no source).
+    expect(lines.find((l) => l.category === 'hip_iron')).toMatchObject({ quantity: 4, figure: 'hip_irons', total: 4 * 350 });
     // Clips are the engine's count, bought in whole packs.
     expect(lines.find((l) => l.category === 'clip')).toMatchObject({ quantity: result.totals.clips, packs: Math.ceil(result.totals.clips / 100), figure: 'clips' });
     expect(result.totals.hip_tiles).toBeGreaterThan(0);
@@ -65,6 +68,18 @@ describe('billOfMaterials', () => {
     expect(lines.map((l) => l.category)).toEqual(['tile']);
     expect(not_counted.map((n) => n.category)).toContain('valley');
     expect(not_counted.map((n) => n.category)).toContain('clip');
+    expect(not_counted.find((n) => n.category === 'hip_iron')?.message).toBe(
+      'the roof needs 4 piece of hip irons, but this system has no such product: add it to the order by hand',
+    );
+  });
+
+  it('orders trough valleys as units instead of valley lining, and a slate roof’s special pieces as their own lines', () => {
+    const result = { ...run() };
+    result.totals = { ...result.totals, valley_m: 6.2, valley_units: 3, eaves_tiles_order: 42, top_tiles_order: 42, tile_and_half_order: 32, dry_verge_units: 60, ridge_end_caps: 2 };
+    const { lines } = billOfMaterials(result, system, null);
+    const byFigure = Object.fromEntries(lines.map((l) => [l.figure, l.quantity]));
+    expect(byFigure).toMatchObject({ valley_units: 3, eaves_tiles_order: 42, top_tiles_order: 42, tile_and_half_order: 32, dry_verge_units: 60, ridge_end_caps: 2 });
+    expect(byFigure.valley_m).toBeUndefined();
   });
 
   it('gives a generic system the engine quantities with no prices', () => {

@@ -37,6 +37,9 @@ export interface PricedComponent {
  */
 const FIGURES: { category: SystemRole; figure: EngineFigure; unit: string; value: (t: Totals) => number }[] = [
   { category: 'tile', figure: 'tiles_order', unit: 'tile', value: (t) => t.tiles_order },
+  { category: 'eaves_tile', figure: 'eaves_tiles_order', unit: 'tile', value: (t) => t.eaves_tiles_order ?? 0 },
+  { category: 'top_tile', figure: 'top_tiles_order', unit: 'tile', value: (t) => t.top_tiles_order ?? 0 },
+  { category: 'tile_and_half', figure: 'tile_and_half_order', unit: 'tile', value: (t) => t.tile_and_half_order ?? 0 },
   { category: 'ridge', figure: 'ridge_tiles', unit: 'piece', value: (t) => t.ridge_tiles },
   { category: 'hip', figure: 'hip_tiles', unit: 'piece', value: (t) => t.hip_tiles },
   { category: 'batten', figure: 'batten_lengths', unit: 'length', value: (t) => t.batten_lengths },
@@ -44,7 +47,12 @@ const FIGURES: { category: SystemRole; figure: EngineFigure; unit: string; value
   { category: 'tile_nail', figure: 'tile_nails', unit: 'nail', value: (t) => t.tile_nails },
   { category: 'clip', figure: 'clips', unit: 'clip', value: (t) => t.clips },
   { category: 'underlay', figure: 'underlay_rolls', unit: 'roll', value: (t) => t.underlay_rolls },
-  { category: 'valley', figure: 'valley_m', unit: 'm', value: (t) => t.valley_m },
+  // Trough valleys are ordered as units; only a lined valley is ordered by the metre.
+  { category: 'valley', figure: 'valley_m', unit: 'm', value: (t) => ((t.valley_units ?? 0) > 0 ? 0 : t.valley_m) },
+  { category: 'valley_trough', figure: 'valley_units', unit: 'piece', value: (t) => t.valley_units ?? 0 },
+  { category: 'dry_verge', figure: 'dry_verge_units', unit: 'piece', value: (t) => t.dry_verge_units ?? 0 },
+  { category: 'ridge_end_cap', figure: 'ridge_end_caps', unit: 'piece', value: (t) => t.ridge_end_caps ?? 0 },
+  { category: 'hip_iron', figure: 'hip_irons', unit: 'piece', value: (t) => t.hip_irons ?? 0 },
 ];
 
 /** Whole packs for a quantity; the small slack keeps 2000 nails in boxes of 1000 at two boxes. */
@@ -67,6 +75,14 @@ function genericDescription(category: SystemRole, s: RoofSystem): string {
       return `Batten, ${mm(s.batten.stock_length_mm)} mm lengths`;
     case 'underlay':
       return `Underlay, ${mm(s.underlay.roll_width_mm)} mm × ${Math.round(s.underlay.roll_length_mm / 1000)} m rolls`;
+    case 'eaves_tile':
+      return `Eaves tile (short), for a ${mm(s.tile.length_mm)} × ${mm(s.tile.width_mm)} mm tile`;
+    case 'top_tile':
+      return `Top tile (short), for a ${mm(s.tile.length_mm)} × ${mm(s.tile.width_mm)} mm tile`;
+    case 'tile_and_half':
+      return `Tile-and-a-half, ${mm(s.tile.length_mm)} × ${mm(s.tile.width_mm * 1.5)} mm`;
+    case 'valley_trough':
+      return `Valley trough unit, ${mm(s.valley.unit_length_mm)} mm (${mm(s.valley.lap_mm)} mm lap)`;
     default:
       return CATEGORY_LABELS[category];
   }

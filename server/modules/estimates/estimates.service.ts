@@ -17,7 +17,7 @@ import { AppError } from '../../http/app-error';
 import { catalogueRepository, type BranchWithMerchant } from '../catalogue/catalogue.repository';
 import { catalogueService } from '../catalogue/catalogue.service';
 import { projectsService } from '../projects/projects.service';
-import { engineFace, schedulesRepository, type ScheduleWithFaces } from '../schedules/schedules.repository';
+import { engineFace, engineOpening, schedulesRepository, type ScheduleWithFaces } from '../schedules/schedules.repository';
 import { billOfMaterials, type NotCounted, type PricedComponent } from './bill-of-materials';
 import { estimateCautions } from './cautions';
 import { estimatesRepository, type EstimateSummaryRow } from './estimates.repository';
@@ -89,7 +89,7 @@ export function estimatesService(deps: Pick<AppDeps, 'db' | 'logger'>) {
         })),
       );
     }
-    const result: EngineResult = estimate(faces, system);
+    const result: EngineResult = estimate(faces, system, schedule.openings.map(engineOpening));
     const bill = billOfMaterials(result, system, components);
     const subtotal = components ? bill.lines.reduce((sum, l) => sum + (l.total ?? 0), 0) : null;
     return estimates.insert(

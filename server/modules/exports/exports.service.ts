@@ -56,6 +56,10 @@ const FACE_COLUMNS: Column<FaceResult>[] = [
   { header: 'Batten (m)', width: 11, numFmt: ONE_DP, value: (f) => f.batten_m },
   { header: 'Stacks', width: 8, numFmt: WHOLE, value: (f) => f.stacks },
   { header: 'Load (kg)', width: 11, numFmt: ONE_DP, value: (f) => f.load_kg },
+  { header: 'Eaves tiles', width: 11, numFmt: WHOLE, value: (f) => f.eaves_tiles ?? 0 },
+  { header: 'Top tiles', width: 10, numFmt: WHOLE, value: (f) => f.top_tiles ?? 0 },
+  { header: 'Tile-and-a-half', width: 14, numFmt: WHOLE, value: (f) => f.tile_and_half ?? 0 },
+  { header: 'Openings (m²)', width: 13, numFmt: TWO_DP, value: (f) => f.openings_area_m2 ?? 0 },
 ];
 
 function addTable<T>(wb: ExcelJS.Workbook, name: string, columns: Column<T>[], rows: T[]): ExcelJS.Worksheet {
@@ -109,6 +113,20 @@ export function exportsService(estimates: EstimatesService, projects: ProjectsSe
         ['Delivery weight (kg)', e.totals.weight_kg],
         ['Pallets', e.totals.pallets],
       ];
+      // The take-off's own figures that are not products on the bill: lengths, counts and flashings.
+      const t = e.result.totals;
+      const extra: [string, number | undefined][] = [
+        ['Verges (m)', t.verge_m],
+        ['Eaves (m)', t.eaves_m],
+        ['Roof windows', t.roof_windows],
+        ['Roof hatches', t.hatches],
+        ['Openings (m²)', t.openings_area_m2],
+        ['Side abutment flashing (m)', t.flashings?.side_abutment_m],
+        ['Top abutment flashing (m)', t.flashings?.top_abutment_m],
+        ['Apron flashing (m)', t.flashings?.apron_m],
+        ['Back gutter (m)', t.flashings?.back_gutter_m],
+      ];
+      for (const [k, v] of extra) if (v !== undefined && v > 0) facts.push([k, v]);
       for (const [k, v] of facts) about.addRow([k, safeCell(v)]);
       about.addRow([]);
       for (const w of e.result.warnings) about.addRow(['Warning', safeCell([w.building, w.face, w.message].filter(Boolean).join(' · '))]);

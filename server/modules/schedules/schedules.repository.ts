@@ -1,10 +1,12 @@
+import type { Opening } from '../../../shared/schemas/openings.schema';
 import type { Face } from '../../../shared/schemas/schedule.schema';
-import type { ScheduleVersion, StoredFace } from '../../../shared/schemas/schedule-upload.schema';
+import type { ScheduleVersion, StoredFace, StoredOpening } from '../../../shared/schemas/schedule-upload.schema';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 
 export interface ScheduleWithFaces extends ScheduleVersion {
   faces: StoredFace[];
+  openings: StoredOpening[];
 }
 
 const VERSION_COLUMNS = ['s.id', 's.project_id', 's.version', 's.source', 's.filename', 's.face_count', 's.created_at', 's.created_by', 'u.name as created_by_name'];
@@ -37,13 +39,38 @@ function toFace(r: Record<string, unknown>): StoredFace {
     left: r.left_edge as StoredFace['left'],
     right: r.right_edge as StoredFace['right'],
     top: r.top_edge as StoredFace['top'],
+    ridge: (r.ridge as string | null) ?? null,
+    top_assumed: Boolean(r.top_assumed),
+  };
+}
+
+function toOpening(r: Record<string, unknown>): StoredOpening {
+  return {
+    id: r.id as number,
+    position: r.position as number,
+    building: r.building as string,
+    face: r.face as string,
+    kind: r.kind as StoredOpening['kind'],
+    width_mm: Number(r.width_mm),
+    height_mm: Number(r.height_mm),
+    quantity: r.quantity as number,
   };
 }
 
 /** A stored face as the engine reads it. */
 export function engineFace(f: StoredFace): Face {
   const { building, face, quantity, pitch_deg, rafter_mm, run_mm, eaves_mm, top_mm, left, right, top } = f;
-  return { building, face, quantity, pitch_deg, rafter_mm, run_mm, eaves_mm, top_mm, left, right, top };
+  return {
+    building, face, quantity, pitch_deg, rafter_mm, run_mm, eaves_mm, top_mm, left, right, top,
+    ...(f.ridge === null ? {} : { ridge: f.ridge }),
+    ...(f.top_assumed ? { top_assumed: true } : {}),
+  };
+}
+
+/** A stored opening as the engine reads it. */
+export function engineOpening(o: StoredOpening): Opening {
+  const { building, face, kind, width_mm, height_mm, quantity } = o;
+  return { building, face, kind, width_mm, height_mm, quantity };
 }
 
 export function schedulesRepository(db: Db) {
@@ -51,7 +78,8 @@ export function schedulesRepository(db: Db) {
 
   async function withFaces(version: ScheduleVersion, trx: Db): Promise<ScheduleWithFaces> {
     const faces = await trx('schedule_faces').where({ schedule_id: version.id }).orderBy('position');
-    return { ...version, faces: faces.map(toFace) };
+    const openings = await trx('schedule_openings').where({ schedule_id: version.id }).orderBy('position');
+    return { ...version, faces: faces.map(toFace), openings: openings.map(toOpening) };
   }
 
   return {
@@ -61,7 +89,15 @@ export function schedulesRepository(db: Db) {
      */
     async insertVersion(
       trx: Db,
-      input: { organisationId: number; projectId: number; userId: number; source: 'csv' | 'form'; filename: string | null; faces: Face[] },
+      input: {
+        organisationId: number;
+        projectId: number;
+        userId: number;
+        source: 'csv' | 'form';
+        filename: string | null;
+        faces: Face[];
+        openings: Opening[];
+      },
     ): Promise<number> {
       const last = await trx('schedules').where({ project_id: input.projectId }).max({ v: 'version' }).first();
       const version = Number(last?.v ?? 0) + 1;
@@ -92,9 +128,22 @@ export function schedulesRepository(db: Db) {
         left_edge: f.left,
         right_edge: f.right,
         top_edge: f.top,
+        ridge: f.ridge ?? null,
+        top_assumed: f.top_assumed === true,
       }));
-      // 13 columns a row: 60 rows stay well inside SQLite's limit on bound parameters.
+      // 15 columns a row: 60 rows stay well inside SQLite's limit on bound parameters.
       for (let i = 0; i < rows.length; i += 60) await trx('schedule_faces').insert(rows.slice(i, i + 60));
+      const openingRows = input.openings.map((o, i) => ({
+        schedule_id: scheduleId,
+        position: i + 1,
+        building: o.building,
+        face: o.face,
+        kind: o.kind,
+        width_mm: o.width_mm,
+        height_mm: o.height_mm,
+        quantity: o.quantity,
+      }));
+      for (let i = 0; i < openingRows.length; i += 100) await trx('schedule_openings').insert(openingRows.slice(i, i + 100));
       await trx('projects').where({ id: input.projectId }).update({ updated_at: nowIso() });
       return scheduleId;
     },

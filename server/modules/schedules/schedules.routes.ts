@@ -1,5 +1,6 @@
 import express, { type RequestHandler } from 'express';
 import multer from 'multer';
+import { EXAMPLE_OPENINGS_CSV, EXAMPLE_OPENINGS_FILENAME } from '../../../shared/engine/example-openings';
 import { EXAMPLE_SCHEDULE_CSV, EXAMPLE_SCHEDULE_FILENAME } from '../../../shared/engine/example-schedule';
 import { projectParamsSchema } from '../../../shared/schemas/project.schema';
 import {
@@ -42,6 +43,13 @@ const readScheduleUpload: RequestHandler = (req, res, next) => {
   next(new AppError(415, 'unsupported_media_type', `Send the schedule as text/csv or as a multipart form with the field '${SCHEDULE_FILE_FIELD}'`));
 };
 
+/** The CSV bytes of an upload, from the form field or the body, and the file's name when it came in a form. */
+function uploaded(req: express.Request): { bytes: Buffer; filename: string | null } {
+  if (req.file) return { bytes: req.file.buffer, filename: req.file.originalname.slice(0, 200) || null };
+  if (Buffer.isBuffer(req.body)) return { bytes: req.body, filename: null };
+  throw invalidSchedule([{ message: `no CSV received: send it as the request body or in the form field '${SCHEDULE_FILE_FIELD}'` }]);
+}
+
 export function schedulesRoutes(schedules: SchedulesService) {
   const r = apiRouter();
 
@@ -50,6 +58,21 @@ export function schedulesRoutes(schedules: SchedulesService) {
     res.attachment(EXAMPLE_SCHEDULE_FILENAME);
     res.send(EXAMPLE_SCHEDULE_CSV);
   });
+
+  r.get('/examples/openings.csv', { access: { public: 'the example openings file is for anyone' } }, (_req, res) => {
+    res.type('text/csv; charset=utf-8');
+    res.attachment(EXAMPLE_OPENINGS_FILENAME);
+    res.send(EXAMPLE_OPENINGS_CSV);
+  });
+
+  r.post(
+    '/projects/:id/schedule/openings',
+    { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload] },
+    async (req, res, { params }) => {
+      const { bytes, filename } = uploaded(req);
+      res.status(201).json(await schedules.importOpeningsCsv(currentUser(req), params.id, decodeScheduleBytes(bytes), filename));
+    },
+  );
 
   r.post(
     '/projects/:id/schedule',
@@ -73,7 +96,7 @@ export function schedulesRoutes(schedules: SchedulesService) {
     '/projects/:id/schedule',
     { access: { action: 'projects:write' }, params: projectParamsSchema, body: putFacesBodySchema },
     async (req, res, { params, body }) => {
-      res.status(201).json(await schedules.replaceFaces(currentUser(req), params.id, body.faces));
+      res.status(201).json(await schedules.replaceFaces(currentUser(req), params.id, body.faces, body.openings));
     },
   );
 

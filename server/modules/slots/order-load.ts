@@ -22,8 +22,18 @@ export interface LoadLine {
 }
 
 /** Engine items for the categories it palletises: needed first (off first) or last (ridge and hip). */
-const FIRST_OFF: Partial<Record<ProductCategory, AccessoryItem>> = { underlay: 'underlay_rolls', batten: 'battens', batten_nail: 'batten_nails', tile_nail: 'tile_nails' };
-const LAST_OFF: Partial<Record<ProductCategory, AccessoryItem>> = { ridge: 'ridge_tiles', hip: 'hip_tiles' };
+const FIRST_OFF: Partial<Record<ProductCategory, AccessoryItem>> = {
+  underlay: 'underlay_rolls',
+  batten: 'battens',
+  batten_nail: 'batten_nails',
+  tile_nail: 'tile_nails',
+  valley_trough: 'valley_units',
+  hip_iron: 'hip_irons',
+  dry_verge: 'dry_verge_units',
+};
+const LAST_OFF: Partial<Record<ProductCategory, AccessoryItem>> = { ridge: 'ridge_tiles', hip: 'hip_tiles', ridge_end_cap: 'ridge_end_caps' };
+/** Double-lap special tiles travel on the tile pallets, after the full tiles. */
+const WITH_TILES: Partial<Record<ProductCategory, AccessoryItem>> = { eaves_tile: 'eaves_tiles', top_tile: 'top_tiles', tile_and_half: 'tile_and_half' };
 
 const round1 = (v: number) => Math.round(v * 10) / 10;
 
@@ -40,6 +50,7 @@ export function orderLoad(lines: readonly LoadLine[], estimate: { system_input: 
   let tileKg = 0;
   const firstOff: Accessory[] = [];
   const lastOff: Accessory[] = [];
+  const withTiles: Accessory[] = [];
   for (const l of lines) {
     if (l.packs <= 0) continue;
     const units = l.packs * l.pack_size;
@@ -47,6 +58,11 @@ export function orderLoad(lines: readonly LoadLine[], estimate: { system_input: 
     if (l.category === 'tile') {
       tiles += units;
       tileKg += l.packs * l.pack_weight_kg;
+      continue;
+    }
+    const special = WITH_TILES[l.category];
+    if (special) {
+      withTiles.push({ item: special, quantity: units, unit_kg: unitKg });
       continue;
     }
     const last = LAST_OFF[l.category];
@@ -59,7 +75,7 @@ export function orderLoad(lines: readonly LoadLine[], estimate: { system_input: 
   }
   const tileSystem: RoofSystem = tiles > 0 ? { ...system, tile: { ...system.tile, weight_kg: tileKg / tiles } } : system;
   const faces = (estimate?.result.faces ?? []).map((f) => ({ building: f.building, face: f.face, tiles: f.tiles, quantity: f.quantity }));
-  const plan = planDelivery({ tilesOrdered: tiles, faces, firstOff, lastOff }, tileSystem, MAX_DELIVERY_PALLETS);
+  const plan = planDelivery({ tilesOrdered: tiles, faces, withTiles, firstOff, lastOff }, tileSystem, MAX_DELIVERY_PALLETS);
   const heaviest = plan.pallets.reduce((m, p) => Math.max(m, p.weight_kg), 0);
   return { weight_kg: round1(plan.weight_kg), pallets: plan.tile_pallets + plan.accessory_pallets, heaviest_pallet_kg: heaviest, plan: { pallets: plan.pallets } };
 }

@@ -14,11 +14,12 @@ import { EstimateSummary } from '../../features/estimates/components/estimate-su
 import { FaceBreakdownTable } from '../../features/estimates/components/face-breakdown-table';
 import { FaceDrawings } from '../../features/estimates/components/face-drawings';
 import { JobWarnings } from '../../features/estimates/components/job-warnings';
+import { RidgeLoads, TakeOffExtras } from '../../features/estimates/components/ridges-and-fittings';
 import { placeWarnings } from '../../features/estimates/lib/warnings';
 import { useProject } from '../../features/projects/api/get-project';
 import { useScheduleVersion } from '../../features/schedules/api/get-schedule-version';
 import { usePageTitle } from '../../lib/use-page-title';
-import { engineFaces } from './engine-faces';
+import { engineFaces, openingsByFace } from './engine-faces';
 import { PageQuery } from './page-query';
 import { idParam } from './route-loaders';
 
@@ -29,6 +30,7 @@ export function EstimateRoute() {
   const schedule = useScheduleVersion(estimate.data?.project_id ?? 0, estimate.data?.schedule.version);
   const placed = useMemo(() => (estimate.data ? placeWarnings(estimate.data.result) : null), [estimate.data]);
   const faces = useMemo(() => engineFaces(schedule.data?.faces ?? []), [schedule.data]);
+  const openings = useMemo(() => openingsByFace(faces, schedule.data?.openings ?? []), [faces, schedule.data]);
   usePageTitle(`Estimate ${estimateId}`);
 
   return (
@@ -63,6 +65,12 @@ export function EstimateRoute() {
                 <Card title="Bill of materials">
                   <BillOfMaterials lines={saved.lines} notCounted={saved.not_counted} subtotal={saved.totals.subtotal} />
                 </Card>
+                <Card title="Special pieces, fittings and flashings">
+                  <TakeOffExtras totals={saved.result.totals} />
+                </Card>
+                <Card title="Ridges and roof loading">
+                  <RidgeLoads result={saved.result} />
+                </Card>
                 <Card title="Per face">
                   <p className="mb-3 text-sm text-ink-700">Figures for one face; the job multiplies each by its quantity.</p>
                   <FaceBreakdownTable faces={saved.result.faces} warningsByFace={placed?.byFace ?? new Map()} />
@@ -77,7 +85,7 @@ export function EstimateRoute() {
                     ) : schedule.isError ? (
                       <ErrorAlert error={schedule.error} title="The faces could not be loaded" onRetry={() => void schedule.refetch()} />
                     ) : (
-                      <FaceDrawings estimateId={saved.id} faces={faces} results={saved.result.faces} system={saved.system_input} warningsByFace={placed?.byFace ?? new Map()} />
+                      <FaceDrawings estimateId={saved.id} faces={faces} results={saved.result.faces} system={saved.system_input} warningsByFace={placed?.byFace ?? new Map()} openings={openings} />
                     )}
                   </SectionBoundary>
                 </section>

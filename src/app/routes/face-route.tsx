@@ -10,7 +10,7 @@ import { FaceWarnings } from '../../features/estimates/components/face-drawings'
 import { placeWarnings } from '../../features/estimates/lib/warnings';
 import { useScheduleVersion } from '../../features/schedules/api/get-schedule-version';
 import { usePageTitle } from '../../lib/use-page-title';
-import { engineFaces } from './engine-faces';
+import { engineFaces, openingsByFace } from './engine-faces';
 import { PageQuery } from './page-query';
 import { idParam } from './route-loaders';
 
@@ -21,6 +21,7 @@ export function FaceRoute() {
   const estimate = useEstimate(estimateId);
   const schedule = useScheduleVersion(estimate.data?.project_id ?? 0, estimate.data?.schedule.version);
   const faces = useMemo(() => engineFaces(schedule.data?.faces ?? []), [schedule.data]);
+  const openings = useMemo(() => openingsByFace(faces, schedule.data?.openings ?? []), [faces, schedule.data]);
   const result = estimate.data?.result.faces[index];
   usePageTitle(result ? `${result.building} · ${result.face}` : 'Roof face');
   return (
@@ -36,7 +37,7 @@ export function FaceRoute() {
               <div className="space-y-4">
                 <FaceWarnings warnings={placeWarnings(estimate.data.result).byFace.get(index) ?? []} />
                 <Card>
-                  <FaceDrawing face={faces[index]} result={result} system={estimate.data.system_input} large />
+                  <FaceDrawing face={faces[index]} result={result} system={estimate.data.system_input} openings={openings[index]} large />
                 </Card>
               </div>
             </>

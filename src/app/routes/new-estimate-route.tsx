@@ -7,7 +7,7 @@ import { useToast } from '../../components/ui/toast';
 import { EstimateBuilder } from '../../features/estimates/components/estimate-builder';
 import { useCurrentSchedule } from '../../features/schedules/api/get-current-schedule';
 import { usePageTitle } from '../../lib/use-page-title';
-import { engineFaces } from './engine-faces';
+import { engineFaces, engineOpenings } from './engine-faces';
 import { PageQuery } from './page-query';
 import { idParam } from './route-loaders';
 
@@ -15,6 +15,7 @@ export function NewEstimateRoute() {
   const projectId = idParam(useParams(), 'projectId');
   const schedule = useCurrentSchedule(projectId);
   const faces = useMemo(() => engineFaces(schedule.data?.faces ?? []), [schedule.data]);
+  const openings = useMemo(() => engineOpenings(schedule.data?.openings ?? []), [schedule.data]);
   const navigate = useNavigate();
   const toast = useToast();
   usePageTitle('New estimate');
@@ -28,6 +29,7 @@ export function NewEstimateRoute() {
             <EstimateBuilder
               projectId={projectId}
               faces={faces}
+              openings={openings}
               scheduleVersion={current.version}
               onCreated={(estimate) => {
                 toast.show(`Estimate ${estimate.id} saved.`, 'success');

@@ -27,6 +27,7 @@ export function ScheduleEditRoute() {
             <FacesForm
               projectId={projectId}
               initial={current?.faces ?? []}
+              initialOpenings={current?.openings ?? []}
               onSaved={(saved) => {
                 void queryClient.invalidateQueries({ queryKey: projectKeys.all });
                 toast.show(`Version ${saved.version} stored: ${saved.faces.length} faces.`, 'success');

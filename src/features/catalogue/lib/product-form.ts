@@ -42,6 +42,17 @@ export const TECHNICAL_FIELDS: Record<Exclude<ProductCategory, 'tile'>, readonly
     { key: 'roll_kg', label: 'Weight of one roll (kg)' },
   ],
   valley: [{ key: 'weight_kg', label: 'Weight of one length (kg)', hint: 'A valley lining is sold in lengths: its unit is the metre and its pack size the metres in one length.' }],
+  eaves_tile: [{ key: 'weight_kg', label: 'Weight of one eaves tile (kg)' }],
+  top_tile: [{ key: 'weight_kg', label: 'Weight of one top tile (kg)' }],
+  tile_and_half: [{ key: 'weight_kg', label: 'Weight of one tile-and-a-half (kg)' }],
+  valley_trough: [
+    { key: 'unit_length_mm', label: 'Length of one unit (mm)', hint: 'As delivered, e.g. 3000.' },
+    { key: 'lap_mm', label: 'Lap onto the next unit (mm)', hint: 'E.g. 150.' },
+    { key: 'weight_kg', label: 'Weight of one unit (kg)' },
+  ],
+  dry_verge: [{ key: 'weight_kg', label: 'Weight of one unit (kg)', hint: 'A roof system with a dry verge product has dry verges: one unit a course on each verge.' }],
+  ridge_end_cap: [weightEach],
+  hip_iron: [weightEach],
   accessory: [],
 };
 

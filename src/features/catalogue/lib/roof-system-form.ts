@@ -15,6 +15,13 @@ export const ROLE_WORDS: Record<SystemRole, string> = {
   clip: 'Clip',
   underlay: 'Underlay',
   valley: 'Valley lining',
+  eaves_tile: 'Eaves tile',
+  top_tile: 'Top tile',
+  tile_and_half: 'Tile-and-a-half',
+  valley_trough: 'Valley trough unit',
+  dry_verge: 'Dry verge unit',
+  ridge_end_cap: 'Ridge end cap',
+  hip_iron: 'Hip iron',
 };
 
 /** Field name of a component's product picker: server details name `components.<role>`. */

@@ -14,6 +14,13 @@ const ITEM_WORDS: Record<AccessoryItem, string> = {
   clips: 'Tile clips',
   ridge_tiles: 'Ridge tiles',
   hip_tiles: 'Hip tiles',
+  eaves_tiles: 'Eaves tiles',
+  top_tiles: 'Top tiles',
+  tile_and_half: 'Tile-and-a-half',
+  valley_units: 'Valley trough units',
+  hip_irons: 'Hip irons',
+  dry_verge_units: 'Dry verge units',
+  ridge_end_caps: 'Ridge end caps',
 };
 const itemWords = (item: string) => (ITEM_WORDS as Record<string, string>)[item] ?? item;
 

@@ -26,6 +26,13 @@ const FIGURE_WORDS: Record<BillLine['figure'], string> = {
   clips: 'clips at the eaves, the verges and, on steep pitches, every tail',
   underlay_rolls: 'rolls for the slope area with laps, waste included',
   valley_m: 'valley length',
+  eaves_tiles_order: 'a course of short eaves tiles at every eaves, waste included',
+  top_tiles_order: 'a course of short top tiles under every ridge and top abutment, waste included',
+  tile_and_half_order: 'one at each verge of every second full course, waste included',
+  valley_units: 'trough units along each valley, lapped',
+  dry_verge_units: 'one unit a course on each verge',
+  ridge_end_caps: 'one at each ridge end that finishes at a verge',
+  hip_irons: 'one at the foot of each hip',
 };
 
 const helper = dataTableColumns<BillRow>();

@@ -2,6 +2,7 @@ import { useCallback, useDeferredValue, useEffect, useId, useMemo, useRef, useSt
 import type { FormEvent } from 'react';
 import { DEFAULT_TILE, SYSTEM_DEFAULTS } from '../../../../shared/engine/defaults';
 import type { Estimate } from '../../../../shared/schemas/estimate.schema';
+import type { Opening } from '../../../../shared/schemas/openings.schema';
 import type { Face } from '../../../../shared/schemas/schedule.schema';
 import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
 import { useZodForm } from '../../../components/form/use-zod-form';
@@ -152,6 +153,8 @@ interface EstimateBuilderProps {
   projectId: number;
   /** The faces of the schedule version being estimated, as the engine reads them. */
   faces: readonly Face[];
+  /** The openings of those faces. */
+  openings?: readonly Opening[];
   scheduleVersion: number;
   onCreated: (estimate: Estimate) => void;
 }
@@ -160,7 +163,10 @@ interface EstimateBuilderProps {
  * Choosing the roof system for an estimate, with the engine's figures worked out in the browser as
  * the form changes; saving asks the server to work them out again, price them and keep them.
  */
-export function EstimateBuilder({ projectId, faces, scheduleVersion, onCreated }: EstimateBuilderProps) {
+/** One shared empty list, so the preview is not worked out again on every render. */
+const NO_OPENINGS: readonly Opening[] = [];
+
+export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, scheduleVersion, onCreated }: EstimateBuilderProps) {
   const systems = useSystems();
   const create = useCreateEstimate(projectId);
   const wrapper = useRef<HTMLDivElement>(null);
@@ -200,8 +206,8 @@ export function EstimateBuilder({ projectId, faces, scheduleVersion, onCreated }
       if (issues.length === 0) return { state: 'empty' };
       return { state: 'problems', problems: issues.map((issue) => `${String(issue.path[0] ?? 'system').replace(/^system\.|^waste_pct\./, '')}: ${issue.message}`) };
     }
-    return previewEstimate(faces, parsed.data, offers);
-  }, [deferredValues, faces, offers]);
+    return previewEstimate(faces, parsed.data, offers, openings);
+  }, [deferredValues, faces, offers, openings]);
 
   return (
     <Form form={form} label="New estimate" className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">

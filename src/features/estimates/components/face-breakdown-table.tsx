@@ -38,6 +38,26 @@ const columns = helper.columns([
       </span>
     ),
   }),
+  helper.accessor((row) => (row.face.eaves_tiles ?? 0) + (row.face.top_tiles ?? 0) + (row.face.tile_and_half ?? 0), {
+    id: 'special',
+    header: 'Eaves · top · tile-and-half',
+    sortFn: 'alphanumeric',
+    cell: (info) =>
+      info.getValue() === 0 ? (
+        <span className="text-ink-500">—</span>
+      ) : (
+        <span className="whitespace-nowrap">
+          {n(info.row.original.face.eaves_tiles)} · {n(info.row.original.face.top_tiles)} · {n(info.row.original.face.tile_and_half)}
+        </span>
+      ),
+  }),
+  helper.accessor((row) => row.face.openings_area_m2 ?? 0, {
+    id: 'openings',
+    header: 'Openings m²',
+    sortFn: 'alphanumeric',
+    cell: (info) => (info.getValue() > 0 ? n(info.getValue(), 2) : <span className="text-ink-500">—</span>),
+  }),
+  helper.accessor((row) => row.face.ridge ?? '', { id: 'ridge', header: 'Ridge', sortFn: 'text' }),
   helper.accessor((row) => row.face.batten_m, { id: 'batten', header: 'Batten m', sortFn: 'alphanumeric', cell: (info) => n(info.getValue(), 1) }),
   helper.accessor((row) => row.face.stacks, {
     id: 'stacks',
@@ -91,7 +111,7 @@ export function FaceBreakdownTable({ faces, warningsByFace, compact = false }: F
       columns={compact ? compactColumns : columns}
       data={rows}
       getRowId={(row) => String(row.index)}
-      minWidthClass={compact ? 'min-w-[28rem]' : 'min-w-[64rem]'}
+      minWidthClass={compact ? 'min-w-[28rem]' : 'min-w-[80rem]'}
     />
   );
 }

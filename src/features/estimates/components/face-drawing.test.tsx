@@ -115,3 +115,33 @@ describe('FaceDrawing', () => {
     for (let i = 1; i < battens.length; i++) expect(battens[i].length).toBeLessThan(battens[i - 1].length);
   });
 });
+
+describe('FaceDrawing with openings and double-lap courses', () => {
+  it('draws each opening to scale with the tiles it leaves out and a cut tile each side of each course it crosses', () => {
+    const system = defaultSystem();
+    const opening = { building: 'Birch', face: 'Front', kind: 'roof_window' as const, width_mm: 780, height_mm: 1180, quantity: 2 };
+    const [result] = estimate([gable], system, [opening]).faces;
+    render(<FaceDrawing face={gable} result={result} system={system} openings={[opening]} />);
+    const svg = screen.getByTestId('face-drawing');
+    expect(within(svg).getAllByTestId('opening')).toHaveLength(2);
+    const drawn = within(svg).getAllByTestId('opening')[0];
+    expect(Number(drawn.getAttribute('width'))).toBe(780);
+    expect(Number(drawn.getAttribute('height'))).toBe(1180);
+    // ceil(1180 ÷ gauge) courses crossed, two cut tiles in each, for each of the two windows.
+    const crossed = Math.ceil(1180 / result.gauge_mm);
+    expect(within(svg).getAllByTestId('opening-cut-tile')).toHaveLength(2 * 2 * crossed);
+    expect(screen.getByTestId('face-drawing-words').textContent).toMatch(/2 × roof window 780 × 1,180 mm/);
+  });
+
+  it('marks the eaves and top courses and the tiles-and-a-half at both verges of a plain-tile face', () => {
+    const parsed = parseRoofSystem({ tile: { kind: 'double_lap', length_mm: 265, width_mm: 165, headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }], weight_kg: 1.1, per_pallet: 1000 } });
+    if (!parsed.ok) throw new Error('plain tile system rejected');
+    const [result] = estimate([gable], parsed.system).faces;
+    render(<FaceDrawing face={gable} result={result} system={parsed.system} />);
+    const svg = screen.getByTestId('face-drawing');
+    expect(within(svg).getByTestId('eaves-course')).toBeTruthy();
+    expect(within(svg).getByTestId('top-course')).toBeTruthy();
+    // Two marks (one a verge) in each course that has tiles-and-a-half.
+    expect(within(svg).getAllByTestId('tile-and-half')).toHaveLength(result.tile_and_half);
+  });
+});

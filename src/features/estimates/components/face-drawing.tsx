@@ -2,6 +2,7 @@ import { useId, useMemo } from 'react';
 import type { ReactNode } from 'react';
 import type { FaceShape } from '../../../../shared/engine/geometry';
 import type { FaceResult } from '../../../../shared/engine/result';
+import type { Opening } from '../../../../shared/schemas/openings.schema';
 import type { RoofSystem } from '../../../../shared/schemas/roof-system.schema';
 import type { EdgeKind, TopKind } from '../../../../shared/schemas/schedule.schema';
 import { faceDrawingModel } from '../lib/face-geometry';
@@ -17,6 +18,49 @@ interface FaceDrawingProps {
   system: RoofSystem;
   /** Larger type for the one-face page. */
   large?: boolean;
+  /** The openings in this face (each in every copy of it). */
+  openings?: readonly Opening[];
+}
+
+const OPENING_WORDS: Record<Opening['kind'], string> = { roof_window: 'roof window', chimney: 'chimney', dormer: 'dormer', hatch: 'hatch' };
+
+interface DrawnOpening {
+  kind: Opening['kind'];
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+  /** The courses it crosses: the band the left-out tiles come from. */
+  bandY: number;
+  bandHeight: number;
+  cuts: { x: number; y: number; width: number; height: number }[];
+}
+
+/**
+ * Where the openings are drawn: their place on the face is not given, so they sit side by side
+ * across the middle of the slope, each over the courses it crosses (ceil(height ÷ gauge), as the
+ * engine counts), with a cut tile marked each side in each of those courses.
+ */
+function placeOpenings(openings: readonly Opening[], face: DrawnFace, result: FaceResult, tileWidth: number): DrawnOpening[] {
+  const gauge = result.gauge_mm > 0 ? result.gauge_mm : face.rafter_mm;
+  const list = openings.flatMap((o) => Array.from({ length: o.quantity }, () => o));
+  const gap = result.cover_width_mm;
+  const total = list.reduce((sum, o) => sum + o.width_mm, 0) + gap * Math.max(0, list.length - 1);
+  const widest = Math.max(face.eaves_mm, face.top_mm);
+  let x = Math.max(0, (widest - total) / 2) - Math.max(0, (widest - face.eaves_mm) / 2);
+  return list.map((o) => {
+    const crossed = Math.ceil(o.height_mm / gauge - 1e-9);
+    const bandHeight = crossed * gauge;
+    const bandY = Math.max(0, Math.round((face.rafter_mm - bandHeight) / 2 / gauge) * gauge);
+    const y = bandY + (bandHeight - o.height_mm) / 2;
+    const cuts = Array.from({ length: crossed }, (_, c) => [
+      { x: x - Math.min(tileWidth, result.cover_width_mm), y: bandY + c * gauge, width: Math.min(tileWidth, result.cover_width_mm), height: gauge },
+      { x: x + o.width_mm, y: bandY + c * gauge, width: Math.min(tileWidth, result.cover_width_mm), height: gauge },
+    ]).flat();
+    const drawn = { kind: o.kind, x, y, width: o.width_mm, height: o.height_mm, bandY, bandHeight, cuts };
+    x += o.width_mm + gap;
+    return drawn;
+  });
 }
 
 const mm = (v: number) => Math.round(v).toLocaleString('en-GB');
@@ -72,9 +116,15 @@ function EdgeSwatch({ kind }: { kind: keyof typeof EDGE_STYLE }) {
  * the stacks the engine placed over the rafters, and the setting-out lines from the reference edge.
  * A list under the drawing says the same in words.
  */
-export function FaceDrawing({ face, result, system, large = false }: FaceDrawingProps) {
+export function FaceDrawing({ face, result, system, large = false, openings = [] }: FaceDrawingProps) {
   const uid = useId().replace(/:/g, '');
   const model = useMemo(() => faceDrawingModel(face, result, system), [face, result, system]);
+  const drawnOpenings = useMemo(() => placeOpenings(openings, face, result, system.tile.width_mm), [openings, face, result, system.tile.width_mm]);
+  const special = (result.eaves_tiles ?? 0) > 0 || (result.top_tiles ?? 0) > 0;
+  const lastBatten = model.battens.length - 1;
+  // Double lap: a tile-and-a-half at each verge of every second full course from the second.
+  const tahCourses = (result.tile_and_half ?? 0) > 0 ? model.battens.filter((b) => b.index >= 2 && b.index <= lastBatten - 1 && b.index % 2 === 0) : [];
+  const tahWidth = system.tile.width_mm * 1.5;
   const width = model.width.max - model.width.min;
   const size = Math.max(width, face.rafter_mm);
   const font = size / (large ? 40 : 30);
@@ -162,6 +212,54 @@ export function FaceDrawing({ face, result, system, large = false }: FaceDrawing
             vectorEffect="non-scaling-stroke"
             data-testid="stack"
           />
+        ))}
+        {special
+          ? model.battens
+              .filter((b) => b.index === 0 || b.index === lastBatten)
+              .map((b) => (
+                <line
+                  key={`sc${b.index}`}
+                  x1={b.x1}
+                  y1={Y(b.y)}
+                  x2={b.x2}
+                  y2={Y(b.y)}
+                  className="stroke-clay-500"
+                  strokeWidth={4}
+                  strokeDasharray="8 3"
+                  vectorEffect="non-scaling-stroke"
+                  data-testid={b.index === 0 ? 'eaves-course' : 'top-course'}
+                />
+              ))
+          : null}
+        {tahCourses.flatMap((b) => {
+          const left = Math.min(b.x1, b.x2);
+          const right = Math.max(b.x1, b.x2);
+          const marks = [];
+          if (face.left === 'verge') marks.push(left);
+          if (face.right === 'verge') marks.push(right - tahWidth);
+          return marks.map((x) => (
+            <rect
+              key={`th${b.index}-${x}`}
+              x={x}
+              y={Y(b.y) - Math.max(result.gauge_mm, 1) / 2}
+              width={tahWidth}
+              height={Math.max(result.gauge_mm, 1)}
+              className="fill-moss-600/60"
+              data-testid="tile-and-half"
+            />
+          ));
+        })}
+        {drawnOpenings.map((o, i) => (
+          <g key={`o${i}`}>
+            <rect x={o.x} y={Y(o.bandY + o.bandHeight)} width={o.width} height={o.bandHeight} className="fill-ink-200" data-testid="opening-tiles-left-out" />
+            {o.cuts.map((c, j) => (
+              <rect key={j} x={c.x} y={Y(c.y + c.height)} width={c.width} height={c.height} className="fill-ochre-400/70 stroke-ochre-700" strokeWidth={1} vectorEffect="non-scaling-stroke" data-testid="opening-cut-tile" />
+            ))}
+            <rect x={o.x} y={Y(o.y + o.height)} width={o.width} height={o.height} className="fill-white stroke-ink-900" strokeWidth={2} vectorEffect="non-scaling-stroke" data-testid="opening" />
+            <text x={o.x + o.width / 2} y={Y(o.y + o.height / 2)} fontSize={font * 0.7} textAnchor="middle" className="fill-ink-800">
+              {OPENING_WORDS[o.kind]}
+            </text>
+          </g>
         ))}
         {edges.map((edge) => {
           const style = EDGE_STYLE[edge.kind];
@@ -251,6 +349,32 @@ export function FaceDrawing({ face, result, system, large = false }: FaceDrawing
             </Swatch>
             Setting-out line
           </li>
+          {special ? (
+            <li className="flex items-center gap-2">
+              <Swatch>
+                <line x1="1" y1="6" x2="31" y2="6" className="stroke-clay-500" strokeWidth={4} strokeDasharray="8 3" />
+              </Swatch>
+              Eaves course and top course (short tiles)
+            </li>
+          ) : null}
+          {tahCourses.length > 0 ? (
+            <li className="flex items-center gap-2">
+              <Swatch>
+                <rect x="8" y="2" width="16" height="8" className="fill-moss-600/60" />
+              </Swatch>
+              Tile-and-a-half at the verge
+            </li>
+          ) : null}
+          {drawnOpenings.length > 0 ? (
+            <li className="flex items-center gap-2">
+              <Swatch>
+                <rect x="2" y="1" width="6" height="10" className="fill-ochre-400/70" />
+                <rect x="10" y="1" width="12" height="10" className="fill-ink-200" />
+                <rect x="24" y="1" width="6" height="10" className="fill-ochre-400/70" />
+              </Swatch>
+              Opening: tiles left out (grey) and cut tiles (ochre)
+            </li>
+          ) : null}
           {kindsShown.map((kind) => (
             <li key={kind} className="flex items-center gap-2">
               <EdgeSwatch kind={kind} />
@@ -274,6 +398,17 @@ export function FaceDrawing({ face, result, system, large = false }: FaceDrawing
                 : model.loadingRows.map((row) => `batten ${row.row + 1} from the eaves, ${row.stacks}`).join('; ')}
               .
             </li>
+            {special ? (
+              <li>
+                {result.eaves_tiles} eaves tiles in the first course, {result.top_tiles} top tiles in the last; {result.tile_and_half} tiles-and-a-half at the verges of every second full course.
+              </li>
+            ) : null}
+            {openings.length > 0 ? (
+              <li>
+                Openings (positions not given, drawn side by side at mid-slope):{' '}
+                {openings.map((o) => `${o.quantity} × ${OPENING_WORDS[o.kind]} ${mm(o.width_mm)} × ${mm(o.height_mm)} mm`).join('; ')}; {result.openings_area_m2} m² left untiled.
+              </li>
+            ) : null}
             <li>
               Setting-out marks from {referenceWords}:{' '}
               {model.marks.length === 0 ? 'none (three tiles or fewer a course).' : `${model.marks.map((m) => mm(m.mm)).join(', ')} mm.`}

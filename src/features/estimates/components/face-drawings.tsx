@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { EngineWarning, FaceResult } from '../../../../shared/engine/result';
+import type { Opening } from '../../../../shared/schemas/openings.schema';
 import type { RoofSystem } from '../../../../shared/schemas/roof-system.schema';
 import { Alert } from '../../../components/ui/alert';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -12,6 +13,8 @@ interface FaceDrawingsProps {
   results: readonly FaceResult[];
   system: RoofSystem;
   warningsByFace: Map<number, EngineWarning[]>;
+  /** The openings of each face, in the order of the faces. */
+  openings?: readonly (readonly Opening[])[];
 }
 
 export function FaceWarnings({ warnings }: { warnings: readonly EngineWarning[] }) {
@@ -28,7 +31,7 @@ export function FaceWarnings({ warnings }: { warnings: readonly EngineWarning[] 
 }
 
 /** A drawing for every face of the estimate, each with the warnings that concern it. */
-export function FaceDrawings({ estimateId, faces, results, system, warningsByFace }: FaceDrawingsProps) {
+export function FaceDrawings({ estimateId, faces, results, system, warningsByFace, openings }: FaceDrawingsProps) {
   if (faces.length !== results.length) {
     return <EmptyState title="The drawings cannot be shown">The schedule version of this estimate could not be matched to its faces.</EmptyState>;
   }
@@ -46,7 +49,7 @@ export function FaceDrawings({ estimateId, faces, results, system, warningsByFac
             </Link>
           </div>
           <FaceWarnings warnings={warningsByFace.get(index) ?? []} />
-          <FaceDrawing face={faces[index]} result={result} system={system} />
+          <FaceDrawing face={faces[index]} result={result} system={system} openings={openings?.[index]} />
         </li>
       ))}
     </ul>

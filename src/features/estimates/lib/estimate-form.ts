@@ -6,6 +6,7 @@ import type { RoofSystemOffer } from '../../../../shared/schemas/catalogue.schem
 import { wastePctSchema } from '../../../../shared/schemas/estimate.schema';
 import type { CreateEstimateBody } from '../../../../shared/schemas/estimate.schema';
 import type { Face } from '../../../../shared/schemas/schedule.schema';
+import type { Opening } from '../../../../shared/schemas/openings.schema';
 
 /**
  * The estimate form's fields are flat inputs named by the path the API reports errors on
@@ -115,7 +116,12 @@ export type PreviewOutcome =
   | { state: 'ready'; result: EngineResult };
 
 /** The engine's estimate of the schedule with the system as the form stands, worked out in the browser. */
-export function previewEstimate(faces: readonly Face[], body: CreateEstimateBody | null, offers: readonly RoofSystemOffer[]): PreviewOutcome {
+export function previewEstimate(
+  faces: readonly Face[],
+  body: CreateEstimateBody | null,
+  offers: readonly RoofSystemOffer[],
+  openings: readonly Opening[] = [],
+): PreviewOutcome {
   if (!body) return { state: 'empty' };
   let input: Record<string, unknown>;
   if (body.system_id !== undefined) {
@@ -131,5 +137,5 @@ export function previewEstimate(faces: readonly Face[], body: CreateEstimateBody
   if (unsuitable.length > 0) {
     return { state: 'problems', problems: unsuitable.map((p) => `${faces[(p.row ?? 1) - 1]?.building} · ${faces[(p.row ?? 1) - 1]?.face}: ${p.message}`) };
   }
-  return { state: 'ready', result: estimate([...faces], system.system) };
+  return { state: 'ready', result: estimate([...faces], system.system, openings) };
 }

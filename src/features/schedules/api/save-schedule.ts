@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { SCHEDULE_FILE_FIELD, scheduleResponseSchema, type ScheduleResponse } from '../../../../shared/schemas/schedule-upload.schema';
+import type { OpeningRowInput } from '../../../../shared/schemas/openings.schema';
 import type { ScheduleRowInput } from '../../../../shared/schemas/schedule.schema';
 import { apiClient } from '../../../lib/api-client';
 import { scheduleKeys } from './keys';
@@ -8,8 +9,18 @@ import { scheduleKeys } from './keys';
  * Stores a new schedule version from checked rows (PUT /api/projects/:id/schedule). The server
  * checks every row again with the same schema and stores all of them or none.
  */
-export function saveSchedule(projectId: number, faces: readonly ScheduleRowInput[]) {
-  return apiClient.put(`/api/projects/${projectId}/schedule`, { body: { faces }, schema: scheduleResponseSchema });
+export function saveSchedule(projectId: number, faces: readonly ScheduleRowInput[], openings: readonly OpeningRowInput[] = []) {
+  return apiClient.put(`/api/projects/${projectId}/schedule`, { body: { faces, openings }, schema: scheduleResponseSchema });
+}
+
+/**
+ * Uploads an openings file for the site's current faces (POST /api/projects/:id/schedule/openings,
+ * multipart field `file`): stored as the next version with the same faces and these openings.
+ */
+export function uploadOpeningsCsv(projectId: number, csv: string, filename: string) {
+  const form = new FormData();
+  form.append(SCHEDULE_FILE_FIELD, new Blob([csv], { type: 'text/csv' }), filename);
+  return apiClient.post(`/api/projects/${projectId}/schedule/openings`, { body: form, schema: scheduleResponseSchema });
 }
 
 /**
@@ -35,7 +46,13 @@ function useStoreSchedule<T>(projectId: number, store: (input: T) => Promise<Sch
 }
 
 export function useSaveSchedule(projectId: number) {
-  return useStoreSchedule(projectId, (faces: readonly ScheduleRowInput[]) => saveSchedule(projectId, faces));
+  return useStoreSchedule(projectId, (input: { faces: readonly ScheduleRowInput[]; openings?: readonly OpeningRowInput[] }) =>
+    saveSchedule(projectId, input.faces, input.openings),
+  );
+}
+
+export function useUploadOpenings(projectId: number) {
+  return useStoreSchedule(projectId, (file: { csv: string; filename: string }) => uploadOpeningsCsv(projectId, file.csv, file.filename));
 }
 
 export function useUploadSchedule(projectId: number) {

@@ -20,13 +20,14 @@ const GUIDE: Record<ScheduleColumn, { need: string; meaning: string }> = {
   face: { need: 'Required', meaning: `A name for the face, unique within its building (e.g. Front, Back, East hip end). At most ${SCHEDULE_LIMITS.maxTextLength} characters.` },
   quantity: { need: 'Optional (1 if blank)', meaning: `How many identical faces: a whole number from 1 to ${SCHEDULE_LIMITS.maxQuantity.toLocaleString('en-GB')}.` },
   pitch_deg: { need: 'Required', meaning: 'Roof pitch in degrees, above 0 and below 90.' },
-  rafter_mm: { need: 'This or run_mm', meaning: 'Length up the slope from eaves to top edge, in millimetres.' },
+  rafter_mm: { need: 'This or run_mm', meaning: 'Length up the slope from eaves to top edge, in millimetres. Needed for faces of 80° and steeper.' },
   run_mm: { need: 'This or rafter_mm', meaning: `Length of the rafter measured on plan, in millimetres. Given with rafter_mm, the two must agree with the pitch within ${SCHEDULE_LIMITS.rafterRunTolerance * 100} %.` },
   eaves_mm: { need: 'Required', meaning: 'Length of the eaves (the bottom edge), in millimetres.' },
-  top_mm: { need: 'Optional', meaning: 'Length of the top edge in millimetres: 0 for a triangular hip end; left blank, the same as the eaves. Between two verges it must equal the eaves.' },
+  top_mm: { need: 'Required beside a hip or valley', meaning: 'Length of the top edge in millimetres: 0 for a triangular hip end. Required on a face with a hip or valley edge; otherwise left blank, the same as the eaves. Between two verges it must equal the eaves.' },
   left: { need: 'Optional (verge)', meaning: `The left-hand edge seen from the eaves: ${words(EDGE_KINDS)}.` },
   right: { need: 'Optional (verge)', meaning: `The right-hand edge seen from the eaves: ${words(EDGE_KINDS)}.` },
   top: { need: 'Optional (ridge)', meaning: `The top edge: ${words(TOP_KINDS)}.` },
+  ridge: { need: 'Optional', meaning: 'A name for the ridge line the top edge meets (e.g. Main), unique within the building: faces with the same name are loaded as one ridge. Left blank, faces are paired by equal top length.' },
 };
 
 const rows: GuideRow[] = SCHEDULE_COLUMNS.map((column, i) => ({ column, letter: columnLetter(i), ...GUIDE[column] }));

@@ -6,7 +6,8 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { formatDateTime } from '../../../lib/format';
 import { useCurrentSchedule } from '../api/get-current-schedule';
-import { ScheduleFacesTable } from './schedule-faces-table';
+import { OpeningsImport } from './openings-import';
+import { ScheduleFacesTable, ScheduleOpeningsTable } from './schedule-faces-table';
 import { ScheduleHistory, sourceWords } from './schedule-history';
 
 interface CurrentScheduleProps {
@@ -43,6 +44,22 @@ export function CurrentSchedule({ projectId, readOnly }: CurrentScheduleProps) {
             {sourceWords(schedule.data)} · {formatDateTime(schedule.data.created_at)}
           </p>
           <ScheduleFacesTable faces={schedule.data.faces} />
+          {schedule.data.faces.some((f) => f.top_assumed) ? (
+            <p className="text-sm font-medium text-brick-700">
+              Some faces beside a hip or valley were stored without a top edge: their top was taken as the eaves. Edit the faces to give it.
+            </p>
+          ) : null}
+          <section aria-label="Openings" className="space-y-2">
+            <h3 className="font-semibold">
+              Openings {schedule.data.openings.length > 0 ? `(${schedule.data.openings.length})` : ''}
+            </h3>
+            {schedule.data.openings.length > 0 ? (
+              <ScheduleOpeningsTable openings={schedule.data.openings} />
+            ) : (
+              <p className="text-sm text-ink-700">No roof windows, chimneys, dormers or hatches recorded.</p>
+            )}
+            {readOnly ? null : <OpeningsImport projectId={projectId} />}
+          </section>
           <details className="rounded-md border border-mortar-300 px-4 py-2">
             <summary className="min-h-tap cursor-pointer content-center font-semibold">Earlier versions</summary>
             <ScheduleHistory projectId={projectId} />

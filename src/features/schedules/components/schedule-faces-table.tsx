@@ -1,4 +1,4 @@
-import type { StoredFace } from '../../../../shared/schemas/schedule-upload.schema';
+import type { StoredFace, StoredOpening } from '../../../../shared/schemas/schedule-upload.schema';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 
 const helper = dataTableColumns<StoredFace>();
@@ -20,7 +20,40 @@ const columns = helper.columns([
     enableSorting: false,
     cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
   }),
+  helper.accessor((row) => row.ridge ?? '', { id: 'ridge', header: 'Ridge', sortFn: 'text' }),
+  helper.accessor((row) => (row.top_assumed ? 'top taken as eaves' : ''), {
+    id: 'notes',
+    header: 'Notes',
+    enableSorting: false,
+    cell: (info) => (info.getValue() ? <span className="whitespace-nowrap font-medium text-brick-700">{info.getValue()}</span> : null),
+  }),
 ]);
+
+const openingHelper = dataTableColumns<StoredOpening>();
+const KIND_WORDS: Record<StoredOpening['kind'], string> = { roof_window: 'Roof window', chimney: 'Chimney', dormer: 'Dormer', hatch: 'Hatch' };
+const openingColumns = openingHelper.columns([
+  openingHelper.accessor('building', { header: 'Building', sortFn: 'text' }),
+  openingHelper.accessor('face', { header: 'Face', sortFn: 'text' }),
+  openingHelper.accessor('kind', { header: 'Kind', sortFn: 'text', cell: (info) => KIND_WORDS[info.getValue()] }),
+  openingHelper.accessor('width_mm', { header: 'Width mm', sortFn: 'alphanumeric', cell: (info) => mm(info.getValue()) }),
+  openingHelper.accessor('height_mm', { header: 'Height mm', sortFn: 'alphanumeric', cell: (info) => mm(info.getValue()) }),
+  openingHelper.accessor('quantity', { header: 'Qty in each face', sortFn: 'alphanumeric' }),
+]);
+
+/** The openings of one stored schedule version: each is in every copy of its face. */
+export function ScheduleOpeningsTable({ openings }: { openings: readonly StoredOpening[] }) {
+  return (
+    <DataTable
+      caption="Openings"
+      captionHidden
+      columns={openingColumns}
+      data={openings}
+      getRowId={(o) => String(o.id)}
+      initialSorting={[{ id: 'building', desc: false }]}
+      minWidthClass="min-w-[36rem]"
+    />
+  );
+}
 
 /** The faces of one stored schedule version, as the engine reads them (rafter worked out from run where needed). */
 export function ScheduleFacesTable({ faces, caption = 'Roof faces' }: { faces: readonly StoredFace[]; caption?: string }) {

@@ -27,7 +27,8 @@ const storedSchedule = (faces: unknown[]) => ({
   face_count: faces.length,
   created_at: '2026-12-01T10:00:00.000Z',
   created_by: { id: 2, name: 'Idris Venmore' },
-  faces: faces.map((f, i) => ({ id: i + 1, position: i + 1, ...(f as object) })),
+  faces: faces.map((f, i) => ({ id: i + 1, position: i + 1, ridge: null, top_assumed: false, ...(f as object) })),
+  openings: [],
   warnings: [],
 });
 
