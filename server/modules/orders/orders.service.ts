@@ -458,6 +458,10 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
             note: pl.note ?? '',
           };
         });
+        if (body.proposed_slot_id !== undefined) {
+          const slot = await slots.slot(user.organisation.id, body.proposed_slot_id, trx);
+          if (!slot || slot.branch_id !== order.branch_id) problems.push({ path: 'proposed_slot_id', message: `is not a delivery slot of ${order.branch_name}` });
+        }
         if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some lines of the answer are not valid', problems);
 
         const pid = await orders.insertProposal(
