@@ -1,6 +1,7 @@
 import { Router, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import type { z } from 'zod';
 import { accessGuard, type Access } from '../auth/policy';
+import { AppError } from './app-error';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
@@ -22,6 +23,58 @@ export interface Valid<P, Q, B> {
 type Out<S> = S extends z.ZodType ? z.output<S> : undefined;
 
 export type EndpointHandler<P, Q, B> = (req: Request, res: Response, valid: Valid<P, Q, B>) => Promise<unknown> | unknown;
+
+/** Path parameters that carry text (invitation tokens); every other one names a record by its id. */
+const TEXT_PARAMS = new Set(['token']);
+/** A record id as people and the client write it: plain decimal digits, no sign, no leading zero, no 0x or 1e0. */
+const PLAIN_ID = /^[1-9][0-9]{0,14}$/;
+/** Control characters no one types into a search or a query (NUL, escape, tab and newline too). */
+const QUERY_CONTROL = /[\u0000-\u001f\u007f]/;
+/** In body text, tab and line breaks are kept (notes, addresses); every other control character is refused. */
+const BODY_CONTROL = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/;
+/** Deeper than any body the API takes; a deeper one is refused before it is walked further. */
+const MAX_BODY_DEPTH = 32;
+
+function invalidField(path: string, message: string) {
+  return AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path, message }]);
+}
+
+/**
+ * Checks every request the same way before its own schemas run: a path id that is not a plain
+ * decimal integer names no record (404, as a missing one does); query text with control characters,
+ * a query `…_id` that is not a plain integer, body text with control characters and bodies nested
+ * deeper than any the API takes are refused with 422 naming the field.
+ */
+export function checkRequestShape(req: Request): void {
+  for (const [name, value] of Object.entries(req.params ?? {})) {
+    if (!TEXT_PARAMS.has(name) && (typeof value !== 'string' || !PLAIN_ID.test(value))) throw AppError.notFound();
+  }
+  for (const [name, raw] of Object.entries((req.query ?? {}) as Record<string, unknown>)) {
+    for (const value of Array.isArray(raw) ? raw : [raw]) {
+      if (typeof value !== 'string') continue;
+      if (QUERY_CONTROL.test(value)) throw invalidField(name, 'must not contain control characters');
+      if (name.endsWith('_id') && value !== '' && !PLAIN_ID.test(value)) throw invalidField(name, 'must be a whole number id');
+    }
+  }
+  if (req.body && typeof req.body === 'object' && !Buffer.isBuffer(req.body)) walkBody(req.body, [], 0);
+}
+
+function walkBody(value: unknown, path: (string | number)[], depth: number): void {
+  if (typeof value === 'string') {
+    if (BODY_CONTROL.test(value)) throw invalidField(path.join('.'), 'must not contain control characters');
+    return;
+  }
+  if (typeof value !== 'object' || value === null) return;
+  if (depth >= MAX_BODY_DEPTH) throw invalidField(path.join('.'), `is nested too deeply (at most ${MAX_BODY_DEPTH} levels)`);
+  if (Array.isArray(value)) {
+    value.forEach((v, i) => walkBody(v, [...path, i], depth + 1));
+    return;
+  }
+  for (const [k, v] of Object.entries(value)) {
+    if (BODY_CONTROL.test(k)) throw invalidField([...path, k].join('.'), 'must not contain control characters');
+    walkBody(v, [...path, k], depth + 1);
+  }
+}
 
 /** '/orders/:id' → 'orders'; '/branches/:id/stock' → 'branches'. Lower case, as Express matches paths regardless of case. */
 const firstSegment = (path: string) => {
@@ -60,6 +113,7 @@ export function apiRouter() {
     ) => {
       const run = async (req: Request, res: Response, next: NextFunction) => {
         try {
+          checkRequestShape(req);
           const valid = {
             params: spec.params ? spec.params.parse(req.params) : undefined,
             query: spec.query ? spec.query.parse(req.query) : undefined,

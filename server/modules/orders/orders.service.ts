@@ -22,6 +22,7 @@ import {
   type recordDeliveryBodySchema,
 } from '../../../shared/schemas/order.schema';
 import type { BusinessCalendar } from '../../../shared/domain/business-calendar';
+import { bookingDateProblem } from '../../../shared/domain/booking-window';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
@@ -69,8 +70,10 @@ function invalid(path: string, message: string): AppError {
   return AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path, message }]);
 }
 
+/** A delivery day asked for or offered: today up to the end of the booking window. */
 function assertNotPast(calendar: BusinessCalendar, date: string, path: string) {
-  if (calendar.isPast(date)) throw invalid(path, 'must be today or later');
+  const problem = bookingDateProblem(calendar, date);
+  if (problem) throw invalid(path, problem);
 }
 
 /** Why a step cannot be taken on an order in its stage, in words for the person who tried. */
