@@ -45,6 +45,8 @@ const hasBodyControl = (s: string) => {
   }
   return false;
 };
+/** Keys that name an object's prototype: no body of the API has such a field. */
+const PROTOTYPE_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
 /** Deeper than any body the API takes; a deeper one is refused before it is walked further. */
 const MAX_BODY_DEPTH = 32;
 
@@ -55,8 +57,8 @@ function invalidField(path: string, message: string) {
 /**
  * Checks every request the same way before its own schemas run: a path id that is not a plain
  * decimal integer names no record (404, as a missing one does); query text with control characters,
- * a query `…_id` that is not a plain integer, body text with control characters and bodies nested
- * deeper than any the API takes are refused with 422 naming the field.
+ * a query `…_id` that is not a plain integer, body text with control characters, keys naming a
+ * prototype and bodies nested deeper than any the API takes are refused with 422 naming the field.
  */
 export function checkRequestShape(req: Request): void {
   for (const [name, value] of Object.entries(req.params ?? {})) {
@@ -85,6 +87,7 @@ function walkBody(value: unknown, path: (string | number)[], depth: number): voi
   }
   for (const [k, v] of Object.entries(value)) {
     if (hasBodyControl(k)) throw invalidField([...path, k].join('.'), 'must not contain control characters');
+    if (PROTOTYPE_KEYS.has(k)) throw invalidField([...path, k].join('.'), 'is not a field of this request');
     walkBody(v, [...path, k], depth + 1);
   }
 }

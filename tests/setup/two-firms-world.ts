@@ -62,7 +62,7 @@ export async function tradingPair(t: TestApp, n: 0 | 1) {
       confirmedOrderId: billed.body.id as number,
       proposalId: proposal.body.proposal_id as number,
       invoiceId: invoice.body.id as number,
-      invoiceLineId: invoice.body.lines[0].invoice_line_id as number,
+      invoiceLineId: invoice.body.lines[0].id as number,
       quoteRequestId: qr.body.id as number,
       quoteId: quote.id as number,
       branchId: m.branchId,
