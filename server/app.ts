@@ -12,6 +12,7 @@ import type { AppDeps } from './app-deps';
 import { csrfProtection } from './auth/csrf';
 import { SessionStore } from './auth/session-store';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import { fromLoopback } from './http/loopback';
 import { authRoutes } from './modules/auth/auth.routes';
 import { authService } from './modules/auth/auth.service';
 import { catalogueRoutes } from './modules/catalogue/catalogue.routes';
@@ -147,6 +148,12 @@ export function createApp(deps: AppDeps): Express {
   api.use(apiNotFound);
 
   app.use('/api', api);
+
+  // The outbox page shows the development mail reader: the same rule as its API route.
+  app.get(['/outbox', '/outbox/{*rest}'], (req, res, next) => {
+    if (!config.isProduction && fromLoopback(req)) return next();
+    res.status(404).type('text/plain').send('Not found');
+  });
 
   if (existsSync(join(CLIENT_DIR, 'index.html'))) {
     app.use(clientAssets(CLIENT_DIR));

@@ -1,6 +1,7 @@
 import { Router, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import type { z } from 'zod';
 import { accessGuard, type Access } from '../auth/policy';
+import { AppError } from './app-error';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
@@ -22,6 +23,74 @@ export interface Valid<P, Q, B> {
 type Out<S> = S extends z.ZodType ? z.output<S> : undefined;
 
 export type EndpointHandler<P, Q, B> = (req: Request, res: Response, valid: Valid<P, Q, B>) => Promise<unknown> | unknown;
+
+/** Path parameters that carry text (invitation tokens); every other one names a record by its id. */
+const TEXT_PARAMS = new Set(['token']);
+/** A record id as people and the client write it: plain decimal digits, no sign, no leading zero, no 0x or 1e0. */
+const PLAIN_ID = /^[1-9][0-9]{0,14}$/;
+/** C0 control characters and DEL. */
+const isControl = (code: number) => code < 0x20 || code === 0x7f;
+/** Tab, line feed and carriage return: kept in body text (notes, addresses), never in a query. */
+const isBreak = (code: number) => code === 0x09 || code === 0x0a || code === 0x0d;
+/** Control characters no one types into a search or a query (NUL, escape, tab and newline too). */
+const hasQueryControl = (s: string) => {
+  for (let i = 0; i < s.length; i++) if (isControl(s.charCodeAt(i))) return true;
+  return false;
+};
+/** In body text, tab and line breaks are kept; every other control character is refused. */
+const hasBodyControl = (s: string) => {
+  for (let i = 0; i < s.length; i++) {
+    const code = s.charCodeAt(i);
+    if (isControl(code) && !isBreak(code)) return true;
+  }
+  return false;
+};
+/** Keys that name an object's prototype: no body of the API has such a field. */
+const PROTOTYPE_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
+/** Deeper than any body the API takes; a deeper one is refused before it is walked further. */
+const MAX_BODY_DEPTH = 32;
+
+function invalidField(path: string, message: string) {
+  return AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path, message }]);
+}
+
+/**
+ * Checks every request the same way before its own schemas run: a path id that is not a plain
+ * decimal integer names no record (404, as a missing one does); query text with control characters,
+ * a query `…_id` that is not a plain integer, body text with control characters, keys naming a
+ * prototype and bodies nested deeper than any the API takes are refused with 422 naming the field.
+ */
+export function checkRequestShape(req: Request): void {
+  for (const [name, value] of Object.entries(req.params ?? {})) {
+    if (!TEXT_PARAMS.has(name) && (typeof value !== 'string' || !PLAIN_ID.test(value))) throw AppError.notFound();
+  }
+  for (const [name, raw] of Object.entries((req.query ?? {}) as Record<string, unknown>)) {
+    for (const value of Array.isArray(raw) ? raw : [raw]) {
+      if (typeof value !== 'string') continue;
+      if (hasQueryControl(value)) throw invalidField(name, 'must not contain control characters');
+      if (name.endsWith('_id') && value !== '' && !PLAIN_ID.test(value)) throw invalidField(name, 'must be a whole number id');
+    }
+  }
+  if (req.body && typeof req.body === 'object' && !Buffer.isBuffer(req.body)) walkBody(req.body, [], 0);
+}
+
+function walkBody(value: unknown, path: (string | number)[], depth: number): void {
+  if (typeof value === 'string') {
+    if (hasBodyControl(value)) throw invalidField(path.join('.'), 'must not contain control characters');
+    return;
+  }
+  if (typeof value !== 'object' || value === null) return;
+  if (depth >= MAX_BODY_DEPTH) throw invalidField(path.join('.'), `is nested too deeply (at most ${MAX_BODY_DEPTH} levels)`);
+  if (Array.isArray(value)) {
+    value.forEach((v, i) => walkBody(v, [...path, i], depth + 1));
+    return;
+  }
+  for (const [k, v] of Object.entries(value)) {
+    if (hasBodyControl(k)) throw invalidField([...path, k].join('.'), 'must not contain control characters');
+    if (PROTOTYPE_KEYS.has(k)) throw invalidField([...path, k].join('.'), 'is not a field of this request');
+    walkBody(v, [...path, k], depth + 1);
+  }
+}
 
 /** '/orders/:id' → 'orders'; '/branches/:id/stock' → 'branches'. Lower case, as Express matches paths regardless of case. */
 const firstSegment = (path: string) => {
@@ -60,6 +129,7 @@ export function apiRouter() {
     ) => {
       const run = async (req: Request, res: Response, next: NextFunction) => {
         try {
+          checkRequestShape(req);
           const valid = {
             params: spec.params ? spec.params.parse(req.params) : undefined,
             query: spec.query ? spec.query.parse(req.query) : undefined,

@@ -1,6 +1,7 @@
 import { createHmac, randomBytes } from 'node:crypto';
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import qs from 'qs';
 
 /**
  * A local stand-in for the card-payment provider's REST API, for development and tests only. It speaks
@@ -54,32 +55,22 @@ const API_VERSION = '2026-10-28.endive';
 const newId = (prefix: string) => `${prefix}_test_${randomBytes(12).toString('base64url').replace(/[-_]/g, 'x')}`;
 const nowSeconds = () => Math.floor(Date.now() / 1000);
 
-/** Turns a form body with bracketed keys (a[b][0][c]=v) into nested objects and arrays. */
-export function parseForm(body: string): Json {
-  const root: Json = {};
-  for (const [key, value] of new URLSearchParams(body)) {
-    const parts = key.replace(/\]/g, '').split('[');
-    let node: Json = root;
-    parts.forEach((part, i) => {
-      if (i === parts.length - 1) {
-        node[part] = value;
-        return;
-      }
-      node[part] ??= {};
-      node = node[part] as Json;
-    });
-  }
-  return arraysOf(root) as Json;
-}
+/** Key parts that would reach an object's prototype rather than a property of its own. */
+const PROTOTYPE_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
 
-function arraysOf(v: unknown): unknown {
-  if (typeof v !== 'object' || v === null) return v;
-  const obj = v as Json;
-  const keys = Object.keys(obj);
-  if (keys.length > 0 && keys.every((k) => /^\d+$/.test(k))) {
-    return keys.sort((a, b) => Number(a) - Number(b)).map((k) => arraysOf(obj[k]));
+/**
+ * Turns a form body with bracketed keys (a[b][0][c]=v) into nested objects and arrays, with `qs` (the
+ * parser whose bracket format the provider's SDK writes). The fake runs inside the app's process, so a
+ * key that names a prototype (__proto__[x], constructor[prototype][x]) is refused outright rather than
+ * merely skipped, and every object made has no prototype at all.
+ */
+export function parseForm(body: string): Json {
+  for (const key of new URLSearchParams(body).keys()) {
+    const parts = key.split(/[[\].]+/).filter(Boolean);
+    const bad = parts.find((p) => PROTOTYPE_KEYS.has(p));
+    if (bad !== undefined) throw invalid(`Received unknown parameter: ${key}`, key, 'parameter_unknown');
   }
-  return Object.fromEntries(keys.map((k) => [k, arraysOf(obj[k])]));
+  return qs.parse(body, { allowPrototypes: false, plainObjects: true, depth: 8, arrayLimit: 1000, parameterLimit: 2000, allowDots: false }) as Json;
 }
 
 class ApiError extends Error {
@@ -304,7 +295,14 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
     }
     const raw = await readBody(req);
     const url = new URL(path, 'http://x');
-    const params = req.method === 'GET' ? parseForm(url.search.slice(1)) : parseForm(raw);
+    let params: Json;
+    try {
+      params = req.method === 'GET' ? parseForm(url.search.slice(1)) : parseForm(raw);
+    } catch (err) {
+      if (!(err instanceof ApiError)) throw err;
+      send(err.status, err.body);
+      return;
+    }
     const key = req.headers['idempotency-key'];
     const fingerprint = `${req.method} ${url.pathname} ${raw}`;
     if (typeof key === 'string' && req.method === 'POST') {

@@ -79,11 +79,15 @@ export const createProjectBodySchema = z.object({
 });
 export type CreateProjectBody = z.input<typeof createProjectBodySchema>;
 
-/** An edit sends only what changes; buildings, when sent, replace the whole list. */
+/**
+ * An edit sends only what changes; buildings, when sent, replace the whole list. It names the revision
+ * it was made on: someone else's save in between makes it stale (409).
+ */
 export const updateProjectBodySchema = z
   .object(editableFields)
   .partial()
-  .refine((b) => Object.keys(b).length > 0, { error: 'send at least one field to change' });
+  .extend({ revision: z.number({ error: 'is required: the revision of the site you edited' }).int().positive() })
+  .refine((b) => Object.keys(b).some((k) => k !== 'revision'), { error: 'send at least one field to change' });
 export type UpdateProjectBody = z.input<typeof updateProjectBodySchema>;
 
 export const PROJECT_SORTS = ['name', 'created_at', 'updated_at', 'site_address'] as const;
@@ -123,6 +127,8 @@ export const projectSummarySchema = z.object({
 });
 
 export const projectSchema = projectSummarySchema.extend({
+  /** Raised by every edit; an edit names the revision it was made on. */
+  revision: z.number().int(),
   vehicle_access: z.enum(VEHICLE_ACCESS),
   crane_lift: z.enum(CRANE_LIFT),
   overhead_lines: z.enum(OVERHEAD_LINES),

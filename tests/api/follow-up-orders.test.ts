@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { addDays, addMonths } from '../../shared/domain/business-calendar';
 import { orderDetailSchema } from '../../shared/schemas/order.schema';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { contractorWithEstimate, merchantWithCatalogue, orderBody, type TestMerchant } from '../setup/order-scenario';
@@ -117,6 +118,11 @@ describe('back-ordered packs follow as an order of their own', () => {
     expect(past.body.error.details[0].path).toBe('requested_date');
     const badDate = await desk.post(`/api/orders/${order.id}/follow-up`, { requested_date: '2027-02-30' });
     expect(badDate.status).toBe(422);
+    for (const tooFar of ['9999-12-31', addDays(addMonths(t.config.calendar.today(), 24), 1)]) {
+      const far = await desk.post(`/api/orders/${order.id}/follow-up`, { requested_date: tooFar });
+      expect(far.status).toBe(422);
+      expect(far.body.error.details[0]).toMatchObject({ path: 'requested_date', message: expect.stringMatching(/within two years/) });
+    }
 
     expect((await owner.c.post(`/api/orders/${order.id}/follow-up`, { requested_date: inDays(10) })).status).toBe(403);
     const other = await merchantWithCatalogue(t);

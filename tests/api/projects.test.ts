@@ -143,17 +143,32 @@ describe('editing and archiving a site', () => {
   it('changes only the fields sent, replaces the building list when sent, and keeps the rest', async () => {
     const { c } = await signedIn();
     const { id } = (await c.post('/api/projects', site())).body;
-    const res = await c.patch(`/api/projects/${id}`, { crane_lift: 'not_allowed', buildings: [{ name: 'Plot 2A', kind: 'plot' }] });
+    const res = await c.patch(`/api/projects/${id}`, { revision: 1, crane_lift: 'not_allowed', buildings: [{ name: 'Plot 2A', kind: 'plot' }] });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ crane_lift: 'not_allowed', name: 'Quarry Row', set_down_place: 'Front drive of plot 2', building_count: 1 });
     expect(res.body.buildings.map((b: { name: string }) => b.name)).toEqual(['Plot 2A']);
+    expect(res.body.revision).toBe(2);
+  });
+
+  it('refuses an edit without a revision (422) and one made on a stale revision (409), keeping the other person’s save', async () => {
+    const { c } = await signedIn();
+    const { id } = (await c.post('/api/projects', site())).body;
+    const missing = await c.patch(`/api/projects/${id}`, { name: 'No revision' });
+    expect(missing.status).toBe(422);
+    expect(missing.body.error.details[0].path).toBe('revision');
+    expect((await c.patch(`/api/projects/${id}`, { revision: 1, contact_name: 'First saver' })).status).toBe(200);
+    const stale = await c.patch(`/api/projects/${id}`, { revision: 1, contact_name: 'Second saver' });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('project_changed');
+    const now = (await c.get(`/api/projects/${id}`)).body;
+    expect(now).toMatchObject({ contact_name: 'First saver', revision: 2 });
   });
 
   it('rejects an empty change and a bad value with 422 and changes nothing', async () => {
     const { c } = await signedIn();
     const { id } = (await c.post('/api/projects', site())).body;
-    expect((await c.patch(`/api/projects/${id}`, {})).status).toBe(422);
-    const bad = await c.patch(`/api/projects/${id}`, { vehicle_access: 'helicopter' });
+    expect((await c.patch(`/api/projects/${id}`, { revision: 1 })).status).toBe(422);
+    const bad = await c.patch(`/api/projects/${id}`, { revision: 1, vehicle_access: 'helicopter' });
     expect(bad.status).toBe(422);
     expect(bad.body.error.details[0].path).toBe('vehicle_access');
     expect((await c.get(`/api/projects/${id}`)).body.vehicle_access).toBe('rigid_only');
@@ -165,12 +180,12 @@ describe('editing and archiving a site', () => {
     const archived = await c.post(`/api/projects/${id}/archive`);
     expect(archived.status).toBe(200);
     expect(archived.body.archived_at).toEqual(expect.any(String));
-    const edit = await c.patch(`/api/projects/${id}`, { name: 'Renamed' });
+    const edit = await c.patch(`/api/projects/${id}`, { revision: 1, name: 'Renamed' });
     expect(edit.status).toBe(409);
     expect(edit.body.error.code).toBe('project_archived');
     const restored = await c.post(`/api/projects/${id}/restore`);
     expect(restored.body.archived_at).toBeNull();
-    expect((await c.patch(`/api/projects/${id}`, { name: 'Renamed' })).body.name).toBe('Renamed');
+    expect((await c.patch(`/api/projects/${id}`, { revision: 1, name: 'Renamed' })).body.name).toBe('Renamed');
   });
 });
 
@@ -184,7 +199,7 @@ describe('no role reaches another contractor’s sites', () => {
       const actor = await signedIn(kindOfRole(role), role);
       const attempts = [
         await actor.c.get(`/api/projects/${id}`),
-        await actor.c.patch(`/api/projects/${id}`, { name: 'Taken over' }),
+        await actor.c.patch(`/api/projects/${id}`, { revision: 1, name: 'Taken over' }),
         await actor.c.post(`/api/projects/${id}/archive`),
         await actor.c.post(`/api/projects/${id}/restore`),
       ];

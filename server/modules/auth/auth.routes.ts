@@ -55,8 +55,8 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
     '/auth/password/forgot',
     { access: { public: 'asking for a reset link' }, before: [resetLimit], body: forgotPasswordBodySchema },
     async (_req, res, { body }) => {
-      await auth.requestPasswordReset(body.email);
       res.status(202).json({ ok: true });
+      auth.requestPasswordReset(body.email);
     },
   );
 

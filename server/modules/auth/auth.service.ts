@@ -6,6 +6,7 @@ import { dummyPasswordHash, hashPassword, verifyPassword } from '../../auth/pass
 import { hashToken, newToken } from '../../auth/tokens';
 import { isoInHours } from '../../db/time';
 import { AppError } from '../../http/app-error';
+import { runLater } from '../../mail/send-later';
 import { renderEmail } from '../../mail/templates';
 import { usersRepository } from '../members/users.repository';
 import { organisationsRepository } from '../organisations/organisations.repository';
@@ -46,14 +47,18 @@ export function authService({ db, mailer, config, logger }: AppDeps) {
       return (await users.findAuthUser(userId))!;
     },
 
-    /** Sends a reset link when the account exists; says nothing either way. */
-    async requestPasswordReset(email: string): Promise<void> {
-      const user = await users.findByEmail(email);
-      if (!user) return;
-      const { token, tokenHash } = newToken();
-      await resets.create(user.id, tokenHash, isoInHours(RESET_TOKEN_HOURS));
-      const url = `${config.appUrl}/reset-password?token=${encodeURIComponent(token)}`;
-      try {
+    /**
+     * Sends a reset link when the account exists; says nothing either way. The look-up, the token
+     * and the e-mail all happen after the caller has its answer, so a known and an unknown address
+     * cost the request the same.
+     */
+    requestPasswordReset(email: string): void {
+      runLater(logger, 'password reset e-mail', async () => {
+        const user = await users.findByEmail(email);
+        if (!user) return;
+        const { token, tokenHash } = newToken();
+        await resets.create(user.id, tokenHash, isoInHours(RESET_TOKEN_HOURS));
+        const url = `${config.appUrl}/reset-password?token=${encodeURIComponent(token)}`;
         await mailer.send(
           renderEmail({
             to: user.email,
@@ -67,9 +72,7 @@ export function authService({ db, mailer, config, logger }: AppDeps) {
             footnote: 'If you did not ask for this, you can ignore this e-mail; your password stays as it is.',
           }),
         );
-      } catch (err) {
-        logger.error({ err }, 'password reset e-mail failed');
-      }
+      });
     },
 
     /** Sets a new password from a usable reset link; returns whose password it was. */

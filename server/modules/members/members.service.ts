@@ -5,6 +5,7 @@ import { hashPassword } from '../../auth/passwords';
 import { hashToken, newToken } from '../../auth/tokens';
 import { isoInHours } from '../../db/time';
 import { AppError } from '../../http/app-error';
+import { runLater } from '../../mail/send-later';
 import { renderEmail } from '../../mail/templates';
 import { organisationsRepository } from '../organisations/organisations.repository';
 import { invitationsRepository } from './invitations.repository';
@@ -51,11 +52,14 @@ export function membersService({ db, mailer, config, logger }: AppDeps) {
 
     listInvitations: (actor: AuthUser) => invitations.listPending(actor.organisation.id),
 
+    /**
+     * Records the invitation and mails it. An address that already has an account (with any firm)
+     * is answered exactly like any other, so the answer tells the inviter nothing about who has an
+     * account; that person is told by e-mail instead, with no link, and nobody's firm changes.
+     */
     async invite(actor: AuthUser, email: string, role: Role) {
       assertRoleFitsOrganisation(actor, role);
-      if (await users.findByEmail(email)) {
-        throw AppError.conflict('already_member', 'This e-mail address already has a Ridgeload account');
-      }
+      const existing = await users.findByEmail(email);
       const { token, tokenHash } = newToken();
       const invitation = await invitations.create({
         organisation_id: actor.organisation.id,
@@ -66,9 +70,21 @@ export function membersService({ db, mailer, config, logger }: AppDeps) {
         expires_at: isoInHours(INVITATION_HOURS),
       });
       const url = `${config.appUrl}/invitations/${encodeURIComponent(token)}`;
-      try {
-        await mailer.send(
-          renderEmail({
+      const message = existing
+        ? renderEmail({
+            to: email,
+            subject: `${actor.name} invited you to ${actor.organisation.name} on Ridgeload`,
+            heading: 'Your address is already in use',
+            paragraphs: [
+              `${actor.name} invited this address to work in Ridgeload for ${actor.organisation.name} as ${ROLE_LABELS[role]}.`,
+              existing.organisation_id === actor.organisation.id
+                ? `This address already belongs to a member of ${actor.organisation.name}, so nothing changes.`
+                : 'This address is already in use with another firm on Ridgeload, and an address belongs to one firm only, so nothing changes: you stay where you are.',
+              `To work for ${actor.organisation.name} as well, ask them to invite another address of yours.`,
+            ],
+            footnote: 'If you do not know this firm, ignore this e-mail.',
+          })
+        : renderEmail({
             to: email,
             subject: `${actor.name} invited you to ${actor.organisation.name} on Ridgeload`,
             heading: `Join ${actor.organisation.name}`,
@@ -78,11 +94,8 @@ export function membersService({ db, mailer, config, logger }: AppDeps) {
             ],
             action: { label: 'Accept the invitation', url },
             footnote: 'If you do not know this firm, ignore this e-mail.',
-          }),
-        );
-      } catch (err) {
-        logger.error({ err }, 'invitation e-mail failed');
-      }
+          });
+      runLater(logger, 'invitation e-mail', () => mailer.send(message));
       return invitation;
     },
 

@@ -23,6 +23,7 @@ import {
   type recordDeliveryBodySchema,
 } from '../../../shared/schemas/order.schema';
 import type { BusinessCalendar } from '../../../shared/domain/business-calendar';
+import { bookingDateProblem } from '../../../shared/domain/booking-window';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
@@ -70,8 +71,10 @@ function invalid(path: string, message: string): AppError {
   return AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path, message }]);
 }
 
+/** A delivery day asked for or offered: today up to the end of the booking window. */
 function assertNotPast(calendar: BusinessCalendar, date: string, path: string) {
-  if (calendar.isPast(date)) throw invalid(path, 'must be today or later');
+  const problem = bookingDateProblem(calendar, date);
+  if (problem) throw invalid(path, problem);
 }
 
 /** Why a step cannot be taken on an order in its stage, in words for the person who tried. */
@@ -459,6 +462,10 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
             note: pl.note ?? '',
           };
         });
+        if (body.proposed_slot_id !== undefined) {
+          const slot = await slots.slot(user.organisation.id, body.proposed_slot_id, trx);
+          if (!slot || slot.branch_id !== order.branch_id) problems.push({ path: 'proposed_slot_id', message: `is not a delivery slot of ${order.branch_name}` });
+        }
         if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some lines of the answer are not valid', problems);
 
         const pid = await orders.insertProposal(

@@ -3,6 +3,7 @@ import Papa from 'papaparse';
 import { MAX_SHEET_ROWS } from '../../../shared/schemas/price-list.schema';
 import type { ScheduleProblem } from '../../../shared/schemas/schedule-upload.schema';
 import { AppError } from '../../http/app-error';
+import { CONTROL_CHARACTER_MESSAGE, linesWithControlCharacters } from '../../http/control-text';
 import { safeCell } from '../exports/spreadsheet-text';
 
 /** One data row of an uploaded sheet: its spreadsheet row number (header = 1) and its cells by column name. */
@@ -100,6 +101,8 @@ export async function readSheet(bytes: Buffer): Promise<Sheet> {
   } catch {
     throw invalidSheet([{ row: 1, message: 'the file is not UTF-8 text or an .xlsx workbook: save it as "CSV UTF-8" or .xlsx and send it again' }]);
   }
+  const controlLines = linesWithControlCharacters(text);
+  if (controlLines.length > 0) throw invalidSheet(controlLines.map((row) => ({ row, message: `row ${row} ${CONTROL_CHARACTER_MESSAGE}` })));
   const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', delimitersToGuess: [',', ';', '\t'] });
   if (parsed.data.length > MAX_SHEET_ROWS + 1) throw invalidSheet([{ row: MAX_SHEET_ROWS + 2, message: `a file holds at most ${MAX_SHEET_ROWS} rows; split it` }]);
   const quoteProblem = parsed.errors.find((e) => e.type === 'Quotes');

@@ -43,7 +43,7 @@ const SUMMARY_COLUMNS = [
   'p.created_at',
   'p.updated_at',
 ];
-const DETAIL_COLUMNS = [...SUMMARY_COLUMNS, 'p.vehicle_access', 'p.crane_lift', 'p.overhead_lines', 'p.set_down_place', 'p.access_notes'];
+const DETAIL_COLUMNS = [...SUMMARY_COLUMNS, 'p.revision', 'p.vehicle_access', 'p.crane_lift', 'p.overhead_lines', 'p.set_down_place', 'p.access_notes'];
 
 /** Special characters of LIKE are matched literally, so a search for "50%" finds "50%". */
 const likePattern = (q: string) => `%${q.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -132,9 +132,12 @@ export function projectsRepository(db: Db) {
       return trx('projects').where({ organisation_id: organisationId, id }).select('id', 'archived_at').first();
     },
 
-    async update(organisationId: number, id: number, values: Partial<ProjectValues>, buildings?: BuildingValues[]): Promise<boolean> {
+    /** Saves an edit made on `revision`; false when the site is not there or has moved on since. */
+    async update(organisationId: number, id: number, revision: number, values: Partial<ProjectValues>, buildings?: BuildingValues[]): Promise<boolean> {
       return db.transaction(async (trx) => {
-        const n = await trx('projects').where({ organisation_id: organisationId, id }).update({ ...values, updated_at: nowIso() });
+        const n = await trx('projects')
+          .where({ organisation_id: organisationId, id, revision })
+          .update({ ...values, revision: revision + 1, updated_at: nowIso() });
         if (n === 0) return false;
         if (buildings) await replaceBuildings(id, buildings, trx);
         return true;

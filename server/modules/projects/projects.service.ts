@@ -34,10 +34,12 @@ export function projectsService({ db }: Pick<AppDeps, 'db'>) {
     get,
 
     async update(user: AuthUser, id: number, body: UpdateValues) {
-      const { buildings, ...values } = body;
+      const { buildings, revision, ...values } = body;
       const existing = await get(user, id);
       if (existing.archived_at) throw AppError.conflict('project_archived', 'This site is archived; restore it before editing');
-      await projects.update(user.organisation.id, id, values, buildings);
+      const stale = () => AppError.conflict('project_changed', 'Someone else saved this site since you opened it; reload it and make your change again');
+      if (existing.revision !== revision) throw stale();
+      if (!(await projects.update(user.organisation.id, id, revision, values, buildings))) throw stale();
       return get(user, id);
     },
 

@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { bookingDateProblem } from '../../../shared/domain/booking-window';
 import {
   QUOTE_STATUS_LABELS,
   type QuoteRequest,
@@ -141,7 +142,8 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       const estimate = await estimates.find(user.organisation.id, body.estimate_id);
       if (!estimate) throw invalid('estimate_id', 'is not an estimate of yours');
       await projects.requireOpen(user, estimate.project_id);
-      if (body.requested_date < config.calendar.today()) throw invalid('requested_date', 'must be today or later');
+      const dateProblem = bookingDateProblem(config.calendar, body.requested_date);
+      if (dateProblem) throw invalid('requested_date', dateProblem);
       const branches = await catalogue.branchesByIds(body.branch_ids);
       const missing = body.branch_ids.map((b, i) => (branches.has(b) ? null : { path: `branch_ids.${i}`, message: 'is not a merchant branch' })).filter((x) => x !== null);
       if (missing.length > 0) throw AppError.unprocessable('validation_failed', 'Some branches are not merchant branches', missing);

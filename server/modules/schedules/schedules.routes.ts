@@ -82,7 +82,8 @@ export function schedulesRoutes(schedules: SchedulesService) {
       let filename: string | null = null;
       if (req.file) {
         bytes = req.file.buffer;
-        filename = req.file.originalname.slice(0, 200) || null;
+        // Only the file's own name is kept: folders in it (../../x.csv, C:\\x.csv) say nothing about the roof.
+        filename = req.file.originalname.split(/[\\/]/).pop()!.slice(0, 200) || null;
       } else if (Buffer.isBuffer(req.body)) {
         bytes = req.body;
       }

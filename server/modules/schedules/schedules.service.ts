@@ -6,6 +6,7 @@ import { scheduleSchema, type Face } from '../../../shared/schemas/schedule.sche
 import { MAX_SCHEDULE_FACES, type ScheduleProblem } from '../../../shared/schemas/schedule-upload.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
+import { CONTROL_CHARACTER_MESSAGE, linesWithControlCharacters } from '../../http/control-text';
 import { AppError } from '../../http/app-error';
 import { projectsService } from '../projects/projects.service';
 import { engineFace, engineOpening, schedulesRepository } from './schedules.repository';
@@ -53,6 +54,8 @@ export function schedulesService(deps: Pick<AppDeps, 'db'>) {
     async importCsv(user: AuthUser, projectId: number, text: string, filename: string | null) {
       // Refuse a site that is not theirs before reading what they sent.
       await projects.requireOpen(user, projectId);
+      const controlLines = linesWithControlCharacters(text);
+      if (controlLines.length > 0) throw invalidSchedule(controlLines.map((row) => ({ row, message: `row ${row} ${CONTROL_CHARACTER_MESSAGE}` })));
       const parsed = parseScheduleCsv(text);
       if (!parsed.ok) throw invalidSchedule(parsed.errors.map(toProblem));
       // The openings of the version before stay with the faces they name; those naming a face no longer there are dropped.

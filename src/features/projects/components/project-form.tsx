@@ -173,7 +173,7 @@ export function CreateProjectForm({ onCreated }: { onCreated: (project: Project)
 export function EditProjectForm({ project, onSaved }: { project: Project; onSaved: (project: Project) => void }) {
   const update = useUpdateProject(project.id);
   const [rows, setRows] = useState<BuildingRow[]>(() => initialRows(project));
-  const extraValues = useMemo(() => ({ buildings: buildingsBody(rows) }), [rows]);
+  const extraValues = useMemo(() => ({ buildings: buildingsBody(rows), revision: project.revision }), [rows, project.revision]);
   const form = useZodForm({
     schema: updateProjectBodySchema,
     extraValues,
