@@ -115,7 +115,14 @@ describe('runs', () => {
   });
 
   it('ticks and unticks pallets; an index off the deck is refused naming it', async () => {
-    const { yard, runId } = await runWithTwoDrops(t.config.calendar.fromToday(1));
+    const { m, yard, runId } = await runWithTwoDrops(t.config.calendar.fromToday(1));
+    // The day plan (kept in memory between changes) shows every tick at once.
+    const dayPath = `/api/branches/${m.branchId}/runs?date=${t.config.calendar.fromToday(1)}`;
+    expect(runDaySchema.parse((await yard.get(dayPath)).body)[0].loaded_count).toBe(0);
+    expect((await yard.post(`/api/runs/${runId}/positions/1/loaded`)).status).toBe(200);
+    expect(runDaySchema.parse((await yard.get(dayPath)).body)[0].loaded_count).toBe(1);
+    expect((await yard.delete(`/api/runs/${runId}/positions/1/loaded`)).status).toBe(200);
+    expect(runDaySchema.parse((await yard.get(dayPath)).body)[0].loaded_count).toBe(0);
     const ticked = runSchema.parse((await yard.post(`/api/runs/${runId}/positions/0/loaded`)).body);
     expect(ticked.deck.positions[0].loaded).toBe(true);
     expect(ticked.loaded_count).toBe(1);

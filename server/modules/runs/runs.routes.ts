@@ -11,7 +11,7 @@ export function runsRoutes(runs: RunsService, appUrl: () => string) {
   const r = apiRouter();
 
   r.get('/branches/:id/runs', { access: { action: 'runs:read' }, params: idParamsSchema, query: runDayQuerySchema }, async (req, res, { params, query }) => {
-    res.json(await runs.day(currentUser(req), params.id, query.date));
+    res.type('application/json').send(await runs.dayJson(currentUser(req), params.id, query.date));
   });
   r.get('/branches/:id/run-week', { access: { action: 'runs:read' }, params: idParamsSchema, query: runWeekQuerySchema }, async (req, res, { params, query }) => {
     res.json(await runs.week(currentUser(req), params.id, query.from));

@@ -1,3 +1,4 @@
+import { LRUCache } from 'lru-cache';
 import type { z } from 'zod';
 import { addDays } from '../../../shared/domain/business-calendar';
 import { can } from '../../../shared/domain/policy';
@@ -8,6 +9,7 @@ import type { PalletView, Run, RunStatus, RunWeek, sendOutBodySchema } from '../
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
+import { peekRow } from '../../db/knex';
 import { AppError } from '../../http/app-error';
 import { sendOrderMail } from '../orders/order-mail';
 import { ordersRepository } from '../orders/orders.repository';
@@ -138,6 +140,18 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
   const orders = ordersRepository(db);
   const branches = priceListRepository(db);
   const today = () => config.calendar.today();
+  /**
+   * Day plans, already serialised, filed under the merchant's two change counters (runs and order
+   * book, both kept by triggers): the yard's board asks for the same day again and again, and it
+   * changes only when something on it is written. Read only outside a transaction (see peekRow).
+   */
+  const days = new LRUCache<string, string>({ max: 200 });
+  const versions = (orgId: number): string | null => {
+    const run = peekRow<{ version: number }>(db, 'select version from run_versions where organisation_id = ?', orgId);
+    const book = peekRow<{ version: number }>(db, 'select version from order_book_versions where organisation_id = ?', orgId);
+    if (!run || !book) return null;
+    return `${run.row?.version ?? 0}.${book.row?.version ?? 0}`;
+  };
 
   async function branchOf(user: AuthUser, branchId: number) {
     if (user.organisation.kind !== 'merchant' || !(await branches.branch(user.organisation.id, branchId))) throw AppError.notFound('Branch');
@@ -176,6 +190,17 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
       await branchOf(user, branchId);
       const rows = await repo.between(user.organisation.id, branchId, date, date, user.role === 'driver' ? user.id : undefined);
       return (await assemble(repo, rows)).map((d) => d.run);
+    },
+
+    /** The day plan as JSON text, from memory while nothing on it has changed. */
+    async dayJson(user: AuthUser, branchId: number, date: string): Promise<string> {
+      const version = user.organisation.kind === 'merchant' ? versions(user.organisation.id) : null;
+      const key = version ? `${user.organisation.id}:${branchId}:${date}:${user.role === 'driver' ? user.id : ''}:${version}` : null;
+      const kept = key ? days.get(key) : undefined;
+      if (kept !== undefined) return kept;
+      const json = JSON.stringify(await this.day(user, branchId, date));
+      if (key) days.set(key, json);
+      return json;
     },
 
     async get(user: AuthUser, id: number): Promise<Run> {
