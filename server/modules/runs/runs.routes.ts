@@ -11,7 +11,14 @@ export function runsRoutes(runs: RunsService, appUrl: () => string) {
   const r = apiRouter();
 
   r.get('/branches/:id/runs', { access: { action: 'runs:read' }, params: idParamsSchema, query: runDayQuerySchema }, async (req, res, { params, query }) => {
-    res.type('application/json').send(await runs.dayJson(currentUser(req), params.id, query.date));
+    const { body, etag } = await runs.dayJson(currentUser(req), params.id, query.date);
+    res.setHeader('ETag', etag);
+    res.setHeader('Cache-Control', 'private, no-cache');
+    if (req.headers['if-none-match'] === etag) {
+      res.status(304).end();
+      return;
+    }
+    res.type('application/json').send(body);
   });
   r.get('/branches/:id/run-week', { access: { action: 'runs:read' }, params: idParamsSchema, query: runWeekQuerySchema }, async (req, res, { params, query }) => {
     res.json(await runs.week(currentUser(req), params.id, query.from));

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
 import type { z } from 'zod';
 import { addDays } from '../../../shared/domain/business-calendar';
@@ -145,7 +146,7 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
    * book, both kept by triggers): the yard's board asks for the same day again and again, and it
    * changes only when something on it is written. Read only outside a transaction (see peekRow).
    */
-  const days = new LRUCache<string, string>({ max: 200 });
+  const days = new LRUCache<string, { body: Buffer; etag: string }>({ max: 200 });
   const versions = (orgId: number): string | null => {
     const run = peekRow<{ version: number }>(db, 'select version from run_versions where organisation_id = ?', orgId);
     const book = peekRow<{ version: number }>(db, 'select version from order_book_versions where organisation_id = ?', orgId);
@@ -192,13 +193,14 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
       return (await assemble(repo, rows)).map((d) => d.run);
     },
 
-    /** The day plan as JSON text, from memory while nothing on it has changed. */
-    async dayJson(user: AuthUser, branchId: number, date: string): Promise<string> {
+    /** The day plan as JSON bytes with their ETag, from memory while nothing on it has changed. */
+    async dayJson(user: AuthUser, branchId: number, date: string): Promise<{ body: Buffer; etag: string }> {
       const version = user.organisation.kind === 'merchant' ? versions(user.organisation.id) : null;
       const key = version ? `${user.organisation.id}:${branchId}:${date}:${user.role === 'driver' ? user.id : ''}:${version}` : null;
       const kept = key ? days.get(key) : undefined;
       if (kept !== undefined) return kept;
-      const json = JSON.stringify(await this.day(user, branchId, date));
+      const body = Buffer.from(JSON.stringify(await this.day(user, branchId, date)), 'utf8');
+      const json = { body, etag: `W/"${body.length.toString(16)}-${createHash('sha1').update(body).digest('base64').slice(0, 27)}"` };
       if (key) days.set(key, json);
       return json;
     },
