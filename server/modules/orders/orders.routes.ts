@@ -11,7 +11,6 @@ import {
   placeOrderBodySchema,
   proposalBodySchema,
   proposalParamsSchema,
-  recordDeliveryBodySchema,
   turnDownBodySchema,
 } from '../../../shared/schemas/order.schema';
 import { currentUser } from '../../auth/policy';
@@ -90,10 +89,6 @@ export function ordersRoutes(orders: OrdersService) {
 
   r.post('/orders/:id/dispatch', { access: { action: 'slots:book' }, params: orderParamsSchema }, async (req, res, { params }) => {
     res.json(await orders.dispatch(currentUser(req), params.id));
-  });
-
-  r.post('/orders/:id/delivery', { access: { action: 'deliveries:record' }, params: orderParamsSchema, body: recordDeliveryBodySchema }, async (req, res, { params, body }) => {
-    res.json(await orders.recordDelivery(currentUser(req), params.id, body));
   });
 
   r.post('/orders/:id/follow-up', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: followUpBodySchema }, async (req, res, { params, body }) => {
