@@ -317,6 +317,16 @@ describe('the driver’s day', () => {
     expect(front.estimate_face_index).toBe(first.k.estimate.result.faces.findIndex((f: { face: string }) => f.face === 'Front'));
     expect(front.tiles).toBe(drop.pallets.flatMap((p) => p.faces).filter((f) => f.face === 'Front').reduce((s, f) => s + f.tiles, 0));
     expect(r.drops[1].landing_plan).toEqual([]);
+    expect(r.status).toBe('on_the_road');
+
+    // The yard's drop order decides, wherever it is set: the second booking first.
+    await t.db('slot_bookings').where({ order_id: second.order.id }).update({ drop_position: 1 });
+    await t.db('slot_bookings').where({ order_id: first.order.id }).update({ drop_position: 2 });
+    const reordered = driverDaySchema.parse((await driver.get('/api/driver/runs')).body).runs[0].drops;
+    expect(reordered.map((d) => [d.order_id, d.position])).toEqual([
+      [second.order.id, 1],
+      [first.order.id, 2],
+    ]);
 
     // Cautions read: recorded once for this driver, refused to anyone else.
     const read = await driver.post(`/api/runs/${r.id}/cautions-read`);

@@ -122,6 +122,17 @@ export function deliveriesRepository(db: Db) {
       return rows.map((row) => ({ ...row, lines: JSON.parse(row.lines as string) as DraftLine[] }));
     },
 
+    /** Per run: when it was sent out, and how many of its pallets are ticked loaded. */
+    async runProgress(slotIds: number[]): Promise<Map<number, { sent_out_at: string | null; loaded: number }>> {
+      if (slotIds.length === 0) return new Map();
+      const [sent, loaded] = await Promise.all([
+        db('delivery_slots').whereIn('id', slotIds).select('id', 'sent_out_at'),
+        db('run_loaded_pallets').whereIn('slot_id', slotIds).groupBy('slot_id').select('slot_id').count({ n: '*' }),
+      ]);
+      const counts = new Map((loaded as Record<string, unknown>[]).map((r) => [r.slot_id as number, Number(r.n)]));
+      return new Map(sent.map((r) => [r.id as number, { sent_out_at: (r.sent_out_at as string | null) ?? null, loaded: counts.get(r.id as number) ?? 0 }]));
+    },
+
     async cautionReads(slotIds: number[], userId: number): Promise<Map<number, string>> {
       if (slotIds.length === 0) return new Map();
       const rows = await db('run_caution_reads').whereIn('slot_id', slotIds).where({ user_id: userId }).select('slot_id', 'read_at');

@@ -35,11 +35,13 @@ const partyOf = (user: AuthUser): OrderParty => ({ kind: user.organisation.kind,
 const invalid = (problems: { path: string; message: string }[], message = 'Some fields are not valid') => AppError.unprocessable('validation_failed', message, problems);
 const proofBase = (orderId: number) => `/api/orders/${orderId}/delivery`;
 
-/** A run's stage as the driver sees it, from its drops; the yard's own run stages take over where they are kept. */
-function runStatus(statuses: string[]): RunStatus {
+/** A run's stage from its drops and the yard's loading: all dropped, on the road once sent out, else how far it is loaded. */
+function runStatus(statuses: string[], progress: { sent_out_at: string | null; loaded: number } | undefined, pallets: number): RunStatus {
   if (statuses.length > 0 && statuses.every((s) => s === 'delivered')) return 'done';
-  if (statuses.some((s) => s === 'on_the_road' || s === 'delivered')) return 'on_the_road';
-  return 'planned';
+  if (progress?.sent_out_at || statuses.some((s) => s === 'on_the_road' || s === 'delivered')) return 'on_the_road';
+  const loaded = progress?.loaded ?? 0;
+  if (pallets > 0 && loaded >= pallets) return 'loaded';
+  return loaded > 0 ? 'loading' : 'planned';
 }
 
 interface BookingWithOrder {
@@ -245,6 +247,7 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
 
   async function dayRuns(orgId: number, runs: SlotRow[], readerId: number): Promise<DriverDay['runs']> {
     const bookings = (await slots.bookingsOfSlots(runs.map((r) => r.id))) as BookingWithOrder[];
+    const progress = await repo.runProgress(runs.map((r) => r.id));
     const reads = await repo.cautionReads(
       runs.map((r) => r.id),
       readerId,
@@ -289,7 +292,11 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
         date: run.date,
         time_window: run.time_window,
         lorry: await lorryOf(run),
-        status: runStatus(drops.map((d) => d.status)),
+        status: runStatus(
+          drops.map((d) => d.status),
+          progress.get(run.id),
+          drops.reduce((s, d) => s + d.pallets.length, 0),
+        ),
         cautions: runCautions(cautions),
         cautions_read_at: reads.get(run.id) ?? null,
         drops,
