@@ -72,6 +72,12 @@ export function formFields(fields: Record<string, unknown>): Record<string, unkn
   return out;
 }
 
+/** A photo's thumbnail: WebP, at most 320 px a side, stood the right way up by the phone's orientation tag. */
+export async function makeThumbnail(photo: Buffer): Promise<Buffer> {
+  const { default: sharp } = await import('sharp');
+  return sharp(photo).rotate().resize(THUMBNAIL_PX, THUMBNAIL_PX, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 72 }).toBuffer();
+}
+
 /**
  * Checks every uploaded file by its bytes (never its name or declared type): the signature must be a
  * PNG, photos JPEG, PNG or WebP that decode as images. Photos get a thumbnail (WebP, at most 320 px);
@@ -104,7 +110,7 @@ export async function checkProofFiles(files: { signature?: Express.Multer.File[]
       continue;
     }
     try {
-      const thumbnail = await sharp(photo.buffer).rotate().resize(THUMBNAIL_PX, THUMBNAIL_PX, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 72 }).toBuffer();
+      const thumbnail = await makeThumbnail(photo.buffer);
       out.push({ kind: 'photo', position: i + 1, content_type: type.mime, data: photo.buffer, thumbnail });
     } catch {
       problems.push({ path: `photos.${i}`, message: `is not a readable image${name}` });
