@@ -137,19 +137,19 @@ export function createApp(deps: AppDeps): Express {
   const idempotent = idempotency(db);
   api.use(catalogueRoutes(catalogueService(deps)));
   api.use(projectsRoutes(projects));
-  api.use(schedulesRoutes(schedulesService(deps)));
+  api.use(schedulesRoutes(schedulesService(deps), idempotent));
   api.use(estimatesRoutes(estimates));
   api.use(exportsRoutes(estimates, projects));
   // Before the orders' routes: it answers POST /orders/:id/delivery (JSON or multipart, with proof).
   api.use(deliveriesRoutes(deliveriesService(deps), idempotent));
-  api.use(ordersRoutes(orders));
+  api.use(ordersRoutes(orders, idempotent));
   api.use(quotesRoutes(quotesService(deps, orders)));
   api.use(priceListRoutes(priceListService(deps)));
   api.use(stockRoutes(stockService(deps)));
   api.use(fleetRoutes(fleetService(deps)));
   api.use(slotsRoutes(slotsService(deps), orders.linesOf));
   api.use(invoicesRoutes(invoicesService(deps, payments)));
-  api.use(paymentsRoutes(payments));
+  api.use(paymentsRoutes(payments, idempotent));
   if (!config.isProduction) api.use(outboxRoutes(db));
   api.use(apiNotFound);
 

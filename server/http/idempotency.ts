@@ -24,9 +24,10 @@ interface KeyRow {
 /** What a request asks for: its body and any uploaded files, so a same key with other content is told apart. */
 function requestHash(req: Request): string {
   const h = createHash('sha256');
-  h.update(JSON.stringify(req.body ?? {}));
+  // A raw upload (a CSV sent as the body) is hashed as bytes; a parsed body as its JSON.
+  h.update(Buffer.isBuffer(req.body) ? req.body : JSON.stringify(req.body ?? {}));
   const files = (req.files ?? []) as Express.Multer.File[] | Record<string, Express.Multer.File[]>;
-  const list = Array.isArray(files) ? files : Object.values(files).flat();
+  const list = [...(Array.isArray(files) ? files : Object.values(files).flat()), ...(req.file ? [req.file] : [])];
   for (const f of list) h.update(`\n${f.fieldname}:${createHash('sha256').update(f.buffer).digest('hex')}`);
   return h.digest('hex');
 }

@@ -277,6 +277,39 @@ describe('a retried delivery (Idempotency-Key) is recorded once', () => {
   });
 });
 
+describe('the same Idempotency-Key mechanism on placing, confirming and importing', () => {
+  it('places one order, confirms it once and imports one schedule version however often each is retried with its key', async () => {
+    const m = await merchantWithCatalogue(t);
+    const k = await contractorWithEstimate(t, m);
+    const place = () => k.c.agent.post('/api/orders').set('X-CSRF-Token', token).set('Idempotency-Key', 'place-7d1e-0001').send(orderBody(k, m));
+    const token = await k.c.csrf();
+    const first = await place();
+    expect(first.status).toBe(201);
+    const again = await place();
+    expect(again.status).toBe(201);
+    expect(again.headers['idempotent-replayed']).toBe('true');
+    expect(again.body.id).toBe(first.body.id);
+    expect(await t.db('orders').where({ contractor_organisation_id: k.organisationId })).toHaveLength(1);
+
+    const desk = await signIn(t.app, m.salesEmail);
+    const deskToken = await desk.csrf();
+    const confirm = () => desk.agent.post(`/api/orders/${first.body.id}/confirm`).set('X-CSRF-Token', deskToken).set('Idempotency-Key', 'confirm-7d1e-0001').send({});
+    expect((await confirm()).status).toBe(200);
+    const replay = await confirm();
+    expect(replay.status).toBe(200);
+    expect(replay.headers['idempotent-replayed']).toBe('true');
+    expect(await t.db('order_events').where({ order_id: first.body.id, kind: 'confirmed' })).toHaveLength(1);
+
+    const versions = async () => (await t.db('schedules').where({ project_id: k.projectId })).length;
+    const before = await versions();
+    const csv = "building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top\nGarage,Front,1,35,4000,6000,verge,verge,ridge\n";
+    const upload = () => k.c.agent.post(`/api/projects/${k.projectId}/schedule`).set('X-CSRF-Token', token).set('Idempotency-Key', 'import-7d1e-0001').set('Content-Type', 'text/csv').send(csv);
+    expect((await upload()).status).toBe(201);
+    expect((await upload()).headers['idempotent-replayed']).toBe('true');
+    expect(await versions()).toBe(before + 1);
+  });
+});
+
 describe('the driver’s day', () => {
   it('lists only the driver’s runs, drops in order, cautions once per run, accessories by product name, a maps link and the crane landing plan', async () => {
     const m = await merchantWithCatalogue(t);

@@ -13,14 +13,16 @@ import {
   proposalParamsSchema,
   turnDownBodySchema,
 } from '../../../shared/schemas/order.schema';
+import type { RequestHandler } from 'express';
 import { currentUser } from '../../auth/policy';
 import { apiRouter } from '../../http/endpoint';
 import type { OrdersService } from './orders.service';
 
-export function ordersRoutes(orders: OrdersService) {
+/** `idempotent`: the shared Idempotency-Key middleware, on the writes a client may send twice (place, confirm). */
+export function ordersRoutes(orders: OrdersService, idempotent: RequestHandler = (_req, _res, next) => next()) {
   const r = apiRouter();
 
-  r.post('/orders', { access: { action: 'orders:place' }, body: placeOrderBodySchema }, async (req, res, { body }) => {
+  r.post('/orders', { access: { action: 'orders:place' }, body: placeOrderBodySchema, before: [idempotent] }, async (req, res, { body }) => {
     res.status(201).json(await orders.place(currentUser(req), body));
   });
 
@@ -71,7 +73,7 @@ export function ordersRoutes(orders: OrdersService) {
     },
   );
 
-  r.post('/orders/:id/confirm', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: confirmOrderBodySchema }, async (req, res, { params, body }) => {
+  r.post('/orders/:id/confirm', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: confirmOrderBodySchema, before: [idempotent] }, async (req, res, { params, body }) => {
     res.json(await orders.confirm(currentUser(req), params.id, body));
   });
 
