@@ -67,6 +67,8 @@ export async function up(knex: Knex): Promise<void> {
     // Per line: order_line_id, sku, description, unit, short, damaged, quantity, unit_price, tax_rate_bp, net, tax, total.
     t.text('lines').notNullable();
     t.string('notes', 2000).notNullable().defaultTo('');
+    // The credit note the desk issued from it.
+    t.integer('credit_note_id').nullable().references('id').inTable('credit_notes').onDelete('SET NULL');
     t.string('created_at', 30).notNullable();
     t.index(['merchant_organisation_id', 'status']);
     t.index(['order_id']);

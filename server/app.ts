@@ -141,14 +141,15 @@ export function createApp(deps: AppDeps): Express {
   api.use(estimatesRoutes(estimates));
   api.use(exportsRoutes(estimates, projects));
   // Before the orders' routes: it answers POST /orders/:id/delivery (JSON or multipart, with proof).
-  api.use(deliveriesRoutes(deliveriesService(deps), idempotent));
+  const invoices = invoicesService(deps, payments);
+  api.use(deliveriesRoutes(deliveriesService(deps, (user, invoiceId, body) => invoices.credit(user, invoiceId, body)), idempotent));
   api.use(ordersRoutes(orders, idempotent));
   api.use(quotesRoutes(quotesService(deps, orders)));
   api.use(priceListRoutes(priceListService(deps)));
   api.use(stockRoutes(stockService(deps)));
   api.use(fleetRoutes(fleetService(deps)));
   api.use(slotsRoutes(slotsService(deps), orders.linesOf));
-  api.use(invoicesRoutes(invoicesService(deps, payments)));
+  api.use(invoicesRoutes(invoices));
   api.use(paymentsRoutes(payments, idempotent));
   if (!config.isProduction) api.use(outboxRoutes(db));
   api.use(apiNotFound);

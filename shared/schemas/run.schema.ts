@@ -306,6 +306,8 @@ export const creditNoteDraftSchema = z.object({
     }),
   ),
   notes: z.string(),
+  /** The credit note issued from it, once the desk has. */
+  credit_note_id: z.number().int().nullable(),
   created_at: z.string(),
 });
 export type CreditNoteDraft = z.infer<typeof creditNoteDraftSchema>;

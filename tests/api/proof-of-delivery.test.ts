@@ -202,6 +202,32 @@ describe('proof of delivery: record, credit, who sees it', () => {
     expect(text).toMatch(/Photo 1/);
   });
 
+  it('issues the draft against the invoice: an invoice made from the delivery already leaves the short packs out, so only the damaged ones are credited', async () => {
+    const m = await merchantWithCatalogue(t);
+    const run = await runToday(m);
+    const { order } = await dropOnRun(m, run);
+    const tile = order.lines.find((l) => l.sku === TILE)!;
+    const driver = await signIn(t.app, m.driverEmail);
+    const rec = await driver.post(`/api/orders/${order.id}/delivery`, { receiver_name: 'Site office', lines: [{ line_id: tile.id, handed_over: tile.reserved_quantity - 3, short: 1, damaged: 2 }] });
+    expect(rec.status, JSON.stringify(rec.body)).toBe(200);
+    const desk = await signIn(t.app, m.salesEmail);
+    const draftId = rec.body.proof.credit_note_id as number;
+    expect((await desk.post(`/api/credit-note-drafts/${draftId}/issue`)).body.error.code).toBe('not_invoiced');
+    const invoice = await desk.post(`/api/orders/${order.id}/invoice`);
+    expect(invoice.status).toBe(201);
+    const tileLine = invoice.body.lines.find((l: { sku: string }) => l.sku === TILE);
+    // Invoiced from the delivery: handed over and damaged packs (what left the lorry), not the short one.
+    expect(tileLine.quantity).toBe(tile.reserved_quantity - 1);
+    const issued = await desk.post(`/api/credit-note-drafts/${draftId}/issue`);
+    expect(issued.status, JSON.stringify(issued.body)).toBe(200);
+    expect(issued.body.status).toBe('issued');
+    const after = (await desk.get(`/api/invoices/${invoice.body.id}`)).body;
+    expect(after.credit_notes).toHaveLength(1);
+    expect(after.credit_notes[0]).toMatchObject({ id: issued.body.credit_note_id, reason: 'shortage' });
+    expect(after.credit_notes[0].lines).toEqual([expect.objectContaining({ invoice_line_id: tileLine.id, quantity: 2, net: 2 * tile.unit_price })]);
+    expect((await desk.post(`/api/credit-note-drafts/${draftId}/issue`)).body.error.code).toBe('draft_closed');
+  });
+
   it('records the older JSON body (received_by, delivered_quantity) and keeps its answer', async () => {
     const m = await merchantWithCatalogue(t);
     const run = await runToday(m);

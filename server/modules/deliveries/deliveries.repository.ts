@@ -52,6 +52,7 @@ export interface DraftRow {
   total: number;
   lines: DraftLine[];
   notes: string;
+  credit_note_id: number | null;
   created_at: string;
 }
 
@@ -102,7 +103,7 @@ export function deliveriesRepository(db: Db) {
       return new Map(rows.map((r) => [r.id as number, r.tax_rate_bp as number]));
     },
 
-    async insertDraft(trx: Db, d: Omit<DraftRow, 'id' | 'created_at' | 'status'>): Promise<number> {
+    async insertDraft(trx: Db, d: Omit<DraftRow, 'id' | 'created_at' | 'status' | 'credit_note_id'>): Promise<number> {
       const [row] = await trx('credit_note_drafts').insert({ ...d, status: 'draft', lines: JSON.stringify(d.lines), created_at: nowIso() }).returning('id');
       return (row as { id: number }).id;
     },
@@ -131,6 +132,11 @@ export function deliveriesRepository(db: Db) {
       ]);
       const counts = new Map((loaded as Record<string, unknown>[]).map((r) => [r.slot_id as number, Number(r.n)]));
       return new Map(sent.map((r) => [r.id as number, { sent_out_at: (r.sent_out_at as string | null) ?? null, loaded: counts.get(r.id as number) ?? 0 }]));
+    },
+
+    /** Moves a draft from one state to another only if it is still in the first; false when someone moved it first. */
+    async moveDraft(id: number, from: DraftRow['status'], to: DraftRow['status'], creditNoteId: number | null = null): Promise<boolean> {
+      return (await db('credit_note_drafts').where({ id, status: from }).update({ status: to, credit_note_id: creditNoteId })) > 0;
     },
 
     async cautionReads(slotIds: number[], userId: number): Promise<Map<number, string>> {

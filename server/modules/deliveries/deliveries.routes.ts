@@ -84,6 +84,10 @@ export function deliveriesRoutes(deliveries: DeliveriesService, idempotent: Requ
     res.json(await deliveries.drafts(currentUser(req)));
   });
 
+  r.post('/credit-note-drafts/:id/issue', { access: { action: 'invoices:issue' }, params: draftParamsSchema, before: [idempotent] }, async (req, res, { params }) => {
+    res.json(await deliveries.issueDraft(currentUser(req), params.id));
+  });
+
   r.get('/credit-note-drafts/:id', { access: { action: 'invoices:issue' }, params: draftParamsSchema }, async (req, res, { params }) => {
     res.json(await deliveries.draft(currentUser(req), params.id));
   });

@@ -65,7 +65,10 @@ interface BookingWithOrder {
  * run and their acknowledgement, the proof of delivery (receiver, signature, photos, per line what was
  * handed over, short or damaged), the draft credit note it raises, and the delivery note.
  */
-export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>) {
+/** How a draft becomes a credit note: the invoices module's own credit step (numbering, refunds). */
+export type IssueCredit = (user: AuthUser, invoiceId: number, body: { reason: 'shortage' | 'damage'; notes?: string; lines: { invoice_line_id: number; quantity: number }[] }) => Promise<unknown>;
+
+export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, issueCredit?: IssueCredit) {
   const { db, config, mailer, logger } = deps;
   const repo = deliveriesRepository(db);
   const orders = ordersRepository(db);
@@ -459,6 +462,43 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
       if (!d) throw AppError.notFound('Credit note draft');
       const { merchant_organisation_id: _m, contractor_organisation_id: _c, proof_id: _p, ...rest } = d;
       return rest;
+    },
+
+    /**
+     * The desk issues a draft as a credit note against the order's invoice. It credits what the invoice
+     * charged beyond the packs handed over in good order: all of the short and damaged packs on an
+     * invoice made from the confirmation, only the damaged ones on an invoice made from the delivery
+     * (which already left the short packs out). One note, reason "shortage" when any pack was short.
+     */
+    async issueDraft(user: AuthUser, id: number) {
+      if (!issueCredit || user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      const d = await repo.draft(user.organisation.id, id);
+      if (!d) throw AppError.notFound('Credit note draft');
+      if (d.status !== 'draft') throw AppError.conflict('draft_closed', `This draft was already ${d.status}`);
+      const invoice = await db('invoices').where({ order_id: d.order_id, merchant_organisation_id: user.organisation.id }).first('id');
+      if (!invoice) throw AppError.conflict('not_invoiced', `Issue the invoice of ${orderReference(d.order_id)} first: the credit note credits what it charges`);
+      const invoiceLines = await db('invoice_lines as il')
+        .where('il.invoice_id', invoice.id)
+        .select('il.id', 'il.order_line_id', 'il.quantity', db.raw('coalesce((select sum(quantity) from credit_note_lines c where c.invoice_line_id = il.id), 0) as credited'));
+      const proof = new Map((await repo.proofLines(d.proof_id)).map((p) => [p.order_line_id, p]));
+      const lines = d.lines.flatMap((l) => {
+        const il = invoiceLines.find((x) => x.order_line_id === l.order_line_id);
+        if (!il) return [];
+        const charged = Number(il.quantity) - Number(il.credited) - (proof.get(l.order_line_id)?.handed_over ?? 0);
+        const quantity = Math.min(l.quantity, Math.max(0, charged));
+        return quantity > 0 ? [{ invoice_line_id: il.id as number, quantity }] : [];
+      });
+      if (lines.length === 0) throw AppError.conflict('nothing_to_credit', `The invoice of ${orderReference(d.order_id)} does not charge the short or damaged packs: there is nothing to credit`);
+      if (!(await repo.moveDraft(d.id, 'draft', 'issued'))) throw AppError.conflict('draft_closed', 'This draft was issued at the same moment');
+      try {
+        await issueCredit(user, invoice.id as number, { reason: d.lines.some((l) => l.short > 0) ? 'shortage' : 'damage', notes: d.notes.slice(0, 2000), lines });
+      } catch (err) {
+        await repo.moveDraft(d.id, 'issued', 'draft');
+        throw err;
+      }
+      const note = await db('credit_notes').where({ invoice_id: invoice.id }).orderBy('id', 'desc').first('id');
+      await db('credit_note_drafts').where({ id: d.id }).update({ credit_note_id: note?.id ?? null });
+      return this.draft(user, d.id);
     },
 
     async drafts(user: AuthUser): Promise<{ drafts: CreditNoteDraft[] }> {
