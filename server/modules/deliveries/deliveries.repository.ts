@@ -139,6 +139,38 @@ export function deliveriesRepository(db: Db) {
       return (await db('credit_note_drafts').where({ id, status: from }).update({ status: to, credit_note_id: creditNoteId })) > 0;
     },
 
+    /** The day a follow-up order is wanted, and its merchant (to find its run). */
+    async orderDay(orderId: number): Promise<{ requested_date: string; merchant_organisation_id: number } | undefined> {
+      return db('orders').where({ id: orderId }).first('requested_date', 'merchant_organisation_id');
+    },
+
+    async branch(branchId: number): Promise<{ name: string; address: string | null; town: string | null; phone: string | null } | undefined> {
+      return db('branches').where({ id: branchId }).first('name', 'address', 'town', 'phone');
+    },
+
+    async deck(lorryId: number): Promise<{ deck_length_mm?: number; deck_width_mm?: number } | undefined> {
+      return db('lorries').where({ id: lorryId }).first();
+    },
+
+    /** The order's invoice of this merchant, with each line's packs and packs already credited. */
+    async invoiceOfOrder(merchantOrgId: number, orderId: number): Promise<{ id: number; lines: { id: number; order_line_id: number | null; quantity: number; credited: number }[] } | undefined> {
+      const invoice = await db('invoices').where({ order_id: orderId, merchant_organisation_id: merchantOrgId }).first('id');
+      if (!invoice) return undefined;
+      const lines = await db('invoice_lines as il')
+        .where('il.invoice_id', invoice.id)
+        .select('il.id', 'il.order_line_id', 'il.quantity', db.raw('coalesce((select sum(c.quantity) from credit_note_lines c where c.invoice_line_id = il.id), 0) as credited'));
+      return { id: invoice.id as number, lines: lines.map((l) => ({ id: l.id as number, order_line_id: l.order_line_id as number | null, quantity: Number(l.quantity), credited: Number(l.credited) })) };
+    },
+
+    async latestCreditNote(invoiceId: number): Promise<number | null> {
+      const note = await db('credit_notes').where({ invoice_id: invoiceId }).orderBy('id', 'desc').first('id');
+      return (note?.id as number | undefined) ?? null;
+    },
+
+    async setDraftCreditNote(id: number, creditNoteId: number | null): Promise<void> {
+      await db('credit_note_drafts').where({ id }).update({ credit_note_id: creditNoteId });
+    },
+
     async cautionReads(slotIds: number[], userId: number): Promise<Map<number, string>> {
       if (slotIds.length === 0) return new Map();
       const rows = await db('run_caution_reads').whereIn('slot_id', slotIds).where({ user_id: userId }).select('slot_id', 'read_at');

@@ -103,9 +103,9 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
     const f = await orders.followUpOf(orderId);
     if (!f) return null;
     const booking = await slots.booking(f.id);
-    const row = await db('orders').where({ id: f.id }).first('requested_date', 'merchant_organisation_id');
-    const slot = booking ? await slots.find(row.merchant_organisation_id as number, booking.slot_id) : undefined;
-    return { reference: orderReference(f.id), due_date: slot?.date ?? (row?.requested_date as string) ?? null };
+    const row = await repo.orderDay(f.id);
+    const slot = booking && row ? await slots.find(row.merchant_organisation_id, booking.slot_id) : undefined;
+    return { reference: orderReference(f.id), due_date: slot?.date ?? row?.requested_date ?? null };
   }
 
   async function proofOf(order: OrderRow): Promise<DeliveryProof | null> {
@@ -235,7 +235,7 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
       const data = await repo.fileData(p!.id, f.id, 'photo', false);
       if (data) photos.push(data);
     }
-    const branch = await db('branches').where({ id: order.branch_id }).first('name', 'address', 'town', 'phone');
+    const branch = await repo.branch(order.branch_id);
     return deliveryNotePdf({
       order,
       branch: { name: branch?.name ?? order.branch_name, address: [branch?.address, branch?.town].filter(Boolean).join(', '), phone: branch?.phone ?? '' },
@@ -309,7 +309,7 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
   }
 
   async function lorryOf(run: SlotRow) {
-    const l = await db('lorries').where({ id: run.lorry_id }).first();
+    const l = await repo.deck(run.lorry_id);
     return {
       id: run.lorry_id,
       registration: run.registration,
@@ -475,29 +475,25 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
       const d = await repo.draft(user.organisation.id, id);
       if (!d) throw AppError.notFound('Credit note draft');
       if (d.status !== 'draft') throw AppError.conflict('draft_closed', `This draft was already ${d.status}`);
-      const invoice = await db('invoices').where({ order_id: d.order_id, merchant_organisation_id: user.organisation.id }).first('id');
+      const invoice = await repo.invoiceOfOrder(user.organisation.id, d.order_id);
       if (!invoice) throw AppError.conflict('not_invoiced', `Issue the invoice of ${orderReference(d.order_id)} first: the credit note credits what it charges`);
-      const invoiceLines = await db('invoice_lines as il')
-        .where('il.invoice_id', invoice.id)
-        .select('il.id', 'il.order_line_id', 'il.quantity', db.raw('coalesce((select sum(quantity) from credit_note_lines c where c.invoice_line_id = il.id), 0) as credited'));
       const proof = new Map((await repo.proofLines(d.proof_id)).map((p) => [p.order_line_id, p]));
       const lines = d.lines.flatMap((l) => {
-        const il = invoiceLines.find((x) => x.order_line_id === l.order_line_id);
+        const il = invoice.lines.find((x) => x.order_line_id === l.order_line_id);
         if (!il) return [];
-        const charged = Number(il.quantity) - Number(il.credited) - (proof.get(l.order_line_id)?.handed_over ?? 0);
+        const charged = il.quantity - il.credited - (proof.get(l.order_line_id)?.handed_over ?? 0);
         const quantity = Math.min(l.quantity, Math.max(0, charged));
-        return quantity > 0 ? [{ invoice_line_id: il.id as number, quantity }] : [];
+        return quantity > 0 ? [{ invoice_line_id: il.id, quantity }] : [];
       });
       if (lines.length === 0) throw AppError.conflict('nothing_to_credit', `The invoice of ${orderReference(d.order_id)} does not charge the short or damaged packs: there is nothing to credit`);
       if (!(await repo.moveDraft(d.id, 'draft', 'issued'))) throw AppError.conflict('draft_closed', 'This draft was issued at the same moment');
       try {
-        await issueCredit(user, invoice.id as number, { reason: d.lines.some((l) => l.short > 0) ? 'shortage' : 'damage', notes: d.notes.slice(0, 2000), lines });
+        await issueCredit(user, invoice.id, { reason: d.lines.some((l) => l.short > 0) ? 'shortage' : 'damage', notes: d.notes.slice(0, 2000), lines });
       } catch (err) {
         await repo.moveDraft(d.id, 'issued', 'draft');
         throw err;
       }
-      const note = await db('credit_notes').where({ invoice_id: invoice.id }).orderBy('id', 'desc').first('id');
-      await db('credit_note_drafts').where({ id: d.id }).update({ credit_note_id: note?.id ?? null });
+      await repo.setDraftCreditNote(d.id, await repo.latestCreditNote(invoice.id));
       return this.draft(user, d.id);
     },
 
