@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { orderDetailSchema } from '../../shared/schemas/order.schema';
 import { creditNoteDraftSchema, deliveryProofSchema, driverDaySchema } from '../../shared/schemas/run.schema';
 import { makeOrgWithUser } from '../setup/factories';
-import { contractorWithEstimate, merchantWithCatalogue, orderBody, type TestMerchant } from '../setup/order-scenario';
+import { contractorWithEstimate, loadRunOf, merchantWithCatalogue, orderBody, type TestMerchant } from '../setup/order-scenario';
 import { signIn } from '../setup/scenario';
 import { createTestApp, type Client, type TestApp } from '../setup/test-app';
 
@@ -37,7 +37,10 @@ async function dropOnRun(m: TestMerchant, run: { yard: Client; slotId: number },
   const tile = placed.lines.find((l) => l.sku === TILE)!;
   const confirm = await desk.post(`/api/orders/${placed.id}/confirm`, { slot_id: run.slotId, ...(o.tilePacks !== undefined ? { lines: [{ line_id: tile.id, quantity: o.tilePacks }] } : {}) });
   expect(confirm.status, JSON.stringify(confirm.body)).toBe(200);
-  if (o.dispatch !== false) expect((await run.yard.post(`/api/orders/${placed.id}/dispatch`)).status).toBe(200);
+  if (o.dispatch !== false) {
+    await loadRunOf(run.yard, placed.id);
+    expect((await run.yard.post(`/api/orders/${placed.id}/dispatch`)).status).toBe(200);
+  }
   const order = orderDetailSchema.parse((await desk.get(`/api/orders/${placed.id}`)).body);
   return { k, desk, order };
 }
@@ -297,6 +300,7 @@ describe('a retried delivery (Idempotency-Key) is recorded once', () => {
     const token = await driver.csrf();
     const send = () => driver.agent.post(`/api/orders/${order.id}/delivery`).set('X-CSRF-Token', token).set('Idempotency-Key', 'phone-retry-0002').send({ receiver_name: 'Lowri Haskett' });
     expect((await send()).status).toBe(409);
+    await loadRunOf(run.yard, order.id);
     expect((await run.yard.post(`/api/orders/${order.id}/dispatch`)).status).toBe(200);
     expect((await send()).status).toBe(200);
     expect((await driver.agent.post(`/api/orders/${order.id}/delivery`).set('X-CSRF-Token', token).set('Idempotency-Key', 'bad key').send({ receiver_name: 'x' })).body.error.code).toBe('idempotency_key_invalid');
