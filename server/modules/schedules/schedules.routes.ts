@@ -50,7 +50,7 @@ function uploaded(req: express.Request): { bytes: Buffer; filename: string | nul
   throw invalidSchedule([{ message: `no CSV received: send it as the request body or in the form field '${SCHEDULE_FILE_FIELD}'` }]);
 }
 
-export function schedulesRoutes(schedules: SchedulesService) {
+export function schedulesRoutes(schedules: SchedulesService, idempotent: RequestHandler = (_req, _res, next) => next()) {
   const r = apiRouter();
 
   r.get('/examples/roof-schedule.csv', { access: { public: 'the example schedule and column guide are for anyone' } }, (_req, res) => {
@@ -76,7 +76,7 @@ export function schedulesRoutes(schedules: SchedulesService) {
 
   r.post(
     '/projects/:id/schedule',
-    { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload] },
+    { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload, idempotent] },
     async (req, res, { params }) => {
       let bytes: Buffer | undefined;
       let filename: string | null = null;
