@@ -7,7 +7,8 @@ export interface DeliveryRecordFields {
   note: string;
   /** ISO-8601 UTC: when the driver pressed "Delivered", not when the signal came back. */
   delivered_at: string;
-  position: z.output<typeof proofPositionSchema> | null;
+  /** Left out when the phone did not give it. */
+  position?: z.output<typeof proofPositionSchema>;
   lines: z.output<typeof proofLineSchema>[];
 }
 

@@ -43,6 +43,20 @@ export function indexedDbStorage(dbName = 'ridgeload-phone', storeName = 'outbox
   };
 }
 
+/** An outbox held in memory only: where the browser has no IndexedDB (it is then lost with the tab). */
+export function memoryStorage(): OutboxStorage {
+  const rows = new Map<string, QueuedEntry>();
+  return {
+    all: async () => [...rows.values()],
+    put: async (entry) => {
+      rows.set(entry.key, entry);
+    },
+    remove: async (key) => {
+      rows.delete(key);
+    },
+  };
+}
+
 export interface OutboxDeps {
   storage: OutboxStorage;
   /** Sends one entry; throws the ApiError the server or the network gave. */

@@ -3,14 +3,14 @@ import { createContext, useContext, useSyncExternalStore } from 'react';
 import type { ReactNode } from 'react';
 import { deliveryIsRecorded, sendCautionsRead, sendDelivery } from '../api/send-queued';
 import { deliveryKeys } from '../api/keys';
-import { createOutbox, indexedDbStorage, startOutboxSync } from './outbox';
+import { createOutbox, indexedDbStorage, memoryStorage, startOutboxSync } from './outbox';
 import type { Outbox } from './outbox';
 
 const deliveredListeners = new Set<() => void>();
 
 /** The one outbox of this phone. */
 export const phoneOutbox: Outbox = createOutbox({
-  storage: indexedDbStorage(),
+  storage: typeof indexedDB === 'undefined' ? memoryStorage() : indexedDbStorage(),
   send: (entry) => (entry.kind === 'delivery' ? sendDelivery(entry) : sendCautionsRead(entry)),
   isAlreadyRecorded: (entry) => (entry.kind === 'delivery' ? deliveryIsRecorded(entry.order_id) : Promise.resolve(false)),
   onDelivered: () => {
@@ -23,7 +23,6 @@ export const phoneOutbox: Outbox = createOutbox({
  * something waits) and refreshes the driver's day after each record lands. Once per app.
  */
 export function startPhoneOutbox(queryClient: QueryClient): () => void {
-  if (typeof indexedDB === 'undefined') return () => undefined;
   const refresh = () => void queryClient.invalidateQueries({ queryKey: deliveryKeys.all });
   deliveredListeners.add(refresh);
   const stop = startOutboxSync(phoneOutbox);

@@ -9,10 +9,10 @@ export const PHOTO_TYPES: ReadonlySet<string> = new Set(['image/jpeg', 'image/pn
 
 /** The delivery record as the server reads it, built from the shared contract's pieces. */
 export const deliveryRecordFieldsSchema = z.object({
-  receiver_name: z.string().trim().min(1).max(200),
+  receiver_name: z.string().trim().min(1).max(120),
   note: z.string().trim().max(2000),
   delivered_at: z.iso.datetime(),
-  position: proofPositionSchema.nullable(),
+  position: proofPositionSchema.optional(),
   lines: z.array(proofLineSchema).min(1),
 });
 
@@ -45,7 +45,7 @@ const megabytes = (bytes: number) => `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
 export function proofFormSchema(lines: readonly ProofLineInput[]) {
   return z
     .object({
-      receiver_name: z.string().trim().min(2, { error: 'name the person who took the delivery' }).max(200, { error: 'keep the name under 200 characters' }),
+      receiver_name: z.string().trim().min(2, { error: 'name the person who took the delivery' }).max(120, { error: 'keep the name to 120 characters' }),
       note: z.string().trim().max(2000, { error: 'keep the note under 2,000 characters' }),
       signature_drawn: z.boolean(),
       typed_confirmation: z.string().trim(),
@@ -95,12 +95,12 @@ export type ProofFormInput = z.input<ReturnType<typeof proofFormSchema>>;
 export type ProofFormValues = z.output<ReturnType<typeof proofFormSchema>>;
 
 /** The record's fields from the checked form, the moment "Delivered" was pressed and the position if any. */
-export function deliveryFields(values: ProofFormValues, deliveredAt: Date, position: DeliveryRecordFields['position']): DeliveryRecordFields {
+export function deliveryFields(values: ProofFormValues, deliveredAt: Date, position: DeliveryRecordFields['position'] | null): DeliveryRecordFields {
   return deliveryRecordFieldsSchema.parse({
     receiver_name: values.receiver_name,
     note: values.note,
     delivered_at: deliveredAt.toISOString(),
-    position,
+    ...(position ? { position } : {}),
     lines: values.lines.map(({ line_id, handed_over, short, damaged }) => ({ line_id, handed_over, short, damaged })),
   });
 }
