@@ -53,7 +53,7 @@ function DropCard({ drop, total, state, open, onToggle, onRecorded, headerRef, r
   const [recording, setRecording] = useState(false);
   const bodyId = `drop-${drop.order_id}-body`;
   return (
-    <article aria-labelledby={`drop-${drop.order_id}-title`} className={`scroll-mt-4 rounded-lg border-2 bg-white ${open ? 'border-ink-700' : 'border-ink-200'}`}>
+    <article aria-labelledby={`drop-${drop.order_id}-title`} className={`rounded-lg border-2 bg-white ${open ? 'border-ink-700' : 'border-ink-200'}`}>
       <h3 id={`drop-${drop.order_id}-title`} className="m-0">
         <button
           ref={headerRef}
@@ -61,7 +61,7 @@ function DropCard({ drop, total, state, open, onToggle, onRecorded, headerRef, r
           aria-expanded={open}
           aria-controls={bodyId}
           onClick={onToggle}
-          className="flex min-h-tap-lg w-full items-center gap-3 rounded-lg p-4 text-left"
+          className="flex min-h-tap-lg w-full scroll-mt-20 items-center gap-3 rounded-lg p-4 text-left"
         >
           <span className="flex h-12 w-12 shrink-0 items-center justify-center rounded-full bg-ink-900 text-xl font-bold text-white" aria-hidden="true">
             {drop.position}
