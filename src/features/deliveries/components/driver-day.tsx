@@ -34,7 +34,7 @@ const STATE_CLASSES: Record<DropState, string> = {
 function bringToTop(element: HTMLElement | null) {
   if (!element) return;
   element.focus({ preventScroll: true });
-  if (typeof element.scrollIntoView === 'function') element.scrollIntoView({ block: 'start', behavior: 'smooth' });
+  if (typeof element.scrollIntoView === 'function') element.scrollIntoView({ block: 'start' });
 }
 
 interface DropCardProps {
