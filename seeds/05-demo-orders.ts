@@ -9,15 +9,16 @@ import {
   answerQuoteBodySchema,
   placeOrderBodySchema,
   proposalBodySchema,
-  recordDeliveryBodySchema,
   type OrderDetail,
 } from '../shared/schemas/order.schema';
 import type { AuthUser } from '../server/auth/auth-user';
 import type { Config } from '../server/config/env';
 import type { Mailer } from '../server/mail/mailer';
+import { deliveriesService } from '../server/modules/deliveries/deliveries.service';
 import { estimatesService } from '../server/modules/estimates/estimates.service';
 import { invoicesRepository } from '../server/modules/invoices/invoices.repository';
 import { invoicesService } from '../server/modules/invoices/invoices.service';
+import { demoProofFiles } from './demo-proof-images';
 import { usersRepository } from '../server/modules/members/users.repository';
 import { ordersService } from '../server/modules/orders/orders.service';
 import { paymentsService } from '../server/modules/payments/payments.service';
@@ -130,6 +131,7 @@ async function buildOrderBook(knex: Knex): Promise<void> {
   const slots = slotsService(deps);
   const payments = paymentsService(deps, null);
   const invoices = invoicesService(deps, payments);
+  const deliveries = deliveriesService(deps);
 
   /** Each step is taken as the demo person whose job it is; a seed that slips past the policy fails loudly. */
   const as = (email: string, action: Action) => {
@@ -196,7 +198,9 @@ async function buildOrderBook(knex: Knex): Promise<void> {
 
   const confirm = (email: string, o: OrderDetail, slot?: number) => orders.confirm(as(email, 'orders:confirm'), o.id, confirmOrderBodySchema.parse(slot ? { slot_id: slot } : {}));
   const dispatch = (email: string, o: OrderDetail) => orders.dispatch(as(email, 'slots:book'), o.id);
-  const deliver = (email: string, o: OrderDetail, body: { received_by: string; notes?: string }) => orders.recordDelivery(as(email, 'deliveries:record'), o.id, recordDeliveryBodySchema.parse(body));
+  /** The driver's record of a drop; `proof` adds the signature and a photo made for the demo. */
+  const deliver = async (email: string, o: OrderDetail, body: { received_by: string; notes?: string }, proof = false) =>
+    deliveries.record(as(email, 'deliveries:record'), o.id, { receiver_name: body.received_by, note: body.notes ?? '', ...(proof ? { position: { lat: 53.4862, lng: -2.0871, accuracy_m: 9 } } : {}) }, proof ? await demoProofFiles() : []);
   const invoice = (email: string, o: OrderDetail) => invoices.issue(as(email, 'invoices:issue'), o.id);
 
   // ---- Tollerbeck Roofing Supplies ----
@@ -205,7 +209,7 @@ async function buildOrderBook(knex: Knex): Promise<void> {
   const plot1 = await place(EST1, hbFlatlock, tollerbeckYard.id, { requested_date: today, time_window: MORNING, po_reference: 'HB-P01', delivery_method: 'roof', notes: 'Plot 1 (Alder). Lift onto the scaffold loading bay.', lines: share(hbFlatlock, 1 / 20) });
   await confirm(SALES1, plot1, await slotIdOf('RL-TY01', today, MORNING));
   await dispatch('dispatch@demo.test', plot1);
-  await deliver('driver@demo.test', plot1, { received_by: 'Gethin Marlow', notes: 'Lifted onto the loading bay of plot 1; stacks spread along both slopes.' });
+  await deliver('driver@demo.test', plot1, { received_by: 'Gethin Marlow', notes: 'Lifted onto the loading bay of plot 1; stacks spread along both slopes.' }, true);
   await invoice(SALES1, plot1);
 
   // On the road now.

@@ -11,10 +11,13 @@ import type { AppDeps } from './app-deps';
 import { csrfProtection } from './auth/csrf';
 import { SessionStore } from './auth/session-store';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import { idempotency } from './http/idempotency';
 import { authRoutes } from './modules/auth/auth.routes';
 import { authService } from './modules/auth/auth.service';
 import { catalogueRoutes } from './modules/catalogue/catalogue.routes';
 import { catalogueService } from './modules/catalogue/catalogue.service';
+import { deliveriesRoutes } from './modules/deliveries/deliveries.routes';
+import { deliveriesService } from './modules/deliveries/deliveries.service';
 import { estimatesRoutes } from './modules/estimates/estimates.routes';
 import { estimatesService } from './modules/estimates/estimates.service';
 import { exportsRoutes } from './modules/exports/exports.routes';
@@ -130,19 +133,23 @@ export function createApp(deps: AppDeps): Express {
   const projects = projectsService(deps);
   const estimates = estimatesService(deps);
   const orders = ordersService(deps);
+  /** One Idempotency-Key mechanism for every write a client may retry. */
+  const idempotent = idempotency(db);
   api.use(catalogueRoutes(catalogueService(deps)));
   api.use(projectsRoutes(projects));
-  api.use(schedulesRoutes(schedulesService(deps)));
+  api.use(schedulesRoutes(schedulesService(deps), idempotent));
   api.use(estimatesRoutes(estimates));
   api.use(exportsRoutes(estimates, projects));
-  api.use(ordersRoutes(orders));
+  // Before the orders' routes: it answers POST /orders/:id/delivery (JSON or multipart, with proof).
+  api.use(deliveriesRoutes(deliveriesService(deps), idempotent));
+  api.use(ordersRoutes(orders, idempotent));
   api.use(quotesRoutes(quotesService(deps, orders)));
   api.use(priceListRoutes(priceListService(deps)));
   api.use(stockRoutes(stockService(deps)));
   api.use(fleetRoutes(fleetService(deps)));
   api.use(slotsRoutes(slotsService(deps), orders.linesOf));
   api.use(invoicesRoutes(invoicesService(deps, payments)));
-  api.use(paymentsRoutes(payments));
+  api.use(paymentsRoutes(payments, idempotent));
   if (!config.isProduction) api.use(outboxRoutes(db));
   api.use(apiNotFound);
 

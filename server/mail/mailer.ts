@@ -5,6 +5,8 @@ export interface MailMessage {
   subject: string;
   text: string;
   html: string;
+  /** Files sent with the message (a delivery note as PDF). */
+  attachments?: { filename: string; content: Buffer; contentType: string }[];
 }
 
 export interface Mailer {

@@ -29,6 +29,8 @@ export const POLICY = {
   'slots:book': ['merchant_owner', 'merchant_sales', 'merchant_dispatcher'],
   'deliveries:read': ['merchant_owner', 'merchant_dispatcher', 'driver'],
   'deliveries:record': ['driver', 'merchant_dispatcher'],
+  /** Proof of delivery: the merchant's people, the driver of the run and the contractor whose order it is. */
+  'deliveries:proof': ['contractor_owner', 'contractor_estimator', 'merchant_owner', 'merchant_sales', 'merchant_dispatcher', 'driver'],
   'invoices:read': ['contractor_owner', 'contractor_estimator', 'merchant_owner', 'merchant_sales'],
   'invoices:issue': ['merchant_owner', 'merchant_sales'],
   'payments:make': ['contractor_owner', 'contractor_estimator'],

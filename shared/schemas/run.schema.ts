@@ -260,3 +260,52 @@ export const deliveryProofSchema = z.object({
   credit_note_id: z.number().int().nullable(),
 });
 export type DeliveryProof = z.infer<typeof deliveryProofSchema>;
+
+/**
+ * The fields of a delivery record as the phone sends them (JSON, or the text fields of the multipart
+ * form, where `lines` and `position` are JSON text). Each line sent is handed over, short or damaged:
+ * the three add up to the packs loaded; a line left out was handed over whole.
+ */
+export const recordProofBodySchema = z
+  .object({
+    receiver_name: z.string().trim().min(1, { error: 'name the person who took the delivery' }).max(120, { error: 'must be at most 120 characters' }),
+    note: z.string().trim().max(2000, { error: 'must be at most 2000 characters' }).optional(),
+    /** When it was handed over (the phone's clock, as it may be sent later); now when left out. */
+    delivered_at: z.iso.datetime({ error: 'must be an ISO date and time' }).optional(),
+    lines: z.array(proofLineSchema).max(200).optional(),
+    position: proofPositionSchema.optional(),
+  })
+  .strict();
+export type RecordProofBody = z.input<typeof recordProofBodySchema>;
+
+/** The driver's acknowledgement of a run's cautions. */
+export const cautionsReadSchema = z.object({ run_id: z.number().int(), read_at: z.string(), read_by: z.object({ id: z.number().int(), name: z.string() }) });
+
+/** Shortages and damages of a delivery, priced at the order's prices, for the desk to issue as a credit note. */
+export const creditNoteDraftSchema = z.object({
+  id: z.number().int(),
+  order_id: z.number().int(),
+  status: z.enum(['draft', 'issued', 'dismissed']),
+  currency: z.string(),
+  subtotal: z.number().int(),
+  tax_total: z.number().int(),
+  total: z.number().int(),
+  lines: z.array(
+    z.object({
+      order_line_id: z.number().int(),
+      sku: z.string(),
+      description: z.string(),
+      short: z.number().int(),
+      damaged: z.number().int(),
+      quantity: z.number().int(),
+      unit_price: z.number().int(),
+      tax_rate_bp: z.number().int(),
+      net: z.number().int(),
+      tax: z.number().int(),
+      total: z.number().int(),
+    }),
+  ),
+  notes: z.string(),
+  created_at: z.string(),
+});
+export type CreditNoteDraft = z.infer<typeof creditNoteDraftSchema>;

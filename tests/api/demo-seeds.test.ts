@@ -179,4 +179,16 @@ describe('the demo seeds on a fresh database', () => {
     expect(await Promise.all(['orders', 'order_events', 'invoices', 'quote_requests', 'slot_bookings', 'projects', 'estimates'].map(count))).toEqual(before);
     expect(await t.db('branch_products').orderBy(['branch_id', 'product_id']).select('on_hand', 'reserved')).toEqual(stock);
   });
+
+  it('hold a delivered drop with its proof: receiver, a signature and a photo made for the demo, served through the checked routes', async () => {
+    const proofs = await t.db('delivery_proofs as p').join('delivery_files as f', 'f.proof_id', 'p.id').select('p.order_id', 'f.kind');
+    const withBoth = [...new Set(proofs.map((p) => p.order_id as number))].filter((id) => proofs.some((p) => p.order_id === id && p.kind === 'signature') && proofs.some((p) => p.order_id === id && p.kind === 'photo'));
+    expect(withBoth.length).toBeGreaterThanOrEqual(1);
+    const contractor = await demoClient('estimator@demo.test');
+    const proof = (await contractor.get(`/api/orders/${withBoth[0]}/delivery`)).body;
+    expect(proof.receiver_name).toBe('Gethin Marlow');
+    expect((await contractor.get(proof.signature_url)).headers['content-type']).toBe('image/png');
+    expect((await contractor.get(proof.photos[0].url)).headers['content-type']).toBe('image/jpeg');
+    expect((await (await demoClient('contractor2@demo.test')).get(`/api/orders/${withBoth[0]}/delivery`)).status).toBe(404);
+  });
 });

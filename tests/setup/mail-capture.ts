@@ -7,6 +7,7 @@ export interface CapturedMail {
   subject: string;
   text: string;
   html: string | false;
+  attachments: { filename: string; contentType: string; content: Buffer }[];
 }
 
 /** An in-process SMTP server on port 0: the app's real mailer sends to it and tests read what came. */
@@ -21,7 +22,7 @@ export async function startMailCapture(): Promise<{ mailer: Mailer; messages: Ca
       simpleParser(stream)
         .then((mail: ParsedMail) => {
           const to = Array.isArray(mail.to) ? mail.to.map((a) => a.text).join(', ') : (mail.to?.text ?? '');
-          const m: CapturedMail = { to, subject: mail.subject ?? '', text: mail.text ?? '', html: mail.html ?? false };
+          const m: CapturedMail = { to, subject: mail.subject ?? '', text: mail.text ?? '', html: mail.html ?? false, attachments: mail.attachments.map((a) => ({ filename: a.filename ?? '', contentType: a.contentType, content: a.content })) };
           messages.push(m);
           for (const w of waiters.filter((x) => to.includes(x.to))) {
             waiters.splice(waiters.indexOf(w), 1);

@@ -11,17 +11,18 @@ import {
   placeOrderBodySchema,
   proposalBodySchema,
   proposalParamsSchema,
-  recordDeliveryBodySchema,
   turnDownBodySchema,
 } from '../../../shared/schemas/order.schema';
+import type { RequestHandler } from 'express';
 import { currentUser } from '../../auth/policy';
 import { apiRouter } from '../../http/endpoint';
 import type { OrdersService } from './orders.service';
 
-export function ordersRoutes(orders: OrdersService) {
+/** `idempotent`: the shared Idempotency-Key middleware, on the writes a client may send twice (place, confirm). */
+export function ordersRoutes(orders: OrdersService, idempotent: RequestHandler = (_req, _res, next) => next()) {
   const r = apiRouter();
 
-  r.post('/orders', { access: { action: 'orders:place' }, body: placeOrderBodySchema }, async (req, res, { body }) => {
+  r.post('/orders', { access: { action: 'orders:place' }, body: placeOrderBodySchema, before: [idempotent] }, async (req, res, { body }) => {
     res.status(201).json(await orders.place(currentUser(req), body));
   });
 
@@ -72,7 +73,7 @@ export function ordersRoutes(orders: OrdersService) {
     },
   );
 
-  r.post('/orders/:id/confirm', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: confirmOrderBodySchema }, async (req, res, { params, body }) => {
+  r.post('/orders/:id/confirm', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: confirmOrderBodySchema, before: [idempotent] }, async (req, res, { params, body }) => {
     res.json(await orders.confirm(currentUser(req), params.id, body));
   });
 
@@ -90,10 +91,6 @@ export function ordersRoutes(orders: OrdersService) {
 
   r.post('/orders/:id/dispatch', { access: { action: 'slots:book' }, params: orderParamsSchema }, async (req, res, { params }) => {
     res.json(await orders.dispatch(currentUser(req), params.id));
-  });
-
-  r.post('/orders/:id/delivery', { access: { action: 'deliveries:record' }, params: orderParamsSchema, body: recordDeliveryBodySchema }, async (req, res, { params, body }) => {
-    res.json(await orders.recordDelivery(currentUser(req), params.id, body));
   });
 
   r.post('/orders/:id/follow-up', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: followUpBodySchema }, async (req, res, { params, body }) => {

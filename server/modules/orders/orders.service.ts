@@ -19,7 +19,6 @@ import {
   type orderBookQuerySchema,
   type placeOrderBodySchema,
   type proposalBodySchema,
-  type recordDeliveryBodySchema,
 } from '../../../shared/schemas/order.schema';
 import type { BusinessCalendar } from '../../../shared/domain/business-calendar';
 import type { AppDeps } from '../../app-deps';
@@ -42,7 +41,6 @@ type AmendBody = z.output<typeof amendOrderBodySchema>;
 type ProposalBody = z.output<typeof proposalBodySchema>;
 type ListQuery = z.output<typeof orderBookQuerySchema>;
 type ConfirmBody = z.output<typeof confirmOrderBodySchema>;
-type DeliveryBody = z.output<typeof recordDeliveryBodySchema>;
 
 /** The policy action behind each order step, so a role sees only the steps it may take. */
 const ACTION_POLICY: Record<OrderAction, Action> = {
@@ -710,53 +708,6 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         await orders.insertEvent(trx, id, { kind: 'dispatched', actor: actorOf(user), summary: `Out for delivery on ${slot.registration} with ${slot.driver_name}`, data: { slot_id: slot.id } });
       });
       await notify('dispatched', id, partyOf(user));
-      return get(user, id);
-    },
-
-    /**
-     * The driver records the hand-over: packs delivered per line (as loaded when left out), who took
-     * them, notes. The order's hold on stock ends; what was handed over leaves the branch's on-hand
-     * count (packs brought back stay in it). Shortfalls are kept on the line for a credit note.
-     */
-    async recordDelivery(user: AuthUser, id: number, body: DeliveryBody) {
-      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
-      const t = ORDER_TRANSITIONS.deliver;
-      await db.transaction(async (trx) => {
-        const order = await orders.find(partyOf(user), id, trx);
-        if (!order) throw AppError.notFound('Order');
-        if (!(t.from as readonly string[]).includes(order.status)) throw AppError.conflict('order_not_on_the_road', `${orderReference(id)} is ${ORDER_STATUS_LABELS[order.status].toLowerCase()}: a delivery is recorded once it is on the road`);
-        const booking = await slots.booking(id, trx);
-        const slot = booking ? await slots.slot(user.organisation.id, booking.slot_id, trx) : undefined;
-        if (user.role === 'driver' && slot?.driver_user_id !== user.id) throw AppError.forbidden('Only the driver of this run records its delivery');
-        const lines = await orders.lines(id, trx);
-        const given = new Map((body.lines ?? []).map((l) => [l.line_id, l.delivered_quantity]));
-        const problems: { path: string; message: string }[] = [];
-        (body.lines ?? []).forEach((l, i) => {
-          const line = lines.find((x) => x.id === l.line_id);
-          if (!line) problems.push({ path: `lines.${i}.line_id`, message: 'is not a line of this order' });
-          else if (l.delivered_quantity > line.reserved_quantity) problems.push({ path: `lines.${i}.delivered_quantity`, message: `at most the ${line.reserved_quantity} packs loaded` });
-        });
-        if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some delivered quantities are not valid', problems);
-        const short: string[] = [];
-        for (const line of lines) {
-          const delivered = given.get(line.id) ?? line.reserved_quantity;
-          if (!(await stock.consume(trx, order.branch_id, line.product_id, line.reserved_quantity, delivered))) {
-            throw AppError.conflict('stock_changed', `The stock of ${line.sku} at ${order.branch_name} no longer covers this delivery; count it and try again`);
-          }
-          await orders.setDelivered(trx, line.id, delivered);
-          if (delivered < line.reserved_quantity) short.push(`${line.sku} ${delivered} of ${line.reserved_quantity}`);
-        }
-        const at = body.delivered_at ?? nowIso();
-        if (booking) await slots.recordDelivery(trx, id, { delivered_at: at, received_by: body.received_by, delivery_notes: body.notes ?? '', recorded_by: user.id });
-        if (!(await orders.updateIf(trx, id, { statuses: t.from }, { status: t.to }, false))) throw AppError.conflict('order_changed', 'The order changed at the same moment; reload it and try again');
-        await orders.insertEvent(trx, id, {
-          kind: 'delivered',
-          actor: actorOf(user),
-          summary: `Delivered, received by ${body.received_by}${short.length > 0 ? `; short: ${short.join(', ')}` : ''}`,
-          data: { received_by: body.received_by, delivered_at: at, short, ...(body.notes ? { notes: body.notes } : {}) },
-        });
-      });
-      await notify('delivered', id, partyOf(user));
       return get(user, id);
     },
 

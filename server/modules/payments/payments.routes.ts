@@ -1,4 +1,4 @@
-import express from 'express';
+import express, { type RequestHandler } from 'express';
 import { invoiceParamsSchema } from '../../../shared/schemas/invoice.schema';
 import { paymentParamsSchema, startPaymentBodySchema } from '../../../shared/schemas/payment.schema';
 import { currentUser } from '../../auth/policy';
@@ -6,10 +6,10 @@ import { apiRouter } from '../../http/endpoint';
 import { toPayment, type PaymentsService } from './payments.service';
 
 /** Starting and checking card payments, for the signed-in contractor. */
-export function paymentsRoutes(payments: PaymentsService) {
+export function paymentsRoutes(payments: PaymentsService, idempotent: RequestHandler = (_req, _res, next) => next()) {
   const r = apiRouter();
 
-  r.post('/invoices/:id/payments', { access: { action: 'payments:make' }, params: invoiceParamsSchema, body: startPaymentBodySchema }, async (req, res, { params }) => {
+  r.post('/invoices/:id/payments', { access: { action: 'payments:make' }, params: invoiceParamsSchema, body: startPaymentBodySchema, before: [idempotent] }, async (req, res, { params }) => {
     const { created, payment } = await payments.start(currentUser(req), params.id);
     const p = toPayment(payment);
     res.status(created ? 201 : 200).json({ status: p.status, checkout_url: p.checkout_url, payment: p });

@@ -42,7 +42,7 @@ const readScheduleUpload: RequestHandler = (req, res, next) => {
   next(new AppError(415, 'unsupported_media_type', `Send the schedule as text/csv or as a multipart form with the field '${SCHEDULE_FILE_FIELD}'`));
 };
 
-export function schedulesRoutes(schedules: SchedulesService) {
+export function schedulesRoutes(schedules: SchedulesService, idempotent: RequestHandler = (_req, _res, next) => next()) {
   const r = apiRouter();
 
   r.get('/examples/roof-schedule.csv', { access: { public: 'the example schedule and column guide are for anyone' } }, (_req, res) => {
@@ -53,7 +53,7 @@ export function schedulesRoutes(schedules: SchedulesService) {
 
   r.post(
     '/projects/:id/schedule',
-    { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload] },
+    { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload, idempotent] },
     async (req, res, { params }) => {
       let bytes: Buffer | undefined;
       let filename: string | null = null;
