@@ -15,3 +15,10 @@ createRoot(container).render(
     <App runtime={createAppRuntime()} />
   </StrictMode>,
 );
+
+// The offline copy of the app is set up once the page is in use, never ahead of the first paint.
+if (import.meta.env.PROD && 'serviceWorker' in navigator) {
+  const register = () => void import('./lib/register-service-worker').then((m) => m.registerServiceWorker());
+  if (document.readyState === 'complete') register();
+  else window.addEventListener('load', register, { once: true });
+}

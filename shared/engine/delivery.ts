@@ -16,6 +16,24 @@ export type AccessoryItem =
   | 'dry_verge_units'
   | 'ridge_end_caps';
 
+/** Each accessory the engine puts on a pallet, in the words and unit a yard and a driver use. */
+export const ACCESSORY_WORDS: Record<AccessoryItem, { label: string; unit: string }> = {
+  underlay_rolls: { label: 'Underlay', unit: 'roll' },
+  battens: { label: 'Battens (stock lengths)', unit: 'length' },
+  batten_nails: { label: 'Batten nails', unit: 'nail' },
+  tile_nails: { label: 'Tile nails', unit: 'nail' },
+  clips: { label: 'Tile clips', unit: 'clip' },
+  ridge_tiles: { label: 'Ridge tiles', unit: 'tile' },
+  hip_tiles: { label: 'Hip tiles', unit: 'tile' },
+  eaves_tiles: { label: 'Eaves tiles', unit: 'tile' },
+  top_tiles: { label: 'Top tiles', unit: 'tile' },
+  tile_and_half: { label: 'Tile-and-a-half', unit: 'tile' },
+  valley_units: { label: 'Valley troughs', unit: 'piece' },
+  hip_irons: { label: 'Hip irons', unit: 'piece' },
+  dry_verge_units: { label: 'Dry verge units', unit: 'piece' },
+  ridge_end_caps: { label: 'Ridge end caps', unit: 'piece' },
+};
+
 export interface PalletFace {
   building: string;
   face: string;

@@ -37,6 +37,8 @@ export interface RequestOptions<TSchema extends z.ZodType | undefined> {
   redirectOnUnauthenticated?: boolean;
   /** The server gives the session a new id after this call, so the CSRF token must be fetched again. */
   rotatesSession?: boolean;
+  /** Extra request headers, e.g. the Idempotency-Key that makes a retried write land once. */
+  headers?: Record<string, string>;
 }
 
 type Result<TSchema> = TSchema extends z.ZodType ? z.output<TSchema> : undefined;
@@ -93,8 +95,8 @@ export function createApiClient(options: ApiClientOptions = {}) {
   let csrfToken: string | null = null;
   let csrfPending: Promise<string> | null = null;
 
-  async function send(method: Method, path: string, body: unknown, signal: AbortSignal | undefined, token: string | null) {
-    const headers: Record<string, string> = { Accept: 'application/json' };
+  async function send(method: Method, path: string, body: unknown, signal: AbortSignal | undefined, token: string | null, extraHeaders?: Record<string, string>) {
+    const headers: Record<string, string> = { ...extraHeaders, Accept: 'application/json' };
     // A FormData body (file uploads) sets its own multipart Content-Type with the boundary.
     const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
     if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
@@ -147,13 +149,13 @@ export function createApiClient(options: ApiClientOptions = {}) {
   ): Promise<Result<TSchema>> {
     const needsToken = STATE_CHANGING.has(method);
     let token = needsToken ? await getCsrfToken() : null;
-    let response = await send(method, path, opts.body, opts.signal, token);
+    let response = await send(method, path, opts.body, opts.signal, token, opts.headers);
     let body = await readJson(response);
 
     if (needsToken && response.status === 403 && toApiError(403, body).code === 'csrf_invalid') {
       forgetCsrfToken();
       token = await getCsrfToken();
-      response = await send(method, path, opts.body, opts.signal, token);
+      response = await send(method, path, opts.body, opts.signal, token, opts.headers);
       body = await readJson(response);
     }
 

@@ -1,4 +1,4 @@
-import type { Pallet } from '../../../shared/engine/delivery';
+import { ACCESSORY_WORDS, type Pallet } from '../../../shared/engine/delivery';
 import { DELIVERY_METHOD_LABELS, type OrderSite } from '../../../shared/schemas/order.schema';
 import { CRANE_LIFT_LABELS, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS_LABELS } from '../../../shared/schemas/project.schema';
 import type { z } from 'zod';
@@ -39,17 +39,10 @@ const ITEM_CATEGORY: Record<string, string> = {
 };
 
 /** Words for an item no line of the order names any more (a line removed after booking). */
-const ITEM_WORDS: Record<string, [string, string]> = {
-  underlay_rolls: ['Underlay', 'roll'],
-  battens: ['Battens', 'length'],
-  batten_nails: ['Batten nails', 'nail'],
-  tile_nails: ['Tile nails', 'nail'],
-  ridge_tiles: ['Ridge tiles', 'tile'],
-  hip_tiles: ['Hip tiles', 'tile'],
-  clips: ['Tile clips', 'clip'],
+const words = (item: string): [string, string] => {
+  const known = (ACCESSORY_WORDS as Record<string, { label: string; unit: string } | undefined>)[item];
+  return known ? [known.label, known.unit] : [item.charAt(0).toUpperCase() + item.slice(1).replace(/_/g, ' '), 'each'];
 };
-
-const words = (item: string): [string, string] => ITEM_WORDS[item] ?? [item.charAt(0).toUpperCase() + item.slice(1).replace(/_/g, ' '), 'each'];
 
 /**
  * Each pallet's contents as product names and units. The packer took the order's accessory lines one

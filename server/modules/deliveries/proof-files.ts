@@ -54,7 +54,17 @@ export function formFields(fields: Record<string, unknown>): Record<string, unkn
   const problems: { path: string; message: string }[] = [];
   for (const [k, v] of Object.entries(fields)) {
     if (v === '' || v === undefined) continue;
-    if (k === 'lines' || k === 'position') {
+    if (k === 'data') {
+      // The phone sends every field as one JSON object named `data` beside the files.
+      let parsed: unknown;
+      try {
+        parsed = JSON.parse(String(v));
+      } catch {
+        parsed = undefined;
+      }
+      if (parsed && typeof parsed === 'object' && !Array.isArray(parsed)) Object.assign(out, parsed);
+      else problems.push({ path: 'data', message: 'must be JSON: an object of the delivery fields (receiver_name, note, delivered_at, position, lines)' });
+    } else if (k === 'lines' || k === 'position') {
       try {
         out[k] = JSON.parse(String(v));
       } catch {

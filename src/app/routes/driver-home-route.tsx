@@ -1,12 +1,15 @@
 import { SectionBoundary } from '../../components/errors/section-boundary';
-import { TodaysLoads } from '../../features/deliveries/components/todays-loads';
+import { DriverToday } from '../../features/deliveries/components/driver-today';
 import { BranchList } from '../../features/organisation/components/branch-list';
 import { firstName } from '../../lib/format';
 import { usePageTitle } from '../../lib/use-page-title';
 import { useCurrentSession } from '../current-session';
+import { LandingFaceDrawing } from './landing-face-drawing';
 import { RoleHome } from './role-home';
 
-/** Phone-first: big type, one column, call buttons a gloved thumb can hit. */
+const renderFaceDrawing = (estimateId: number, faceIndex: number) => <LandingFaceDrawing estimateId={estimateId} faceIndex={faceIndex} />;
+
+/** Phone-first: big type, one column, targets a gloved thumb can hit. */
 export function DriverHomeRoute() {
   usePageTitle('On the road');
   const { user, organisation } = useCurrentSession();
@@ -18,8 +21,8 @@ export function DriverHomeRoute() {
         <p className="mt-2 text-lg text-ink-700">Driving for {organisation.name}</p>
       </header>
       <div className="space-y-8 text-lg">
-        <SectionBoundary name="loads">
-          <TodaysLoads />
+        <SectionBoundary name="day">
+          <DriverToday driverId={user.id} renderFaceDrawing={renderFaceDrawing} />
         </SectionBoundary>
         <SectionBoundary name="branches">
           <BranchList title="Your branches" large />
