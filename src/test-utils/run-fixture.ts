@@ -75,8 +75,8 @@ export function runFixture(overrides: Partial<Run> = {}): Run {
 
 /** The same run with every pallet ticked loaded. */
 export function loadedRunFixture(overrides: Partial<Run> = {}): Run {
-  const run = runFixture(overrides);
-  return { ...run, status: 'loaded', loaded_count: run.deck.positions.length, deck: { ...run.deck, positions: run.deck.positions.map((p) => ({ ...p, loaded: true })) } };
+  const run = runFixture();
+  return { ...run, status: 'loaded', loaded_count: run.deck.positions.length, deck: { ...run.deck, positions: run.deck.positions.map((p) => ({ ...p, loaded: true })) }, ...overrides };
 }
 
 /** A week of Tollerbeck Yard's runs from Monday 2027-03-01: two runs on the Monday, one on the Wednesday. */

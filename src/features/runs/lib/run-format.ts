@@ -8,7 +8,9 @@ const shortDayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day:
 export function formatDay(date: string, withYear = true): string {
   const ms = Date.parse(`${date}T00:00:00Z`);
   if (Number.isNaN(ms)) return date;
-  return (withYear ? dayFormat : shortDayFormat).format(new Date(ms));
+  const parts = (withYear ? dayFormat : shortDayFormat).formatToParts(new Date(ms));
+  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? '';
+  return [part('weekday'), part('day'), part('month'), withYear ? part('year') : ''].filter(Boolean).join(' ');
 }
 
 export const kg = (value: number) => `${Math.round(value).toLocaleString('en-GB')} kg`;
