@@ -22,6 +22,9 @@ const lorryFields = {
   pallet_slots: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).max(60, { error: 'must be at most 60' }),
   has_crane: z.boolean().default(false),
   crane_max_kg: z.number({ error: 'must be a number' }).int({ error: 'must be whole kg' }).min(50).max(20_000).nullable().default(null),
+  // The load deck inside its sides, for the deck plan: 7300 × 2450 mm for a rigid unless told.
+  deck_length_mm: z.number({ error: 'must be a number' }).int({ error: 'must be whole mm' }).min(2000, { error: 'must be at least 2,000 mm' }).max(16_500, { error: 'must be at most 16,500 mm' }).default(7300),
+  deck_width_mm: z.number({ error: 'must be a number' }).int({ error: 'must be whole mm' }).min(1200, { error: 'must be at least 1,200 mm' }).max(2600, { error: 'must be at most 2,600 mm' }).default(2450),
 };
 
 const craneRule = (b: { has_crane?: boolean; crane_max_kg?: number | null }, ctx: z.RefinementCtx) => {
@@ -40,6 +43,8 @@ export const updateLorryBodySchema = z
     pallet_slots: lorryFields.pallet_slots,
     has_crane: z.boolean(),
     crane_max_kg: lorryFields.crane_max_kg,
+    deck_length_mm: lorryFields.deck_length_mm.unwrap(),
+    deck_width_mm: lorryFields.deck_width_mm.unwrap(),
   })
   .partial()
   .strict()
@@ -55,6 +60,9 @@ export const lorrySchema = z.object({
   pallet_slots: z.number().int(),
   has_crane: z.boolean(),
   crane_max_kg: z.number().int().nullable(),
+  // Defaults so that a lorry read from an older server still parses.
+  deck_length_mm: z.number().int().default(7300),
+  deck_width_mm: z.number().int().default(2450),
   archived_at: z.string().nullable(),
 });
 export type Lorry = z.infer<typeof lorrySchema>;

@@ -9,6 +9,8 @@ export interface LorryValues {
   pallet_slots: number;
   has_crane: boolean;
   crane_max_kg: number | null;
+  deck_length_mm?: number;
+  deck_width_mm?: number;
 }
 
 export function toLorry(r: Record<string, unknown>): Lorry {
@@ -21,6 +23,8 @@ export function toLorry(r: Record<string, unknown>): Lorry {
     pallet_slots: r.pallet_slots as number,
     has_crane: Boolean(r.has_crane),
     crane_max_kg: (r.crane_max_kg as number | null) ?? null,
+    deck_length_mm: (r.deck_length_mm as number | undefined) ?? 7300,
+    deck_width_mm: (r.deck_width_mm as number | undefined) ?? 2450,
     archived_at: (r.archived_at as string | null) ?? null,
   };
 }

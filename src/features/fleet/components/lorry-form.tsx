@@ -28,6 +28,8 @@ export function LorryForm({ branchId, lorry, onDone }: { branchId: number; lorry
         <TextField name="name" label="Name on the board (optional)" maxLength={120} defaultValue={lorry?.name ?? ''} />
         <TextField name="payload_kg" label="Payload (kg)" hint="What it may carry, pallets included: 100 to 44,000 kg." inputMode="numeric" defaultValue={lorry ? String(lorry.payload_kg) : ''} />
         <TextField name="pallet_slots" label="Pallet slots on the bed" hint="1 to 60." inputMode="numeric" defaultValue={lorry ? String(lorry.pallet_slots) : ''} />
+        <TextField name="deck_length_mm" label="Deck length (mm)" hint="Inside the sides; 7,300 mm for a rigid if left empty." inputMode="numeric" defaultValue={lorry ? String(lorry.deck_length_mm) : ''} />
+        <TextField name="deck_width_mm" label="Deck width (mm)" hint="Inside the sides; 2,450 mm if left empty." inputMode="numeric" defaultValue={lorry ? String(lorry.deck_width_mm) : ''} />
       </div>
       <div className="grid items-start gap-4 sm:grid-cols-2">
         <label htmlFor={craneId} className="flex min-h-tap cursor-pointer items-center gap-3 font-medium">

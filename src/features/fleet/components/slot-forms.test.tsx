@@ -4,8 +4,8 @@ import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-
 import { GenerateSlotsForm } from './slot-forms';
 
 const lorries = [
-  { id: 4, branch_id: 3, registration: 'TY61 KRB', name: 'Crane rigid', payload_kg: 12_000, pallet_slots: 10, has_crane: true, crane_max_kg: 1_200, archived_at: null },
-  { id: 5, branch_id: 3, registration: 'TY62 KRC', name: '', payload_kg: 7_500, pallet_slots: 6, has_crane: false, crane_max_kg: null, archived_at: null },
+  { id: 4, branch_id: 3, registration: 'TY61 KRB', name: 'Crane rigid', payload_kg: 12_000, pallet_slots: 10, has_crane: true, crane_max_kg: 1_200, deck_length_mm: 7300, deck_width_mm: 2450, archived_at: null },
+  { id: 5, branch_id: 3, registration: 'TY62 KRC', name: '', payload_kg: 7_500, pallet_slots: 6, has_crane: false, crane_max_kg: null, deck_length_mm: 7300, deck_width_mm: 2450, archived_at: null },
 ];
 
 describe('GenerateSlotsForm', () => {

@@ -25,6 +25,8 @@ export const lorryFormSchema = z
       pallet_slots: slots ?? undefined,
       has_crane: hasCrane,
       crane_max_kg: hasCrane ? wholeNumberOrText(values.crane_max_kg) : null,
+      deck_length_mm: wholeNumberOrText(values.deck_length_mm) ?? undefined,
+      deck_width_mm: wholeNumberOrText(values.deck_width_mm) ?? undefined,
     };
   })
   .pipe(createLorryBodySchema);
