@@ -45,10 +45,12 @@ export function DeckDrawing({ run, onToggle, pending, className = 'w-full max-w-
   const descId = `${prefix}-desc`;
   const layout = deckLayout(run);
   const { lengthMm: L, widthMm: W } = layout;
+  // An overfull plan runs past the deck's end: the drawing grows to show it.
+  const drawnLength = Math.max(L, layout.rows * layout.rowDepthMm);
   const positions = run.deck.positions;
   const drops = [...new Set(positions.map((p) => p.drop))].sort((a, b) => a - b);
   const loaded = positions.filter((p) => p.loaded).length;
-  const cog = Math.min(Math.max(run.deck.cog_from_front_mm, 0), L);
+  const cog = Math.min(Math.max(run.deck.cog_from_front_mm, 0), drawnLength);
   const interactive = Boolean(onToggle);
   const summary =
     `Deck ${metres(L)} long and ${metres(W)} wide, the cab at the top. ${plural(positions.length, 'pallet')} in ${plural(layout.rows, 'row')} of two, ` +
@@ -63,7 +65,7 @@ export function DeckDrawing({ run, onToggle, pending, className = 'w-full max-w-
 
   return (
     <svg
-      viewBox={`${-SIDE_MARGIN} ${-CAB} ${W + 2 * SIDE_MARGIN} ${L + CAB + REAR}`}
+      viewBox={`${-SIDE_MARGIN} ${-CAB} ${W + 2 * SIDE_MARGIN} ${drawnLength + CAB + REAR}`}
       className={className}
       role={interactive ? 'group' : 'img'}
       aria-labelledby={titleId}
@@ -80,7 +82,7 @@ export function DeckDrawing({ run, onToggle, pending, className = 'w-full max-w-
       </text>
       <rect x={0} y={0} width={W} height={L} fill="#f7f4ef" stroke="#465263" strokeWidth={40} />
       {Array.from({ length: layout.rows }, (_, r) => (
-        <text key={r} x={-SIDE_MARGIN / 2} y={(r + 0.5) * layout.cellLengthMm + 70} textAnchor="middle" fontSize={190} fill="#465263" aria-hidden="true">
+        <text key={r} x={-SIDE_MARGIN / 2} y={(r + 0.5) * layout.rowDepthMm + 70} textAnchor="middle" fontSize={190} fill="#465263" aria-hidden="true">
           {r + 1}
         </text>
       ))}
@@ -148,12 +150,12 @@ export function DeckDrawing({ run, onToggle, pending, className = 'w-full max-w-
         <path d={`M${-SIDE_MARGIN + 40} ${cog} l160 -110 v220 z`} fill="#8f1e18" />
       </g>
       <g fontSize={190} fill="#232b37" textAnchor="middle">
-        <text x={W / 4} y={L + 260}>Left</text>
-        <text x={W / 4} y={L + 500} fontWeight={700}>
+        <text x={W / 4} y={drawnLength + 260}>Left</text>
+        <text x={W / 4} y={drawnLength + 500} fontWeight={700}>
           {kg(run.deck.left_kg)}
         </text>
-        <text x={(3 * W) / 4} y={L + 260}>Right</text>
-        <text x={(3 * W) / 4} y={L + 500} fontWeight={700}>
+        <text x={(3 * W) / 4} y={drawnLength + 260}>Right</text>
+        <text x={(3 * W) / 4} y={drawnLength + 500} fontWeight={700}>
           {kg(run.deck.right_kg)}
         </text>
       </g>

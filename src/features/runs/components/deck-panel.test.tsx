@@ -29,7 +29,7 @@ describe('DeckDrawing', () => {
     // Not interactive without onToggle: one picture with a text alternative.
     const drawing = screen.getByRole('img', { name: 'Deck plan of TY61 KRB' });
     expect(drawing.getAttribute('aria-describedby')).toBeTruthy();
-    expect(screen.getByText(/6 pallets in 6 rows of two, 0 loaded\. Left 2,700 kg, right 2,680 kg; centre of gravity 3\.90 m from the front\./)).toBeTruthy();
+    expect(screen.getByText(/6 pallets in 7 rows of two, 0 loaded\. Left 2,700 kg, right 2,680 kg; centre of gravity 3\.90 m from the front\./)).toBeTruthy();
     expect(screen.queryByRole('button')).toBeNull();
   });
 
@@ -54,10 +54,15 @@ describe('DeckDrawing', () => {
 
   it('places the rear pallets at the rear of the deck, to scale', () => {
     renderWithProviders(<DeckDrawing run={runFixture()} />);
-    const [front, , , , , rear] = screen.getAllByTestId('deck-pallet').map((p) => Number(p.querySelector('rect')!.getAttribute('y')));
-    // 12 pallet slots: 6 rows on a 7,300 mm deck, a row every 1,216.7 mm; a 1,200 mm pallet sits 8.3 mm into its row.
-    expect(front).toBeCloseTo(8.33, 1);
-    expect(rear).toBeCloseTo(5 * (7300 / 6) + 8.33, 1);
+    const boxes = screen.getAllByTestId('deck-pallet').map((p) => p.querySelector('rect')!);
+    const y = boxes.map((b) => Number(b.getAttribute('y')));
+    // A 7,300 × 2,450 mm deck takes 1,200 × 1,000 mm pallets turned, 1,200 across: 7 rows of 1,000 mm
+    // (shared deck geometry); each is drawn 960 mm deep, 20 mm into its row.
+    expect(y[0]).toBeCloseTo(20, 5);
+    expect(y[5]).toBeCloseTo(5 * 1000 + 20, 5);
+    expect(Number(boxes[0]!.getAttribute('width'))).toBeCloseTo(1185, 5);
+    expect(Number(boxes[1]!.getAttribute('x'))).toBe(0 + (1225 - 1185) / 2);
+    expect(Number(boxes[2]!.getAttribute('x'))).toBe(1225 + (1225 - 1185) / 2);
   });
 });
 

@@ -1,8 +1,8 @@
+import { deckGeometry } from '../../../../shared/engine/deck-plan';
 import type { Run } from '../../../../shared/schemas/run.schema';
 
-/** The pallet footprint drawn when it fits the cell: 1200 × 1000 mm, the common trade pallet (common practice). */
-export const DEFAULT_PALLET_MM = { long: 1200, short: 1000 } as const;
-const GAP_MM = 50;
+/** Space left between a pallet and the edge of its half of the deck when drawn (mm). */
+const GAP_MM = 40;
 
 export interface PalletBox {
   index: number;
@@ -18,37 +18,33 @@ export interface DeckLayout {
   lengthMm: number;
   widthMm: number;
   rows: number;
-  cellLengthMm: number;
-  cellWidthMm: number;
+  /** Depth of one row along the deck. */
+  rowDepthMm: number;
   boxes: PalletBox[];
 }
 
 /**
- * Where each deck position is drawn, to scale: the deck is split into rows of two (left and right)
- * from the front; there are as many rows as the lorry has pallet slots two abreast, or as the plan
- * uses if more. Each pallet is drawn at the default footprint turned to fit its cell, or fills the
- * cell (less a small gap) when that does not fit.
+ * Where each deck position is drawn, to scale and where the plan put it: the rows of the shared deck
+ * geometry (the default 1200 × 1000 mm pallet turned whichever way gives more rows two abreast, as the
+ * server's plan does), more rows if the plan uses more (an overfull lorry shows its pallets past the
+ * deck's end). A run of larger pallets is planned in deeper rows than drawn here: the plan's response
+ * does not carry its row depth.
  */
 export function deckLayout(run: Pick<Run, 'lorry' | 'deck'>): DeckLayout {
   const lengthMm = run.lorry.deck_length_mm;
   const widthMm = run.lorry.deck_width_mm;
+  const geometry = deckGeometry(run.lorry);
   const maxRow = run.deck.positions.reduce((m, p) => Math.max(m, p.row), 0);
-  const rows = Math.max(1, Math.ceil(run.lorry.pallet_slots / 2), maxRow);
-  const cellLengthMm = lengthMm / rows;
-  const cellWidthMm = widthMm / 2;
-  // Pallets are loaded tight, so a footprint fits when it is no bigger than its cell.
-  const fits = (along: number, across: number) => along <= cellLengthMm && across <= cellWidthMm;
-  const [length, width] = fits(DEFAULT_PALLET_MM.long, DEFAULT_PALLET_MM.short)
-    ? [DEFAULT_PALLET_MM.long, DEFAULT_PALLET_MM.short]
-    : fits(DEFAULT_PALLET_MM.short, DEFAULT_PALLET_MM.long)
-      ? [DEFAULT_PALLET_MM.short, DEFAULT_PALLET_MM.long]
-      : [Math.max(1, cellLengthMm - GAP_MM), Math.max(1, cellWidthMm - GAP_MM)];
+  const rows = Math.max(1, geometry.rows, maxRow);
+  const half = widthMm / 2;
+  const width = Math.max(1, Math.min(geometry.across_mm, half - GAP_MM));
+  const length = Math.max(1, Math.min(geometry.along_mm, geometry.row_depth_mm) - GAP_MM);
   const boxes = run.deck.positions.map((p, index) => ({
     index,
-    x: (p.side === 'left' ? 0 : cellWidthMm) + (cellWidthMm - width) / 2,
-    y: (p.row - 1) * cellLengthMm + (cellLengthMm - length) / 2,
+    x: (p.side === 'left' ? 0 : half) + (half - width) / 2,
+    y: (p.row - 1) * geometry.row_depth_mm + (geometry.row_depth_mm - length) / 2,
     width,
     length,
   }));
-  return { lengthMm, widthMm, rows, cellLengthMm, cellWidthMm, boxes };
+  return { lengthMm, widthMm, rows, rowDepthMm: geometry.row_depth_mm, boxes };
 }
