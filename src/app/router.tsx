@@ -8,7 +8,7 @@ import { redirectIfSignedIn, requireAction, requireHomeOf, requireSession, rootR
 import { AccountsRoute } from './routes/accounts-route';
 import { AcceptInvitationRoute } from './routes/accept-invitation-route';
 import { AmendOrderRoute } from './routes/amend-order-route';
-import { EstimateCaution, FaceDrawingCaution, NewEstimateCaution, OrderCaution, PlaceOrderCaution, YardLoadingCaution } from './routes/cautions';
+import { EstimateCaution, FaceDrawingCaution, NewEstimateCaution, OrderCaution, PlaceOrderCaution, YardLoadingCaution, YardPalletCaution } from './routes/cautions';
 import { CompareEstimatesRoute } from './routes/compare-estimates-route';
 import { EditSiteRoute } from './routes/edit-site-route';
 import { EstimateRoute } from './routes/estimate-route';
@@ -105,7 +105,7 @@ function merchantRoutes(queryClient: QueryClient): RouteObject[] {
     page('fleet', 'fleet:manage', <FleetRoute />),
     // The yard's runs: the desk sees them too (slots:read); what each role may change is the page's and the server's business.
     page('yard/runs/:runId', 'slots:read', <YardRunRoute />, ['runId'], { caution: <YardLoadingCaution /> }),
-    page('yard/pallets/:orderId/:pallet', 'slots:read', <YardPalletRoute />, ['orderId', 'pallet'], { caution: <YardLoadingCaution /> }),
+    page('yard/pallets/:orderId/:pallet', 'slots:read', <YardPalletRoute />, ['orderId', 'pallet'], { caution: <YardPalletCaution /> }),
     page('yard/orders/:orderId', 'slots:read', <YardOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
     page('catalogue', 'catalogue:read', <CatalogueRoute />),
     // Both sides: the desk issues and credits, the contractor pays (the card page sends it back here).

@@ -86,3 +86,8 @@ export function YardLoadingCaution() {
     />
   );
 }
+
+/** A pallet's page on a phone in the yard: the one caution first, the rest a tap away, the button in reach. */
+export function YardPalletCaution() {
+  return <CautionBody points={['Only trained operators lift pallets; nobody stands under, beside or on a load being lifted.']} full={SAFETY_CAUTIONS} />;
+}

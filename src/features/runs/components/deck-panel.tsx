@@ -105,9 +105,9 @@ export function DeckPanel({ run, canBuild }: DeckPanelProps) {
         </span>{' '}
         pallets loaded{editable ? ' · tap a pallet on the drawing or tick it in the list' : ''}
       </p>
-      <div className="grid items-start gap-4 md:grid-cols-[minmax(12rem,20rem)_1fr]">
+      <div className="grid items-start gap-4 sm:grid-cols-[minmax(9rem,15rem)_minmax(0,1fr)]">
         <div className="space-y-3">
-          <DeckDrawing run={run} onToggle={editable ? toggle : undefined} pending={pending} className="mx-auto block w-full max-w-[16rem] md:max-w-none" />
+          <DeckDrawing run={run} onToggle={editable ? toggle : undefined} pending={pending} className="mx-auto block w-full max-w-[16rem] sm:max-w-none" />
           <DeckFigures run={run} />
         </div>
         <div className="space-y-3">

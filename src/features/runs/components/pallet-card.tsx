@@ -33,7 +33,7 @@ function LoadButton({ pallet, runId, index }: { pallet: PalletView; runId: numbe
           </Button>
         </>
       ) : (
-        <Button size="lg" className="min-h-20 w-full text-2xl" busy={tick.isPending} onClick={() => tick.mutate({ index, loaded: true })}>
+        <Button size="lg" className="w-full" busy={tick.isPending} onClick={() => tick.mutate({ index, loaded: true })}>
           Mark loaded
         </Button>
       )}
@@ -84,6 +84,17 @@ export function PalletCard({ pallet, canLoad }: { pallet: PalletView; canLoad: b
           )}
         </dd>
       </dl>
+      {onRun ? (
+        canLoad ? (
+          <LoadButton pallet={pallet} runId={pallet.run_id!} index={pallet.position_index!} />
+        ) : (
+          <p className="font-semibold">{pallet.loaded ? 'Loaded.' : 'Not loaded yet.'}</p>
+        )
+      ) : (
+        <Alert tone="info" title="Not on a lorry yet" live={false}>
+          The order is not booked onto a run, so there is nothing to load it onto.
+        </Alert>
+      )}
       <section aria-label="On the pallet">
         <h2 className="mb-1 font-semibold">On the pallet</h2>
         {pallet.items.length === 0 ? (
@@ -101,17 +112,6 @@ export function PalletCard({ pallet, canLoad }: { pallet: PalletView; canLoad: b
           </ul>
         )}
       </section>
-      {onRun ? (
-        canLoad ? (
-          <LoadButton pallet={pallet} runId={pallet.run_id!} index={pallet.position_index!} />
-        ) : (
-          <p className="font-semibold">{pallet.loaded ? 'Loaded.' : 'Not loaded yet.'}</p>
-        )
-      ) : (
-        <Alert tone="info" title="Not on a lorry yet" live={false}>
-          The order is not booked onto a run, so there is nothing to load it onto.
-        </Alert>
-      )}
       {pallet.run_id !== null ? (
         <p>
           <Link to={runPath(pallet.run_id)} className="inline-flex min-h-tap items-center font-medium text-clay-700 underline underline-offset-2">

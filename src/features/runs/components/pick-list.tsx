@@ -14,7 +14,7 @@ export function PickList({ run }: { run: Run }) {
         const drop = place.get(list.order_id) ?? 0;
         return (
           <div key={list.order_id} className="overflow-x-auto">
-            <table className="w-full min-w-[22rem] text-sm">
+            <table className="w-full min-w-[18rem] text-sm">
               <caption className="mb-1 text-left font-semibold">
                 <span className="inline-flex items-center gap-1.5">
                   <DropSwatch drop={drop} className="h-4 w-4" />

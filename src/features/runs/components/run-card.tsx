@@ -36,7 +36,7 @@ export function RunCard({ run }: { run: Run }) {
         <p className="mt-3 text-sm text-ink-600">Nothing booked.</p>
       ) : (
         <>
-          <div className="mt-3 grid items-start gap-4 sm:grid-cols-[9rem_1fr]">
+          <div className="mt-3 grid grid-cols-[minmax(0,1fr)] items-start gap-4 sm:grid-cols-[9rem_minmax(0,1fr)]">
             <DeckDrawing run={run} className="mx-auto block w-32 sm:w-full" />
             <div className="min-w-0 space-y-3">
               <ol className="space-y-1" aria-label={`Drops of ${title}, the first off first`}>

@@ -101,7 +101,7 @@ export function RunDayPlan({ branches }: { branches: readonly BranchOption[] }) 
           </Button>
         ))}
       </div>
-      <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(18rem,1fr)]">
+      <div className="grid grid-cols-[minmax(0,1fr)] items-start gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(18rem,1fr)]">
         <section aria-label="Runs of the day" className={view === 'week' ? 'hidden lg:block' : ''}>
           <h2 className="mb-2 text-lg font-semibold">
             {formatDay(isIsoDate(date) ? date : today)}

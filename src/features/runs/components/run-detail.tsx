@@ -45,17 +45,18 @@ export function RunDetail({ run, can, orderHref }: RunDetailProps) {
           <SendOutPanel run={run} canSendOut={can.sendOut} canOverride={can.override} />
         </div>
       </Card>
-      <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
+      {/* On a phone: drops, deck, pick list; on a desk the deck stands beside the other two. */}
+      <div className="grid grid-cols-[minmax(0,1fr)] items-start gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)] lg:grid-rows-[auto_1fr]">
         <Card title="Drops in order">
           <DropOrder run={run} canReorder={can.build} orderHref={orderHref} />
         </Card>
-        <Card title="Deck">
+        <Card title="Deck" className="lg:col-start-2 lg:row-span-2 lg:row-start-1">
           {run.drops.length > 0 ? <DeckPanel run={run} canBuild={can.build} /> : <p className="text-ink-700">No pallets to place yet.</p>}
         </Card>
+        <Card title="Pick list">
+          <PickList run={run} />
+        </Card>
       </div>
-      <Card title="Pick list">
-        <PickList run={run} />
-      </Card>
     </div>
   );
 }
