@@ -129,15 +129,16 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       const booking = run.getByRole('list', { name: `Orders on ${REGISTRATION} ${WINDOWS[0]}` }).getByRole('listitem').filter({ hasText: order.reference });
       await booking.waitFor();
       expect(await booking.innerText()).toContain('confirmed');
-      await booking.getByRole('button', { name: 'Send out' }).click();
-      await yard.getByText(new RegExp(`Assign a driver to ${REGISTRATION}`)).first().waitFor();
+      // The booked load opens its run in one click; the calendar itself sends nothing out.
+      expect(await booking.getByRole('link', { name: `${order.reference}: open its run` }).getAttribute('href')).toBe(`/yard/runs/${morning.id}`);
+      expect(await booking.getByRole('button', { name: 'Send out' }).count()).toBe(0);
+      await expect(api(yard, 'POST', `/api/orders/${order.id}/dispatch`, {})).rejects.toThrow(new RegExp(`409.*Assign a driver to ${REGISTRATION}`));
       expect(await booking.innerText()).toContain('confirmed');
 
       // The driver goes on the run, then the lorry goes out.
       await run.getByLabel('Driver', { exact: true }).selectOption({ label: 'Kofi Brennagh' });
       await yard.getByText('Driver assigned.').first().waitFor();
-      await booking.getByRole('button', { name: 'Send out' }).click();
-      await booking.filter({ hasText: 'on the road' }).waitFor();
+      await api(yard, 'POST', `/api/orders/${order.id}/dispatch`, {});
 
       const after = await api<SlotDay>(yard, 'GET', `/api/branches/${branch.id}/slots?date=${monday}`);
       const sent = after.slots.find((s) => s.id === morning.id)!;
