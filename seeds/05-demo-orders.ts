@@ -24,6 +24,7 @@ import { paymentsService } from '../server/modules/payments/payments.service';
 import { projectsService } from '../server/modules/projects/projects.service';
 import { quotesService } from '../server/modules/quotes/quotes.service';
 import { schedulesService } from '../server/modules/schedules/schedules.service';
+import { runsService } from '../server/modules/runs/runs.service';
 import { slotsService } from '../server/modules/slots/slots.service';
 
 /**
@@ -128,6 +129,7 @@ async function buildOrderBook(knex: Knex): Promise<void> {
   const projects = projectsService(deps);
   const schedules = schedulesService(deps);
   const slots = slotsService(deps);
+  const runs = runsService(deps);
   const payments = paymentsService(deps, null);
   const invoices = invoicesService(deps, payments);
 
@@ -195,7 +197,14 @@ async function buildOrderBook(knex: Knex): Promise<void> {
   };
 
   const confirm = (email: string, o: OrderDetail, slot?: number) => orders.confirm(as(email, 'orders:confirm'), o.id, confirmOrderBodySchema.parse(slot ? { slot_id: slot } : {}));
-  const dispatch = (email: string, o: OrderDetail) => orders.dispatch(as(email, 'slots:book'), o.id);
+  /** The yard ticks every pallet of the order loaded on its run, then sends it out. */
+  const dispatch = async (email: string, o: OrderDetail) => {
+    const yard = as(email, 'runs:load');
+    const booking = (await knex('slot_bookings').where({ order_id: o.id }).first('slot_id')) as { slot_id: number };
+    const run = await runs.get(yard, booking.slot_id);
+    for (const [i, p] of run.deck.positions.entries()) if (p.order_id === o.id && !p.loaded) await runs.setLoaded(yard, run.id, i, true);
+    return orders.dispatch(as(email, 'slots:book'), o.id);
+  };
   const deliver = (email: string, o: OrderDetail, body: { received_by: string; notes?: string }) => orders.recordDelivery(as(email, 'deliveries:record'), o.id, recordDeliveryBodySchema.parse(body));
   const invoice = (email: string, o: OrderDetail) => invoices.issue(as(email, 'invoices:issue'), o.id);
 
@@ -285,6 +294,55 @@ async function buildOrderBook(knex: Knex): Promise<void> {
 
   const fr3 = await place(EST2, frSlate, pellingsby.id, { requested_date: day(2), po_reference: 'FR-SL-3', lines: share(frSlate, 1 / 4) });
   await confirm(SALES2, fr3, await slotIdOf('RL-PY01', day(2), MORNING));
+
+  // ---- Runs for the yards: today's and the next working days' loads, built pallet by pallet ----
+
+  /** The yard ticks a share of an order's pallets loaded on its run (1 = all of them). */
+  const load = async (email: string, o: OrderDetail, fraction: number) => {
+    const yard = as(email, 'runs:load');
+    const booking = (await knex('slot_bookings').where({ order_id: o.id }).first('slot_id')) as { slot_id: number };
+    const run = await runs.get(yard, booking.slot_id);
+    const mine = [...run.deck.positions.entries()].filter(([, p]) => p.order_id === o.id);
+    for (const [i] of mine.slice(0, Math.ceil(mine.length * fraction))) await runs.setLoaded(yard, run.id, i, true);
+  };
+  const withDriver = async (email: string, slotId: number, driverEmail: string) => slots.update(as(email, 'fleet:manage'), slotId, { driver_id: person(driverEmail).id });
+
+  // Tollerbeck Yard, next working day: the crane lorry's morning run gets a second drop, set down at
+  // ground level after the lift at plot 3; the yard loaded it all this evening.
+  const plot4 = await place(EST1, hbFlatlock, tollerbeckYard.id, { requested_date: day(1), time_window: MORNING, po_reference: 'HB-P04', notes: 'Plot 4: ridge, hips and tile nails, set down on the hardstanding by the site cabin.', lines: share(hbFlatlock, 1 / 20, ['ridge', 'hip', 'tile_nail']) });
+  await confirm(SALES1, plot4, await slotIdOf('RL-TY01', day(1), MORNING));
+  await load('dispatch@demo.test', plot3, 1);
+  await load('dispatch@demo.test', plot4, 1);
+
+  // Tollerbeck Yard, this afternoon: the tail-lift lorry takes two drops and is half loaded.
+  const tailLiftToday = await slotIdOf('RL-TY02', today, AFTERNOON);
+  await withDriver('dispatch@demo.test', tailLiftToday, 'driver@demo.test');
+  const frPlot3 = await place(EST2, frPlain, tollerbeckYard.id, { requested_date: today, time_window: AFTERNOON, po_reference: 'FR-CL-3', notes: 'Plot 3 of the Rowan terrace.', lines: share(frPlain, 1 / 8) });
+  await confirm(SALES1, frPlot3, tailLiftToday);
+  const fb7 = await place(EST1, hbFlatlock, tollerbeckYard.id, { requested_date: today, time_window: AFTERNOON, po_reference: 'HB-FB-07', notes: 'Felt and batten for plot 7.', lines: share(hbFlatlock, 1 / 20, ['batten', 'batten_nail', 'underlay']) });
+  await confirm(SALES1, fb7, tailLiftToday);
+  await load('dispatch@demo.test', frPlot3, 1);
+
+  // Cindermoor Depot, next working day: a crane drop with part of the tiles back-ordered, so a face is short.
+  const plot11 = await place(EST1, hbFlatlock, cindermoor.id, { requested_date: day(1), time_window: MORNING, po_reference: 'HB-P11', delivery_method: 'roof', lines: share(hbFlatlock, 1 / 40) });
+  const plot11Tiles = plot11.lines.find((l) => l.category === 'tile')!;
+  await orders.confirm(
+    as(SALES1, 'orders:confirm'),
+    plot11.id,
+    confirmOrderBodySchema.parse({ slot_id: await slotIdOf('RL-CD01', day(1), MORNING), lines: [{ line_id: plot11Tiles.id, quantity: Math.max(1, Math.floor(plot11Tiles.quantity * 0.7)) }] }),
+  );
+
+  // Caddonmere Wharf, this afternoon: a crane lift and a ground drop on one run, not yet loaded.
+  const wharfToday = await slotIdOf('RL-CW01', today, AFTERNOON);
+  await withDriver('dispatch2@demo.test', wharfToday, 'driver2@demo.test');
+  const plot12 = await place(EST1, hbWharfLock, caddonmereWharf.id, { requested_date: today, time_window: AFTERNOON, po_reference: 'HB-P12', delivery_method: 'roof', lines: share(hbWharfLock, 1 / 40) });
+  await confirm(SALES2, plot12, wharfToday);
+  const plot13 = await place(EST1, hbWharfLock, caddonmereWharf.id, { requested_date: today, time_window: AFTERNOON, po_reference: 'HB-P13', lines: share(hbWharfLock, 1 / 40, ['ridge', 'hip', 'batten', 'batten_nail', 'tile_nail', 'underlay']) });
+  await confirm(SALES2, plot13, wharfToday);
+
+  // Pellingsby Yard, next working day: slates on the tail-lift lorry.
+  const fr2 = await place(EST2, frSlate, pellingsby.id, { requested_date: day(1), time_window: MORNING, po_reference: 'FR-SL-2', lines: share(frSlate, 1 / 8) });
+  await confirm(SALES2, fr2, await slotIdOf('RL-PY02', day(1), MORNING));
 
   await place(EST1, hbWharfLock, caddonmereWharf.id, { requested_date: day(8), po_reference: 'HB-P09', notes: 'Price check against our usual merchant.', lines: share(hbWharfLock, 1 / 20) });
 

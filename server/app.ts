@@ -43,6 +43,8 @@ import { projectsRoutes } from './modules/projects/projects.routes';
 import { projectsService } from './modules/projects/projects.service';
 import { quotesRoutes } from './modules/quotes/quotes.routes';
 import { quotesService } from './modules/quotes/quotes.service';
+import { runsRoutes } from './modules/runs/runs.routes';
+import { runsService } from './modules/runs/runs.service';
 import { schedulesRoutes } from './modules/schedules/schedules.routes';
 import { schedulesService } from './modules/schedules/schedules.service';
 
@@ -141,6 +143,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(stockRoutes(stockService(deps)));
   api.use(fleetRoutes(fleetService(deps)));
   api.use(slotsRoutes(slotsService(deps), orders.linesOf));
+  api.use(runsRoutes(runsService(deps), () => config.appUrl));
   api.use(invoicesRoutes(invoicesService(deps, payments)));
   api.use(paymentsRoutes(payments));
   if (!config.isProduction) api.use(outboxRoutes(db));

@@ -34,6 +34,13 @@ export const POLICY = {
   'payments:make': ['contractor_owner', 'contractor_estimator'],
   'orders:comment': ['contractor_owner', 'contractor_estimator', 'merchant_owner', 'merchant_sales', 'merchant_dispatcher'],
   'accounts:manage': ['merchant_owner', 'merchant_sales'],
+  // Runs: the yard's day. A driver reads only the runs assigned to them (checked in the service).
+  'runs:read': ['merchant_owner', 'merchant_sales', 'merchant_dispatcher', 'driver'],
+  'runs:plan': ['merchant_owner', 'merchant_sales', 'merchant_dispatcher'],
+  'runs:load': ['merchant_owner', 'merchant_dispatcher'],
+  'runs:send_out': ['merchant_owner', 'merchant_sales', 'merchant_dispatcher'],
+  /** Sending a run out before its day or with a pallet not ticked loaded, with a reason. */
+  'runs:override': ['merchant_owner', 'merchant_dispatcher'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof POLICY;

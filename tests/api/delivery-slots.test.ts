@@ -6,6 +6,7 @@ import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { GABLE_CSV as GABLE, inDays, signIn } from '../setup/scenario';
 import { makeOrgWithUser, makeUser } from '../setup/factories';
+import { loadRunOf } from '../setup/order-scenario';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -212,6 +213,7 @@ describe('the driver’s day', () => {
     expect((await (await login(m.salesEmail)).send('patch', `/api/slots/${slot.id}`, { driver_id: m.driverId })).status).toBe(403);
     const assigned = await m.yard.send('patch', `/api/slots/${slot.id}`, { driver_id: m.driverId });
     expect(assigned.body.driver).toMatchObject({ id: m.driverId });
+    await loadRunOf(m.yard, order.id);
     const out = await m.yard.post(`/api/orders/${order.id}/dispatch`);
     expect(out.status).toBe(200);
     expect(out.body.status).toBe('on_the_road');

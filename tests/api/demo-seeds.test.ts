@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { nextWorkingDay } from '../../shared/domain/business-calendar';
 import { orderListSchema } from '../../shared/schemas/order.schema';
+import { runDaySchema, type Run } from '../../shared/schemas/run.schema';
 import { runSeeds } from '../../server/db/seed-runner';
 import { DEMO_PASSWORD } from '../../seeds/01-demo';
 import { DEMO_CATALOGUES } from '../../seeds/02-catalogue';
@@ -27,7 +29,8 @@ describe('the demo seeds on a fresh database', () => {
   it('give both demo desks an order book in every stage, with quote requests waiting, in a few seconds', async () => {
     const statuses = (await t.db('orders').select('status')).map((r) => r.status as string);
     expect(statuses.length).toBeGreaterThanOrEqual(10);
-    expect(statuses.length).toBeLessThanOrEqual(16);
+    // The order book and the yards' runs for today and the next working days.
+    expect(statuses.length).toBeLessThanOrEqual(24);
     for (const stage of ['sent', 'changes_offered', 'confirmed', 'on_the_road', 'delivered', 'turned_down']) expect(statuses, stage).toContain(stage);
     const merchants = await t.db('orders').distinct('merchant_organisation_id');
     expect(merchants.length).toBe(2);
@@ -178,5 +181,32 @@ describe('the demo seeds on a fresh database', () => {
     await runSeeds(t.db);
     expect(await Promise.all(['orders', 'order_events', 'invoices', 'quote_requests', 'slot_bookings', 'projects', 'estimates'].map(count))).toEqual(before);
     expect(await t.db('branch_products').orderBy(['branch_id', 'product_id']).select('on_hand', 'reserved')).toEqual(stock);
+  });
+
+  it("give every demo branch runs today or on the next working days: two drops on one lorry, a crane drop, a run loaded, one half loaded, a face short", async () => {
+    const today = t.config.calendar.today();
+    const runs: Run[] = [];
+    for (const email of ['dispatch@demo.test', 'dispatch2@demo.test']) {
+      const yard = await demoClient(email);
+      const me = (await yard.get('/api/auth/me')).body as { organisation: { id: number } };
+      const branches = await t.db('branches').where({ organisation_id: me.organisation.id }).select('id');
+      expect(branches.length).toBe(2);
+      for (const b of branches) {
+        const found: Run[] = [];
+        for (let d = today, n = 0; n < 3; d = nextWorkingDay(d), n++) {
+          const res = await yard.get(`/api/branches/${b.id}/runs?date=${d}`);
+          expect(res.status).toBe(200);
+          found.push(...runDaySchema.parse(res.body).filter((r) => r.drops.length > 0));
+        }
+        expect(found.length, `branch ${b.id}`).toBeGreaterThan(0);
+        runs.push(...found);
+      }
+    }
+    expect(runs.some((r) => r.drops.length >= 2)).toBe(true);
+    expect(runs.some((r) => r.drops.some((d) => d.delivery_method === 'roof') && r.lorry.has_crane)).toBe(true);
+    expect(runs.some((r) => r.status === 'loaded' && r.loaded_count === r.pallets)).toBe(true);
+    expect(runs.some((r) => r.date === today && r.loaded_count > 0 && r.loaded_count < r.pallets)).toBe(true);
+    expect(runs.some((r) => r.drops.some((d) => d.short && d.status === 'confirmed'))).toBe(true);
+    expect(runs.some((r) => r.drops.some((d) => d.status === 'delivered'))).toBe(true);
   });
 });

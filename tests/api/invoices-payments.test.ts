@@ -9,6 +9,7 @@ import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { GABLE_CSV as GABLE, inDays, signIn } from '../setup/scenario';
 import { makeOrgWithUser, makeUser } from '../setup/factories';
+import { loadRunOf } from '../setup/order-scenario';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -140,6 +141,7 @@ describe('issuing invoices', () => {
     const slot = (await yard.post(`/api/branches/${m.branchId}/slots`, { lorry_id: lorry.id, date: today(), time_window: '00:00-23:59', driver_id: driver.userId })).body;
     const order = (await k.c.post('/api/orders', { estimate_id: k.estimate.id, branch_id: m.branchId, requested_date: today(), delivery_method: 'ground', lines: [{ product_id: m.product('TRS-FL420-SG'), quantity: 360 }] })).body;
     expect((await m.desk.post(`/api/orders/${order.id}/confirm`, { slot_id: slot.id })).status).toBe(200);
+    await loadRunOf(yard, order.id);
     expect((await yard.post(`/api/orders/${order.id}/dispatch`)).status).toBe(200);
     expect((await (await login(driver.email)).post(`/api/orders/${order.id}/delivery`, { received_by: 'Site agent', lines: [{ line_id: order.lines[0].id, delivered_quantity: 350 }] })).status).toBe(200);
     const inv = await m.desk.post(`/api/orders/${order.id}/invoice`);

@@ -70,3 +70,17 @@ export const orderBody = (k: { estimate: { id: number } }, m: { branchId: number
   po_reference: 'PO-4471',
   ...over,
 });
+
+/** Ticks every pallet of the run an order is booked on as loaded, as the yard does before it goes out. */
+export async function loadRunOf(client: { get: (p: string) => PromiseLike<{ status: number; body: unknown }>; post: (p: string, b?: unknown) => PromiseLike<{ status: number; body: unknown }> }, orderId: number) {
+  const pallet = await client.get(`/api/orders/${orderId}/pallets/1`);
+  expect(pallet.status, JSON.stringify(pallet.body)).toBe(200);
+  const runId = (pallet.body as { run_id: number }).run_id;
+  const run = (await client.get(`/api/runs/${runId}`)).body as { deck: { positions: { order_id: number; loaded: boolean }[] } };
+  for (const [i, p] of run.deck.positions.entries()) {
+    if (p.order_id !== orderId || p.loaded) continue;
+    const res = await client.post(`/api/runs/${runId}/positions/${i}/loaded`);
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+  }
+  return runId;
+}

@@ -31,6 +31,7 @@ import { catalogueRepository, type BranchProductRow } from '../catalogue/catalog
 import { orderCautions } from '../estimates/cautions';
 import { estimatesRepository } from '../estimates/estimates.repository';
 import { projectsService } from '../projects/projects.service';
+import { runsService } from '../runs/runs.service';
 import { slotsService } from '../slots/slots.service';
 import { stockRepository } from '../stock/stock.repository';
 import { orderBookCache } from './order-book-cache';
@@ -95,6 +96,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
   const estimates = estimatesRepository(db);
   const projects = projectsService(deps);
   const slots = slotsService(deps);
+  const runs = runsService(deps);
   const stock = stockRepository(db);
 
   async function notify(event: OrderMailEvent, orderId: number, party: OrderParty, note?: string) {
@@ -706,6 +708,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         if (!booking) throw AppError.conflict('not_booked', `Book ${orderReference(id)} into a delivery slot before it goes out`);
         const slot = (await slots.slot(user.organisation.id, booking.slot_id, trx))!;
         if (!slot.driver_user_id) throw AppError.conflict('no_driver', `Assign a driver to ${slot.registration} on ${slot.date} ${slot.time_window} first`);
+        // The same rules as the run's send-out: its day, every pallet of this order ticked loaded.
+        await runs.assertOrderMayLeave(user, id, trx);
         if (!(await orders.updateIf(trx, id, { statuses: t.from }, { status: t.to }, false))) throw AppError.conflict('order_changed', 'The order changed at the same moment; reload it and try again');
         await orders.insertEvent(trx, id, { kind: 'dispatched', actor: actorOf(user), summary: `Out for delivery on ${slot.registration} with ${slot.driver_name}`, data: { slot_id: slot.id } });
       });

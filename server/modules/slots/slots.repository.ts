@@ -165,6 +165,8 @@ export function slotsRepository(db: Db) {
     },
 
     async deleteBooking(trx: Db, orderId: number): Promise<void> {
+      // Ticks belong to the booking: a moved or re-booked order is loaded afresh.
+      await trx('run_loaded_pallets').where({ order_id: orderId }).delete();
       await trx('slot_bookings').where({ order_id: orderId }).delete();
     },
 
