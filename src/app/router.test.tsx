@@ -152,8 +152,8 @@ describe('app routes', () => {
     expect(screen.queryByRole('button', { name: /Book this slot|Move to this slot|Add the comment|Confirm all|Offer changes|Turn down/ })).toBeNull();
   });
 
-  it('refuses a run’s page to a driver with a 403 page', async () => {
-    renderApp('/yard/runs/7', { 'GET /api/auth/me': { status: 200, body: sessionFor('driver') } });
+  it('refuses a run’s page to a contractor with a 403 page', async () => {
+    renderApp('/yard/runs/7', { 'GET /api/auth/me': { status: 200, body: sessionFor('contractor_owner') } });
     expect(await screen.findByRole('heading', { level: 1, name: 'This page is not part of your role' })).toBeTruthy();
   });
 });

@@ -103,9 +103,9 @@ function merchantRoutes(queryClient: QueryClient): RouteObject[] {
     page('desk/quotes', 'orders:confirm', <DeskQuotesRoute />),
     page('desk/quotes/:requestId', 'orders:confirm', <DeskQuoteRoute />, ['requestId']),
     page('fleet', 'fleet:manage', <FleetRoute />),
-    // The yard's runs: the desk sees them too (slots:read); what each role may change is the page's and the server's business.
-    page('yard/runs/:runId', 'slots:read', <YardRunRoute />, ['runId'], { caution: <YardLoadingCaution /> }),
-    page('yard/pallets/:orderId/:pallet', 'slots:read', <YardPalletRoute />, ['orderId', 'pallet'], { caution: <YardPalletCaution /> }),
+    // The yard's runs: the desk sees them too; what each role may change there follows the runs:* actions.
+    page('yard/runs/:runId', 'runs:read', <YardRunRoute />, ['runId'], { caution: <YardLoadingCaution /> }),
+    page('yard/pallets/:orderId/:pallet', 'runs:read', <YardPalletRoute />, ['orderId', 'pallet'], { caution: <YardPalletCaution /> }),
     page('yard/orders/:orderId', 'slots:read', <YardOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
     page('catalogue', 'catalogue:read', <CatalogueRoute />),
     // Both sides: the desk issues and credits, the contractor pays (the card page sends it back here).

@@ -24,7 +24,7 @@ export function YardPalletRoute() {
               Pallet {found.pallet} of {found.pallets}
               <span className="block text-xl font-semibold text-ink-700">{found.reference}</span>
             </h1>
-            <PalletCard pallet={found} canLoad={runAbilitiesFor(user.role).build} />
+            <PalletCard pallet={found} canLoad={runAbilitiesFor(user.role).load} />
           </>
         )}
       </PageQuery>

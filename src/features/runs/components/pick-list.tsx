@@ -12,6 +12,17 @@ export function PickList({ run }: { run: Run }) {
     <div className="space-y-4">
       {lists.map((list) => {
         const drop = place.get(list.order_id) ?? 0;
+        if (list.lines.length === 0) {
+          return (
+            <p key={list.order_id} className="flex items-center gap-1.5 text-sm">
+              <DropSwatch drop={drop} className="h-4 w-4" />
+              <span className="font-semibold">
+                Drop {drop}: {list.reference}
+              </span>{' '}
+              — nothing left to pick.
+            </p>
+          );
+        }
         return (
           <div key={list.order_id} className="overflow-x-auto">
             <table className="w-full min-w-[18rem] text-sm">

@@ -10,8 +10,10 @@ import { RunStatusBadge } from './run-status';
 import { SendOutPanel } from './send-out-panel';
 
 export interface RunAbilities {
-  /** Tick pallets and change the drop order. */
-  build: boolean;
+  /** Change the drop order. */
+  plan: boolean;
+  /** Tick pallets loaded. */
+  load: boolean;
   sendOut: boolean;
   /** Send out before the day or not fully ticked, with a reason. */
   override: boolean;
@@ -48,10 +50,10 @@ export function RunDetail({ run, can, orderHref }: RunDetailProps) {
       {/* On a phone: drops, deck, pick list; on a desk the deck stands beside the other two. */}
       <div className="grid grid-cols-[minmax(0,1fr)] items-start gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)] lg:grid-rows-[auto_1fr]">
         <Card title="Drops in order">
-          <DropOrder run={run} canReorder={can.build} orderHref={orderHref} />
+          <DropOrder run={run} canReorder={can.plan} orderHref={orderHref} />
         </Card>
         <Card title="Deck" className="lg:col-start-2 lg:row-span-2 lg:row-start-1">
-          {run.drops.length > 0 ? <DeckPanel run={run} canBuild={can.build} /> : <p className="text-ink-700">No pallets to place yet.</p>}
+          {run.drops.length > 0 ? <DeckPanel run={run} canBuild={can.load} /> : <p className="text-ink-700">No pallets to place yet.</p>}
         </Card>
         <Card title="Pick list">
           <PickList run={run} />
