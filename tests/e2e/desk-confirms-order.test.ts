@@ -132,8 +132,17 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
         await yard.getByLabel('Branch', { exact: true }).selectOption(branchValue!);
         await yard.getByRole('region', { name: 'Slot calendar' }).getByLabel('Day', { exact: true }).fill(date);
         const booking = yard.getByRole('list', { name: /^Orders on / }).getByRole('listitem').filter({ hasText: placed.reference });
-        await booking.getByRole('link', { name: `${placed.reference}: open its run` }).waitFor();
-        await pageApi(yard, 'POST', `/api/orders/${placed.id}/dispatch`, {});
+        // The run is for the next working day: the dispatcher sends it out ahead of its day, with a reason.
+        await booking.getByRole('link', { name: `${placed.reference}: open its run` }).click();
+        await yard.waitForURL(/\/yard\/runs\/\d+$/);
+        await yard.getByRole('button', { name: 'Send out anyway…' }).click();
+        const override = yard.getByRole('form', { name: 'Send out anyway' });
+        await override.getByLabel('Reason for sending out anyway').fill('Site asked for it a day early');
+        await override.getByRole('button', { name: 'Send out with this reason' }).click();
+        await yard.getByTestId('send-out').filter({ hasText: /^On the road/ }).waitFor();
+        const sentOut = await pageApi<{ status: string; timeline: { summary: string }[] }>(yard, 'GET', `/api/orders/${placed.id}`);
+        expect(sentOut.status).toBe('on_the_road');
+        expect(sentOut.timeline.map((e) => e.summary).join(' ')).toContain('Site asked for it a day early');
 
         const driver = await driverContext.newPage();
         driver.on('pageerror', (error) => failures.push(error.message));
