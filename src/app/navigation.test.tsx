@@ -49,4 +49,11 @@ describe('role-aware navigation', () => {
       expect(labels.includes('Organisation')).toBe(can(role, 'organisation:read'));
     }
   });
+
+  it('offers the yard day plan to the merchant owner, and to the dispatcher only once, as Home', () => {
+    expect(navItemsForRole('merchant_owner').find((i) => i.to === '/yard')?.label).toBe('Yard day plan');
+    const yard = navItemsForRole('merchant_dispatcher').filter((i) => i.to === '/yard');
+    expect(yard.map((i) => i.label)).toEqual(['Home']);
+    expect(navItemsForRole('merchant_sales').some((i) => i.to === '/yard')).toBe(false);
+  });
 });

@@ -16,6 +16,7 @@ const SECTIONS: readonly SectionEntry[] = [
   { to: '/quotes', label: 'Quotes', icon: 'organisation', action: 'orders:place' },
   { to: '/desk/orders', label: 'Order book', icon: 'organisation', action: 'orders:confirm' },
   { to: '/desk/quotes', label: 'Quote requests', icon: 'organisation', action: 'orders:confirm' },
+  { to: '/yard', label: 'Yard day plan', icon: 'branches', action: 'fleet:manage' },
   { to: '/fleet', label: 'Lorries and slots', icon: 'branches', action: 'fleet:manage' },
   { to: '/catalogue', label: 'Catalogue', icon: 'branches', action: 'catalogue:read' },
   { to: '/invoices', label: 'Invoices', icon: 'organisation', action: 'invoices:read' },
@@ -25,11 +26,12 @@ const SECTIONS: readonly SectionEntry[] = [
   { to: '/team', label: 'Team', icon: 'team', action: 'members:read' },
 ];
 
-/** The navigation a role sees: its home, then every section the policy lets it read. */
+/** The navigation a role sees: its home, then every section the policy lets it read (its home only once). */
 export function navItemsForRole(role: Role): NavItem[] {
+  const home = homePathForRole(role);
   return [
-    { to: homePathForRole(role), label: 'Home', icon: 'home' },
-    ...SECTIONS.filter((section) => can(role, section.action)).map(({ to, label, icon }) => ({ to, label, icon })),
+    { to: home, label: 'Home', icon: 'home' },
+    ...SECTIONS.filter((section) => section.to !== home && can(role, section.action)).map(({ to, label, icon }) => ({ to, label, icon })),
   ];
 }
 

@@ -6,6 +6,7 @@ import type { Role } from '../../shared/domain/roles';
 import { ToastProvider } from '../components/ui/toast';
 import { createTestQueryClient, stubFetch } from '../test-utils/render-with-providers';
 import type { MockResponse } from '../test-utils/render-with-providers';
+import { orderFixture, stockFixture } from '../test-utils/order-fixture';
 import { appRoutes } from './router';
 
 const unauthenticated = { status: 401, body: { error: { code: 'unauthenticated', message: 'Sign in first' } } };
@@ -122,5 +123,37 @@ describe('app routes', () => {
     fireEvent.input(await screen.findByLabelText('E-mail'), { target: { value: 'nobody@nowhere.test' } });
     fireEvent.click(screen.getByRole('button', { name: 'Send the link' }));
     expect((await screen.findByText(/If an account uses/)).textContent).toContain('nobody@nowhere.test');
+  });
+
+  it('opens the yard’s day plan to the merchant owner from the navigation, and sends the desk home', async () => {
+    const { router } = renderApp('/yard', { 'GET /api/auth/me': { status: 200, body: sessionFor('merchant_owner') } });
+    expect(await screen.findByRole('heading', { level: 1, name: 'Yard and transport' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/yard');
+    expect(screen.getByRole('navigation', { name: 'Main' }).querySelector('a[href="/yard"]')?.textContent).toContain('Yard day plan');
+    const desk = renderApp('/yard', { 'GET /api/auth/me': { status: 200, body: sessionFor('merchant_sales') } });
+    await waitFor(() => expect(desk.router.state.location.pathname).toBe('/desk'));
+  });
+
+  it('lets the yard open an order it loads, with nothing to answer, book or write', async () => {
+    const order = orderFixture({
+      status: 'confirmed',
+      allowed_actions: ['book_slot'],
+      slot: { slot_id: 21, date: '2027-03-01', time_window: '07:30-12:00', lorry: { id: 4, registration: 'TY61 KRB', has_crane: true }, driver: null, weight_kg: 2_400, pallets: 2, booked_at: '2027-02-21 10:00:00' },
+    });
+    renderApp('/yard/orders/1', {
+      'GET /api/auth/me': { status: 200, body: sessionFor('merchant_dispatcher') },
+      'GET /api/orders/1': { status: 200, body: order },
+      'GET /api/branches/3/stock': { status: 200, body: { items: [stockFixture(11, 'TRS-FL420-SG', 40)] } },
+    });
+    expect(await screen.findByRole('heading', { level: 1, name: 'Order RL-000001' })).toBeTruthy();
+    expect(await screen.findByText('Interlocking tile, slate grey')).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Open the run' }).getAttribute('href')).toBe('/yard/runs/21');
+    expect(screen.queryByRole('form')).toBeNull();
+    expect(screen.queryByRole('button', { name: /Book this slot|Move to this slot|Add the comment|Confirm all|Offer changes|Turn down/ })).toBeNull();
+  });
+
+  it('refuses a run’s page to a contractor with a 403 page', async () => {
+    renderApp('/yard/runs/7', { 'GET /api/auth/me': { status: 200, body: sessionFor('contractor_owner') } });
+    expect(await screen.findByRole('heading', { level: 1, name: 'This page is not part of your role' })).toBeTruthy();
   });
 });

@@ -8,7 +8,7 @@ import { redirectIfSignedIn, requireAction, requireHomeOf, requireSession, rootR
 import { AccountsRoute } from './routes/accounts-route';
 import { AcceptInvitationRoute } from './routes/accept-invitation-route';
 import { AmendOrderRoute } from './routes/amend-order-route';
-import { EstimateCaution, FaceDrawingCaution, NewEstimateCaution, OrderCaution, PlaceOrderCaution } from './routes/cautions';
+import { EstimateCaution, FaceDrawingCaution, NewEstimateCaution, OrderCaution, PlaceOrderCaution, YardLoadingCaution, YardPalletCaution } from './routes/cautions';
 import { CompareEstimatesRoute } from './routes/compare-estimates-route';
 import { EditSiteRoute } from './routes/edit-site-route';
 import { EstimateRoute } from './routes/estimate-route';
@@ -51,6 +51,9 @@ import { SignInRoute } from './routes/sign-in-route';
 import { SignUpRoute } from './routes/sign-up-route';
 import { TeamRoute } from './routes/team-route';
 import { YardHomeRoute } from './routes/yard-home-route';
+import { YardOrderRoute } from './routes/yard-order-route';
+import { YardPalletRoute } from './routes/yard-pallet-route';
+import { YardRunRoute } from './routes/yard-run-route';
 
 const pageError = <RouteErrorPage />;
 
@@ -100,6 +103,10 @@ function merchantRoutes(queryClient: QueryClient): RouteObject[] {
     page('desk/quotes', 'orders:confirm', <DeskQuotesRoute />),
     page('desk/quotes/:requestId', 'orders:confirm', <DeskQuoteRoute />, ['requestId']),
     page('fleet', 'fleet:manage', <FleetRoute />),
+    // The yard's runs: the desk sees them too; what each role may change there follows the runs:* actions.
+    page('yard/runs/:runId', 'runs:read', <YardRunRoute />, ['runId'], { caution: <YardLoadingCaution /> }),
+    page('yard/pallets/:orderId/:pallet', 'runs:read', <YardPalletRoute />, ['orderId', 'pallet'], { caution: <YardPalletCaution /> }),
+    page('yard/orders/:orderId', 'slots:read', <YardOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
     page('catalogue', 'catalogue:read', <CatalogueRoute />),
     // Both sides: the desk issues and credits, the contractor pays (the card page sends it back here).
     page('invoices', 'invoices:read', <InvoicesRoute />),
@@ -153,9 +160,11 @@ export function appRoutes(queryClient: QueryClient): RouteObject[] {
               errorElement: pageError,
             },
             {
+              // The dispatcher's home; the merchant owner reaches the same day plan from the navigation.
               path: 'yard',
-              loader: requireHomeOf(queryClient, ['merchant_dispatcher']),
+              loader: requireHomeOf(queryClient, ['merchant_dispatcher', 'merchant_owner']),
               element: <YardHomeRoute />,
+              handle: { caution: <YardLoadingCaution /> },
               errorElement: pageError,
             },
             {

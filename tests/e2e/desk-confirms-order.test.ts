@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from '../setup/browser';
-import { signInPage } from '../setup/e2e-pages';
+import { pageApi, signInPage } from '../setup/e2e-pages';
 import { startE2eServer, type E2eServer } from '../setup/e2e-server';
 
 let server: E2eServer;
@@ -125,13 +125,24 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
         const yard = await yardContext.newPage();
         await signIn(yard, 'dispatch@demo.test', /\/yard$/);
         yard.on('pageerror', (error) => failures.push(error.message));
-        // The dispatcher finds the booking on the slot calendar and sends the lorry out.
+        // The dispatcher finds the booking on the slot calendar, where it opens its run, and sends the lorry out.
+        await yard.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Lorries and slots' }).click();
+        await yard.waitForURL(/\/fleet$/);
         const branchValue = await yard.getByLabel('Branch', { exact: true }).locator('option', { hasText: 'Tollerbeck Yard' }).getAttribute('value');
         await yard.getByLabel('Branch', { exact: true }).selectOption(branchValue!);
         await yard.getByRole('region', { name: 'Slot calendar' }).getByLabel('Day', { exact: true }).fill(date);
         const booking = yard.getByRole('list', { name: /^Orders on / }).getByRole('listitem').filter({ hasText: placed.reference });
-        await booking.getByRole('button', { name: 'Send out' }).click();
-        await booking.filter({ hasText: 'on the road' }).waitFor();
+        // The run is for the next working day: the dispatcher sends it out ahead of its day, with a reason.
+        await booking.getByRole('link', { name: `${placed.reference}: open its run` }).click();
+        await yard.waitForURL(/\/yard\/runs\/\d+$/);
+        await yard.getByRole('button', { name: 'Send out anyway…' }).click();
+        const override = yard.getByRole('form', { name: 'Send out anyway' });
+        await override.getByLabel('Reason for sending out anyway').fill('Site asked for it a day early');
+        await override.getByRole('button', { name: 'Send out with this reason' }).click();
+        await yard.getByTestId('send-out').filter({ hasText: /^On the road/ }).waitFor();
+        const sentOut = await pageApi<{ status: string; timeline: { summary: string }[] }>(yard, 'GET', `/api/orders/${placed.id}`);
+        expect(sentOut.status).toBe('on_the_road');
+        expect(sentOut.timeline.map((e) => e.summary).join(' ')).toContain('Site asked for it a day early');
 
         const driver = await driverContext.newPage();
         driver.on('pageerror', (error) => failures.push(error.message));

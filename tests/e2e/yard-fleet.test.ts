@@ -129,15 +129,28 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       const booking = run.getByRole('list', { name: `Orders on ${REGISTRATION} ${WINDOWS[0]}` }).getByRole('listitem').filter({ hasText: order.reference });
       await booking.waitFor();
       expect(await booking.innerText()).toContain('confirmed');
-      await booking.getByRole('button', { name: 'Send out' }).click();
-      await yard.getByText(new RegExp(`Assign a driver to ${REGISTRATION}`)).first().waitFor();
+      // The booked load opens its run in one click; the calendar itself sends nothing out.
+      expect(await booking.getByRole('link', { name: `${order.reference}: open its run` }).getAttribute('href')).toBe(`/yard/runs/${morning.id}`);
+      expect(await booking.getByRole('button', { name: 'Send out' }).count()).toBe(0);
+      await expect(api(yard, 'POST', `/api/orders/${order.id}/dispatch`, {})).rejects.toThrow(new RegExp(`409.*Assign a driver to ${REGISTRATION}`));
       expect(await booking.innerText()).toContain('confirmed');
 
       // The driver goes on the run, then the lorry goes out.
       await run.getByLabel('Driver', { exact: true }).selectOption({ label: 'Kofi Brennagh' });
       await yard.getByText('Driver assigned.').first().waitFor();
-      await booking.getByRole('button', { name: 'Send out' }).click();
-      await booking.filter({ hasText: 'on the road' }).waitFor();
+      // Its day is weeks away and nothing is ticked loaded: the run's page says so and offers no plain
+      // send-out; the dispatcher overrides with a reason.
+      await booking.getByRole('link', { name: `${order.reference}: open its run` }).click();
+      await yard.waitForURL(new RegExp(`/yard/runs/${morning.id}$`));
+      const why = yard.getByRole('list', { name: 'Why it cannot go yet' });
+      await expect.poll(() => why.innerText()).toMatch(/Not before its day/);
+      expect(await why.innerText()).toMatch(/not ticked loaded yet/);
+      expect(await yard.getByRole('button', { name: `Send out ${REGISTRATION}` }).count()).toBe(0);
+      await yard.getByRole('button', { name: 'Send out anyway…' }).click();
+      const override = yard.getByRole('form', { name: 'Send out anyway' });
+      await override.getByLabel('Reason for sending out anyway').fill('Site manager asked for it ahead of the day');
+      await override.getByRole('button', { name: 'Send out with this reason' }).click();
+      await yard.getByTestId('send-out').filter({ hasText: /^On the road/ }).waitFor();
 
       const after = await api<SlotDay>(yard, 'GET', `/api/branches/${branch.id}/slots?date=${monday}`);
       const sent = after.slots.find((s) => s.id === morning.id)!;

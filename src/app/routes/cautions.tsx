@@ -72,3 +72,22 @@ export function OrderCaution() {
   const full = order.data?.cautions ?? SAFETY_CAUTIONS;
   return <CautionBody points={order.data ? [order.data.cautions[0] ?? SHORT.lifting, SHORT.height, SHORT.figures] : [SHORT.lifting, SHORT.height, SHORT.figures]} full={full} />;
 }
+
+/** Building a lorry's load: securing, weights and lifting come before the lorry moves. */
+export function YardLoadingCaution() {
+  return (
+    <CautionBody
+      points={[
+        'Only trained operators lift pallets with a forklift or crane; nobody stands under, beside or on a load being lifted or on the lorry bed while it is loaded.',
+        'Secure every pallet before the lorry moves, and keep within its payload and axle weights: the deck plan balances the load as a guide, not as a weighbridge.',
+        SHORT.lifting,
+      ]}
+      full={SAFETY_CAUTIONS}
+    />
+  );
+}
+
+/** A pallet's page on a phone in the yard: the one caution first, the rest a tap away, the button in reach. */
+export function YardPalletCaution() {
+  return <CautionBody points={['Only trained operators lift pallets; nobody stands under, beside or on a load being lifted.']} full={SAFETY_CAUTIONS} />;
+}

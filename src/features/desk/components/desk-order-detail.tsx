@@ -87,8 +87,11 @@ export function BookedSlot({ slot }: { slot: NonNullable<OrderDetail['slot']> })
 
 type Panel = 'confirm' | 'offer' | 'turn_down';
 
-/** One order as the desk answers it: stock per line, confirm or offer changes, the slot, comments and history. */
-export function DeskOrderDetail({ order, invoiceAction }: { order: OrderDetail; invoiceAction?: ReactNode }) {
+/**
+ * One order as the desk answers it: stock per line, confirm or offer changes, the slot, comments and history.
+ * `readOnly` is the yard's view of an order it loads: everything shown, nothing to answer, book or write.
+ */
+export function DeskOrderDetail({ order, invoiceAction, readOnly = false }: { order: OrderDetail; invoiceAction?: ReactNode; readOnly?: boolean }) {
   const stock = useBranchStock(order.branch.id);
   const stockByProduct = useMemo(() => new Map<number, StockItem>((stock.data?.items ?? []).map((s) => [s.product_id, s])), [stock.data]);
   const rows = useMemo<DeskLine[]>(
@@ -96,11 +99,11 @@ export function DeskOrderDetail({ order, invoiceAction }: { order: OrderDetail; 
     [order.lines, stockByProduct],
   );
   const can = (action: string) => order.allowed_actions.includes(action);
-  const panels: Panel[] = [...(can('confirm') ? (['confirm'] as const) : []), ...(can('offer_changes') ? (['offer'] as const) : []), ...(can('turn_down') ? (['turn_down'] as const) : [])];
+  const panels: Panel[] = readOnly ? [] : [...(can('confirm') ? (['confirm'] as const) : []), ...(can('offer_changes') ? (['offer'] as const) : []), ...(can('turn_down') ? (['turn_down'] as const) : [])];
   const [panel, setPanel] = useState<Panel | null>(null);
   const shown = panel && panels.includes(panel) ? panel : (panels[0] ?? null);
   const openProposal = order.proposals.find((p) => p.status === 'open');
-  const bookable = order.status === 'confirmed';
+  const bookable = order.status === 'confirmed' && !readOnly;
   return (
     <div className="space-y-6">
       <Card>
@@ -143,11 +146,18 @@ export function DeskOrderDetail({ order, invoiceAction }: { order: OrderDetail; 
         </Card>
       ) : null}
 
-      {can('start_follow_up') ? <FollowUpPanel key={order.id} order={order} /> : null}
+      {can('start_follow_up') && !readOnly ? <FollowUpPanel key={order.id} order={order} /> : null}
 
       <div className="grid items-start gap-6 lg:grid-cols-2">
         <Card title="Delivery">
           {order.slot ? <BookedSlot slot={order.slot} /> : <p className="mb-3 text-ink-700">No slot booked yet.</p>}
+          {order.slot ? (
+            <p className="mt-2">
+              <Link to={`/yard/runs/${order.slot.slot_id}`} className="inline-flex min-h-tap items-center font-medium text-clay-700 underline underline-offset-2">
+                Open the run
+              </Link>
+            </p>
+          ) : null}
           <p className="mt-3 text-sm text-ink-700">
             Asked for {formatDate(order.requested_date)}
             {order.time_window ? `, ${order.time_window}` : ', any time'} · {DELIVERY_METHOD_LABELS[order.delivery_method]}
@@ -180,17 +190,19 @@ export function DeskOrderDetail({ order, invoiceAction }: { order: OrderDetail; 
 
       <div className="grid items-start gap-6 lg:grid-cols-2">
         <Card title="Comments">
-          <OrderComments orderId={order.id} comments={order.comments} />
+          <OrderComments orderId={order.id} comments={order.comments} readOnly={readOnly} />
         </Card>
         <Card title="History">
           <OrderTimeline events={order.timeline} />
         </Card>
       </div>
-      <p>
-        <Link to="/desk/orders" className="text-clay-700 underline underline-offset-2">
-          Back to the order book
-        </Link>
-      </p>
+      {readOnly ? null : (
+        <p>
+          <Link to="/desk/orders" className="text-clay-700 underline underline-offset-2">
+            Back to the order book
+          </Link>
+        </p>
+      )}
     </div>
   );
 }

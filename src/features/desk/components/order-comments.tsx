@@ -5,8 +5,8 @@ import { useZodForm } from '../../../components/form/use-zod-form';
 import { formatDateTime } from '../../../lib/format';
 import { useAddComment } from '../api/add-comment';
 
-/** Comments between the desk and the contractor, oldest first; the other side's are set apart. */
-export function OrderComments({ orderId, comments }: { orderId: number; comments: readonly OrderComment[] }) {
+/** Comments between the desk and the contractor, oldest first; the other side's are set apart. `readOnly`: no form. */
+export function OrderComments({ orderId, comments, readOnly = false }: { orderId: number; comments: readonly OrderComment[]; readOnly?: boolean }) {
   const add = useAddComment(orderId);
   const form = useZodForm({
     schema: commentBodySchema,
@@ -31,10 +31,12 @@ export function OrderComments({ orderId, comments }: { orderId: number; comments
           ))}
         </ol>
       )}
-      <Form form={form} label="Add a comment" className="space-y-3">
-        <TextField name="body" label="Comment" maxLength={2000} />
-        <SubmitButton>Add the comment</SubmitButton>
-      </Form>
+      {readOnly ? null : (
+        <Form form={form} label="Add a comment" className="space-y-3">
+          <TextField name="body" label="Comment" maxLength={2000} />
+          <SubmitButton>Add the comment</SubmitButton>
+        </Form>
+      )}
     </div>
   );
 }

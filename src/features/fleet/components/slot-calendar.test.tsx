@@ -124,6 +124,16 @@ describe('SlotCalendar', () => {
     expect(within(item).getByText('RL-000088')).toBeTruthy();
   });
 
+  it('opens the run of a booked load in one click, and sends nothing out from the calendar', async () => {
+    const booked = { ...slot, booked_kg: 2_400, booked_pallets: 2, remaining_kg: 9_600, remaining_pallets: 8, bookings: [booking] };
+    stubFetch({ ...base, [dayUrl]: day([booked]) });
+    renderWithProviders(<SlotCalendar branchId={3} canManage />);
+    const item = await slotItem();
+    expect(within(item).getByRole('link', { name: 'RL-000088: open its run' }).getAttribute('href')).toBe('/yard/runs/21');
+    expect(within(item).getByRole('link', { name: /^Open the run/ }).getAttribute('href')).toBe('/yard/runs/21');
+    expect(within(item).queryByRole('button', { name: 'Send out' })).toBeNull();
+  });
+
   it('offers no Change or Remove to a role without fleet:manage', async () => {
     stubFetch({ ...base, [dayUrl]: day([slot]) });
     renderWithProviders(<SlotCalendar branchId={3} canManage={false} />);

@@ -1,6 +1,7 @@
 import { addDays } from '../../../../shared/domain/business-calendar';
 import { businessCalendar } from '../../../lib/business-calendar';
 import { useId, useState } from 'react';
+import { Link } from 'react-router-dom';
 import type { Slot } from '../../../../shared/schemas/slot.schema';
 import { Alert, ErrorAlert, errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -8,7 +9,6 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useToast } from '../../../components/ui/toast';
 import { formatDate } from '../../../lib/format';
-import { useDispatchOrder } from '../api/dispatch-order';
 import { useDrivers } from '../api/get-drivers';
 import { useSlotDay } from '../api/get-slot-day';
 import { useRemoveSlot } from '../api/remove-slot';
@@ -16,6 +16,8 @@ import { useUpdateSlot } from '../api/update-slot';
 import { ActionError } from './action-error';
 import { ChangeSlotForm } from './slot-forms';
 
+/** A slot is a run; the yard builds and sends it out on the run's page. */
+const runPath = (slotId: number) => `/yard/runs/${slotId}`;
 const kg = (value: number) => `${Math.round(value).toLocaleString('en-GB')} kg`;
 const pct = (used: number, of: number) => (of > 0 ? Math.min(100, Math.round((used / of) * 100)) : 0);
 
@@ -73,7 +75,6 @@ function RemoveSlot({ slot, onDone }: { slot: Slot; onDone: () => void }) {
 
 function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: number; name: string }[]; canManage: boolean }) {
   const assign = useUpdateSlot();
-  const dispatch = useDispatchOrder();
   const toast = useToast();
   const selectId = useId();
   const [panel, setPanel] = useState<'change' | 'remove' | null>(null);
@@ -127,24 +128,22 @@ function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: numb
         <Capacity label="Pallet slots" used={slot.booked_pallets} of={slot.pallet_slots} text={`${slot.booked_pallets} of ${slot.pallet_slots}`} />
       </div>
       {slot.bookings.length > 0 ? (
+        <p>
+          <Link to={runPath(slot.id)} className="inline-flex min-h-tap items-center font-medium text-clay-700 underline underline-offset-2">
+            Open the run: drops, deck, loading and send out
+          </Link>
+        </p>
+      ) : null}
+      {slot.bookings.length > 0 ? (
         <ul className="divide-y divide-mortar-200" aria-label={`Orders on ${slot.lorry.registration} ${slot.time_window}`}>
           {slot.bookings.map((b) => (
             <li key={b.order_id} className="flex flex-wrap items-center justify-between gap-2 py-2">
               <span>
-                <span className="font-semibold">{b.reference}</span> · {b.contractor.name} · {b.site_name} · {kg(b.weight_kg)}, {b.pallets} pallets{b.delivery_method === 'roof' ? ' · crane onto the roof' : ''}
+                <Link to={runPath(slot.id)} className="font-semibold text-clay-700 underline underline-offset-2" aria-label={`${b.reference}: open its run`}>
+                  {b.reference}
+                </Link> · {b.contractor.name} · {b.site_name} · {kg(b.weight_kg)}, {b.pallets} pallets{b.delivery_method === 'roof' ? ' · crane onto the roof' : ''}
                 <span className="ml-2 text-sm text-ink-600">{b.status.replace(/_/g, ' ')}</span>
               </span>
-              {b.status === 'confirmed' ? (
-                <Button
-                  variant="secondary"
-                  busy={dispatch.isPending && dispatch.variables === b.order_id}
-                  onClick={() =>
-                    dispatch.mutate(b.order_id, { onSuccess: () => toast.show(`${b.reference} is on the road.`, 'success'), onError: (error) => toast.show(errorMessage(error), 'danger') })
-                  }
-                >
-                  Send out
-                </Button>
-              ) : null}
             </li>
           ))}
         </ul>
