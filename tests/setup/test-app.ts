@@ -33,7 +33,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
   const db = createDb(config.databaseFile);
   await migrateLatest(db);
   const mail = await startMailCapture();
-  const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: 'silent' }) });
+  const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: process.env.TEST_LOG ?? 'silent' }) });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
