@@ -72,6 +72,7 @@ function seedConfig(): Config {
     databaseFile: '',
     sessionSecret: '',
     appUrl: process.env.APP_URL ?? 'http://localhost:3000',
+    allowedOrigins: [],
     devSmtpPort: 0,
     mailFrom: 'Ridgeload <no-reply@ridgeload.test>',
     logLevel: 'silent',

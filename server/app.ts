@@ -142,7 +142,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(fleetRoutes(fleetService(deps)));
   api.use(slotsRoutes(slotsService(deps), orders.linesOf));
   api.use(invoicesRoutes(invoicesService(deps, payments)));
-  api.use(paymentsRoutes(payments));
+  api.use(paymentsRoutes(payments, config));
   if (!config.isProduction) api.use(outboxRoutes(db));
   api.use(apiNotFound);
 
