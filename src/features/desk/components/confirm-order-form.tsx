@@ -106,7 +106,7 @@ export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
           </tbody>
         </table>
       </div>
-      <SlotChoices branchId={order.branch.id} initialDate={order.requested_date} allowNone />
+      <SlotChoices needsCrane={order.delivery_method === 'roof'} branchId={order.branch.id} initialDate={order.requested_date} allowNone />
       <SubmitButton>Confirm and reserve the stock</SubmitButton>
     </Form>
   );
