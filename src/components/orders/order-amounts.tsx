@@ -23,7 +23,8 @@ export function OrderAmounts({ order, orderPath }: { order: Pick<OrderDetail, 'a
       </ul>
     ) : null;
   return (
-    <dl className="mt-4 space-y-3 border-t border-mortar-200 pt-4" aria-label="What the order comes to">
+    <section aria-label="What the order comes to" className="mt-4 border-t border-mortar-200 pt-4">
+    <dl className="space-y-3">
       <div>
         <div className="flex flex-wrap items-baseline justify-between gap-2 text-lg">
           <dt className="font-semibold">On this delivery</dt>
@@ -68,5 +69,6 @@ export function OrderAmounts({ order, orderPath }: { order: Pick<OrderDetail, 'a
         </div>
       ) : null}
     </dl>
+    </section>
   );
 }

@@ -55,7 +55,7 @@ describe('ConfirmOrderForm', () => {
     };
     stubFetch({ [SLOTS]: { status: 200, body: withFlatbed } });
     renderForm([50, 50], { delivery_method: 'roof' });
-    const crane = await screen.findByRole('radio', { name: /RL-TY01/ });
+    const crane = await screen.findByRole('radio', { name: /RL-TY01/ }, { timeout: 5000 });
     const flatbed = screen.getByRole('radio', { name: /RL-TY02/ });
     expect(crane.hasAttribute('disabled')).toBe(false);
     expect(flatbed.hasAttribute('disabled')).toBe(true);
@@ -64,11 +64,19 @@ describe('ConfirmOrderForm', () => {
     expect(screen.getByText(/not for this order: it needs a crane/)).toBeTruthy();
   });
 
+  it('writes the packs free at the branch with thousands separators, as the contractor side does', async () => {
+    stubFetch({ [SLOTS]: { status: 200, body: slotDay } });
+    renderForm([56673, 1593]);
+    expect(await screen.findByText('56,673', {}, { timeout: 5000 })).toBeTruthy();
+    expect(screen.getByText('1,593')).toBeTruthy();
+    expect(screen.queryByText('56673')).toBeNull();
+  });
+
   it('leaves a lorry without a crane open to a ground delivery', async () => {
     const flatbedOnly = { ...slotDay, slots: [{ ...slotDay.slots[0], id: 41, lorry: { id: 2, registration: 'RL-TY02', name: 'Two-axle flatbed', has_crane: false, crane_max_kg: null } }] };
     stubFetch({ [SLOTS]: { status: 200, body: flatbedOnly } });
     renderForm([50, 50]);
-    expect((await screen.findByRole('radio', { name: /RL-TY02/ })).hasAttribute('disabled')).toBe(false);
+    expect((await screen.findByRole('radio', { name: /RL-TY02/ }, { timeout: 5000 })).hasAttribute('disabled')).toBe(false);
   });
 
   it('starts a short line at the packs free and back-orders the rest, sending part quantities per line', async () => {

@@ -4,7 +4,7 @@ import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/form';
 import { useZodForm } from '../../../components/form/use-zod-form';
 import { useToast } from '../../../components/ui/toast';
-import { formatMoney } from '../../../lib/format';
+import { formatCount, formatMoney } from '../../../lib/format';
 import { useOfferChanges } from '../api/offer-changes';
 import { confirmableLines, openPacks } from '../lib/confirm-form';
 import { offerField, offerFormSchema } from '../lib/offer-form';
@@ -55,7 +55,7 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
                       </span>
                     ))}
                   </td>
-                  <td className="px-3 py-2 text-right tabular-nums">{openPacks(line)}</td>
+                  <td className="px-3 py-2 text-right tabular-nums">{formatCount(openPacks(line))}</td>
                   <td className="px-3 py-2">
                     <input name={fields[0]} aria-label={`Packs now of ${line.sku}`} inputMode="numeric" defaultValue={openPacks(line)} aria-invalid={err(fields[0]) ? true : undefined} className={cell} />
                   </td>
@@ -69,7 +69,7 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
                         .filter((s) => s.category === line.category && s.product_id !== line.product_id)
                         .map((s) => (
                           <option key={s.product_id} value={s.product_id}>
-                            {s.sku} · {s.name} ({s.available} free, {formatMoney(s.pack_price)})
+                            {s.sku} · {s.name} ({formatCount(s.available)} free, {formatMoney(s.pack_price)})
                           </option>
                         ))}
                     </select>
