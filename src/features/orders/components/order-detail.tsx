@@ -14,6 +14,7 @@ import { useAnswerProposal } from '../api/answer-proposal';
 import { useCancelOrder } from '../api/cancel-order';
 import { formatCount, formatMoney } from '../../../lib/format';
 import { OrderAmounts } from '../../../components/orders/order-amounts';
+import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { OrderStages, OrderStatusBadge } from './order-status';
 
 const lineHelper = dataTableColumns<OrderDetailData['lines'][number]>();
@@ -90,6 +91,14 @@ function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal })
               {line.back_order_quantity > 0 ? `, ${line.back_order_quantity} to follow` : ''}
               {line.substitute ? `; offered instead: ${line.substitute.quantity} × ${line.substitute.description} at ${formatMoney(line.substitute.unit_price)} (${formatMoney(line.substitute.total)})` : ''}
               {line.note ? ` — ${line.note}` : ''}
+              {line.substitute?.figures ? (
+                <div className="mt-2">
+                  <p className="mb-2 text-sm">
+                    {line.substitute.sku} replaces {line.sku} on the whole roof. The engine worked the order's roof out again with it; check the bill side by side before you accept.
+                  </p>
+                  <SubstituteFigures figures={line.substitute.figures} caption={`${line.sku} and ${line.substitute.sku} side by side`} />
+                </div>
+              ) : null}
             </li>
           ))}
         </ul>
