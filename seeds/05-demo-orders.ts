@@ -75,6 +75,7 @@ function seedConfig(): Config {
     database: '',
     sessionSecret: '',
     appUrl: process.env.APP_URL ?? 'http://localhost:3000',
+    allowedOrigins: [],
     devSmtpPort: 0,
     mailFrom: 'Ridgeload <no-reply@ridgeload.test>',
     logLevel: 'silent',

@@ -154,7 +154,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(slotsRoutes(slotsService(deps), orders.linesOf));
   api.use(runsRoutes(runsService(deps), () => config.appUrl));
   api.use(invoicesRoutes(invoices));
-  api.use(paymentsRoutes(payments, idempotent));
+  api.use(paymentsRoutes(payments, config, idempotent));
   if (!config.isProduction) api.use(outboxRoutes(db));
   api.use(apiNotFound);
 

@@ -15,6 +15,21 @@ const envSchema = z.object({
     .optional(),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must have at least 32 characters').optional(),
   APP_URL: z.url().optional(),
+  /** Other addresses the app is served at (comma-separated origins), where a card payment may return to. */
+  APP_ORIGINS: z
+    .string()
+    .optional()
+    .transform((v, ctx) => {
+      const origins: string[] = [];
+      for (const part of (v ?? '').split(',').map((x) => x.trim()).filter(Boolean)) {
+        try {
+          origins.push(new URL(part).origin);
+        } catch {
+          ctx.addIssue({ code: 'custom', message: `APP_ORIGINS: "${part}" is not an address such as https://desk.example.test` });
+        }
+      }
+      return origins;
+    }),
   SMTP_URL: z.url().optional(),
   DEV_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   MAIL_FROM: z.string().default('Ridgeload <no-reply@ridgeload.test>'),
@@ -51,6 +66,8 @@ export interface Config {
   database: string;
   sessionSecret: string;
   appUrl: string;
+  /** Origins a payer may be sent back to: APP_URL's and APP_ORIGINS. */
+  allowedOrigins: string[];
   smtpUrl?: string;
   devSmtpPort: number;
   mailFrom: string;
@@ -100,6 +117,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     database: e.DATABASE_URL ?? join(dataDir, 'ridgeload.sqlite'),
     sessionSecret: e.SESSION_SECRET ?? readOrCreateSecret(dataDir),
     appUrl: (e.APP_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
+    allowedOrigins: [...new Set([new URL(e.APP_URL ?? `http://localhost:${e.PORT}`).origin, ...(e.APP_ORIGINS ?? [])])],
     smtpUrl: e.SMTP_URL,
     devSmtpPort: e.DEV_SMTP_PORT,
     mailFrom: e.MAIL_FROM,

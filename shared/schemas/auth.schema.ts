@@ -66,6 +66,9 @@ export const sessionBodySchema = z.object({
   calendar: sessionCalendarSchema,
 });
 
+/** Who is signed in: the session, or null when nobody is. */
+export const sessionAnswerSchema = z.object({ session: sessionBodySchema.nullable() });
+
 export const csrfBodySchema = z.object({ token: z.string() });
 export const okBodySchema = z.object({ ok: z.literal(true) });
 

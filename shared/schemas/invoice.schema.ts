@@ -110,6 +110,8 @@ export const invoiceSchema = invoiceSummarySchema.extend({
   lines: z.array(invoiceLineSchema),
   credit_notes: z.array(creditNoteSchema),
   payments: z.array(paymentSchema),
+  /** Whether the contractor may pay this invoice by card now: always for a card customer, for an account customer unless the merchant turned it off. */
+  card_payment: z.boolean(),
   created_at: z.string(),
 });
 export type Invoice = z.infer<typeof invoiceSchema>;
@@ -148,10 +150,16 @@ export const accountSchema = z.object({
   contractor: orgRefSchema,
   /** Days from the invoice date to the due date; null = no account (pays by card). */
   terms_days: z.number().int().nullable(),
+  /** Whether the contractor may pay its account invoices by card too (always, without an account). */
+  card_payments: z.boolean(),
   orders: z.number().int(),
 });
 export const accountListSchema = z.object({ accounts: z.array(accountSchema) });
 export const accountParamsSchema = z.object({ contractorId: z.coerce.number().int().positive() });
 export const putAccountBodySchema = z
-  .object({ terms_days: z.number({ error: 'must be a number' }).int({ error: 'must be whole days' }).min(0, { error: 'must not be negative' }).max(120, { error: 'must be at most 120 days' }) })
+  .object({
+    terms_days: z.number({ error: 'must be a number' }).int({ error: 'must be whole days' }).min(0, { error: 'must not be negative' }).max(120, { error: 'must be at most 120 days' }),
+    /** Let the contractor pay account invoices by card as well; left out keeps the account's setting (on for a new account). */
+    card_payments: z.boolean({ error: 'must be true or false' }).optional(),
+  })
   .strict();

@@ -233,6 +233,57 @@ export const orderLineSchema = z.object({
 });
 export type OrderLine = z.infer<typeof orderLineSchema>;
 
+/** One item of a bill as it was and as the engine works it out again with another tile. */
+const billItemSchema = z.object({
+  product_id: z.number().int().nullable(),
+  sku: z.string().nullable(),
+  description: z.string(),
+  /** The engine's count in the product's unit (tiles, lengths, nails, rolls). */
+  quantity: z.number(),
+  unit: z.string(),
+  packs: z.number().int(),
+  unit_price: z.number().int().nullable(),
+  total: z.number().int().nullable(),
+});
+
+/**
+ * What a substitute tile means for the order's own roof, from the engine: each item of the bill before
+ * and after side by side, the faces the tile may not be laid on (below its lowest pitch), and what the
+ * bill costs more or less. Money in minor units.
+ */
+export const substituteFiguresSchema = z.object({
+  engine_version: z.string(),
+  tile: z.object({ sku: z.string(), description: z.string(), kind: z.string(), lowest_pitch_deg: z.number() }),
+  refused_faces: z.array(z.object({ building: z.string(), face: z.string(), pitch_deg: z.number(), message: z.string() })),
+  rows: z.array(z.object({ role: z.string(), label: z.string(), before: billItemSchema.nullable(), after: billItemSchema.nullable(), changes: z.boolean() })),
+  /** Counted items with no product on the order to meet them (add them by hand). */
+  not_counted: z.array(z.string()),
+  before_total: z.number().int(),
+  after_total: z.number().int(),
+  price_difference_minor: z.number().int(),
+});
+export type SubstituteFigures = z.infer<typeof substituteFiguresSchema>;
+
+/** A product the desk may offer instead of a line, with the figures that go with it. */
+export const substituteOptionSchema = z.object({
+  product_id: z.number().int(),
+  sku: z.string(),
+  name: z.string(),
+  unit: z.string(),
+  pack_size: z.number().int(),
+  pack_price: z.number().int(),
+  available: z.number().int(),
+  /** Packs to offer: the engine's count for a tile, the same quantity in the new pack size otherwise. */
+  quantity: z.number().int(),
+  /** False when the tile does not suit every face of the order's roof; the desk cannot offer it. */
+  suitable: z.boolean(),
+  reason: z.string().nullable(),
+  figures: substituteFiguresSchema.nullable(),
+});
+export type SubstituteOption = z.infer<typeof substituteOptionSchema>;
+export const substituteOptionsSchema = z.object({ line_id: z.number().int(), options: z.array(substituteOptionSchema) });
+export type SubstituteOptions = z.infer<typeof substituteOptionsSchema>;
+
 export const proposalLineSchema = z.object({
   order_line_id: z.number().int(),
   sku: z.string(),
@@ -250,6 +301,8 @@ export const proposalLineSchema = z.object({
       quantity: z.number().int(),
       unit_price: z.number().int(),
       total: z.number().int(),
+      /** The engine's figures for a substitute tile on the order's roof; null for other products. */
+      figures: substituteFiguresSchema.nullable(),
     })
     .nullable(),
   note: z.string(),
@@ -332,6 +385,7 @@ export const orderListSchema = z.object({
 });
 
 export const orderParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+export const orderLineParamsSchema = z.object({ id: z.coerce.number().int().positive(), lineId: z.coerce.number().int().positive() });
 export const proposalParamsSchema = z.object({ id: z.coerce.number().int().positive(), proposalId: z.coerce.number().int().positive() });
 
 /** The reference both sides quote on the phone. */
@@ -630,6 +684,27 @@ export const orderDeliverySchema = z.object({
   recorded_by: z.object({ id: z.number().int(), name: z.string() }).nullable(),
 });
 
+/**
+ * One line split three ways, in packs and priced at its pack price: packs on this order's delivery
+ * (delivered once recorded, else agreed, else asked), packs to follow on a follow-up order, and packs
+ * dropped (neither sent nor following: not available, replaced by a substitute, short on delivery,
+ * or the whole order cancelled or turned down).
+ */
+export const lineAmountsShape = {
+  now_quantity: z.number().int(),
+  now_total: z.number().int(),
+  to_follow_total: z.number().int(),
+  dropped_quantity: z.number().int(),
+  dropped_total: z.number().int(),
+};
+
+export const orderAmountsSchema = z.object({
+  agreed_now_minor: z.number().int(),
+  to_follow_minor: z.number().int(),
+  dropped_minor: z.number().int(),
+});
+export type OrderAmounts = z.infer<typeof orderAmountsSchema>;
+
 export const orderLinkSchema = z.object({ id: z.number().int(), reference: z.string(), status: z.enum(ORDER_STATUSES), status_label: z.string() });
 
 /**
@@ -637,7 +712,7 @@ export const orderLinkSchema = z.object({ id: z.number().int(), reference: z.str
  * slot, the delivery record, the comments and the invoice once there is one.
  */
 export const orderDetailSchema = orderSchema.extend({
-  lines: z.array(orderLineSchema.extend({ delivered_quantity: z.number().int().nullable() })),
+  lines: z.array(orderLineSchema.extend({ delivered_quantity: z.number().int().nullable() }).extend(lineAmountsShape)),
   slot: orderSlotSchema.nullable(),
   delivery: orderDeliverySchema.nullable(),
   comments: z.array(orderCommentSchema),
@@ -648,5 +723,10 @@ export const orderDetailSchema = orderSchema.extend({
   followed_by: orderLinkSchema.nullable(),
   /** Packs promised on this order that travel later (its lines' back-ordered packs). */
   back_ordered_packs: z.number().int(),
+  /**
+   * The order's money in three parts that add up to what was asked: what comes on this order's
+   * delivery (the invoice for it has this net), what follows on the follow-up order, what was dropped.
+   */
+  amounts: orderAmountsSchema,
 });
 export type OrderDetail = z.infer<typeof orderDetailSchema>;

@@ -80,6 +80,9 @@ export type ScheduleVersion = z.infer<typeof scheduleVersionSchema>;
 
 export const scheduleWarningSchema = z.object({ code: z.string(), message: z.string() });
 
+/** Reading a site's schedule: `optional=1` answers null (200) for a site without one, instead of 404. */
+export const currentScheduleQuerySchema = z.object({ optional: z.enum(['0', '1']).optional().transform((v) => v === '1') });
+
 export const scheduleResponseSchema = scheduleVersionSchema.extend({
   faces: z.array(storedFaceSchema),
   openings: z.array(storedOpeningSchema),

@@ -9,7 +9,8 @@ import type { MockResponse } from '../test-utils/render-with-providers';
 import { orderFixture, stockFixture } from '../test-utils/order-fixture';
 import { appRoutes } from './router';
 
-const unauthenticated = { status: 401, body: { error: { code: 'unauthenticated', message: 'Sign in first' } } };
+// Nobody signed in is an answer (200 with no session), not a failed request.
+const unauthenticated = { status: 200, body: { session: null } };
 
 function sessionFor(role: Role) {
   const merchant = role !== 'contractor_owner' && role !== 'contractor_estimator';
@@ -49,7 +50,7 @@ function renderApp(path: string, extra: Record<string, MockResponse | MockRespon
 
 describe('app routes', () => {
   it('sends a signed-out visitor of /team to sign in, remembering where they were going', async () => {
-    const { router } = renderApp('/team', { 'GET /api/auth/me': unauthenticated });
+    const { router } = renderApp('/team', { 'GET /api/auth/session': unauthenticated });
     expect(await screen.findByRole('heading', { level: 1, name: 'Sign in' })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/sign-in');
     expect(router.state.location.search).toBe('?next=%2Fteam');
@@ -61,37 +62,37 @@ describe('app routes', () => {
     ['merchant_sales', '/desk', 'Order desk'],
     ['contractor_estimator', '/contractor', 'Estimating'],
   ] as const)('sends a signed-in %s visiting /sign-in to %s', async (role, path, heading) => {
-    const { router } = renderApp('/sign-in', { 'GET /api/auth/me': { status: 200, body: sessionFor(role) } });
+    const { router } = renderApp('/sign-in', { 'GET /api/auth/session': { status: 200, body: { session: sessionFor(role) } } });
     expect(await screen.findByRole('heading', { level: 1, name: heading })).toBeTruthy();
     expect(router.state.location.pathname).toBe(path);
     expect(screen.getByTestId(`role-home-${role}`)).toBeTruthy();
   });
 
   it('shows the branches on the driver’s home from the API', async () => {
-    renderApp('/driver', { 'GET /api/auth/me': { status: 200, body: sessionFor('driver') } });
+    renderApp('/driver', { 'GET /api/auth/session': { status: 200, body: { session: sessionFor('driver') } } });
     expect(await screen.findByText('Carnbrea Yard')).toBeTruthy();
     expect(screen.getByText('Hello, Sam.')).toBeTruthy();
   });
 
   it('moves someone on to their own home when they open another role’s home', async () => {
-    const { router } = renderApp('/contractor', { 'GET /api/auth/me': { status: 200, body: sessionFor('driver') } });
+    const { router } = renderApp('/contractor', { 'GET /api/auth/session': { status: 200, body: { session: sessionFor('driver') } } });
     await screen.findByTestId('role-home-driver');
     expect(router.state.location.pathname).toBe('/driver');
   });
 
   it('refuses the team page to a driver with a 403 page', async () => {
-    renderApp('/team', { 'GET /api/auth/me': { status: 200, body: sessionFor('driver') } });
+    renderApp('/team', { 'GET /api/auth/session': { status: 200, body: { session: sessionFor('driver') } } });
     expect(await screen.findByRole('heading', { level: 1, name: 'This page is not part of your role' })).toBeTruthy();
   });
 
   it('shows the 404 page for an unknown address', async () => {
-    renderApp('/no/such/page', { 'GET /api/auth/me': unauthenticated });
+    renderApp('/no/such/page', { 'GET /api/auth/session': unauthenticated });
     expect(await screen.findByRole('heading', { level: 1, name: 'There is no page at this address' })).toBeTruthy();
   });
 
   it('signs in and honours ?next=', async () => {
     const { router } = renderApp('/sign-in?next=%2Fteam', {
-      'GET /api/auth/me': unauthenticated,
+      'GET /api/auth/session': unauthenticated,
       'GET /api/auth/csrf': { status: 200, body: { token: 'csrf' } },
       'POST /api/auth/login': { status: 200, body: sessionFor('merchant_owner') },
     });
@@ -104,7 +105,7 @@ describe('app routes', () => {
 
   it('ignores a ?next= that points off the site', async () => {
     const { router } = renderApp('/sign-in?next=https%3A%2F%2Felsewhere.test%2F', {
-      'GET /api/auth/me': unauthenticated,
+      'GET /api/auth/session': unauthenticated,
       'GET /api/auth/csrf': { status: 200, body: { token: 'csrf' } },
       'POST /api/auth/login': { status: 200, body: sessionFor('driver') },
     });
@@ -116,7 +117,7 @@ describe('app routes', () => {
 
   it('shows the forgotten-password confirmation in the same words whatever the server knows', async () => {
     renderApp('/forgot-password', {
-      'GET /api/auth/me': unauthenticated,
+      'GET /api/auth/session': unauthenticated,
       'GET /api/auth/csrf': { status: 200, body: { token: 'csrf' } },
       'POST /api/auth/password/forgot': { status: 202, body: { ok: true } },
     });

@@ -39,3 +39,14 @@ export function formatMoney(minor: number | null | undefined): string {
   if (minor === null || minor === undefined) return '—';
   return pounds.format(minor / 100);
 }
+
+const counts = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 2 });
+
+/**
+ * A count or quantity for the screen (packs, tiles, kilograms), with thousands separators: one number
+ * format on every side of the product (1,593, not 1593).
+ */
+export function formatCount(value: number | null | undefined): string {
+  if (value === null || value === undefined) return '—';
+  return counts.format(value);
+}

@@ -1,5 +1,6 @@
 import type { OrderDetail } from '../../shared/schemas/order.schema';
 import type { StockItem } from '../../shared/schemas/stock.schema';
+import { lineAmounts, orderAmounts } from '../../shared/domain/order-amounts';
 
 /** An invented order line for component tests: packs of 240 tiles at £307.20 a pack, nothing answered yet. */
 export const fixtureLine = (id: number, product_id: number, sku: string, description: string, quantity: number): OrderDetail['lines'][number] => ({
@@ -21,12 +22,13 @@ export const fixtureLine = (id: number, product_id: number, sku: string, descrip
     status: 'asked',
     replaces_line_id: null,
     delivered_quantity: null,
+    ...lineAmounts({ quantity, confirmed_quantity: null, back_order_quantity: 0, delivered_quantity: null, unit_price: 30_720 }, 'sent'),
   });
 
 /** An invented order for component tests: two lines at Tollerbeck Yard, waiting for the desk. */
 export function orderFixture(overrides: Partial<OrderDetail> = {}): OrderDetail {
   const line = fixtureLine;
-  return {
+  const order: Omit<OrderDetail, 'amounts'> = {
     id: 1,
     reference: 'RL-000001',
     status: 'sent',
@@ -74,6 +76,9 @@ export function orderFixture(overrides: Partial<OrderDetail> = {}): OrderDetail 
     back_ordered_packs: 0,
     ...overrides,
   };
+  // Lines given by a test are priced again for the order's stage, so the three amounts always agree with them.
+  const lines = order.lines.map((l) => ({ ...l, ...lineAmounts(l, order.status) }));
+  return { ...order, lines, amounts: overrides.amounts ?? orderAmounts(lines) };
 }
 
 export function stockFixture(product_id: number, sku: string, available: number): StockItem {

@@ -4,6 +4,7 @@ import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, kindOfRole } from '../../shared/domain/roles';
 import { DEMO_CATALOGUES, installCatalogue } from '../../seeds/02-catalogue';
+import { safeCell } from '../../server/modules/exports/spreadsheet-text';
 import { Client, createTestApp, type TestApp } from '../setup/test-app';
 import { makeOrgWithUser, TEST_PASSWORD } from '../setup/factories';
 
@@ -74,7 +75,7 @@ describe('the estimate as a spreadsheet', () => {
 
     const wb = new ExcelJS.Workbook();
     await wb.xlsx.load(res.body as unknown as ArrayBuffer);
-    expect(wb.worksheets.map((w) => w.name)).toEqual(['Bill of materials', 'Faces', 'About']);
+    expect(wb.worksheets.map((w) => w.name)).toEqual(['Bill of materials', 'Faces', 'Pallets', 'Lorry loads', 'Roof loading', 'About']);
 
     const bill = wb.getWorksheet('Bill of materials')!;
     expect(bill.views[0]).toMatchObject({ state: 'frozen', ySplit: 1 });
@@ -106,6 +107,68 @@ describe('the estimate as a spreadsheet', () => {
     const about = textCells(wb.getWorksheet('About')!).join('\n');
     expect(about).toMatch(/fixing specification/);
     expect(about).toMatch(/Engine version/);
+  });
+
+  it('carries the delivery: each pallet with its faces, tiles and weight, the lorry loads and each face’s roof-loading stacks', async () => {
+    const { c, estimate } = await estimateWithFormulaNames();
+    const res = await download(c, `/api/estimates/${estimate.id}/export.xlsx`);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(res.body as unknown as ArrayBuffer);
+    type Pallet = { n: number; kind: string; tiles: number; weight_kg: number; faces: { building: string; face: string; tiles: number }[]; items: { item: string; quantity: number }[] };
+    const pallets = estimate.result.pallets as Pallet[];
+    expect(pallets.length).toBeGreaterThan(1);
+
+    const sheet = wb.getWorksheet('Pallets')!;
+    expect(sheet.views[0]).toMatchObject({ state: 'frozen', ySplit: 1 });
+    expect(sheet.getRow(1).values).toEqual([undefined, 'Pallet', 'Kind', 'Building', 'Face', 'Item', 'Tiles', 'Quantity', 'Pallet tiles', 'Pallet weight (kg)']);
+    const rows: { n: number; kind: string; face: string | null; tiles: number | null; quantity: number | null; weight: number }[] = [];
+    sheet.eachRow((row, i) => {
+      if (i === 1) return;
+      const v = (col: number) => row.getCell(col).value;
+      rows.push({ n: v(1) as number, kind: v(2) as string, face: (v(4) as string | null) ?? null, tiles: (v(6) as number | null) ?? null, quantity: (v(7) as number | null) ?? null, weight: v(9) as number });
+    });
+    for (const p of pallets) {
+      const mine = rows.filter((r) => r.n === p.n);
+      expect(mine.length, `pallet ${p.n}`).toBe(p.faces.length + p.items.length);
+      expect(mine.every((r) => r.weight === p.weight_kg)).toBe(true);
+      expect(mine.reduce((s, r) => s + (r.tiles ?? 0), 0)).toBe(p.tiles);
+      expect(mine[0].kind).toBe(p.kind === 'tiles' ? 'Tiles' : 'Accessories');
+    }
+    // Every tile ordered is on a pallet, face by face (the spare allowance on its own row).
+    expect(rows.reduce((s, r) => s + (r.tiles ?? 0), 0)).toBe(estimate.result.totals.tiles_order);
+    expect(rows.some((r) => r.face === 'Back')).toBe(true);
+
+    const loads = wb.getWorksheet('Lorry loads')!;
+    expect(loads.rowCount).toBe(1 + estimate.result.loads.length);
+    const listed: number[] = [];
+    let weight = 0;
+    loads.eachRow((row, i) => {
+      if (i === 1) return;
+      listed.push(...String(row.getCell(2).value).split(', ').map(Number));
+      expect(row.getCell(3).value).toBe(String(row.getCell(2).value).split(', ').length);
+      weight += row.getCell(4).value as number;
+    });
+    // Each pallet goes on exactly one load, and the loads weigh what the delivery weighs.
+    expect(listed.sort((a, b) => a - b)).toEqual(pallets.map((p) => p.n).sort((a, b) => a - b));
+    // Each load's weight is rounded to 0.1 kg, so their sum may differ from the total by a rounding step per load.
+    expect(Math.abs(weight - estimate.result.totals.weight_kg)).toBeLessThanOrEqual(0.1 * estimate.result.loads.length);
+
+    const stacks = wb.getWorksheet('Roof loading')!;
+    expect(stacks.getRow(1).values).toEqual([undefined, 'Building', 'Face', 'Copies', 'Batten from the eaves', 'Stacks', 'Tiles (full stacks)', 'Face stacks', 'Face load (kg)']);
+    const faces = estimate.result.faces as { face: string; courses: number; stacks: number; stacks_by_row: number[] }[];
+    const every = estimate.system_input.roof_loading.every_nth_batten as number;
+    let r = 2;
+    for (const f of faces) {
+      f.stacks_by_row.forEach((n, i) => {
+        const row = stacks.getRow(r++);
+        expect(row.getCell(2).value).toBe(safeCell(f.face));
+        expect(row.getCell(4).value).toBe(f.courses - i * every);
+        expect(row.getCell(5).value).toBe(n);
+      });
+      // The rows of a face hold all its stacks.
+      expect(f.stacks_by_row.reduce((s, n) => s + n, 0)).toBe(f.stacks);
+    }
+    expect(textCells(stacks).join('\n')).toMatch(/fixing specification/);
   });
 
   it('never lets a cell run as a formula: names starting with = + - @ come out as text with an apostrophe', async () => {

@@ -26,7 +26,7 @@ describe('every API route declares its access rule', () => {
     expect(unknown).toEqual([]);
   });
 
-  it('keeps public routes to the sign-in flows, the CSRF token, health, the example schedule, the development outbox and the signed payment webhook', () => {
+  it('keeps public routes to the sign-in flows, who is signed in, the CSRF token, health, the example schedule, the development outbox and the signed payment webhook', () => {
     const publicRoutes = listRoutes(t.app)
       .filter((r) => r.access && 'public' in r.access)
       .map((r) => `${r.method} ${r.path}`)
@@ -34,6 +34,7 @@ describe('every API route declares its access rule', () => {
     expect(publicRoutes).toEqual(
       [
         'GET /api/auth/csrf',
+        'GET /api/auth/session',
         'GET /api/dev/outbox',
         'GET /api/examples/openings.csv',
         'GET /api/examples/roof-schedule.csv',

@@ -228,6 +228,10 @@ describe('importing a schedule as CSV', () => {
     const res = await c.get(`/api/projects/${id}/schedule`);
     expect(res.status).toBe(404);
     expect(res.body.error.code).toBe('no_schedule');
+    // A page that only asks whether there is one gets "none" as an answer, not a failed request.
+    const optional = await c.get(`/api/projects/${id}/schedule?optional=1`);
+    expect(optional.status).toBe(200);
+    expect(optional.body).toBeNull();
   });
 });
 

@@ -1,17 +1,23 @@
 import { readFile } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
 import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser } from '../setup/browser';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, watchConsole } from '../setup/browser';
 import { signInPage } from '../setup/e2e-pages';
 import { startE2eServer, type E2eServer } from '../setup/e2e-server';
 
 let server: E2eServer;
 let browser: Browser;
+let consoleProblems: ReturnType<typeof watchConsole>;
+// No page a journey visits may log an error or throw (a failed request shows as a console error too).
+afterEach(() => {
+  expect(consoleProblems.take()).toEqual([]);
+});
 
 beforeAll(async () => {
   server = await startE2eServer();
   browser = await launchBrowser();
+  consoleProblems = watchConsole(browser);
 });
 afterAll(async () => {
   await browser?.close();

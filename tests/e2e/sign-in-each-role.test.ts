@@ -1,15 +1,21 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD } from '../../seeds/01-demo';
-import { launchBrowser } from '../setup/browser';
+import { launchBrowser, watchConsole } from '../setup/browser';
 import { startE2eServer, type E2eServer } from '../setup/e2e-server';
 
 let server: E2eServer;
 let browser: Browser;
+let consoleProblems: ReturnType<typeof watchConsole>;
+// No page a journey visits may log an error or throw (a failed request shows as a console error too).
+afterEach(() => {
+  expect(consoleProblems.take()).toEqual([]);
+});
 
 beforeAll(async () => {
   server = await startE2eServer();
   browser = await launchBrowser();
+  consoleProblems = watchConsole(browser);
 });
 afterAll(async () => {
   await browser?.close();
@@ -63,6 +69,8 @@ describe('each demo person signs in and lands on their role’s home', () => {
 
   it('a wrong password keeps the person on the sign-in page with a message', async () => {
     const page = await browser.newPage();
+    // The refused sign-in is the point of this story; nothing else may log an error.
+    consoleProblems.expectRefusal('/api/auth/login', 401);
     try {
       await page.goto(`${server.url}/sign-in`);
       await page.getByLabel('E-mail', { exact: true }).fill('sales@demo.test');

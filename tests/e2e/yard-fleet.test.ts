@@ -1,15 +1,21 @@
 import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser } from '../setup/browser';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, watchConsole } from '../setup/browser';
 import { pageApi, signInPage } from '../setup/e2e-pages';
 import { startE2eServer, type E2eServer } from '../setup/e2e-server';
 
 let server: E2eServer;
 let browser: Browser;
+let consoleProblems: ReturnType<typeof watchConsole>;
+// No page a journey visits may log an error or throw (a failed request shows as a console error too).
+afterEach(() => {
+  expect(consoleProblems.take()).toEqual([]);
+});
 
 beforeAll(async () => {
   server = await startE2eServer();
   browser = await launchBrowser();
+  consoleProblems = watchConsole(browser);
 });
 afterAll(async () => {
   await browser?.close();
@@ -132,6 +138,7 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       // The booked load opens its run in one click; the calendar itself sends nothing out.
       expect(await booking.getByRole('link', { name: `${order.reference}: open its run` }).getAttribute('href')).toBe(`/yard/runs/${morning.id}`);
       expect(await booking.getByRole('button', { name: 'Send out' }).count()).toBe(0);
+      consoleProblems.expectRefusal(`/api/orders/${order.id}/dispatch`, 409);
       await expect(api(yard, 'POST', `/api/orders/${order.id}/dispatch`, {})).rejects.toThrow(new RegExp(`409.*Assign a driver to ${REGISTRATION}`));
       expect(await booking.innerText()).toContain('confirmed');
 

@@ -23,3 +23,52 @@ export async function launchBrowser(): Promise<Browser> {
   const args = packaged.args.filter((a) => a !== '--single-process' && a !== '--no-zygote');
   return chromium.launch({ executablePath: await packaged.executablePath(), args, headless: true });
 }
+
+/** A console error or uncaught exception on a page of a journey, with the address it happened at. */
+export interface ConsoleProblem {
+  url: string;
+  text: string;
+}
+
+/**
+ * Collects every console error and uncaught page exception on every page of every context the browser
+ * opens from now on (browser.newPage opens its own context through newContext, so it is covered too).
+ * A journey asserts `take()` is empty after each test: no page it visits may log an error.
+ */
+export function watchConsole(browser: Browser): { take: () => ConsoleProblem[]; expectRefusal: (path: string, status: number) => void } {
+  let problems: ConsoleProblem[] = [];
+  let expected: { path: string; status: number }[] = [];
+  const newContext = browser.newContext.bind(browser);
+  browser.newContext = async (options) => {
+    const context = await newContext(options);
+    context.on('page', (page) => {
+      page.on('console', (msg) => {
+        if (msg.type() === 'error') problems.push({ url: page.url(), text: `${msg.text()}${msg.location().url ? ` (${msg.location().url})` : ''}` });
+      });
+      page.on('pageerror', (err) => problems.push({ url: page.url(), text: `uncaught: ${err.message}` }));
+    });
+    return context;
+  };
+  return {
+    /** The problems since the last take, less the one browser log line of each refusal the journey provoked on purpose. */
+    take: () => {
+      const out = problems.filter((p) => {
+        const i = expected.findIndex((e) => p.text.includes(`status of ${e.status}`) && p.text.includes(e.path));
+        if (i < 0) return true;
+        expected.splice(i, 1);
+        return false;
+      });
+      const missing = expected.map((e) => ({ url: '', text: `expected a refused request to ${e.path} (${e.status}) that never happened` }));
+      problems = [];
+      expected = [];
+      return [...out, ...missing];
+    },
+    /**
+     * A journey that provokes a refusal on purpose (a wrong password) says so: the browser logs every
+     * 4xx answer as an error, and this one is part of the story, not a fault.
+     */
+    expectRefusal: (path: string, status: number) => {
+      expected.push({ path, status });
+    },
+  };
+}

@@ -29,7 +29,7 @@ export type TestMerchant = Awaited<ReturnType<typeof merchantWithCatalogue>>;
  * A contractor's estimator with a site (crane allowed, no overhead lines unless `site` says otherwise),
  * the gable schedule imported and an estimate from the merchant's first system.
  */
-export async function contractorWithEstimate(t: TestApp, m: Pick<TestMerchant, 'systemId'>, site: Record<string, string> = {}) {
+export async function contractorWithEstimate(t: TestApp, m: Pick<TestMerchant, 'systemId'>, site: Record<string, string> = {}, csv = GABLE_CSV) {
   const u = await makeOrgWithUser(t.db, 'contractor', 'contractor_estimator');
   const c = await signIn(t.app, u.email);
   const p = await c.post('/api/projects', {
@@ -44,9 +44,9 @@ export async function contractorWithEstimate(t: TestApp, m: Pick<TestMerchant, '
   });
   expect(p.status, JSON.stringify(p.body)).toBe(201);
   const token = await c.csrf();
-  await c.agent.post(`/api/projects/${p.body.id}/schedule`).set('X-CSRF-Token', token).set('Content-Type', 'text/csv').send(GABLE_CSV);
+  await c.agent.post(`/api/projects/${p.body.id}/schedule`).set('X-CSRF-Token', token).set('Content-Type', 'text/csv').send(csv);
   const e = await c.post(`/api/projects/${p.body.id}/estimates`, { system_id: m.systemId });
-  expect(e.status).toBe(201);
+  expect(e.status, JSON.stringify(e.body)).toBe(201);
   return { ...u, c, projectId: p.body.id as number, estimate: e.body };
 }
 

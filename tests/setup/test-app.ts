@@ -49,7 +49,7 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
   const db = createDb(config.database);
   if (!other) await migrateLatest(db);
   const mail = await startMailCapture();
-  const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: 'silent' }) });
+  const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: process.env.TEST_LOG ?? 'silent' }) });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });

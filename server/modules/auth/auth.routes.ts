@@ -36,6 +36,11 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
     },
   );
 
+  // "Nobody is signed in" is an answer, not a failure: signed-out pages ask this and get a 200 either way.
+  r.get('/auth/session', { access: { public: 'says whether anyone is signed in, and who' } }, (req, res) => {
+    res.json({ session: req.user ? sessionBody(currentUser(req), deps.config.calendar) : null });
+  });
+
   r.get('/auth/me', { access: { signedIn: true } }, (req, res) => {
     res.json(sessionBody(currentUser(req), deps.config.calendar));
   });

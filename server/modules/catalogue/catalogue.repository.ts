@@ -147,21 +147,25 @@ export function catalogueRepository(db: Db) {
       return rows.map((r) => ({ id: r.id, name: r.name, town: r.town, address: r.address, merchant: { id: r.merchant_id, name: r.merchant_name } }));
     },
 
-    /** Products of the given ids as one branch sells them; a product the branch does not sell is left out. */
-    async branchProducts(branchId: number, productIds: number[], trx: Db = db): Promise<Map<number, BranchProductRow>> {
-      if (productIds.length === 0) return new Map();
-      const rows = await trx('products as p')
+    /**
+     * Products of the given ids (or every product of one category) as one branch sells them; a product
+     * the branch does not sell is left out.
+     */
+    async branchProducts(branchId: number, productIds: number[] | { category: ProductCategory }, trx: Db = db): Promise<Map<number, BranchProductRow>> {
+      if (Array.isArray(productIds) && productIds.length === 0) return new Map();
+      const rows: Record<string, unknown>[] = await trx('products as p')
         .join('branch_products as bp', 'bp.product_id', 'p.id')
         .join('branches as b', 'b.id', 'bp.branch_id')
         .where('bp.branch_id', branchId)
         .whereRaw('?? = ??', ['b.organisation_id', 'p.organisation_id'])
         .whereNull('p.archived_at')
-        .whereIn('p.id', productIds)
+        .modify((q) => (Array.isArray(productIds) ? q.whereIn('p.id', productIds) : q.where('p.category', productIds.category)))
+        .orderBy('p.sku')
         .select(...PRODUCT_COLUMNS, 'bp.branch_id', 'bp.pack_price', 'bp.on_hand', 'bp.reserved', 'bp.reorder_level');
       return new Map(
         rows.map((r) => [
           r.id as number,
-          { ...toProduct(r), branch_id: r.branch_id, pack_price: r.pack_price, on_hand: r.on_hand, reserved: r.reserved, reorder_level: r.reorder_level },
+          { ...toProduct(r), branch_id: r.branch_id as number, pack_price: r.pack_price as number, on_hand: r.on_hand as number, reserved: r.reserved as number, reorder_level: r.reorder_level as number },
         ]),
       );
     },

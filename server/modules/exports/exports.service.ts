@@ -1,5 +1,6 @@
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
+import { ACCESSORY_WORDS, type Load, type Pallet } from '../../../shared/engine/delivery';
 import type { FaceResult } from '../../../shared/engine/result';
 import { CATEGORY_LABELS } from '../../../shared/schemas/catalogue.schema';
 import type { Estimate } from '../../../shared/schemas/estimate.schema';
@@ -62,6 +63,68 @@ const FACE_COLUMNS: Column<FaceResult>[] = [
   { header: 'Openings (m²)', width: 13, numFmt: TWO_DP, value: (f) => f.openings_area_m2 ?? 0 },
 ];
 
+
+/** One row per thing on a pallet: each face its tiles serve (or spare tiles), or each accessory. */
+interface PalletRow {
+  pallet: Pallet;
+  building: string | null;
+  face: string | null;
+  item: string | null;
+  tiles: number | null;
+  quantity: number | null;
+}
+
+function palletRows(pallets: readonly Pallet[]): PalletRow[] {
+  return pallets.flatMap((p) => [
+    ...p.faces.map((f) => ({ pallet: p, building: f.face === 'spare' ? null : f.building, face: f.face === 'spare' ? 'Spare tiles (waste allowance)' : f.face, item: null, tiles: f.tiles, quantity: null })),
+    ...p.items.map((i) => ({ pallet: p, building: null, face: null, item: ACCESSORY_WORDS[i.item]?.label ?? i.item, tiles: null, quantity: i.quantity })),
+  ]);
+}
+
+const PALLET_COLUMNS: Column<PalletRow>[] = [
+  { header: 'Pallet', width: 8, numFmt: WHOLE, value: (r) => r.pallet.n },
+  { header: 'Kind', width: 12, value: (r) => (r.pallet.kind === 'tiles' ? 'Tiles' : 'Accessories') },
+  { header: 'Building', width: 14, value: (r) => r.building },
+  { header: 'Face', width: 28, value: (r) => r.face },
+  { header: 'Item', width: 16, value: (r) => r.item },
+  { header: 'Tiles', width: 9, numFmt: WHOLE, value: (r) => r.tiles },
+  { header: 'Quantity', width: 10, numFmt: WHOLE, value: (r) => r.quantity },
+  { header: 'Pallet tiles', width: 11, numFmt: WHOLE, value: (r) => r.pallet.tiles },
+  { header: 'Pallet weight (kg)', width: 17, numFmt: ONE_DP, value: (r) => r.pallet.weight_kg },
+];
+
+const LOAD_COLUMNS: Column<Load>[] = [
+  { header: 'Load', width: 7, numFmt: WHOLE, value: (l) => l.load },
+  { header: 'Pallets, in loading order (last off loaded first)', width: 44, value: (l) => l.pallets.join(', ') },
+  { header: 'Pallet count', width: 12, numFmt: WHOLE, value: (l) => l.pallets.length },
+  { header: 'Weight (kg)', width: 12, numFmt: ONE_DP, value: (l) => l.weight_kg },
+];
+
+/** One row per loading batten of a face: which batten (counted from the eaves), how many stacks go on it. */
+interface StackRow {
+  face: FaceResult;
+  row: number;
+  stacks: number;
+  tiles: number;
+}
+
+function stackRows(faces: readonly FaceResult[], everyNth: number, stackSize: number): StackRow[] {
+  return faces.flatMap((f) =>
+    f.stacks_by_row.map((stacks, i) => ({ face: f, row: f.courses - i * everyNth, stacks, tiles: stacks * stackSize })),
+  );
+}
+
+const STACK_COLUMNS: Column<StackRow>[] = [
+  { header: 'Building', width: 14, value: (r) => r.face.building },
+  { header: 'Face', width: 18, value: (r) => r.face.face },
+  { header: 'Copies', width: 8, numFmt: WHOLE, value: (r) => r.face.quantity },
+  { header: 'Batten from the eaves', width: 20, numFmt: WHOLE, value: (r) => r.row },
+  { header: 'Stacks', width: 8, numFmt: WHOLE, value: (r) => r.stacks },
+  { header: 'Tiles (full stacks)', width: 17, numFmt: WHOLE, value: (r) => r.tiles },
+  { header: 'Face stacks', width: 11, numFmt: WHOLE, value: (r) => r.face.stacks },
+  { header: 'Face load (kg)', width: 13, numFmt: ONE_DP, value: (r) => r.face.load_kg },
+];
+
 function addTable<T>(wb: ExcelJS.Workbook, name: string, columns: Column<T>[], rows: T[]): ExcelJS.Worksheet {
   const ws = wb.addWorksheet(name, { views: [{ state: 'frozen', ySplit: 1 }] });
   ws.columns = columns.map((c) => ({ header: c.header, width: c.width }));
@@ -98,6 +161,16 @@ export function exportsService(estimates: EstimatesService, projects: ProjectsSe
         total.getCell(BILL_COLUMNS.length).numFmt = MONEY;
       }
       addTable(wb, 'Faces', FACE_COLUMNS, e.result.faces);
+      addTable(wb, 'Pallets', PALLET_COLUMNS, palletRows(e.result.pallets));
+      addTable(wb, 'Lorry loads', LOAD_COLUMNS, e.result.loads);
+      const loading = e.system_input.roof_loading;
+      const stacks = addTable(wb, 'Roof loading', STACK_COLUMNS, stackRows(e.result.faces, loading.every_nth_batten, loading.stack_size));
+      // Loading a roof is work at height: the sheet a roofer prints carries the cautions with it.
+      stacks.addRow([]);
+      const nth = loading.every_nth_batten;
+      const every = nth === 1 ? 'every batten' : `every ${nth}${nth % 10 === 2 && nth % 100 !== 12 ? 'nd' : nth % 10 === 3 && nth % 100 !== 13 ? 'rd' : 'th'} batten`;
+      stacks.addRow([safeCell(`Stacks of ${loading.stack_size} tiles on ${every}, spread along it; load both slopes of a ridge evenly.`)]);
+      for (const c of e.cautions) stacks.addRow([safeCell(c)]);
 
       const about = wb.addWorksheet('About');
       about.columns = [{ width: 24 }, { width: 100 }];

@@ -268,6 +268,12 @@ export function invoicesRepository(db: Db) {
       return row ? (row.terms_days as number) : null;
     },
 
+    /** Card payment is open to a contractor without an account, and to one with an account unless the merchant turned it off. */
+    async cardAllowed(merchantId: number, contractorId: number, trx: Db = db): Promise<boolean> {
+      const row = await trx('contractor_accounts').where({ merchant_organisation_id: merchantId, contractor_organisation_id: contractorId }).first('card_payments');
+      return row ? Boolean(row.card_payments) : true;
+    },
+
     /** Every contractor that has ordered from the merchant or has an account with it. */
     async accounts(merchantId: number) {
       return db('organisations as co')
@@ -280,7 +286,7 @@ export function invoicesRepository(db: Db) {
             .whereNotNull('a.id')
             .orWhereExists(db('orders as o').whereRaw('?? = ??', ['o.contractor_organisation_id', 'co.id']).where('o.merchant_organisation_id', merchantId)),
         )
-        .select('co.id', 'co.name', 'a.terms_days')
+        .select('co.id', 'co.name', 'a.terms_days', 'a.card_payments')
         .select(db('orders as o2').count('*').whereRaw('?? = ??', ['o2.contractor_organisation_id', 'co.id']).where('o2.merchant_organisation_id', merchantId).as('orders'))
         .orderBy('co.name');
     },
@@ -290,12 +296,13 @@ export function invoicesRepository(db: Db) {
       return Boolean(row);
     },
 
-    async putTerms(merchantId: number, contractorId: number, termsDays: number): Promise<void> {
+    async putTerms(merchantId: number, contractorId: number, termsDays: number, cardPayments?: boolean): Promise<void> {
       const now = nowIso();
+      const card = cardPayments === undefined ? {} : { card_payments: cardPayments ? 1 : 0 };
       await db('contractor_accounts')
-        .insert({ merchant_organisation_id: merchantId, contractor_organisation_id: contractorId, terms_days: termsDays, created_at: now, updated_at: now })
+        .insert({ merchant_organisation_id: merchantId, contractor_organisation_id: contractorId, terms_days: termsDays, ...card, created_at: now, updated_at: now })
         .onConflict(['merchant_organisation_id', 'contractor_organisation_id'])
-        .merge({ terms_days: termsDays, updated_at: now });
+        .merge({ terms_days: termsDays, ...card, updated_at: now });
     },
 
     async deleteTerms(merchantId: number, contractorId: number): Promise<void> {

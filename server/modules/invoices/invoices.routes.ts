@@ -36,7 +36,7 @@ export function invoicesRoutes(invoices: InvoicesService) {
     res.json(await invoices.accounts(currentUser(req)));
   });
   r.put('/accounts/:contractorId', { access: { action: 'accounts:manage' }, params: accountParamsSchema, body: putAccountBodySchema }, async (req, res, { params, body }) => {
-    res.json(await invoices.putTerms(currentUser(req), params.contractorId, body.terms_days));
+    res.json(await invoices.putTerms(currentUser(req), params.contractorId, body.terms_days, body.card_payments));
   });
   r.delete('/accounts/:contractorId', { access: { action: 'accounts:manage' }, params: accountParamsSchema }, async (req, res, { params }) => {
     res.json(await invoices.putTerms(currentUser(req), params.contractorId, null));

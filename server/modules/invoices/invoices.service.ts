@@ -71,9 +71,15 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
   async function get(user: AuthUser, id: number): Promise<Invoice> {
     const row = await invoices.find(partyOf(user), id);
     if (!row) throw AppError.notFound('Invoice');
-    const [lines, notes, pays] = await Promise.all([invoices.lines(id), invoices.creditNotes(id), invoices.payments(id)]);
+    const [lines, notes, pays, card] = await Promise.all([
+      invoices.lines(id),
+      invoices.creditNotes(id),
+      invoices.payments(id),
+      row.pay_by === 'card' ? Promise.resolve(true) : invoices.cardAllowed(row.merchant_organisation_id, row.contractor_organisation_id),
+    ]);
     return {
       ...summaryOf(row, config.calendar.today()),
+      card_payment: card,
       basis: row.basis,
       site_name: row.site_name,
       po_reference: row.po_reference,
@@ -277,15 +283,22 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
 
     async accounts(user: AuthUser) {
       const rows = await invoices.accounts(user.organisation.id);
-      return { accounts: rows.map((r) => ({ contractor: { id: r.id, name: r.name }, terms_days: r.terms_days ?? null, orders: Number(r.orders ?? 0) })) };
+      return {
+        accounts: rows.map((r) => ({
+          contractor: { id: r.id, name: r.name },
+          terms_days: r.terms_days ?? null,
+          card_payments: r.terms_days === null || r.terms_days === undefined ? true : Boolean(r.card_payments),
+          orders: Number(r.orders ?? 0),
+        })),
+      };
     },
 
-    async putTerms(user: AuthUser, contractorId: number, termsDays: number | null) {
+    async putTerms(user: AuthUser, contractorId: number, termsDays: number | null, cardPayments?: boolean) {
       if (!(await invoices.knowsContractor(user.organisation.id, contractorId)) && (await invoices.terms(user.organisation.id, contractorId)) === null) {
         throw AppError.notFound('Contractor');
       }
       if (termsDays === null) await invoices.deleteTerms(user.organisation.id, contractorId);
-      else await invoices.putTerms(user.organisation.id, contractorId, termsDays);
+      else await invoices.putTerms(user.organisation.id, contractorId, termsDays, cardPayments);
       const all = await this.accounts(user);
       return all.accounts.find((a) => a.contractor.id === contractorId)!;
     },

@@ -1,5 +1,6 @@
 import { addDays } from '../../../shared/domain/business-calendar';
 import type {
+  SubstituteFigures,
   OrderComment,
   OrderEvent,
   OrderLine,
@@ -412,12 +413,15 @@ export function ordersRepository(db: Db) {
         substitute_product_id: number | null;
         substitute_quantity: number | null;
         substitute_unit_price: number | null;
+        substitute_figures: SubstituteFigures | null;
         note: string;
       }[],
     ): Promise<number> {
       const [row] = await trx('order_proposals').insert({ ...p, status: 'open', proposed_at: nowIso() }).returning('id');
       const id = (row as { id: number }).id;
-      if (lines.length > 0) await trx('order_proposal_lines').insert(lines.map((l) => ({ ...l, proposal_id: id })));
+      if (lines.length > 0) {
+        await trx('order_proposal_lines').insert(lines.map((l) => ({ ...l, substitute_figures: l.substitute_figures ? JSON.stringify(l.substitute_figures) : null, proposal_id: id })));
+      }
       return id;
     },
 
@@ -488,6 +492,7 @@ export function ordersRepository(db: Db) {
                   quantity: l.substitute_quantity,
                   unit_price: l.substitute_unit_price,
                   total: l.substitute_quantity * l.substitute_unit_price,
+                  figures: l.substitute_figures ? (JSON.parse(l.substitute_figures) as SubstituteFigures) : null,
                 }
               : null,
             note: l.note,

@@ -7,6 +7,7 @@ import {
   confirmOrderBodySchema,
   followUpBodySchema,
   orderBookQuerySchema,
+  orderLineParamsSchema,
   orderParamsSchema,
   placeOrderBodySchema,
   proposalBodySchema,
@@ -72,6 +73,10 @@ export function ordersRoutes(orders: OrdersService, idempotent: RequestHandler =
       res.json(await orders.declineChanges(currentUser(req), params.id, params.proposalId, body.note));
     },
   );
+
+  r.get('/orders/:id/lines/:lineId/substitutes', { access: { action: 'orders:confirm' }, params: orderLineParamsSchema }, async (req, res, { params }) => {
+    res.json(await orders.substitutes(currentUser(req), params.id, params.lineId));
+  });
 
   r.post('/orders/:id/confirm', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: confirmOrderBodySchema, before: [idempotent] }, async (req, res, { params, body }) => {
     res.json(await orders.confirm(currentUser(req), params.id, body));

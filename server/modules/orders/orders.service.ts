@@ -20,6 +20,8 @@ import {
   type orderBookQuerySchema,
   type placeOrderBodySchema,
   type proposalBodySchema,
+  type SubstituteFigures,
+  type SubstituteOptions,
 } from '../../../shared/schemas/order.schema';
 import type { BusinessCalendar } from '../../../shared/domain/business-calendar';
 import { bookingDateProblem } from '../../../shared/domain/booking-window';
@@ -28,6 +30,7 @@ import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 import { AppError } from '../../http/app-error';
+import { lineAmounts, orderAmounts } from '../../../shared/domain/order-amounts';
 import { catalogueRepository, type BranchProductRow } from '../catalogue/catalogue.repository';
 import { orderCautions } from '../estimates/cautions';
 import { estimatesRepository } from '../estimates/estimates.repository';
@@ -38,6 +41,7 @@ import { stockRepository } from '../stock/stock.repository';
 import { orderBookCache } from './order-book-cache';
 import { sendOrderMail, type OrderMailEvent } from './order-mail';
 import { ordersRepository, type NewOrderLine, type OrderParty, type OrderRow } from './orders.repository';
+import { substituteOptions, substituteTileFigures } from './substitutes';
 
 type PlaceBody = z.output<typeof placeOrderBodySchema>;
 type AmendBody = z.output<typeof amendOrderBodySchema>;
@@ -153,6 +157,7 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       order.follows_order_id ? orders.find(party, order.follows_order_id) : Promise.resolve(undefined),
     ]);
     const backOrdered = lines.reduce((sum, l) => sum + l.back_order_quantity, 0);
+    const pricedLines = lines.map((l) => ({ ...l, ...lineAmounts(l, order.status) }));
     const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id) : undefined;
     const detail: Order = {
       ...summary(order),
@@ -177,7 +182,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     const link = (o: { id: number; status: OrderStatus }) => ({ id: o.id, reference: orderReference(o.id), status: o.status, status_label: ORDER_STATUS_LABELS[o.status] });
     return {
       ...detail,
-      lines,
+      lines: pricedLines,
+      amounts: orderAmounts(pricedLines),
       slot:
         booking && slot
           ? {
@@ -459,12 +465,38 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
             substitute_product_id: pl.substitute?.product_id ?? null,
             substitute_quantity: pl.substitute?.quantity ?? null,
             substitute_unit_price: pl.substitute ? (pl.substitute.unit_price ?? sub?.pack_price ?? 0) : null,
+            substitute_figures: null as SubstituteFigures | null,
             note: pl.note ?? '',
           };
         });
         if (body.proposed_slot_id !== undefined) {
           const slot = await slots.slot(user.organisation.id, body.proposed_slot_id, trx);
           if (!slot || slot.branch_id !== order.branch_id) problems.push({ path: 'proposed_slot_id', message: `is not a delivery slot of ${order.branch_name}` });
+        }
+        // A substitute tile is worked out on the order's own roof by the engine before it can be offered.
+        for (const [i, pl] of proposalLines.entries()) {
+          const line = lines.find((l) => l.id === pl.order_line_id);
+          const sub = pl.substitute_product_id ? subs.get(pl.substitute_product_id) : undefined;
+          if (!line || !sub || line.category !== 'tile' || sub.category !== 'tile') continue;
+          if (pl.confirmed_quantity + pl.back_order_quantity > 0) {
+            problems.push({ path: `lines.${i}.substitute`, message: `another tile cannot be laid beside ${line.sku} on the same roof: offer ${sub.sku} for the whole line (none now, none to follow)` });
+            continue;
+          }
+          const worked = await substituteTileFigures(trx, order, lines, sub, pl.substitute_unit_price ?? sub.pack_price);
+          if (!worked.ok) {
+            problems.push({ path: `lines.${i}.substitute.product_id`, message: worked.reason });
+            continue;
+          }
+          const refused = worked.figures.refused_faces;
+          if (refused.length > 0) {
+            for (const r of refused) problems.push({ path: `lines.${i}.substitute.product_id`, message: `${sub.sku} does not suit ${r.message}` });
+            continue;
+          }
+          if (pl.substitute_quantity !== worked.packs) {
+            problems.push({ path: `lines.${i}.substitute.quantity`, message: `the engine counts ${worked.packs} packs of ${sub.sku} for this roof (${pl.substitute_quantity} given)` });
+            continue;
+          }
+          pl.substitute_figures = worked.figures;
         }
         if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some lines of the answer are not valid', problems);
 
@@ -513,16 +545,35 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           proposal.lines.flatMap((pl) => (pl.substitute ? [pl.substitute.product_id] : [])),
           trx,
         );
+        // A substitute tile changes what else the roof takes (battens, fixings, ridge…): the engine's
+        // difference for each of those items moves the order's line for it, or adds one.
+        const accessoryDelta = new Map<number, number>();
+        const accessoryNew: { product_id: number; packs: number; unit_price: number }[] = [];
+        for (const pl of proposal.lines) {
+          for (const row of pl.substitute?.figures?.rows ?? []) {
+            if (row.role === 'tile' || !row.changes) continue;
+            const productId = row.before?.product_id ?? row.after?.product_id;
+            if (!productId) continue;
+            const delta = (row.after?.packs ?? 0) - (row.before?.packs ?? 0);
+            const onOrder = lines.find((l) => l.product_id === productId && l.status !== 'substitute' && !answered.has(l.id));
+            if (onOrder) accessoryDelta.set(onOrder.id, (accessoryDelta.get(onOrder.id) ?? 0) + delta);
+            else if (delta > 0 && row.after?.product_id) accessoryNew.push({ product_id: row.after.product_id, packs: delta, unit_price: row.after.unit_price ?? 0 });
+          }
+        }
         for (const line of lines) {
           if (line.status === 'substitute') continue;
           const pl = answered.get(line.id);
-          const confirmed = pl ? pl.confirmed_quantity : line.quantity;
+          const wanted = line.quantity + (accessoryDelta.get(line.id) ?? 0);
+          // An item the substitute tile no longer needs (clips for a tile laid without them) stays on the order as replaced.
+          const quantity = wanted > 0 ? wanted : line.quantity;
+          const confirmed = pl ? pl.confirmed_quantity : wanted > 0 ? quantity : 0;
           const backOrder = pl ? pl.back_order_quantity : 0;
           await orders.updateLine(trx, line.id, {
+            ...(quantity !== line.quantity ? { quantity } : {}),
             confirmed_quantity: confirmed,
             back_order_quantity: backOrder,
             total: line.unit_price * (confirmed + backOrder),
-            status: lineStatus(line.quantity, confirmed, backOrder, Boolean(pl?.substitute)),
+            status: lineStatus(quantity, confirmed, backOrder, Boolean(pl?.substitute) || wanted <= 0),
           });
           if (pl?.substitute) {
             const product = subProducts.get(pl.substitute.product_id);
@@ -533,6 +584,15 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
               replaces_line_id: line.id,
             });
           }
+        }
+        const added = await catalogue.branchProducts(
+          order.branch_id,
+          accessoryNew.map((a) => a.product_id),
+          trx,
+        );
+        for (const a of accessoryNew) {
+          const product = added.get(a.product_id);
+          if (product) substitutes.push({ ...newLine(product, a.packs, 'agreed', a.unit_price), confirmed_quantity: a.packs });
         }
         await orders.insertLines(trx, id, substitutes, lines.length + 1);
         const subtotal = (await orders.lines(id, trx)).reduce((s, l) => s + l.total, 0);
@@ -823,6 +883,18 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     },
 
     linesOf: (orderId: number) => orders.lines(orderId),
+
+    /** What the desk may offer instead of one line, each with its quantity and, for a tile, the engine's figures. */
+    async substitutes(user: AuthUser, id: number, lineId: number): Promise<SubstituteOptions> {
+      if (user.organisation.kind !== 'merchant') throw AppError.forbidden();
+      const order = await orders.find(partyOf(user), id);
+      if (!order) throw AppError.notFound('Order');
+      const lines = await orders.lines(id);
+      const line = lines.find((l) => l.id === lineId && l.status !== 'substitute');
+      if (!line) throw AppError.notFound('Order line');
+      const candidates = await catalogue.branchProducts(order.branch_id, { category: line.category });
+      return { line_id: line.id, options: await substituteOptions(db, order, lines, line, [...candidates.values()]) };
+    },
   };
 }
 

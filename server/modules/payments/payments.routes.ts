@@ -2,15 +2,21 @@ import express, { type RequestHandler } from 'express';
 import { invoiceParamsSchema } from '../../../shared/schemas/invoice.schema';
 import { paymentParamsSchema, startPaymentBodySchema } from '../../../shared/schemas/payment.schema';
 import { currentUser } from '../../auth/policy';
+import type { Config } from '../../config/env';
 import { apiRouter } from '../../http/endpoint';
+import { returnBase } from '../../http/return-origin';
 import { toPayment, type PaymentsService } from './payments.service';
 
 /** Starting and checking card payments, for the signed-in contractor. */
-export function paymentsRoutes(payments: PaymentsService, idempotent: RequestHandler = (_req, _res, next) => next()) {
+export function paymentsRoutes(
+  payments: PaymentsService,
+  config: Pick<Config, 'appUrl' | 'allowedOrigins' | 'isProduction'>,
+  idempotent: RequestHandler = (_req, _res, next) => next(),
+) {
   const r = apiRouter();
 
   r.post('/invoices/:id/payments', { access: { action: 'payments:make' }, params: invoiceParamsSchema, body: startPaymentBodySchema, before: [idempotent] }, async (req, res, { params }) => {
-    const { created, payment } = await payments.start(currentUser(req), params.id);
+    const { created, payment } = await payments.start(currentUser(req), params.id, returnBase(req, config));
     const p = toPayment(payment);
     res.status(created ? 201 : 200).json({ status: p.status, checkout_url: p.checkout_url, payment: p });
   });

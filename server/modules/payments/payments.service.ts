@@ -73,9 +73,9 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     return changed;
   }
 
-  async function sessionOf(payment: PaymentRow, invoiceId: number, number: string, orderId: number) {
+  async function sessionOf(payment: PaymentRow, invoiceId: number, number: string, orderId: number, base: string) {
     if (!stripe) throw unavailable();
-    const back = `${config.appUrl}/invoices/${invoiceId}`;
+    const back = `${base}/invoices/${invoiceId}`;
     try {
       return await stripe.checkout.sessions.create(
         {
@@ -96,11 +96,17 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
   }
 
   return {
-    /** Starts (or resumes) the card payment of an invoice's balance; the answer carries the provider's checkout URL. */
-    async start(user: AuthUser, invoiceId: number): Promise<{ created: boolean; payment: PaymentRow }> {
+    /**
+     * Starts (or resumes) the card payment of an invoice's balance; the answer carries the provider's
+     * checkout URL. The payer comes back to `returnBase` (an allowed address of the app), APP_URL by default.
+     */
+    async start(user: AuthUser, invoiceId: number, returnBase: string = config.appUrl): Promise<{ created: boolean; payment: PaymentRow }> {
       const inv = await invoices.find(partyOf(user), invoiceId);
       if (!inv) throw AppError.notFound('Invoice');
       if (!stripe) throw unavailable();
+      if (inv.pay_by === 'account' && !(await invoices.cardAllowed(inv.merchant_organisation_id, inv.contractor_organisation_id))) {
+        throw AppError.conflict('card_payment_off', `${inv.merchant_name} takes payment of invoice ${invoiceNumber(inv.number)} on account, by the due date; card payment is turned off for your account`);
+      }
       const balance = balanceOf(inv);
       if (balance <= 0) throw AppError.conflict('nothing_to_pay', `Invoice ${invoiceNumber(inv.number)} has nothing left to pay`);
       let superseded: PaymentRow | undefined;
@@ -120,7 +126,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         await stripe.checkout.sessions.expire(superseded.provider_session_id).catch((err: unknown) => logger.warn({ err, payment: superseded?.id }, 'could not expire a replaced checkout'));
       }
       if (payment.provider_session_id && payment.checkout_url) return { created, payment };
-      const session = await sessionOf(payment, invoiceId, invoiceNumber(inv.number), inv.order_id);
+      const session = await sessionOf(payment, invoiceId, invoiceNumber(inv.number), inv.order_id, returnBase);
       await db.transaction((trx) => invoices.updatePayment(trx, payment.id, { provider_session_id: session.id, checkout_url: session.url }));
       return { created, payment: (await invoices.payment(payment.id))! };
     },

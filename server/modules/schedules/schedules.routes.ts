@@ -7,6 +7,7 @@ import {
   MAX_SCHEDULE_BYTES,
   SCHEDULE_CONTENT_TYPES,
   SCHEDULE_FILE_FIELD,
+  currentScheduleQuerySchema,
   putFacesBodySchema,
   scheduleVersionParamsSchema,
 } from '../../../shared/schemas/schedule-upload.schema';
@@ -101,8 +102,15 @@ export function schedulesRoutes(schedules: SchedulesService, idempotent: Request
     },
   );
 
-  r.get('/projects/:id/schedule', { access: { action: 'projects:read' }, params: projectParamsSchema }, async (req, res, { params }) => {
-    res.json(await schedules.current(currentUser(req), params.id));
+  // ?optional=1: a site without a schedule is an answer (200, null), so a page that only asks whether
+  // there is one makes no failed request; without it the answer stays 404 no_schedule.
+  r.get('/projects/:id/schedule', { access: { action: 'projects:read' }, params: projectParamsSchema, query: currentScheduleQuerySchema }, async (req, res, { params, query }) => {
+    try {
+      res.json(await schedules.current(currentUser(req), params.id));
+    } catch (error) {
+      if (query.optional && error instanceof AppError && error.code === 'no_schedule') res.json(null);
+      else throw error;
+    }
   });
 
   r.get('/projects/:id/schedules', { access: { action: 'projects:read' }, params: projectParamsSchema }, async (req, res, { params }) => {

@@ -7,10 +7,18 @@ import { ProjectEstimates } from '../../features/estimates/components/project-es
 import { ProjectOrders } from '../../features/orders/components/project-orders';
 import { useProject } from '../../features/projects/api/get-project';
 import { ProjectAccessCard, ProjectActions, ProjectContactCard } from '../../features/projects/components/project-overview';
+import { useCurrentSchedule } from '../../features/schedules/api/get-current-schedule';
 import { CurrentSchedule } from '../../features/schedules/components/current-schedule';
+import type { Project } from '../../../shared/schemas/project.schema';
 import { usePageTitle } from '../../lib/use-page-title';
 import { PageQuery } from './page-query';
 import { idParam } from './route-loaders';
+
+/** The site's contact card with the buildings its roof schedule names, once the schedule is loaded. */
+function SiteContact({ site }: { site: Project }) {
+  const schedule = useCurrentSchedule(site.id);
+  return <ProjectContactCard project={site} scheduleBuildings={schedule.data?.faces.map((f) => f.building) ?? []} />;
+}
 
 export function SiteRoute() {
   const projectId = idParam(useParams(), 'projectId');
@@ -32,7 +40,7 @@ export function SiteRoute() {
               ) : null}
               <div className="space-y-6">
                 <div className="grid items-start gap-6 lg:grid-cols-2">
-                  <ProjectContactCard project={site} />
+                  <SiteContact site={site} />
                   <ProjectAccessCard project={site} />
                 </div>
                 <SectionBoundary name="roof schedule">

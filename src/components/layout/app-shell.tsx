@@ -1,6 +1,7 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import type { ReactNode } from 'react';
 import { Link, NavLink, useLocation } from 'react-router-dom';
+import { ToastOutlet } from '../ui/toast';
 import { Button } from '../ui/button';
 import { Wordmark } from '../ui/logo';
 import { CautionSlot } from './caution-slot';
@@ -161,6 +162,7 @@ export function AppShell({ navItems, homePath, person, onSignOut, signingOut = f
       <div className="flex min-w-0 flex-1 flex-col">
         <main id="main" ref={mainRef} tabIndex={-1} className="mx-auto w-full max-w-page flex-1 px-4 py-6 outline-none sm:px-6 lg:px-10 lg:py-10">
           <CautionSlot />
+          <ToastOutlet pageKey={location.pathname} />
           {children}
         </main>
         <div className="mx-auto w-full max-w-page px-4 sm:px-6 lg:px-10">

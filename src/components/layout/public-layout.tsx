@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
-import { Link } from 'react-router-dom';
+import { Link, useLocation } from 'react-router-dom';
+import { ToastOutlet } from '../ui/toast';
 import { Wordmark } from '../ui/logo';
 import { CautionSlot } from './caution-slot';
 import { SiteFooter } from './site-footer';
@@ -14,6 +15,7 @@ interface PublicLayoutProps {
 
 /** The frame of pages used before signing in: the mark, one column, a footer. */
 export function PublicLayout({ children, footerLinks, wide = false }: PublicLayoutProps) {
+  const location = useLocation();
   return (
     <div className="flex min-h-dvh flex-col">
       <SkipLink />
@@ -26,6 +28,7 @@ export function PublicLayout({ children, footerLinks, wide = false }: PublicLayo
       </header>
       <main id="main" tabIndex={-1} className={`mx-auto w-full flex-1 px-4 py-8 outline-none sm:py-12 ${wide ? 'max-w-page' : 'max-w-xl'}`}>
         <CautionSlot />
+        <ToastOutlet pageKey={location.pathname} />
         {children}
       </main>
       <div className={`mx-auto w-full px-4 ${wide ? 'max-w-page' : 'max-w-xl'}`}>

@@ -60,6 +60,10 @@ interface DataTableProps<TRow extends RowData, TSortId extends string = string> 
   /** Server-driven mode: the table never reorders rows itself (see ServerSorting). */
   serverSorting?: ServerSorting<TSortId>;
   empty?: ReactNode;
+  /** Extra classes for a column's header and cells (e.g. sticky columns, tighter padding), by column id. */
+  columnClassName?: (columnId: string) => string | undefined;
+  /** Padding of every cell; the default suits reading, a grid of inputs wants less. */
+  cellPaddingClass?: string;
 }
 
 function SortIcon({ direction }: { direction: false | 'asc' | 'desc' }) {
@@ -89,6 +93,8 @@ export function DataTable<TRow extends RowData, TSortId extends string = string>
   serverSorting,
   empty,
   minWidthClass = 'min-w-[36rem]',
+  columnClassName,
+  cellPaddingClass = 'px-4',
 }: DataTableProps<TRow, TSortId>) {
   const captionId = useId();
   const table = useTable({
@@ -140,7 +146,7 @@ export function DataTable<TRow extends RowData, TSortId extends string = string>
                     key={header.id}
                     scope="col"
                     aria-sort={canSort ? (sorted ? ariaSort[sorted] : 'none') : undefined}
-                    className="border-b border-mortar-300 px-4 py-2 font-semibold whitespace-nowrap"
+                    className={`border-b border-mortar-300 ${cellPaddingClass} py-2 font-semibold whitespace-nowrap ${columnClassName?.(header.column.id) ?? ''}`}
                   >
                     {header.isPlaceholder ? null : canSort ? (
                       <button
@@ -171,7 +177,7 @@ export function DataTable<TRow extends RowData, TSortId extends string = string>
             rows.map((row) => (
               <tr key={row.id} className="border-b border-mortar-200 last:border-b-0 hover:bg-mortar-50">
                 {row.getAllCells().map((cell) => (
-                  <td key={cell.id} className="px-4 py-2 align-middle">
+                  <td key={cell.id} className={`${cellPaddingClass} py-2 align-middle ${columnClassName?.(cell.column.id) ?? ''}`}>
                     <table.FlexRender cell={cell} />
                   </td>
                 ))}

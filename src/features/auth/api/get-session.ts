@@ -1,20 +1,18 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { sessionBodySchema } from '../../../../shared/schemas/auth.schema';
+import { sessionAnswerSchema } from '../../../../shared/schemas/auth.schema';
 import type { SessionBody } from '../../../../shared/schemas/auth.schema';
-import { apiClient, isApiError } from '../../../lib/api-client';
+import { apiClient } from '../../../lib/api-client';
 import { setBusinessTimeZone } from '../../../lib/business-calendar';
 import { authKeys } from './keys';
 
-/** Who is signed in, or null when nobody is (a 401 is an answer here, not a failure). */
+/**
+ * Who is signed in, or null when nobody is. The server answers 200 either way, so a signed-out page
+ * makes no failed request (and the browser logs no error) just to learn that nobody is signed in.
+ */
 export async function fetchSession(signal?: AbortSignal): Promise<SessionBody | null> {
-  try {
-    const session = await apiClient.get('/api/auth/me', { schema: sessionBodySchema, signal, redirectOnUnauthenticated: false });
-    setBusinessTimeZone(session.calendar.time_zone);
-    return session;
-  } catch (error) {
-    if (isApiError(error) && error.status === 401) return null;
-    throw error;
-  }
+  const answer = await apiClient.get('/api/auth/session', { schema: sessionAnswerSchema, signal, redirectOnUnauthenticated: false });
+  if (answer.session) setBusinessTimeZone(answer.session.calendar.time_zone);
+  return answer.session;
 }
 
 export function sessionQueryOptions() {

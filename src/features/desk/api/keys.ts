@@ -21,6 +21,7 @@ export const deskKeys = {
   orders: () => [...deskKeys.all, 'orders'] as const,
   orderList: (filters: OrderBookFilters) => [...deskKeys.orders(), 'list', filters] as const,
   orderDetail: (id: number) => [...deskKeys.orders(), 'detail', id] as const,
+  substitutes: (orderId: number, lineId: number, revision: number) => [...deskKeys.orderDetail(orderId), 'substitutes', lineId, revision] as const,
   branches: () => [...deskKeys.all, 'branches'] as const,
   stock: (branchId: number) => [...deskKeys.all, 'stock', branchId] as const,
   slots: (branchId: number, date: string) => [...deskKeys.all, 'slots', branchId, date] as const,

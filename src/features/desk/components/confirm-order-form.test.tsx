@@ -27,8 +27,8 @@ const slotDay = {
   ],
 };
 
-function renderForm(available: [number, number]) {
-  const order = orderFixture();
+function renderForm(available: [number, number], over: Parameters<typeof orderFixture>[0] = {}) {
+  const order = orderFixture(over);
   const stock = new Map([
     [11, stockFixture(11, 'TRS-FL420-SG', available[0])],
     [12, stockFixture(12, 'TRS-RHR-SG', available[1])],
@@ -45,6 +45,40 @@ const sentBody = (fetchMock: ReturnType<typeof stubFetch>) => {
 };
 
 describe('ConfirmOrderForm', () => {
+  it('marks which lorries can lift and disables those that cannot for an order lifted onto the roof', async () => {
+    const withFlatbed = {
+      ...slotDay,
+      slots: [
+        ...slotDay.slots,
+        { ...slotDay.slots[0], id: 41, lorry: { id: 2, registration: 'RL-TY02', name: 'Two-axle flatbed', has_crane: false, crane_max_kg: null } },
+      ],
+    };
+    stubFetch({ [SLOTS]: { status: 200, body: withFlatbed } });
+    renderForm([50, 50], { delivery_method: 'roof' });
+    const crane = await screen.findByRole('radio', { name: /RL-TY01/ }, { timeout: 5000 });
+    const flatbed = screen.getByRole('radio', { name: /RL-TY02/ });
+    expect(crane.hasAttribute('disabled')).toBe(false);
+    expect(flatbed.hasAttribute('disabled')).toBe(true);
+    expect(screen.getByText(/crane: lifts up to 1,200 kg/)).toBeTruthy();
+    expect(screen.getByText(/no crane: cannot lift/)).toBeTruthy();
+    expect(screen.getByText(/not for this order: it needs a crane/)).toBeTruthy();
+  });
+
+  it('writes the packs free at the branch with thousands separators, as the contractor side does', async () => {
+    stubFetch({ [SLOTS]: { status: 200, body: slotDay } });
+    renderForm([56673, 1593]);
+    expect(await screen.findByText('56,673', {}, { timeout: 5000 })).toBeTruthy();
+    expect(screen.getByText('1,593')).toBeTruthy();
+    expect(screen.queryByText('56673')).toBeNull();
+  });
+
+  it('leaves a lorry without a crane open to a ground delivery', async () => {
+    const flatbedOnly = { ...slotDay, slots: [{ ...slotDay.slots[0], id: 41, lorry: { id: 2, registration: 'RL-TY02', name: 'Two-axle flatbed', has_crane: false, crane_max_kg: null } }] };
+    stubFetch({ [SLOTS]: { status: 200, body: flatbedOnly } });
+    renderForm([50, 50]);
+    expect((await screen.findByRole('radio', { name: /RL-TY02/ }, { timeout: 5000 })).hasAttribute('disabled')).toBe(false);
+  });
+
   it('starts a short line at the packs free and back-orders the rest, sending part quantities per line', async () => {
     const confirmed = orderFixture({ status: 'confirmed', allowed_actions: [] });
     const fetchMock = stubFetch({ [SLOTS]: { status: 200, body: slotDay }, 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/confirm': { status: 200, body: confirmed } });

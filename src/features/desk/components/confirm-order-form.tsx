@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { formatCount } from '../../../lib/format';
 import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Form, SubmitButton } from '../../../components/form/form';
@@ -74,8 +75,8 @@ export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
                     </label>
                     <span className="block font-mono text-xs text-ink-600">{line.sku}</span>
                   </td>
-                  <td className="px-3 py-2 text-right tabular-nums">{open}</td>
-                  <td className={`px-3 py-2 text-right tabular-nums ${short ? 'font-semibold text-brick-700' : ''}`}>{item ? item.available : '—'}</td>
+                  <td className="px-3 py-2 text-right tabular-nums">{formatCount(open)}</td>
+                  <td className={`px-3 py-2 text-right tabular-nums ${short ? 'font-semibold text-brick-700' : ''}`}>{item ? formatCount(item.available) : '—'}</td>
                   <td className="px-3 py-2">
                     <input
                       id={inputId}
@@ -106,7 +107,7 @@ export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
           </tbody>
         </table>
       </div>
-      <SlotChoices branchId={order.branch.id} initialDate={order.requested_date} allowNone />
+      <SlotChoices needsCrane={order.delivery_method === 'roof'} branchId={order.branch.id} initialDate={order.requested_date} allowNone />
       <SubmitButton>Confirm and reserve the stock</SubmitButton>
     </Form>
   );

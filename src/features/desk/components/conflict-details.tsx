@@ -1,4 +1,5 @@
 import { stockShortfallSchema } from '../../../../shared/schemas/order.schema';
+import { formatCount } from '../../../lib/format';
 import { Alert } from '../../../components/ui/alert';
 import { isApiError } from '../../../lib/api-client';
 
@@ -42,9 +43,9 @@ export function ConflictDetails({ error, descriptions }: ConflictDetailsProps) {
                 <tr key={`${s.sku}-${s.line_id}`} className="border-t border-brick-200">
                   <td className="py-1 pr-4 font-mono">{s.sku}</td>
                   <td className="py-1 pr-4">{descriptions?.get(s.sku) ?? '—'}</td>
-                  <td className="py-1 pr-4 text-right tabular-nums">{s.available}</td>
-                  <td className="py-1 pr-4 text-right tabular-nums">{s.requested}</td>
-                  <td className="py-1 text-right font-semibold tabular-nums">{s.requested - s.available}</td>
+                  <td className="py-1 pr-4 text-right tabular-nums">{formatCount(s.available)}</td>
+                  <td className="py-1 pr-4 text-right tabular-nums">{formatCount(s.requested)}</td>
+                  <td className="py-1 text-right font-semibold tabular-nums">{formatCount(s.requested - s.available)}</td>
                 </tr>
               ))}
             </tbody>

@@ -10,7 +10,8 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
-import { formatDate, formatDateTime, formatMoney } from '../../../lib/format';
+import { formatCount, formatDate, formatDateTime, formatMoney } from '../../../lib/format';
+import { OrderAmounts } from '../../../components/orders/order-amounts';
 import { useBranchStock } from '../api/get-branch-stock';
 import { ConfirmOrderForm } from './confirm-order-form';
 import { DeskStatusBadge } from './desk-status-badge';
@@ -35,7 +36,7 @@ const lineColumns = h.columns([
       </span>
     ),
   }),
-  h.accessor('quantity', { header: 'Asked', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
+  h.accessor('quantity', { header: 'Asked', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatCount(info.getValue())}</span> }),
   h.accessor((row) => row.available ?? -1, {
     id: 'available',
     header: 'Free at branch',
@@ -47,19 +48,21 @@ const lineColumns = h.columns([
       const low = reorder_level !== null && available <= reorder_level;
       return (
         <span className={`tabular-nums ${short ? 'font-semibold text-brick-700' : low ? 'text-ochre-800' : ''}`}>
-          {available}
+          {formatCount(available)}
           {short ? ' (short)' : low ? ' (low)' : ''}
         </span>
       );
     },
   }),
-  h.accessor((row) => row.confirmed_quantity ?? -1, { id: 'confirmed', header: 'Confirmed', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.row.original.confirmed_quantity ?? '—'}</span> }),
-  h.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
-  h.accessor('reserved_quantity', { header: 'Reserved', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
-  h.accessor((row) => row.delivered_quantity ?? -1, { id: 'delivered', header: 'Delivered', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.row.original.delivered_quantity ?? '—'}</span> }),
+  h.accessor('now_quantity', { header: 'This delivery', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatCount(info.getValue())}</span> }),
+  h.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
+  h.accessor('dropped_quantity', { header: 'Dropped', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
+  h.accessor('reserved_quantity', { header: 'Reserved', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
+  h.accessor((row) => row.delivered_quantity ?? -1, { id: 'delivered', header: 'Delivered', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatCount(info.row.original.delivered_quantity)}</span> }),
   h.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{ORDER_LINE_STATUS_LABELS[info.getValue()]}</span> }),
   h.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
-  h.accessor('total', { header: 'Total', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
+  h.accessor('now_total', { header: 'This delivery (£)', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
+  h.accessor('to_follow_total', { header: 'To follow (£)', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatMoney(info.getValue()) : '—'}</span> }),
 ]);
 
 /** The booked delivery, as both sides see it. */
@@ -79,7 +82,7 @@ export function BookedSlot({ slot }: { slot: NonNullable<OrderDetail['slot']> })
       <dd>{slot.driver?.name ?? 'not assigned yet'}</dd>
       <dt className="text-sm text-ink-600">Load</dt>
       <dd className="tabular-nums">
-        {Math.round(slot.weight_kg).toLocaleString('en-GB')} kg on {slot.pallets} pallets
+        {formatCount(Math.round(slot.weight_kg))} kg on {formatCount(slot.pallets)} pallets
       </dd>
     </dl>
   );
@@ -183,9 +186,7 @@ export function DeskOrderDetail({ order, invoiceAction, readOnly = false }: { or
 
       <Card title="Lines">
         <DataTable caption="Lines of the order" captionHidden columns={lineColumns} data={rows} getRowId={(line) => String(line.id)} minWidthClass="min-w-[64rem]" />
-        <p className="mt-3 text-right text-lg">
-          Subtotal: <span className="font-bold tabular-nums">{formatMoney(order.subtotal)}</span>
-        </p>
+        <OrderAmounts order={order} orderPath={(id) => `/desk/orders/${id}`} />
       </Card>
 
       <div className="grid items-start gap-6 lg:grid-cols-2">

@@ -11,7 +11,7 @@ import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import { formatDate } from '../../../lib/format';
+import { formatCount, formatDate } from '../../../lib/format';
 import { useStartFollowUp } from '../api/start-follow-up';
 
 /** A day as YYYY-MM-DD in the firm's calendar, `days` after today. */
@@ -144,7 +144,7 @@ export function FollowUpPanel({ order }: { order: OrderDetail }) {
               <tr key={line.id} className="border-t border-mortar-200">
                 <td className="px-3 py-2 font-mono">{line.sku}</td>
                 <td className="px-3 py-2">{line.description}</td>
-                <td className="px-3 py-2 text-right tabular-nums">{line.back_order_quantity}</td>
+                <td className="px-3 py-2 text-right tabular-nums">{formatCount(line.back_order_quantity)}</td>
               </tr>
             ))}
           </tbody>

@@ -1,13 +1,15 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/form';
 import { useZodForm } from '../../../components/form/use-zod-form';
 import { useToast } from '../../../components/ui/toast';
-import { formatMoney } from '../../../lib/format';
+import { formatCount, formatMoney } from '../../../lib/format';
 import { useOfferChanges } from '../api/offer-changes';
 import { confirmableLines, openPacks } from '../lib/confirm-form';
 import { offerField, offerFormSchema } from '../lib/offer-form';
+import { SubstituteFigures } from '../../../components/orders/substitute-figures';
+import { useSubstitutes } from '../api/get-substitutes';
 
 const cell = 'block min-h-tap w-20 rounded-md border border-ink-300 bg-white px-2 text-right tabular-nums aria-[invalid=true]:border-brick-600';
 
@@ -24,7 +26,6 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
       onDone?.();
     },
   });
-  const err = (name: string) => form.fieldErrors[name];
   return (
     <Form form={form} label="Offer changes">
       <div className="overflow-x-auto rounded-md border border-mortar-300 bg-white" role="region" aria-label="Changes per line" tabIndex={0}>
@@ -41,45 +42,9 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
             </tr>
           </thead>
           <tbody>
-            {lines.map((line, i) => {
-              const fields = (['send', 'back', 'sub_product', 'sub_qty'] as const).map((n) => offerField(i, n));
-              const problems = fields.map(err).filter(Boolean);
-              return (
-                <tr key={line.id} className="border-t border-mortar-200 align-top">
-                  <td className="px-3 py-2">
-                    <span className="font-medium">{line.description}</span>
-                    <span className="block font-mono text-xs text-ink-600">{line.sku}</span>
-                    {problems.map((p) => (
-                      <span key={p} className="block text-sm font-medium text-brick-700">
-                        {p}
-                      </span>
-                    ))}
-                  </td>
-                  <td className="px-3 py-2 text-right tabular-nums">{openPacks(line)}</td>
-                  <td className="px-3 py-2">
-                    <input name={fields[0]} aria-label={`Packs now of ${line.sku}`} inputMode="numeric" defaultValue={openPacks(line)} aria-invalid={err(fields[0]) ? true : undefined} className={cell} />
-                  </td>
-                  <td className="px-3 py-2">
-                    <input name={fields[1]} aria-label={`Packs to follow of ${line.sku}`} inputMode="numeric" defaultValue={0} aria-invalid={err(fields[1]) ? true : undefined} className={cell} />
-                  </td>
-                  <td className="px-3 py-2">
-                    <select name={fields[2]} aria-label={`Substitute for ${line.sku}`} defaultValue="" className="block min-h-tap max-w-64 rounded-md border border-ink-300 bg-white px-2">
-                      <option value="">No substitute</option>
-                      {stock
-                        .filter((s) => s.category === line.category && s.product_id !== line.product_id)
-                        .map((s) => (
-                          <option key={s.product_id} value={s.product_id}>
-                            {s.sku} · {s.name} ({s.available} free, {formatMoney(s.pack_price)})
-                          </option>
-                        ))}
-                    </select>
-                  </td>
-                  <td className="px-3 py-2">
-                    <input name={fields[3]} aria-label={`Packs of the substitute for ${line.sku}`} inputMode="numeric" aria-invalid={err(fields[3]) ? true : undefined} className={cell} />
-                  </td>
-                </tr>
-              );
-            })}
+            {lines.map((line, i) => (
+              <OfferLineRow key={line.id} order={order} line={line} index={i} stock={stock} errors={form.fieldErrors} />
+            ))}
           </tbody>
         </table>
       </div>
@@ -87,5 +52,90 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
       <TextField name="message" label="Message to the contractor" maxLength={2000} />
       <SubmitButton>Send the offer</SubmitButton>
     </Form>
+  );
+}
+
+type DeskLine = ReturnType<typeof confirmableLines>[number];
+
+/**
+ * One line of the offer. Substitutes come from the server with their quantity: for a tile, the
+ * engine's count for the order's own roof and the bill before and after, shown under the line; a tile
+ * that does not suit every face is listed but cannot be chosen. Other products keep pack arithmetic.
+ */
+function OfferLineRow({ order, line, index, stock, errors }: { order: OrderDetail; line: DeskLine; index: number; stock: readonly StockItem[]; errors: Record<string, string | undefined> }) {
+  const [choosing, setChoosing] = useState(false);
+  const [chosen, setChosen] = useState('');
+  const options = useSubstitutes(order.id, line.id, order.revision, choosing);
+  const fields = (['send', 'back', 'sub_product', 'sub_qty'] as const).map((n) => offerField(index, n));
+  const problems = fields.map((f) => errors[f]).filter(Boolean);
+  const option = options.data?.options.find((o) => String(o.product_id) === chosen);
+  // A different tile cannot be laid beside the ordered one: it replaces the whole line.
+  const replacesWhole = Boolean(option?.figures);
+  const free = new Map(stock.map((s) => [s.product_id, s.available]));
+  return (
+    <>
+      <tr className="border-t border-mortar-200 align-top">
+        <td className="px-3 py-2">
+          <span className="font-medium">{line.description}</span>
+          <span className="block font-mono text-xs text-ink-600">{line.sku}</span>
+          {problems.map((p) => (
+            <span key={p} className="block text-sm font-medium text-brick-700">
+              {p}
+            </span>
+          ))}
+        </td>
+        <td className="px-3 py-2 text-right tabular-nums">{formatCount(openPacks(line))}</td>
+        <td className="px-3 py-2">
+          <input key={`send-${replacesWhole}`} name={fields[0]} aria-label={`Packs now of ${line.sku}`} inputMode="numeric" defaultValue={replacesWhole ? 0 : openPacks(line)} aria-invalid={errors[fields[0]] ? true : undefined} className={cell} />
+        </td>
+        <td className="px-3 py-2">
+          <input key={`back-${replacesWhole}`} name={fields[1]} aria-label={`Packs to follow of ${line.sku}`} inputMode="numeric" defaultValue={0} aria-invalid={errors[fields[1]] ? true : undefined} className={cell} />
+        </td>
+        <td className="px-3 py-2">
+          {!choosing ? (
+            <button type="button" className="min-h-tap text-left text-clay-700 underline underline-offset-2" onClick={() => setChoosing(true)}>
+              Find a substitute for {line.sku}
+            </button>
+          ) : options.isPending ? (
+            <span className="text-sm text-ink-600" role="status">
+              Working out substitutes…
+            </span>
+          ) : options.isError ? (
+            <span className="text-sm text-brick-700">The substitutes could not be worked out; try again.</span>
+          ) : (
+            <select name={fields[2]} aria-label={`Substitute for ${line.sku}`} value={chosen} onChange={(event) => setChosen(event.target.value)} className="block min-h-tap max-w-72 rounded-md border border-ink-300 bg-white px-2">
+              <option value="">No substitute</option>
+              {options.data.options.map((o) => (
+                <option key={o.product_id} value={o.product_id} disabled={!o.suitable}>
+                  {o.sku} · {o.name} ({formatCount(free.get(o.product_id) ?? o.available)} free, {formatMoney(o.pack_price)}){o.suitable ? '' : ` — ${o.reason ?? 'not for this roof'}`}
+                </option>
+              ))}
+            </select>
+          )}
+        </td>
+        <td className="px-3 py-2">
+          <input
+            key={`qty-${chosen}`}
+            name={fields[3]}
+            aria-label={`Packs of the substitute for ${line.sku}`}
+            inputMode="numeric"
+            defaultValue={option ? String(option.quantity) : ''}
+            readOnly={replacesWhole}
+            aria-invalid={errors[fields[3]] ? true : undefined}
+            className={cell}
+          />
+        </td>
+      </tr>
+      {option?.figures ? (
+        <tr>
+          <td colSpan={6} className="px-3 pb-3">
+            <p className="mb-2 text-sm">
+              {option.sku} replaces the whole line: the engine counts {formatCount(option.quantity)} packs for this roof, and the items below change with it.
+            </p>
+            <SubstituteFigures figures={option.figures} caption={`${line.sku} and ${option.sku} side by side`} />
+          </td>
+        </tr>
+      ) : null}
+    </>
   );
 }

@@ -9,7 +9,7 @@ import { ListPager, PhoneSortSelect, keepListOrder, sortChoices, useListAddress 
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
-import { formatDate, formatMoney } from '../../../lib/format';
+import { formatCount, formatDate, formatMoney } from '../../../lib/format';
 import { useDeskBranches } from '../api/get-desk-branches';
 import { useOrderBook } from '../api/get-order-book';
 import type { OrderBookFilters } from '../api/keys';
@@ -67,7 +67,7 @@ const columns = h.columns([
     ),
   }),
   h.accessor('status', { header: 'Stage', cell: (info) => <DeskStatusBadge status={info.getValue()} /> }),
-  h.accessor('line_count', { header: 'Lines', cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
+  h.accessor('line_count', { header: 'Lines', cell: (info) => <span className="tabular-nums">{formatCount(info.getValue())}</span> }),
   h.accessor('subtotal', { header: 'Subtotal', cell: (info) => <span className="whitespace-nowrap tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('placed_at', { header: 'Placed', sortDescFirst: true, cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
   h.accessor('updated_at', { header: 'Last change', sortDescFirst: true, cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),

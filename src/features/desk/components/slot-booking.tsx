@@ -31,7 +31,7 @@ export function SlotBooking({ order }: { order: OrderDetail }) {
   return (
     <form onSubmit={onSubmit} aria-label="Book a delivery slot" className="space-y-4" noValidate>
       {problem ? <ConflictDetails error={problem} /> : null}
-      <SlotChoices branchId={order.branch.id} initialDate={order.slot?.date ?? order.requested_date} currentSlotId={order.slot?.slot_id ?? null} />
+      <SlotChoices needsCrane={order.delivery_method === 'roof'} branchId={order.branch.id} initialDate={order.slot?.date ?? order.requested_date} currentSlotId={order.slot?.slot_id ?? null} />
       {missing ? (
         <p role="alert" className="text-sm font-medium text-brick-700">
           Choose a slot first.

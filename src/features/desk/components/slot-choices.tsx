@@ -13,19 +13,22 @@ interface SlotChoicesProps {
   /** Offer "book later" as the first choice (confirming without a slot). */
   allowNone?: boolean;
   currentSlotId?: number | null;
+  /** The order is lifted onto the roof: only lorries with a crane can take it. */
+  needsCrane?: boolean;
 }
 
 /**
  * The branch's slots on a day, with what each lorry can still carry, as radio choices named
  * slot_id. The server checks this order's own weight and pallets when it books.
  */
-export function SlotChoices({ branchId, initialDate, allowNone = false, currentSlotId = null }: SlotChoicesProps) {
+export function SlotChoices({ branchId, initialDate, allowNone = false, currentSlotId = null, needsCrane = false }: SlotChoicesProps) {
   const dateId = useId();
   const [date, setDate] = useState(initialDate);
   const slots = useBranchSlots(branchId, date);
   return (
     <fieldset className="space-y-3">
       <legend className="font-semibold">Delivery slot</legend>
+      {needsCrane ? <p className="text-sm text-ink-700">This order is lifted onto the roof by the lorry crane: only lorries with a crane can take it.</p> : null}
       <div>
         <label htmlFor={dateId} className="mb-1.5 block font-medium">
           Day
@@ -48,19 +51,25 @@ export function SlotChoices({ branchId, initialDate, allowNone = false, currentS
         <ul className="space-y-2" aria-label={`Slots on ${formatDate(date)}`}>
           {slots.data.slots.map((slot) => {
             const full = slot.remaining_pallets <= 0 || slot.remaining_kg <= 0;
+            const cannotLift = needsCrane && !slot.lorry.has_crane;
+            const unavailable = (full || cannotLift) && slot.id !== currentSlotId;
             return (
               <li key={slot.id}>
-                <label className={`flex min-h-tap items-start gap-3 rounded-md border px-3 py-2 ${full ? 'border-mortar-200 bg-mortar-50 text-ink-600' : 'border-mortar-300 bg-white'}`}>
-                  <input type="radio" name="slot_id" value={slot.id} defaultChecked={slot.id === currentSlotId} disabled={full && slot.id !== currentSlotId} className="mt-1 h-5 w-5" />
+                <label className={`flex min-h-tap items-start gap-3 rounded-md border px-3 py-2 ${full || cannotLift ? 'border-mortar-200 bg-mortar-50 text-ink-600' : 'border-mortar-300 bg-white'}`}>
+                  <input type="radio" name="slot_id" value={slot.id} defaultChecked={slot.id === currentSlotId} disabled={unavailable} className="mt-1 h-5 w-5" />
                   <span>
                     <span className="font-semibold">
                       {slot.time_window} · {slot.lorry.registration}
                     </span>{' '}
-                    <span className="text-sm">{slot.lorry.name}{slot.lorry.has_crane ? `, crane up to ${kg(slot.lorry.crane_max_kg ?? 0)}` : ', no crane'}</span>
+                    <span className={`text-sm ${slot.lorry.has_crane ? 'font-medium' : ''}`}>
+                      {slot.lorry.name}
+                      {slot.lorry.has_crane ? `, crane: lifts up to ${kg(slot.lorry.crane_max_kg ?? 0)}` : ', no crane: cannot lift'}
+                    </span>
                     <span className="block text-sm tabular-nums">
                       {kg(slot.remaining_kg)} of {kg(slot.payload_kg)} left · {slot.remaining_pallets} of {slot.pallet_slots} pallet slots left
                       {slot.driver ? ` · driver ${slot.driver.name}` : ' · no driver yet'}
                       {full ? ' · full' : ''}
+                      {cannotLift ? ' · not for this order: it needs a crane' : ''}
                     </span>
                   </span>
                 </label>

@@ -56,7 +56,7 @@ describe('SlotCalendar', () => {
       'PATCH /api/slots/21': { status: 409, body: { error: { code: 'slot_exists', message: `TY61 KRB already has a slot on ${today} at 12:30-16:30` } } },
     });
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
-    fireEvent.click(await screen.findByRole('button', { name: 'Change 07:30-12:00 TY61 KRB' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Change the time window or driver of 07:30-12:00 TY61 KRB' }));
     const item = await slotItem();
     const form = within(item).getByRole('form', { name: 'Change the slot 07:30-12:00 of TY61 KRB' });
     await within(form).findByRole('option', { name: 'Sol Brant' });
@@ -74,7 +74,7 @@ describe('SlotCalendar', () => {
       'PATCH /api/slots/21': { status: 200, body: { ...slot, driver: null } },
     });
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
-    fireEvent.click(await screen.findByRole('button', { name: 'Change 07:30-12:00 TY61 KRB' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Change the time window or driver of 07:30-12:00 TY61 KRB' }));
     const item = await slotItem();
     const form = within(item).getByRole('form', { name: 'Change the slot 07:30-12:00 of TY61 KRB' });
     fireEvent.change(within(form).getByLabelText('Driver'), { target: { value: '' } });
@@ -87,7 +87,7 @@ describe('SlotCalendar', () => {
   it('sends nothing when the change form is saved unchanged, and says so', async () => {
     const fetchMock = stubFetch({ ...base, [dayUrl]: day([slot]) });
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
-    fireEvent.click(await screen.findByRole('button', { name: 'Change 07:30-12:00 TY61 KRB' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Change the time window or driver of 07:30-12:00 TY61 KRB' }));
     const item = await slotItem();
     fireEvent.click(within(item).getByRole('button', { name: 'Save the slot' }));
     expect(await within(item).findByText(/Nothing is changed yet/)).toBeTruthy();
@@ -97,7 +97,7 @@ describe('SlotCalendar', () => {
   it('asks before removing a slot, then removes it with DELETE and the day no longer lists it', async () => {
     const fetchMock = stubFetch({ ...base, [dayUrl]: [day([slot]), day([])], 'DELETE /api/slots/21': { status: 204 } });
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
-    fireEvent.click(await screen.findByRole('button', { name: 'Remove 07:30-12:00 TY61 KRB' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Remove the slot 07:30-12:00 TY61 KRB' }));
     expect(screen.getByText(/Nothing is booked on it/)).toBeTruthy();
     expect(sent(fetchMock, 'DELETE', '/api/slots/21')).toHaveLength(0);
     fireEvent.click(screen.getByRole('button', { name: 'Remove the slot' }));
@@ -114,7 +114,7 @@ describe('SlotCalendar', () => {
       'DELETE /api/slots/21': { status: 409, body: { error: { code: 'slot_booked', message: 'Orders are booked into this slot: move them first' } } },
     });
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
-    fireEvent.click(await screen.findByRole('button', { name: 'Remove 07:30-12:00 TY61 KRB' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Remove the slot 07:30-12:00 TY61 KRB' }));
     const item = await slotItem();
     expect(within(item).getByText(/One order is booked on it/)).toBeTruthy();
     fireEvent.click(within(item).getByRole('button', { name: 'Remove the slot' }));

@@ -110,11 +110,11 @@ function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: numb
                 </option>
               ))}
             </select>
-            <Button variant="secondary" aria-label={`Change ${named}`} aria-expanded={panel === 'change'} onClick={() => setPanel((p) => (p === 'change' ? null : 'change'))}>
-              Change
+            <Button variant="secondary" aria-label={`Change the time window or driver of ${named}`} aria-expanded={panel === 'change'} onClick={() => setPanel((p) => (p === 'change' ? null : 'change'))}>
+              Change time or driver
             </Button>
-            <Button variant="secondary" aria-label={`Remove ${named}`} aria-expanded={panel === 'remove'} onClick={() => setPanel((p) => (p === 'remove' ? null : 'remove'))}>
-              Remove
+            <Button variant="secondary" aria-label={`Remove the slot ${named}`} aria-expanded={panel === 'remove'} onClick={() => setPanel((p) => (p === 'remove' ? null : 'remove'))}>
+              Remove slot
             </Button>
           </div>
         ) : (

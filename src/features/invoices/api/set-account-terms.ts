@@ -3,17 +3,20 @@ import { accountSchema } from '../../../../shared/schemas/invoice.schema';
 import { apiClient } from '../../../lib/api-client';
 import { accountKeys } from './account-keys';
 
-/** Terms in days from the invoice date to the due date; null removes the account (the contractor pays by card). */
-export function setAccountTerms(contractorId: number, termsDays: number | null) {
-  return termsDays === null
+/**
+ * Terms in days from the invoice date to the due date, and whether account invoices may be paid by
+ * card too; null removes the account (the contractor pays by card).
+ */
+export function setAccountTerms(contractorId: number, terms: { terms_days: number; card_payments?: boolean } | null) {
+  return terms === null
     ? apiClient.delete(`/api/accounts/${contractorId}`, { schema: accountSchema })
-    : apiClient.put(`/api/accounts/${contractorId}`, { body: { terms_days: termsDays }, schema: accountSchema });
+    : apiClient.put(`/api/accounts/${contractorId}`, { body: terms, schema: accountSchema });
 }
 
 export function useSetAccountTerms(contractorId: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (termsDays: number | null) => setAccountTerms(contractorId, termsDays),
+    mutationFn: (terms: { terms_days: number; card_payments?: boolean } | null) => setAccountTerms(contractorId, terms),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: accountKeys.lists() }),
   });
 }

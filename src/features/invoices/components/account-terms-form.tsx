@@ -13,7 +13,7 @@ const termsFormSchema = z
   .record(z.string(), z.string())
   .transform((values): unknown => {
     const t = (values.terms_days ?? '').trim();
-    return { terms_days: /^-?\d+$/.test(t) ? Number(t) : t === '' ? undefined : t };
+    return { terms_days: /^-?\d+$/.test(t) ? Number(t) : t === '' ? undefined : t, card_payments: values.card_payments === 'on' };
   })
   .pipe(putAccountBodySchema);
 
@@ -23,9 +23,9 @@ export function AccountTermsForm({ account }: { account: Account }) {
   const toast = useToast();
   const form = useZodForm({
     schema: termsFormSchema,
-    onSubmit: async ({ terms_days }) => {
-      await setTerms.mutateAsync(terms_days);
-      toast.show(`${account.contractor.name} now has ${terms_days} days to pay.`, 'success');
+    onSubmit: async (terms) => {
+      await setTerms.mutateAsync(terms);
+      toast.show(`${account.contractor.name} now has ${terms.terms_days} days to pay${terms.card_payments ? ', or may pay by card' : ', on account only'}.`, 'success');
     },
   });
   return (
@@ -37,6 +37,10 @@ export function AccountTermsForm({ account }: { account: Account }) {
         defaultValue={account.terms_days === null ? '' : String(account.terms_days)}
         className="w-40 [&_label]:sr-only"
       />
+      <label className="flex min-h-tap items-center gap-2">
+        <input type="checkbox" name="card_payments" defaultChecked={account.card_payments} className="h-5 w-5 accent-clay-600" />
+        May also pay by card
+      </label>
       <SubmitButton>Set terms</SubmitButton>
       {account.terms_days !== null ? (
         <Button

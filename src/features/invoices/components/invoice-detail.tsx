@@ -5,7 +5,7 @@ import { Alert } from '../../../components/ui/alert';
 import { buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
-import { formatDate, formatDateTime, formatMoney } from '../../../lib/format';
+import { formatCount, formatDate, formatDateTime, formatMoney } from '../../../lib/format';
 import { invoicePrintUrl, invoiceXlsxUrl } from '../api/keys';
 import { CreditNoteForm } from './credit-note-form';
 import { PayByCard } from './pay-by-card';
@@ -24,13 +24,13 @@ const columns = h.columns([
       </span>
     ),
   }),
-  h.accessor('quantity', { header: 'Packs', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
+  h.accessor('quantity', { header: 'Packs', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatCount(info.getValue())}</span> }),
   h.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('net', { header: 'Net', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('tax_rate_bp', { header: 'Tax rate', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{(info.getValue() / 100).toLocaleString('en-GB')} %</span> }),
   h.accessor('tax', { header: 'Tax', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('total', { header: 'Total', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
-  h.accessor('credited_quantity', { header: 'Credited', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
+  h.accessor('credited_quantity', { header: 'Credited', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
 ]);
 
 interface InvoiceDetailProps {
@@ -105,8 +105,13 @@ export function InvoiceDetail({ invoice, canCredit, canPay, returned, orderPath 
         </dl>
       </Card>
 
-      {canPay && invoice.pay_by === 'card' ? (
+      {canPay && invoice.card_payment ? (
         <Card title="Pay">
+          {invoice.pay_by === 'account' && invoice.balance > 0 ? (
+            <p className="mb-3 text-ink-700">
+              This invoice is on your account: pay by the due date{invoice.due_date ? ` (${formatDate(invoice.due_date)})` : ''} as usual, or by card now if you prefer.
+            </p>
+          ) : null}
           <PayByCard invoice={invoice} returned={returned} />
         </Card>
       ) : canPay && invoice.balance > 0 ? (

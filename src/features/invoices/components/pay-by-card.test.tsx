@@ -43,6 +43,7 @@ function invoice(overrides: Partial<Invoice> = {}): Invoice {
     lines: [],
     credit_notes: [],
     payments: [],
+    card_payment: true,
     created_at: '2027-03-02 09:00:00',
     ...overrides,
   } as Invoice;

@@ -36,7 +36,7 @@ describe('OrderDetail (contractor) and back-ordered packs', () => {
     stubFetch({});
     renderWithProviders(<OrderDetail order={contractorOrder({ followed_by: { id: 7, reference: 'RL-000007', status: 'agreed', status_label: 'Changes agreed, waiting for confirmation' } })} />);
     expect(linked()?.textContent).toContain('The back-ordered packs follow as RL-000007 (Changes agreed, waiting for confirmation)');
-    expect(screen.getByRole('link', { name: 'RL-000007' }).getAttribute('href')).toBe('/orders/7');
+    expect(within(linked()!).getByRole('link', { name: 'RL-000007' }).getAttribute('href')).toBe('/orders/7');
     expect(linked()?.textContent).not.toContain('separate order');
   });
 
@@ -56,5 +56,55 @@ describe('OrderDetail (contractor) and back-ordered packs', () => {
     unmount();
     renderWithProviders(<OrderDetail order={contractorOrder({ status: 'turned_down', status_label: 'Turned down by the merchant' })} />);
     expect(linked()).toBeNull();
+  });
+});
+
+describe('OrderDetail (contractor) and a substitute tile offered by the desk', () => {
+  it('shows the engine’s bill side by side, with the price difference, before the contractor accepts', () => {
+    stubFetch({});
+    const figures = {
+      engine_version: '1.4.0',
+      tile: { sku: 'TRS-KP265-BR', description: 'Clay plain tile', kind: 'double_lap', lowest_pitch_deg: 35 },
+      refused_faces: [],
+      rows: [
+        { role: 'tile', label: 'Tiles', changes: true, before: { product_id: 11, sku: 'TRS-FL420-SG', description: 'Interlocking tile, slate grey', quantity: 800, unit: 'tile', packs: 800, unit_price: 128, total: 102_400 }, after: { product_id: 16, sku: 'TRS-KP265-BR', description: 'Clay plain tile', quantity: 5_120, unit: 'tile', packs: 5_120, unit_price: 74, total: 378_880 } },
+        { role: 'batten', label: 'Battens', changes: true, before: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten', quantity: 50, unit: 'length', packs: 50, unit_price: 440, total: 22_000 }, after: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten', quantity: 170, unit: 'length', packs: 170, unit_price: 440, total: 74_800 } },
+      ],
+      not_counted: [],
+      before_total: 124_400,
+      after_total: 453_680,
+      price_difference_minor: 329_280,
+    };
+    const proposal = {
+      id: 3,
+      status: 'open' as const,
+      order_revision: 1,
+      message: 'Slate grey is out; plain tiles suit your roof.',
+      proposed_date: null,
+      proposed_time_window: null,
+      proposed_slot_id: null,
+      proposed_at: '2027-02-21 09:00:00',
+      proposed_by: { id: 2, name: 'Nia Corrow' },
+      answered_at: null,
+      answered_by: null,
+      lines: [
+        {
+          order_line_id: 101,
+          sku: 'TRS-FL420-SG',
+          description: 'Interlocking tile, slate grey',
+          quantity: 10,
+          confirmed_quantity: 0,
+          back_order_quantity: 0,
+          substitute: { product_id: 16, sku: 'TRS-KP265-BR', description: 'Clay plain tile', unit: 'tile', pack_size: 1, quantity: 5_120, unit_price: 74, total: 378_880, figures },
+          note: '',
+        },
+      ],
+    };
+    renderWithProviders(<OrderDetail order={contractorOrder({ status: 'changes_offered', status_label: 'Changes offered', proposals: [proposal], allowed_actions: ['accept_changes', 'decline_changes'] })} />);
+    const table = screen.getByRole('table', { name: 'TRS-FL420-SG and TRS-KP265-BR side by side' });
+    expect(within(table).getByText('Battens')).toBeTruthy();
+    expect(within(table).getByText(/5,120 tile · 5,120 packs · £3,788.80/)).toBeTruthy();
+    expect(within(table).getByTestId('price-difference').textContent).toBe('(+£3,292.80)');
+    expect(screen.getByRole('button', { name: 'Accept the changes' })).toBeTruthy();
   });
 });

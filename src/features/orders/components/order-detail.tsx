@@ -1,7 +1,7 @@
 import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { DELIVERY_METHOD_LABELS, ORDER_LINE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
-import type { Order, OrderDetail as OrderDetailData, OrderLine, Proposal } from '../../../../shared/schemas/order.schema';
+import type { Order, OrderDetail as OrderDetailData, Proposal } from '../../../../shared/schemas/order.schema';
 import { Alert, errorMessage } from '../../../components/ui/alert';
 import { BackOrderLinks } from '../../../components/orders/back-order-links';
 import { OrderSiteDetails } from '../../../components/orders/order-site-details';
@@ -12,10 +12,12 @@ import { useToast } from '../../../components/ui/toast';
 import { formatDate, formatDateTime } from '../../../lib/format';
 import { useAnswerProposal } from '../api/answer-proposal';
 import { useCancelOrder } from '../api/cancel-order';
-import { formatMoney } from '../../../lib/format';
+import { formatCount, formatMoney } from '../../../lib/format';
+import { OrderAmounts } from '../../../components/orders/order-amounts';
+import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { OrderStages, OrderStatusBadge } from './order-status';
 
-const lineHelper = dataTableColumns<OrderLine>();
+const lineHelper = dataTableColumns<OrderDetailData['lines'][number]>();
 const lineColumns = lineHelper.columns([
   lineHelper.accessor('description', {
     header: 'Item',
@@ -32,20 +34,17 @@ const lineColumns = lineHelper.columns([
     sortFn: 'alphanumeric',
     cell: (info) => (
       <span className="whitespace-nowrap tabular-nums">
-        {info.getValue().toLocaleString('en-GB')} {info.row.original.pack_size > 1 ? `× ${info.row.original.pack_size}` : ''}
+        {formatCount(info.getValue())} {info.row.original.pack_size > 1 ? `× ${formatCount(info.row.original.pack_size)}` : ''}
       </span>
     ),
   }),
-  lineHelper.accessor((row) => row.confirmed_quantity ?? -1, {
-    id: 'confirmed',
-    header: 'Agreed',
-    sortFn: 'alphanumeric',
-    cell: (info) => <span className="tabular-nums">{info.row.original.confirmed_quantity === null ? '—' : info.row.original.confirmed_quantity.toLocaleString('en-GB')}</span>,
-  }),
-  lineHelper.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() || '—'}</span> }),
+  lineHelper.accessor('now_quantity', { header: 'This delivery', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatCount(info.getValue())}</span> }),
+  lineHelper.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
+  lineHelper.accessor('dropped_quantity', { header: 'Dropped', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
   lineHelper.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{ORDER_LINE_STATUS_LABELS[info.getValue()]}</span> }),
   lineHelper.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
-  lineHelper.accessor('total', { header: 'Total', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
+  lineHelper.accessor('now_total', { header: 'This delivery (£)', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
+  lineHelper.accessor('to_follow_total', { header: 'To follow (£)', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatMoney(info.getValue()) : '—'}</span> }),
 ]);
 
 function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal }) {
@@ -92,6 +91,14 @@ function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal })
               {line.back_order_quantity > 0 ? `, ${line.back_order_quantity} to follow` : ''}
               {line.substitute ? `; offered instead: ${line.substitute.quantity} × ${line.substitute.description} at ${formatMoney(line.substitute.unit_price)} (${formatMoney(line.substitute.total)})` : ''}
               {line.note ? ` — ${line.note}` : ''}
+              {line.substitute?.figures ? (
+                <div className="mt-2">
+                  <p className="mb-2 text-sm">
+                    {line.substitute.sku} replaces {line.sku} on the whole roof. The engine worked the order's roof out again with it; check the bill side by side before you accept.
+                  </p>
+                  <SubstituteFigures figures={line.substitute.figures} caption={`${line.sku} and ${line.substitute.sku} side by side`} />
+                </div>
+              ) : null}
             </li>
           ))}
         </ul>
@@ -289,9 +296,7 @@ export function OrderDetail({ order }: { order: OrderDetailData }) {
 
       <Card title="Lines">
         <DataTable caption="Lines of the order" captionHidden columns={lineColumns} data={order.lines} getRowId={(line) => String(line.id)} minWidthClass="min-w-[48rem]" />
-        <p className="mt-3 text-right text-lg">
-          Subtotal: <span className="font-bold tabular-nums">{formatMoney(order.subtotal)}</span>
-        </p>
+        <OrderAmounts order={order} orderPath={(id) => `/orders/${id}`} />
       </Card>
 
       {pastProposals.length > 0 ? (

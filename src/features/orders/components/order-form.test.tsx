@@ -32,6 +32,14 @@ const fieldError = (label: string) => {
 };
 
 describe('OrderForm', () => {
+  it('starts with the delivery window blank (any time in the working day), so no window goes out that nobody chose', () => {
+    stubFetch({});
+    renderForm();
+    expect((screen.getByLabelText('Window from') as HTMLInputElement).value).toBe('');
+    expect((screen.getByLabelText('Window to') as HTMLInputElement).value).toBe('');
+    expect(screen.getByText('Leave both window times blank for any time in the working day.')).toBeTruthy();
+  });
+
   it('asks for the day before sending anything', async () => {
     const fetchMock = stubFetch({});
     renderForm();
@@ -75,6 +83,8 @@ describe('OrderForm', () => {
     });
     renderForm();
     fireEvent.change(screen.getByLabelText('Day wanted'), { target: { value: '2027-03-01' } });
+    fireEvent.change(screen.getByLabelText('Window from'), { target: { value: '07:30' } });
+    fireEvent.change(screen.getByLabelText('Window to'), { target: { value: '12:00' } });
     fireEvent.change(screen.getByLabelText('Packs of Interlocking tile, slate grey'), { target: { value: '23000' } });
     fireEvent.click(screen.getByLabelText('Order Batten nails, box of 1000'));
     fireEvent.change(screen.getByLabelText('Your PO reference'), { target: { value: 'HB-114' } });

@@ -190,7 +190,8 @@ export function OrderForm({ target, branchName, lines, site, current, onDone }: 
   useEffect(readLines, [readLines]);
 
   const subtotal = lines.reduce((sum, option, i) => sum + (packs[i] && option.unit_price !== null ? packs[i]! * option.unit_price : 0), 0);
-  const [from, to] = splitWindow(current ? current.time_window : '07:30-12:00');
+  // A new order starts with no window: a window nobody chose would go out as if the contractor asked for it.
+  const [from, to] = splitWindow(current?.time_window);
 
   return (
     <Form form={form} label={target.mode === 'place' ? `Order from ${branchName}` : 'Amend the order'} className="space-y-6">

@@ -19,8 +19,20 @@ function Row({ term, children }: { term: string; children: ReactNode }) {
   );
 }
 
-/** Where the site is and who to ring. */
-export function ProjectContactCard({ project }: { project: Project }) {
+/**
+ * The buildings of a site: those entered on the site, then any more the roof schedule names (each
+ * face row names its building), so an imported schedule's buildings always show.
+ */
+export function siteBuildings(project: Pick<Project, 'buildings'>, scheduleBuildings: readonly string[] = []): string[] {
+  const named = project.buildings.map((b) => `${b.name}${b.kind === 'plot' ? ' (plot)' : ''}`);
+  const known = new Set(project.buildings.map((b) => b.name.trim().toLowerCase()));
+  const fromSchedule = [...new Set(scheduleBuildings.map((b) => b.trim()).filter(Boolean))].filter((b) => !known.has(b.toLowerCase()));
+  return [...named, ...fromSchedule];
+}
+
+/** Where the site is and who to ring; `scheduleBuildings` are the buildings the site's roof schedule names. */
+export function ProjectContactCard({ project, scheduleBuildings = [] }: { project: Project; scheduleBuildings?: readonly string[] }) {
+  const buildings = siteBuildings(project, scheduleBuildings);
   return (
     <Card title="Site and contact">
       <dl className="grid grid-cols-[minmax(7rem,auto)_1fr] gap-x-6 gap-y-2">
@@ -37,9 +49,7 @@ export function ProjectContactCard({ project }: { project: Project }) {
             </a>
           ) : null}
         </Row>
-        <Row term="Buildings">
-          {project.buildings.length > 0 ? project.buildings.map((b) => `${b.name}${b.kind === 'plot' ? ' (plot)' : ''}`).join(', ') : null}
-        </Row>
+        <Row term="Buildings">{buildings.length > 0 ? buildings.join(', ') : null}</Row>
       </dl>
     </Card>
   );

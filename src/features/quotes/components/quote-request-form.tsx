@@ -82,8 +82,8 @@ export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, 
         <div className="space-y-4">
           <div className="grid gap-4 sm:grid-cols-3">
             <TextField name="requested_date" label="Day wanted" type="date" min={businessCalendar().today()} />
-            <TextField name="time_window" label="Window from" type="time" defaultValue="07:30" />
-            <TextField name="time_window_to" label="Window to" type="time" defaultValue="12:00" />
+            <TextField name="time_window" label="Window from" type="time" />
+            <TextField name="time_window_to" label="Window to" type="time" />
           </div>
           <p className="-mt-2 text-sm text-ink-600">Leave both window times blank for any time in the working day.</p>
           <RadioGroupField

@@ -1,17 +1,15 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { scheduleResponseSchema } from '../../../../shared/schemas/schedule-upload.schema';
 import type { ScheduleResponse } from '../../../../shared/schemas/schedule-upload.schema';
-import { apiClient, isApiError } from '../../../lib/api-client';
+import { apiClient } from '../../../lib/api-client';
 import { scheduleKeys } from './keys';
 
-/** The schedule in use on a site, or null before the first import (the server answers 404 no_schedule). */
+/**
+ * The schedule in use on a site, or null before the first import. Asked with optional=1, so the server
+ * answers null rather than 404 and the page logs no failed request.
+ */
 export async function fetchCurrentSchedule(projectId: number, signal?: AbortSignal): Promise<ScheduleResponse | null> {
-  try {
-    return await apiClient.get(`/api/projects/${projectId}/schedule`, { schema: scheduleResponseSchema, signal });
-  } catch (error) {
-    if (isApiError(error) && error.code === 'no_schedule') return null;
-    throw error;
-  }
+  return apiClient.get(`/api/projects/${projectId}/schedule?optional=1`, { schema: scheduleResponseSchema.nullable(), signal });
 }
 
 export function currentScheduleQueryOptions(projectId: number) {

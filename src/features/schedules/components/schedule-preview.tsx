@@ -1,4 +1,5 @@
 import { createContext, useContext, useEffect, useId, useMemo, useState } from 'react';
+import type { CSSProperties } from 'react';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import type { DataTableColumn } from '../../../components/ui/data-table';
 import { Button } from '../../../components/ui/button';
@@ -19,14 +20,40 @@ interface PreviewState {
   byRow: Map<number, string[]>;
   idPrefix: string;
   onCellChange: (row: number, column: number, value: string) => void;
+  /** Each column's width in characters. */
+  widths: number[];
 }
 
 const PreviewContext = createContext<PreviewState | null>(null);
+
+const STICKY_ROW = 'sticky left-0 z-10 bg-white';
+/** The row column is 4rem wide plus 1rem of padding. */
+const STICKY_FIRST = 'sticky left-20 z-10 bg-white';
+const STICKY_SECOND = 'sticky left-(--face-left) z-10 bg-white shadow-[1px_0_0_var(--color-mortar-300)]';
 
 function usePreview(): PreviewState {
   const state = useContext(PreviewContext);
   if (!state) throw new Error('Preview cells need the preview around them');
   return state;
+}
+
+/** Width of each column in characters: its longest value, between 5 and 40, plus room for padding. */
+export function columnWidths(rows: readonly (readonly string[])[], width: number): number[] {
+  return Array.from({ length: width }, (_, c) => Math.min(40, Math.max(5, ...rows.map((r) => (r[c] ?? '').length))) + 3);
+}
+
+/**
+ * The columns that say which face a row is (building, face) when they lead the file: they stay in
+ * view while the rest scrolls sideways. Only leading columns can stay put without covering others.
+ */
+export function stickyColumns(header: readonly string[]): number[] {
+  const names = header.map((h) => normaliseHeaderCell(h));
+  const out: number[] = [];
+  for (let c = 0; c < Math.min(2, names.length); c++) {
+    if (names[c] === 'building' || names[c] === 'face') out.push(c);
+    else break;
+  }
+  return out;
 }
 
 export function cellInputId(prefix: string, row: number, column: number): string {
@@ -37,10 +64,10 @@ function RowHeader({ row }: { row: number }) {
   const { byRow, idPrefix } = usePreview();
   const messages = byRow.get(row);
   return (
-    <div className="min-w-12">
+    <div className="w-16">
       <span className={`font-mono text-sm font-semibold ${messages ? 'text-brick-700' : 'text-ink-600'}`}>{row}</span>
       {messages ? (
-        <ul id={`${idPrefix}-row-${row}-msg`} className="mt-1 max-w-56 space-y-0.5 text-xs font-medium text-brick-700">
+        <ul id={`${idPrefix}-row-${row}-msg`} className="mt-1 space-y-0.5 text-xs font-medium break-words text-brick-700">
           {messages.map((message) => (
             <li key={message}>{message}</li>
           ))}
@@ -51,7 +78,7 @@ function RowHeader({ row }: { row: number }) {
 }
 
 function CellInput({ row, column }: { row: number; column: number }) {
-  const { grid, byCell, byRow, idPrefix, onCellChange } = usePreview();
+  const { grid, byCell, byRow, idPrefix, onCellChange, widths } = usePreview();
   const value = grid.rows[row - 1]?.[column] ?? '';
   const messages = byCell.get(cellKey(row, column));
   const header = row === 1 ? null : (grid.rows[0]?.[column] ?? '').trim();
@@ -60,7 +87,7 @@ function CellInput({ row, column }: { row: number; column: number }) {
   const describedBy = [messages ? messageId : null, byRow.has(row) ? `${idPrefix}-row-${row}-msg` : null].filter(Boolean).join(' ') || undefined;
   const isHeader = row === 1;
   return (
-    <div className="min-w-24">
+    <div style={{ width: `${widths[column] ?? 6}ch` }}>
       <input
         id={id}
         value={value}
@@ -77,7 +104,7 @@ function CellInput({ row, column }: { row: number; column: number }) {
         ].join(' ')}
       />
       {messages ? (
-        <p id={messageId} className="mt-1 max-w-64 text-xs font-medium text-brick-700" data-testid="cell-problem">
+        <p id={messageId} className="mt-1 text-xs font-medium break-words text-brick-700" data-testid="cell-problem">
           {messages.join('; ')}
         </p>
       ) : null}
@@ -154,7 +181,7 @@ export function SchedulePreview({ grid, check, checking, onCellChange }: Schedul
     const id = focusTarget.column === null ? null : cellInputId(idPrefix, focusTarget.row, focusTarget.column);
     const element = id ? document.getElementById(id) : document.getElementById(cellInputId(idPrefix, focusTarget.row, 0));
     element?.focus();
-    element?.scrollIntoView?.({ block: 'center' });
+    element?.scrollIntoView?.({ block: 'center', inline: 'center' });
     setFocusTarget(null);
   }, [focusTarget, idPrefix, visible]);
 
@@ -171,7 +198,10 @@ export function SchedulePreview({ grid, check, checking, onCellChange }: Schedul
     setFocusTarget({ row: problem.row, column: problem.column });
   }
 
-  const state = useMemo(() => ({ grid, byCell, byRow, idPrefix, onCellChange }), [grid, byCell, byRow, idPrefix, onCellChange]);
+  // Each column as wide as its longest value (in characters, with room for the input's padding).
+  const widths = useMemo(() => columnWidths(grid.rows, width), [grid.rows, width]);
+  const sticky = useMemo(() => stickyColumns(grid.rows[0] ?? []), [grid.rows]);
+  const state = useMemo(() => ({ grid, byCell, byRow, idPrefix, onCellChange, widths }), [grid, byCell, byRow, idPrefix, onCellChange, widths]);
   const placed = check.problems.filter((p) => p.row !== null && (p.row > 1 || p.column !== null));
   const faceRows = grid.rows.length - 1;
 
@@ -239,14 +269,19 @@ export function SchedulePreview({ grid, check, checking, onCellChange }: Schedul
           </p>
         </div>
 
-        <DataTable
-          caption="The schedule file: row 1 is the header; every cell can be edited"
-          captionHidden
-          columns={columns}
-          data={visible}
-          getRowId={(row) => String(row.row)}
-          minWidthClass="min-w-max"
-        />
+        {/* The row number and the leading building and face columns stay in view while the grid scrolls sideways. */}
+        <div style={{ '--face-left': `calc(5rem + ${widths[0] ?? 0}ch + 1rem)` } as CSSProperties}>
+          <DataTable
+            caption="The schedule file: row 1 is the header; every cell can be edited"
+            captionHidden
+            columns={columns}
+            data={visible}
+            getRowId={(row) => String(row.row)}
+            minWidthClass="min-w-max"
+            cellPaddingClass="px-2"
+            columnClassName={(id) => (id === 'row' ? STICKY_ROW : id === 'c0' && sticky.includes(0) ? STICKY_FIRST : id === 'c1' && sticky.includes(1) ? STICKY_SECOND : undefined)}
+          />
+        </div>
 
         {pages > 1 ? (
           <nav aria-label="Pages of the preview" className="flex flex-wrap items-center gap-3">
