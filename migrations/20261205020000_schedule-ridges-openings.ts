@@ -8,9 +8,9 @@ import type { Knex } from 'knex';
  */
 export async function up(knex: Knex): Promise<void> {
   await knex.raw('ALTER TABLE schedule_faces ADD COLUMN ridge VARCHAR(100) NULL');
-  await knex.raw('ALTER TABLE schedule_faces ADD COLUMN top_assumed BOOLEAN NOT NULL DEFAULT 0');
+  await knex.raw('ALTER TABLE schedule_faces ADD COLUMN top_assumed BOOLEAN NOT NULL DEFAULT FALSE');
   await knex.raw(
-    "UPDATE schedule_faces SET top_assumed = 1 WHERE top_mm = eaves_mm AND (left_edge IN ('hip', 'valley') OR right_edge IN ('hip', 'valley'))",
+    "UPDATE schedule_faces SET top_assumed = TRUE WHERE top_mm = eaves_mm AND (left_edge IN ('hip', 'valley') OR right_edge IN ('hip', 'valley'))",
   );
   await knex.schema.createTable('schedule_openings', (t) => {
     t.increments('id').primary();

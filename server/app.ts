@@ -169,7 +169,11 @@ export function createApp(deps: AppDeps): Express {
   if (existsSync(join(CLIENT_DIR, 'index.html'))) {
     app.use(clientAssets(CLIENT_DIR));
     // The page itself is checked again on every visit, so a new build reaches people at once.
-    app.get('/{*splat}', (_req, res) => res.sendFile(join(CLIENT_DIR, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }));
+    // Pages are the app's own addresses; a file name that is not in the build is simply not there.
+    app.get('/{*splat}', (req, res, next) => {
+      if (/\.[a-z0-9]{1,8}$/i.test(req.path)) return next();
+      res.sendFile(join(CLIENT_DIR, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } });
+    });
   }
 
   app.use(errorHandler);

@@ -28,6 +28,9 @@ export type EndpointHandler<P, Q, B> = (req: Request, res: Response, valid: Vali
 const TEXT_PARAMS = new Set(['token']);
 /** A record id as people and the client write it: plain decimal digits, no sign, no leading zero, no 0x or 1e0. */
 const PLAIN_ID = /^[1-9][0-9]{0,14}$/;
+/** Positions (a pallet's place in a run's deck plan) count from 0. */
+const PLAIN_INDEX = /^(0|[1-9][0-9]{0,5})$/;
+const INDEX_PARAMS = new Set(['index']);
 /** C0 control characters and DEL. */
 const isControl = (code: number) => code < 0x20 || code === 0x7f;
 /** Tab, line feed and carriage return: kept in body text (notes, addresses), never in a query. */
@@ -62,7 +65,9 @@ function invalidField(path: string, message: string) {
  */
 export function checkRequestShape(req: Request): void {
   for (const [name, value] of Object.entries(req.params ?? {})) {
-    if (!TEXT_PARAMS.has(name) && (typeof value !== 'string' || !PLAIN_ID.test(value))) throw AppError.notFound();
+    if (TEXT_PARAMS.has(name)) continue;
+    const plain = INDEX_PARAMS.has(name) ? PLAIN_INDEX : PLAIN_ID;
+    if (typeof value !== 'string' || !plain.test(value)) throw AppError.notFound();
   }
   for (const [name, raw] of Object.entries((req.query ?? {}) as Record<string, unknown>)) {
     for (const value of Array.isArray(raw) ? raw : [raw]) {

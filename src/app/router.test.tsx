@@ -127,11 +127,11 @@ describe('app routes', () => {
   });
 
   it('opens the yard’s day plan to the merchant owner from the navigation, and sends the desk home', async () => {
-    const { router } = renderApp('/yard', { 'GET /api/auth/me': { status: 200, body: sessionFor('merchant_owner') } });
+    const { router } = renderApp('/yard', { 'GET /api/auth/session': { status: 200, body: { session: sessionFor('merchant_owner') } } });
     expect(await screen.findByRole('heading', { level: 1, name: 'Yard and transport' })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/yard');
     expect(screen.getByRole('navigation', { name: 'Main' }).querySelector('a[href="/yard"]')?.textContent).toContain('Yard day plan');
-    const desk = renderApp('/yard', { 'GET /api/auth/me': { status: 200, body: sessionFor('merchant_sales') } });
+    const desk = renderApp('/yard', { 'GET /api/auth/session': { status: 200, body: { session: sessionFor('merchant_sales') } } });
     await waitFor(() => expect(desk.router.state.location.pathname).toBe('/desk'));
   });
 
@@ -142,7 +142,7 @@ describe('app routes', () => {
       slot: { slot_id: 21, date: '2027-03-01', time_window: '07:30-12:00', lorry: { id: 4, registration: 'TY61 KRB', has_crane: true }, driver: null, weight_kg: 2_400, pallets: 2, booked_at: '2027-02-21 10:00:00' },
     });
     renderApp('/yard/orders/1', {
-      'GET /api/auth/me': { status: 200, body: sessionFor('merchant_dispatcher') },
+      'GET /api/auth/session': { status: 200, body: { session: sessionFor('merchant_dispatcher') } },
       'GET /api/orders/1': { status: 200, body: order },
       'GET /api/branches/3/stock': { status: 200, body: { items: [stockFixture(11, 'TRS-FL420-SG', 40)] } },
     });
@@ -154,7 +154,7 @@ describe('app routes', () => {
   });
 
   it('refuses a run’s page to a contractor with a 403 page', async () => {
-    renderApp('/yard/runs/7', { 'GET /api/auth/me': { status: 200, body: sessionFor('contractor_owner') } });
+    renderApp('/yard/runs/7', { 'GET /api/auth/session': { status: 200, body: { session: sessionFor('contractor_owner') } } });
     expect(await screen.findByRole('heading', { level: 1, name: 'This page is not part of your role' })).toBeTruthy();
   });
 });

@@ -42,8 +42,22 @@ function paramValue(route: string, param: string, ids: Ids, role: Role): number 
     'projects:id': ids.projectId,
     'projects:version': 1,
     'estimates:id': ids.estimateId,
-    'orders:id': route.includes(':proposalId') ? ids.offeredOrderId : route.endsWith('/slot') ? ids.confirmedOrderId : ids.orderId,
+    'orders:id': route.includes(':proposalId')
+      ? ids.offeredOrderId
+      : route.endsWith('/slot')
+        ? ids.confirmedOrderId
+        : route.includes('/pallets/')
+          ? ids.bookedOrderId
+          : route.includes('/delivery')
+            ? ids.deliveredOrderId
+            : ids.orderId,
     'orders:proposalId': ids.proposalId,
+    'orders:lineId': ids.orderLineId,
+    'orders:pallet': 1,
+    'orders:photoId': ids.photoId,
+    'runs:id': ids.runId,
+    'runs:index': 0,
+    'credit-note-drafts:id': ids.creditDraftId,
     'quote-requests:id': ids.quoteRequestId,
     'quotes:id': ids.quoteId,
     'products:id': ids.productId,
@@ -105,7 +119,7 @@ const key = (r: RouteEntry) => `${r.method} ${r.path}`;
 const SHARED_READS = new Set(['GET /api/systems/:id']);
 
 /** Routes that take a file (CSV or .xlsx) rather than JSON: they get a small CSV. */
-const UPLOADS = new Set(['POST /api/projects/:id/schedule', 'PUT /api/projects/:id/schedule', 'POST /api/branches/:id/price-list', 'POST /api/branches/:id/stock-counts']);
+const UPLOADS = new Set(['POST /api/projects/:id/schedule', 'POST /api/projects/:id/schedule/openings', 'PUT /api/projects/:id/schedule', 'POST /api/branches/:id/price-list', 'POST /api/branches/:id/stock-counts']);
 const SMALL_CSV = 'sku,price,tax_rate\nTRS-FL420-SG,1.30,20\n';
 
 async function send(c: Client, method: string, path: string, body?: unknown, route?: RouteEntry) {

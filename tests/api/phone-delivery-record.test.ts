@@ -3,7 +3,7 @@ import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { orderDetailSchema } from '../../shared/schemas/order.schema';
 import { deliveryProofSchema } from '../../shared/schemas/run.schema';
-import { contractorWithEstimate, merchantWithCatalogue, orderBody, type TestMerchant } from '../setup/order-scenario';
+import { contractorWithEstimate, merchantWithCatalogue, orderBody, type TestMerchant, loadRunOf } from '../setup/order-scenario';
 import { signIn } from '../setup/scenario';
 import { createTestApp, type TestApp } from '../setup/test-app';
 
@@ -29,6 +29,7 @@ async function droppedToday(m: TestMerchant) {
   const placed = orderDetailSchema.parse((await k.c.post('/api/orders', orderBody(k, m, { requested_date: t.config.calendar.today(), delivery_method: 'ground' }))).body);
   const desk = await signIn(t.app, m.salesEmail);
   expect((await desk.post(`/api/orders/${placed.id}/confirm`, { slot_id: s.body.id })).status).toBe(200);
+  await loadRunOf(yard, placed.id);
   expect((await yard.post(`/api/orders/${placed.id}/dispatch`)).status).toBe(200);
   return { k, order: orderDetailSchema.parse((await desk.get(`/api/orders/${placed.id}`)).body) };
 }

@@ -64,8 +64,8 @@ describe('an estimator goes from a CSV of roof faces to a placed order', () => {
       const example = await page.request.get(`${server.url}/api/examples/roof-schedule.csv`);
       expect(example.ok()).toBe(true);
       const lines = (await example.text()).split('\r\n');
-      expect(lines[5]).toBe('Birch,Front,8,40,5091,3900,9000,,verge,verge,ridge');
-      lines[5] = 'Birch,Front,8,40,5091,3900,9,,verge,verge,ridge';
+      expect(lines[5]).toBe('Birch,Front,8,40,5091,3900,9000,,verge,verge,ridge,Main');
+      lines[5] = 'Birch,Front,8,40,5091,3900,9,,verge,verge,ridge,Main';
 
       await page.getByRole('link', { name: 'Import a schedule' }).click();
       await page.getByLabel('Choose a CSV file').setInputFiles({ name: 'roof-schedule.csv', mimeType: 'text/csv', buffer: Buffer.from(lines.join('\r\n')) });
