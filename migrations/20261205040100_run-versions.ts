@@ -29,15 +29,48 @@ const TRIGGERS: [name: string, sql: string][] = [
   ['run_versions_products_footprint', `AFTER UPDATE OF pallet_length_mm, pallet_width_mm ON products BEGIN ${byOrg('NEW')} END`],
 ];
 
+const isPostgres = (knex: Knex) => ['pg', 'postgres', 'postgresql'].includes(String(knex.client.config.client));
+
+/**
+ * The same triggers on PostgreSQL: each body becomes a row-level trigger function (NEW and OLD are
+ * the same records there), with the counter column named through its table.
+ */
+function postgresTrigger(name: string, body: string): { fn: string; trigger: string; table: string } {
+  const m = /^(AFTER .+? ON (\w+)) BEGIN ([\s\S]*) END$/.exec(body);
+  if (!m) throw new Error(`cannot translate trigger ${name}`);
+  const [, when, table, statements] = m as unknown as [string, string, string, string];
+  const pgStatements = statements.replace(/SET version = version \+ 1/g, 'SET version = run_versions.version + 1');
+  return {
+    table,
+    fn: `CREATE FUNCTION ${name}_fn() RETURNS trigger LANGUAGE plpgsql AS $$ BEGIN ${pgStatements} RETURN NULL; END $$`,
+    trigger: `CREATE TRIGGER ${name} ${when} FOR EACH ROW EXECUTE FUNCTION ${name}_fn()`,
+  };
+}
+
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable('run_versions', (t) => {
     t.integer('organisation_id').primary().references('id').inTable('organisations').onDelete('CASCADE');
     t.integer('version').notNullable();
   });
-  for (const [name, body] of TRIGGERS) await knex.raw(`CREATE TRIGGER ${name} ${body}`);
+  for (const [name, body] of TRIGGERS) {
+    if (isPostgres(knex)) {
+      const pg = postgresTrigger(name, body);
+      await knex.raw(pg.fn);
+      await knex.raw(pg.trigger);
+    } else {
+      await knex.raw(`CREATE TRIGGER ${name} ${body}`);
+    }
+  }
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const [name] of TRIGGERS) await knex.raw(`DROP TRIGGER IF EXISTS ${name}`);
+  for (const [name, body] of TRIGGERS) {
+    if (isPostgres(knex)) {
+      await knex.raw(`DROP TRIGGER IF EXISTS ${name} ON ${postgresTrigger(name, body).table}`);
+      await knex.raw(`DROP FUNCTION IF EXISTS ${name}_fn()`);
+    } else {
+      await knex.raw(`DROP TRIGGER IF EXISTS ${name}`);
+    }
+  }
   await knex.schema.dropTableIfExists('run_versions');
 }
