@@ -1,4 +1,4 @@
-import { createHash } from 'node:crypto';
+import { databaseFingerprint } from '../setup/db-fingerprint';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { can } from '../../shared/domain/policy';
 import { ROLES, kindOfRole, type Role } from '../../shared/domain/roles';
@@ -103,10 +103,7 @@ const BODY_IDS: Record<string, (own: Ids, other: Ids) => Record<string, unknown>
 
 /** Everything the API can change, as one fingerprint (sessions aside: signing in writes them). */
 async function fingerprint(): Promise<string> {
-  const tables = (await t.db.raw("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'knex_%' AND name NOT IN ('sessions', 'sqlite_sequence') ORDER BY name")) as { name: string }[];
-  const h = createHash('sha256');
-  for (const { name } of tables) h.update(name).update(JSON.stringify(await t.db(name).select('*').orderByRaw('rowid')));
-  return h.digest('hex');
+  return databaseFingerprint(t.db, ['sessions']);
 }
 
 const apiRoutes = () => listRoutes(t.app).filter((r) => r.path.startsWith('/api/'));

@@ -1,4 +1,4 @@
-import { createHash } from 'node:crypto';
+import { databaseFingerprint } from '../setup/db-fingerprint';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MAX_SCHEDULE_BYTES } from '../../shared/schemas/schedule-upload.schema';
 import { MAX_SHEET_BYTES } from '../../shared/schemas/price-list.schema';
@@ -29,10 +29,7 @@ beforeAll(async () => {
 afterAll(async () => t.close());
 
 async function fingerprint(): Promise<string> {
-  const tables = (await t.db.raw("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'knex_%' AND name NOT IN ('sessions', 'sqlite_sequence', 'dev_outbox') ORDER BY name")) as { name: string }[];
-  const h = createHash('sha256');
-  for (const { name } of tables) h.update(name).update(JSON.stringify(await t.db(name).select('*').orderByRaw('rowid')));
-  return h.digest('hex');
+  return databaseFingerprint(t.db, ['sessions', 'dev_outbox']);
 }
 
 interface Row {

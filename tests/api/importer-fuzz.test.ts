@@ -1,4 +1,4 @@
-import { createHash } from 'node:crypto';
+import { tableFingerprint } from '../setup/db-fingerprint';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_CATALOGUES } from '../../seeds/02-catalogue';
@@ -27,7 +27,7 @@ beforeAll(async () => {
 afterAll(async () => t.close());
 
 async function tableHash(table: string, where: Record<string, unknown>) {
-  return createHash('sha256').update(JSON.stringify(await t.db(table).where(where).select('*').orderByRaw('rowid'))).digest('hex');
+  return tableFingerprint(t.db, table, where);
 }
 
 async function upload(c: Client, path: string, body: string) {
