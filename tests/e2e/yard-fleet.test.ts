@@ -122,7 +122,17 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       });
       const desk = await deskContext.newPage();
       await signIn(desk, 'sales@demo.test', /\/desk$/);
-      const before = await api<SlotDay>(desk, 'GET', `/api/branches/${branch.id}/slots?date=${monday}`);
+      // The desk asks for the Monday until the new lorry's morning slot is listed (the board it reads may lag a moment).
+      let before: SlotDay = { slots: [] };
+      await expect
+        .poll(
+          async () => {
+            before = await api<SlotDay>(desk, 'GET', `/api/branches/${branch.id}/slots?date=${monday}`);
+            return before.slots.map((s) => `${s.lorry.registration} ${s.time_window}`);
+          },
+          { timeout: 15_000 },
+        )
+        .toContain(`${REGISTRATION} ${WINDOWS[0]}`);
       const morning = before.slots.find((s) => s.lorry.registration === REGISTRATION && s.time_window === WINDOWS[0])!;
       expect(morning.driver).toBeNull();
       await api(desk, 'POST', `/api/orders/${order.id}/confirm`, { slot_id: morning.id });
