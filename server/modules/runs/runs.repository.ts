@@ -2,25 +2,10 @@ import type { Pallet } from '../../../shared/engine/delivery';
 import type { OrderSite, OrderStatus } from '../../../shared/schemas/order.schema';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
+import type { SlotRow } from '../slots/slots.repository';
 
 /** A delivery slot read as a run: the slot, its lorry (with its deck) and driver, and whether it has been sent out. */
-export interface RunRow {
-  id: number;
-  organisation_id: number;
-  branch_id: number;
-  lorry_id: number;
-  date: string;
-  time_window: string;
-  driver_user_id: number | null;
-  driver_name: string | null;
-  booked_kg: number;
-  booked_pallets: number;
-  registration: string;
-  lorry_name: string;
-  payload_kg: number;
-  pallet_slots: number;
-  has_crane: boolean;
-  crane_max_kg: number | null;
+export interface RunRow extends Omit<SlotRow, 'lorry_archived_at'> {
   deck_length_mm: number;
   deck_width_mm: number;
   sent_out_at: string | null;
