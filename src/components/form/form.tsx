@@ -162,7 +162,7 @@ export function RadioGroupField({ name, legend, options, defaultValue }: RadioGr
   const ids = fieldIds(form.id, name);
   const error = form.fieldErrors[name];
   return (
-    <fieldset aria-describedby={error ? ids.error : undefined}>
+    <fieldset role="radiogroup" aria-invalid={error ? true : undefined} aria-describedby={error ? ids.error : undefined}>
       <legend className="mb-1.5 font-medium text-ink-900">{legend}</legend>
       <div className="grid gap-2 sm:grid-cols-2">
         {options.map((option) => {
@@ -179,7 +179,6 @@ export function RadioGroupField({ name, legend, options, defaultValue }: RadioGr
                 name={name}
                 value={option.value}
                 defaultChecked={defaultValue === option.value}
-                aria-invalid={error ? true : undefined}
                 onChange={() => form.clearFieldError(name)}
                 className="mt-1 h-5 w-5 accent-clay-600"
               />

@@ -50,17 +50,18 @@ function navLinkClasses({ isActive }: { isActive: boolean }, large: boolean): st
  * menu of large targets (drivers work with gloves on).
  */
 export function AppShell({ navItems, homePath, person, onSignOut, signingOut = false, footerLinks, children }: AppShellProps) {
-  const [menuOpen, setMenuOpen] = useState(false);
+  const location = useLocation();
+  // The phone menu is open only on the page it was opened on, so a navigation closes it.
+  const [menuOpenOn, setMenuOpenOn] = useState<string | null>(null);
+  const menuOpen = menuOpenOn === location.pathname;
   const menuId = useId();
   const menuButton = useRef<HTMLButtonElement>(null);
   const menuPanel = useRef<HTMLDivElement>(null);
   const mainRef = useRef<HTMLElement>(null);
-  const location = useLocation();
   const firstRender = useRef(true);
 
-  // After a navigation, close the phone menu and move focus to the new page so screen readers start there.
+  // After a navigation, move focus to the new page so screen readers start there.
   useEffect(() => {
-    setMenuOpen(false);
     if (firstRender.current) {
       firstRender.current = false;
       return;
@@ -73,7 +74,7 @@ export function AppShell({ navItems, homePath, person, onSignOut, signingOut = f
     menuPanel.current?.querySelector<HTMLElement>('a, button')?.focus();
     function onKey(event: KeyboardEvent) {
       if (event.key === 'Escape') {
-        setMenuOpen(false);
+        setMenuOpenOn(null);
         menuButton.current?.focus();
       }
     }
@@ -96,7 +97,7 @@ export function AppShell({ navItems, homePath, person, onSignOut, signingOut = f
             type="button"
             aria-expanded={menuOpen}
             aria-controls={menuId}
-            onClick={() => setMenuOpen((open) => !open)}
+            onClick={() => setMenuOpenOn(menuOpen ? null : location.pathname)}
             className="inline-flex min-h-tap min-w-tap items-center gap-2 rounded-md border border-ink-600 px-4 text-lg font-semibold text-white"
           >
             <svg viewBox="0 0 24 24" className="h-6 w-6" aria-hidden="true" focusable="false">

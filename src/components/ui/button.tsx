@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes } from 'react';
+import type { ButtonHTMLAttributes, Ref } from 'react';
 import { Spinner } from './spinner';
 
 export type ButtonVariant = 'primary' | 'secondary' | 'danger' | 'ghost';
@@ -33,6 +33,7 @@ interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   size?: ButtonSize;
   /** Shows a spinner and blocks a second press while work is under way. */
   busy?: boolean;
+  ref?: Ref<HTMLButtonElement>;
 }
 
 export function Button({ variant = 'primary', size = 'md', busy = false, className = '', type = 'button', disabled, children, ...rest }: ButtonProps) {

@@ -45,8 +45,9 @@ function Group({ form, name, legend, hint, children }: { form: ZodForm; name: st
 }
 
 function TileFields({ form, product }: { form: ZodForm; product: Product | null }) {
-  const nextId = useRef(0);
-  const [bands, setBands] = useState<(HeadlapBandText & { id: number })[]>(() => headlapBandsText(product).map((b) => ({ ...b, id: nextId.current++ })));
+  // Loaded bands are keyed 0, 1, 2…; bands added here count down from -1, so the two never meet.
+  const nextId = useRef(-1);
+  const [bands, setBands] = useState<(HeadlapBandText & { id: number })[]>(() => headlapBandsText(product).map((b, i) => ({ ...b, id: i })));
   const t = (...path: string[]) => technicalText(product, ...path);
   return (
     <div className="space-y-4">
@@ -94,7 +95,7 @@ function TileFields({ form, product }: { form: ZodForm; product: Product | null 
             </li>
           ))}
         </ol>
-        <Button variant="secondary" className="mt-3" onClick={() => setBands((list) => [...list, { id: nextId.current++, from_pitch_deg: '', min_mm: '' }])}>
+        <Button variant="secondary" className="mt-3" onClick={() => setBands((list) => [...list, { id: nextId.current--, from_pitch_deg: '', min_mm: '' }])}>
           Add a pitch band
         </Button>
       </Group>

@@ -141,25 +141,27 @@ export function DriverDay({ day, renderFaceDrawing }: DriverDayProps) {
   });
   const [openKey, setOpenKey] = useState<string | null>(firstOpen ? dropKey(firstOpen.run, firstOpen.drop) : null);
   const headers = useRef(new Map<string, HTMLButtonElement>());
-  const [scrollTo, setScrollTo] = useState<string | null>(null);
+  // The drop whose header comes to the top once the render that folds or opens it is on the page.
+  const scrollAfterRender = useRef<string | null>(null);
   // Sent from this page: delivered, before the day is read again from the server.
   const [sentHere, setSentHere] = useState<ReadonlySet<number>>(new Set());
   const stateOf = (drop: DriverDrop) => dropState(drop, waiting, sentHere);
 
   useEffect(() => {
-    if (!scrollTo) return;
-    bringToTop(headers.current.get(scrollTo) ?? null);
-    setScrollTo(null);
-  }, [scrollTo]);
+    const key = scrollAfterRender.current;
+    if (!key) return;
+    scrollAfterRender.current = null;
+    bringToTop(headers.current.get(key) ?? null);
+  });
 
   const recorded = (key: string, orderId: number, outcome: RecordOutcome) => {
     if (outcome !== 'queued') setSentHere((prev) => new Set([...prev, orderId]));
     const at = ordered.findIndex(({ run, drop }) => dropKey(run, drop) === key);
     const next = ordered.slice(at + 1).find(({ drop }) => stateOf(drop) === 'to_deliver');
     const nextKey = next ? dropKey(next.run, next.drop) : null;
-    setOpenKey(nextKey);
     // Never left at the bottom of a closed form: the next drop (or this one, folded) comes to the top.
-    setScrollTo(nextKey ?? key);
+    scrollAfterRender.current = nextKey ?? key;
+    setOpenKey(nextKey);
   };
 
   if (runs.length === 0) {

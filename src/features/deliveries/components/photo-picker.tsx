@@ -34,7 +34,7 @@ export function PhotoPicker({ photos, onChange, error, errorId }: PhotoPickerPro
         <ul className="grid grid-cols-3 gap-2" aria-label="Photos taken">
           {photos.map((photo, i) => (
             <li key={`${i}-${photo.size}`} className="relative">
-              {thumbnails[i] ? <img src={thumbnails[i]} alt={`Photo ${i + 1}`} className="aspect-square w-full rounded-md border border-ink-300 object-cover" /> : <div className="aspect-square w-full rounded-md border border-ink-300 bg-ink-100" aria-label={`Photo ${i + 1}`} />}
+              {thumbnails[i] ? <img src={thumbnails[i]} alt={`Taken on site, ${i + 1} of ${photos.length}`} className="aspect-square w-full rounded-md border border-ink-300 object-cover" /> : <div role="img" className="aspect-square w-full rounded-md border border-ink-300 bg-ink-100" aria-label={`Taken on site, ${i + 1} of ${photos.length}`} />}
               <button
                 type="button"
                 onClick={() => onChange(photos.filter((_, j) => j !== i))}

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useId, useRef, useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import type { FieldPath } from 'react-hook-form';
 import type { DriverDrop } from '../../../../shared/schemas/run.schema';
 import { Alert } from '../../../components/ui/alert';
@@ -86,10 +86,10 @@ export function ProofForm({ drop, onRecorded, now = () => new Date() }: ProofFor
       lines: drop.lines.map((l) => ({ line_id: l.line_id, handed_over: l.quantity, short: 0, damaged: 0 })),
     },
   });
-  const { register, handleSubmit, setValue, watch, setError, formState } = form;
+  const { register, handleSubmit, setValue, setError, formState, control } = form;
   const { errors, isSubmitting } = formState;
-  const photos = watch('photos') as Blob[];
-  const signed = watch('signature_drawn');
+  const photos = useWatch({ control, name: 'photos' }) as Blob[];
+  const signed = useWatch({ control, name: 'signature_drawn' });
   const [openedAt] = useState(now);
 
   const onSubmit = async (values: ProofFormValues) => {

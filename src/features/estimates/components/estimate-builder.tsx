@@ -193,7 +193,7 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
     refresh();
   }
 
-  const offers = systems.data ?? [];
+  const offers = useMemo(() => systems.data ?? [], [systems.data]);
   const shown = kind === 'all' ? offers : offers.filter((o) => o.tile.kind === kind);
   const chosen = offers.find((o) => o.id === chosenId) ?? null;
   const wasteDefaults = source === 'catalogue' && chosen ? chosen.system.waste_pct : SYSTEM_DEFAULTS.waste_pct;

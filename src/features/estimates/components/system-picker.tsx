@@ -16,7 +16,7 @@ interface SystemPickerProps {
 }
 
 /** A merchant branch's roof system as a choice: the tile's figures, its prices and stock, and faces it cannot be laid on. */
-function SystemOption({ offer, faces, checked, invalid, describedBy }: { offer: RoofSystemOffer; faces: readonly Face[]; checked: boolean; invalid: boolean; describedBy?: string }) {
+function SystemOption({ offer, faces, checked }: { offer: RoofSystemOffer; faces: readonly Face[]; checked: boolean }) {
   const low = lowestPitch(offer.tile.headlap_mm);
   const unsuitable = faces.filter((f) => f.pitch_deg < low - 1e-9);
   const tile = offer.components.find((c) => c.role === 'tile');
@@ -28,8 +28,6 @@ function SystemOption({ offer, faces, checked, invalid, describedBy }: { offer: 
         name="system_id"
         value={offer.id}
         defaultChecked={checked}
-        aria-invalid={invalid || undefined}
-        aria-describedby={describedBy}
         className="mt-1 h-5 w-5 shrink-0 accent-clay-600"
       />
       <span className="min-w-0 flex-1 space-y-1">
@@ -67,13 +65,14 @@ export function SystemPicker({ systems, faces, chosenId, error, describedBy }: S
     return [...groups].sort(([a], [b]) => a.localeCompare(b));
   }, [systems]);
   return (
-    <div className="space-y-5">
+    // One radio group across the merchants (the radios share a name), so it carries the error.
+    <div role="radiogroup" aria-label="Roof system" aria-invalid={error ? true : undefined} aria-describedby={describedBy} className="space-y-5">
       {byMerchant.map(([merchant, offers]) => (
         <fieldset key={merchant} className="space-y-2">
           <legend className="mb-1 font-semibold text-ink-800">{merchant}</legend>
           <div className="grid gap-2">
             {offers.map((offer) => (
-              <SystemOption key={offer.id} offer={offer} faces={faces} checked={chosenId === offer.id} invalid={Boolean(error)} describedBy={describedBy} />
+              <SystemOption key={offer.id} offer={offer} faces={faces} checked={chosenId === offer.id} />
             ))}
           </div>
         </fieldset>

@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useArchiveLorry } from '../api/archive-lorry';
 import { ActionError } from './action-error';
+import { focusOnShow } from '../../../lib/focus-on-show';
 
 /**
  * Archiving one lorry, in two steps: the button asks, the second press archives. A refusal stays
@@ -47,7 +48,7 @@ export function ArchiveLorry({ lorry }: { lorry: Lorry }) {
         </Button>
         <Button
           variant="ghost"
-          autoFocus
+          ref={focusOnShow}
           onClick={() => {
             archive.reset();
             setAsking(false);

@@ -15,6 +15,7 @@ import { useRemoveSlot } from '../api/remove-slot';
 import { useUpdateSlot } from '../api/update-slot';
 import { ActionError } from './action-error';
 import { ChangeSlotForm } from './slot-forms';
+import { focusOnShow } from '../../../lib/focus-on-show';
 
 /** A slot is a run; the yard builds and sends it out on the run's page. */
 const runPath = (slotId: number) => `/yard/runs/${slotId}`;
@@ -65,7 +66,7 @@ function RemoveSlot({ slot, onDone }: { slot: Slot; onDone: () => void }) {
         >
           Remove the slot
         </Button>
-        <Button variant="ghost" autoFocus onClick={onDone}>
+        <Button variant="ghost" ref={focusOnShow} onClick={onDone}>
           Keep it
         </Button>
       </div>

@@ -48,7 +48,7 @@ export function DeliveryProofDetails({ proof }: { proof: DeliveryProofData }) {
           {proof.photos.map((photo, i) => (
             <li key={photo.id}>
               <a href={photo.url} target="_blank" rel="noopener" className="block rounded-md focus:outline-2 focus:outline-clay-600">
-                <img src={photo.thumbnail_url} alt={`Delivery photo ${i + 1} of ${proof.photos.length}, opens the full photo`} className="h-24 w-24 rounded-md border border-ink-200 object-cover" loading="lazy" />
+                <img src={photo.thumbnail_url} alt={`${i + 1} of ${proof.photos.length} taken at the drop, opens full size`} className="h-24 w-24 rounded-md border border-ink-200 object-cover" loading="lazy" />
               </a>
             </li>
           ))}

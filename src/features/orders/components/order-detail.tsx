@@ -16,6 +16,7 @@ import { formatCount, formatMoney } from '../../../lib/format';
 import { OrderAmounts } from '../../../components/orders/order-amounts';
 import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { OrderStages, OrderStatusBadge } from './order-status';
+import { focusOnShow } from '../../../lib/focus-on-show';
 
 const lineHelper = dataTableColumns<OrderDetailData['lines'][number]>();
 const lineColumns = lineHelper.columns([
@@ -143,7 +144,7 @@ function CancelOrder({ order }: { order: Order }) {
       <label htmlFor={reasonId} className="block font-medium">
         Why (the merchant sees this; optional)
       </label>
-      <input id={reasonId} value={reason} maxLength={500} onChange={(event) => setReason(event.target.value)} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" autoFocus />
+      <input id={reasonId} value={reason} maxLength={500} onChange={(event) => setReason(event.target.value)} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" ref={focusOnShow} />
       <div className="flex flex-wrap gap-2">
         <Button
           variant="danger"

@@ -9,6 +9,7 @@ import { Card } from '../../../components/ui/card';
 import { useToast } from '../../../components/ui/toast';
 import { formatDate } from '../../../lib/format';
 import { useSetProjectArchived } from '../api/archive-project';
+import { focusOnShow } from '../../../lib/focus-on-show';
 
 function Row({ term, children }: { term: string; children: ReactNode }) {
   return (
@@ -109,7 +110,7 @@ export function ProjectActions({ project }: { project: Project }) {
       {confirming ? (
         <div role="group" aria-label="Archive this site?" className="flex flex-wrap items-center gap-2">
           <span className="text-sm font-medium">Archive {project.name}?</span>
-          <Button variant="danger" autoFocus busy={archive.isPending} onClick={() => run(true)}>
+          <Button variant="danger" ref={focusOnShow} busy={archive.isPending} onClick={() => run(true)}>
             Yes, archive
           </Button>
           <Button variant="secondary" onClick={() => setConfirming(false)}>

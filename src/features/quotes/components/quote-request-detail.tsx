@@ -12,6 +12,7 @@ import { formatDate } from '../../../lib/format';
 import { useAcceptQuote } from '../api/accept-quote';
 import { useWithdrawQuoteRequest } from '../api/withdraw-quote-request';
 import { formatMoney } from '../../../lib/format';
+import { focusOnShow } from '../../../lib/focus-on-show';
 
 type Comparison = NonNullable<QuoteRequest['comparison']>;
 type Row = Comparison['rows'][number];
@@ -44,7 +45,7 @@ function QuoteHead({ quote, request, onAccepted }: { quote: Quote; request: Quot
             <p className="text-sm">This sends an order to {quote.branch.name} at these prices and closes the other quotes.</p>
             <div className="flex flex-wrap gap-2">
               <Button
-                autoFocus
+                ref={focusOnShow}
                 busy={accept.isPending}
                 onClick={() =>
                   accept.mutate(quote.id, {

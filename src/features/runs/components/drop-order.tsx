@@ -41,8 +41,7 @@ interface DropRowProps {
 }
 
 function DropRow({ drop, place, count, editable, orderHref, onMove }: DropRowProps) {
-  const sortable = useSortable({ id: drop.order_id, disabled: !editable });
-  const { transform, transition, isDragging } = sortable;
+  const { attributes, listeners, setNodeRef, transform, transition, isDragging } = useSortable({ id: drop.order_id, disabled: !editable });
   const style = {
     transform: transform ? `translate3d(${Math.round(transform.x)}px, ${Math.round(transform.y)}px, 0)` : undefined,
     transition,
@@ -51,7 +50,7 @@ function DropRow({ drop, place, count, editable, orderHref, onMove }: DropRowPro
   const last = place === count - 1;
   return (
     <li
-      ref={sortable.setNodeRef}
+      ref={setNodeRef}
       style={style}
       className={`flex flex-wrap items-center gap-x-3 gap-y-2 bg-white px-3 py-2 ${isDragging ? 'relative z-10 shadow-raised' : ''}`}
       data-testid="drop-row"
@@ -61,8 +60,8 @@ function DropRow({ drop, place, count, editable, orderHref, onMove }: DropRowPro
           type="button"
           className="inline-flex min-h-tap min-w-8 cursor-grab touch-none items-center justify-center rounded-md text-ink-600 hover:bg-ink-50 active:cursor-grabbing"
           aria-label={`Drag ${drop.reference} to another place`}
-          {...sortable.attributes}
-          {...sortable.listeners}
+          {...attributes}
+          {...listeners}
         >
           <svg viewBox="0 0 24 24" className="h-5 w-5" aria-hidden="true" focusable="false">
             <path d="M9 6h.01M15 6h.01M9 12h.01M15 12h.01M9 18h.01M15 18h.01" stroke="currentColor" strokeWidth="3" strokeLinecap="round" />

@@ -329,16 +329,18 @@ interface FacesFormProps {
 /** Faces typed or corrected by hand, saved as the next schedule version. */
 export function FacesForm({ projectId, initial, initialOpenings = [], onSaved }: FacesFormProps) {
   const save = useSaveSchedule(projectId);
-  const nextKey = useRef(initial.length + 2);
+  // Faces are keyed 1…n and their openings after them, so keys made later start past both.
+  const nextKey = useRef(initial.length + initialOpenings.length + 2);
   const takeKey = () => nextKey.current++;
   const [rows, setRows] = useState<FaceRow[]>(() => {
     if (initial.length === 0) return [blankRow(1)];
+    let openingKey = initial.length + 2;
     const byFace = new Map<string, StoredOpening[]>();
     for (const o of initialOpenings) {
       const key = faceKey(o.building, o.face);
       byFace.set(key, [...(byFace.get(key) ?? []), o]);
     }
-    return initial.map((face, i) => fromStored(face, i + 1, byFace.get(faceKey(face.building, face.face)) ?? [], () => nextKey.current++));
+    return initial.map((face, i) => fromStored(face, i + 1, byFace.get(faceKey(face.building, face.face)) ?? [], () => openingKey++));
   });
   const extraValues = useMemo(() => ({ faces: rows.map(rowToInput), openings: openingsToInput(rows) }), [rows]);
   const form = useZodForm({

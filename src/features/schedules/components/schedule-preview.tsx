@@ -1,4 +1,4 @@
-import { createContext, useContext, useEffect, useId, useMemo, useState } from 'react';
+import { createContext, useContext, useEffect, useId, useMemo, useRef, useState } from 'react';
 import type { CSSProperties } from 'react';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import type { DataTableColumn } from '../../../components/ui/data-table';
@@ -156,13 +156,7 @@ export function SchedulePreview({ grid, check, checking, onCellChange }: Schedul
 
   // Rows stay listed once shown, so a row does not vanish from under the cursor the moment it is fixed.
   const [listedRows, setListedRows] = useState<ReadonlySet<number>>(new Set());
-  useEffect(() => {
-    if (!onlyProblems) return;
-    setListedRows((listed) => {
-      if ([...problemRows].every((row) => listed.has(row))) return listed;
-      return new Set([...listed, ...problemRows]);
-    });
-  }, [onlyProblems, problemRows]);
+  if (onlyProblems && ![...problemRows].every((row) => listedRows.has(row))) setListedRows(new Set([...listedRows, ...problemRows]));
 
   const dataRows = useMemo(() => {
     const all: number[] = [];
@@ -176,13 +170,15 @@ export function SchedulePreview({ grid, check, checking, onCellChange }: Schedul
     [dataRows, shownPage],
   );
 
+  // Each "go to" focuses its cell once, after the page that shows the cell is on the screen.
+  const focusedTarget = useRef<typeof focusTarget>(null);
   useEffect(() => {
-    if (!focusTarget) return;
+    if (!focusTarget || focusedTarget.current === focusTarget) return;
+    focusedTarget.current = focusTarget;
     const id = focusTarget.column === null ? null : cellInputId(idPrefix, focusTarget.row, focusTarget.column);
     const element = id ? document.getElementById(id) : document.getElementById(cellInputId(idPrefix, focusTarget.row, 0));
     element?.focus();
     element?.scrollIntoView?.({ block: 'center', inline: 'center' });
-    setFocusTarget(null);
   }, [focusTarget, idPrefix, visible]);
 
   function goTo(problem: LocatedProblem) {

@@ -10,6 +10,7 @@ import { useToast } from '../../../components/ui/toast';
 import { formatDate } from '../../../lib/format';
 import { useRemoveMember } from '../api/remove-member';
 import { useUpdateMemberRole } from '../api/update-member-role';
+import { focusOnShow } from '../../../lib/focus-on-show';
 
 interface MembersTableProps {
   members: readonly Member[];
@@ -84,7 +85,7 @@ function RemoveMember({ member }: { member: Member }) {
       <Button
         variant="danger"
         busy={remove.isPending}
-        autoFocus
+        ref={focusOnShow}
         onClick={() =>
           remove.mutate(member.id, {
             onSuccess: () => toast.show(`${member.name} no longer belongs to the organisation.`, 'success'),

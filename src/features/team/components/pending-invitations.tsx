@@ -10,6 +10,7 @@ import { useToast } from '../../../components/ui/toast';
 import { formatDateTime } from '../../../lib/format';
 import { useInvitations } from '../api/get-invitations';
 import { useRevokeInvitation } from '../api/revoke-invitation';
+import { focusOnShow } from '../../../lib/focus-on-show';
 
 function InvitationRow({ invitation }: { invitation: Invitation }) {
   const revoke = useRevokeInvitation();
@@ -28,7 +29,7 @@ function InvitationRow({ invitation }: { invitation: Invitation }) {
         <div role="group" aria-label={`Withdraw the invitation to ${invitation.email}?`} className="flex gap-2">
           <Button
             variant="danger"
-            autoFocus
+            ref={focusOnShow}
             busy={revoke.isPending}
             onClick={() =>
               revoke.mutate(invitation.id, {
