@@ -103,7 +103,7 @@ describe('ProofForm', () => {
     expect(input.getAttribute('capture')).toBe('environment');
     fireEvent.change(input, { target: { files: [1, 2, 3, 4, 5, 6, 7].map((n) => photo(`site-${n}.jpg`)) } });
     expect(await screen.findByText('at most 6 photos: remove 1')).toBeTruthy();
-    expect(screen.getAllByRole('img', { name: /^Photo \d$/ })).toHaveLength(7);
+    expect(screen.getAllByRole('img', { name: /^Taken on site, \d of 7$/ })).toHaveLength(7);
     fireEvent.click(screen.getByRole('button', { name: 'Remove photo 7' }));
     await waitFor(() => expect(screen.queryByText('at most 6 photos: remove 1')).toBeNull());
     expect(screen.getByText('Photos (6 of 6)')).toBeTruthy();
