@@ -1,4 +1,5 @@
 import type { MailMessage } from './mailer';
+import escapeHtml from 'escape-html';
 
 export interface EmailContent {
   to: string;
@@ -8,9 +9,6 @@ export interface EmailContent {
   action?: { label: string; url: string };
   footnote?: string;
 }
-
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** Every e-mail has a plain-text part and an HTML part built from the same words. */
 export function renderEmail(c: EmailContent): MailMessage {

@@ -2,6 +2,7 @@ import { createHmac, randomBytes } from 'node:crypto';
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import qs from 'qs';
+import escapeHtml from 'escape-html';
 
 /**
  * A local stand-in for the card-payment provider's REST API, for development and tests only. It speaks
@@ -111,8 +112,6 @@ function luhn(digits: string): boolean {
   }
   return digits.length >= 12 && sum % 10 === 0;
 }
-
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 function money(amount: number, currency: string): string {
   try {

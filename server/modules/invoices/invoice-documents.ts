@@ -1,8 +1,7 @@
 import ExcelJS from 'exceljs';
 import { CREDIT_REASON_LABELS, PAY_BY_LABELS, type Invoice } from '../../../shared/schemas/invoice.schema';
 import { safeCell } from '../exports/spreadsheet-text';
-
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+import escapeHtml from 'escape-html';
 
 /** Minor units in the invoice's currency, as people read it (£1,234.50). */
 export function formatMoney(minor: number, currency: string): string {
