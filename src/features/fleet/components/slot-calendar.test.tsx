@@ -141,4 +141,15 @@ describe('SlotCalendar', () => {
     expect(within(item).getByText('Driver: Dee Fenwick')).toBeTruthy();
     expect(within(item).queryByRole('button', { name: /Change|Remove/ })).toBeNull();
   });
+
+  it('names each button beside the driver list by what it does', async () => {
+    stubFetch({ ...base, [dayUrl]: day([{ ...slot, driver: null }]) });
+    renderWithProviders(<SlotCalendar branchId={3} canManage />);
+    const change = await screen.findByRole('button', { name: 'Change the time window or driver of 07:30-12:00 TY61 KRB' }, { timeout: 5000 });
+    expect(change.textContent).toBe('Change time or driver');
+    const remove = screen.getByRole('button', { name: 'Remove the slot 07:30-12:00 TY61 KRB' });
+    expect(remove.textContent).toBe('Remove slot');
+    // No button on the page is named by a bare verb.
+    for (const button of screen.getAllByRole('button')) expect(['Change', 'Remove', 'Edit']).not.toContain(button.textContent?.trim());
+  });
 });
