@@ -3,6 +3,7 @@ import { createServer, type IncomingMessage, type Server, type ServerResponse } 
 import type { AddressInfo } from 'node:net';
 import qs from 'qs';
 import escapeHtml from 'escape-html';
+import { formatMoney } from '../../shared/domain/money';
 
 /**
  * A local stand-in for the card-payment provider's REST API, for development and tests only. It speaks
@@ -115,7 +116,7 @@ function luhn(digits: string): boolean {
 
 function money(amount: number, currency: string): string {
   try {
-    return new Intl.NumberFormat('en-GB', { style: 'currency', currency: currency.toUpperCase() }).format(amount / 100);
+    return formatMoney(amount, currency);
   } catch {
     return `${(amount / 100).toFixed(2)} ${currency.toUpperCase()}`;
   }

@@ -1,3 +1,5 @@
+import { formatMoney as formatMoneyIn } from '../../shared/domain/money';
+
 const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
   day: 'numeric',
@@ -29,15 +31,13 @@ export function firstName(name: string): string {
   return name.trim().split(/\s+/)[0] ?? name;
 }
 
-const pounds = new Intl.NumberFormat('en-GB', { style: 'currency', currency: 'GBP' });
+/** The currency the app's prices are kept in (the server's CURRENCY; a screen shows no other). */
+export const APP_CURRENCY = 'GBP';
 
-/**
- * Minor units (pence) as pounds and pence. Money travels as whole pence everywhere and becomes a
- * decimal only here, at the edge of the screen.
- */
-export function formatMoney(minor: number | null | undefined): string {
+/** Minor units (pence) as the screen shows them, through the one money formatter; a dash for none. */
+export function formatMoney(minor: number | null | undefined, currency: string = APP_CURRENCY): string {
   if (minor === null || minor === undefined) return '—';
-  return pounds.format(minor / 100);
+  return formatMoneyIn(minor, currency);
 }
 
 const counts = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 2 });

@@ -1,33 +1,16 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, watchConsole } from '../setup/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { pageApi, signInPage } from '../setup/e2e-pages';
-import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+import { useJourney } from './harness';
 
-let server: E2eServer;
-let browser: Browser;
-let consoleProblems: ReturnType<typeof watchConsole>;
-// No page a journey visits may log an error or throw (a failed request shows as a console error too).
-afterEach(() => {
-  expect(consoleProblems.take()).toEqual([]);
-});
-
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  consoleProblems = watchConsole(browser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const journey = useJourney();
 
 /** A day three weeks ahead as YYYY-MM-DD: always a day the merchants can still be asked for. */
 function inThreeWeeks(): string {
   return new Date(Date.now() + 21 * 86_400_000).toISOString().slice(0, 10);
 }
 
-const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, server.url, email, home);
+const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, journey.server.url, email, home);
 
 const api = pageApi;
 
@@ -50,9 +33,9 @@ const TILE_JOB_PRICE = 115;
 
 describe('the demo desk answers a quote request from the demo estimator', () => {
   it('the estimator asks two merchants to price an estimate, the desk prices each line with its own products and packs, the estimator compares and turns the answer into an order at the quoted prices', async () => {
-    const estimatorContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const deskContext = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-    const otherDeskContext = await browser.newContext();
+    const estimatorContext = await journey.browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const deskContext = await journey.browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const otherDeskContext = await journey.browser.newContext();
     const failures: string[] = [];
     try {
       const estimator = await estimatorContext.newPage();
@@ -70,7 +53,7 @@ describe('the demo desk answers a quote request from the demo estimator', () => 
       const skuOf = new Map(estimate.lines.filter((l) => l.sku).map((l) => [l.category, l.sku!]));
 
       // The estimator asks Tollerbeck Yard (its system's branch, ticked already) and Caddonmere Wharf.
-      await estimator.goto(`${server.url}/estimates/${estimate.id}`);
+      await estimator.goto(`${journey.server.url}/estimates/${estimate.id}`);
       await estimator.getByRole('link', { name: 'Ask merchants for quotes' }).click();
       await estimator.waitForURL(new RegExp(`/estimates/${estimate.id}/quote$`));
       const askForm = estimator.getByRole('form', { name: 'Ask for quotes' });

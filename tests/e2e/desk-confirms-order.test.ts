@@ -1,26 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, watchConsole } from '../setup/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { pageApi, signInPage } from '../setup/e2e-pages';
-import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+import { useJourney } from './harness';
 
-let server: E2eServer;
-let browser: Browser;
-let consoleProblems: ReturnType<typeof watchConsole>;
-// No page a journey visits may log an error or throw (a failed request shows as a console error too).
-afterEach(() => {
-  expect(consoleProblems.take()).toEqual([]);
-});
-
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  consoleProblems = watchConsole(browser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const journey = useJourney();
 
 /** A weekday three to seven days ahead as YYYY-MM-DD: inside the demo slot calendar, never a weekend. */
 function nextWorkingDay(): string {
@@ -30,7 +13,7 @@ function nextWorkingDay(): string {
   }
 }
 
-const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, server.url, email, home);
+const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, journey.server.url, email, home);
 
 interface Placed {
   id: number;
@@ -69,8 +52,8 @@ async function placeOrderAsEstimator(page: Page, date: string): Promise<Placed> 
 describe('the demo desk confirms the order the demo estimator placed', () => {
   it('the estimator orders, the desk confirms it into a lorry slot, the estimator sees the slot; once delivered the desk invoices it and the estimator pays by card', async () => {
     const date = nextWorkingDay();
-    const estimatorContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const deskContext = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const estimatorContext = await journey.browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const deskContext = await journey.browser.newContext({ viewport: { width: 1440, height: 900 } });
     const failures: string[] = [];
     try {
       const estimator = await estimatorContext.newPage();
@@ -110,14 +93,14 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       expect(await desk.getByLabel('Booked delivery').innerText()).toContain(registration);
 
       // What the desk confirmed is held from the branch's stock: every packed line reserved as sent.
-      const confirmed = await desk.request.get(`${server.url}/api/orders/${placed.id}`);
+      const confirmed = await desk.request.get(`${journey.server.url}/api/orders/${placed.id}`);
       const detail = (await confirmed.json()) as { status: string; lines: { confirmed_quantity: number | null; reserved_quantity: number }[]; slot: { time_window: string } | null };
       expect(detail.status).toBe('confirmed');
       expect(detail.slot?.time_window).toBe(window);
       for (const line of detail.lines) expect(line.reserved_quantity).toBe(line.confirmed_quantity);
 
       // The estimator sees the order confirmed, with the day, window and lorry booked.
-      await estimator.goto(`${server.url}/orders/${placed.id}`);
+      await estimator.goto(`${journey.server.url}/orders/${placed.id}`);
       await estimator.getByRole('heading', { level: 1, name: `Order ${placed.reference}` }).waitFor();
       const bookedSlot = estimator.getByTestId('booked-slot');
       await expect.poll(() => bookedSlot.innerText()).toContain(window);
@@ -125,8 +108,8 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       expect(await estimator.getByText('Confirmed').count()).toBeGreaterThan(0);
 
       // The yard sends it out; the driver records the drop on the phone.
-      const yardContext = await browser.newContext();
-      const driverContext = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+      const yardContext = await journey.browser.newContext();
+      const driverContext = await journey.browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
       try {
         const yard = await yardContext.newPage();
         await signIn(yard, 'dispatch@demo.test', /\/yard$/);
@@ -173,7 +156,7 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       }
 
       // The desk's catalogue shows the branch's stock with what this order holds reserved.
-      await desk.goto(`${server.url}/catalogue`);
+      await desk.goto(`${journey.server.url}/catalogue`);
       const catalogueBranch = desk.getByLabel('Branch', { exact: true });
       await catalogueBranch.selectOption((await catalogueBranch.locator('option', { hasText: 'Tollerbeck Yard' }).getAttribute('value'))!);
       const stockTable = desk.getByRole('table', { name: 'Stock at Tollerbeck Yard' });
@@ -181,20 +164,20 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       expect(await stockTable.getByRole('row').count()).toBeGreaterThan(1);
 
       // This firm has account terms with the merchant; the desk takes them off so this invoice is paid by card.
-      const me = (await (await estimator.request.get(`${server.url}/api/auth/me`)).json()) as { organisation: { id: number } };
-      const deskToken = ((await (await desk.request.get(`${server.url}/api/auth/csrf`)).json()) as { token: string }).token;
-      const offAccount = await desk.request.delete(`${server.url}/api/accounts/${me.organisation.id}`, { headers: { 'X-CSRF-Token': deskToken } });
+      const me = (await (await estimator.request.get(`${journey.server.url}/api/auth/me`)).json()) as { organisation: { id: number } };
+      const deskToken = ((await (await desk.request.get(`${journey.server.url}/api/auth/csrf`)).json()) as { token: string }).token;
+      const offAccount = await desk.request.delete(`${journey.server.url}/api/accounts/${me.organisation.id}`, { headers: { 'X-CSRF-Token': deskToken } });
       expect([200, 204]).toContain(offAccount.status());
 
       // The desk invoices what was delivered.
-      await desk.goto(`${server.url}/desk/orders/${placed.id}`);
+      await desk.goto(`${journey.server.url}/desk/orders/${placed.id}`);
       await desk.getByRole('button', { name: 'Issue the invoice for what was delivered' }).click();
       await desk.waitForURL(/\/invoices\/\d+$/);
       const invoiceHeading = await desk.getByRole('heading', { level: 1, name: /^Invoice INV-\d{6}$/ }).innerText();
       const invoiceNumber = invoiceHeading.replace('Invoice ', '');
       expect(await desk.getByRole('link', { name: 'Printable invoice' }).getAttribute('href')).toMatch(/\/api\/invoices\/\d+\/print$/);
       const invoiceId = Number(new URL(desk.url()).pathname.split('/').pop());
-      const invoice = (await (await desk.request.get(`${server.url}/api/invoices/${invoiceId}`)).json()) as {
+      const invoice = (await (await desk.request.get(`${journey.server.url}/api/invoices/${invoiceId}`)).json()) as {
         basis: string;
         total: number;
         balance: number;
@@ -223,14 +206,14 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       // …and pays it by card on the payment service's own page (the local fake): the card number never
       // reaches Ridgeload. 4242 4242 4242 4242 is the payment service's published always-succeeds test card.
       await estimator.getByRole('button', { name: /^Pay £[\d,]+\.\d{2} by card$/ }).click();
-      await estimator.waitForURL((url) => url.href.startsWith(server.paymentsUrl));
+      await estimator.waitForURL((url) => url.href.startsWith(journey.server.paymentsUrl));
       await estimator.getByLabel('Card number').fill('4242 4242 4242 4242');
       await estimator.getByLabel('Expiry (MM/YY)').fill('12/30');
       await estimator.getByLabel('Security code').fill('123');
       await estimator.getByRole('button', { name: /^Pay / }).click();
       await estimator.waitForURL(new RegExp(`/invoices/${invoiceId}\\?payment=done`));
       await estimator.getByText('Payment received').waitFor({ timeout: 20_000 });
-      const paid = (await (await estimator.request.get(`${server.url}/api/invoices/${invoiceId}`)).json()) as { balance: number; payments: { status: string; amount: number }[] };
+      const paid = (await (await estimator.request.get(`${journey.server.url}/api/invoices/${invoiceId}`)).json()) as { balance: number; payments: { status: string; amount: number }[] };
       expect(paid.balance).toBe(0);
       expect(paid.payments.filter((pay) => pay.status === 'succeeded').map((pay) => pay.amount)).toEqual([invoice.total]);
 

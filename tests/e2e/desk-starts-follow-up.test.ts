@@ -1,26 +1,8 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, watchConsole } from '../setup/browser';
+import { describe, expect, it } from 'vitest';
 import { pageApi, signInPage } from '../setup/e2e-pages';
-import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+import { useJourney } from './harness';
 
-let server: E2eServer;
-let browser: Browser;
-let consoleProblems: ReturnType<typeof watchConsole>;
-// No page a journey visits may log an error or throw (a failed request shows as a console error too).
-afterEach(() => {
-  expect(consoleProblems.take()).toEqual([]);
-});
-
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  consoleProblems = watchConsole(browser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const journey = useJourney();
 
 interface Book {
   orders: { id: number; reference: string; status: string; po_reference: string }[];
@@ -37,8 +19,8 @@ interface Detail {
 
 describe('the desk sends the back-ordered packs on later', () => {
   it('starts the follow-up order from the part-confirmed demo order, lands on it, and the contractor sees both ends', { timeout: 90_000 }, async () => {
-    const desk = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
-    await signInPage(desk, server.url, 'sales@demo.test', /\/desk$/);
+    const desk = await (await journey.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
+    await signInPage(desk, journey.server.url, 'sales@demo.test', /\/desk$/);
     // The demo book holds one confirmed order with part of its hip tiles back-ordered (PO HB-P05).
     const book = await pageApi<Book>(desk, 'GET', '/api/orders?statuses=confirmed&sort=placed_at&dir=desc&page_size=50');
     const first = book.orders.find((o) => o.po_reference === 'HB-P05');
@@ -47,7 +29,7 @@ describe('the desk sends the back-ordered packs on later', () => {
     const owed = before.lines.filter((l) => l.back_order_quantity > 0);
     expect(owed.length).toBeGreaterThan(0);
 
-    await desk.goto(`${server.url}/desk/orders/${first!.id}`);
+    await desk.goto(`${journey.server.url}/desk/orders/${first!.id}`);
     await desk.getByRole('heading', { name: 'Back-ordered packs' }).waitFor();
     await desk.getByRole('button', { name: 'Start the follow-up order' }).click();
     await desk.waitForURL((url) => /\/desk\/orders\/\d+$/.test(url.pathname) && !url.pathname.endsWith(`/${first!.id}`));
@@ -60,13 +42,13 @@ describe('the desk sends the back-ordered packs on later', () => {
     expect(follow.lines.map((l) => [l.sku, l.quantity, l.unit_price])).toEqual(owed.map((l) => [l.sku, l.back_order_quantity, l.unit_price]));
 
     // The first order now points at it and offers no second follow-up.
-    await desk.goto(`${server.url}/desk/orders/${first!.id}`);
+    await desk.goto(`${journey.server.url}/desk/orders/${first!.id}`);
     await desk.getByRole('list', { name: 'Linked orders' }).getByText(`The back-ordered packs follow as ${follow.reference}`).waitFor();
     expect(await desk.getByRole('button', { name: 'Start the follow-up order' }).count()).toBe(0);
 
-    const estimator = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
-    await signInPage(estimator, server.url, 'estimator@demo.test', /\/contractor$/);
-    await estimator.goto(`${server.url}/orders/${followId}`);
+    const estimator = await (await journey.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
+    await signInPage(estimator, journey.server.url, 'estimator@demo.test', /\/contractor$/);
+    await estimator.goto(`${journey.server.url}/orders/${followId}`);
     await estimator.getByRole('list', { name: 'Back-ordered packs' }).getByText(`Carries the back-ordered packs of ${first!.reference}`).waitFor();
   });
 });

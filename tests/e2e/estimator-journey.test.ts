@@ -1,35 +1,18 @@
 import { readFile } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, watchConsole } from '../setup/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { signInPage } from '../setup/e2e-pages';
-import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+import { useJourney } from './harness';
 
-let server: E2eServer;
-let browser: Browser;
-let consoleProblems: ReturnType<typeof watchConsole>;
-// No page a journey visits may log an error or throw (a failed request shows as a console error too).
-afterEach(() => {
-  expect(consoleProblems.take()).toEqual([]);
-});
-
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  consoleProblems = watchConsole(browser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const journey = useJourney();
 
 /** A day two weeks ahead as YYYY-MM-DD: always a day the merchant can still be asked for. */
 function inTwoWeeks(): string {
   return new Date(Date.now() + 14 * 86_400_000).toISOString().slice(0, 10);
 }
 
-const signIn = (page: Page, email: string) => signInPage(page, server.url, email, /\/contractor$/);
+const signIn = (page: Page, email: string) => signInPage(page, journey.server.url, email, /\/contractor$/);
 
 /** The tile quantity on the bill's first line, as the page shows it ("22,176 tiles" → 22176). */
 async function tilesOnTheBill(page: Page): Promise<number> {
@@ -40,7 +23,7 @@ async function tilesOnTheBill(page: Page): Promise<number> {
 
 describe('an estimator goes from a CSV of roof faces to a placed order', () => {
   it('creates a site, fixes a bad cell in the preview, imports, estimates, exports and orders', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+    const context = await journey.browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
     const page = await context.newPage();
     const failures: string[] = [];
     page.on('pageerror', (error) => failures.push(error.message));
@@ -61,7 +44,7 @@ describe('an estimator goes from a CSV of roof faces to a placed order', () => {
       await page.getByRole('heading', { level: 1, name: 'Quarry Bank, plots 1–20' }).waitFor();
 
       // The example file, with Birch Front's eaves typed in metres (row 6 of the sheet, column G).
-      const example = await page.request.get(`${server.url}/api/examples/roof-schedule.csv`);
+      const example = await page.request.get(`${journey.server.url}/api/examples/roof-schedule.csv`);
       expect(example.ok()).toBe(true);
       const lines = (await example.text()).split('\r\n');
       expect(lines[5]).toBe('Birch,Front,8,40,5091,3900,9000,,verge,verge,ridge,Main');

@@ -1,26 +1,8 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD } from '../../seeds/01-demo';
-import { launchBrowser, watchConsole } from '../setup/browser';
-import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+import { expectAccessible, useJourney } from './harness';
 
-let server: E2eServer;
-let browser: Browser;
-let consoleProblems: ReturnType<typeof watchConsole>;
-// No page a journey visits may log an error or throw (a failed request shows as a console error too).
-afterEach(() => {
-  expect(consoleProblems.take()).toEqual([]);
-});
-
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  consoleProblems = watchConsole(browser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const journey = useJourney();
 
 const HOMES: Record<string, string> = {
   contractor_owner: '/contractor',
@@ -49,11 +31,12 @@ describe('each demo person signs in and lands on their role’s home', () => {
     it(`${email} signs in with the demo password and sees their home`, async () => {
       const person = people.find((p) => p.email === email);
       expect(person, `${email} is seeded`).toBeDefined();
-      const context = await browser.newContext({ viewport: email.startsWith('driver') ? { width: 390, height: 844 } : { width: 1280, height: 800 } });
+      const context = await journey.browser.newContext({ viewport: email.startsWith('driver') ? { width: 390, height: 844 } : { width: 1280, height: 800 } });
       const page = await context.newPage();
       try {
-        await page.goto(`${server.url}/`);
+        await page.goto(`${journey.server.url}/`);
         await page.waitForURL(/\/sign-in/);
+        await expectAccessible(page);
         await page.getByLabel('E-mail', { exact: true }).fill(email);
         await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
         await page.getByRole('button', { name: 'Sign in', exact: true }).click();
@@ -61,6 +44,7 @@ describe('each demo person signs in and lands on their role’s home', () => {
         const home = page.getByTestId(`role-home-${person!.role}`);
         await home.waitFor();
         expect(await page.locator('body').innerText()).toContain(person!.firm);
+        await expectAccessible(page);
       } finally {
         await context.close();
       }
@@ -68,16 +52,17 @@ describe('each demo person signs in and lands on their role’s home', () => {
   }
 
   it('a wrong password keeps the person on the sign-in page with a message', async () => {
-    const page = await browser.newPage();
+    const page = await journey.browser.newPage();
     // The refused sign-in is the point of this story; nothing else may log an error.
-    consoleProblems.expectRefusal('/api/auth/login', 401);
+    journey.consoleProblems.expectRefusal('/api/auth/login', 401);
     try {
-      await page.goto(`${server.url}/sign-in`);
+      await page.goto(`${journey.server.url}/sign-in`);
       await page.getByLabel('E-mail', { exact: true }).fill('sales@demo.test');
       await page.getByLabel('Password', { exact: true }).fill('not-the-password');
       await page.getByRole('button', { name: 'Sign in', exact: true }).click();
       await page.getByText(/e-mail or password is wrong/i).waitFor();
       expect(page.url()).toContain('/sign-in');
+      await expectAccessible(page);
     } finally {
       await page.close();
     }

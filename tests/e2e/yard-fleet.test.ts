@@ -1,26 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, watchConsole } from '../setup/browser';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { pageApi, signInPage } from '../setup/e2e-pages';
-import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+import { useJourney } from './harness';
 
-let server: E2eServer;
-let browser: Browser;
-let consoleProblems: ReturnType<typeof watchConsole>;
-// No page a journey visits may log an error or throw (a failed request shows as a console error too).
-afterEach(() => {
-  expect(consoleProblems.take()).toEqual([]);
-});
-
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  consoleProblems = watchConsole(browser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const journey = useJourney();
 
 const DAY = 86_400_000;
 const iso = (ms: number) => new Date(ms).toISOString().slice(0, 10);
@@ -30,7 +13,7 @@ function mondayAhead(): string {
   for (let d = 15; ; d++) if (new Date(Date.now() + d * DAY).getUTCDay() === 1) return iso(Date.now() + d * DAY);
 }
 
-const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, server.url, email, home);
+const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, journey.server.url, email, home);
 
 const api = pageApi;
 
@@ -47,9 +30,9 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
     const monday = mondayAhead();
     const sunday = iso(Date.parse(`${monday}T00:00:00Z`) + 6 * DAY);
     const saturday = iso(Date.parse(`${monday}T00:00:00Z`) + 5 * DAY);
-    const yardContext = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-    const estimatorContext = await browser.newContext();
-    const deskContext = await browser.newContext();
+    const yardContext = await journey.browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const estimatorContext = await journey.browser.newContext();
+    const deskContext = await journey.browser.newContext();
     const failures: string[] = [];
     try {
       const yard = await yardContext.newPage();
@@ -148,7 +131,7 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       // The booked load opens its run in one click; the calendar itself sends nothing out.
       expect(await booking.getByRole('link', { name: `${order.reference}: open its run` }).getAttribute('href')).toBe(`/yard/runs/${morning.id}`);
       expect(await booking.getByRole('button', { name: 'Send out' }).count()).toBe(0);
-      consoleProblems.expectRefusal(`/api/orders/${order.id}/dispatch`, 409);
+      journey.consoleProblems.expectRefusal(`/api/orders/${order.id}/dispatch`, 409);
       await expect(api(yard, 'POST', `/api/orders/${order.id}/dispatch`, {})).rejects.toThrow(new RegExp(`409.*Assign a driver to ${REGISTRATION}`));
       expect(await booking.innerText()).toContain('confirmed');
 

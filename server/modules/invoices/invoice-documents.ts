@@ -2,11 +2,8 @@ import ExcelJS from 'exceljs';
 import { CREDIT_REASON_LABELS, PAY_BY_LABELS, type Invoice } from '../../../shared/schemas/invoice.schema';
 import { safeCell } from '../exports/spreadsheet-text';
 import escapeHtml from 'escape-html';
+import { formatMoney } from '../../../shared/domain/money';
 
-/** Minor units in the invoice's currency, as people read it (£1,234.50). */
-export function formatMoney(minor: number, currency: string): string {
-  return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(minor / 100);
-}
 
 const rate = (bp: number) => `${(bp / 100).toLocaleString('en-GB', { maximumFractionDigits: 2 })}%`;
 

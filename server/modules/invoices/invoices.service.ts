@@ -16,7 +16,8 @@ import { AppError } from '../../http/app-error';
 import { renderEmail } from '../../mail/templates';
 import { ordersRepository } from '../orders/orders.repository';
 import { toPayment, type PaymentsService } from '../payments/payments.service';
-import { formatMoney, invoiceHtml, invoiceXlsx } from './invoice-documents';
+import { formatMoney } from '../../../shared/domain/money';
+import { invoiceHtml, invoiceXlsx } from './invoice-documents';
 import { invoicesRepository, type InvoiceParty, type InvoiceRow, type NewInvoiceLine } from './invoices.repository';
 
 type CreditBody = z.output<typeof creditNoteBodySchema>;

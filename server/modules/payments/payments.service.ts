@@ -8,7 +8,7 @@ import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 import { AppError } from '../../http/app-error';
 import { renderEmail } from '../../mail/templates';
-import { formatMoney } from '../invoices/invoice-documents';
+import { formatMoney } from '../../../shared/domain/money';
 import { invoicesRepository, type InvoiceParty, type PaymentRow } from '../invoices/invoices.repository';
 import { ordersRepository } from '../orders/orders.repository';
 
