@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { pageApi, signInPage } from '../setup/e2e-pages';
+import { pageApi } from '../setup/e2e-pages';
 import { useJourney } from './harness';
 
 const journey = useJourney();
@@ -10,7 +10,7 @@ function inThreeWeeks(): string {
   return new Date(Date.now() + 21 * 86_400_000).toISOString().slice(0, 10);
 }
 
-const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, journey.server.url, email, home);
+const signIn = (page: Page, email: string, home: RegExp) => journey.signIn(page, email, home);
 
 const api = pageApi;
 

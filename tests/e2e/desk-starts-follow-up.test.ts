@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { pageApi, signInPage } from '../setup/e2e-pages';
+import { pageApi } from '../setup/e2e-pages';
 import { useJourney } from './harness';
 
 const journey = useJourney();
@@ -20,7 +20,7 @@ interface Detail {
 describe('the desk sends the back-ordered packs on later', () => {
   it('starts the follow-up order from the part-confirmed demo order, lands on it, and the contractor sees both ends', { timeout: 90_000 }, async () => {
     const desk = await (await journey.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
-    await signInPage(desk, journey.server.url, 'sales@demo.test', /\/desk$/);
+    await journey.signIn(desk, 'sales@demo.test', /\/desk$/);
     // The demo book holds one confirmed order with part of its hip tiles back-ordered (PO HB-P05).
     const book = await pageApi<Book>(desk, 'GET', '/api/orders?statuses=confirmed&sort=placed_at&dir=desc&page_size=50');
     const first = book.orders.find((o) => o.po_reference === 'HB-P05');
@@ -47,7 +47,7 @@ describe('the desk sends the back-ordered packs on later', () => {
     expect(await desk.getByRole('button', { name: 'Start the follow-up order' }).count()).toBe(0);
 
     const estimator = await (await journey.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
-    await signInPage(estimator, journey.server.url, 'estimator@demo.test', /\/contractor$/);
+    await journey.signIn(estimator, 'estimator@demo.test', /\/contractor$/);
     await estimator.goto(`${journey.server.url}/orders/${followId}`);
     await estimator.getByRole('list', { name: 'Back-ordered packs' }).getByText(`Carries the back-ordered packs of ${first!.reference}`).waitFor();
   });

@@ -2,7 +2,6 @@ import { readFile } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { signInPage } from '../setup/e2e-pages';
 import { useJourney } from './harness';
 
 const journey = useJourney();
@@ -12,7 +11,7 @@ function inTwoWeeks(): string {
   return new Date(Date.now() + 14 * 86_400_000).toISOString().slice(0, 10);
 }
 
-const signIn = (page: Page, email: string) => signInPage(page, journey.server.url, email, /\/contractor$/);
+const signIn = (page: Page, email: string) => journey.signIn(page, email, /\/contractor$/);
 
 /** The tile quantity on the bill's first line, as the page shows it ("22,176 tiles" → 22176). */
 async function tilesOnTheBill(page: Page): Promise<number> {

@@ -52,7 +52,8 @@ describe('each demo person signs in and lands on their role’s home', () => {
   }
 
   it('a wrong password keeps the person on the sign-in page with a message', async () => {
-    const page = await journey.browser.newPage();
+    const context = await journey.browser.newContext();
+    const page = await context.newPage();
     // The refused sign-in is the point of this story; nothing else may log an error.
     journey.consoleProblems.expectRefusal('/api/auth/login', 401);
     try {
@@ -64,7 +65,7 @@ describe('each demo person signs in and lands on their role’s home', () => {
       expect(page.url()).toContain('/sign-in');
       await expectAccessible(page);
     } finally {
-      await page.close();
+      await context.close();
     }
   });
 });

@@ -1,6 +1,6 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { pageApi, signInPage } from '../setup/e2e-pages';
+import { pageApi } from '../setup/e2e-pages';
 import { useJourney } from './harness';
 
 const journey = useJourney();
@@ -13,7 +13,7 @@ function mondayAhead(): string {
   for (let d = 15; ; d++) if (new Date(Date.now() + d * DAY).getUTCDay() === 1) return iso(Date.now() + d * DAY);
 }
 
-const signIn = (page: Page, email: string, home: RegExp) => signInPage(page, journey.server.url, email, home);
+const signIn = (page: Page, email: string, home: RegExp) => journey.signIn(page, email, home);
 
 const api = pageApi;
 
