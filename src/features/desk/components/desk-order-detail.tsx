@@ -18,7 +18,7 @@ import { DeskStatusBadge } from './desk-status-badge';
 import { FollowUpLinks, FollowUpPanel } from './follow-up-panel';
 import { OfferChangesForm } from './offer-changes-form';
 import { OrderComments } from './order-comments';
-import { OrderTimeline } from './order-timeline';
+import { OrderTimeline } from '../../../components/orders/order-timeline';
 import { SlotBooking } from './slot-booking';
 import { TurnDownForm } from './turn-down-form';
 

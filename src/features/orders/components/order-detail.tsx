@@ -17,6 +17,7 @@ import { OrderAmounts } from '../../../components/orders/order-amounts';
 import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { OrderStages, OrderStatusBadge } from './order-status';
 import { focusOnShow } from '../../../lib/focus-on-show';
+import { OrderTimeline } from '../../../components/orders/order-timeline';
 
 const lineHelper = dataTableColumns<OrderDetailData['lines'][number]>();
 const lineColumns = lineHelper.columns([
@@ -311,20 +312,7 @@ export function OrderDetail({ order }: { order: OrderDetailData }) {
       ) : null}
 
       <Card title="History">
-        <ol className="relative space-y-4 border-l-2 border-mortar-300 pl-5" aria-label="What happened, oldest first">
-          {[...order.timeline]
-            .sort((a, b) => a.at.localeCompare(b.at) || a.id - b.id)
-            .map((event) => (
-              <li key={event.id} className="relative">
-                <span className="absolute top-1.5 -left-[1.72rem] h-3 w-3 rounded-full border-2 border-white bg-clay-600" aria-hidden="true" />
-                <p className="font-medium">{event.summary}</p>
-                <p className="text-sm text-ink-600">
-                  {formatDateTime(event.at)} · {event.actor.name}
-                  {event.actor.organisation ? `, ${event.actor.organisation.name}` : ''}
-                </p>
-              </li>
-            ))}
-        </ol>
+        <OrderTimeline events={order.timeline} />
       </Card>
     </div>
   );

@@ -1,5 +1,5 @@
-import type { OrderEvent } from '../../../../shared/schemas/order.schema';
-import { formatDateTime } from '../../../lib/format';
+import type { OrderEvent } from '../../../shared/schemas/order.schema';
+import { formatDateTime } from '../../lib/format';
 
 /** Every change to the order: who, when, what, oldest first. */
 export function OrderTimeline({ events }: { events: readonly OrderEvent[] }) {
