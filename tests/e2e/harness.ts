@@ -80,5 +80,5 @@ export async function expectAccessible(page: Page): Promise<void> {
   const blocking = results.violations
     .filter((v) => BLOCKING.has(v.impact ?? ''))
     .map((v) => `${v.impact} ${v.id} on ${new URL(page.url()).pathname}: ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-  expect(blocking).toEqual([]);
+  expect(blocking, `axe-core found on ${page.url()}:\n${blocking.join('\n')}`).toEqual([]);
 }
