@@ -1,6 +1,8 @@
 import type { Pallet } from '../../../shared/engine/delivery';
 import { ORDER_STATUS_LABELS, ORDER_TRANSITIONS, orderReference, type OrderSite } from '../../../shared/schemas/order.schema';
-import type { CreditNoteDraft, DeliveryProof, DriverDay, RunStatus } from '../../../shared/schemas/run.schema';
+import type { RoofSystem } from '../../../shared/schemas/roof-system.schema';
+import type { CreditNoteDraft, DeliveryProof, DriverDay, LandingFaceDrawing, RunStatus } from '../../../shared/schemas/run.schema';
+import { faceKey } from '../../../shared/schemas/schedule.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
@@ -14,6 +16,7 @@ import { lineTax } from '../invoices/invoices.service';
 import { sendOrderMail } from '../orders/order-mail';
 import { ordersService } from '../orders/orders.service';
 import { ordersRepository, type OrderParty, type OrderRow, type StoredOrderLine } from '../orders/orders.repository';
+import { schedulesRepository } from '../schedules/schedules.repository';
 import { slotsRepository, type SlotRow } from '../slots/slots.repository';
 import { stockRepository } from '../stock/stock.repository';
 import { deliveriesRepository, type DraftLine, type ProofLineRow } from './deliveries.repository';
@@ -75,6 +78,7 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
   const slots = slotsRepository(db);
   const fleet = fleetRepository(db);
   const estimates = estimatesRepository(db);
+  const schedules = schedulesRepository(db);
   const stock = stockRepository(db);
   const orderDetails = ordersService(deps);
 
@@ -97,6 +101,32 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
     if (!order.estimate_id) return [];
     const e = await estimates.find(order.contractor_organisation_id, order.estimate_id);
     return (e?.result.faces ?? []).map((f) => ({ building: f.building, face: f.face, tiles: f.tiles, quantity: f.quantity }));
+  }
+
+  /**
+   * For a crane drop: the roof system of the order's estimate and, per face of the estimate (keyed by
+   * building and face as the pallets name them), its shape from the schedule, the engine's figures and
+   * its openings: what the phone needs to draw the stacks, since a driver may not read the estimate.
+   */
+  async function landingDrawings(order: Pick<OrderRow, 'estimate_id' | 'contractor_organisation_id'>): Promise<{ system: RoofSystem; byFace: Map<string, LandingFaceDrawing> } | null> {
+    if (!order.estimate_id) return null;
+    const e = await estimates.find(order.contractor_organisation_id, order.estimate_id);
+    const schedule = e ? await schedules.findById(order.contractor_organisation_id, e.schedule_id) : undefined;
+    if (!e || !schedule) return null;
+    const byFace = new Map<string, LandingFaceDrawing>();
+    for (const result of e.result.faces) {
+      const key = faceKey(result.building, result.face);
+      const shape = schedule.faces.find((f) => faceKey(f.building, f.face) === key);
+      if (!shape) continue;
+      byFace.set(`${result.building}\u0000${result.face}`, {
+        shape: { eaves_mm: shape.eaves_mm, top_mm: shape.top_mm, rafter_mm: shape.rafter_mm, pitch_deg: shape.pitch_deg, left: shape.left, right: shape.right, top: shape.top },
+        result,
+        openings: schedule.openings
+          .filter((o) => faceKey(o.building, o.face) === key)
+          .map(({ building, face, kind, width_mm, height_mm, quantity }) => ({ building, face, kind, width_mm, height_mm, quantity })),
+      });
+    }
+    return { system: e.system_input, byFace };
   }
 
   async function followUpOf(orderId: number): Promise<{ reference: string; due_date: string | null } | null> {
@@ -269,6 +299,8 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
         const faces = await estimateFaces(order);
         const short = shortFaces(faces, pallets, lines, lines.some((l) => l.back_order_quantity > 0) ? await followUpOf(b.order_id) : null);
         cautions.push(orderCautions(b.delivery_method, site));
+        const drawings = b.delivery_method === 'roof' ? await landingDrawings(order) : null;
+        const landing = b.delivery_method === 'roof' ? landingPlan(faces, pallets).map((f) => ({ ...f, drawing: drawings?.byFace.get(`${f.building}\u0000${f.face}`) ?? null })) : [];
         drops.push({
           order_id: b.order_id,
           reference: orderReference(b.order_id),
@@ -285,7 +317,8 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
             .map((l) => ({ line_id: l.id, sku: l.sku, description: l.description, unit: l.unit, quantity: l.reserved_quantity > 0 ? l.reserved_quantity : (l.delivered_quantity ?? 0) })),
           notes: dropNotes(b.delivery_method, site, b.notes ?? ''),
           short_faces: short,
-          landing_plan: b.delivery_method === 'roof' ? landingPlan(faces, pallets) : [],
+          landing_plan: landing,
+          roof_system: drawings && landing.some((f) => f.drawing !== null) ? drawings.system : null,
           estimate_id: order.estimate_id,
           delivered: b.status === 'delivered',
         });
