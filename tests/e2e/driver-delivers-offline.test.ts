@@ -80,6 +80,20 @@ describe('the driver records a delivery without signal, and the contractor sees 
       // The acknowledgement reached the server while there was signal.
       await expect.poll(async () => (await pageApi<{ runs: { id: number; cautions_read_at: string | null }[] }>(driver, 'GET', '/api/driver/runs')).runs.find((r) => r.id === run.id)!.cautions_read_at).not.toBeNull();
 
+      // The morning's crane lift (delivered already) keeps its landing plan: each face drawn with its stacks,
+      // from the day alone (the driver may not read the estimate).
+      const morning = day.runs.find((r) => r.lorry.registration === REGISTRATION && r.time_window !== AFTERNOON)!;
+      const lift = driver.getByRole('region', { name: `Run ${morning.time_window} on ${REGISTRATION}` }).getByRole('article').first();
+      await lift.getByRole('button', { name: new RegExp(morning.drops[0].reference) }).click();
+      const landing = lift.getByRole('region', { name: 'Roof landing plan' });
+      const firstFace = landing.getByTestId('landing-face').first();
+      await firstFace.getByText(/^Show the stacks on /).click();
+      const faceDrawing = firstFace.getByTestId('face-drawing');
+      await faceDrawing.waitFor();
+      expect(await faceDrawing.locator('[data-testid="stack"]').count()).toBeGreaterThan(0);
+      expect(await faceDrawing.locator('[data-testid="loading-batten"]').count()).toBeGreaterThan(0);
+      expect(await firstFace.innerText()).toMatch(/Stacks of 6 on every 2nd batten from the top, \d+ stacks on this face; load both slopes in step\./);
+
       // The drop opens: the site with its maps link, then the record button.
       const card = runSection.getByRole('article', { name: new RegExp(`Drop 1 of 1: ${drop.site.name}`) });
       const header = card.getByRole('button', { name: new RegExp(drop.reference) });
