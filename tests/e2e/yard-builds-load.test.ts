@@ -43,7 +43,7 @@ const dropRefs = async (page: Page) =>
 
 describe('the yard builds today’s load and sends the lorry out by the rule', () => {
   it('the dispatcher opens today’s run, swaps its drops with the arrow buttons, ticks every pallet loaded, prints the labels and sends it out without an override', async () => {
-    const today = new BusinessCalendar(DEFAULT_BUSINESS_TIME_ZONE).today();
+    const today = new BusinessCalendar(process.env.BUSINESS_TIME_ZONE ?? DEFAULT_BUSINESS_TIME_ZONE).today();
     const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
     try {
       const yard = await context.newPage();
