@@ -9,6 +9,8 @@ import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config/env';
 import { createDb, migrateLatest, type Db } from '../../server/db/knex';
+import { createAppMailWorker } from '../../server/mail-worker';
+import type { MailWorker } from '../../server/mail/outbox-worker';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
 import type { StripeFake } from '../../server/payments/stripe-fake';
 import { startMailCapture } from './mail-capture';
@@ -23,6 +25,10 @@ export interface TestApp {
   payments: StripeFake;
   /** Where the app listens on loopback, for the payment fake's webhooks and redirects. */
   url: string;
+  /** The app's mail outbox worker (started unless MAIL_WORKER=off). */
+  mailWorker: MailWorker;
+  /** Sends every e-mail already committed to the outbox and resolves when none is left due. */
+  drainOutbox: () => Promise<void>;
   close: () => Promise<void>;
 }
 
@@ -49,7 +55,10 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
   const db = createDb(config.database);
   if (!other) await migrateLatest(db);
   const mail = await startMailCapture();
-  const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: process.env.TEST_LOG ?? 'silent' }) });
+  const deps = { config, db, mailer: mail.mailer, logger: pino({ level: process.env.TEST_LOG ?? 'silent' }) };
+  const app = createApp(deps);
+  const mailWorker = createAppMailWorker(deps);
+  if (config.mailWorker) mailWorker.start();
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -63,9 +72,12 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
     mail,
     payments: dev.fake,
     url,
+    mailWorker,
+    drainOutbox: () => mailWorker.drain(),
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
+      await mailWorker.stop();
       await dev.fake.close();
       await mail.close();
       await db.destroy();
