@@ -1,5 +1,6 @@
 import { mkdtempSync, rmSync } from 'node:fs';
-import type { Server } from 'node:http';
+import { AsyncLocalStorage } from 'node:async_hooks';
+import type { IncomingMessage, Server, ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -10,6 +11,7 @@ import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config/env';
 import { createDb, migrateLatest, type Db } from '../../server/db/knex';
 import { createAppMailWorker } from '../../server/mail-worker';
+import { outboxSignal } from '../../server/mail/outbox';
 import type { MailWorker } from '../../server/mail/outbox-worker';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
 import type { StripeFake } from '../../server/payments/stripe-fake';
@@ -58,7 +60,10 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
   const deps = { config, db, mailer: mail.mailer, logger: pino({ level: process.env.TEST_LOG ?? 'silent' }) };
   const app = createApp(deps);
   const mailWorker = createAppMailWorker(deps);
-  if (config.mailWorker) mailWorker.start();
+  if (config.mailWorker) {
+    mailWorker.start();
+    answerAfterMailIsSent(app, mailWorker);
+  }
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -86,6 +91,39 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
       rmSync(dir, { recursive: true, force: true });
     },
   };
+}
+
+const requestMail = new AsyncLocalStorage<{ committed: boolean }>();
+outboxSignal.on('committed', () => {
+  const store = requestMail.getStore();
+  if (store) store.committed = true;
+});
+
+/**
+ * Tests read a request's e-mails as soon as it answers: a request that committed mail to the outbox
+ * answers once the worker has sent it (the server itself answers at once and sends after). Mail
+ * written after the answer (the reset request's, on a later turn) is not waited for, so the answer's
+ * timing still tells nothing.
+ */
+function answerAfterMailIsSent(app: Express, worker: MailWorker) {
+  const inner = app as unknown as { handle: (req: IncomingMessage, res: ServerResponse, next?: unknown) => void };
+  const handle = inner.handle.bind(app);
+  Object.assign(app, {
+    handle(req: IncomingMessage, res: ServerResponse, next?: unknown) {
+      const store = { committed: false };
+      const end = res.end.bind(res) as (...args: unknown[]) => ServerResponse;
+      res.end = ((...args: unknown[]) => {
+        if (!store.committed) return end(...args);
+        store.committed = false;
+        void worker
+          .drain()
+          .catch(() => {})
+          .finally(() => end(...args));
+        return res;
+      }) as ServerResponse['end'];
+      requestMail.run(store, () => handle(req, res, next));
+    },
+  });
 }
 
 /** A supertest agent that keeps cookies and sends the CSRF token on every state-changing call. */
