@@ -13,7 +13,7 @@ export interface CapturedMail {
 }
 
 /** An in-process SMTP server on port 0: the app's real mailer sends to it and tests read what came. */
-export async function startMailCapture(): Promise<{ mailer: Mailer; messages: CapturedMail[]; waitFor: (to: string) => Promise<CapturedMail>; close: () => Promise<void> }> {
+export async function startMailCapture(): Promise<{ mailer: Mailer; port: number; messages: CapturedMail[]; waitFor: (to: string) => Promise<CapturedMail>; close: () => Promise<void> }> {
   const messages: CapturedMail[] = [];
   const waiters: { to: string; resolve: (m: CapturedMail) => void }[] = [];
   const server = new SMTPServer({
@@ -41,6 +41,7 @@ export async function startMailCapture(): Promise<{ mailer: Mailer; messages: Ca
   const mailer = createSmtpMailer(`smtp://127.0.0.1:${port}`, 'Ridgeload <no-reply@ridgeload.test>');
   return {
     mailer,
+    port,
     messages,
     waitFor(to: string) {
       const found = messages.find((m) => m.to.includes(to));

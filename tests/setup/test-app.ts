@@ -56,7 +56,8 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
   if (other && !other.config.databaseUrl) Object.assign(config, { databaseFile: other.config.databaseFile, database: other.config.databaseFile });
   const db = createDb(config.database);
   if (!other) await migrateLatest(db);
-  const mail = await startMailCapture();
+  // Servers on one database share one mail server, as they would in production: any of them may send a message.
+  const mail = other ? other.mail : await startMailCapture();
   const deps = { config, db, mailer: mail.mailer, logger: pino({ level: process.env.TEST_LOG ?? 'silent' }) };
   const app = createApp(deps);
   const mailWorker = createAppMailWorker(deps);
@@ -84,7 +85,7 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
       server.closeAllConnections();
       await mailWorker.stop();
       await dev.fake.close();
-      await mail.close();
+      if (!other) await mail.close();
       await db.destroy();
       await pgDb?.drop();
       // A second server leaves the database to the first.
