@@ -3,7 +3,6 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb, type Db } from '../../server/db/knex';
 import { TEST_PASSWORD, makeOrgWithUser } from '../setup/factories';
@@ -84,14 +83,25 @@ describe('mail across a crash', () => {
     db = createDb(pg ? pg.url : join(dir, 'ridgeload.sqlite'));
     const owner = await makeOrgWithUser(db, 'contractor', 'contractor_owner');
     const url = `http://127.0.0.1:${port}`;
-    const agent = request.agent(url);
-    const token = async () => (await agent.get('/api/auth/csrf').expect(200)).body.token as string;
-    expect((await agent.post('/api/auth/login').set('X-CSRF-Token', await token()).send({ email: owner.email, password: TEST_PASSWORD })).status).toBe(200);
+    // A browser's cookie and CSRF token, by hand over plain fetch.
+    let cookie = '';
+    const call = async (method: string, path: string, body?: unknown, token?: string) => {
+      const res = await fetch(`${url}${path}`, {
+        method,
+        headers: { cookie, ...(token ? { 'x-csrf-token': token } : {}), ...(body ? { 'content-type': 'application/json' } : {}) },
+        body: body ? JSON.stringify(body) : undefined,
+      });
+      const set = res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+      if (set) cookie = set;
+      return { status: res.status, body: (await res.json().catch(() => null)) as Record<string, unknown> | null };
+    };
+    const token = async () => (await call('GET', '/api/auth/csrf')).body!.token as string;
+    expect((await call('POST', '/api/auth/login', { email: owner.email, password: TEST_PASSWORD }, await token())).status).toBe(200);
     const csrf = await token();
 
     // A burst of invitations, each committed with its e-mail before it is answered.
     const addresses = Array.from({ length: BURST }, (_, i) => `crash.${i}@outbox.test`);
-    const answers = await Promise.all(addresses.map((email) => agent.post('/api/invitations').set('X-CSRF-Token', csrf).send({ email, role: 'contractor_estimator' })));
+    const answers = await Promise.all(addresses.map((email) => call('POST', '/api/invitations', { email, role: 'contractor_estimator' }, csrf)));
     expect(answers.map((a) => a.status)).toEqual(addresses.map(() => 201));
     await killHard(child);
     child = undefined;
