@@ -192,7 +192,8 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
   async function mailDelivered(trx: Db, user: AuthUser, orderId: number, proof: ProofLineRow[], lines: Map<number, StoredOrderLine>, receiver: string, booked: boolean) {
     const party = { kind: 'merchant' as const, organisationId: user.organisation.id };
     const order = (await orders.find(party, orderId, trx))!;
-    const [contractor, desk] = await Promise.all([orders.contractorEmails(order, trx), orders.deskEmails(order.merchant_organisation_id, trx)]);
+    const contractor = await orders.contractorEmails(order, trx);
+    const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
     await sendOrderMail(trx, deps, 'delivered', order, { contractor: [], desk });
     // The delivery note prints once the order is on a run; without one there is nothing to send.
     if (contractor.length === 0 || !booked) return;

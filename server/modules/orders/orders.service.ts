@@ -108,7 +108,10 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
   /** Writes the step's e-mails to the outbox in the step's own transaction, from the order as the step left it. */
   async function notify(trx: Db, event: OrderMailEvent, orderId: number, party: OrderParty, note?: string) {
     const order = (await orders.find(party, orderId, trx))!;
-    const [contractor, desk, booking] = await Promise.all([orders.contractorEmails(order, trx), orders.deskEmails(order.merchant_organisation_id, trx), slots.booking(orderId, trx)]);
+    // One after another: a transaction is one connection, which runs one query at a time.
+    const contractor = await orders.contractorEmails(order, trx);
+    const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
+    const booking = await slots.booking(orderId, trx);
     const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id, trx) : undefined;
     await sendOrderMail(trx, deps, event, order, { contractor, desk }, note, slot ? { date: slot.date, time_window: slot.time_window, registration: slot.registration } : undefined, party.kind);
   }

@@ -55,7 +55,8 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     if (!inv) return;
     const order = await orders.find({ kind: 'merchant', organisationId: inv.merchant_organisation_id }, inv.order_id, trx);
     if (!order) return;
-    const [contractor, desk] = await Promise.all([orders.contractorEmails(order, trx), orders.deskEmails(order.merchant_organisation_id, trx)]);
+    const contractor = await orders.contractorEmails(order, trx);
+    const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
     const paid = formatMoney(amount, inv.currency);
     const number = invoiceNumber(inv.number);
     const url = `${config.appUrl}/invoices/${invoiceId}`;

@@ -313,7 +313,8 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
         for (const orderId of sent) {
           const order = await orders.find(party, orderId, trx);
           if (!order) continue;
-          const [contractor, desk] = await Promise.all([orders.contractorEmails(order, trx), orders.deskEmails(order.merchant_organisation_id, trx)]);
+          const contractor = await orders.contractorEmails(order, trx);
+          const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
           await sendOrderMail(trx, deps, 'dispatched', order, { contractor, desk }, undefined, { date: d.row.date, time_window: d.row.time_window, registration: d.row.registration }, 'merchant');
         }
       });
