@@ -57,6 +57,10 @@ export function authService({ db, config, logger }: AppDeps) {
       runLater(logger, 'password reset e-mail', async () => {
         const user = await users.findByEmail(email);
         if (!user) return;
+        // Up to here both kinds of address do the same. The rest (a transaction, and the outbox's
+        // worker waking on its commit) waits for the next turn of the event loop, so it never runs
+        // before the answer has left.
+        await new Promise((resolve) => setImmediate(resolve));
         const { token, tokenHash } = newToken();
         const url = `${config.appUrl}/reset-password?token=${encodeURIComponent(token)}`;
         const message = renderEmail({
