@@ -8,6 +8,7 @@ import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 import { AppError } from '../../http/app-error';
+import { enqueueMail, type AttachmentRef } from '../../mail/outbox';
 import { renderEmail } from '../../mail/templates';
 import { orderCautions } from '../estimates/cautions';
 import { estimatesRepository } from '../estimates/estimates.repository';
@@ -71,8 +72,11 @@ interface BookingWithOrder {
 /** How a draft becomes a credit note: the invoices module's own credit step (numbering, refunds). */
 export type IssueCredit = (user: AuthUser, invoiceId: number, body: { reason: 'shortage' | 'damage'; notes?: string; lines: { invoice_line_id: number; quantity: number }[] }) => Promise<unknown>;
 
+/** The outbox's name for a delivery note attached by reference. */
+export const DELIVERY_NOTE_ATTACHMENT = 'delivery-note';
+
 export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, issueCredit?: IssueCredit) {
-  const { db, config, mailer, logger } = deps;
+  const { db, config } = deps;
   const repo = deliveriesRepository(db);
   const orders = ordersRepository(db);
   const slots = slotsRepository(db);
@@ -210,41 +214,40 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
     });
   }
 
-  async function mailDeliveryNote(user: AuthUser, orderId: number) {
+  /**
+   * Writes the delivery's e-mails to the outbox in the recording transaction: the desk's note, and the
+   * contractor's with the signed delivery note attached. The PDF (with its photos) is named by
+   * reference and made by the worker when it sends, from the proof this transaction records.
+   */
+  async function mailDelivered(trx: Db, user: AuthUser, orderId: number, proof: ProofLineRow[], lines: Map<number, StoredOrderLine>, receiver: string, booked: boolean) {
     const party = { kind: 'merchant' as const, organisationId: user.organisation.id };
-    const order = (await orders.find(party, orderId))!;
-    const [contractor, desk] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id)]);
-    await sendOrderMail(deps, 'delivered', order, { contractor: [], desk });
-    if (contractor.length === 0) return;
-    let pdf: Buffer;
-    try {
-      pdf = await notePdf(order);
-    } catch (err) {
-      logger.error({ err, order: orderId }, 'delivery note could not be made for the e-mail');
-      return;
-    }
+    const order = (await orders.find(party, orderId, trx))!;
+    const contractor = await orders.contractorEmails(order, trx);
+    const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
+    await sendOrderMail(trx, deps, 'delivered', order, { contractor: [], desk });
+    // The delivery note prints once the order is on a run; without one there is nothing to send.
+    if (contractor.length === 0 || !booked) return;
     const ref = orderReference(orderId);
-    const proof = await proofOf(order);
-    const short = (proof?.lines ?? []).filter((l) => l.short + l.damaged > 0);
-    await Promise.all(
-      contractor.map((to) =>
-        mailer
-          .send({
-            ...renderEmail({
-              to,
-              subject: `Order ${ref} delivered: delivery note attached`,
-              heading: `Order ${ref} delivered`,
-              paragraphs: [
-                `The driver handed the delivery over at ${order.site_name}${proof ? ` to ${proof.receiver_name}` : ''}. The signed delivery note is attached.`,
-                ...(short.length > 0 ? [`Short or damaged: ${short.map((l) => `${l.description} ${l.short + l.damaged} of ${l.sent}`).join('; ')}. ${order.merchant_name} will credit them.`] : []),
-              ],
-              action: { label: 'Open the order', url: `${config.appUrl}/orders/${orderId}` },
-            }),
-            attachments: [{ filename: `delivery-note-${ref}.pdf`, content: pdf, contentType: 'application/pdf' }],
-          })
-          .catch((err: unknown) => logger.error({ err, order: orderId }, 'delivery note e-mail failed')),
-      ),
-    );
+    const short = proof.filter((l) => l.short + l.damaged > 0);
+    for (const to of contractor) {
+      await enqueueMail(
+        trx,
+        {
+          ...renderEmail({
+            to,
+            subject: `Order ${ref} delivered: delivery note attached`,
+            heading: `Order ${ref} delivered`,
+            paragraphs: [
+              `The driver handed the delivery over at ${order.site_name} to ${receiver}. The signed delivery note is attached.`,
+              ...(short.length > 0 ? [`Short or damaged: ${short.map((l) => `${lines.get(l.order_line_id)?.description ?? ''} ${l.short + l.damaged} of ${l.sent}`).join('; ')}. ${order.merchant_name} will credit them.`] : []),
+            ],
+            action: { label: 'Open the order', url: `${config.appUrl}/orders/${orderId}` },
+          }),
+          attachments: [{ filename: `delivery-note-${ref}.pdf`, contentType: 'application/pdf', render: { kind: DELIVERY_NOTE_ATTACHMENT, organisation_id: user.organisation.id, order_id: orderId } }],
+        },
+        config.mailDomain,
+      );
+    }
   }
 
   async function notePdf(order: OrderRow): Promise<Buffer> {
@@ -462,8 +465,8 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
           summary: `Delivered, received by ${record.receiver_name}${short.length > 0 ? `; short: ${short.join(', ')}` : ''}${damaged.length > 0 ? `; damaged: ${damaged.join(', ')}` : ''}${files.length > 0 ? `; ${files.filter((f) => f.kind === 'photo').length} photos` : ''}`,
           data: { received_by: record.receiver_name, delivered_at: at, short, damaged, proof_id: proofId, credit_note_draft_id: draftId, ...(record.note ? { notes: record.note } : {}) },
         });
+        await mailDelivered(trx, user, orderId, proof, byId, record.receiver_name, !!booking);
       });
-      await mailDeliveryNote(user, orderId);
       // The order as the desk sees it (as this route always answered), with the proof beside it.
       const detail = await orderDetails.get(user, orderId);
       return { ...detail, proof: (await proofOf((await orders.find(partyOf(user), orderId))!))! };
@@ -481,6 +484,13 @@ export function deliveriesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger'
       const f = p ? await repo.fileData(p.id, fileId, kind, thumbnail) : undefined;
       if (!f) throw AppError.notFound(kind === 'signature' ? 'Signature' : 'Photo');
       return f;
+    },
+
+    /** The delivery note sent with the contractor's e-mail, made when the outbox sends it. */
+    async deliveryNoteForMail(ref: AttachmentRef): Promise<Buffer> {
+      const order = await orders.find({ kind: 'merchant', organisationId: Number(ref.organisation_id) }, Number(ref.order_id));
+      if (!order) throw new Error(`the delivery note of order ${String(ref.order_id)} cannot be made: the order is gone`);
+      return notePdf(order);
     },
 
     async deliveryNote(user: AuthUser, orderId: number) {

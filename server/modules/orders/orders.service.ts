@@ -105,11 +105,15 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
   const runs = runsService(deps);
   const stock = stockRepository(db);
 
-  async function notify(event: OrderMailEvent, orderId: number, party: OrderParty, note?: string) {
-    const order = (await orders.find(party, orderId))!;
-    const [contractor, desk, booking] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id), slots.booking(orderId)]);
-    const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id) : undefined;
-    await sendOrderMail(deps, event, order, { contractor, desk }, note, slot ? { date: slot.date, time_window: slot.time_window, registration: slot.registration } : undefined, party.kind);
+  /** Writes the step's e-mails to the outbox in the step's own transaction, from the order as the step left it. */
+  async function notify(trx: Db, event: OrderMailEvent, orderId: number, party: OrderParty, note?: string) {
+    const order = (await orders.find(party, orderId, trx))!;
+    // One after another: a transaction is one connection, which runs one query at a time.
+    const contractor = await orders.contractorEmails(order, trx);
+    const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
+    const booking = await slots.booking(orderId, trx);
+    const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id, trx) : undefined;
+    await sendOrderMail(trx, deps, event, order, { contractor, desk }, note, slot ? { date: slot.date, time_window: slot.time_window, registration: slot.registration } : undefined, party.kind);
   }
 
   /** Lines priced at the branch now; each product must be one the branch sells. */
@@ -368,9 +372,9 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           data: { lines: lines.length, subtotal, ...(from.quoteId ? { quote_id: from.quoteId } : {}) },
         });
         if (from.alsoInTransaction) await from.alsoInTransaction(trx, orderId);
+        await notify(trx, 'placed', orderId, partyOf(user));
         return orderId;
       });
-      await notify('placed', id, partyOf(user));
       return get(user, id);
     },
 
@@ -405,8 +409,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           summary: changes.length > 0 ? `Changed ${changes.join(', ').replace(/_/g, ' ')}` : 'Sent again unchanged',
           data: { changes },
         });
+        await notify(trx, 'amended', id, partyOf(user));
       });
-      await notify('amended', id, partyOf(user));
       return get(user, id);
     },
 
@@ -419,8 +423,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         }
         await orders.supersedeOpenProposals(trx, id);
         await orders.insertEvent(trx, id, { kind: 'cancelled', actor: actorOf(user), summary: reason ? `Cancelled: ${reason}` : 'Cancelled', data: reason ? { reason } : {} });
+        await notify(trx, 'cancelled', id, partyOf(user), reason);
       });
-      await notify('cancelled', id, partyOf(user), reason);
       return get(user, id);
     },
 
@@ -522,9 +526,9 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           body.proposed_slot_id ? 'a delivery slot' : null,
         ].filter(Boolean);
         await orders.insertEvent(trx, id, { kind: 'changes_offered', actor: actorOf(user), summary: `Offered changes: ${parts.join(', ')}`, data: { proposal_id: pid } });
+        await notify(trx, 'changes_offered', id, partyOf(user), body.message);
         return pid;
       });
-      await notify('changes_offered', id, partyOf(user), body.message);
       return { proposal_id: proposalId, order: await get(user, id) };
     },
 
@@ -610,8 +614,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           summary: note ? `Accepted the offered changes: ${note}` : 'Accepted the offered changes',
           data: { proposal_id: proposalId, substitutes: substitutes.length },
         });
+        await notify(trx, 'changes_accepted', id, partyOf(user), note);
       });
-      await notify('changes_accepted', id, partyOf(user), note);
       return get(user, id);
     },
 
@@ -632,8 +636,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           summary: note ? `Declined the offered changes: ${note}` : 'Declined the offered changes',
           data: { proposal_id: proposalId },
         });
+        await notify(trx, 'changes_declined', id, partyOf(user), note);
       });
-      await notify('changes_declined', id, partyOf(user), note);
       return get(user, id);
     },
 
@@ -713,8 +717,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           summary: `Confirmed ${plan.filter((p) => p.send > 0).length} lines from stock${backOrdered > 0 ? `, ${backOrdered} packs back-ordered` : ''}${slotNote}`,
           data: { reserved: Object.fromEntries(plan.map((p) => [p.line.sku, p.send])), back_ordered: backOrdered, ...(body.slot_id ? { slot_id: body.slot_id } : {}) },
         });
+        await notify(trx, 'confirmed', id, partyOf(user));
       });
-      await notify('confirmed', id, partyOf(user));
       return get(user, id);
     },
 
@@ -731,8 +735,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         }
         await orders.supersedeOpenProposals(trx, id);
         await orders.insertEvent(trx, id, { kind: 'turned_down', actor: actorOf(user), summary: `Turned down: ${reason}`, data: { reason } });
+        await notify(trx, 'turned_down', id, partyOf(user), reason);
       });
-      await notify('turned_down', id, partyOf(user), reason);
       return get(user, id);
     },
 
@@ -745,8 +749,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         if (order.status !== 'confirmed') throw AppError.conflict('order_not_confirmed', `Only a confirmed order can be booked onto a lorry; ${orderReference(id)} is ${ORDER_STATUS_LABELS[order.status].toLowerCase()}`);
         const slot = await slots.book(trx, user, order, slotId, await slots.loadOf(trx, order, await orders.lines(id, trx)));
         await orders.insertEvent(trx, id, { kind: 'slot_booked', actor: actorOf(user), summary: `Delivery booked ${slot.date} ${slot.time_window} on ${slot.registration}`, data: { slot_id: slot.id } });
+        await notify(trx, 'slot_booked', id, partyOf(user));
       });
-      await notify('slot_booked', id, partyOf(user));
       return get(user, id);
     },
 
@@ -778,8 +782,8 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         await runs.assertOrderMayLeave(user, id, trx);
         if (!(await orders.updateIf(trx, id, { statuses: t.from }, { status: t.to }, false))) throw AppError.conflict('order_changed', 'The order changed at the same moment; reload it and try again');
         await orders.insertEvent(trx, id, { kind: 'dispatched', actor: actorOf(user), summary: `Out for delivery on ${slot.registration} with ${slot.driver_name}`, data: { slot_id: slot.id } });
+        await notify(trx, 'dispatched', id, partyOf(user));
       });
-      await notify('dispatched', id, partyOf(user));
       return get(user, id);
     },
 
@@ -856,9 +860,9 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           summary: `Back-ordered packs (${packs}) follow as ${orderReference(newId)}, wanted ${wanted}`,
           data: { follow_up_order_id: newId, packs },
         });
+        await notify(trx, 'follow_up_started', newId, partyOf(user), body.note);
         return newId;
       });
-      await notify('follow_up_started', followUpId, partyOf(user), body.note);
       return get(user, followUpId);
     },
 
@@ -874,10 +878,10 @@ export function ordersService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         if (!order) throw AppError.notFound('Order');
         const cid = await orders.insertComment(trx, id, { userId: user.id, name: user.name, organisationId: user.organisation.id, body });
         await orders.insertEvent(trx, id, { kind: 'commented', actor: actorOf(user), summary: `Comment: ${body.length > 120 ? `${body.slice(0, 117)}…` : body}`, data: { comment_id: cid } });
+        await notify(trx, 'commented', id, partyOf(user), body);
         return cid;
       });
       const c = (await orders.comments(id)).find((x) => x.id === commentId)!;
-      await notify('commented', id, partyOf(user), body);
       const { organisationKind: _kind, ...comment } = c;
       return comment;
     },
