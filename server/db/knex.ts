@@ -1,5 +1,6 @@
 import knexFactory, { type Knex } from 'knex';
 import pg from 'pg';
+import { dialectOf } from './dialect';
 import { MigrationSource } from './migration-source';
 
 export type Db = Knex;
@@ -158,6 +159,23 @@ function cachePreparedStatements(conn: Connection): void {
   };
 }
 
+/** Any fixed number, the same in every server: the advisory lock that lets one server migrate at a time. */
+const MIGRATION_LOCK = 7_301_202_612;
+
+/**
+ * Brings the database to the latest migration. Servers starting together on one PostgreSQL database
+ * each try, and knex alone would let them trip over each other (creating its own tables twice, or
+ * refusing with MigrationLocked), so on PostgreSQL each first takes an advisory lock, held by a
+ * transaction of its own while the migrations run on the pool's other connections: the others wait
+ * for it and then find nothing left to do.
+ */
 export async function migrateLatest(db: Db): Promise<void> {
-  await db.migrate.latest();
+  if (dialectOf(db) !== 'postgres') {
+    await db.migrate.latest();
+    return;
+  }
+  await db.transaction(async (trx) => {
+    await trx.raw('select pg_advisory_xact_lock(?)', [MIGRATION_LOCK]);
+    await db.migrate.latest();
+  });
 }
