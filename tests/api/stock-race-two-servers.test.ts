@@ -92,7 +92,7 @@ describe('200 confirmations split across two server processes, racing for the la
     const answers = await Promise.all(
       ids.map(async (id, i) => {
         const desk = desks[Math.floor(i / 2) % 2];
-        // A client waits as long as a 503 asks (Retry-After) and tries again, as the app's own client does.
+        // A client waits as long as a 503 asks (Retry-After) and tries again; any other answer is final.
         for (let attempt = 1; ; attempt++) {
           const res = await fetch(`${servers[i % 2].url}/api/orders/${id}/confirm`, {
             method: 'POST',
