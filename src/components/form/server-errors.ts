@@ -15,12 +15,19 @@ export const friendlyIssueMessage = (issue: z.core.$ZodRawIssue): string | undef
 /**
  * The form's values by field path ("lines.2.quantity" → "4"), as a browser would post the form:
  * a ticked box without a value is "on", an unticked box, an unchosen radio and an unmounted field are
- * left out. The form schemas read this, so a field's name is the path its errors come back on.
+ * left out; the files of a file input stay a list. The form schemas read this, so a field's name is
+ * the path its errors come back on.
  */
 export function flattenFieldValues(values: unknown, prefix = '', into: Record<string, unknown> = {}): Record<string, unknown> {
   if (values === null || values === undefined || values === false) return into;
   if (values === true) {
     into[prefix] = 'on';
+    return into;
+  }
+  // A file input gives a list of files: it stays a list under its own name.
+  const files = typeof FileList !== 'undefined' && values instanceof FileList ? Array.from(values) : null;
+  if (files || (Array.isArray(values) && values.length > 0 && values.every((v) => v instanceof Blob))) {
+    into[prefix] = files ?? values;
     return into;
   }
   if (typeof values === 'object' && !(values instanceof Blob) && !(values instanceof Date)) {
