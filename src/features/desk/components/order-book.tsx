@@ -100,7 +100,7 @@ const inputClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px
 /** The search words and the date range, read into the order book's query and checked with its schema. */
 const searchFormSchema = z
   .record(z.string(), z.string())
-  .transform((values) => ({ q: values.q?.trim() || undefined, date_from: values.date_from || undefined, date_to: values.date_to || undefined }))
+  .transform((values): z.input<typeof orderBookQuerySchema> => ({ q: values.q?.trim() || undefined, date_from: values.date_from || undefined, date_to: values.date_to || undefined }))
   .pipe(orderBookQuerySchema);
 
 interface OrderSearchProps {
