@@ -1,10 +1,8 @@
 import { useId } from 'react';
-import { z } from 'zod';
+import type { FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { ORDER_DATE_FIELDS, ORDER_SORTS, ORDER_STATUSES, ORDER_STATUS_LABELS, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import type { OrderSummary } from '../../../../shared/schemas/order.schema';
-import { FieldMessage, Form, fieldIds } from '../../../components/form/fields';
-import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { ListPager, PhoneSortSelect, keepListOrder, sortChoices, useListAddress } from '../../../components/ui/server-list';
@@ -97,68 +95,6 @@ export function filtersFromSearch(search: URLSearchParams): OrderBookFilters {
 const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
 const inputClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-3';
 
-/** The search words and the date range, read into the order book's query and checked with its schema. */
-const searchFormSchema = z
-  .record(z.string(), z.string())
-  .transform((values): z.input<typeof orderBookQuerySchema> => ({ q: values.q?.trim() || undefined, date_from: values.date_from || undefined, date_to: values.date_to || undefined }))
-  .pipe(orderBookQuerySchema);
-
-interface OrderSearchProps {
-  filters: OrderBookFilters;
-  onSearch: (found: { q: string; date_from: string; date_to: string }) => void;
-  onDateField: (dateField: string) => void;
-  /** Offered when a filter is on. */
-  onClear?: () => void;
-}
-
-function OrderSearch({ filters, onSearch, onDateField, onClear }: OrderSearchProps) {
-  const form = useSchemaForm({
-    schema: searchFormSchema,
-    onSubmit: (query) => onSearch({ q: query.q ?? '', date_from: query.date_from ?? '', date_to: query.date_to ?? '' }),
-  });
-  const dateError = form.fieldError('date_from') ?? form.fieldError('date_to');
-  const ids = fieldIds(form, 'dates');
-  return (
-    <Form form={form} label="Order search" className="space-y-2">
-      <div role="search" className="flex flex-wrap items-end gap-3">
-        <div className="min-w-56 flex-1">
-          <label htmlFor={`${form.id}-q`} className="mb-1 block text-sm font-medium">Search orders</label>
-          <input id={`${form.id}-q`} type="search" defaultValue={filters.q ?? ''} placeholder="RL-000123, PO, site or contractor" className={`${inputClass} w-full`} {...form.register('q')} />
-        </div>
-        <div>
-          <label htmlFor={`${form.id}-field`} className="mb-1 block text-sm font-medium">Dates of</label>
-          <select id={`${form.id}-field`} value={filters.date_field} onChange={(e) => onDateField(e.target.value)} className={selectClass}>
-            {ORDER_DATE_FIELDS.map((f) => (
-              <option key={f} value={f}>{f === 'requested_date' ? 'Day wanted' : 'Day placed'}</option>
-            ))}
-          </select>
-        </div>
-        {(['date_from', 'date_to'] as const).map((name) => (
-          <div key={name}>
-            <label htmlFor={`${form.id}-${name}`} className="mb-1 block text-sm font-medium">{name === 'date_from' ? 'From' : 'To'}</label>
-            <input
-              id={`${form.id}-${name}`}
-              type="date"
-              defaultValue={filters[name] ?? ''}
-              aria-invalid={form.fieldError(name) ? true : undefined}
-              aria-describedby={form.fieldError(name) ? ids.error : undefined}
-              className={`${inputClass} aria-[invalid=true]:border-brick-600`}
-              {...form.register(name)}
-            />
-          </div>
-        ))}
-        <Button type="submit" variant="secondary">Search</Button>
-        {onClear ? (
-          <Button variant="ghost" onClick={onClear}>
-            Clear the filters
-          </Button>
-        ) : null}
-      </div>
-      {dateError ? <FieldMessage id={ids.error}>{dateError}</FieldMessage> : null}
-    </Form>
-  );
-}
-
 /** The merchant's order book: every order to its branches, filtered, sorted and paged by the server. */
 export function OrderBook() {
   const { search, setSearch, set } = useListAddress();
@@ -172,6 +108,11 @@ export function OrderBook() {
    */
   // Another order puts a different set of orders on page 2, so a new sort starts again at page 1.
   const sortBy = (sort: OrderSort, dir: SortDir) => set({ sort, dir }, { step: true });
+  const onSearch = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const data = new FormData(event.currentTarget);
+    set({ q: String(data.get('q') ?? '').trim(), date_from: String(data.get('date_from') ?? ''), date_to: String(data.get('date_to') ?? '') });
+  };
   const pageSize = filters.page_size;
   const page = filters.page;
   const total = orders.data?.total ?? 0;
@@ -209,13 +150,34 @@ export function OrderBook() {
           </select>
         </div>
       </div>
-      <OrderSearch
-        key={[filters.q, filters.date_from, filters.date_to].join('|')}
-        filters={filters}
-        onSearch={(found) => set(found)}
-        onDateField={(dateField) => set({ date_field: dateField })}
-        onClear={filtered ? () => setSearch(keepListOrder(search), { replace: true }) : undefined}
-      />
+      <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={[filters.q, filters.date_from, filters.date_to].join('|')}>
+        <div className="min-w-56 flex-1">
+          <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">Search orders</label>
+          <input id={`${id}-q`} name="q" type="search" defaultValue={filters.q ?? ''} placeholder="RL-000123, PO, site or contractor" className={`${inputClass} w-full`} />
+        </div>
+        <div>
+          <label htmlFor={`${id}-field`} className="mb-1 block text-sm font-medium">Dates of</label>
+          <select id={`${id}-field`} value={filters.date_field} onChange={(e) => set({ date_field: e.target.value })} className={selectClass}>
+            {ORDER_DATE_FIELDS.map((f) => (
+              <option key={f} value={f}>{f === 'requested_date' ? 'Day wanted' : 'Day placed'}</option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor={`${id}-from`} className="mb-1 block text-sm font-medium">From</label>
+          <input id={`${id}-from`} name="date_from" type="date" defaultValue={filters.date_from ?? ''} className={inputClass} />
+        </div>
+        <div>
+          <label htmlFor={`${id}-to`} className="mb-1 block text-sm font-medium">To</label>
+          <input id={`${id}-to`} name="date_to" type="date" defaultValue={filters.date_to ?? ''} className={inputClass} />
+        </div>
+        <Button type="submit" variant="secondary">Search</Button>
+        {filtered ? (
+          <Button variant="ghost" onClick={() => setSearch(keepListOrder(search), { replace: true })}>
+            Clear the filters
+          </Button>
+        ) : null}
+      </form>
       {orders.isPending ? (
         <SkeletonBlock label="Loading the order book" lines={8} />
       ) : orders.isError ? (
