@@ -2,6 +2,7 @@ import { useMemo } from 'react';
 import { lowestPitch } from '../../../../shared/engine/courses';
 import type { RoofSystemOffer } from '../../../../shared/schemas/catalogue.schema';
 import type { Face } from '../../../../shared/schemas/schedule.schema';
+import { useSchemaFormContext } from '../../../components/form/fields';
 import { formatMoney } from '../../../lib/format';
 
 const STOCK_WORDS = { in_stock: 'In stock', low: 'Low stock', out_of_stock: 'Out of stock' } as const;
@@ -17,6 +18,7 @@ interface SystemPickerProps {
 
 /** A merchant branch's roof system as a choice: the tile's figures, its prices and stock, and faces it cannot be laid on. */
 function SystemOption({ offer, faces, checked, invalid, describedBy }: { offer: RoofSystemOffer; faces: readonly Face[]; checked: boolean; invalid: boolean; describedBy?: string }) {
+  const form = useSchemaFormContext();
   const low = lowestPitch(offer.tile.headlap_mm);
   const unsuitable = faces.filter((f) => f.pitch_deg < low - 1e-9);
   const tile = offer.components.find((c) => c.role === 'tile');
@@ -25,7 +27,7 @@ function SystemOption({ offer, faces, checked, invalid, describedBy }: { offer: 
     <label className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50 has-[:checked]:ring-1 has-[:checked]:ring-clay-600">
       <input
         type="radio"
-        name="system_id"
+        {...form.register('system_id')}
         value={offer.id}
         defaultChecked={checked}
         aria-invalid={invalid || undefined}
