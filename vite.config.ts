@@ -26,6 +26,9 @@ const VENDOR_CHUNKS = [
   { name: 'dnd', test: /[\\/]node_modules[\\/]@dnd-kit[\\/]/, priority: 40 },
   { name: 'signature', test: /[\\/]node_modules[\\/]signature_pad[\\/]/, priority: 40 },
   { name: 'csv', test: /[\\/]node_modules[\\/]papaparse[\\/]/, priority: 40 },
+  // The app's own code that the first page needs, in one file with the entry rather than a handful of
+  // small shared pieces, each another request before the sign-in form can show.
+  { name: 'shell', tags: ['$initial' as const], test: /[\\/](src|shared)[\\/]/, priority: 10 },
 ];
 
 /** The pages a driver opens without signal: their code is kept on the phone ahead of need. */

@@ -13,11 +13,11 @@ export interface PageModule {
 
 export type PageLoader = () => Promise<PageModule>;
 
-type Cautions = typeof import('./routes/cautions');
+const loadCautions = () => import('./routes/cautions');
 
-function withCaution<M>(load: () => Promise<M>, pick: (m: M) => ComponentType, caution: (c: Cautions) => ComponentType): PageLoader {
+function withCaution<M>(load: () => Promise<M>, pick: (m: M) => ComponentType, caution: (c: Awaited<ReturnType<typeof loadCautions>>) => ComponentType): PageLoader {
   return async () => {
-    const [m, c] = await Promise.all([load(), import('./routes/cautions')]);
+    const [m, c] = await Promise.all([load(), loadCautions()]);
     const Caution = caution(c);
     return { Component: pick(m), handle: { caution: <Caution /> } };
   };

@@ -106,7 +106,8 @@ describe('app routes', () => {
     fireEvent.input(await screen.findByLabelText('E-mail'), { target: { value: 'sam@carnbrea-tiles.test' } });
     fireEvent.input(screen.getByLabelText('Password'), { target: { value: 'ridgeload-demo' } });
     fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
-    expect(await screen.findByRole('heading', { level: 1, name: 'Team' })).toBeTruthy();
+    // Signing in, then the team page's guard, code and data: more steps than the default wait on a busy machine.
+    expect(await screen.findByRole('heading', { level: 1, name: 'Team' }, { timeout: 5_000 })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/team');
   });
 

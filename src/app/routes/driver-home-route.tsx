@@ -1,13 +1,22 @@
+import { lazy, Suspense } from 'react';
 import { SectionBoundary } from '../../components/errors/section-boundary';
 import { DriverToday } from '../../features/deliveries/components/driver-today';
 import { BranchList } from '../../features/organisation/components/branch-list';
 import { firstName } from '../../lib/format';
 import { usePageTitle } from '../../lib/use-page-title';
 import { useCurrentSession } from '../current-session';
-import { LandingFaceDrawing } from './landing-face-drawing';
+import { SkeletonBlock } from '../../components/ui/skeleton';
 import { RoleHome } from './role-home';
 
-const renderFaceDrawing = (estimateId: number, faceIndex: number) => <LandingFaceDrawing estimateId={estimateId} faceIndex={faceIndex} />;
+// The face drawing (its geometry and the schedule it reads) loads when a drop's landing plan is opened,
+// not with the day's list. The service worker keeps it on the phone with the rest of the driver's pages.
+const LandingFaceDrawing = lazy(() => import('./landing-face-drawing').then((m) => ({ default: m.LandingFaceDrawing })));
+
+const renderFaceDrawing = (estimateId: number, faceIndex: number) => (
+  <Suspense fallback={<SkeletonBlock label="Loading the stack drawing" lines={3} />}>
+    <LandingFaceDrawing estimateId={estimateId} faceIndex={faceIndex} />
+  </Suspense>
+);
 
 /** Phone-first: big type, one column, targets a gloved thumb can hit. */
 export function DriverHomeRoute() {
