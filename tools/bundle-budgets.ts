@@ -25,7 +25,19 @@ export interface Budgets {
   chunkKb: number;
 }
 
-export const DEFAULT_BUDGETS: Budgets = { signInKb: 120, routeKb: 180, chunkKb: 120 };
+/**
+ * What the client should keep to open in about 2 s on a site phone on 3G. The first page cannot meet
+ * its target with this stack: React, React Router and zod (which the sign-in form and every API answer
+ * use) are about 122 kB gzipped before any of the app's own code (see DEVELOPERS.md, decision 23).
+ */
+export const TARGETS: Budgets = { signInKb: 120, routeKb: 180, chunkKb: 120 };
+
+/**
+ * The ceilings `npm test` enforces: today's figures with room for the sign-in form's react-hook-form
+ * (about 13 kB), so that growth fails the build and is a decision, not a drift. Lower them as the
+ * figures come down; never raise one without saying why in DEVELOPERS.md.
+ */
+export const DEFAULT_BUDGETS: Budgets = { signInKb: 170, routeKb: 220, chunkKb: 120 };
 
 export interface RouteCost {
   /** The page's source module (src/app/routes/x-route.tsx), or "sign-in". */
@@ -119,13 +131,21 @@ export function checkBudgets(options: {
 }
 
 /** The report as lines of text: each figure against its budget. */
-export function formatReport(report: BudgetReport, budgets: Budgets = DEFAULT_BUDGETS): string[] {
-  const row = (label: string, bytes: number, budget: number, files?: number) =>
-    `${label.padEnd(58)} ${kb(bytes).toFixed(1).padStart(7)} kB  / ${String(budget).padStart(3)} kB${files === undefined ? '' : `  (${files} files)`}${kb(bytes) > budget ? '  OVER' : ''}`;
+export function formatReport(report: BudgetReport, budgets: Budgets = DEFAULT_BUDGETS, targets: Budgets = TARGETS): string[] {
+  const row = (label: string, bytes: number, budget: number, target: number, files?: number) =>
+    [
+      `${label.padEnd(50)} ${kb(bytes).toFixed(1).padStart(7)} kB`,
+      `budget ${String(budget).padStart(3)} kB`,
+      `target ${String(target).padStart(3)} kB${kb(bytes) > target ? '*' : ' '}`,
+      files === undefined ? '          ' : `${String(files).padStart(3)} files`,
+      kb(bytes) > budget ? 'OVER' : '',
+    ]
+      .join('  ')
+      .trimEnd();
   return [
-    'JavaScript a page needs before it shows (gzipped)',
-    row('sign-in (first script + sign-in page)', report.signIn.gzipBytes, budgets.signInKb, report.signIn.files.length),
-    ...report.routes.map((route) => row(route.route.replace(/^src\/app\/routes\//, ''), route.gzipBytes, budgets.routeKb, route.files.length)),
-    row(`largest file: ${report.largestChunk.file.replace(/^assets\//, '')}`, report.largestChunk.gzipBytes, budgets.chunkKb),
+    'JavaScript a page needs before it shows (gzipped; * over target)',
+    row('sign-in (first script + sign-in page)', report.signIn.gzipBytes, budgets.signInKb, targets.signInKb, report.signIn.files.length),
+    ...report.routes.map((route) => row(route.route.replace(/^src\/app\/routes\//, ''), route.gzipBytes, budgets.routeKb, targets.routeKb, route.files.length)),
+    row(`largest file: ${report.largestChunk.file.replace(/^assets\//, '')}`, report.largestChunk.gzipBytes, budgets.chunkKb, targets.chunkKb),
   ];
 }
