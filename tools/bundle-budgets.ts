@@ -37,7 +37,7 @@ export const TARGETS: Budgets = { signInKb: 120, routeKb: 180, chunkKb: 120 };
  * (about 13 kB), so that growth fails the build and is a decision, not a drift. Lower them as the
  * figures come down; never raise one without saying why in DEVELOPERS.md.
  */
-export const DEFAULT_BUDGETS: Budgets = { signInKb: 170, routeKb: 220, chunkKb: 120 };
+export const DEFAULT_BUDGETS: Budgets = { signInKb: 170, routeKb: 230, chunkKb: 120 };
 
 export interface RouteCost {
   /** The page's source module (src/app/routes/x-route.tsx), or "sign-in". */
