@@ -1,5 +1,6 @@
+import { createRequire } from 'node:module';
 import knexFactory, { type Knex } from 'knex';
-import pg from 'pg';
+import type pgModule from 'pg';
 import { dialectOf } from './dialect';
 import { MigrationSource } from './migration-source';
 
@@ -16,12 +17,15 @@ export function createDb(target: string): Db {
   return isPostgresUrl(target) ? createPostgresDb(target) : createSqliteDb(target);
 }
 
-// Counts and sums come back from PostgreSQL as 64-bit integers or numerics, which pg hands out as
-// strings; every number the app keeps (minor units, kg, packs) fits a double exactly.
-pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
-pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
+const require = createRequire(import.meta.url);
 
 function createPostgresDb(url: string): Db {
+  // pg is loaded only for PostgreSQL, so a SQLite server never carries it. Counts and sums come back
+  // from PostgreSQL as 64-bit integers or numerics, which pg hands out as strings; every number the
+  // app keeps (minor units, kg, packs) fits a double exactly.
+  const pg = require('pg') as typeof pgModule;
+  pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
+  pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
   const db = knexFactory({
     client: 'pg',
     connection: url,

@@ -1,5 +1,6 @@
 import { lockRow } from '../../db/dialect';
 import type Stripe from 'stripe';
+import type { StripeClient } from '../../payments/stripe-client';
 import { invoiceNumber, type Payment } from '../../../shared/schemas/invoice.schema';
 import { orderReference } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
@@ -44,7 +45,7 @@ function providerError(err: unknown): AppError {
  * carries an idempotency key, and an invoice has at most one open payment, so pressing "Pay" twice
  * makes one checkout and one charge.
  */
-export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, stripe: Stripe | null) {
+export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, stripe: StripeClient | null) {
   const { db, config, logger } = deps;
   const invoices = invoicesRepository(db);
   const orders = ordersRepository(db);
@@ -78,7 +79,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     if (!stripe) throw unavailable();
     const back = `${base}/invoices/${invoiceId}`;
     try {
-      return await stripe.checkout.sessions.create(
+      return await (await stripe.get()).checkout.sessions.create(
         {
           mode: 'payment',
           line_items: [{ quantity: 1, price_data: { currency: payment.currency.toLowerCase(), unit_amount: payment.amount, product_data: { name: `Invoice ${number} (order ${orderReference(orderId)})` } } }],
@@ -124,7 +125,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         return { payment: (await invoices.payment(id, trx))!, created: true };
       });
       if (superseded?.provider_session_id) {
-        await stripe.checkout.sessions.expire(superseded.provider_session_id).catch((err: unknown) => logger.warn({ err, payment: superseded?.id }, 'could not expire a replaced checkout'));
+        await (await stripe.get()).checkout.sessions.expire(superseded.provider_session_id).catch((err: unknown) => logger.warn({ err, payment: superseded?.id }, 'could not expire a replaced checkout'));
       }
       if (payment.provider_session_id && payment.checkout_url) return { created, payment };
       const session = await sessionOf(payment, invoiceId, invoiceNumber(inv.number), inv.order_id, returnBase);
@@ -168,7 +169,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
       if (!stripe) throw unavailable();
       let session: Stripe.Checkout.Session;
       try {
-        session = await stripe.checkout.sessions.retrieve(payment.provider_session_id);
+        session = await (await stripe.get()).checkout.sessions.retrieve(payment.provider_session_id);
       } catch (err) {
         throw providerError(err);
       }
@@ -196,7 +197,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         return;
       }
       try {
-        const r = await stripe.refunds.create(
+        const r = await (await stripe.get()).refunds.create(
           { payment_intent: refund.provider_payment_id, amount: refund.amount, metadata: { credit_note_id: String(refund.credit_note_id) } },
           { idempotencyKey: `ridgeload-refund-${refundId}` },
         );
@@ -212,11 +213,12 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     },
 
     /** The SDK's signature check: a tampered, unsigned or stale event is refused. */
-    verify(payload: Buffer, signature: string | undefined): Stripe.Event {
+    async verify(payload: Buffer, signature: string | undefined): Promise<Stripe.Event> {
       if (!stripe || !config.stripe.webhookSecret) throw unavailable();
       if (!signature) throw AppError.badRequest('bad_signature', 'The payment event is not signed');
+      const sdk = await stripe.get();
       try {
-        return stripe.webhooks.constructEvent(payload, signature, config.stripe.webhookSecret);
+        return sdk.webhooks.constructEvent(payload, signature, config.stripe.webhookSecret);
       } catch {
         throw AppError.badRequest('bad_signature', 'The payment event signature does not match');
       }
