@@ -13,6 +13,7 @@ import type { Db } from '../../db/knex';
 import { peekRow } from '../../db/knex';
 import { AppError } from '../../http/app-error';
 import { sendOrderMail } from '../orders/order-mail';
+import { stageAllows } from '../orders/order-steps';
 import { ordersRepository } from '../orders/orders.repository';
 import { priceListRepository } from '../price-list/price-list.repository';
 import { runsRepository, type DropRow, type PickRow, type RunRow } from './runs.repository';
@@ -282,7 +283,7 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
       await db.transaction(async (trx) => {
         const d = await detail(user, id, trx);
         if (d.row.sent_out_at) throw AppError.conflict('run_sent_out', `${d.row.registration}'s run left the yard at ${d.row.sent_out_at}`);
-        const going = d.drops.filter((x) => (t.from as readonly string[]).includes(x.status)).map((x) => x.order_id);
+        const going = d.drops.filter((x) => stageAllows('dispatch', x.status)).map((x) => x.order_id);
         if (going.length === 0) throw AppError.conflict('nothing_to_send', `${d.row.registration}'s run has no confirmed drop to send out`);
         if (!d.row.driver_user_id) throw AppError.conflict('no_driver', `Assign a driver to ${d.row.registration} on ${d.row.date} ${d.row.time_window} first`);
         const refusal = readiness(d, going);
