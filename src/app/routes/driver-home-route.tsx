@@ -1,4 +1,5 @@
 import { SectionBoundary } from '../../components/errors/section-boundary';
+import type { RenderFaceDrawing } from '../../features/deliveries/components/drop-parts';
 import { DriverToday } from '../../features/deliveries/components/driver-today';
 import { BranchList } from '../../features/organisation/components/branch-list';
 import { firstName } from '../../lib/format';
@@ -7,7 +8,8 @@ import { useCurrentSession } from '../current-session';
 import { LandingFaceDrawing } from './landing-face-drawing';
 import { RoleHome } from './role-home';
 
-const renderFaceDrawing = (estimateId: number, faceIndex: number) => <LandingFaceDrawing estimateId={estimateId} faceIndex={faceIndex} />;
+/** The driver's landing plan draws each face with the estimate's own face drawing. */
+const renderFaceDrawing: RenderFaceDrawing = (drawing, system) => <LandingFaceDrawing drawing={drawing} system={system} />;
 
 /** Phone-first: big type, one column, targets a gloved thumb can hit. */
 export function DriverHomeRoute() {

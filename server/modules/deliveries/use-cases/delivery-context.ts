@@ -7,6 +7,7 @@ import { estimatesRepository } from '../../estimates/estimates.repository';
 import { fleetRepository } from '../../fleet/fleet.repository';
 import { ordersService } from '../../orders/orders.service';
 import { ordersRepository, type OrderParty, type OrderRow } from '../../orders/orders.repository';
+import { schedulesRepository } from '../../schedules/schedules.repository';
 import { slotsRepository } from '../../slots/slots.repository';
 import { stockRepository } from '../../stock/stock.repository';
 import { deliveriesRepository } from '../deliveries.repository';
@@ -124,6 +125,8 @@ export function deliveryContext(deps: DeliveriesDeps, issueCredit?: IssueCredit)
     orders,
     slots,
     fleet: fleetRepository(db),
+    estimates,
+    schedules: schedulesRepository(db),
     stock: stockRepository(db),
     orderDetails: ordersService(deps),
     orderFor,

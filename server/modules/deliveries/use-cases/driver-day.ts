@@ -1,9 +1,12 @@
 import type { Pallet } from '../../../../shared/engine/delivery';
 import { orderReference, type OrderSite } from '../../../../shared/schemas/order.schema';
-import type { DriverDay, RunStatus } from '../../../../shared/schemas/run.schema';
+import type { RoofSystem } from '../../../../shared/schemas/roof-system.schema';
+import type { DriverDay, LandingFaceDrawing, RunStatus } from '../../../../shared/schemas/run.schema';
+import { faceKey } from '../../../../shared/schemas/schedule.schema';
 import type { AuthUser } from '../../../auth/auth-user';
 import { AppError } from '../../../http/app-error';
 import { orderCautions } from '../../estimates/cautions';
+import type { OrderRow } from '../../orders/orders.repository';
 import type { SlotRow } from '../../slots/slots.repository';
 import { dropNotes, dropOrder, landingPlan, mapsUrl, palletContents, runCautions, shortFaces } from '../drop-sheet';
 import { invalid, type DeliveryContext } from './delivery-context';
@@ -31,6 +34,33 @@ interface BookingWithOrder {
   contractor_id: number;
   contractor_name: string;
   drop_position?: number | null;
+}
+
+/**
+ * For a crane drop: the roof system of the order's estimate and, per face of the estimate (keyed by
+ * building and face as the pallets name them), its shape from the schedule, the engine's figures and
+ * its openings: what the phone needs to draw the stacks, since a driver may not read the estimate.
+ */
+async function landingDrawings(ctx: DeliveryContext, order: Pick<OrderRow, 'estimate_id' | 'contractor_organisation_id'>): Promise<{ system: RoofSystem; byFace: Map<string, LandingFaceDrawing> } | null> {
+  const { estimates, schedules } = ctx;
+  if (!order.estimate_id) return null;
+  const e = await estimates.find(order.contractor_organisation_id, order.estimate_id);
+  const schedule = e ? await schedules.findById(order.contractor_organisation_id, e.schedule_id) : undefined;
+  if (!e || !schedule) return null;
+  const byFace = new Map<string, LandingFaceDrawing>();
+  for (const result of e.result.faces) {
+    const key = faceKey(result.building, result.face);
+    const shape = schedule.faces.find((f) => faceKey(f.building, f.face) === key);
+    if (!shape) continue;
+    byFace.set(`${result.building}\u0000${result.face}`, {
+      shape: { eaves_mm: shape.eaves_mm, top_mm: shape.top_mm, rafter_mm: shape.rafter_mm, pitch_deg: shape.pitch_deg, left: shape.left, right: shape.right, top: shape.top },
+      result,
+      openings: schedule.openings
+        .filter((o) => faceKey(o.building, o.face) === key)
+        .map(({ building, face, kind, width_mm, height_mm, quantity }) => ({ building, face, kind, width_mm, height_mm, quantity })),
+    });
+  }
+  return { system: e.system_input, byFace };
 }
 
 async function lorryOf(ctx: DeliveryContext, run: SlotRow) {
@@ -71,6 +101,8 @@ async function dayRuns(ctx: DeliveryContext, orgId: number, runs: SlotRow[], rea
       const faces = await ctx.estimateFaces(order);
       const short = shortFaces(faces, pallets, lines, lines.some((l) => l.back_order_quantity > 0) ? await ctx.followUpOf(b.order_id) : null);
       cautions.push(orderCautions(b.delivery_method, site));
+      const drawings = b.delivery_method === 'roof' ? await landingDrawings(ctx, order) : null;
+      const landing = b.delivery_method === 'roof' ? landingPlan(faces, pallets).map((f) => ({ ...f, drawing: drawings?.byFace.get(`${f.building}\u0000${f.face}`) ?? null })) : [];
       drops.push({
         order_id: b.order_id,
         reference: orderReference(b.order_id),
@@ -87,7 +119,8 @@ async function dayRuns(ctx: DeliveryContext, orgId: number, runs: SlotRow[], rea
           .map((l) => ({ line_id: l.id, sku: l.sku, description: l.description, unit: l.unit, quantity: l.reserved_quantity > 0 ? l.reserved_quantity : (l.delivered_quantity ?? 0) })),
         notes: dropNotes(b.delivery_method, site, b.notes ?? ''),
         short_faces: short,
-        landing_plan: b.delivery_method === 'roof' ? landingPlan(faces, pallets) : [],
+        landing_plan: landing,
+        roof_system: drawings && landing.some((f) => f.drawing !== null) ? drawings.system : null,
         estimate_id: order.estimate_id,
         delivered: b.status === 'delivered',
       });
