@@ -55,10 +55,15 @@ export type OrderAction = { [K in OrderStep]: (typeof ORDER_STEPS)[K]['to'] exte
 /** The stage changes of ORDER_STEPS alone. */
 export const ORDER_TRANSITIONS = Object.fromEntries(Object.entries(ORDER_STEPS).filter(([, s]) => s.to !== null)) as { [K in OrderAction]: (typeof ORDER_STEPS)[K] };
 
+/** Whether a step may start from this stage (the side and role are not asked). */
+export function stageAllows(step: OrderStep, status: OrderStatus): boolean {
+  return (ORDER_STEPS[step].from as readonly OrderStatus[]).includes(status);
+}
+
 /** Whether a side, and when given a role, may take a step on an order in this stage. */
 export function stepAllowed(step: OrderStep, status: OrderStatus, party: OrderParty, role?: Role): boolean {
   const s = ORDER_STEPS[step];
-  return s.by === party && (s.from as readonly OrderStatus[]).includes(status) && (role === undefined || can(role, s.policy));
+  return s.by === party && stageAllows(step, status) && (role === undefined || can(role, s.policy));
 }
 
 /** Stage changes a side (and when given, a role) may make to an order in a given stage. */

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { kindOfRole, ROLES, type Role } from '../../../shared/domain/roles';
-import { ORDER_STATUSES, ORDER_STEPS, allowedOrderActions, stepAllowed, type OrderStatus, type OrderStep } from '../../../shared/schemas/order.schema';
+import { ORDER_STATUSES, ORDER_STEPS, allowedOrderActions, stageAllows, stepAllowed, type OrderStatus, type OrderStep } from '../../../shared/schemas/order.schema';
 import { AppError } from '../../http/app-error';
-import { assertStage, assertTakesStep, nextStage, stageAllows } from './order-steps';
+import { assertStage, assertTakesStep, nextStage } from './order-steps';
 
 /**
  * The order's steps written out by hand, independently of ORDER_STEPS: which stages each starts

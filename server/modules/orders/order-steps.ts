@@ -1,5 +1,5 @@
 import { can } from '../../../shared/domain/policy';
-import { ORDER_STATUS_LABELS, ORDER_STEPS, orderReference, type OrderStatus, type OrderStep } from '../../../shared/schemas/order.schema';
+import { ORDER_STATUS_LABELS, ORDER_STEPS, orderReference, stageAllows, type OrderStatus, type OrderStep } from '../../../shared/schemas/order.schema';
 import type { AuthUser } from '../../auth/auth-user';
 import { AppError } from '../../http/app-error';
 
@@ -19,11 +19,6 @@ const STAGE_REFUSALS: Partial<Record<OrderStep, (order: StagedOrder) => AppError
   start_follow_up: (o) => AppError.conflict('order_not_confirmed', `${orderReference(o.id)} is ${stageWords(o)}: back-ordered packs follow once the order is confirmed`),
   deliver: (o) => AppError.conflict('order_not_on_the_road', `${orderReference(o.id)} is ${stageWords(o)}: a delivery is recorded once it is on the road`),
 };
-
-/** Whether a step may start from this stage (the side and role are not asked). */
-export function stageAllows(step: OrderStep, status: OrderStatus): boolean {
-  return (ORDER_STEPS[step].from as readonly OrderStatus[]).includes(status);
-}
 
 /** Refuses (403) a person whose side or role does not take this step, before the order is even looked up. */
 export function assertTakesStep(user: Pick<AuthUser, 'role' | 'organisation'>, step: OrderStep): void {
