@@ -7,6 +7,8 @@ export interface MailMessage {
   html: string;
   /** Files sent with the message (a delivery note as PDF). */
   attachments?: { filename: string; content: Buffer; contentType: string }[];
+  /** The Message-ID header (`<id@domain>`): the outbox gives each message one, so a resend is the same message. */
+  messageId?: string;
 }
 
 export interface Mailer {

@@ -3,11 +3,14 @@ import type { AuthUser } from '../../auth/auth-user';
 import { orderReference } from '../../../shared/schemas/order.schema';
 import type { DeliveryProof } from '../../../shared/schemas/run.schema';
 import { AppError } from '../../http/app-error';
+import type { AttachmentRef } from '../../mail/outbox';
 import type { ProofFile } from './proof-files';
 import { creditDraft, issueCreditDraft, openCreditDrafts } from './use-cases/credit-drafts';
 import { deliveryContext } from './use-cases/delivery-context';
 import { driverDay, readCautions } from './use-cases/driver-day';
 import { recordDelivery } from './use-cases/record-delivery';
+
+export { DELIVERY_NOTE_ATTACHMENT } from './use-cases/record-delivery';
 
 /** A delivery record after the JSON or multipart body is read (and an older body with delivered_quantity turned into this). */
 export interface DeliveryRecord {
@@ -50,6 +53,13 @@ export function deliveriesService(deps: DeliveriesDeps, issueCredit?: IssueCredi
       const f = p ? await repo.fileData(p.id, fileId, kind, thumbnail) : undefined;
       if (!f) throw AppError.notFound(kind === 'signature' ? 'Signature' : 'Photo');
       return f;
+    },
+
+    /** The delivery note sent with the contractor's e-mail, made when the outbox sends it. */
+    async deliveryNoteForMail(ref: AttachmentRef): Promise<Buffer> {
+      const order = await ctx.orders.find({ kind: 'merchant', organisationId: Number(ref.organisation_id) }, Number(ref.order_id));
+      if (!order) throw new Error(`the delivery note of order ${String(ref.order_id)} cannot be made: the order is gone`);
+      return ctx.notePdf(order);
     },
 
     async deliveryNote(user: AuthUser, orderId: number) {

@@ -309,15 +309,15 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
           sent.push(orderId);
         }
         await repo.markSentOut(trx, d.row.id, { by: user.id, override });
+        const party = { kind: 'merchant' as const, organisationId: user.organisation.id };
+        for (const orderId of sent) {
+          const order = await orders.find(party, orderId, trx);
+          if (!order) continue;
+          const contractor = await orders.contractorEmails(order, trx);
+          const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
+          await sendOrderMail(trx, deps, 'dispatched', order, { contractor, desk }, undefined, { date: d.row.date, time_window: d.row.time_window, registration: d.row.registration }, 'merchant');
+        }
       });
-      const party = { kind: 'merchant' as const, organisationId: user.organisation.id };
-      const row = await runOf(user, id);
-      for (const orderId of sent) {
-        const order = await orders.find(party, orderId);
-        if (!order) continue;
-        const [contractor, desk] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id)]);
-        await sendOrderMail(deps, 'dispatched', order, { contractor, desk }, undefined, { date: row.date, time_window: row.time_window, registration: row.registration }, 'merchant');
-      }
       return (await detail(user, id)).run;
     },
 

@@ -3,6 +3,7 @@ import type { AuthUser } from '../../../auth/auth-user';
 import type { Db } from '../../../db/knex';
 import { nowIso } from '../../../db/time';
 import { AppError } from '../../../http/app-error';
+import { enqueueMail } from '../../../mail/outbox';
 import { renderEmail } from '../../../mail/templates';
 import { lineTax } from '../../invoices/invoices.service';
 import { sendOrderMail } from '../../orders/order-mail';
@@ -59,43 +60,45 @@ async function draftLines(ctx: DeliveryContext, trx: Db, orgId: number, proof: P
   });
 }
 
-async function mailDeliveryNote(ctx: DeliveryContext, user: AuthUser, orderId: number) {
+/** The outbox's name for a delivery note attached by reference. */
+export const DELIVERY_NOTE_ATTACHMENT = 'delivery-note';
+
+/**
+ * Writes the delivery's e-mails to the outbox in the recording transaction: the desk's note, and the
+ * contractor's with the signed delivery note attached. The PDF (with its photos) is named by
+ * reference and made by the worker when it sends, from the proof this transaction records.
+ */
+async function mailDelivered(ctx: DeliveryContext, trx: Db, user: AuthUser, orderId: number, proof: ProofLineRow[], lines: Map<number, StoredOrderLine>, receiver: string, booked: boolean) {
   const { deps, orders } = ctx;
-  const { config, mailer, logger } = deps;
+  const { config } = deps;
   const party = { kind: 'merchant' as const, organisationId: user.organisation.id };
-  const order = (await orders.find(party, orderId))!;
-  const [contractor, desk] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id)]);
-  await sendOrderMail(deps, 'delivered', order, { contractor: [], desk });
-  if (contractor.length === 0) return;
-  let pdf: Buffer;
-  try {
-    pdf = await ctx.notePdf(order);
-  } catch (err) {
-    logger.error({ err, order: orderId }, 'delivery note could not be made for the e-mail');
-    return;
-  }
+  const order = (await orders.find(party, orderId, trx))!;
+  const contractor = await orders.contractorEmails(order, trx);
+  const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
+  await sendOrderMail(trx, deps, 'delivered', order, { contractor: [], desk });
+  // The delivery note prints once the order is on a run; without one there is nothing to send.
+  if (contractor.length === 0 || !booked) return;
   const ref = orderReference(orderId);
-  const proof = await ctx.proofOf(order);
-  const short = (proof?.lines ?? []).filter((l) => l.short + l.damaged > 0);
-  await Promise.all(
-    contractor.map((to) =>
-      mailer
-        .send({
-          ...renderEmail({
-            to,
-            subject: `Order ${ref} delivered: delivery note attached`,
-            heading: `Order ${ref} delivered`,
-            paragraphs: [
-              `The driver handed the delivery over at ${order.site_name}${proof ? ` to ${proof.receiver_name}` : ''}. The signed delivery note is attached.`,
-              ...(short.length > 0 ? [`Short or damaged: ${short.map((l) => `${l.description} ${l.short + l.damaged} of ${l.sent}`).join('; ')}. ${order.merchant_name} will credit them.`] : []),
-            ],
-            action: { label: 'Open the order', url: `${config.appUrl}/orders/${orderId}` },
-          }),
-          attachments: [{ filename: `delivery-note-${ref}.pdf`, content: pdf, contentType: 'application/pdf' }],
-        })
-        .catch((err: unknown) => logger.error({ err, order: orderId }, 'delivery note e-mail failed')),
-    ),
-  );
+  const short = proof.filter((l) => l.short + l.damaged > 0);
+  for (const to of contractor) {
+    await enqueueMail(
+      trx,
+      {
+        ...renderEmail({
+          to,
+          subject: `Order ${ref} delivered: delivery note attached`,
+          heading: `Order ${ref} delivered`,
+          paragraphs: [
+            `The driver handed the delivery over at ${order.site_name} to ${receiver}. The signed delivery note is attached.`,
+            ...(short.length > 0 ? [`Short or damaged: ${short.map((l) => `${lines.get(l.order_line_id)?.description ?? ''} ${l.short + l.damaged} of ${l.sent}`).join('; ')}. ${order.merchant_name} will credit them.`] : []),
+          ],
+          action: { label: 'Open the order', url: `${config.appUrl}/orders/${orderId}` },
+        }),
+        attachments: [{ filename: `delivery-note-${ref}.pdf`, contentType: 'application/pdf', render: { kind: DELIVERY_NOTE_ATTACHMENT, organisation_id: user.organisation.id, order_id: orderId } }],
+      },
+      config.mailDomain,
+    );
+  }
 }
 
 /**
@@ -173,8 +176,8 @@ export async function recordDelivery(ctx: DeliveryContext, user: AuthUser, order
       summary: `Delivered, received by ${record.receiver_name}${short.length > 0 ? `; short: ${short.join(', ')}` : ''}${damaged.length > 0 ? `; damaged: ${damaged.join(', ')}` : ''}${files.length > 0 ? `; ${files.filter((f) => f.kind === 'photo').length} photos` : ''}`,
       data: { received_by: record.receiver_name, delivered_at: at, short, damaged, proof_id: proofId, credit_note_draft_id: draftId, ...(record.note ? { notes: record.note } : {}) },
     });
+    await mailDelivered(ctx, trx, user, orderId, proof, byId, record.receiver_name, !!booking);
   });
-  await mailDeliveryNote(ctx, user, orderId);
   // The order as the desk sees it (as this route always answered), with the proof beside it.
   const detail = await ctx.orderDetails.get(user, orderId);
   return { ...detail, proof: (await ctx.proofOf((await orders.find(partyOf(user), orderId))!))! };

@@ -84,7 +84,7 @@ export async function acceptChanges(ctx: OrderContext, user: AuthUser, id: numbe
       summary: note ? `Accepted the offered changes: ${note}` : 'Accepted the offered changes',
       data: { proposal_id: proposalId, substitutes: substitutes.length },
     });
+    await ctx.notify(trx, 'changes_accepted', id, partyOf(user), note);
   });
-  await ctx.notify('changes_accepted', id, partyOf(user), note);
   return readOrder(ctx, user, id);
 }

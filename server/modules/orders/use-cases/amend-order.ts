@@ -36,7 +36,7 @@ export async function amendOrder(ctx: OrderContext, user: AuthUser, id: number, 
       summary: changes.length > 0 ? `Changed ${changes.join(', ').replace(/_/g, ' ')}` : 'Sent again unchanged',
       data: { changes },
     });
+    await ctx.notify(trx, 'amended', id, partyOf(user));
   });
-  await ctx.notify('amended', id, partyOf(user));
   return readOrder(ctx, user, id);
 }

@@ -13,8 +13,8 @@ export async function bookSlot(ctx: OrderContext, user: AuthUser, id: number, sl
     const order = await ctx.orderForStep(trx, user, id, 'book_slot');
     const slot = await slots.book(trx, user, order, slotId, await slots.loadOf(trx, order, await orders.lines(id, trx)));
     await orders.insertEvent(trx, id, { kind: 'slot_booked', actor: actorOf(user), summary: `Delivery booked ${slot.date} ${slot.time_window} on ${slot.registration}`, data: { slot_id: slot.id } });
+    await ctx.notify(trx, 'slot_booked', id, partyOf(user));
   });
-  await ctx.notify('slot_booked', id, partyOf(user));
   return readOrder(ctx, user, id);
 }
 

@@ -12,7 +12,7 @@ export async function cancelOrder(ctx: OrderContext, user: AuthUser, id: number,
     await ctx.moveStage(trx, order, 'cancel', { revision: order.revision, values: { cancelled_at: now }, bumpRevision: true });
     await orders.supersedeOpenProposals(trx, id);
     await orders.insertEvent(trx, id, { kind: 'cancelled', actor: actorOf(user), summary: reason ? `Cancelled: ${reason}` : 'Cancelled', data: reason ? { reason } : {} });
+    await ctx.notify(trx, 'cancelled', id, partyOf(user), reason);
   });
-  await ctx.notify('cancelled', id, partyOf(user), reason);
   return readOrder(ctx, user, id);
 }

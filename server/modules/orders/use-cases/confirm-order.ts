@@ -81,7 +81,7 @@ export async function confirmOrder(ctx: OrderContext, user: AuthUser, id: number
       summary: `Confirmed ${plan.filter((p) => p.send > 0).length} lines from stock${backOrdered > 0 ? `, ${backOrdered} packs back-ordered` : ''}${slotNote}`,
       data: { reserved: Object.fromEntries(plan.map((p) => [p.line.sku, p.send])), back_ordered: backOrdered, ...(body.slot_id ? { slot_id: body.slot_id } : {}) },
     });
+    await ctx.notify(trx, 'confirmed', id, partyOf(user));
   });
-  await ctx.notify('confirmed', id, partyOf(user));
   return readOrder(ctx, user, id);
 }

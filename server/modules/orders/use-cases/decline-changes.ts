@@ -18,7 +18,7 @@ export async function declineChanges(ctx: OrderContext, user: AuthUser, id: numb
       summary: note ? `Declined the offered changes: ${note}` : 'Declined the offered changes',
       data: { proposal_id: proposalId },
     });
+    await ctx.notify(trx, 'changes_declined', id, partyOf(user), note);
   });
-  await ctx.notify('changes_declined', id, partyOf(user), note);
   return readOrder(ctx, user, id);
 }

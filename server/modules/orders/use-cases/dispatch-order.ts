@@ -19,7 +19,7 @@ export async function dispatchOrder(ctx: OrderContext, user: AuthUser, id: numbe
     await runs.assertOrderMayLeave(user, id, trx);
     await ctx.moveStage(trx, order, 'dispatch', { bumpRevision: false });
     await orders.insertEvent(trx, id, { kind: 'dispatched', actor: actorOf(user), summary: `Out for delivery on ${slot.registration} with ${slot.driver_name}`, data: { slot_id: slot.id } });
+    await ctx.notify(trx, 'dispatched', id, partyOf(user));
   });
-  await ctx.notify('dispatched', id, partyOf(user));
   return readOrder(ctx, user, id);
 }

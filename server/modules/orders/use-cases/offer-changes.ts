@@ -102,8 +102,8 @@ export async function offerChanges(ctx: OrderContext, user: AuthUser, id: number
       body.proposed_slot_id ? 'a delivery slot' : null,
     ].filter(Boolean);
     await orders.insertEvent(trx, id, { kind: 'changes_offered', actor: actorOf(user), summary: `Offered changes: ${parts.join(', ')}`, data: { proposal_id: pid } });
+    await ctx.notify(trx, 'changes_offered', id, partyOf(user), body.message);
     return pid;
   });
-  await ctx.notify('changes_offered', id, partyOf(user), body.message);
   return { proposal_id: proposalId, order: await readOrder(ctx, user, id) };
 }

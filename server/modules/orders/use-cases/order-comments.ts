@@ -17,10 +17,10 @@ export async function addComment(ctx: OrderContext, user: AuthUser, id: number, 
     if (!order) throw AppError.notFound('Order');
     const cid = await orders.insertComment(trx, id, { userId: user.id, name: user.name, organisationId: user.organisation.id, body });
     await orders.insertEvent(trx, id, { kind: 'commented', actor: actorOf(user), summary: `Comment: ${body.length > 120 ? `${body.slice(0, 117)}…` : body}`, data: { comment_id: cid } });
+    await ctx.notify(trx, 'commented', id, partyOf(user), body);
     return cid;
   });
   const c = (await orders.comments(id)).find((x) => x.id === commentId)!;
-  await ctx.notify('commented', id, partyOf(user), body);
   const { organisationKind: _kind, ...comment } = c;
   return comment;
 }

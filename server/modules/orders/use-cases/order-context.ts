@@ -72,11 +72,15 @@ export function orderContext(deps: OrderDeps) {
   const catalogue = catalogueRepository(db);
   const slots = slotsService(deps);
 
-  async function notify(event: OrderMailEvent, orderId: number, party: OrderParty, note?: string) {
-    const order = (await orders.find(party, orderId))!;
-    const [contractor, desk, booking] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id), slots.booking(orderId)]);
-    const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id) : undefined;
-    await sendOrderMail(deps, event, order, { contractor, desk }, note, slot ? { date: slot.date, time_window: slot.time_window, registration: slot.registration } : undefined, party.kind);
+  /** Writes the step's e-mails to the outbox in the step's own transaction, from the order as the step left it. */
+  async function notify(trx: Db, event: OrderMailEvent, orderId: number, party: OrderParty, note?: string) {
+    const order = (await orders.find(party, orderId, trx))!;
+    // One after another: a transaction is one connection, which runs one query at a time.
+    const contractor = await orders.contractorEmails(order, trx);
+    const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
+    const booking = await slots.booking(orderId, trx);
+    const slot = booking ? await slots.slot(order.merchant_organisation_id, booking.slot_id, trx) : undefined;
+    await sendOrderMail(trx, deps, event, order, { contractor, desk }, note, slot ? { date: slot.date, time_window: slot.time_window, registration: slot.registration } : undefined, party.kind);
   }
 
   /** Lines priced at the branch now; each product must be one the branch sells. */

@@ -102,8 +102,8 @@ export async function placeOrder(
       data: { lines: lines.length, subtotal, ...(from.quoteId ? { quote_id: from.quoteId } : {}) },
     });
     if (from.alsoInTransaction) await from.alsoInTransaction(trx, orderId);
+    await ctx.notify(trx, 'placed', orderId, partyOf(user));
     return orderId;
   });
-  await ctx.notify('placed', id, partyOf(user));
   return readOrder(ctx, user, id);
 }

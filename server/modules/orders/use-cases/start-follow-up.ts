@@ -78,8 +78,8 @@ export async function startFollowUp(ctx: OrderContext, user: AuthUser, id: numbe
       summary: `Back-ordered packs (${packs}) follow as ${orderReference(newId)}, wanted ${wanted}`,
       data: { follow_up_order_id: newId, packs },
     });
+    await ctx.notify(trx, 'follow_up_started', newId, partyOf(user), body.note);
     return newId;
   });
-  await ctx.notify('follow_up_started', followUpId, partyOf(user), body.note);
   return readOrder(ctx, user, followUpId);
 }

@@ -12,7 +12,7 @@ export async function turnDownOrder(ctx: OrderContext, user: AuthUser, id: numbe
     await ctx.moveStage(trx, order, 'turn_down', { revision: order.revision, bumpRevision: true });
     await orders.supersedeOpenProposals(trx, id);
     await orders.insertEvent(trx, id, { kind: 'turned_down', actor: actorOf(user), summary: `Turned down: ${reason}`, data: { reason } });
+    await ctx.notify(trx, 'turned_down', id, partyOf(user), reason);
   });
-  await ctx.notify('turned_down', id, partyOf(user), reason);
   return readOrder(ctx, user, id);
 }
