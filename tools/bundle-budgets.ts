@@ -28,7 +28,7 @@ export interface Budgets {
 /**
  * What the client should keep to open in about 2 s on a site phone on 3G. The first page cannot meet
  * its target with this stack: React, React Router and zod (which the sign-in form and every API answer
- * use) are about 122 kB gzipped before any of the app's own code (see DEVELOPERS.md, decision 23).
+ * use) are about 122 kB gzipped before any of the app's own code (see DEVELOPERS.md, decision 27).
  */
 export const TARGETS: Budgets = { signInKb: 120, routeKb: 180, chunkKb: 120 };
 
