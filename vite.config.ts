@@ -3,8 +3,67 @@ import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { compression } from 'vite-plugin-compression2';
 import { VitePWA } from 'vite-plugin-pwa';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 
 const apiPort = process.env.PORT ?? '3000';
+const CLIENT_OUT_DIR = fileURLToPath(new URL('./dist/client', import.meta.url));
+
+/**
+ * Libraries in chunks of their own, named and grouped by what they are, so that a change to the app's
+ * code leaves their files (and every browser's copy) as they were. A library used by one kind of page
+ * only (tables, drag and drop, the signature pad, CSV parsing) is loaded with the pages that use it.
+ * Higher priority wins where a library's dependency is matched by more than one group.
+ */
+const VENDOR_CHUNKS = [
+  { name: 'react', test: /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]/, priority: 90 },
+  { name: 'router', test: /[\\/]node_modules[\\/](react-router|react-router-dom|cookie|set-cookie-parser)[\\/]/, priority: 80 },
+  { name: 'query', test: /[\\/]node_modules[\\/](@tanstack[\\/](query-core|react-query|query-persist-client-core|query-async-storage-persister|react-query-persist-client)|idb-keyval)[\\/]/, priority: 70 },
+  { name: 'zod', test: /[\\/]node_modules[\\/]zod[\\/]/, priority: 60 },
+  { name: 'forms', test: /[\\/]node_modules[\\/](react-hook-form|@hookform[\\/]resolvers)[\\/]/, priority: 50 },
+  { name: 'table', test: /[\\/]node_modules[\\/]@tanstack[\\/](table-core|react-table|virtual-core|react-virtual|store|react-store)[\\/]/, priority: 40 },
+  { name: 'dnd', test: /[\\/]node_modules[\\/]@dnd-kit[\\/]/, priority: 40 },
+  { name: 'signature', test: /[\\/]node_modules[\\/]signature_pad[\\/]/, priority: 40 },
+  { name: 'csv', test: /[\\/]node_modules[\\/]papaparse[\\/]/, priority: 40 },
+  // The app's own code that the first page needs, in one file with the entry rather than a handful of
+  // small shared pieces, each another request before the sign-in form can show.
+  { name: 'shell', tags: ['$initial' as const], test: /[\\/](src|shared)[\\/]/, priority: 10 },
+];
+
+/** The pages a driver opens without signal: their code is kept on the phone ahead of need. */
+const OFFLINE_PAGES = ['src/app/routes/driver-home-route.tsx', 'src/app/routes/branches-route.tsx'];
+
+interface ManifestChunk {
+  file: string;
+  isEntry?: boolean;
+  imports?: string[];
+  dynamicImports?: string[];
+}
+
+/**
+ * Keeps in the service worker's precache only the scripts the signed-in frame and the driver's pages
+ * need: the first script with its static imports, and each offline page with everything it imports,
+ * at once or later (the signature pad, the face drawing). Other files (styles, fonts, index.html)
+ * pass through. Read from the build's manifest, written before the service worker is generated.
+ */
+export function offlineScriptsOnly(entries: { url: string; size: number; revision: string | null }[]) {
+  const manifest = JSON.parse(readFileSync(join(CLIENT_OUT_DIR, '.vite', 'manifest.json'), 'utf8')) as Record<string, ManifestChunk>;
+  const keep = new Set<string>();
+  const walk = (key: string, dynamic: boolean) => {
+    const chunk = manifest[key];
+    if (!chunk) throw new Error(`The build manifest has no entry "${key}" for the offline pages`);
+    if (keep.has(chunk.file)) return;
+    keep.add(chunk.file);
+    for (const next of chunk.imports ?? []) walk(next, dynamic);
+    if (dynamic) for (const next of chunk.dynamicImports ?? []) walk(next, dynamic);
+  };
+  for (const [key, chunk] of Object.entries(manifest)) if (chunk.isEntry) walk(key, false);
+  for (const key of OFFLINE_PAGES) walk(key, true);
+  walk('src/lib/register-service-worker.ts', true);
+  const manifestOut = entries.filter((entry) => !entry.url.endsWith('.js') || !entry.url.startsWith('assets/') || keep.has(entry.url));
+  return { manifest: manifestOut, warnings: [] as string[] };
+}
 
 /**
  * The app on a phone without signal: Workbox precaches the app shell (scripts, styles, fonts, icons,
@@ -30,6 +89,8 @@ const pwa = VitePWA({
   },
   workbox: {
     globPatterns: ['**/*.{js,css,html,svg,woff2}'],
+    // Scripts: the first one and the driver's pages only; the desk's and the yard's are fetched when used.
+    manifestTransforms: [offlineScriptsOnly],
     // Latin and Latin Extended cover the names on a British delivery; the other subsets load if ever used.
     globIgnores: ['**/*-vietnamese-*'],
     navigateFallback: '/index.html',
@@ -37,6 +98,18 @@ const pwa = VitePWA({
     cleanupOutdatedCaches: true,
     maximumFileSizeToCacheInBytes: 3 * 1024 * 1024,
     runtimeCaching: [
+      {
+        // Any other page's code, once fetched, stays for the next visit and for an open tab after a new
+        // build has replaced it on the server. Hashed names: a copy is never stale.
+        urlPattern: /\/assets\/[^/]+-[A-Za-z0-9_-]{8,}\.(js|css)$/,
+        method: 'GET',
+        handler: 'CacheFirst',
+        options: {
+          cacheName: 'ridgeload-pages',
+          expiration: { maxEntries: 300, maxAgeSeconds: 60 * 24 * 60 * 60 },
+          cacheableResponse: { statuses: [200] },
+        },
+      },
       {
         urlPattern: /\/api\/(driver\/runs|auth\/me)(\?.*)?$/,
         method: 'GET',
@@ -61,14 +134,21 @@ export default defineConfig({
     compression({ algorithms: ['brotliCompress', 'gzip'], threshold: 1024, deleteOriginalAssets: false }),
   ],
   publicDir: 'src/public',
-  // One bundle for now: the app is small enough that a split would cost more round trips than it saves.
-  build: { outDir: 'dist/client', emptyOutDir: true, sourcemap: true, chunkSizeWarningLimit: 900 },
+  build: {
+    outDir: CLIENT_OUT_DIR,
+    emptyOutDir: true,
+    sourcemap: true,
+    // The budgets (tools/check-budgets.ts) read what each route loads from here.
+    manifest: true,
+    chunkSizeWarningLimit: 400,
+    rolldownOptions: { output: { codeSplitting: { groups: VENDOR_CHUNKS } } },
+  },
   server: { proxy: { '/api': `http://localhost:${apiPort}` } },
   test: {
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['shared/**/*.test.ts', 'server/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'tools/**/*.test.ts'], environment: 'node' },
       },
       {
         extends: true,

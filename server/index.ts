@@ -4,6 +4,7 @@ import { ConfigError, loadConfig } from './config/env';
 import { createDb, migrateLatest } from './db/knex';
 import { seedDemoIfEmpty } from './db/seed-runner';
 import { startDevSmtp } from './mail/dev-smtp';
+import { createAppMailWorker } from './mail-worker';
 import { createSmtpMailer } from './mail/mailer';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from './payments/dev-payments';
 import type { StripeFake } from './payments/stripe-fake';
@@ -36,6 +37,9 @@ async function main() {
   }
 
   const app = createApp({ config, db, mailer, logger });
+  // Mail goes out through the outbox; MAIL_WORKER=off leaves the sending to `npm run worker`.
+  const worker = config.mailWorker ? createAppMailWorker({ config, db, mailer, logger }) : undefined;
+  worker?.start();
   const server = app.listen(config.port, config.host, () => {
     const url = `http://localhost:${config.port}`;
     logger.info(`Ridgeload is running at ${url}`);
@@ -49,6 +53,7 @@ async function main() {
 
   const stop = async () => {
     server.close();
+    await worker?.stop();
     mailer.close();
     await devSmtp?.close();
     await payments?.close();

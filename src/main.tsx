@@ -5,20 +5,20 @@ import '@fontsource/work-sans/700.css';
 import './styles.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
-import { App, createAppRuntime } from './app/app';
+import { App, createAppRuntime, whenSignedInAndSettled } from './app/app';
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html has no #root element');
 
+const runtime = createAppRuntime();
 createRoot(container).render(
   <StrictMode>
-    <App runtime={createAppRuntime()} />
+    <App runtime={runtime} />
   </StrictMode>,
 );
 
-// The offline copy of the app is set up once the page is in use, never ahead of the first paint.
+// The offline copy of the app is set up once someone is signed in and their page has shown, never
+// while the first page or the one after signing in is still arriving over a slow line.
 if (import.meta.env.PROD && 'serviceWorker' in navigator) {
-  const register = () => void import('./lib/register-service-worker').then((m) => m.registerServiceWorker());
-  if (document.readyState === 'complete') register();
-  else window.addEventListener('load', register, { once: true });
+  whenSignedInAndSettled(runtime, () => void import('./lib/register-service-worker').then((m) => m.registerServiceWorker()));
 }

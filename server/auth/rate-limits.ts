@@ -1,11 +1,15 @@
 import type { Request } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import type { Db } from '../db/knex';
 import { AppError } from '../http/app-error';
+import { DbRateLimitStore } from './rate-limit-store';
 
 const FIFTEEN_MINUTES = 15 * 60 * 1000;
 
-function limiter(limit: number, key: (req: Request) => string, skipSuccessfulRequests: boolean) {
+/** A limit counted in the database, so every server on it counts the same tries. */
+function limiter(db: Db, name: string, limit: number, key: (req: Request) => string, skipSuccessfulRequests: boolean) {
   return rateLimit({
+    store: new DbRateLimitStore(db, name),
     windowMs: FIFTEEN_MINUTES,
     limit,
     standardHeaders: 'draft-8',
@@ -21,7 +25,7 @@ const emailOf = (req: Request) => String((req.body as { email?: unknown } | unde
 const ipOf = (req: Request) => ipKeyGenerator(req.ip ?? 'unknown');
 
 /** Failed sign-ins per address and e-mail; a successful one does not count. */
-export const loginRateLimit = (limit: number) => limiter(limit, (req) => `${ipOf(req)}|${emailOf(req)}`, true);
+export const loginRateLimit = (db: Db, limit: number) => limiter(db, 'login', limit, (req) => `${ipOf(req)}|${emailOf(req)}`, true);
 
 /** Reset requests and reset attempts per address. */
-export const resetRateLimit = (limit: number) => limiter(limit, (req) => ipOf(req), false);
+export const resetRateLimit = (db: Db, limit: number) => limiter(db, 'reset', limit, (req) => ipOf(req), false);

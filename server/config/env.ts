@@ -33,6 +33,8 @@ const envSchema = z.object({
   SMTP_URL: z.url().optional(),
   DEV_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   MAIL_FROM: z.string().default('Ridgeload <no-reply@ridgeload.test>'),
+  /** Whether this process sends the mail outbox; `off` where `npm run worker` sends it apart. */
+  MAIL_WORKER: z.enum(['on', 'off']).default('on'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
   LOGIN_RATE_LIMIT: z.coerce.number().int().positive().default(10),
   RESET_RATE_LIMIT: z.coerce.number().int().positive().default(5),
@@ -71,6 +73,10 @@ export interface Config {
   smtpUrl?: string;
   devSmtpPort: number;
   mailFrom: string;
+  /** The domain of the outbox's Message-IDs: MAIL_FROM's. */
+  mailDomain: string;
+  /** Whether this process runs the mail outbox's worker. */
+  mailWorker: boolean;
   logLevel: string;
   loginRateLimit: number;
   resetRateLimit: number;
@@ -121,6 +127,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     smtpUrl: e.SMTP_URL,
     devSmtpPort: e.DEV_SMTP_PORT,
     mailFrom: e.MAIL_FROM,
+    mailDomain: /@([A-Za-z0-9.-]+)>?\s*$/.exec(e.MAIL_FROM)?.[1] ?? 'ridgeload.local',
+    mailWorker: e.MAIL_WORKER === 'on',
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),
     loginRateLimit: e.LOGIN_RATE_LIMIT,
     resetRateLimit: e.RESET_RATE_LIMIT,

@@ -1,5 +1,7 @@
+import { createRequire } from 'node:module';
 import knexFactory, { type Knex } from 'knex';
-import pg from 'pg';
+import type pgModule from 'pg';
+import { dialectOf } from './dialect';
 import { MigrationSource } from './migration-source';
 
 export type Db = Knex;
@@ -15,19 +17,59 @@ export function createDb(target: string): Db {
   return isPostgresUrl(target) ? createPostgresDb(target) : createSqliteDb(target);
 }
 
-// Counts and sums come back from PostgreSQL as 64-bit integers or numerics, which pg hands out as
-// strings; every number the app keeps (minor units, kg, packs) fits a double exactly.
-pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
-pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
+const require = createRequire(import.meta.url);
 
 function createPostgresDb(url: string): Db {
-  return knexFactory({
+  // pg is loaded only for PostgreSQL, so a SQLite server never carries it. Counts and sums come back
+  // from PostgreSQL as 64-bit integers or numerics, which pg hands out as strings; every number the
+  // app keeps (minor units, kg, packs) fits a double exactly.
+  const pg = require('pg') as typeof pgModule;
+  pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
+  pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
+  const db = knexFactory({
     client: 'pg',
     connection: url,
     pool: { min: 0, max: Number(process.env.DATABASE_POOL_MAX ?? 10) },
     acquireConnectionTimeout: 10_000,
     migrations: { migrationSource: new MigrationSource() },
   });
+  retryTransactionsOnConflict(db);
+  return db;
+}
+
+/** PostgreSQL gave the transaction up for another's sake: a serialization failure or a deadlock. */
+export function isTransactionConflict(err: unknown): boolean {
+  const code = (err as { code?: unknown } | null)?.code;
+  return code === '40001' || code === '40P01';
+}
+
+const TRANSACTION_ATTEMPTS = 4;
+
+/**
+ * When PostgreSQL ends a transaction as a deadlock's victim (40P01) or for a serialization failure
+ * (40001), everything it did was rolled back and running it again is the documented remedy. So every
+ * `db.transaction(handler)` runs the handler again, up to four times in all, after a short random
+ * pause that lets the winner finish. Handlers only touch the database (mail and other effects
+ * happen after the commit), so a second run is safe. A conflict that outlasts the attempts reaches
+ * the error handler, which answers 503 with Retry-After.
+ */
+function retryTransactionsOnConflict(db: Db): void {
+  const transaction = db.transaction.bind(db) as (...args: unknown[]) => Promise<unknown>;
+  const retrying = (handler?: unknown, ...rest: unknown[]) => {
+    if (typeof handler !== 'function') return transaction(handler, ...rest);
+    return (async () => {
+      for (let attempt = 1; ; attempt++) {
+        try {
+          return await transaction(handler, ...rest);
+        } catch (err) {
+          if (!isTransactionConflict(err) || attempt >= TRANSACTION_ATTEMPTS) throw err;
+          await new Promise((r) => setTimeout(r, 5 + Math.random() * 20 * attempt));
+        }
+      }
+    })();
+  };
+  // knex defines its methods as read-only properties of the instance; this one is replaced in place.
+  Object.defineProperty(db, 'transaction', { value: retrying, configurable: true });
 }
 
 /**
@@ -121,6 +163,23 @@ function cachePreparedStatements(conn: Connection): void {
   };
 }
 
+/** Any fixed number, the same in every server: the advisory lock that lets one server migrate at a time. */
+const MIGRATION_LOCK = 7_301_202_612;
+
+/**
+ * Brings the database to the latest migration. Servers starting together on one PostgreSQL database
+ * each try, and knex alone would let them trip over each other (creating its own tables twice, or
+ * refusing with MigrationLocked), so on PostgreSQL each first takes an advisory lock, held by a
+ * transaction of its own while the migrations run on the pool's other connections: the others wait
+ * for it and then find nothing left to do.
+ */
 export async function migrateLatest(db: Db): Promise<void> {
-  await db.migrate.latest();
+  if (dialectOf(db) !== 'postgres') {
+    await db.migrate.latest();
+    return;
+  }
+  await db.transaction(async (trx) => {
+    await trx.raw('select pg_advisory_xact_lock(?)', [MIGRATION_LOCK]);
+    await db.migrate.latest();
+  });
 }

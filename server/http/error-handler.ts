@@ -50,7 +50,11 @@ function toErrorResponse(err: unknown): { status: number; body: ErrorBody; log: 
   if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) {
     return { status: e.status, body: { error: { code: 'bad_request', message: 'The request could not be read' } }, log: false };
   }
-  if (e?.code === 'SQLITE_BUSY') {
+  // The database is overloaded or gave a transaction up for another's sake: nothing was written,
+  // and the same request a moment later succeeds. SQLite waited its busy timeout for the write lock;
+  // PostgreSQL ended a transaction as a deadlock or serialization victim after its retries
+  // (server/db/knex.ts) or waited too long for a lock; or no connection came free in time.
+  if (e?.code === 'SQLITE_BUSY' || e?.code === '40001' || e?.code === '40P01' || e?.code === '55P03' || (err as Error | undefined)?.name === 'KnexTimeoutError') {
     return { status: 503, body: { error: { code: 'busy', message: 'The server is busy; try again in a moment' } }, log: true, retryAfter: 1 };
   }
   // A race the use case's own check did not catch: the database's unique rule kept it out.

@@ -1,4 +1,3 @@
-import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 import type { Db } from '../db/knex';
 import { nowIso } from '../db/time';
@@ -19,7 +18,9 @@ export async function startDevSmtp(db: Db, port: number): Promise<DevSmtp> {
     logger: false,
     size: 5 * 1024 * 1024,
     onData(stream, _session, callback) {
-      simpleParser(stream)
+      // mailparser holds about 30 MB once loaded: loaded with the first message, not at start.
+      import('mailparser')
+        .then(({ simpleParser }) => simpleParser(stream))
         .then(async (mail) => {
           const to = Array.isArray(mail.to) ? mail.to.map((a) => a.text).join(', ') : (mail.to?.text ?? '');
           await db('dev_outbox').insert({

@@ -1,6 +1,6 @@
 import { checkOpeningsAgainstFaces, openingsSchema, type Opening } from '../schemas/openings.schema';
 import type { RoofSystem, RoofSystemInput } from '../schemas/roof-system.schema';
-import { faceKey, scheduleSchema, type Face, type Schedule } from '../schemas/schedule.schema';
+import { FaceLookup, faceKey, scheduleSchema, type Face, type Schedule } from '../schemas/schedule.schema';
 import { JointScratch, PieceTally, planFaceBattens, planStockLengths, type BattenRow, type FaceBattens } from './battens';
 import {
   doubleLapVergeCourse,
@@ -32,7 +32,7 @@ import { parseOpeningsCsv } from './openings-parse';
 import { parseRoofSystem } from './roof-system';
 import { parseScheduleCsv, type ScheduleWarning } from './schedule-parse';
 import { settingOutMarks, settingOutReference } from './setting-out';
-import { fitBetweenVerges, tilesToSpan } from './tiles-per-course';
+import { fitBetweenVerges, tilesToSpan, type VergeFit } from './tiles-per-course';
 import { ENGINE_VERSION } from './version';
 
 const r1 = (v: number) => Math.round(v * 10) / 10;
@@ -125,6 +125,11 @@ interface Scratch {
   flashings: { side: number; top: number; apron: number; back: number };
   roof_windows: number;
   hatches: number;
+  /** Of the courses just counted: nailed pieces, clips, most tiles in a course, widest course (mm). */
+  nailed: number;
+  clipped: number;
+  tilesPerCourse: number;
+  widest: number;
 }
 
 interface PieceCounts {
@@ -191,6 +196,69 @@ function applyOpenings(
   }
 }
 
+/** Pieces, nails and clips of the courses of a face between two verges (into scratch). */
+function countVergeCourses(fit: VergeFit, C: number, system: RoofSystem, everyTileClipped: boolean, scratch: Scratch) {
+  const tile = system.tile;
+  const doubleLap = tile.kind === 'double_lap';
+  const pieces = scratch.pieces;
+  const straight = vergeCourse(fit, false, scratch.course);
+  const broken = doubleLap ? doubleLapVergeCourse(fit, scratch.brokenCourse) : vergeCourse(fit, true, scratch.brokenCourse);
+  let nailed = 0;
+  let clips = 0;
+  for (let i = 0; i < C; i++) {
+    const course = (doubleLap ? isDoubleLapBrokenCourse(i, C) : isBrokenCourse(tile.bond, i)) ? broken : straight;
+    addCourse(pieces, course, i, C, doubleLap);
+    nailed += nailedPieces(system.fixing.rule, course, i, C);
+    clips += courseClips(scratch.clips, course, i, 2, everyTileClipped);
+  }
+  scratch.nailed = nailed;
+  scratch.clipped = clips;
+}
+
+/**
+ * Pieces, nails and clips of the courses of a face with a raking edge, each course as wide as the
+ * face at it; the widest course and the most tiles in a course (into scratch).
+ */
+function countRakingCourses(
+  shape: FaceShape,
+  setOut: CourseSetOut,
+  oneVerge: boolean,
+  overhang: number,
+  system: RoofSystem,
+  everyTileClipped: boolean,
+  scratch: Scratch,
+) {
+  const tile = system.tile;
+  const cover = tile.cover_width_mm;
+  const doubleLap = tile.kind === 'double_lap';
+  const pieces = scratch.pieces;
+  const C = setOut.courses;
+  let nailed = 0;
+  let clips = 0;
+  let tilesPerCourse = 0;
+  let widest = 0;
+  for (let i = 0; i < C; i++) {
+    const y = rowHeight(setOut, i);
+    // A course must reach the raking edge over the whole tile, from its tail up to its batten.
+    const width = Math.max(widthAt(shape, Math.max(0, y - tile.length_mm)), widthAt(shape, Math.min(shape.rafter_mm, y)));
+    if (width > widest) widest = width;
+    const brokenHere = doubleLap ? isDoubleLapBrokenCourse(i, C) : isBrokenCourse(tile.bond, i);
+    const course: CoursePieces = oneVerge
+      ? vergeToRakeCourse(width, overhang, tile.width_mm, cover.nominal, brokenHere, scratch.course)
+      : rakeToRakeCourse(width, tile.width_mm, cover.nominal, scratch.course);
+    if (doubleLap) halfToTileAndHalf(course);
+    addCourse(pieces, course, i, C, doubleLap);
+    nailed += nailedPieces(system.fixing.rule, course, i, C);
+    clips += courseClips(scratch.clips, course, i, oneVerge ? 1 : 0, everyTileClipped);
+    const inCourse = Math.ceil(course.whole + course.cut + course.halves / 2 + course.tah * 1.5 - 1e-9);
+    if (inCourse > tilesPerCourse) tilesPerCourse = inCourse;
+  }
+  scratch.nailed = nailed;
+  scratch.clipped = clips;
+  scratch.tilesPerCourse = tilesPerCourse;
+  scratch.widest = widest;
+}
+
 function computeFace(
   face: Face,
   system: RoofSystem,
@@ -223,7 +291,6 @@ function computeFace(
   }
 
   const C = setOut.courses;
-  const doubleLap = tile.kind === 'double_lap';
   const leftVerge = !isRaking(face.left);
   const rightVerge = !isRaking(face.right);
   const cover = tile.cover_width_mm;
@@ -234,10 +301,10 @@ function computeFace(
   pieces.eaves = 0;
   pieces.top = 0;
   pieces.tah = 0;
-  let nailed = 0;
-  let clips = 0;
+  let nailed: number;
+  let clips: number;
   const everyTileClipped = clipsEveryTile(scratch.clips, face.pitch_deg);
-  let tilesPerCourse = 0;
+  let tilesPerCourse: number;
   let coverUsed = cover.nominal;
   let overhangUsed: number | null;
   let marksTiles: number;
@@ -253,14 +320,9 @@ function computeFace(
         `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`,
       );
     }
-    const straight = vergeCourse(fit, false, scratch.course);
-    const broken = doubleLap ? doubleLapVergeCourse(fit, scratch.brokenCourse) : vergeCourse(fit, true, scratch.brokenCourse);
-    for (let i = 0; i < C; i++) {
-      const course = (doubleLap ? isDoubleLapBrokenCourse(i, C) : isBrokenCourse(tile.bond, i)) ? broken : straight;
-      addCourse(pieces, course, i, C, doubleLap);
-      nailed += nailedPieces(system.fixing.rule, course, i, C);
-      clips += courseClips(scratch.clips, course, i, 2, everyTileClipped);
-    }
+    countVergeCourses(fit, C, system, everyTileClipped, scratch);
+    nailed = scratch.nailed;
+    clips = scratch.clipped;
     tilesPerCourse = fit.tiles;
     coverUsed = fit.cover_mm;
     overhangUsed = fit.overhang_mm;
@@ -269,23 +331,11 @@ function computeFace(
   } else {
     const oneVerge = leftVerge || rightVerge;
     const overhang = so.verge_overhang_mm.target;
-    let widest = 0;
-    for (let i = 0; i < C; i++) {
-      const y = rowHeight(setOut, i);
-      // A course must reach the raking edge over the whole tile, from its tail up to its batten.
-      const width = Math.max(widthAt(shape, Math.max(0, y - tile.length_mm)), widthAt(shape, Math.min(face.rafter_mm, y)));
-      if (width > widest) widest = width;
-      const brokenHere = doubleLap ? isDoubleLapBrokenCourse(i, C) : isBrokenCourse(tile.bond, i);
-      const course: CoursePieces = oneVerge
-        ? vergeToRakeCourse(width, overhang, tile.width_mm, cover.nominal, brokenHere, scratch.course)
-        : rakeToRakeCourse(width, tile.width_mm, cover.nominal, scratch.course);
-      if (doubleLap) halfToTileAndHalf(course);
-      addCourse(pieces, course, i, C, doubleLap);
-      nailed += nailedPieces(system.fixing.rule, course, i, C);
-      clips += courseClips(scratch.clips, course, i, oneVerge ? 1 : 0, everyTileClipped);
-      const inCourse = Math.ceil(course.whole + course.cut + course.halves / 2 + course.tah * 1.5 - 1e-9);
-      if (inCourse > tilesPerCourse) tilesPerCourse = inCourse;
-    }
+    countRakingCourses(shape, setOut, oneVerge, overhang, system, everyTileClipped, scratch);
+    nailed = scratch.nailed;
+    clips = scratch.clipped;
+    tilesPerCourse = scratch.tilesPerCourse;
+    const widest = scratch.widest;
     overhangUsed = oneVerge ? overhang : null;
     marksOverhang = oneVerge ? overhang : 0;
     marksTiles = tilesToSpan(widest + marksOverhang, tile.width_mm, cover.nominal);
@@ -414,15 +464,14 @@ function computeFace(
 }
 
 /** Groups openings by the face they sit in (building and face compared without case). */
-function openingsByFace(openings: readonly Opening[]): Map<string, Opening[]> {
-  const map = new Map<string, Opening[]>();
+function openingsByFace(openings: readonly Opening[]): FaceLookup<Opening[]> {
+  const lookup = new FaceLookup<Opening[]>();
   for (const o of openings) {
-    const key = faceKey(o.building, o.face);
-    const list = map.get(key);
+    const list = lookup.get(o.building, o.face);
     if (list) list.push(o);
-    else map.set(key, [o]);
+    else lookup.set(o.building, o.face, [o]);
   }
-  return map;
+  return lookup;
 }
 
 /**
@@ -439,6 +488,223 @@ export function estimate(schedule: Schedule, system: RoofSystem, openings: reado
     for (const p of checkOpeningsAgainstFaces(openings, schedule)) problems.push({ row: p.index + 1, column: p.column, message: p.message });
   }
   if (problems.length > 0) throw new ScheduleRejectedError(problems);
+  return estimateChecked(schedule, system, openings);
+}
+
+/** Faces of one building: its ridge, hip and valley edges, and the faces that meet a ridge. */
+interface BuildingFaces {
+  name: string;
+  edges: BuildingEdgeTally;
+  ridgeFaces: number[];
+}
+
+/**
+ * Running totals of a job, face by face (a face's figures times its quantity), kept in fields of one
+ * object so the loop over a big schedule stays small and allocates nothing per face.
+ */
+class JobTally {
+  slope = 0;
+  plan = 0;
+  tiles = 0;
+  halfTiles = 0;
+  cutTiles = 0;
+  eavesTiles = 0;
+  topTiles = 0;
+  tahTiles = 0;
+  openingsArea = 0;
+  roofWindows = 0;
+  hatches = 0;
+  flashSide = 0;
+  flashTop = 0;
+  flashApron = 0;
+  flashBack = 0;
+  vergeMm = 0;
+  eavesMm = 0;
+  dryVergeUnits = 0;
+  /** Ridge ends at a verge, each counted by both faces of a ridge (halved at the end). */
+  capEnds = 0;
+  hipEdges = 0;
+  valleyUnitEdges = 0;
+  battenM = 0;
+  battenNailCount = 0;
+  tileNailCount = 0;
+  clipCount = 0;
+  ridgeMm = 0;
+  hipMm = 0;
+  valleyMm = 0;
+  ridgeTiles = 0;
+  hipTiles = 0;
+  readonly buildings: BuildingFaces[] = [];
+  private readonly byBuilding = new Map<string, BuildingFaces>();
+  private last: BuildingFaces | null = null;
+  private readonly dryVerges: boolean;
+  private readonly troughValleys: boolean;
+  private readonly troughCover: number;
+
+  constructor(system: RoofSystem) {
+    this.dryVerges = system.verge.kind === 'dry';
+    this.troughValleys = system.valley.kind === 'trough';
+    this.troughCover = system.valley.unit_length_mm - system.valley.lap_mm;
+  }
+
+  add(face: Face, f: FaceResult, scratch: Scratch, i: number) {
+    const q = face.quantity;
+    // Totals come from the unrounded areas and lengths, so rounding a face never shifts the job.
+    this.slope += scratch.net_slope_m2 * q;
+    this.plan += scratch.plan_m2 * q;
+    this.tiles += f.tiles * q;
+    this.halfTiles += f.half_tiles * q;
+    this.cutTiles += f.cut_tiles * q;
+    this.eavesTiles += f.eaves_tiles * q;
+    this.topTiles += f.top_tiles * q;
+    this.tahTiles += f.tile_and_half * q;
+    this.openingsArea += scratch.openings_m2 * q;
+    this.roofWindows += scratch.roof_windows * q;
+    this.hatches += scratch.hatches * q;
+    this.flashSide += scratch.flashings.side * q;
+    this.flashTop += scratch.flashings.top * q;
+    this.flashApron += scratch.flashings.apron * q;
+    this.flashBack += scratch.flashings.back * q;
+    this.battenM += (scratch.batten_mm / 1000) * q;
+    this.battenNailCount += scratch.batten_nails * q;
+    this.tileNailCount += scratch.tile_nails * q;
+    this.clipCount += f.clips * q;
+
+    // Fittings: a verge is square to the eaves, so its raking length is the rafter.
+    const vergeEdges = (face.left === 'verge' ? 1 : 0) + (face.right === 'verge' ? 1 : 0);
+    this.vergeMm += vergeEdges * face.rafter_mm * q;
+    this.eavesMm += face.eaves_mm * q;
+    if (this.dryVerges) {
+      this.dryVergeUnits += f.courses * vergeEdges * q;
+      // Both faces of a ridge see each of its ends; a mono ridge's ends are its face's alone.
+      if (face.top === 'ridge') this.capEnds += vergeEdges * q;
+      else if (face.top === 'mono_ridge') this.capEnds += 2 * vergeEdges * q;
+    }
+    this.hipEdges += ((face.left === 'hip' ? 1 : 0) + (face.right === 'hip' ? 1 : 0)) * q;
+    if (this.troughValleys) {
+      if (face.left === 'valley') this.valleyUnitEdges += Math.ceil(rakingEdgeLength(face.rafter_mm, scratch.inset.left) / this.troughCover - 1e-9) * q;
+      if (face.right === 'valley') this.valleyUnitEdges += Math.ceil(rakingEdgeLength(face.rafter_mm, scratch.inset.right) / this.troughCover - 1e-9) * q;
+    }
+
+    const b = this.building(face.building);
+    b.edges.addFace(q, face.rafter_mm, face.top_mm, face.top, face.left, face.right, scratch.inset.left, scratch.inset.right);
+    if (face.top === 'ridge' || (face.top === 'mono_ridge' && face.ridge !== undefined)) b.ridgeFaces.push(i);
+  }
+
+  /** The building's tally, in the order buildings first appear; faces of one building usually follow each other. */
+  private building(name: string): BuildingFaces {
+    const last = this.last;
+    if (last !== null && last.name === name) return last;
+    let b = this.byBuilding.get(name);
+    if (!b) {
+      b = { name, edges: new BuildingEdgeTally(), ridgeFaces: [] };
+      this.byBuilding.set(name, b);
+      this.buildings.push(b);
+    }
+    this.last = b;
+    return b;
+  }
+}
+
+function checkBalance(warnings: EngineWarning[], building: string, ridge: RidgeBalance) {
+  let heavier = -Infinity;
+  for (const kg of ridge.load_kg) if (kg > heavier) heavier = kg;
+  if (heavier > 0 && ridge.difference_kg > RIDGE_BALANCE_TOLERANCE * heavier) {
+    const named = ridge.ridge === null ? '' : `ridge ${ridge.ridge}: `;
+    warnBuilding(
+      warnings,
+      building,
+      'uneven_ridge_load',
+      `${named}faces ${ridge.faces.join(', ')} carry ${ridge.load_kg.join(', ')} kg: load the slopes in step and finish the lighter one early, so the roof is never loaded on one side`,
+    );
+  }
+}
+
+/** One building's ridge, hip and valley lengths and tiles (into the tally), its ridges and their warnings. */
+function finishBuilding(
+  b: BuildingFaces,
+  schedule: Schedule,
+  faces: readonly FaceResult[],
+  system: RoofSystem,
+  job: JobTally,
+  ridges: RidgeBalance[],
+  warnings: EngineWarning[],
+) {
+  const building = b.name;
+  const edges = b.edges.finish(system.ridge.cover_mm, system.hip.cover_mm);
+  job.ridgeMm += edges.ridge_mm;
+  job.hipMm += edges.hip_mm;
+  job.valleyMm += edges.valley_mm;
+  job.ridgeTiles += edges.ridge_tiles;
+  job.hipTiles += edges.hip_tiles;
+  if (edges.hip_edges % 2 === 1) {
+    warnBuilding(warnings, building, 'odd_hip_edges', `${edges.hip_edges} hip edges: a hip is shared by two faces, so one hip is counted at half its length; check the schedule`);
+  }
+  if (edges.valley_edges % 2 === 1) {
+    warnBuilding(warnings, building, 'odd_valley_edges', `${edges.valley_edges} valley edges: a valley is shared by two faces, so one valley is counted at half its length; check the schedule`);
+  }
+  if (edges.mixed_quantity) {
+    warnBuilding(
+      warnings,
+      building,
+      'mixed_quantity',
+      'faces of this building have different quantities: ridge and hip tiles are rounded up for each group of faces with the same quantity; check that both slopes of each ridge have the same quantity',
+    );
+  }
+  // Faces naming their ridge are grouped by the name (without case); the others are paired by top length.
+  const named = new Map<string, { name: string; sides: RidgeSide[]; mono: boolean }>();
+  const guessed: RidgeSide[] = [];
+  for (const i of b.ridgeFaces) {
+    const face = schedule[i];
+    const side: RidgeSide = { building, face: face.face, top_mm: face.top_mm, load_kg: faces[i].load_kg };
+    if (face.ridge === undefined) {
+      guessed.push(side);
+      continue;
+    }
+    const key = face.ridge.trim().toLowerCase();
+    const group = named.get(key);
+    if (group) group.sides.push(side);
+    else named.set(key, { name: face.ridge.trim(), sides: [side], mono: face.top === 'mono_ridge' });
+  }
+  for (const { name, sides, mono } of named.values()) {
+    const ridge = namedRidge(building, name, sides);
+    ridges.push(ridge);
+    if (sides.length === 1 && sides[0].top_mm > 0 && !mono) {
+      warnings.push({
+        code: 'unpaired_ridge_face',
+        building,
+        face: sides[0].face,
+        message: `no other face names ridge ${name}: the ridge is counted at half this face's top edge; check the schedule`,
+      });
+    }
+    checkBalance(warnings, building, ridge);
+  }
+  if (guessed.length > 0) {
+    warnBuilding(
+      warnings,
+      building,
+      'ridge_grouping_guessed',
+      `${guessed.length} face(s) meeting a ridge name no ridge: they were paired by equal top length, which can hide an uneven load; give the ridge column`,
+    );
+  }
+  const paired = pairRidgeFaces(guessed);
+  for (const pair of paired.pairs) {
+    ridges.push(pair);
+    checkBalance(warnings, building, pair);
+  }
+  for (const side of paired.unpaired) {
+    if (side.top_mm === 0) continue; // a lone hip end touches the ridge at one point only
+    warnings.push({
+      code: 'unpaired_ridge_face',
+      building,
+      face: side.face,
+      message: `no face with the same ridge length (${Math.round(side.top_mm)} mm) on the other slope: the ridge is counted at half this face's top edge; check the schedule`,
+    });
+  }
+}
+
+/** estimate() for a schedule and openings already checked (the CSV pipeline checks them as it reads them). */
+function estimateChecked(schedule: Schedule, system: RoofSystem, openings: readonly Opening[]): EngineResult {
   const openingsOf = openings.length > 0 ? openingsByFace(openings) : null;
 
   const warnings: EngineWarning[] = [];
@@ -464,178 +730,31 @@ export function estimate(schedule: Schedule, system: RoofSystem, openings: reado
     flashings: { side: 0, top: 0, apron: 0, back: 0 },
     roof_windows: 0,
     hatches: 0,
+    nailed: 0,
+    clipped: 0,
+    tilesPerCourse: 0,
+    widest: 0,
   };
-  const faces: FaceResult[] = [];
-  const byBuilding = new Map<string, { edges: BuildingEdgeTally; ridgeFaces: number[] }>();
-  const dryVerges = system.verge.kind === 'dry';
-  const troughValleys = system.valley.kind === 'trough';
-  const troughCover = system.valley.unit_length_mm - system.valley.lap_mm;
-
-  let slope = 0;
-  let plan = 0;
-  let tiles = 0;
-  let halfTiles = 0;
-  let cutTiles = 0;
-  let eavesTiles = 0;
-  let topTiles = 0;
-  let tahTiles = 0;
-  let openingsArea = 0;
-  let roofWindows = 0;
-  let hatches = 0;
-  const flashMm = { side: 0, top: 0, apron: 0, back: 0 };
-  let vergeMm = 0;
-  let eavesMm = 0;
-  let dryVergeUnits = 0;
-  let capEnds = 0; // ridge ends at a verge, each counted by both faces of a ridge (halved at the end)
-  let hipEdges = 0;
-  let valleyUnitEdges = 0;
-  let battenM = 0;
-  let battenNailCount = 0;
-  let tileNailCount = 0;
-  let clipCount = 0;
-
+  const faces: FaceResult[] = new Array<FaceResult>(schedule.length);
+  const job = new JobTally(system);
   for (let i = 0; i < schedule.length; i++) {
     const face = schedule[i];
-    const f = computeFace(face, system, tally, warnings, scratch, openingsOf?.get(faceKey(face.building, face.face)));
-    const q = face.quantity;
-    faces.push(f);
-    // Totals come from the unrounded areas and lengths, so rounding a face never shifts the job.
-    slope += scratch.net_slope_m2 * q;
-    plan += scratch.plan_m2 * q;
-    tiles += f.tiles * q;
-    halfTiles += f.half_tiles * q;
-    cutTiles += f.cut_tiles * q;
-    eavesTiles += f.eaves_tiles * q;
-    topTiles += f.top_tiles * q;
-    tahTiles += f.tile_and_half * q;
-    openingsArea += scratch.openings_m2 * q;
-    roofWindows += scratch.roof_windows * q;
-    hatches += scratch.hatches * q;
-    flashMm.side += scratch.flashings.side * q;
-    flashMm.top += scratch.flashings.top * q;
-    flashMm.apron += scratch.flashings.apron * q;
-    flashMm.back += scratch.flashings.back * q;
-    battenM += (scratch.batten_mm / 1000) * q;
-    battenNailCount += scratch.batten_nails * q;
-    tileNailCount += scratch.tile_nails * q;
-    clipCount += f.clips * q;
-
-    // Fittings: a verge is square to the eaves, so its raking length is the rafter.
-    const vergeEdges = (face.left === 'verge' ? 1 : 0) + (face.right === 'verge' ? 1 : 0);
-    vergeMm += vergeEdges * face.rafter_mm * q;
-    eavesMm += face.eaves_mm * q;
-    if (dryVerges) {
-      dryVergeUnits += f.courses * vergeEdges * q;
-      // Both faces of a ridge see each of its ends; a mono ridge's ends are its face's alone.
-      if (face.top === 'ridge') capEnds += vergeEdges * q;
-      else if (face.top === 'mono_ridge') capEnds += 2 * vergeEdges * q;
-    }
-    hipEdges += ((face.left === 'hip' ? 1 : 0) + (face.right === 'hip' ? 1 : 0)) * q;
-    if (troughValleys) {
-      if (face.left === 'valley') valleyUnitEdges += Math.ceil(rakingEdgeLength(face.rafter_mm, scratch.inset.left) / troughCover - 1e-9) * q;
-      if (face.right === 'valley') valleyUnitEdges += Math.ceil(rakingEdgeLength(face.rafter_mm, scratch.inset.right) / troughCover - 1e-9) * q;
-    }
-
-    let b = byBuilding.get(face.building);
-    if (!b) {
-      b = { edges: new BuildingEdgeTally(), ridgeFaces: [] };
-      byBuilding.set(face.building, b);
-    }
-    b.edges.addFace(q, face.rafter_mm, face.top_mm, face.top, face.left, face.right, scratch.inset.left, scratch.inset.right);
-    if (face.top === 'ridge' || (face.top === 'mono_ridge' && face.ridge !== undefined)) b.ridgeFaces.push(i);
+    const f = computeFace(face, system, tally, warnings, scratch, openingsOf?.get(face.building, face.face));
+    faces[i] = f;
+    job.add(face, f, scratch, i);
   }
 
-  let ridgeMm = 0;
-  let hipMm = 0;
-  let valleyMm = 0;
-  let ridgeTiles = 0;
-  let hipTiles = 0;
   const ridges: RidgeBalance[] = [];
-  const checkBalance = (building: string, ridge: RidgeBalance) => {
-    const heavier = Math.max(...ridge.load_kg);
-    if (heavier > 0 && ridge.difference_kg > RIDGE_BALANCE_TOLERANCE * heavier) {
-      const named = ridge.ridge === null ? '' : `ridge ${ridge.ridge}: `;
-      warnBuilding(
-        warnings,
-        building,
-        'uneven_ridge_load',
-        `${named}faces ${ridge.faces.join(', ')} carry ${ridge.load_kg.join(', ')} kg: load the slopes in step and finish the lighter one early, so the roof is never loaded on one side`,
-      );
-    }
-  };
-  for (const [building, b] of byBuilding) {
-    const edges = b.edges.finish(system.ridge.cover_mm, system.hip.cover_mm);
-    ridgeMm += edges.ridge_mm;
-    hipMm += edges.hip_mm;
-    valleyMm += edges.valley_mm;
-    ridgeTiles += edges.ridge_tiles;
-    hipTiles += edges.hip_tiles;
-    if (edges.hip_edges % 2 === 1) {
-      warnBuilding(warnings, building, 'odd_hip_edges', `${edges.hip_edges} hip edges: a hip is shared by two faces, so one hip is counted at half its length; check the schedule`);
-    }
-    if (edges.valley_edges % 2 === 1) {
-      warnBuilding(warnings, building, 'odd_valley_edges', `${edges.valley_edges} valley edges: a valley is shared by two faces, so one valley is counted at half its length; check the schedule`);
-    }
-    if (edges.mixed_quantity) {
-      warnBuilding(
-        warnings,
-        building,
-        'mixed_quantity',
-        'faces of this building have different quantities: ridge and hip tiles are rounded up for each group of faces with the same quantity; check that both slopes of each ridge have the same quantity',
-      );
-    }
-    // Faces naming their ridge are grouped by the name (without case); the others are paired by top length.
-    const named = new Map<string, { name: string; sides: RidgeSide[]; mono: boolean }>();
-    const guessed: RidgeSide[] = [];
-    for (const i of b.ridgeFaces) {
-      const face = schedule[i];
-      const side: RidgeSide = { building, face: face.face, top_mm: face.top_mm, load_kg: faces[i].load_kg };
-      if (face.ridge === undefined) {
-        guessed.push(side);
-        continue;
-      }
-      const key = face.ridge.trim().toLowerCase();
-      const group = named.get(key);
-      if (group) group.sides.push(side);
-      else named.set(key, { name: face.ridge.trim(), sides: [side], mono: face.top === 'mono_ridge' });
-    }
-    for (const { name, sides, mono } of named.values()) {
-      const ridge = namedRidge(building, name, sides);
-      ridges.push(ridge);
-      if (sides.length === 1 && sides[0].top_mm > 0 && !mono) {
-        warnings.push({
-          code: 'unpaired_ridge_face',
-          building,
-          face: sides[0].face,
-          message: `no other face names ridge ${name}: the ridge is counted at half this face's top edge; check the schedule`,
-        });
-      }
-      checkBalance(building, ridge);
-    }
-    if (guessed.length > 0) {
-      warnBuilding(
-        warnings,
-        building,
-        'ridge_grouping_guessed',
-        `${guessed.length} face(s) meeting a ridge name no ridge: they were paired by equal top length, which can hide an uneven load; give the ridge column`,
-      );
-    }
-    const paired = pairRidgeFaces(guessed);
-    for (const pair of paired.pairs) {
-      ridges.push(pair);
-      checkBalance(building, pair);
-    }
-    for (const side of paired.unpaired) {
-      if (side.top_mm === 0) continue; // a lone hip end touches the ridge at one point only
-      warnings.push({
-        code: 'unpaired_ridge_face',
-        building,
-        face: side.face,
-        message: `no face with the same ridge length (${Math.round(side.top_mm)} mm) on the other slope: the ridge is counted at half this face's top edge; check the schedule`,
-      });
-    }
-  }
+  for (const b of job.buildings) finishBuilding(b, schedule, faces, system, job, ridges, warnings);
+  return finishJob(faces, system, tally, job, ridges, warnings);
+}
 
+/** Orders with waste, the delivery plan and the job's totals. */
+function finishJob(faces: FaceResult[], system: RoofSystem, tally: PieceTally, job: JobTally, ridges: RidgeBalance[], warnings: EngineWarning[]): EngineResult {
+  const { slope, plan, tiles, halfTiles, cutTiles, eavesTiles, topTiles, tahTiles, openingsArea, roofWindows, hatches } = job;
+  const { vergeMm, eavesMm, dryVergeUnits, capEnds, hipEdges, valleyUnitEdges, battenM, battenNailCount, tileNailCount, clipCount } = job;
+  const { ridgeMm, hipMm, valleyMm, ridgeTiles, hipTiles } = job;
+  const flashMm = { side: job.flashSide, top: job.flashTop, apron: job.flashApron, back: job.flashBack };
   const waste = system.waste_pct;
   const tilesOrder = orderQuantity(tiles, waste.tiles);
   const eavesOrder = orderQuantity(eavesTiles, waste.tiles);
@@ -804,7 +923,8 @@ export function runEstimateFromCsv(csvText: string, systemInput?: RoofSystemInpu
     }
   }
   if (errors.length > 0 || !sys.ok || !parsed.ok) return { ok: false, errors };
-  return { ok: true, result: withParseWarnings(estimate(parsed.faces, sys.system, openings), [...parsed.warnings, ...openingWarnings]) };
+  // The reader checked every pitch against the system and every opening against its face.
+  return { ok: true, result: withParseWarnings(estimateChecked(parsed.faces, sys.system, openings), [...parsed.warnings, ...openingWarnings]) };
 }
 
 /**

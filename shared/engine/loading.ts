@@ -128,32 +128,43 @@ export function pairRidgeFaces(sides: readonly RidgeSide[]): { pairs: RidgeBalan
   return { pairs, unpaired };
 }
 
-function spread(loads: readonly number[]): number {
-  if (loads.length < 2) return 0;
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (const v of loads) {
-    if (v < lo) lo = v;
-    if (v > hi) hi = v;
-  }
-  return hi - lo;
-}
-
 /**
  * One named ridge of a building: every face that meets it, in schedule order. Its load difference is
  * the heaviest less the lightest of its slopes (faces with a top edge); its hip ends (top 0), which
  * meet it at a point, are compared with each other; the larger difference is given, kg to 0.1.
  */
 export function namedRidge(building: string, ridge: string, sides: readonly RidgeSide[]): RidgeBalance {
-  const slopes: number[] = [];
-  const ends: number[] = [];
-  for (const s of sides) (s.top_mm > 0 ? slopes : ends).push(s.load_kg);
-  const difference = Math.max(spread(slopes), spread(ends));
+  const n = sides.length;
+  // Sized up front: a job holds one of these per ridge.
+  const faces = new Array<string>(n);
+  const loads = new Array<number>(n);
+  let slopes = 0;
+  let slopeLo = Infinity;
+  let slopeHi = -Infinity;
+  let ends = 0;
+  let endLo = Infinity;
+  let endHi = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const s = sides[i];
+    const v = s.load_kg;
+    faces[i] = s.face;
+    loads[i] = v;
+    if (s.top_mm > 0) {
+      slopes++;
+      if (v < slopeLo) slopeLo = v;
+      if (v > slopeHi) slopeHi = v;
+    } else {
+      ends++;
+      if (v < endLo) endLo = v;
+      if (v > endHi) endHi = v;
+    }
+  }
+  const difference = Math.max(slopes < 2 ? 0 : slopeHi - slopeLo, ends < 2 ? 0 : endHi - endLo);
   return {
     building,
     ridge,
-    faces: sides.map((s) => s.face),
-    load_kg: sides.map((s) => s.load_kg),
+    faces,
+    load_kg: loads,
     difference_kg: Math.round(difference * 10) / 10,
   };
 }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { SCHEDULE_LIMITS, SCHEDULE_MESSAGES, faceKey, millimetreProblem, quantityProblem, type Face } from './schedule.schema';
+import { FaceLookup, SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from './schedule.schema';
 
 /**
  * Openings in roof faces: roof windows, chimneys, dormers and hatches. One row per kind and size of
@@ -83,11 +83,11 @@ export interface OpeningProblem {
  * wider than the face's widest edge and no taller than its rafter.
  */
 export function checkOpeningsAgainstFaces(openings: readonly Opening[], faces: readonly Face[]): OpeningProblem[] {
-  const byKey = new Map<string, Face>();
-  for (const f of faces) byKey.set(faceKey(f.building, f.face), f);
+  const byKey = new FaceLookup<Face>();
+  for (const f of faces) byKey.set(f.building, f.face, f);
   const problems: OpeningProblem[] = [];
   openings.forEach((o, index) => {
-    const face = byKey.get(faceKey(o.building, o.face));
+    const face = byKey.get(o.building, o.face);
     if (!face) {
       problems.push({ index, column: 'face', message: `no face '${o.face}' in building '${o.building}' in the schedule` });
       return;

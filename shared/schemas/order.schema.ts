@@ -1,5 +1,7 @@
 import { isIsoDate } from '../domain/business-calendar';
 import { z } from 'zod';
+import { can, type Action } from '../domain/policy';
+import type { Role } from '../domain/roles';
 import { PRODUCT_CATEGORIES, branchRefSchema } from './catalogue.schema';
 import { CRANE_LIFT, OVERHEAD_LINES, VEHICLE_ACCESS } from './project.schema';
 
@@ -26,28 +28,47 @@ export const ORDER_STATUS_LABELS: Record<OrderStatus, string> = {
 export type OrderParty = 'contractor' | 'merchant';
 
 /**
- * Who may move an order from which stages to which. The contractor's side is built with the
- * contractor workspace; the merchant's confirm, turn-down, dispatch and delivery steps with the desk.
+ * The one table of who may take which step on an order in which stage: the side that takes it, the
+ * policy action whose roles may take it, the stages it starts from and the stage it leaves the order
+ * in (null: the step does not move the order, it only needs the stage). Every step the server takes
+ * on an order is checked against this table; the client is shown the same answer as allowed_actions.
  */
-export const ORDER_TRANSITIONS = {
-  amend: { by: 'contractor', from: ['sent', 'changes_offered', 'agreed'], to: 'sent' },
-  cancel: { by: 'contractor', from: ['sent', 'changes_offered', 'agreed'], to: 'cancelled' },
-  accept_changes: { by: 'contractor', from: ['changes_offered'], to: 'agreed' },
-  decline_changes: { by: 'contractor', from: ['changes_offered'], to: 'sent' },
-  offer_changes: { by: 'merchant', from: ['sent', 'agreed'], to: 'changes_offered' },
-  confirm: { by: 'merchant', from: ['sent', 'agreed'], to: 'confirmed' },
-  turn_down: { by: 'merchant', from: ['sent', 'changes_offered', 'agreed'], to: 'turned_down' },
-  dispatch: { by: 'merchant', from: ['confirmed'], to: 'on_the_road' },
-  deliver: { by: 'merchant', from: ['on_the_road'], to: 'delivered' },
-} as const satisfies Record<string, { by: OrderParty; from: readonly OrderStatus[]; to: OrderStatus }>;
-export type OrderAction = keyof typeof ORDER_TRANSITIONS;
+export const ORDER_STEPS = {
+  amend: { by: 'contractor', policy: 'orders:place', from: ['sent', 'changes_offered', 'agreed'], to: 'sent' },
+  cancel: { by: 'contractor', policy: 'orders:place', from: ['sent', 'changes_offered', 'agreed'], to: 'cancelled' },
+  accept_changes: { by: 'contractor', policy: 'orders:respond', from: ['changes_offered'], to: 'agreed' },
+  decline_changes: { by: 'contractor', policy: 'orders:respond', from: ['changes_offered'], to: 'sent' },
+  offer_changes: { by: 'merchant', policy: 'orders:confirm', from: ['sent', 'agreed'], to: 'changes_offered' },
+  confirm: { by: 'merchant', policy: 'orders:confirm', from: ['sent', 'agreed'], to: 'confirmed' },
+  turn_down: { by: 'merchant', policy: 'orders:confirm', from: ['sent', 'changes_offered', 'agreed'], to: 'turned_down' },
+  dispatch: { by: 'merchant', policy: 'slots:book', from: ['confirmed'], to: 'on_the_road' },
+  deliver: { by: 'merchant', policy: 'deliveries:record', from: ['on_the_road'], to: 'delivered' },
+  book_slot: { by: 'merchant', policy: 'slots:book', from: ['confirmed'], to: null },
+  release_slot: { by: 'merchant', policy: 'slots:book', from: ['confirmed'], to: null },
+  /** Back-ordered packs are owed once the first part is confirmed. */
+  start_follow_up: { by: 'merchant', policy: 'orders:confirm', from: ['confirmed', 'on_the_road', 'delivered'], to: null },
+} as const satisfies Record<string, { by: OrderParty; policy: Action; from: readonly OrderStatus[]; to: OrderStatus | null }>;
+export type OrderStep = keyof typeof ORDER_STEPS;
+/** The steps that move an order to another stage. */
+export type OrderAction = { [K in OrderStep]: (typeof ORDER_STEPS)[K]['to'] extends null ? never : K }[OrderStep];
 
-/** Actions a party may take on an order in a given stage. */
-export function allowedOrderActions(status: OrderStatus, party: OrderParty): OrderAction[] {
-  return (Object.keys(ORDER_TRANSITIONS) as OrderAction[]).filter((a) => {
-    const t = ORDER_TRANSITIONS[a];
-    return t.by === party && (t.from as readonly OrderStatus[]).includes(status);
-  });
+/** The stage changes of ORDER_STEPS alone. */
+export const ORDER_TRANSITIONS = Object.fromEntries(Object.entries(ORDER_STEPS).filter(([, s]) => s.to !== null)) as { [K in OrderAction]: (typeof ORDER_STEPS)[K] };
+
+/** Whether a step may start from this stage (the side and role are not asked). */
+export function stageAllows(step: OrderStep, status: OrderStatus): boolean {
+  return (ORDER_STEPS[step].from as readonly OrderStatus[]).includes(status);
+}
+
+/** Whether a side, and when given a role, may take a step on an order in this stage. */
+export function stepAllowed(step: OrderStep, status: OrderStatus, party: OrderParty, role?: Role): boolean {
+  const s = ORDER_STEPS[step];
+  return s.by === party && stageAllows(step, status) && (role === undefined || can(role, s.policy));
+}
+
+/** Stage changes a side (and when given, a role) may make to an order in a given stage. */
+export function allowedOrderActions(status: OrderStatus, party: OrderParty, role?: Role): OrderAction[] {
+  return (Object.keys(ORDER_TRANSITIONS) as OrderAction[]).filter((a) => stepAllowed(a, status, party, role));
 }
 
 /** How each line stands after the merchant's answer. */

@@ -24,6 +24,18 @@ export const taxRateBpSchema = z
   .min(0, { error: 'must not be negative' })
   .max(10_000, { error: 'must be at most 100 %' });
 
+/**
+ * One side of the pallet the product travels on, for the lorry's deck plan: 1200 × 1000 mm for the
+ * usual pallet unless told (common practice; 1200 × 800 mm is the other common size).
+ */
+export const palletSideSchema = z
+  .number({ error: 'must be a number' })
+  .int({ error: 'must be whole mm' })
+  .min(300, { error: 'must be at least 300 mm' })
+  .max(2_500, { error: 'must be at most 2,500 mm' });
+
+export const DEFAULT_PALLET_MM = { length: 1200, width: 1000 } as const;
+
 const productFields = {
   sku: skuSchema,
   name: text(160).min(1, { error: 'must not be empty' }),
@@ -33,6 +45,8 @@ const productFields = {
   pack_weight_kg: z.number({ error: 'must be a number' }).min(0, { error: 'must not be negative' }).max(5_000, { error: 'must be at most 5,000 kg' }),
   tax_rate_bp: taxRateBpSchema,
   technical: z.record(z.string(), z.unknown()),
+  pallet_length_mm: palletSideSchema,
+  pallet_width_mm: palletSideSchema,
 };
 
 /** A product's technical fields must be what the engine reads for its category (tile, batten, nail...). */
@@ -45,7 +59,13 @@ function checkTechnical(p: { category?: (typeof PRODUCT_CATEGORIES)[number]; tec
 }
 
 export const createProductBodySchema = z
-  .object({ ...productFields, tax_rate_bp: productFields.tax_rate_bp.default(2000), technical: productFields.technical.default({}) })
+  .object({
+    ...productFields,
+    tax_rate_bp: productFields.tax_rate_bp.default(2000),
+    technical: productFields.technical.default({}),
+    pallet_length_mm: palletSideSchema.default(DEFAULT_PALLET_MM.length),
+    pallet_width_mm: palletSideSchema.default(DEFAULT_PALLET_MM.width),
+  })
   .strict()
   .superRefine(checkTechnical);
 export type CreateProductBody = z.input<typeof createProductBodySchema>;
@@ -78,6 +98,9 @@ export const productSchema = z.object({
   pack_weight_kg: z.number(),
   tax_rate_bp: z.number().int(),
   technical: z.record(z.string(), z.unknown()),
+  /** The pallet it travels on, mm. */
+  pallet_length_mm: z.number().int(),
+  pallet_width_mm: z.number().int(),
   /** Where it is sold, at what price, with what stock. */
   branches: z.array(productBranchSchema),
   archived_at: z.string().nullable(),

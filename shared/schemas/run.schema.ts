@@ -1,5 +1,9 @@
 import { z } from 'zod';
+import type { FaceResult } from '../engine/result';
+import { OPENING_KINDS } from './openings.schema';
 import { DELIVERY_METHODS, isoDateSchema, orderSiteSchema, orgRefSchema } from './order.schema';
+import { roofSystemSchema } from './roof-system.schema';
+import { EDGE_KINDS, TOP_KINDS } from './schedule.schema';
 
 /**
  * Runs and drops. A delivery slot (lorry × day × time window) is a run; the orders booked into it are
@@ -175,6 +179,33 @@ export const shortFaceSchema = z.object({
   due_date: z.string().nullable(),
 });
 
+/** The engine's figures for one roof face as stored with the estimate (shared/engine/result.ts describes every field). */
+export const faceResultSchema = z.custom<FaceResult>(
+  (v) => typeof v === 'object' && v !== null && 'courses' in v && 'gauge_mm' in v && 'stacks_by_row' in v && Array.isArray((v as { stacks_by_row: unknown }).stacks_by_row),
+  { error: 'is not a face result' },
+);
+
+/**
+ * What the phone needs to draw one face of a crane drop with its stacks, without the estimate (a
+ * driver may not read it): the face's shape from the schedule, the engine's figures for it (courses,
+ * gauge, and the stacks on each loading batten, top first) and its openings. With the drop's roof
+ * system the drawing places the stacks over the rafters exactly as the estimate's face drawing does.
+ */
+export const landingFaceDrawingSchema = z.object({
+  shape: z.object({
+    eaves_mm: z.number(),
+    top_mm: z.number(),
+    rafter_mm: z.number(),
+    pitch_deg: z.number(),
+    left: z.enum(EDGE_KINDS),
+    right: z.enum(EDGE_KINDS),
+    top: z.enum(TOP_KINDS),
+  }),
+  result: faceResultSchema,
+  openings: z.array(z.object({ building: z.string(), face: z.string(), kind: z.enum(OPENING_KINDS), width_mm: z.number(), height_mm: z.number(), quantity: z.number().int() })),
+});
+export type LandingFaceDrawing = z.infer<typeof landingFaceDrawingSchema>;
+
 /** For a crane drop: which pallets land on which roof face. */
 export const landingFaceSchema = z.object({
   building: z.string(),
@@ -182,8 +213,10 @@ export const landingFaceSchema = z.object({
   /** Pallet numbers (as on their labels) whose tiles go onto this face. */
   pallets: z.array(z.number().int()),
   tiles: z.number().int(),
-  /** The estimate's face id, so the phone can draw its stacks (null when the order has no estimate). */
+  /** The face's place in the estimate's faces (null when the order has no estimate). */
   estimate_face_index: z.number().int().nullable(),
+  /** The face drawn with its stacks (null for spare tiles, or when the order has no estimate or the face is not on it). */
+  drawing: landingFaceDrawingSchema.nullable(),
 });
 
 export const driverDropSchema = z.object({
@@ -209,6 +242,11 @@ export const driverDropSchema = z.object({
   notes: z.array(z.string()),
   short_faces: z.array(shortFaceSchema),
   landing_plan: z.array(landingFaceSchema),
+  /**
+   * The roof system the estimate was worked with (tile, gauge rules, battens, rafter centres, roof
+   * loading: stack size and every nth batten), to draw the landing plan's faces; null when none is drawn.
+   */
+  roof_system: roofSystemSchema.nullable(),
   estimate_id: z.number().int().nullable(),
   delivered: z.boolean(),
 });

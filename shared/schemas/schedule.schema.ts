@@ -205,6 +205,38 @@ export function faceKey(building: string, face: string): string {
   return `${building.trim().toLowerCase()}\u0000${face.trim().toLowerCase()}`;
 }
 
+/**
+ * Values filed by face, building and face name compared as faceKey compares them (without case or
+ * outer spaces), without building a joined key per face: a big job looks up every face, and faces of
+ * one building usually follow each other.
+ */
+export class FaceLookup<T> {
+  private readonly byBuilding = new Map<string, Map<string, T>>();
+  private lastBuilding: string | null = null;
+  private lastFaces: Map<string, T> | undefined;
+
+  private faces(building: string, create: boolean): Map<string, T> | undefined {
+    if (building === this.lastBuilding && (this.lastFaces || !create)) return this.lastFaces;
+    const key = building.trim().toLowerCase();
+    let faces = this.byBuilding.get(key);
+    if (!faces && create) {
+      faces = new Map();
+      this.byBuilding.set(key, faces);
+    }
+    this.lastBuilding = building;
+    this.lastFaces = faces;
+    return faces;
+  }
+
+  get(building: string, face: string): T | undefined {
+    return this.faces(building, false)?.get(face.trim().toLowerCase());
+  }
+
+  set(building: string, face: string, value: T) {
+    (this.faces(building, true) as Map<string, T>).set(face.trim().toLowerCase(), value);
+  }
+}
+
 function mmField(allowZero: boolean) {
   return z.number({ error: SCHEDULE_MESSAGES.notNumber }).superRefine((v, ctx) => {
     const problem = millimetreProblem(v, allowZero);

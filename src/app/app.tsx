@@ -2,7 +2,6 @@ import { hashKey } from '@tanstack/react-query';
 import { RouterProvider } from 'react-router-dom';
 import { UpdateBanner } from '../components/layout/update-banner';
 import { authKeys } from '../features/auth/api/keys';
-import { startPhoneOutbox } from '../features/deliveries/lib/phone-outbox';
 import { apiClient, signInPathWithNext } from '../lib/api-client';
 import { clearPersistedQueries, persistOptions } from '../lib/persisted-queries';
 import { createQueryClient } from '../lib/query-client';
@@ -31,11 +30,41 @@ export function createAppRuntime() {
       if (typeof caches !== 'undefined') void caches.delete(API_CACHE).catch(() => undefined);
     }
   });
-  startPhoneOutbox(queryClient);
+  // What a driver recorded without signal is sent once someone is signed in; its code waits until then.
+  whenSignedInAndSettled({ queryClient, router }, () => void import('../features/deliveries/lib/phone-outbox').then((m) => m.startPhoneOutbox(queryClient)));
   return { queryClient, router, persist: persistOptions() };
 }
 
 type AppRuntime = ReturnType<typeof createAppRuntime>;
+
+/**
+ * Calls `then` once, when the page has loaded, someone is signed in, the router has shown their page
+ * (no navigation or page code still loading) and the browser is idle: work that can wait (setting up
+ * the offline copy) then never competes with what the person is waiting for.
+ */
+export function whenSignedInAndSettled(runtime: Pick<AppRuntime, 'queryClient' | 'router'>, then: () => void): void {
+  let done = false;
+  const settled = () => {
+    const { initialized, navigation } = runtime.router.state;
+    return initialized && navigation.state === 'idle' && Boolean(runtime.queryClient.getQueryData(authKeys.session())) && document.readyState === 'complete';
+  };
+  const unsubscribers: (() => void)[] = [];
+  const check = () => {
+    if (done || !settled()) return;
+    done = true;
+    for (const unsubscribe of unsubscribers) unsubscribe();
+    const idle = window.requestIdleCallback ?? ((callback: () => void) => window.setTimeout(callback, 200));
+    idle(() => then(), { timeout: 5_000 });
+  };
+  unsubscribers.push(runtime.router.subscribe(check));
+  unsubscribers.push(runtime.queryClient.getQueryCache().subscribe(check));
+  if (document.readyState !== 'complete') {
+    const onLoad = () => check();
+    window.addEventListener('load', onLoad, { once: true });
+    unsubscribers.push(() => window.removeEventListener('load', onLoad));
+  }
+  check();
+}
 
 export function App({ runtime }: { runtime: AppRuntime }) {
   return (

@@ -1,8 +1,9 @@
-import { screen, within } from '@testing-library/react';
+import { fireEvent, screen, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
 import { ROLES } from '../../shared/domain/roles';
 import { can } from '../../shared/domain/policy';
 import { AppShell } from '../components/layout/app-shell';
+import { cleanup } from '@testing-library/react';
 import { renderWithProviders } from '../test-utils/render-with-providers';
 import { navItemsForRole } from './navigation';
 import type { Role } from '../../shared/domain/roles';
@@ -55,5 +56,45 @@ describe('role-aware navigation', () => {
     const yard = navItemsForRole('merchant_dispatcher').filter((i) => i.to === '/yard');
     expect(yard.map((i) => i.label)).toEqual(['Home']);
     expect(navItemsForRole('merchant_sales').some((i) => i.to === '/yard')).toBe(false);
+  });
+
+  it('gives every link a picture of what its page is, hidden from screen readers, beside its label', () => {
+    for (const role of ROLES) {
+      cleanup();
+      const nav = renderShellFor(role);
+      for (const item of navItemsForRole(role)) {
+        const link = nav.getByRole('link', { name: item.label });
+        const icon = link.querySelector('svg');
+        expect(icon?.getAttribute('aria-hidden'), `${role}: ${item.label}`).toBe('true');
+        expect(icon?.getAttribute('data-icon')).toBe(item.icon);
+        expect(link.textContent).toBe(item.label);
+      }
+    }
+  });
+
+  it('gives different pages different icons, and only the home the house', () => {
+    for (const role of ROLES) {
+      const items = navItemsForRole(role);
+      const byIcon = new Map<string, string[]>();
+      for (const item of items) byIcon.set(item.icon, [...(byIcon.get(item.icon) ?? []), item.to]);
+      for (const [icon, paths] of byIcon) expect(paths, `${role}: ${icon}`).toHaveLength(1);
+      expect(items.filter((item) => item.icon === 'home').map((item) => item.label)).toEqual(['Home']);
+    }
+  });
+
+  it('can fetch the page behind every link ahead of a click, and does so when the link is pointed at or focused', () => {
+    for (const role of ROLES) {
+      for (const item of navItemsForRole(role)) expect(item.prefetch, `${role}: ${item.to}`).toBeTypeOf('function');
+    }
+    const prefetch = vi.fn();
+    renderWithProviders(
+      <AppShell navItems={[{ to: '/team', label: 'Team', icon: 'team', prefetch }]} homePath="/" person={{ name: 'Kit Trelawny', roleLabel: 'Owner', organisationName: 'Carn Tile Supplies' }} onSignOut={vi.fn()}>
+        <p>page</p>
+      </AppShell>,
+    );
+    const links = screen.getAllByRole('link', { name: 'Team', hidden: true });
+    fireEvent.pointerEnter(links[0]);
+    fireEvent.focus(links[links.length - 1]);
+    expect(prefetch).toHaveBeenCalledTimes(2);
   });
 });

@@ -1,13 +1,20 @@
 import { QueryClientProvider } from '@tanstack/react-query';
 import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '../../shared/domain/roles';
 import { ToastProvider } from '../components/ui/toast';
 import { createTestQueryClient, stubFetch } from '../test-utils/render-with-providers';
 import type { MockResponse } from '../test-utils/render-with-providers';
 import { orderFixture, stockFixture } from '../test-utils/order-fixture';
+import { PAGES } from './lazy-pages';
 import { appRoutes } from './router';
+
+// Pages load their code on first visit; loading it all once here keeps each test's waits about the
+// page, not about the test runner compiling modules on the spot.
+beforeAll(async () => {
+  await Promise.all(Object.values(PAGES).map((load) => load()));
+}, 120_000);
 
 // Nobody signed in is an answer (200 with no session), not a failed request.
 const unauthenticated = { status: 200, body: { session: null } };
@@ -99,7 +106,8 @@ describe('app routes', () => {
     fireEvent.input(await screen.findByLabelText('E-mail'), { target: { value: 'sam@carnbrea-tiles.test' } });
     fireEvent.input(screen.getByLabelText('Password'), { target: { value: 'ridgeload-demo' } });
     fireEvent.click(screen.getByRole('button', { name: 'Sign in' }));
-    expect(await screen.findByRole('heading', { level: 1, name: 'Team' })).toBeTruthy();
+    // Signing in, then the team page's guard, code and data: more steps than the default wait on a busy machine.
+    expect(await screen.findByRole('heading', { level: 1, name: 'Team' }, { timeout: 5_000 })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/team');
   });
 

@@ -4,118 +4,78 @@ import type { RouteObject } from 'react-router-dom';
 import { ROLES_BY_KIND } from '../../shared/domain/roles';
 import { RootErrorPage, RouteErrorPage } from '../components/errors/route-error-page';
 import { PageLoading } from '../components/ui/page-loading';
+import { PAGES } from './lazy-pages';
+import type { PageLoader } from './lazy-pages';
 import { redirectIfSignedIn, requireAction, requireHomeOf, requireSession, rootRedirect } from './route-guards';
-import { AccountsRoute } from './routes/accounts-route';
-import { AcceptInvitationRoute } from './routes/accept-invitation-route';
-import { AmendOrderRoute } from './routes/amend-order-route';
-import { EstimateCaution, FaceDrawingCaution, NewEstimateCaution, OrderCaution, PlaceOrderCaution, YardLoadingCaution, YardPalletCaution } from './routes/cautions';
-import { CompareEstimatesRoute } from './routes/compare-estimates-route';
-import { EditSiteRoute } from './routes/edit-site-route';
-import { EstimateRoute } from './routes/estimate-route';
-import { FaceRoute } from './routes/face-route';
-import { NewEstimateRoute } from './routes/new-estimate-route';
-import { NewSiteRoute } from './routes/new-site-route';
-import { OrderRoute } from './routes/order-route';
-import { OrdersRoute } from './routes/orders-route';
-import { PlaceOrderRoute } from './routes/place-order-route';
-import { QuoteRequestRoute } from './routes/quote-request-route';
-import { QuoteRoute } from './routes/quote-route';
-import { QuotesRoute } from './routes/quotes-route';
 import { guardedRoute } from './routes/route-loaders';
-import { ScheduleEditRoute } from './routes/schedule-edit-route';
-import { ScheduleImportRoute } from './routes/schedule-import-route';
-import { ScheduleVersionRoute } from './routes/schedule-version-route';
-import { SiteRoute } from './routes/site-route';
-import { SitesRoute } from './routes/sites-route';
 import { AppLayoutRoute } from './routes/app-layout-route';
-import { BranchesRoute } from './routes/branches-route';
-import { ContractorHomeRoute } from './routes/contractor-home-route';
-import { DeskHomeRoute } from './routes/desk-home-route';
-import { DeskOrderRoute } from './routes/desk-order-route';
-import { DeskOrdersRoute } from './routes/desk-orders-route';
-import { DeskQuoteRoute } from './routes/desk-quote-route';
-import { DeskQuotesRoute } from './routes/desk-quotes-route';
-import { CatalogueRoute } from './routes/catalogue-route';
-import { InvoiceRoute } from './routes/invoice-route';
-import { InvoicesRoute } from './routes/invoices-route';
-import { DriverHomeRoute } from './routes/driver-home-route';
-import { FleetRoute } from './routes/fleet-route';
-import { ForgotPasswordRoute } from './routes/forgot-password-route';
-import { NotFoundRoute } from './routes/not-found-route';
-import { OrganisationRoute } from './routes/organisation-route';
-import { OutboxRoute } from './routes/outbox-route';
 import { PublicFrame } from './routes/public-frame';
-import { ResetPasswordRoute } from './routes/reset-password-route';
 import { RootLayout } from './routes/root-layout';
 import { SignInRoute } from './routes/sign-in-route';
-import { SignUpRoute } from './routes/sign-up-route';
-import { TeamRoute } from './routes/team-route';
-import { YardHomeRoute } from './routes/yard-home-route';
-import { YardOrderRoute } from './routes/yard-order-route';
-import { YardPalletRoute } from './routes/yard-pallet-route';
-import { YardRunRoute } from './routes/yard-run-route';
 
 const pageError = <RouteErrorPage />;
 
 /** The contractor workspace: sites and their schedules, estimates, orders and quote requests. */
 function contractorRoutes(queryClient: QueryClient): RouteObject[] {
-  const page = (path: string, action: Parameters<typeof guardedRoute>[1], element: RouteObject['element'], idParams: string[] = [], handle?: RouteObject['handle']): RouteObject => ({
-    path,
-    loader: guardedRoute(queryClient, action, ...idParams),
-    element,
-    errorElement: pageError,
-    ...(handle ? { handle } : {}),
-  });
+  const page = guardedPage(queryClient);
   return [
-    page('sites', 'projects:read', <SitesRoute />),
-    page('sites/new', 'projects:write', <NewSiteRoute />),
-    page('sites/:projectId', 'projects:read', <SiteRoute />, ['projectId']),
-    page('sites/:projectId/edit', 'projects:write', <EditSiteRoute />, ['projectId']),
-    page('sites/:projectId/schedule/import', 'projects:write', <ScheduleImportRoute />, ['projectId']),
-    page('sites/:projectId/schedule/edit', 'projects:write', <ScheduleEditRoute />, ['projectId']),
-    page('sites/:projectId/schedules/:version', 'projects:read', <ScheduleVersionRoute />, ['projectId', 'version']),
-    page('sites/:projectId/estimates/new', 'estimates:write', <NewEstimateRoute />, ['projectId'], { caution: <NewEstimateCaution /> }),
-    page('estimates/compare', 'estimates:read', <CompareEstimatesRoute />),
-    page('estimates/:estimateId', 'estimates:read', <EstimateRoute />, ['estimateId'], { caution: <EstimateCaution /> }),
-    page('estimates/:estimateId/faces/:faceIndex', 'estimates:read', <FaceRoute />, ['estimateId'], { caution: <FaceDrawingCaution /> }),
-    page('estimates/:estimateId/order', 'orders:place', <PlaceOrderRoute />, ['estimateId'], { caution: <PlaceOrderCaution /> }),
-    page('estimates/:estimateId/quote', 'orders:place', <QuoteRequestRoute />, ['estimateId'], { caution: <PlaceOrderCaution /> }),
-    page('orders', 'orders:place', <OrdersRoute />),
-    page('orders/:orderId', 'orders:place', <OrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
-    page('orders/:orderId/amend', 'orders:place', <AmendOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
-    page('quotes', 'orders:place', <QuotesRoute />),
-    page('quotes/:requestId', 'orders:place', <QuoteRoute />, ['requestId']),
+    page('sites', 'projects:read', PAGES.sites),
+    page('sites/new', 'projects:write', PAGES.newSite),
+    page('sites/:projectId', 'projects:read', PAGES.site, ['projectId']),
+    page('sites/:projectId/edit', 'projects:write', PAGES.editSite, ['projectId']),
+    page('sites/:projectId/schedule/import', 'projects:write', PAGES.scheduleImport, ['projectId']),
+    page('sites/:projectId/schedule/edit', 'projects:write', PAGES.scheduleEdit, ['projectId']),
+    page('sites/:projectId/schedules/:version', 'projects:read', PAGES.scheduleVersion, ['projectId', 'version']),
+    page('sites/:projectId/estimates/new', 'estimates:write', PAGES.newEstimate, ['projectId']),
+    page('estimates/compare', 'estimates:read', PAGES.compareEstimates),
+    page('estimates/:estimateId', 'estimates:read', PAGES.estimate, ['estimateId']),
+    page('estimates/:estimateId/faces/:faceIndex', 'estimates:read', PAGES.face, ['estimateId']),
+    page('estimates/:estimateId/order', 'orders:place', PAGES.placeOrder, ['estimateId']),
+    page('estimates/:estimateId/quote', 'orders:place', PAGES.quoteRequest, ['estimateId']),
+    page('orders', 'orders:place', PAGES.orders),
+    page('orders/:orderId', 'orders:place', PAGES.order, ['orderId']),
+    page('orders/:orderId/amend', 'orders:place', PAGES.amendOrder, ['orderId']),
+    page('quotes', 'orders:place', PAGES.quotes),
+    page('quotes/:requestId', 'orders:place', PAGES.quote, ['requestId']),
   ];
 }
 
 /** The merchant's side: the order book and its orders. */
 function merchantRoutes(queryClient: QueryClient): RouteObject[] {
-  const page = (path: string, action: Parameters<typeof guardedRoute>[1], element: RouteObject['element'], idParams: string[] = [], handle?: RouteObject['handle']): RouteObject => ({
-    path,
-    loader: guardedRoute(queryClient, action, ...idParams),
-    element,
-    errorElement: pageError,
-    ...(handle ? { handle } : {}),
-  });
+  const page = guardedPage(queryClient);
   return [
-    page('desk/orders', 'orders:confirm', <DeskOrdersRoute />),
-    page('desk/orders/:orderId', 'orders:confirm', <DeskOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
-    page('desk/quotes', 'orders:confirm', <DeskQuotesRoute />),
-    page('desk/quotes/:requestId', 'orders:confirm', <DeskQuoteRoute />, ['requestId']),
-    page('fleet', 'fleet:manage', <FleetRoute />),
+    page('desk/orders', 'orders:confirm', PAGES.deskOrders),
+    page('desk/orders/:orderId', 'orders:confirm', PAGES.deskOrder, ['orderId']),
+    page('desk/quotes', 'orders:confirm', PAGES.deskQuotes),
+    page('desk/quotes/:requestId', 'orders:confirm', PAGES.deskQuote, ['requestId']),
+    page('fleet', 'fleet:manage', PAGES.fleet),
     // The yard's runs: the desk sees them too; what each role may change there follows the runs:* actions.
-    page('yard/runs/:runId', 'runs:read', <YardRunRoute />, ['runId'], { caution: <YardLoadingCaution /> }),
-    page('yard/pallets/:orderId/:pallet', 'runs:read', <YardPalletRoute />, ['orderId', 'pallet'], { caution: <YardPalletCaution /> }),
-    page('yard/orders/:orderId', 'slots:read', <YardOrderRoute />, ['orderId'], { caution: <OrderCaution /> }),
-    page('catalogue', 'catalogue:read', <CatalogueRoute />),
+    page('yard/runs/:runId', 'runs:read', PAGES.yardRun, ['runId']),
+    page('yard/pallets/:orderId/:pallet', 'runs:read', PAGES.yardPallet, ['orderId', 'pallet']),
+    page('yard/orders/:orderId', 'slots:read', PAGES.yardOrder, ['orderId']),
+    page('catalogue', 'catalogue:read', PAGES.catalogue),
     // Both sides: the desk issues and credits, the contractor pays (the card page sends it back here).
-    page('invoices', 'invoices:read', <InvoicesRoute />),
-    page('invoices/:invoiceId', 'invoices:read', <InvoiceRoute />, ['invoiceId']),
-    page('accounts', 'accounts:manage', <AccountsRoute />),
+    page('invoices', 'invoices:read', PAGES.invoices),
+    page('invoices/:invoiceId', 'invoices:read', PAGES.invoice, ['invoiceId']),
+    page('accounts', 'accounts:manage', PAGES.accounts),
   ];
 }
 
-/** Every route of the client. Loaders only guard; pages fetch their own data and show its states. */
+/** A page behind a policy action, its code loaded on first visit while its guard runs. */
+function guardedPage(queryClient: QueryClient) {
+  return (path: string, action: Parameters<typeof guardedRoute>[1], lazy: PageLoader, idParams: string[] = []): RouteObject => ({
+    path,
+    loader: guardedRoute(queryClient, action, ...idParams),
+    lazy,
+    errorElement: pageError,
+  });
+}
+
+/**
+ * Every route of the client. Loaders only guard; pages fetch their own data and show its states. The
+ * sign-in page and the signed-in frame come with the first script; every other page is fetched as it is
+ * needed, at the same time as its guard runs (src/app/lazy-pages.tsx).
+ */
 export function appRoutes(queryClient: QueryClient): RouteObject[] {
   return [
     {
@@ -133,15 +93,15 @@ export function appRoutes(queryClient: QueryClient): RouteObject[] {
               errorElement: pageError,
               children: [
                 { path: 'sign-in', element: <SignInRoute />, errorElement: pageError },
-                { path: 'sign-up', element: <SignUpRoute />, errorElement: pageError },
-                { path: 'forgot-password', element: <ForgotPasswordRoute />, errorElement: pageError },
+                { path: 'sign-up', lazy: PAGES.signUp, errorElement: pageError },
+                { path: 'forgot-password', lazy: PAGES.forgotPassword, errorElement: pageError },
               ],
             },
-            { path: 'reset-password', element: <ResetPasswordRoute />, errorElement: pageError },
-            { path: 'invitations/:token', element: <AcceptInvitationRoute />, errorElement: pageError },
+            { path: 'reset-password', lazy: PAGES.resetPassword, errorElement: pageError },
+            { path: 'invitations/:token', lazy: PAGES.acceptInvitation, errorElement: pageError },
           ],
         },
-        { path: 'outbox/:messageId?', element: <OutboxRoute />, errorElement: <RootErrorPage /> },
+        { path: 'outbox/:messageId?', lazy: PAGES.outbox, errorElement: <RootErrorPage /> },
         {
           element: <AppLayoutRoute />,
           loader: requireSession(queryClient),
@@ -150,47 +110,46 @@ export function appRoutes(queryClient: QueryClient): RouteObject[] {
             {
               path: 'contractor',
               loader: requireHomeOf(queryClient, ROLES_BY_KIND.contractor),
-              element: <ContractorHomeRoute />,
+              lazy: PAGES.contractorHome,
               errorElement: pageError,
             },
             {
               path: 'desk',
               loader: requireHomeOf(queryClient, ['merchant_owner', 'merchant_sales']),
-              element: <DeskHomeRoute />,
+              lazy: PAGES.deskHome,
               errorElement: pageError,
             },
             {
               // The dispatcher's home; the merchant owner reaches the same day plan from the navigation.
               path: 'yard',
               loader: requireHomeOf(queryClient, ['merchant_dispatcher', 'merchant_owner']),
-              element: <YardHomeRoute />,
-              handle: { caution: <YardLoadingCaution /> },
+              lazy: PAGES.yardHome,
               errorElement: pageError,
             },
             {
               path: 'driver',
               loader: requireHomeOf(queryClient, ['driver']),
-              element: <DriverHomeRoute />,
+              lazy: PAGES.driverHome,
               errorElement: pageError,
             },
-            { path: 'team', loader: requireAction(queryClient, 'members:read'), element: <TeamRoute />, errorElement: pageError },
+            { path: 'team', loader: requireAction(queryClient, 'members:read'), lazy: PAGES.team, errorElement: pageError },
             {
               path: 'branches',
               loader: requireAction(queryClient, 'branches:read'),
-              element: <BranchesRoute />,
+              lazy: PAGES.branches,
               errorElement: pageError,
             },
             {
               path: 'organisation',
               loader: requireAction(queryClient, 'organisation:read'),
-              element: <OrganisationRoute />,
+              lazy: PAGES.organisation,
               errorElement: pageError,
             },
             ...contractorRoutes(queryClient),
             ...merchantRoutes(queryClient),
           ],
         },
-        { path: '*', element: <NotFoundRoute /> },
+        { path: '*', lazy: PAGES.notFound },
       ],
     },
   ];

@@ -1,4 +1,38 @@
-import type { DriverDay, DriverDrop } from '../../shared/schemas/run.schema';
+import { estimate } from '../../shared/engine/estimate';
+import { parseRoofSystem } from '../../shared/engine/roof-system';
+import type { RoofSystem } from '../../shared/schemas/roof-system.schema';
+import type { DriverDay, DriverDrop, LandingFaceDrawing } from '../../shared/schemas/run.schema';
+import type { Face } from '../../shared/schemas/schedule.schema';
+
+/** The engine's default roof system: stacks of six on every second batten. */
+export function landingSystem(): RoofSystem {
+  const parsed = parseRoofSystem({});
+  if (!parsed.ok) throw new Error('the default roof system does not parse');
+  return parsed.system;
+}
+
+/** Two gable slopes of one house, 9 m of eaves and a 5,091 mm rafter at 40°, between verges under a ridge. */
+const ALDER: Face[] = ['Front', 'Rear'].map((face) => ({
+  building: 'Alder',
+  face,
+  quantity: 1,
+  pitch_deg: 40,
+  rafter_mm: 5091,
+  run_mm: 5091 * Math.cos((40 * Math.PI) / 180),
+  eaves_mm: 9000,
+  top_mm: 9000,
+  left: 'verge',
+  right: 'verge',
+  top: 'ridge',
+}));
+
+/** Each Alder face as the driver's day carries it: its shape and the engine's own figures for it. */
+export function landingDrawings(system = landingSystem()): LandingFaceDrawing[] {
+  return estimate(ALDER, system).faces.map((result, i) => {
+    const f = ALDER[i]!;
+    return { shape: { eaves_mm: f.eaves_mm, top_mm: f.top_mm, rafter_mm: f.rafter_mm, pitch_deg: f.pitch_deg, left: f.left, right: f.right, top: f.top }, result, openings: [] };
+  });
+}
 
 /**
  * An invented driver's day for component tests: two runs on one crane lorry; the first run has a
@@ -47,9 +81,10 @@ export function driverDrop(overrides: Partial<DriverDrop> = {}): DriverDrop {
     notes: ['Crane lift booked for 08:00'],
     short_faces: [{ building: 'Alder', face: 'Rear', tiles_short: 120, follow_up_reference: 'RL-000019', due_date: '2027-03-08' }],
     landing_plan: [
-      { building: 'Alder', face: 'Front', pallets: [1], tiles: 240, estimate_face_index: 0 },
-      { building: 'Alder', face: 'Rear', pallets: [2], tiles: 200, estimate_face_index: 1 },
+      { building: 'Alder', face: 'Front', pallets: [1], tiles: 240, estimate_face_index: 0, drawing: landingDrawings()[0]! },
+      { building: 'Alder', face: 'Rear', pallets: [2], tiles: 200, estimate_face_index: 1, drawing: landingDrawings()[1]! },
     ],
+    roof_system: landingSystem(),
     estimate_id: 31,
     delivered: false,
     ...overrides,
@@ -97,6 +132,7 @@ export function driverDay(): DriverDay {
             delivery_method: 'ground',
             short_faces: [],
             landing_plan: [],
+            roof_system: null,
             estimate_id: null,
           }),
         ],
@@ -120,6 +156,7 @@ export function driverDay(): DriverDay {
             delivery_method: 'ground',
             short_faces: [],
             landing_plan: [],
+            roof_system: null,
           }),
         ],
       },

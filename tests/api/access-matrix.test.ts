@@ -103,7 +103,7 @@ const BODY_IDS: Record<string, (own: Ids, other: Ids) => Record<string, unknown>
 
 /** Everything the API can change, as one fingerprint (sessions aside: signing in writes them). */
 async function fingerprint(): Promise<string> {
-  return databaseFingerprint(t.db, ['sessions']);
+  return databaseFingerprint(t.db, ['sessions', 'rate_limit_hits']);
 }
 
 const apiRoutes = () => listRoutes(t.app).filter((r) => r.path.startsWith('/api/'));

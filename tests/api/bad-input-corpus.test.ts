@@ -29,7 +29,7 @@ beforeAll(async () => {
 afterAll(async () => t.close());
 
 async function fingerprint(): Promise<string> {
-  return databaseFingerprint(t.db, ['sessions', 'dev_outbox']);
+  return databaseFingerprint(t.db, ['sessions', 'rate_limit_hits', 'dev_outbox']);
 }
 
 interface Row {

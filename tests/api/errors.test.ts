@@ -9,10 +9,10 @@ beforeAll(async () => {
 afterAll(async () => t.close());
 
 describe('error bodies', () => {
-  it('GET /api/health answers ok with the database reachable', async () => {
+  it('GET /api/health answers ok with the database reachable, and the mail outbox empty', async () => {
     const res = await new Client(t.app).get('/api/health');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ ok: true });
+    expect(res.body).toEqual({ ok: true, mail: { queued: 0, sending: 0, failed: 0, oldest_queued_age_s: null } });
   });
 
   it('malformed JSON → 400 malformed_json', async () => {

@@ -70,6 +70,30 @@ describe('products', () => {
     expect((await m.yard.post('/api/products', ridge)).status).toBe(403);
   });
 
+  it('keeps the pallet footprint the deck plan lays out: 1200 × 1000 mm unless told, changed by PATCH, refused out of range naming the field', async () => {
+    // 1200 × 1000 mm is the usual pallet here and 1200 × 800 mm the other common one (common practice).
+    const m = await merchant();
+    const res = await m.desk.post('/api/products', ridge);
+    expect(res.status).toBe(201);
+    expect(productSchema.parse(res.body)).toMatchObject({ pallet_length_mm: 1200, pallet_width_mm: 1000 });
+    const euro = await m.desk.post('/api/products', { ...ridge, sku: 'TRS-RDG-EUR', pallet_length_mm: 1200, pallet_width_mm: 800 });
+    expect(euro.body).toMatchObject({ pallet_length_mm: 1200, pallet_width_mm: 800 });
+    const stored = await t.db('products').where('id', euro.body.id).first('pallet_length_mm', 'pallet_width_mm');
+    expect(stored).toEqual({ pallet_length_mm: 1200, pallet_width_mm: 800 });
+    const changed = await m.desk.patch(`/api/products/${res.body.id}`, { pallet_width_mm: 800 });
+    expect(changed.body).toMatchObject({ pallet_length_mm: 1200, pallet_width_mm: 800 });
+    expect((await m.desk.get(`/api/products?q=TRS-RDG-NEW`)).body.products[0]).toMatchObject({ pallet_width_mm: 800 });
+    const bad = await m.desk.post('/api/products', { ...ridge, sku: 'TRS-RDG-BAD', pallet_length_mm: 1.2, pallet_width_mm: 12_000 });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.details).toEqual(
+      expect.arrayContaining([
+        { path: 'pallet_length_mm', message: 'must be whole mm' },
+        { path: 'pallet_width_mm', message: 'must be at most 2,500 mm' },
+      ]),
+    );
+    expect(await t.db('products').where('sku', 'TRS-RDG-BAD').first()).toBeUndefined();
+  });
+
   it('builds a roof system from the merchant’s own products and says when it cannot be offered', async () => {
     const m = await merchant();
     const s = await m.desk.post('/api/roof-systems', {

@@ -10,6 +10,7 @@ import { createDb, migrateLatest, type Db } from '../../server/db/knex';
 import { runSeeds } from '../../server/db/seed-runner';
 import { startDevSmtp } from '../../server/mail/dev-smtp';
 import { createSmtpMailer } from '../../server/mail/mailer';
+import { createAppMailWorker } from '../../server/mail-worker';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
 
 export interface E2eServer {
@@ -36,7 +37,10 @@ export async function startE2eServer(): Promise<E2eServer> {
   await runSeeds(db);
   const smtp = await startDevSmtp(db, 0);
   const mailer = createSmtpMailer(`smtp://127.0.0.1:${smtp.port}`, config.mailFrom);
-  const app = createApp({ config, db, mailer, logger: pino({ level: 'silent' }) });
+  const deps = { config, db, mailer, logger: pino({ level: 'silent' }) };
+  const app = createApp(deps);
+  const mailWorker = createAppMailWorker(deps);
+  mailWorker.start();
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -51,6 +55,7 @@ export async function startE2eServer(): Promise<E2eServer> {
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections?.();
+      await mailWorker.stop();
       mailer.close();
       await smtp.close();
       await payments.fake.close();

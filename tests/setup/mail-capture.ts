@@ -8,10 +8,12 @@ export interface CapturedMail {
   text: string;
   html: string | false;
   attachments: { filename: string; contentType: string; content: Buffer }[];
+  /** The Message-ID header as sent (the outbox row's message_id). */
+  messageId: string;
 }
 
 /** An in-process SMTP server on port 0: the app's real mailer sends to it and tests read what came. */
-export async function startMailCapture(): Promise<{ mailer: Mailer; messages: CapturedMail[]; waitFor: (to: string) => Promise<CapturedMail>; close: () => Promise<void> }> {
+export async function startMailCapture(): Promise<{ mailer: Mailer; port: number; messages: CapturedMail[]; waitFor: (to: string) => Promise<CapturedMail>; close: () => Promise<void> }> {
   const messages: CapturedMail[] = [];
   const waiters: { to: string; resolve: (m: CapturedMail) => void }[] = [];
   const server = new SMTPServer({
@@ -22,7 +24,7 @@ export async function startMailCapture(): Promise<{ mailer: Mailer; messages: Ca
       simpleParser(stream)
         .then((mail: ParsedMail) => {
           const to = Array.isArray(mail.to) ? mail.to.map((a) => a.text).join(', ') : (mail.to?.text ?? '');
-          const m: CapturedMail = { to, subject: mail.subject ?? '', text: mail.text ?? '', html: mail.html ?? false, attachments: mail.attachments.map((a) => ({ filename: a.filename ?? '', contentType: a.contentType, content: a.content })) };
+          const m: CapturedMail = { to, subject: mail.subject ?? '', text: mail.text ?? '', html: mail.html ?? false, attachments: mail.attachments.map((a) => ({ filename: a.filename ?? '', contentType: a.contentType, content: a.content })), messageId: mail.messageId ? `<${mail.messageId.replace(/^<|>$/g, '')}>` : '' };
           messages.push(m);
           for (const w of waiters.filter((x) => to.includes(x.to))) {
             waiters.splice(waiters.indexOf(w), 1);
@@ -39,6 +41,7 @@ export async function startMailCapture(): Promise<{ mailer: Mailer; messages: Ca
   const mailer = createSmtpMailer(`smtp://127.0.0.1:${port}`, 'Ridgeload <no-reply@ridgeload.test>');
   return {
     mailer,
+    port,
     messages,
     waitFor(to: string) {
       const found = messages.find((m) => m.to.includes(to));

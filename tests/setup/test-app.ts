@@ -1,5 +1,6 @@
 import { mkdtempSync, rmSync } from 'node:fs';
-import type { Server } from 'node:http';
+import { AsyncLocalStorage } from 'node:async_hooks';
+import type { IncomingMessage, Server, ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -9,6 +10,9 @@ import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config/env';
 import { createDb, migrateLatest, type Db } from '../../server/db/knex';
+import { createAppMailWorker } from '../../server/mail-worker';
+import { outboxSignal } from '../../server/mail/outbox';
+import type { MailWorker } from '../../server/mail/outbox-worker';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
 import type { StripeFake } from '../../server/payments/stripe-fake';
 import { startMailCapture } from './mail-capture';
@@ -23,6 +27,10 @@ export interface TestApp {
   payments: StripeFake;
   /** Where the app listens on loopback, for the payment fake's webhooks and redirects. */
   url: string;
+  /** The app's mail outbox worker (started unless MAIL_WORKER=off). */
+  mailWorker: MailWorker;
+  /** Sends every e-mail already committed to the outbox and resolves when none is left due. */
+  drainOutbox: () => Promise<void>;
   close: () => Promise<void>;
 }
 
@@ -48,8 +56,15 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
   if (other && !other.config.databaseUrl) Object.assign(config, { databaseFile: other.config.databaseFile, database: other.config.databaseFile });
   const db = createDb(config.database);
   if (!other) await migrateLatest(db);
-  const mail = await startMailCapture();
-  const app = createApp({ config, db, mailer: mail.mailer, logger: pino({ level: process.env.TEST_LOG ?? 'silent' }) });
+  // Servers on one database share one mail server, as they would in production: any of them may send a message.
+  const mail = other ? other.mail : await startMailCapture();
+  const deps = { config, db, mailer: mail.mailer, logger: pino({ level: process.env.TEST_LOG ?? 'silent' }) };
+  const app = createApp(deps);
+  const mailWorker = createAppMailWorker(deps);
+  if (config.mailWorker) {
+    mailWorker.start();
+    answerAfterMailIsSent(app, mailWorker);
+  }
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -63,17 +78,53 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
     mail,
     payments: dev.fake,
     url,
+    mailWorker,
+    drainOutbox: () => mailWorker.drain(),
     close: async () => {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
+      await mailWorker.stop();
       await dev.fake.close();
-      await mail.close();
+      if (!other) await mail.close();
       await db.destroy();
       await pgDb?.drop();
       // A second server leaves the database to the first.
       rmSync(dir, { recursive: true, force: true });
     },
   };
+}
+
+const requestMail = new AsyncLocalStorage<{ committed: boolean }>();
+outboxSignal.on('committed', () => {
+  const store = requestMail.getStore();
+  if (store) store.committed = true;
+});
+
+/**
+ * Tests read a request's e-mails as soon as it answers: a request that committed mail to the outbox
+ * answers once the worker has sent it (the server itself answers at once and sends after). Mail
+ * written after the answer (the reset request's, on a later turn) is not waited for, so the answer's
+ * timing still tells nothing.
+ */
+function answerAfterMailIsSent(app: Express, worker: MailWorker) {
+  const inner = app as unknown as { handle: (req: IncomingMessage, res: ServerResponse, next?: unknown) => void };
+  const handle = inner.handle.bind(app);
+  Object.assign(app, {
+    handle(req: IncomingMessage, res: ServerResponse, next?: unknown) {
+      const store = { committed: false };
+      const end = res.end.bind(res) as (...args: unknown[]) => ServerResponse;
+      res.end = ((...args: unknown[]) => {
+        if (!store.committed) return end(...args);
+        store.committed = false;
+        void worker
+          .drain()
+          .catch(() => {})
+          .finally(() => end(...args));
+        return res;
+      }) as ServerResponse['end'];
+      requestMail.run(store, () => handle(req, res, next));
+    },
+  });
 }
 
 /** A supertest agent that keeps cookies and sends the CSRF token on every state-changing call. */

@@ -19,7 +19,7 @@ import type { AuthService } from './auth.service';
 
 export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersService, sessions: Pick<SessionStore, 'endAllFor'>) {
   const r = apiRouter();
-  const resetLimit = resetRateLimit(deps.config.resetRateLimit);
+  const resetLimit = resetRateLimit(deps.db, deps.config.resetRateLimit);
 
   r.get('/auth/csrf', { access: { public: 'hands out the token that state-changing requests must echo' } }, (req, res) => {
     res.json({ token: issueCsrfToken(req) });
@@ -27,7 +27,7 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
 
   r.post(
     '/auth/login',
-    { access: { public: 'signing in' }, before: [loginRateLimit(deps.config.loginRateLimit)], body: loginBodySchema },
+    { access: { public: 'signing in' }, before: [loginRateLimit(deps.db, deps.config.loginRateLimit)], body: loginBodySchema },
     async (req, res, { body }) => {
       const user = await auth.verifyCredentials(body.email, body.password);
       if (!user) throw new AppError(401, 'invalid_credentials', 'E-mail or password is wrong');

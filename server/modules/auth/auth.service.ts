@@ -6,6 +6,7 @@ import { dummyPasswordHash, hashPassword, verifyPassword } from '../../auth/pass
 import { hashToken, newToken } from '../../auth/tokens';
 import { isoInHours } from '../../db/time';
 import { AppError } from '../../http/app-error';
+import { enqueueMail } from '../../mail/outbox';
 import { runLater } from '../../mail/send-later';
 import { renderEmail } from '../../mail/templates';
 import { usersRepository } from '../members/users.repository';
@@ -14,7 +15,7 @@ import { passwordResetsRepository } from './password-resets.repository';
 
 export const RESET_TOKEN_HOURS = 1;
 
-export function authService({ db, mailer, config, logger }: AppDeps) {
+export function authService({ db, config, logger }: AppDeps) {
   const users = usersRepository(db);
   const organisations = organisationsRepository(db);
   const resets = passwordResetsRepository(db);
@@ -50,28 +51,33 @@ export function authService({ db, mailer, config, logger }: AppDeps) {
     /**
      * Sends a reset link when the account exists; says nothing either way. The look-up, the token
      * and the e-mail all happen after the caller has its answer, so a known and an unknown address
-     * cost the request the same.
+     * cost the request the same. The token and its e-mail are written in one transaction.
      */
     requestPasswordReset(email: string): void {
       runLater(logger, 'password reset e-mail', async () => {
         const user = await users.findByEmail(email);
         if (!user) return;
+        // Up to here both kinds of address do the same. The rest (a transaction, and the outbox's
+        // worker waking on its commit) waits for the next turn of the event loop, so it never runs
+        // before the answer has left.
+        await new Promise((resolve) => setImmediate(resolve));
         const { token, tokenHash } = newToken();
-        await resets.create(user.id, tokenHash, isoInHours(RESET_TOKEN_HOURS));
         const url = `${config.appUrl}/reset-password?token=${encodeURIComponent(token)}`;
-        await mailer.send(
-          renderEmail({
-            to: user.email,
-            subject: 'Reset your Ridgeload password',
-            heading: 'Reset your password',
-            paragraphs: [
-              `Hello ${user.name},`,
-              `Someone asked to reset the password of your Ridgeload account. The link works once and for ${RESET_TOKEN_HOURS} hour.`,
-            ],
-            action: { label: 'Choose a new password', url },
-            footnote: 'If you did not ask for this, you can ignore this e-mail; your password stays as it is.',
-          }),
-        );
+        const message = renderEmail({
+          to: user.email,
+          subject: 'Reset your Ridgeload password',
+          heading: 'Reset your password',
+          paragraphs: [
+            `Hello ${user.name},`,
+            `Someone asked to reset the password of your Ridgeload account. The link works once and for ${RESET_TOKEN_HOURS} hour.`,
+          ],
+          action: { label: 'Choose a new password', url },
+          footnote: 'If you did not ask for this, you can ignore this e-mail; your password stays as it is.',
+        });
+        await db.transaction(async (trx) => {
+          await resets.create(user.id, tokenHash, isoInHours(RESET_TOKEN_HOURS), trx);
+          await enqueueMail(trx, message, config.mailDomain);
+        });
       });
     },
 

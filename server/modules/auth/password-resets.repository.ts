@@ -3,8 +3,8 @@ import { nowIso } from '../../db/time';
 
 export function passwordResetsRepository(db: Db) {
   return {
-    async create(userId: number, tokenHash: string, expiresAt: string): Promise<void> {
-      await db('password_resets').insert({ user_id: userId, token_hash: tokenHash, expires_at: expiresAt, created_at: nowIso() });
+    async create(userId: number, tokenHash: string, expiresAt: string, trx: Db = db): Promise<void> {
+      await trx('password_resets').insert({ user_id: userId, token_hash: tokenHash, expires_at: expiresAt, created_at: nowIso() });
     },
 
     async findUsable(tokenHash: string, trx: Db = db): Promise<{ id: number; user_id: number } | undefined> {

@@ -121,7 +121,10 @@ export function shortFaces(
     .map((f) => ({ ...f, follow_up_reference: followUp?.reference ?? null, due_date: followUp?.due_date ?? null }));
 }
 
-/** For a crane drop: each face with the pallets whose tiles land on it, in the order they come off; spare tiles last. */
+/**
+ * For a crane drop: each face with the pallets whose tiles land on it, in the order they come off;
+ * spare tiles last. Each face's drawing is filled in by the caller, which has the estimate to hand.
+ */
 export function landingPlan(faces: readonly EstimateFace[], pallets: readonly Pallet[]): LandingFace[] {
   const plan = new Map<string, LandingFace>();
   for (const p of [...pallets].sort((a, b) => a.n - b.n)) {
@@ -130,7 +133,7 @@ export function landingPlan(faces: readonly EstimateFace[], pallets: readonly Pa
       let entry = plan.get(k);
       if (!entry) {
         const index = f.face === 'spare' && f.building === '' ? -1 : faces.findIndex((x) => x.building === f.building && x.face === f.face);
-        entry = { building: f.building, face: f.face, pallets: [], tiles: 0, estimate_face_index: index >= 0 ? index : null };
+        entry = { building: f.building, face: f.face, pallets: [], tiles: 0, estimate_face_index: index >= 0 ? index : null, drawing: null };
         plan.set(k, entry);
       }
       if (!entry.pallets.includes(p.n)) entry.pallets.push(p.n);

@@ -1,4 +1,5 @@
-import ExcelJS from 'exceljs';
+import type ExcelJS from 'exceljs';
+import { loadExcel } from '../../documents/excel';
 import Papa from 'papaparse';
 import { ACCESSORY_WORDS, type Load, type Pallet } from '../../../shared/engine/delivery';
 import type { FaceResult } from '../../../shared/engine/result';
@@ -150,7 +151,8 @@ export function exportsService(estimates: EstimatesService, projects: ProjectsSe
     async xlsx(user: AuthUser, id: number): Promise<Buffer> {
       const e = await estimates.get(user, id);
       const project = await projects.get(user, e.project_id);
-      const wb = new ExcelJS.Workbook();
+      const { Workbook } = await loadExcel();
+      const wb = new Workbook();
       wb.creator = 'Ridgeload';
       wb.created = new Date(e.created_at);
 

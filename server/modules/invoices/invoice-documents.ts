@@ -1,4 +1,4 @@
-import ExcelJS from 'exceljs';
+import { loadExcel } from '../../documents/excel';
 import { CREDIT_REASON_LABELS, PAY_BY_LABELS, type Invoice } from '../../../shared/schemas/invoice.schema';
 import { safeCell } from '../exports/spreadsheet-text';
 import escapeHtml from 'escape-html';
@@ -61,6 +61,7 @@ ${credits ? `<h2 style="font-size:16px">Credit notes</h2><table><tbody>${credits
 
 /** The invoice as a workbook: the lines with money in major units, then the totals. */
 export async function invoiceXlsx(inv: Invoice): Promise<Buffer> {
+  const ExcelJS = await loadExcel();
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Ridgeload';
   const ws = wb.addWorksheet(`Invoice ${inv.number}`, { views: [{ state: 'frozen', ySplit: 1 }] });

@@ -12,9 +12,11 @@ import { orderReference } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
 import { addDays } from '../../../shared/domain/business-calendar';
+import type { Db } from '../../db/knex';
 import { AppError } from '../../http/app-error';
+import { enqueueMail } from '../../mail/outbox';
 import { renderEmail } from '../../mail/templates';
-import { ordersRepository } from '../orders/orders.repository';
+import { ordersRepository, type OrderRow } from '../orders/orders.repository';
 import { toPayment, type PaymentsService } from '../payments/payments.service';
 import { formatMoney } from '../../../shared/domain/money';
 import { invoiceHtml, invoiceXlsx } from './invoice-documents';
@@ -65,7 +67,7 @@ function summaryOf(r: InvoiceRow, today: string): InvoiceSummary {
  * the credited amount; account terms per contractor.
  */
 export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, payments: PaymentsService) {
-  const { db, config, mailer, logger } = deps;
+  const { db, config } = deps;
   const invoices = invoicesRepository(db);
   const orders = ordersRepository(db);
 
@@ -113,26 +115,23 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     };
   }
 
-  async function mailIssued(inv: Invoice) {
-    const order = await orders.find({ kind: 'merchant', organisationId: inv.branch.merchant.id }, inv.order.id);
-    if (!order) return;
-    const to = await orders.contractorEmails(order);
+  /** Writes the new invoice's e-mail to the outbox in the issuing transaction. */
+  async function mailIssued(trx: Db, order: OrderRow, inv: { id: number; number: string; total: number; tax_total: number; pay_by: 'card' | 'account'; due_date: string | null }) {
+    const to = await orders.contractorEmails(order, trx);
     const pay = inv.pay_by === 'account' ? `Payment is due by ${inv.due_date} on your account.` : 'Pay it by card from the invoice in Ridgeload.';
-    await Promise.all(
-      to.map((address) =>
-        mailer
-          .send(
-            renderEmail({
-              to: address,
-              subject: `Invoice ${inv.number} from ${inv.branch.merchant.name}`,
-              heading: `Invoice ${inv.number} for order ${inv.order.reference}`,
-              paragraphs: [`${inv.branch.merchant.name} issued invoice ${inv.number}: ${formatMoney(inv.total, inv.currency)} including ${formatMoney(inv.tax_total, inv.currency)} tax.`, pay],
-              action: { label: 'Open the invoice', url: `${config.appUrl}/invoices/${inv.id}` },
-            }),
-          )
-          .catch((err: unknown) => logger.error({ err, invoice: inv.id }, 'invoice e-mail failed')),
-      ),
-    );
+    for (const address of to) {
+      await enqueueMail(
+        trx,
+        renderEmail({
+          to: address,
+          subject: `Invoice ${inv.number} from ${order.merchant_name}`,
+          heading: `Invoice ${inv.number} for order ${orderReference(order.id)}`,
+          paragraphs: [`${order.merchant_name} issued invoice ${inv.number}: ${formatMoney(inv.total, config.currency)} including ${formatMoney(inv.tax_total, config.currency)} tax.`, pay],
+          action: { label: 'Open the invoice', url: `${config.appUrl}/invoices/${inv.id}` },
+        }),
+        config.mailDomain,
+      );
+    }
   }
 
   return {
@@ -201,11 +200,10 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
           summary: `Invoice ${invoiceNumber(number)} issued: ${formatMoney(subtotal + taxTotal, config.currency)} with tax`,
           data: { invoice_id: invoiceId },
         });
+        await mailIssued(trx, order, { id: invoiceId, number: invoiceNumber(number), total: subtotal + taxTotal, tax_total: taxTotal, pay_by: terms === null ? 'card' : 'account', due_date: terms === null ? null : addDays(issueDate, terms) });
         return invoiceId;
       });
-      const inv = await get(user, id);
-      await mailIssued(inv);
-      return inv;
+      return get(user, id);
     },
 
     /**

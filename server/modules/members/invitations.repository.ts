@@ -25,8 +25,8 @@ export function invitationsRepository(db: Db) {
       token_hash: string;
       invited_by: number;
       expires_at: string;
-    }) {
-      const [row] = await db('invitations')
+    }, trx: Db = db) {
+      const [row] = await trx('invitations')
         .insert({ ...input, created_at: nowIso() })
         .returning([...LIST_COLUMNS]);
       return row as Pick<InvitationRow, (typeof LIST_COLUMNS)[number]>;

@@ -5,7 +5,7 @@ import { hashPassword } from '../../auth/passwords';
 import { hashToken, newToken } from '../../auth/tokens';
 import { isoInHours } from '../../db/time';
 import { AppError } from '../../http/app-error';
-import { runLater } from '../../mail/send-later';
+import { enqueueMail } from '../../mail/outbox';
 import { renderEmail } from '../../mail/templates';
 import { organisationsRepository } from '../organisations/organisations.repository';
 import { invitationsRepository } from './invitations.repository';
@@ -21,7 +21,7 @@ function assertRoleFitsOrganisation(actor: AuthUser, role: Role) {
   }
 }
 
-export function membersService({ db, mailer, config, logger }: AppDeps) {
+export function membersService({ db, config }: AppDeps) {
   const users = usersRepository(db);
   const invitations = invitationsRepository(db);
   const organisations = organisationsRepository(db);
@@ -61,14 +61,6 @@ export function membersService({ db, mailer, config, logger }: AppDeps) {
       assertRoleFitsOrganisation(actor, role);
       const existing = await users.findByEmail(email);
       const { token, tokenHash } = newToken();
-      const invitation = await invitations.create({
-        organisation_id: actor.organisation.id,
-        email,
-        role,
-        token_hash: tokenHash,
-        invited_by: actor.id,
-        expires_at: isoInHours(INVITATION_HOURS),
-      });
       const url = `${config.appUrl}/invitations/${encodeURIComponent(token)}`;
       const message = existing
         ? renderEmail({
@@ -95,8 +87,22 @@ export function membersService({ db, mailer, config, logger }: AppDeps) {
             action: { label: 'Accept the invitation', url },
             footnote: 'If you do not know this firm, ignore this e-mail.',
           });
-      runLater(logger, 'invitation e-mail', () => mailer.send(message));
-      return invitation;
+      // The invitation and its e-mail are written together; the outbox's worker sends it.
+      return db.transaction(async (trx) => {
+        const invitation = await invitations.create(
+          {
+            organisation_id: actor.organisation.id,
+            email,
+            role,
+            token_hash: tokenHash,
+            invited_by: actor.id,
+            expires_at: isoInHours(INVITATION_HOURS),
+          },
+          trx,
+        );
+        await enqueueMail(trx, message, config.mailDomain);
+        return invitation;
+      });
     },
 
     async revokeInvitation(actor: AuthUser, id: number) {

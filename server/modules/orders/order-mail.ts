@@ -1,5 +1,7 @@
 import { DELIVERY_METHOD_LABELS, orderReference } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
+import type { Db } from '../../db/knex';
+import { enqueueMail } from '../../mail/outbox';
 import { renderEmail } from '../../mail/templates';
 import type { OrderRow } from './orders.repository';
 
@@ -134,9 +136,13 @@ function letters(event: OrderMailEvent, o: OrderRow, note?: string, slot?: MailS
   }
 }
 
-/** Sends an order's e-mails after its change is committed; a mail failure is logged, never undoes the change. */
+/**
+ * Writes an order's e-mails to the outbox in `trx`, the transaction of the change they report, so they
+ * are sent exactly when the change is committed (the outbox's worker sends them).
+ */
 export async function sendOrderMail(
-  { mailer, logger, config }: Pick<AppDeps, 'mailer' | 'logger' | 'config'>,
+  trx: Db,
+  { config }: Pick<AppDeps, 'config'>,
   event: OrderMailEvent,
   order: OrderRow,
   to: { contractor: string[]; desk: string[] },
@@ -147,19 +153,13 @@ export async function sendOrderMail(
 ): Promise<void> {
   const content = letters(event, order, note, slot, actor);
   const url = `${config.appUrl}/orders/${order.id}`;
-  const jobs: Promise<void>[] = [];
   for (const [side, letter] of [
     ['contractor', content.contractor],
     ['desk', content.desk],
   ] as const) {
     if (!letter) continue;
     for (const address of to[side]) {
-      jobs.push(
-        mailer
-          .send(renderEmail({ to: address, ...letter, action: { label: 'Open the order', url }, footnote: 'Figures are estimates; check them against the tile maker’s fixing specification.' }))
-          .catch((err: unknown) => logger.error({ err, order: order.id, event }, 'order e-mail failed')),
-      );
+      await enqueueMail(trx, renderEmail({ to: address, ...letter, action: { label: 'Open the order', url }, footnote: 'Figures are estimates; check them against the tile maker’s fixing specification.' }), config.mailDomain);
     }
   }
-  await Promise.all(jobs);
 }

@@ -38,7 +38,7 @@ export function paymentWebhookRoutes(payments: PaymentsService) {
     '/payments/webhook',
     { access: { public: 'the payment provider posts signed events; the signature is checked' }, before: [express.raw({ type: '*/*', limit: '1mb' })] },
     async (req, res) => {
-      const event = payments.verify(Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0), req.get('stripe-signature'));
+      const event = await payments.verify(Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0), req.get('stripe-signature'));
       const { duplicate } = await payments.handleEvent(event);
       res.json({ received: true, duplicate });
     },

@@ -1,5 +1,6 @@
 import { lockRow } from '../../db/dialect';
 import type Stripe from 'stripe';
+import type { StripeClient } from '../../payments/stripe-client';
 import { invoiceNumber, type Payment } from '../../../shared/schemas/invoice.schema';
 import { orderReference } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
@@ -7,6 +8,7 @@ import type { AuthUser } from '../../auth/auth-user';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 import { AppError } from '../../http/app-error';
+import { enqueueMail } from '../../mail/outbox';
 import { renderEmail } from '../../mail/templates';
 import { formatMoney } from '../../../shared/domain/money';
 import { invoicesRepository, type InvoiceParty, type PaymentRow } from '../invoices/invoices.repository';
@@ -43,17 +45,19 @@ function providerError(err: unknown): AppError {
  * carries an idempotency key, and an invoice has at most one open payment, so pressing "Pay" twice
  * makes one checkout and one charge.
  */
-export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, stripe: Stripe | null) {
-  const { db, config, logger, mailer } = deps;
+export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, stripe: StripeClient | null) {
+  const { db, config, logger } = deps;
   const invoices = invoicesRepository(db);
   const orders = ordersRepository(db);
 
-  async function mailPaid(invoiceId: number, amount: number) {
-    const inv = await db('invoices').where({ id: invoiceId }).first();
+  /** Writes the payment's e-mails (to the payer's side and the desk) to the outbox in the transaction that records it. */
+  async function mailPaid(trx: Db, invoiceId: number, amount: number) {
+    const inv = await trx('invoices').where({ id: invoiceId }).first();
     if (!inv) return;
-    const order = await orders.find({ kind: 'merchant', organisationId: inv.merchant_organisation_id }, inv.order_id);
+    const order = await orders.find({ kind: 'merchant', organisationId: inv.merchant_organisation_id }, inv.order_id, trx);
     if (!order) return;
-    const [contractor, desk] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id)]);
+    const contractor = await orders.contractorEmails(order, trx);
+    const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
     const paid = formatMoney(amount, inv.currency);
     const number = invoiceNumber(inv.number);
     const url = `${config.appUrl}/invoices/${invoiceId}`;
@@ -61,9 +65,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
       ...contractor.map((to) => ({ to, subject: `Payment received for invoice ${number}`, heading: 'Thank you: payment received', paragraphs: [`${order.merchant_name} received ${paid} by card for invoice ${number} (order ${orderReference(order.id)}).`] })),
       ...desk.map((to) => ({ to, subject: `${order.contractor_name} paid invoice ${number}`, heading: `Invoice ${number} paid`, paragraphs: [`${paid} was paid by card for order ${orderReference(order.id)}.`] })),
     ];
-    await Promise.all(
-      jobs.map((j) => mailer.send(renderEmail({ ...j, action: { label: 'Open the invoice', url } })).catch((err: unknown) => logger.error({ err, invoiceId }, 'payment e-mail failed'))),
-    );
+    for (const j of jobs) await enqueueMail(trx, renderEmail({ ...j, action: { label: 'Open the invoice', url } }), config.mailDomain);
   }
 
   /** Marks an open payment paid, once, and adds it to the invoice. Returns whether this call recorded it. */
@@ -77,7 +79,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     if (!stripe) throw unavailable();
     const back = `${base}/invoices/${invoiceId}`;
     try {
-      return await stripe.checkout.sessions.create(
+      return await (await stripe.get()).checkout.sessions.create(
         {
           mode: 'payment',
           line_items: [{ quantity: 1, price_data: { currency: payment.currency.toLowerCase(), unit_amount: payment.amount, product_data: { name: `Invoice ${number} (order ${orderReference(orderId)})` } } }],
@@ -123,7 +125,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         return { payment: (await invoices.payment(id, trx))!, created: true };
       });
       if (superseded?.provider_session_id) {
-        await stripe.checkout.sessions.expire(superseded.provider_session_id).catch((err: unknown) => logger.warn({ err, payment: superseded?.id }, 'could not expire a replaced checkout'));
+        await (await stripe.get()).checkout.sessions.expire(superseded.provider_session_id).catch((err: unknown) => logger.warn({ err, payment: superseded?.id }, 'could not expire a replaced checkout'));
       }
       if (payment.provider_session_id && payment.checkout_url) return { created, payment };
       const session = await sessionOf(payment, invoiceId, invoiceNumber(inv.number), inv.order_id, returnBase);
@@ -136,7 +138,6 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
      * a completed checkout records its payment once however many events or refreshes report it.
      */
     async handleEvent(event: Stripe.Event): Promise<{ duplicate: boolean }> {
-      let paidNow: { invoiceId: number; amount: number } | null = null;
       const duplicate = await db.transaction(async (trx) => {
         let payment: PaymentRow | undefined;
         if (event.type === 'checkout.session.completed' || event.type === 'checkout.session.async_payment_succeeded') {
@@ -150,14 +151,13 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         if (event.type === 'checkout.session.completed' || event.type === 'checkout.session.async_payment_succeeded') {
           const s = event.data.object;
           if (s.payment_status === 'paid' && (await recordPaid(trx, payment, s.amount_total ?? payment.amount, typeof s.payment_intent === 'string' ? s.payment_intent : (s.payment_intent?.id ?? null)))) {
-            paidNow = { invoiceId: payment.invoice_id, amount: s.amount_total ?? payment.amount };
+            await mailPaid(trx, payment.invoice_id, s.amount_total ?? payment.amount);
           }
         } else if (event.type === 'payment_intent.payment_failed') {
           await invoices.updatePayment(trx, payment.id, { last_error: event.data.object.last_payment_error?.message ?? 'The card was declined' }, true);
         }
         return false;
       });
-      if (paidNow) await mailPaid((paidNow as { invoiceId: number }).invoiceId, (paidNow as { amount: number }).amount);
       return { duplicate };
     },
 
@@ -169,13 +169,16 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
       if (!stripe) throw unavailable();
       let session: Stripe.Checkout.Session;
       try {
-        session = await stripe.checkout.sessions.retrieve(payment.provider_session_id);
+        session = await (await stripe.get()).checkout.sessions.retrieve(payment.provider_session_id);
       } catch (err) {
         throw providerError(err);
       }
       if (session.payment_status === 'paid') {
-        const recorded = await db.transaction((trx) => recordPaid(trx, payment, session.amount_total ?? payment.amount, typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null)));
-        if (recorded) await mailPaid(payment.invoice_id, session.amount_total ?? payment.amount);
+        await db.transaction(async (trx) => {
+          if (await recordPaid(trx, payment, session.amount_total ?? payment.amount, typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null))) {
+            await mailPaid(trx, payment.invoice_id, session.amount_total ?? payment.amount);
+          }
+        });
       } else if (session.status === 'expired') {
         await db.transaction((trx) => invoices.updatePayment(trx, payment.id, { status: 'failed', last_error: 'the checkout expired', open_for_invoice: null }, true));
       }
@@ -194,7 +197,7 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         return;
       }
       try {
-        const r = await stripe.refunds.create(
+        const r = await (await stripe.get()).refunds.create(
           { payment_intent: refund.provider_payment_id, amount: refund.amount, metadata: { credit_note_id: String(refund.credit_note_id) } },
           { idempotencyKey: `ridgeload-refund-${refundId}` },
         );
@@ -210,11 +213,12 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     },
 
     /** The SDK's signature check: a tampered, unsigned or stale event is refused. */
-    verify(payload: Buffer, signature: string | undefined): Stripe.Event {
+    async verify(payload: Buffer, signature: string | undefined): Promise<Stripe.Event> {
       if (!stripe || !config.stripe.webhookSecret) throw unavailable();
       if (!signature) throw AppError.badRequest('bad_signature', 'The payment event is not signed');
+      const sdk = await stripe.get();
       try {
-        return stripe.webhooks.constructEvent(payload, signature, config.stripe.webhookSecret);
+        return sdk.webhooks.constructEvent(payload, signature, config.stripe.webhookSecret);
       } catch {
         throw AppError.badRequest('bad_signature', 'The payment event signature does not match');
       }

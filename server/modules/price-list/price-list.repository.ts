@@ -12,6 +12,9 @@ export interface ProductValues {
   pack_weight_kg: number;
   tax_rate_bp: number;
   technical: Record<string, unknown>;
+  /** The pallet's footprint; the column's default (1200 × 1000) when left out. */
+  pallet_length_mm?: number;
+  pallet_width_mm?: number;
 }
 
 export interface BranchRow {
@@ -57,6 +60,8 @@ export function priceListRepository(db: Db) {
       pack_weight_kg: Number(r.pack_weight_kg),
       tax_rate_bp: r.tax_rate_bp as number,
       technical: JSON.parse(r.technical as string) as Record<string, unknown>,
+      pallet_length_mm: Number(r.pallet_length_mm),
+      pallet_width_mm: Number(r.pallet_width_mm),
       branches: prices
         .filter((p) => p.product_id === r.id)
         .map((p) => ({

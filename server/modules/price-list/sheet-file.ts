@@ -1,4 +1,5 @@
-import ExcelJS from 'exceljs';
+import type ExcelJS from 'exceljs';
+import { loadExcel } from '../../documents/excel';
 import Papa from 'papaparse';
 import { MAX_SHEET_ROWS } from '../../../shared/schemas/price-list.schema';
 import type { ScheduleProblem } from '../../../shared/schemas/schedule-upload.schema';
@@ -71,7 +72,8 @@ function cellValue(cell: ExcelJS.Cell): string | number | null {
  */
 export async function readSheet(bytes: Buffer): Promise<Sheet> {
   if (isXlsx(bytes)) {
-    const wb = new ExcelJS.Workbook();
+    const excel = await loadExcel();
+    const wb = new excel.Workbook();
     try {
       await wb.xlsx.load(bytes as unknown as ArrayBuffer);
     } catch {
@@ -88,7 +90,7 @@ export async function readSheet(bytes: Buffer): Promise<Sheet> {
       const cells: (string | number | null)[] = [];
       for (let c = 1; c <= width; c++) {
         const cell = row.getCell(c);
-        if (cell.type === ExcelJS.ValueType.Formula) formulas.add(`${r}:${c - 1}`);
+        if (cell.type === excel.ValueType.Formula) formulas.add(`${r}:${c - 1}`);
         cells.push(cellValue(cell));
       }
       grid.push(cells);
@@ -197,7 +199,8 @@ export function toCsv<T>(columns: SheetColumn<T>[], rows: T[]): string {
 
 /** One worksheet with a frozen, filtered header row; text neutralised against formula injection. */
 export async function toXlsx<T>(sheetName: string, columns: SheetColumn<T>[], rows: T[]): Promise<Buffer> {
-  const wb = new ExcelJS.Workbook();
+  const { Workbook } = await loadExcel();
+  const wb = new Workbook();
   wb.creator = 'Ridgeload';
   const ws = wb.addWorksheet(sheetName, { views: [{ state: 'frozen', ySplit: 1 }] });
   ws.columns = columns.map((c) => ({ header: c.header, width: c.width }));

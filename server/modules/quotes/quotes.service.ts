@@ -8,9 +8,11 @@ import {
   type quoteRequestListQuerySchema,
 } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
+import type { Db } from '../../db/knex';
 import type { AuthUser } from '../../auth/auth-user';
 import { nowIso } from '../../db/time';
 import { AppError } from '../../http/app-error';
+import { enqueueMail } from '../../mail/outbox';
 import { renderEmail } from '../../mail/templates';
 import { catalogueRepository } from '../catalogue/catalogue.repository';
 import { packsFor } from '../estimates/bill-of-materials';
@@ -51,26 +53,23 @@ export function compareQuotes(lines: RequestLineRow[], quotes: QuoteRow[]): NonN
 }
 
 export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, orders: OrdersService) {
-  const { db, mailer, logger, config } = deps;
+  const { db, config } = deps;
   const quotes = quotesRepository(db);
   const catalogue = catalogueRepository(db);
   const estimates = estimatesRepository(db);
   const ordersRepo = ordersRepository(db);
   const projects = projectsService(deps);
 
-  async function mail(to: string[], subject: string, heading: string, paragraphs: string[], requestId: number) {
+  /** Writes a quote request's e-mails to the outbox in `trx`, the transaction of the change they report. */
+  async function mail(trx: Db, to: string[], subject: string, heading: string, paragraphs: string[], requestId: number) {
     const url = `${config.appUrl}/quotes/${requestId}`;
-    await Promise.all(
-      to.map((address) =>
-        mailer
-          .send(renderEmail({ to: address, subject, heading, paragraphs, action: { label: 'Open the quote request', url } }))
-          .catch((err: unknown) => logger.error({ err, requestId }, 'quote e-mail failed')),
-      ),
-    );
+    for (const address of to) {
+      await enqueueMail(trx, renderEmail({ to: address, subject, heading, paragraphs, action: { label: 'Open the quote request', url } }), config.mailDomain);
+    }
   }
 
-  async function requesterEmails(r: QuoteRequestRow) {
-    return ordersRepo.contractorEmails({ placed_by: r.created_by, contractor_organisation_id: r.contractor_organisation_id });
+  async function requesterEmails(r: QuoteRequestRow, trx: Db) {
+    return ordersRepo.contractorEmails({ placed_by: r.created_by, contractor_organisation_id: r.contractor_organisation_id }, trx);
   }
 
   async function get(user: AuthUser, id: number): Promise<QuoteRequest> {
@@ -165,8 +164,8 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
         set_down_place: p.set_down_place,
         access_notes: p.access_notes,
       };
-      const id = await db.transaction((trx) =>
-        quotes.insertRequest(
+      const id = await db.transaction(async (trx) => {
+        const requestId = await quotes.insertRequest(
           trx,
           {
             contractor_organisation_id: user.organisation.id,
@@ -182,17 +181,19 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
           },
           lines,
           body.branch_ids.map((b) => ({ id: b, merchantId: branches.get(b)!.merchant.id })),
-        ),
-      );
-      for (const b of body.branch_ids.map((x) => branches.get(x)!)) {
-        await mail(
-          await ordersRepo.deskEmails(b.merchant.id),
-          `Quote request from ${user.organisation.name} for ${b.name}`,
-          `Quote request for ${b.name}`,
-          [`${user.organisation.name} asks for prices on ${lines.length} lines for delivery to ${p.site_postcode || p.name} on ${body.requested_date}.`],
-          id,
         );
-      }
+        for (const b of body.branch_ids.map((x) => branches.get(x)!)) {
+          await mail(
+            trx,
+            await ordersRepo.deskEmails(b.merchant.id, trx),
+            `Quote request from ${user.organisation.name} for ${b.name}`,
+            `Quote request for ${b.name}`,
+            [`${user.organisation.name} asks for prices on ${lines.length} lines for delivery to ${p.site_postcode || p.name} on ${body.requested_date}.`],
+            requestId,
+          );
+        }
+        return requestId;
+      });
       return get(user, id);
     },
 
@@ -233,23 +234,25 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some lines of the quote are not valid', problems);
       const priced = lines.filter((l) => l !== null);
       const total = priced.reduce((s, l) => s + l.total, 0);
-      const ok = await db.transaction((trx) =>
-        quotes.replaceAnswer(trx, quoteId, { message: body.message ?? '', valid_until: body.valid_until ?? null, total, answered_by: user.id }, priced),
-      );
+      const ok = await db.transaction(async (trx) => {
+        if (!(await quotes.replaceAnswer(trx, quoteId, { message: body.message ?? '', valid_until: body.valid_until ?? null, total, answered_by: user.id }, priced))) return false;
+        await mail(trx, await requesterEmails(request, trx), `${quote.branch.name} priced your quote request`, `A price from ${quote.branch.name}`, [
+          `${quote.branch.merchant.name} priced ${priced.length} of ${requestLines.length} lines. Compare the answers side by side in Ridgeload before you accept one.`,
+        ], request.id);
+        return true;
+      });
       if (!ok) throw AppError.conflict('quote_closed', 'This quote request is closed');
-      await mail(await requesterEmails(request), `${quote.branch.name} priced your quote request`, `A price from ${quote.branch.name}`, [
-        `${quote.branch.merchant.name} priced ${priced.length} of ${requestLines.length} lines. Compare the answers side by side in Ridgeload before you accept one.`,
-      ], request.id);
       return get(user, request.id);
     },
 
     async decline(user: AuthUser, quoteId: number, message?: string) {
       const { quote, request } = await merchantQuote(user, quoteId);
-      const ok = await db.transaction((trx) =>
-        quotes.setQuoteStatus(trx, quoteId, ['asked', 'answered'], 'declined', { message: message ?? '', answered_by: user.id, answered_at: nowIso() }),
-      );
+      const ok = await db.transaction(async (trx) => {
+        if (!(await quotes.setQuoteStatus(trx, quoteId, ['asked', 'answered'], 'declined', { message: message ?? '', answered_by: user.id, answered_at: nowIso() }))) return false;
+        await mail(trx, await requesterEmails(request, trx), `${quote.branch.name} cannot quote`, `No price from ${quote.branch.name}`, [message ?? 'The branch cannot supply this request.'], request.id);
+        return true;
+      });
       if (!ok) throw AppError.conflict('quote_closed', 'This quote request is closed');
-      await mail(await requesterEmails(request), `${quote.branch.name} cannot quote`, `No price from ${quote.branch.name}`, [message ?? 'The branch cannot supply this request.'], request.id);
       return get(user, request.id);
     },
 
@@ -290,15 +293,15 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
             const closed = await quotes.setRequestStatus(trx, request.id, 'open', 'accepted');
             if (!accepted || !closed) throw AppError.conflict('quote_closed', 'This quote request was closed at the same moment');
             await quotes.closeOtherQuotes(trx, request.id, quoteId, 'not_chosen');
+            const others = (await quotes.quotesOf([request.id], party, trx)).filter((q) => q.id !== quoteId && q.status === 'not_chosen');
+            for (const q of others) {
+              await mail(trx, await ordersRepo.deskEmails(q.merchant_organisation_id, trx), `Quote request from ${request.contractor_name} went elsewhere`, 'Another quote was chosen', [
+                `${request.contractor_name} chose another merchant for this request. Thank you for pricing it.`,
+              ], request.id);
+            }
           },
         },
       );
-      const others = (await quotes.quotesOf([request.id], party)).filter((q) => q.id !== quoteId && q.status === 'not_chosen');
-      for (const q of others) {
-        await mail(await ordersRepo.deskEmails(q.merchant_organisation_id), `Quote request from ${request.contractor_name} went elsewhere`, 'Another quote was chosen', [
-          `${request.contractor_name} chose another merchant for this request. Thank you for pricing it.`,
-        ], request.id);
-      }
       return { order: { id: order.id, status: order.status, reference: order.reference }, quote_request: await get(user, request.id) };
     },
 

@@ -5,7 +5,7 @@ import { addDays } from '../../../shared/domain/business-calendar';
 import { can } from '../../../shared/domain/policy';
 import { deckPalletKey, planDeck, type DeckDrop, type DeckPlan } from '../../../shared/engine/deck-plan';
 import { CATEGORY_LABELS, type ProductCategory } from '../../../shared/schemas/catalogue.schema';
-import { ORDER_TRANSITIONS, orderReference } from '../../../shared/schemas/order.schema';
+import { ORDER_TRANSITIONS, orderReference, stageAllows } from '../../../shared/schemas/order.schema';
 import type { PalletView, Run, RunStatus, RunWeek, sendOutBodySchema } from '../../../shared/schemas/run.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
@@ -282,7 +282,7 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
       await db.transaction(async (trx) => {
         const d = await detail(user, id, trx);
         if (d.row.sent_out_at) throw AppError.conflict('run_sent_out', `${d.row.registration}'s run left the yard at ${d.row.sent_out_at}`);
-        const going = d.drops.filter((x) => (t.from as readonly string[]).includes(x.status)).map((x) => x.order_id);
+        const going = d.drops.filter((x) => stageAllows('dispatch', x.status)).map((x) => x.order_id);
         if (going.length === 0) throw AppError.conflict('nothing_to_send', `${d.row.registration}'s run has no confirmed drop to send out`);
         if (!d.row.driver_user_id) throw AppError.conflict('no_driver', `Assign a driver to ${d.row.registration} on ${d.row.date} ${d.row.time_window} first`);
         const refusal = readiness(d, going);
@@ -309,15 +309,15 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
           sent.push(orderId);
         }
         await repo.markSentOut(trx, d.row.id, { by: user.id, override });
+        const party = { kind: 'merchant' as const, organisationId: user.organisation.id };
+        for (const orderId of sent) {
+          const order = await orders.find(party, orderId, trx);
+          if (!order) continue;
+          const contractor = await orders.contractorEmails(order, trx);
+          const desk = await orders.deskEmails(order.merchant_organisation_id, trx);
+          await sendOrderMail(trx, deps, 'dispatched', order, { contractor, desk }, undefined, { date: d.row.date, time_window: d.row.time_window, registration: d.row.registration }, 'merchant');
+        }
       });
-      const party = { kind: 'merchant' as const, organisationId: user.organisation.id };
-      const row = await runOf(user, id);
-      for (const orderId of sent) {
-        const order = await orders.find(party, orderId);
-        if (!order) continue;
-        const [contractor, desk] = await Promise.all([orders.contractorEmails(order), orders.deskEmails(order.merchant_organisation_id)]);
-        await sendOrderMail(deps, 'dispatched', order, { contractor, desk }, undefined, { date: row.date, time_window: row.time_window, registration: row.registration }, 'merchant');
-      }
       return (await detail(user, id)).run;
     },
 

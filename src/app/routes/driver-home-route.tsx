@@ -1,13 +1,25 @@
+import { lazy, Suspense } from 'react';
 import { SectionBoundary } from '../../components/errors/section-boundary';
+import type { RenderFaceDrawing } from '../../features/deliveries/components/drop-parts';
 import { DriverToday } from '../../features/deliveries/components/driver-today';
 import { BranchList } from '../../features/organisation/components/branch-list';
 import { firstName } from '../../lib/format';
 import { usePageTitle } from '../../lib/use-page-title';
 import { useCurrentSession } from '../current-session';
-import { LandingFaceDrawing } from './landing-face-drawing';
+import { SkeletonBlock } from '../../components/ui/skeleton';
 import { RoleHome } from './role-home';
 
-const renderFaceDrawing = (estimateId: number, faceIndex: number) => <LandingFaceDrawing estimateId={estimateId} faceIndex={faceIndex} />;
+/**
+ * The driver's landing plan draws each face with the estimate's own face drawing. Its geometry loads when a
+ * drop's landing plan is opened, not with the day's list; the service worker keeps it with the driver's pages.
+ */
+const LandingFaceDrawing = lazy(() => import('./landing-face-drawing').then((m) => ({ default: m.LandingFaceDrawing })));
+
+const renderFaceDrawing: RenderFaceDrawing = (drawing, system) => (
+  <Suspense fallback={<SkeletonBlock label="Loading the stack drawing" lines={3} />}>
+    <LandingFaceDrawing drawing={drawing} system={system} />
+  </Suspense>
+);
 
 /** Phone-first: big type, one column, targets a gloved thumb can hit. */
 export function DriverHomeRoute() {

@@ -2,8 +2,8 @@ import { useState } from 'react';
 import { acceptInvitationBodySchema } from '../../../../shared/schemas/auth.schema';
 import type { SessionBody } from '../../../../shared/schemas/auth.schema';
 import { ROLE_LABELS } from '../../../../shared/domain/roles';
-import { Form, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert, ErrorAlert } from '../../../components/ui/alert';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { isApiError } from '../../../lib/api-client';
@@ -22,7 +22,7 @@ export function AcceptInvitation({ token, onAccepted }: AcceptInvitationProps) {
   const preview = useInvitationPreview(token);
   const accept = useAcceptInvitation(token);
   const [showPassword, setShowPassword] = useState(false);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: acceptInvitationBodySchema,
     onSubmit: async (values) => onAccepted(await accept.mutateAsync(values)),
   });

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { forgotPasswordBodySchema } from '../../../../shared/schemas/auth.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert } from '../../../components/ui/alert';
 import { useRequestPasswordReset } from '../api/forgot-password';
 
@@ -9,7 +9,7 @@ import { useRequestPasswordReset } from '../api/forgot-password';
 export function ForgotPasswordForm() {
   const request = useRequestPasswordReset();
   const [sentTo, setSentTo] = useState<string | null>(null);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: forgotPasswordBodySchema,
     onSubmit: async (values) => {
       await request.mutateAsync(values);

@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import { resetPasswordBodySchema } from '../../../../shared/schemas/auth.schema';
-import { Form, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useResetPassword } from '../api/reset-password';
 
 interface ResetPasswordFormProps {
@@ -13,7 +13,7 @@ export function ResetPasswordForm({ token, onDone }: ResetPasswordFormProps) {
   const reset = useResetPassword();
   const [showPassword, setShowPassword] = useState(false);
   const extraValues = useMemo(() => ({ token }), [token]);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: resetPasswordBodySchema,
     extraValues,
     onSubmit: async (values) => {

@@ -1,8 +1,8 @@
 import { useState } from 'react';
 import { loginBodySchema } from '../../../../shared/schemas/auth.schema';
 import type { SessionBody } from '../../../../shared/schemas/auth.schema';
-import { Form, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useSignIn } from '../api/sign-in';
 
 interface SignInFormProps {
@@ -13,7 +13,7 @@ interface SignInFormProps {
 export function SignInForm({ onSignedIn, defaultEmail }: SignInFormProps) {
   const signIn = useSignIn();
   const [showPassword, setShowPassword] = useState(false);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: loginBodySchema,
     onSubmit: async (values) => onSignedIn(await signIn.mutateAsync(values)),
   });

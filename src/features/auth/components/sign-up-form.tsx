@@ -1,8 +1,8 @@
 import { useState } from 'react';
 import { signupBodySchema } from '../../../../shared/schemas/auth.schema';
 import type { SessionBody } from '../../../../shared/schemas/auth.schema';
-import { Form, RadioGroupField, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, RadioGroupField, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useSignUp } from '../api/sign-up';
 
 const kindOptions = [
@@ -17,7 +17,7 @@ interface SignUpFormProps {
 export function SignUpForm({ onSignedUp }: SignUpFormProps) {
   const signUp = useSignUp();
   const [showPassword, setShowPassword] = useState(false);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: signupBodySchema,
     onSubmit: async (values) => onSignedUp(await signUp.mutateAsync(values)),
   });

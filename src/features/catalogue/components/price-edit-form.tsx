@@ -1,7 +1,7 @@
 import { useEffect, useRef } from 'react';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { formatMoney } from '../../../lib/format';
@@ -13,7 +13,7 @@ import { penceText, priceFormSchema } from '../lib/price-form';
 export function PriceEditForm({ branchId, item, onDone }: { branchId: number; item: StockItem; onDone: () => void }) {
   const setPrice = useSetBranchPrice(branchId);
   const toast = useToast();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: priceFormSchema,
     onSubmit: async (body) => {
       try {

@@ -20,6 +20,8 @@ const saved = (over: Record<string, unknown>) => ({
   pack_weight_kg: 4.4,
   tax_rate_bp: 2000,
   technical: {},
+  pallet_length_mm: 1200,
+  pallet_width_mm: 1000,
   branches: [],
   archived_at: null,
   created_at: '2026-12-01T09:00:00.000Z',
@@ -87,6 +89,8 @@ describe('ProductForm', () => {
         pack_size: 1,
         pack_weight_kg: 4.4,
         tax_rate_bp: 2000,
+        pallet_length_mm: 1200,
+        pallet_width_mm: 1000,
         technical: {
           kind: 'single_lap',
           length_mm: 420,
@@ -143,6 +147,8 @@ describe('ProductForm', () => {
         pack_size: 1,
         pack_weight_kg: 1,
         tax_rate_bp: 1750,
+        pallet_length_mm: 1200,
+        pallet_width_mm: 1000,
         technical: { length_mm: 38, diameter_mm: 3.35, nail_g: 0.9 },
       }),
     );
@@ -170,18 +176,55 @@ describe('ProductForm', () => {
     expect(screen.getByLabelText('Cover along the ridge (mm)').getAttribute('aria-invalid')).toBe('true');
   });
 
+  it('sends the pallet footprint as typed, 1200 × 1000 mm unless changed, and shows the server’s refusal of it under its field', async () => {
+    const fetchMock = stubFetch({
+      ...csrf,
+      'POST /api/products': [
+        { status: 422, body: { error: { code: 'validation_failed', message: 'The request has 1 problem', details: [{ path: 'pallet_width_mm', message: 'is wider than any lorry deck of the branch' }] } } },
+        { status: 201, body: saved({ sku: 'TRS-RDG-03', category: 'ridge', pallet_width_mm: 800 }) },
+      ],
+    });
+    renderWithProviders(<ProductForm />);
+    expect((screen.getByLabelText('Pallet length (mm)') as HTMLInputElement).value).toBe('1200');
+    expect((screen.getByLabelText('Pallet width (mm)') as HTMLInputElement).value).toBe('1000');
+    fillCommon('TRS-RDG-03', 'Half-round ridge, slate grey', 'ridge', 'piece');
+    type('Pack weight (kg)', '4.6');
+    type('Cover along the ridge (mm)', '420');
+    type('Weight of one piece (kg)', '4.6');
+    type('Pallet width (mm)', '2400');
+    fireEvent.click(screen.getByRole('button', { name: 'Add the product' }));
+    const width = screen.getByLabelText('Pallet width (mm)');
+    await waitFor(() => expect(width.getAttribute('aria-invalid')).toBe('true'));
+    const describedBy = (width.getAttribute('aria-describedby') ?? '').split(' ');
+    expect(describedBy.map((id) => document.getElementById(id)?.textContent).join(' ')).toBe('is wider than any lorry deck of the branch');
+    expect(screen.getByRole('alert').textContent).toContain('Check the fields marked below.');
+    expect(document.activeElement).toBe(width);
+    // 1200 × 800 mm: the smaller common pallet (common practice).
+    type('Pallet width (mm)', '800');
+    await waitFor(() => expect(width.getAttribute('aria-invalid')).toBeNull());
+    fireEvent.click(screen.getByRole('button', { name: 'Add the product' }));
+    await waitFor(() => expect(fetchMock.mock.calls.filter(([url]) => String(url).endsWith('/api/products'))).toHaveLength(2));
+    const bodies = fetchMock.mock.calls.filter(([url]) => String(url).endsWith('/api/products')).map(([, init]) => JSON.parse(String(init?.body)) as unknown);
+    expect(bodies[0]).toMatchObject({ pallet_length_mm: 1200, pallet_width_mm: 2400 });
+    expect(bodies[1]).toMatchObject({ pallet_length_mm: 1200, pallet_width_mm: 800 });
+    expect(await screen.findByText('TRS-RDG-03 is added to the catalogue.')).toBeTruthy();
+  });
+
   it('changes a stored tile with PATCH, keeping its fields and the engine label not on the form', async () => {
     // 1.1 kg a plain tile, 1000 a pallet: from memory.
     const tile = productSchema.parse(saved({
       sku: 'TRS-PT265-RD',
       name: 'Stanmoor plain tile, red',
       pack_weight_kg: 1.1,
+      pallet_width_mm: 800,
       technical: { name: 'Stanmoor plain', kind: 'double_lap', length_mm: 265, width_mm: 165, headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }], weight_kg: 1.1, per_pallet: 1000, nails_per_tile: 2 },
     }));
     const fetchMock = stubFetch({ ...csrf, 'PATCH /api/products/21': { status: 200, body: tile } });
     renderWithProviders(<ProductForm product={tile} onDone={() => undefined} />);
     // Plain tile 265 × 165 mm at 65 mm headlap from 35°: NHBC Standards 7.2.19, table "Pitch, gauge and lap".
     expect((screen.getByLabelText('Band 1: minimum headlap (mm)') as HTMLInputElement).value).toBe('65');
+    // A 1200 × 800 mm pallet: the smaller common size (common practice).
+    expect((screen.getByLabelText('Pallet width (mm)') as HTMLInputElement).value).toBe('800');
     type('Tiles per pallet', '1,200');
     fireEvent.click(screen.getByRole('button', { name: 'Save the product' }));
     await waitFor(() =>
@@ -193,6 +236,8 @@ describe('ProductForm', () => {
         pack_size: 1,
         pack_weight_kg: 1.1,
         tax_rate_bp: 2000,
+        pallet_length_mm: 1200,
+        pallet_width_mm: 800,
         technical: { name: 'Stanmoor plain', kind: 'double_lap', length_mm: 265, width_mm: 165, headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }], weight_kg: 1.1, per_pallet: 1200, nails_per_tile: 2 },
       }),
     );

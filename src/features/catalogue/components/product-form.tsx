@@ -1,12 +1,12 @@
-import { useMemo, useRef, useState } from 'react';
-import type { ReactNode } from 'react';
+import { useMemo, useState } from 'react';
 import { CATEGORY_LABELS, PRODUCT_CATEGORIES } from '../../../../shared/schemas/catalogue.schema';
 import type { ProductCategory } from '../../../../shared/schemas/catalogue.schema';
+import { DEFAULT_PALLET_MM } from '../../../../shared/schemas/price-list.schema';
 import type { Product } from '../../../../shared/schemas/price-list.schema';
 import { BONDS, TILE_KINDS } from '../../../../shared/schemas/roof-system.schema';
-import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
-import type { ZodForm } from '../../../components/form/use-zod-form';
+import { FieldGroup, Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
+import type { SchemaForm } from '../../../components/form/use-schema-form';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
@@ -20,34 +20,18 @@ const CATEGORY_OPTIONS = [{ value: '', label: 'Choose a category' }, ...PRODUCT_
 const KIND_WORDS: Record<(typeof TILE_KINDS)[number], string> = { single_lap: 'Single-lap (interlocking)', double_lap: 'Double-lap (plain tile or slate)' };
 const BOND_WORDS: Record<(typeof BONDS)[number], string> = { broken: 'Broken bond', straight: 'Straight bond' };
 
-/** An error the server or the schema gave a group of inputs (a fieldset), shown under its legend. */
-function GroupError({ form, name }: { form: ZodForm; name: string }) {
-  const error = form.fieldErrors[name];
-  if (!error) return null;
-  return (
-    <p id={`${form.id}-${name.replace(/\W/g, '-')}-error`} className="mt-1.5 text-sm font-medium text-brick-700">
-      {error}
-    </p>
-  );
-}
-
-function Group({ form, name, legend, hint, children }: { form: ZodForm; name: string; legend: string; hint?: ReactNode; children: ReactNode }) {
-  const errorId = `${form.id}-${name.replace(/\W/g, '-')}-error`;
-  return (
-    // The fieldset carries the field path, so an error about the whole group (not one input) lands here.
-    <fieldset name={name} aria-describedby={form.fieldErrors[name] ? errorId : undefined} className="rounded-md border border-mortar-300 p-3">
-      <legend className="px-1 font-medium text-ink-900">{legend}</legend>
-      {hint ? <p className="mb-2 text-sm text-ink-600">{hint}</p> : null}
-      <GroupError form={form} name={name} />
-      {children}
-    </fieldset>
-  );
-}
-
-function TileFields({ form, product }: { form: ZodForm; product: Product | null }) {
-  // Loaded bands are keyed 0, 1, 2…; bands added here count down from -1, so the two never meet.
-  const nextId = useRef(-1);
-  const [bands, setBands] = useState<(HeadlapBandText & { id: number })[]>(() => headlapBandsText(product).map((b, i) => ({ ...b, id: i })));
+function TileFields({ form, product }: { form: SchemaForm; product: Product | null }) {
+  const [bands] = useState<HeadlapBandText[]>(() => headlapBandsText(product));
+  const [count, setCount] = useState(bands.length);
+  // Bands are named by their place; removing one moves the typed values of those below it up a row.
+  const removeBand = (index: number) => {
+    for (let i = index; i < count - 1; i++) {
+      for (const key of ['from_pitch_deg', 'min_mm'] as const) {
+        form.methods.setValue(technicalField('headlap_mm', i, key), form.methods.getValues(technicalField('headlap_mm', i + 1, key)) as string);
+      }
+    }
+    setCount(count - 1);
+  };
   const t = (...path: string[]) => technicalText(product, ...path);
   return (
     <div className="space-y-4">
@@ -74,36 +58,36 @@ function TileFields({ form, product }: { form: ZodForm; product: Product | null 
           defaultValue={t('halves_per_tile')}
         />
       </div>
-      <Group form={form} name={technicalField('cover_width_mm')} legend="Cover width (mm)" hint="Needed for a single-lap tile: the side lock's closed, nominal and open cover. Leave blank for a double-lap tile (its cover is its width).">
+      <FieldGroup name={technicalField('cover_width_mm')} legend="Cover width (mm)" hint="Needed for a single-lap tile: the side lock's closed, nominal and open cover. Leave blank for a double-lap tile (its cover is its width).">
         <div className="grid gap-4 sm:grid-cols-3">
           <TextField name={technicalField('cover_width_mm', 'min')} label="Closed up (min)" inputMode="decimal" defaultValue={t('cover_width_mm', 'min')} />
           <TextField name={technicalField('cover_width_mm', 'nominal')} label="Nominal" inputMode="decimal" defaultValue={t('cover_width_mm', 'nominal')} />
           <TextField name={technicalField('cover_width_mm', 'max')} label="Spread (max)" inputMode="decimal" defaultValue={t('cover_width_mm', 'max')} />
         </div>
-      </Group>
-      <Group form={form} name={technicalField('headlap_mm')} legend="Headlap by pitch" hint="One row per pitch band: the minimum headlap from that pitch upwards. The lowest band is the lowest pitch the tile may be laid at.">
+      </FieldGroup>
+      <FieldGroup name={technicalField('headlap_mm')} legend="Headlap by pitch" hint="One row per pitch band: the minimum headlap from that pitch upwards. The lowest band is the lowest pitch the tile may be laid at.">
         <ol className="space-y-3">
-          {bands.map((band, i) => (
-            <li key={band.id} className="grid items-end gap-3 sm:grid-cols-[1fr_1fr_auto]">
-              <TextField name={technicalField('headlap_mm', i, 'from_pitch_deg')} label={`Band ${i + 1}: from pitch (°)`} inputMode="decimal" defaultValue={band.from_pitch_deg} />
-              <TextField name={technicalField('headlap_mm', i, 'min_mm')} label={`Band ${i + 1}: minimum headlap (mm)`} inputMode="decimal" defaultValue={band.min_mm} />
-              {bands.length > 1 ? (
-                <Button variant="ghost" onClick={() => setBands((list) => list.filter((b) => b.id !== band.id))}>
+          {Array.from({ length: count }, (_, i) => (
+            <li key={i} className="grid items-end gap-3 sm:grid-cols-[1fr_1fr_auto]">
+              <TextField name={technicalField('headlap_mm', i, 'from_pitch_deg')} label={`Band ${i + 1}: from pitch (°)`} inputMode="decimal" defaultValue={bands[i]?.from_pitch_deg ?? ''} />
+              <TextField name={technicalField('headlap_mm', i, 'min_mm')} label={`Band ${i + 1}: minimum headlap (mm)`} inputMode="decimal" defaultValue={bands[i]?.min_mm ?? ''} />
+              {count > 1 ? (
+                <Button variant="ghost" onClick={() => removeBand(i)}>
                   Remove band {i + 1}
                 </Button>
               ) : null}
             </li>
           ))}
         </ol>
-        <Button variant="secondary" className="mt-3" onClick={() => setBands((list) => [...list, { id: nextId.current--, from_pitch_deg: '', min_mm: '' }])}>
+        <Button variant="secondary" className="mt-3" onClick={() => setCount(count + 1)}>
           Add a pitch band
         </Button>
-      </Group>
+      </FieldGroup>
     </div>
   );
 }
 
-function TechnicalFields({ form, category, product }: { form: ZodForm; category: ProductCategory; product: Product | null }) {
+function TechnicalFields({ form, category, product }: { form: SchemaForm; category: ProductCategory; product: Product | null }) {
   const same = product?.category === category ? product : null;
   if (category === 'tile') return <TileFields form={form} product={same} />;
   const fields = TECHNICAL_FIELDS[category];
@@ -124,7 +108,7 @@ export function ProductForm({ product = null, onDone }: { product?: Product | nu
   const toast = useToast();
   const [category, setCategory] = useState<ProductCategory | ''>(product?.category ?? '');
   const schema = useMemo(() => productFormSchema(product), [product]);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema,
     onSubmit: async (body, { reset }) => {
       try {
@@ -150,16 +134,21 @@ export function ProductForm({ product = null, onDone }: { product?: Product | nu
           label="Category"
           options={CATEGORY_OPTIONS}
           value={category}
-          onChange={(e) => {
-            form.clearFieldError('category');
-            setCategory(e.target.value as ProductCategory | '');
-          }}
+          onChange={(e) => setCategory(e.target.value as ProductCategory | '')}
         />
         <TextField name="unit" label="Unit" hint="What one is counted in: piece, roll, length, m…" maxLength={20} defaultValue={product?.unit ?? ''} />
         <TextField name="pack_size" label="Pack size (units in one pack)" inputMode="numeric" defaultValue={product ? String(product.pack_size) : ''} />
         <TextField name="pack_weight_kg" label="Pack weight (kg)" inputMode="decimal" defaultValue={product ? String(product.pack_weight_kg) : ''} />
         <TextField name="tax_rate_bp" label="Tax rate (%)" hint="20 for 20 %." inputMode="decimal" defaultValue={taxPercentText(product?.tax_rate_bp ?? 2000)} />
       </div>
+      <fieldset className="rounded-md border border-mortar-300 p-3">
+        <legend className="px-1 font-medium text-ink-900">Pallet footprint</legend>
+        <p className="mb-2 text-sm text-ink-600">The pallet it travels on, as the lorry&rsquo;s deck plan lays it out: 1200 × 1000 mm for the usual pallet, 1200 × 800 mm for the smaller one.</p>
+        <div className="grid gap-4 sm:grid-cols-2">
+          <TextField name="pallet_length_mm" label="Pallet length (mm)" inputMode="numeric" defaultValue={String(product?.pallet_length_mm ?? DEFAULT_PALLET_MM.length)} />
+          <TextField name="pallet_width_mm" label="Pallet width (mm)" inputMode="numeric" defaultValue={String(product?.pallet_width_mm ?? DEFAULT_PALLET_MM.width)} />
+        </div>
+      </fieldset>
       {category ? (
         <section aria-label={`Technical fields for ${CATEGORY_LABELS[category]}`} className="space-y-3">
           <h3 className="font-semibold text-ink-900">Technical fields: {CATEGORY_LABELS[category]}</h3>

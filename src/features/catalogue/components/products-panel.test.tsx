@@ -13,6 +13,8 @@ const product = (id: number, sku: string, name: string, archived: boolean) => ({
   pack_weight_kg: 4.6,
   tax_rate_bp: 2000,
   technical: { cover_mm: 420, weight_kg: 4.6 },
+  pallet_length_mm: 1200,
+  pallet_width_mm: 1000,
   branches: [],
   archived_at: archived ? '2026-11-20T10:00:00.000Z' : null,
   created_at: '2026-10-01T00:00:00.000Z',

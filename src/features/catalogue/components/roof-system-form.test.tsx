@@ -6,7 +6,7 @@ import { RoofSystemForm } from './roof-system-form';
 
 const csrf = { 'GET /api/auth/csrf': { status: 200, body: { token: 't' } } };
 const product = (id: number, sku: string, name: string, category: string, archived = false) =>
-  productSchema.parse({ id, sku, name, category, unit: 'piece', pack_size: 1, pack_weight_kg: 1, tax_rate_bp: 2000, technical: {}, branches: [], archived_at: archived ? '2026-11-01T00:00:00.000Z' : null, created_at: '2026-10-01T00:00:00.000Z', updated_at: '2026-10-01T00:00:00.000Z' });
+  productSchema.parse({ id, sku, name, category, unit: 'piece', pack_size: 1, pack_weight_kg: 1, tax_rate_bp: 2000, technical: {}, pallet_length_mm: 1200, pallet_width_mm: 1000, branches: [], archived_at: archived ? '2026-11-01T00:00:00.000Z' : null, created_at: '2026-10-01T00:00:00.000Z', updated_at: '2026-10-01T00:00:00.000Z' });
 const products = [
   product(1, 'TRS-FL420-SG', 'Flat interlocking tile, slate grey', 'tile'),
   product(2, 'TRS-FL420-BR', 'Flat interlocking tile, brindle', 'tile'),

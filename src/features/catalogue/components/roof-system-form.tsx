@@ -1,8 +1,8 @@
 import { useMemo } from 'react';
 import { CATEGORY_LABELS, REQUIRED_SYSTEM_ROLES, SYSTEM_ROLES } from '../../../../shared/schemas/catalogue.schema';
 import type { MerchantRoofSystem, Product } from '../../../../shared/schemas/price-list.schema';
-import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateRoofSystem } from '../api/create-roof-system';
@@ -21,7 +21,7 @@ export function RoofSystemForm({ branchId, products, system = null, onDone }: { 
   const toast = useToast();
   const extraValues = useMemo(() => (system ? {} : { branch_id: branchId }), [branchId, system]);
   const chosen = useMemo(() => new Map(system?.components.map((c) => [c.role, c.product_id]) ?? []), [system]);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: system ? updateRoofSystemFormSchema : createRoofSystemFormSchema,
     extraValues,
     onSubmit: async (body, { reset }) => {

@@ -1,9 +1,24 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
+import { MAX_SHEET_BYTES } from '../../../../shared/schemas/price-list.schema';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { SheetImport } from './sheet-import';
 
 describe('SheetImport', () => {
+  it('asks for a file, and refuses one over 5 MiB at the file input, sending nothing', async () => {
+    const fetchMock = stubFetch({});
+    renderWithProviders(<SheetImport branchId={3} kind="stock-counts" />);
+    const input = screen.getByLabelText('Import stock counts (CSV or .xlsx)');
+    fireEvent.click(screen.getByRole('button', { name: 'Upload' }));
+    expect(await screen.findByText('Choose a CSV or .xlsx file first')).toBeTruthy();
+    const big = new File([new Uint8Array(MAX_SHEET_BYTES + 1)], 'counts.csv', { type: 'text/csv' });
+    fireEvent.change(input, { target: { files: [big] } });
+    fireEvent.click(screen.getByRole('button', { name: 'Upload' }));
+    expect(await screen.findByText('The file is too large: a sheet may be at most 5 MiB.')).toBeTruthy();
+    expect(input.getAttribute('aria-invalid')).toBe('true');
+    expect(fetchMock).not.toHaveBeenCalled();
+  });
+
   it('uploads the file as multipart and shows each refused cell by row and column, saying nothing was applied', async () => {
     const fetchMock = stubFetch({
       'GET /api/auth/csrf': { status: 200, body: { token: 't' } },

@@ -1,6 +1,7 @@
-import { useId, useState } from 'react';
-import type { FormEvent } from 'react';
+import { z } from 'zod';
 import { MAX_SHEET_BYTES } from '../../../../shared/schemas/price-list.schema';
+import { FieldMessage, Form, describedBy, fieldIds } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert, errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { isApiError } from '../../../lib/api-client';
@@ -13,35 +14,45 @@ const LABELS: Record<SheetKind, { title: string; columns: string }> = {
 };
 
 /** One upload form for a branch's price list or stock counts; a refused file shows each problem by row and column. */
+/** The chosen file, at most MAX_SHEET_BYTES; the server reads and checks its cells. */
+const sheetFormSchema = z.object({
+  file: z
+    .array(z.instanceof(Blob), { error: 'Choose a CSV or .xlsx file first' })
+    .min(1, { error: 'Choose a CSV or .xlsx file first' })
+    .transform((files) => files[0]!)
+    .refine((file) => file.size <= MAX_SHEET_BYTES, { error: 'The file is too large: a sheet may be at most 5 MiB.' }),
+});
+
+/** One upload form for a branch's price list or stock counts; a refused file shows each problem by row and column. */
 export function SheetImport({ branchId, kind }: { branchId: number; kind: SheetKind }) {
   const upload = useImportSheet(branchId, kind);
-  const inputId = useId();
-  const [tooBig, setTooBig] = useState(false);
-  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const file = (event.currentTarget.elements.namedItem('file') as HTMLInputElement).files?.[0];
-    if (!file) return;
-    if (file.size > MAX_SHEET_BYTES) {
-      setTooBig(true);
-      return;
-    }
-    setTooBig(false);
-    upload.mutate(file);
-  };
+  const form = useSchemaForm({ schema: sheetFormSchema, onSubmit: ({ file }) => upload.mutate(file as File) });
+  const ids = fieldIds(form, 'file');
+  const error = form.fieldError('file');
   const rejected = isApiError(upload.error) && upload.error.code === 'invalid_sheet' ? upload.error : null;
   return (
-    <form onSubmit={onSubmit} aria-label={LABELS[kind].title} className="space-y-3" noValidate>
+    <Form form={form} label={LABELS[kind].title} className="space-y-3">
       <div>
-        <label htmlFor={inputId} className="mb-1.5 block font-medium">
+        <label htmlFor={ids.input} className="mb-1.5 block font-medium">
           {LABELS[kind].title} (CSV or .xlsx)
         </label>
-        <p className="mb-1.5 text-sm text-ink-600">{LABELS[kind].columns} The whole file is applied, or none of it.</p>
-        <input id={inputId} name="file" type="file" accept=".csv,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" className="block min-h-tap" />
+        <p id={ids.hint} className="mb-1.5 text-sm text-ink-600">
+          {LABELS[kind].columns} The whole file is applied, or none of it.
+        </p>
+        <input
+          id={ids.input}
+          type="file"
+          accept=".csv,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet"
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy(ids, true, error)}
+          className="block min-h-tap"
+          {...form.register('file')}
+        />
+        {error ? <FieldMessage id={ids.error}>{error}</FieldMessage> : null}
       </div>
       <Button type="submit" variant="secondary" busy={upload.isPending}>
         Upload
       </Button>
-      {tooBig ? <Alert tone="danger" title="The file is too large">A sheet may be at most 5 MiB.</Alert> : null}
       {upload.isSuccess ? (
         <Alert tone="success" title="Imported">
           {upload.data.rows} rows: {upload.data.updated} changed, {upload.data.added} added, {upload.data.unchanged} unchanged.
@@ -77,6 +88,6 @@ export function SheetImport({ branchId, kind }: { branchId: number; kind: SheetK
       ) : upload.isError ? (
         <Alert tone="danger" title="The file could not be imported">{errorMessage(upload.error)}</Alert>
       ) : null}
-    </form>
+    </Form>
   );
 }

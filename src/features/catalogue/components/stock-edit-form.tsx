@@ -1,7 +1,7 @@
 import { useEffect, useMemo, useRef } from 'react';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useUpdateStock } from '../api/update-stock';
@@ -13,7 +13,7 @@ export function StockEditForm({ branchId, item, onDone }: { branchId: number; it
   const update = useUpdateStock(branchId);
   const toast = useToast();
   const schema = useMemo(() => stockFormSchema(item), [item]);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema,
     onSubmit: async (body) => {
       try {

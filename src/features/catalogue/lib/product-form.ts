@@ -120,6 +120,8 @@ export function productFormSchema(existing: Product | null) {
       pack_size: numberOrText(values.pack_size),
       pack_weight_kg: numberOrText(values.pack_weight_kg),
       tax_rate_bp: taxRateBp(values.tax_rate_bp),
+      pallet_length_mm: numberOrText(values.pallet_length_mm),
+      pallet_width_mm: numberOrText(values.pallet_width_mm),
       technical: readTechnical(values.category, values, existing),
     }))
     .pipe(createProductBodySchema);

@@ -1,6 +1,8 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import { driverDay, RUN_CAUTIONS } from '../../../test-utils/driver-day-fixture';
+import type { RoofSystem } from '../../../../shared/schemas/roof-system.schema';
+import type { LandingFaceDrawing } from '../../../../shared/schemas/run.schema';
+import { driverDay, driverDrop, RUN_CAUTIONS } from '../../../test-utils/driver-day-fixture';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { OutboxProvider } from '../lib/phone-outbox';
 import { createTestOutbox } from '../lib/test-outbox';
@@ -8,7 +10,10 @@ import { DriverDay } from './driver-day';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/;
 
-function renderDay(day = driverDay(), renderFaceDrawing = vi.fn((estimateId: number, faceIndex: number) => <p>{`stacks of estimate ${estimateId} face ${faceIndex}`}</p>)) {
+function renderDay(
+  day = driverDay(),
+  renderFaceDrawing = vi.fn((drawing: LandingFaceDrawing, system: RoofSystem) => <p>{`stacks of ${drawing.result.building} ${drawing.result.face}, ${drawing.result.stacks} of ${system.roof_loading.stack_size}`}</p>),
+) {
   const outbox = createTestOutbox();
   const view = renderWithProviders(
     <OutboxProvider outbox={outbox}>
@@ -80,13 +85,25 @@ describe('DriverDay', () => {
     expect(short.textContent).toBe('Alder · Rear: 120 tiles missing; the rest due 8 Mar 2027 on RL-000019.');
   });
 
-  it("lists the crane drop's roof landing plan, pallet by face, with each face's stack drawing from the estimate", () => {
-    const { renderFaceDrawing } = renderDay();
+  it("lists the crane drop's roof landing plan, pallet by face, each face drawn from the day's own drawing data and roof system", () => {
+    const day = driverDay();
+    const { renderFaceDrawing } = renderDay(day);
     const faces = screen.getAllByTestId('landing-face');
     expect(faces.map((f) => f.querySelector('p')?.textContent)).toEqual(['Alder · Front ← pallet 1 · 240 tiles', 'Alder · Rear ← pallet 2 · 200 tiles']);
-    expect(renderFaceDrawing).toHaveBeenCalledWith(31, 0);
-    expect(renderFaceDrawing).toHaveBeenCalledWith(31, 1);
-    expect(within(faces[1]).getByText('stacks of estimate 31 face 1')).toBeTruthy();
+    const drop = day.runs[0]!.drops[0]!;
+    expect(renderFaceDrawing).toHaveBeenCalledWith(drop.landing_plan[0]!.drawing, drop.roof_system);
+    expect(renderFaceDrawing).toHaveBeenCalledWith(drop.landing_plan[1]!.drawing, drop.roof_system);
+    expect(within(faces[1]).getByText(`stacks of Alder Rear, ${drop.landing_plan[1]!.drawing!.result.stacks} of 6`)).toBeTruthy();
+  });
+
+  it('says to spread the stacks evenly where a face has no drawing (an order without an estimate)', () => {
+    const day = driverDay();
+    const drop = day.runs[0]!.drops[0]!;
+    day.runs[0]!.drops[0] = driverDrop({ landing_plan: drop.landing_plan.map((f) => ({ ...f, drawing: null, estimate_face_index: null })), roof_system: null, estimate_id: null });
+    const { renderFaceDrawing } = renderDay(day);
+    expect(renderFaceDrawing).not.toHaveBeenCalled();
+    const faces = screen.getAllByTestId('landing-face');
+    for (const f of faces) expect(within(f).getByText(/^No drawing for this face: spread the stacks evenly .* both slopes in step\.$/)).toBeTruthy();
   });
 
   it('shows no landing plan for a drop set down at ground level', () => {

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import type { DriverDay as DriverDayData, DriverDrop } from '../../../../shared/schemas/run.schema';
 import { DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
 import { RUN_STATUS_LABELS } from '../../../../shared/schemas/run.schema';
@@ -8,9 +8,12 @@ import { useOutbox } from '../lib/phone-outbox';
 import { kg } from '../lib/words';
 import { AccessNotes, LandingPlan, PalletList, ShortFaces, SiteBlock } from './drop-parts';
 import type { RenderFaceDrawing } from './drop-parts';
-import { ProofForm } from './proof-form';
 import type { RecordOutcome } from './proof-form';
 import { RunCautions } from './run-cautions';
+
+// The proof form (its signature pad and form code) loads when a delivery is being recorded, not with the
+// day's list; the service worker keeps it on the phone for drops without signal.
+const ProofForm = lazy(() => import('./proof-form').then((m) => ({ default: m.ProofForm })));
 
 type Run = DriverDayData['runs'][number];
 type DropState = 'delivered' | 'waiting' | 'to_deliver' | 'not_sent_out';
@@ -99,7 +102,9 @@ function DropCard({ drop, total, state, open, onToggle, onRecorded, headerRef, r
             <p>Not sent out yet: the yard sends the lorry out when it is loaded.</p>
           ) : recording ? (
             <section aria-label="Record the delivery" className="rounded-md border-2 border-clay-600 p-3">
-              <ProofForm drop={drop} onRecorded={onRecorded} />
+              <Suspense fallback={<p role="status">Opening the delivery record…</p>}>
+                <ProofForm drop={drop} onRecorded={onRecorded} />
+              </Suspense>
             </section>
           ) : (
             <Button size="lg" className="w-full text-xl" onClick={() => setRecording(true)}>

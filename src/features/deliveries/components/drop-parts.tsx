@@ -1,13 +1,17 @@
 import type { ReactNode } from 'react';
-import type { DriverDrop } from '../../../../shared/schemas/run.schema';
+import type { RoofSystem } from '../../../../shared/schemas/roof-system.schema';
+import type { DriverDrop, LandingFaceDrawing } from '../../../../shared/schemas/run.schema';
 import { CRANE_LIFT_LABELS, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS_LABELS } from '../../../../shared/schemas/project.schema';
 import { Alert } from '../../../components/ui/alert';
 import { buttonClasses } from '../../../components/ui/button';
 import { formatDate } from '../../../lib/format';
 import { faceWords, kg, productWords, quantityWords } from '../lib/words';
 
-/** Draws one roof face's stacks for the landing plan; given by the page, which knows the estimate. */
-export type RenderFaceDrawing = (estimateId: number, faceIndex: number) => ReactNode;
+/**
+ * Draws one roof face with its stacks for the landing plan, from what the driver's day carries (the
+ * face's shape and figures, the drop's roof system); given by the page, which has the face drawing.
+ */
+export type RenderFaceDrawing = (drawing: LandingFaceDrawing, system: RoofSystem) => ReactNode;
 
 /** The site's address with a link that opens the phone's own maps app, and a call button. */
 export function SiteBlock({ drop }: { drop: DriverDrop }) {
@@ -115,7 +119,7 @@ export function PalletList({ drop }: { drop: DriverDrop }) {
 
 /**
  * For a crane drop: which pallets land on which roof face, each face with its stack drawing when the
- * order's estimate is to hand. Stacks are spread as the drawing shows, both slopes in step.
+ * order has an estimate. Stacks are spread as the drawing shows, both slopes in step.
  */
 export function LandingPlan({ drop, renderFaceDrawing }: { drop: DriverDrop; renderFaceDrawing?: RenderFaceDrawing }) {
   if (drop.delivery_method !== 'roof' || drop.landing_plan.length === 0) return null;
@@ -130,11 +134,13 @@ export function LandingPlan({ drop, renderFaceDrawing }: { drop: DriverDrop; ren
               <span className="font-semibold">{faceWords(face)}</span> ← {face.pallets.length === 1 ? 'pallet' : 'pallets'} {face.pallets.join(', ')} ·{' '}
               {face.tiles.toLocaleString('en-GB')} tiles
             </p>
-            {drop.estimate_id !== null && face.estimate_face_index !== null && renderFaceDrawing ? (
+            {face.drawing && drop.roof_system && renderFaceDrawing ? (
               <details className="mt-2">
                 <summary className="min-h-tap-lg cursor-pointer content-center font-semibold">Show the stacks on {faceWords(face)}</summary>
-                <div className="mt-2">{renderFaceDrawing(drop.estimate_id, face.estimate_face_index)}</div>
+                <div className="mt-2">{renderFaceDrawing(face.drawing, drop.roof_system)}</div>
               </details>
+            ) : face.face !== 'spare' ? (
+              <p className="mt-1 text-ink-700">No drawing for this face: spread the stacks evenly over the rafters on every loading batten, both slopes in step.</p>
             ) : null}
           </li>
         ))}

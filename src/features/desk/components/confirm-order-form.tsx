@@ -1,9 +1,10 @@
 import { useMemo, useState } from 'react';
+import type { ChangeEvent } from 'react';
 import { formatCount } from '../../../lib/format';
 import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
-import { Form, SubmitButton } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useToast } from '../../../components/ui/toast';
 import { useConfirmOrder } from '../api/confirm-order';
 import { confirmFormSchema, confirmableLines, openPacks, sendField, suggestedSend } from '../lib/confirm-form';
@@ -26,7 +27,7 @@ export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
   const toast = useToast();
   const [conflict, setConflict] = useState<unknown>(null);
   const [sends, setSends] = useState<Record<number, string>>(() => Object.fromEntries(lines.map((l) => [l.id, String(suggestedSend(l, stock.get(l.product_id)?.available))])));
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: confirmFormSchema(lines),
     onSubmit: async (body) => {
       setConflict(null);
@@ -64,7 +65,7 @@ export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
               const open = openPacks(line);
               const typed = sends[line.id] ?? '';
               const send = /^\d+$/.test(typed.trim()) ? Number(typed) : null;
-              const error = form.fieldErrors[sendField(i)];
+              const error = form.fieldError(sendField(i));
               const inputId = `${form.id}-send-${line.id}`;
               const short = item !== undefined && item.available < open;
               return (
@@ -80,14 +81,14 @@ export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
                   <td className="px-3 py-2">
                     <input
                       id={inputId}
-                      name={sendField(i)}
                       inputMode="numeric"
+                      {...form.register(sendField(i), {
+                        onChange: (event: ChangeEvent<HTMLInputElement>) => {
+                          const value = event.target.value;
+                          setSends((s) => ({ ...s, [line.id]: value }));
+                        },
+                      })}
                       value={typed}
-                      onChange={(event) => {
-                        const value = event.target.value;
-                        setSends((s) => ({ ...s, [line.id]: value }));
-                        form.clearFieldError(sendField(i));
-                      }}
                       aria-invalid={error ? true : undefined}
                       aria-describedby={error ? `${inputId}-error` : undefined}
                       className={`block min-h-tap w-24 rounded-md border bg-white px-2 text-right tabular-nums ${error ? 'border-brick-600' : 'border-ink-300'}`}

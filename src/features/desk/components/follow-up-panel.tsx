@@ -4,8 +4,8 @@ import { Link, useNavigate } from 'react-router-dom';
 import { z } from 'zod';
 import { followUpBodySchema } from '../../../../shared/schemas/order.schema';
 import type { FollowUpBody, OrderDetail } from '../../../../shared/schemas/order.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { BackOrderLinks } from '../../../components/orders/back-order-links';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
@@ -105,7 +105,7 @@ export function FollowUpPanel({ order }: { order: OrderDetail }) {
   const toast = useToast();
   const navigate = useNavigate();
   const [refusal, setRefusal] = useState<unknown>(null);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema,
     onSubmit: async (body) => {
       setRefusal(null);

@@ -1,8 +1,10 @@
 import { useMemo, useState } from 'react';
+import type { ChangeEvent } from 'react';
 import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
+import type { SchemaForm } from '../../../components/form/use-schema-form';
 import { useToast } from '../../../components/ui/toast';
 import { formatCount, formatMoney } from '../../../lib/format';
 import { useOfferChanges } from '../api/offer-changes';
@@ -18,7 +20,7 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
   const lines = useMemo(() => confirmableLines(order), [order]);
   const offer = useOfferChanges(order.id);
   const toast = useToast();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: offerFormSchema(lines, order.revision),
     onSubmit: async (body) => {
       await offer.mutateAsync(body);
@@ -43,7 +45,7 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
           </thead>
           <tbody>
             {lines.map((line, i) => (
-              <OfferLineRow key={line.id} order={order} line={line} index={i} stock={stock} errors={form.fieldErrors} />
+              <OfferLineRow key={line.id} order={order} line={line} index={i} stock={stock} form={form} />
             ))}
           </tbody>
         </table>
@@ -62,15 +64,23 @@ type DeskLine = ReturnType<typeof confirmableLines>[number];
  * engine's count for the order's own roof and the bill before and after, shown under the line; a tile
  * that does not suit every face is listed but cannot be chosen. Other products keep pack arithmetic.
  */
-function OfferLineRow({ order, line, index, stock, errors }: { order: OrderDetail; line: DeskLine; index: number; stock: readonly StockItem[]; errors: Record<string, string | undefined> }) {
+function OfferLineRow({ order, line, index, stock, form }: { order: OrderDetail; line: DeskLine; index: number; stock: readonly StockItem[]; form: SchemaForm }) {
   const [choosing, setChoosing] = useState(false);
   const [chosen, setChosen] = useState('');
   const options = useSubstitutes(order.id, line.id, order.revision, choosing);
   const fields = (['send', 'back', 'sub_product', 'sub_qty'] as const).map((n) => offerField(index, n));
-  const problems = fields.map((f) => errors[f]).filter(Boolean);
+  const problems = fields.map((f) => form.fieldError(f)).filter(Boolean);
   const option = options.data?.options.find((o) => String(o.product_id) === chosen);
   // A different tile cannot be laid beside the ordered one: it replaces the whole line.
   const replacesWhole = Boolean(option?.figures);
+  // A newly chosen substitute starts its packs from the server's quantity, and one that replaces the
+  // whole line sends none of the ordered product now.
+  const choose = (value: string) => {
+    const next = options.data?.options.find((o) => String(o.product_id) === value);
+    if (Boolean(next?.figures) !== replacesWhole) form.methods.setValue(fields[0], next?.figures ? '0' : String(openPacks(line)));
+    form.methods.setValue(fields[3], next ? String(next.quantity) : '');
+    setChosen(value);
+  };
   const free = new Map(stock.map((s) => [s.product_id, s.available]));
   return (
     <>
@@ -86,10 +96,10 @@ function OfferLineRow({ order, line, index, stock, errors }: { order: OrderDetai
         </td>
         <td className="px-3 py-2 text-right tabular-nums">{formatCount(openPacks(line))}</td>
         <td className="px-3 py-2">
-          <input key={`send-${replacesWhole}`} name={fields[0]} aria-label={`Packs now of ${line.sku}`} inputMode="numeric" defaultValue={replacesWhole ? 0 : openPacks(line)} aria-invalid={errors[fields[0]] ? true : undefined} className={cell} />
+          <input {...form.register(fields[0])} aria-label={`Packs now of ${line.sku}`} inputMode="numeric" defaultValue={openPacks(line)} aria-invalid={form.fieldError(fields[0]) ? true : undefined} className={cell} />
         </td>
         <td className="px-3 py-2">
-          <input key={`back-${replacesWhole}`} name={fields[1]} aria-label={`Packs to follow of ${line.sku}`} inputMode="numeric" defaultValue={0} aria-invalid={errors[fields[1]] ? true : undefined} className={cell} />
+          <input {...form.register(fields[1])} aria-label={`Packs to follow of ${line.sku}`} inputMode="numeric" defaultValue={0} aria-invalid={form.fieldError(fields[1]) ? true : undefined} className={cell} />
         </td>
         <td className="px-3 py-2">
           {!choosing ? (
@@ -103,7 +113,11 @@ function OfferLineRow({ order, line, index, stock, errors }: { order: OrderDetai
           ) : options.isError ? (
             <span className="text-sm text-brick-700">The substitutes could not be worked out; try again.</span>
           ) : (
-            <select name={fields[2]} aria-label={`Substitute for ${line.sku}`} value={chosen} onChange={(event) => setChosen(event.target.value)} className="block min-h-tap max-w-72 rounded-md border border-ink-300 bg-white px-2">
+            <select
+              {...form.register(fields[2], { onChange: (event: ChangeEvent<HTMLSelectElement>) => choose(event.target.value) })}
+              aria-label={`Substitute for ${line.sku}`}
+              value={chosen}
+              className="block min-h-tap max-w-72 rounded-md border border-ink-300 bg-white px-2">
               <option value="">No substitute</option>
               {options.data.options.map((o) => (
                 <option key={o.product_id} value={o.product_id} disabled={!o.suitable}>
@@ -115,13 +129,12 @@ function OfferLineRow({ order, line, index, stock, errors }: { order: OrderDetai
         </td>
         <td className="px-3 py-2">
           <input
-            key={`qty-${chosen}`}
-            name={fields[3]}
+            {...form.register(fields[3])}
             aria-label={`Packs of the substitute for ${line.sku}`}
             inputMode="numeric"
-            defaultValue={option ? String(option.quantity) : ''}
+            defaultValue=""
             readOnly={replacesWhole}
-            aria-invalid={errors[fields[3]] ? true : undefined}
+            aria-invalid={form.fieldError(fields[3]) ? true : undefined}
             className={cell}
           />
         </td>

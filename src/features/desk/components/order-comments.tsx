@@ -1,14 +1,14 @@
 import { commentBodySchema } from '../../../../shared/schemas/order.schema';
 import type { OrderComment } from '../../../../shared/schemas/order.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { formatDateTime } from '../../../lib/format';
 import { useAddComment } from '../api/add-comment';
 
 /** Comments between the desk and the contractor, oldest first; the other side's are set apart. `readOnly`: no form. */
 export function OrderComments({ orderId, comments, readOnly = false }: { orderId: number; comments: readonly OrderComment[]; readOnly?: boolean }) {
   const add = useAddComment(orderId);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: commentBodySchema,
     onSubmit: async ({ body }, { reset }) => {
       await add.mutateAsync(body);

@@ -1,4 +1,5 @@
 import { useId, useState } from 'react';
+import { FieldMessage, useFieldGroup, useSchemaFormContext } from '../../../components/form/fields';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { formatDate } from '../../../lib/format';
@@ -19,25 +20,32 @@ interface SlotChoicesProps {
 
 /**
  * The branch's slots on a day, with what each lorry can still carry, as radio choices named
- * slot_id. The server checks this order's own weight and pallets when it books.
+ * slot_id on the form around them. The server checks this order's own weight and pallets when it books.
  */
 export function SlotChoices({ branchId, initialDate, allowNone = false, currentSlotId = null, needsCrane = false }: SlotChoicesProps) {
   const dateId = useId();
   const [date, setDate] = useState(initialDate);
   const slots = useBranchSlots(branchId, date);
+  const form = useSchemaFormContext();
+  const { error, errorId } = useFieldGroup('slot_id');
+  const slotInput = form.register('slot_id');
   return (
-    <fieldset className="space-y-3">
+    <fieldset className="space-y-3" aria-describedby={error ? errorId : undefined}>
       <legend className="font-semibold">Delivery slot</legend>
       {needsCrane ? <p className="text-sm text-ink-700">This order is lifted onto the roof by the lorry crane: only lorries with a crane can take it.</p> : null}
       <div>
         <label htmlFor={dateId} className="mb-1.5 block font-medium">
           Day
         </label>
-        <input id={dateId} type="date" value={date} onChange={(event) => setDate(event.target.value)} className="block min-h-tap rounded-md border border-ink-300 bg-white px-3" />
+        <input id={dateId} type="date" value={date} onChange={(event) => {
+            // A slot of the day left behind is no longer on the screen, so it is no longer the choice.
+            form.methods.setValue('slot_id', '');
+            setDate(event.target.value);
+          }} className="block min-h-tap rounded-md border border-ink-300 bg-white px-3" />
       </div>
       {allowNone ? (
         <label className="flex min-h-tap items-center gap-3">
-          <input type="radio" name="slot_id" value="" defaultChecked className="h-5 w-5" />
+          <input type="radio" {...slotInput} value="" defaultChecked className="h-5 w-5" />
           <span>Book a slot later</span>
         </label>
       ) : null}
@@ -56,7 +64,7 @@ export function SlotChoices({ branchId, initialDate, allowNone = false, currentS
             return (
               <li key={slot.id}>
                 <label className={`flex min-h-tap items-start gap-3 rounded-md border px-3 py-2 ${full || cannotLift ? 'border-mortar-200 bg-mortar-50 text-ink-600' : 'border-mortar-300 bg-white'}`}>
-                  <input type="radio" name="slot_id" value={slot.id} defaultChecked={slot.id === currentSlotId} disabled={unavailable} className="mt-1 h-5 w-5" />
+                  <input type="radio" {...slotInput} value={slot.id} defaultChecked={slot.id === currentSlotId} disabled={unavailable} className="mt-1 h-5 w-5" />
                   <span>
                     <span className="font-semibold">
                       {slot.time_window} · {slot.lorry.registration}
@@ -78,6 +86,7 @@ export function SlotChoices({ branchId, initialDate, allowNone = false, currentS
           })}
         </ul>
       ) : null}
+      {error ? <FieldMessage id={errorId}>{error}</FieldMessage> : null}
     </fieldset>
   );
 }

@@ -1,6 +1,6 @@
 import { turnDownBodySchema } from '../../../../shared/schemas/order.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useToast } from '../../../components/ui/toast';
 import { useTurnDownOrder } from '../api/turn-down-order';
 
@@ -8,7 +8,7 @@ import { useTurnDownOrder } from '../api/turn-down-order';
 export function TurnDownForm({ orderId, reference }: { orderId: number; reference: string }) {
   const turnDown = useTurnDownOrder(orderId);
   const toast = useToast();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: turnDownBodySchema,
     onSubmit: async ({ reason }) => {
       await turnDown.mutateAsync(reason);

@@ -4,8 +4,8 @@ import { DEFAULT_TILE, SYSTEM_DEFAULTS } from '../../../../shared/engine/default
 import type { Estimate } from '../../../../shared/schemas/estimate.schema';
 import type { Opening } from '../../../../shared/schemas/openings.schema';
 import type { Face } from '../../../../shared/schemas/schedule.schema';
-import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert, ErrorAlert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -177,7 +177,7 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
   const [values, setValues] = useState<Record<string, string>>({});
   const deferredValues = useDeferredValue(values);
 
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: estimateFormSchema,
     onSubmit: async (body) => onCreated(await create.mutateAsync({ ...body, schedule_version: scheduleVersion })),
   });
@@ -186,17 +186,25 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
   // Inputs that appear or change their defaults (another system's waste) are read once they are on the page.
   useEffect(refresh, [refresh, systems.data, source, chosenId]);
 
-  function onChange(event: FormEvent<HTMLDivElement>) {
-    const target = event.target as HTMLInputElement;
-    if (target.name === 'source') setSource(target.value === 'generic' ? 'generic' : 'catalogue');
-    if (target.name === 'system_id') setChosenId(Number(target.value));
-    refresh();
-  }
-
   const offers = useMemo(() => systems.data ?? [], [systems.data]);
   const shown = kind === 'all' ? offers : offers.filter((o) => o.tile.kind === kind);
   const chosen = offers.find((o) => o.id === chosenId) ?? null;
   const wasteDefaults = source === 'catalogue' && chosen ? chosen.system.waste_pct : SYSTEM_DEFAULTS.waste_pct;
+
+  function onChange(event: FormEvent<HTMLDivElement>) {
+    const target = event.target as HTMLInputElement;
+    if (target.name === 'source' || target.name === 'system_id') {
+      const nextSource = target.name === 'source' ? (target.value === 'generic' ? 'generic' : 'catalogue') : source;
+      const nextId = target.name === 'system_id' ? Number(target.value) : chosenId;
+      const offer = offers.find((o) => o.id === nextId);
+      // The waste starts again from the figures of the system now chosen.
+      const defaults = nextSource === 'catalogue' && offer ? offer.system.waste_pct : SYSTEM_DEFAULTS.waste_pct;
+      for (const field of WASTE_FIELDS) form.methods.setValue(`waste_pct.${field}`, String(defaults[field]));
+      setSource(nextSource);
+      setChosenId(nextId);
+    }
+    refresh();
+  }
 
   const outcome = useMemo<PreviewOutcome>(() => {
     const parsed = estimateFormSchema.safeParse(deferredValues);
@@ -221,7 +229,7 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
                 { value: 'generic', label: 'A generic system', hint: 'Type the tile’s figures; quantities only, no prices' },
               ].map((option) => (
                 <label key={option.value} className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50">
-                  <input type="radio" name="source" value={option.value} defaultChecked={option.value === 'catalogue'} className="mt-1 h-5 w-5 accent-clay-600" />
+                  <input type="radio" {...form.register('source')} value={option.value} defaultChecked={option.value === 'catalogue'} className="mt-1 h-5 w-5 accent-clay-600" />
                   <span>
                     <span className="block font-medium">{option.label}</span>
                     <span className="block text-sm text-ink-600">{option.hint}</span>
@@ -242,9 +250,9 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
                 <option value="double_lap">Plain tiles and slates</option>
               </select>
             </div>
-            {form.fieldErrors.system_id ? (
+            {form.fieldError('system_id') ? (
               <p id={`${form.id}-system-error`} className="text-sm font-medium text-brick-700">
-                {form.fieldErrors.system_id}
+                {form.fieldError('system_id')}
               </p>
             ) : null}
             {systems.isPending ? (
@@ -258,8 +266,8 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
                 systems={shown}
                 faces={faces}
                 chosenId={chosenId}
-                error={form.fieldErrors.system_id}
-                describedBy={form.fieldErrors.system_id ? `${form.id}-system-error` : undefined}
+                error={form.fieldError('system_id')}
+                describedBy={form.fieldError('system_id') ? `${form.id}-system-error` : undefined}
               />
             )}
           </div>
@@ -271,7 +279,7 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
 
         <Card title="Waste allowed">
           <p className="mb-3 text-sm text-ink-700">Per cent over the net quantities, for cutting and breakage. They start from the system&rsquo;s own figures.</p>
-          <div key={`${source}-${chosenId ?? 'none'}`} className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
             {WASTE_FIELDS.map((field) => (
               <TextField key={field} name={`waste_pct.${field}`} label={`${WASTE_LABELS[field]} (%)`} inputMode="decimal" defaultValue={wasteDefaults[field]} />
             ))}

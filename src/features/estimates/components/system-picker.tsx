@@ -2,6 +2,7 @@ import { useMemo } from 'react';
 import { lowestPitch } from '../../../../shared/engine/courses';
 import type { RoofSystemOffer } from '../../../../shared/schemas/catalogue.schema';
 import type { Face } from '../../../../shared/schemas/schedule.schema';
+import { useSchemaFormContext } from '../../../components/form/fields';
 import { formatMoney } from '../../../lib/format';
 
 const STOCK_WORDS = { in_stock: 'In stock', low: 'Low stock', out_of_stock: 'Out of stock' } as const;
@@ -16,7 +17,8 @@ interface SystemPickerProps {
 }
 
 /** A merchant branch's roof system as a choice: the tile's figures, its prices and stock, and faces it cannot be laid on. */
-function SystemOption({ offer, faces, checked }: { offer: RoofSystemOffer; faces: readonly Face[]; checked: boolean }) {
+function SystemOption({ offer, faces, checked, describedBy }: { offer: RoofSystemOffer; faces: readonly Face[]; checked: boolean; describedBy?: string }) {
+  const form = useSchemaFormContext();
   const low = lowestPitch(offer.tile.headlap_mm);
   const unsuitable = faces.filter((f) => f.pitch_deg < low - 1e-9);
   const tile = offer.components.find((c) => c.role === 'tile');
@@ -25,9 +27,10 @@ function SystemOption({ offer, faces, checked }: { offer: RoofSystemOffer; faces
     <label className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50 has-[:checked]:ring-1 has-[:checked]:ring-clay-600">
       <input
         type="radio"
-        name="system_id"
+        {...form.register('system_id')}
         value={offer.id}
         defaultChecked={checked}
+        aria-describedby={describedBy}
         className="mt-1 h-5 w-5 shrink-0 accent-clay-600"
       />
       <span className="min-w-0 flex-1 space-y-1">
@@ -65,14 +68,14 @@ export function SystemPicker({ systems, faces, chosenId, error, describedBy }: S
     return [...groups].sort(([a], [b]) => a.localeCompare(b));
   }, [systems]);
   return (
-    // One radio group across the merchants (the radios share a name), so it carries the error.
-    <div role="radiogroup" aria-label="Roof system" aria-invalid={error ? true : undefined} aria-describedby={describedBy} className="space-y-5">
+    // aria-invalid belongs on the radio group, not on each radio button.
+    <div role="radiogroup" aria-label="Roof systems" aria-invalid={error ? true : undefined} aria-describedby={describedBy} className="space-y-5">
       {byMerchant.map(([merchant, offers]) => (
         <fieldset key={merchant} className="space-y-2">
           <legend className="mb-1 font-semibold text-ink-800">{merchant}</legend>
           <div className="grid gap-2">
             {offers.map((offer) => (
-              <SystemOption key={offer.id} offer={offer} faces={faces} checked={chosenId === offer.id} />
+              <SystemOption key={offer.id} offer={offer} faces={faces} checked={chosenId === offer.id} describedBy={describedBy} />
             ))}
           </div>
         </fieldset>

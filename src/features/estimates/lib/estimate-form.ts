@@ -10,14 +10,14 @@ import type { Opening } from '../../../../shared/schemas/openings.schema';
 
 /**
  * The estimate form's fields are flat inputs named by the path the API reports errors on
- * (waste_pct.tiles, system.tile.length_mm, system.tile.headlap_mm[0].min_mm), so a refusal from the
+ * (waste_pct.tiles, system.tile.length_mm, system.tile.headlap_mm.0.min_mm), so a refusal from the
  * server lands on the same input the browser would have marked.
  */
 export const WASTE_FIELDS = ['tiles', 'battens', 'underlay', 'ridge_hip'] as const;
 export const HEADLAP_ROWS = 3;
 
 export const tileField = (name: string) => `system.tile.${name}`;
-export const headlapField = (i: number, name: 'from_pitch_deg' | 'min_mm') => `system.tile.headlap_mm[${i}].${name}`;
+export const headlapField = (i: number, name: 'from_pitch_deg' | 'min_mm') => `system.tile.headlap_mm.${i}.${name}`;
 
 type Ctx = z.core.$RefinementCtx<unknown>;
 

@@ -1,7 +1,6 @@
-import { useId } from 'react';
 import type { Lorry } from '../../../../shared/schemas/fleet.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { CheckboxField, Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert } from '../../../components/ui/alert';
 import { useToast } from '../../../components/ui/toast';
 import { useSaveLorry } from '../api/save-lorry';
@@ -11,8 +10,7 @@ import { lorryFormSchema } from '../lib/lorry-form';
 export function LorryForm({ branchId, lorry, onDone }: { branchId: number; lorry?: Lorry; onDone?: () => void }) {
   const save = useSaveLorry(branchId, lorry?.id);
   const toast = useToast();
-  const craneId = useId();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: lorryFormSchema,
     onSubmit: async (body, { reset }) => {
       const saved = await save.mutateAsync(body);
@@ -32,10 +30,7 @@ export function LorryForm({ branchId, lorry, onDone }: { branchId: number; lorry
         <TextField name="deck_width_mm" label="Deck width (mm)" hint="Inside the sides; 2,450 mm if left empty." inputMode="numeric" defaultValue={lorry ? String(lorry.deck_width_mm) : ''} />
       </div>
       <div className="grid items-start gap-4 sm:grid-cols-2">
-        <label htmlFor={craneId} className="flex min-h-tap cursor-pointer items-center gap-3 font-medium">
-          <input id={craneId} type="checkbox" name="has_crane" defaultChecked={lorry?.has_crane ?? false} className="h-5 w-5 accent-clay-600" />
-          Has a crane (lorry-mounted)
-        </label>
+        <CheckboxField name="has_crane" label="Has a crane (lorry-mounted)" defaultChecked={lorry?.has_crane ?? false} />
         <TextField
           name="crane_max_kg"
           label="Crane lifting limit (kg)"

@@ -1,8 +1,8 @@
 import { useMemo } from 'react';
 import type { Lorry } from '../../../../shared/schemas/fleet.schema';
 import type { Slot } from '../../../../shared/schemas/slot.schema';
-import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
@@ -19,7 +19,7 @@ export function CreateSlotForm({ branchId, lorries }: { branchId: number; lorrie
   const create = useCreateSlot(branchId);
   const drivers = useDrivers();
   const toast = useToast();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: slotFormSchema,
     onSubmit: async (body) => {
       const slot = await create.mutateAsync(body);
@@ -48,7 +48,7 @@ export function GenerateSlotsForm({ branchId, lorries }: { branchId: number; lor
   const generate = useGenerateSlots(branchId);
   const toast = useToast();
   const schema = useMemo(() => generateFormSchema(lorries.map((l) => l.id)), [lorries]);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema,
     onSubmit: async (body) => {
       const result = await generate.mutateAsync(body);
@@ -67,7 +67,7 @@ export function GenerateSlotsForm({ branchId, lorries }: { branchId: number; lor
         <div className="flex flex-wrap gap-3">
           {WEEKDAYS.map((w) => (
             <label key={w.day} className="flex min-h-tap cursor-pointer items-center gap-2">
-              <input type="checkbox" name={weekdayField(w.day)} defaultChecked={w.day <= 5} className="h-5 w-5 accent-clay-600" />
+              <input type="checkbox" {...form.register(weekdayField(w.day))} defaultChecked={w.day <= 5} className="h-5 w-5 accent-clay-600" />
               {w.label}
             </label>
           ))}
@@ -78,7 +78,7 @@ export function GenerateSlotsForm({ branchId, lorries }: { branchId: number; lor
         <div className="flex flex-wrap gap-3">
           {lorries.map((l) => (
             <label key={l.id} className="flex min-h-tap cursor-pointer items-center gap-2">
-              <input type="checkbox" name={lorryChoiceField(l.id)} className="h-5 w-5 accent-clay-600" />
+              <input type="checkbox" {...form.register(lorryChoiceField(l.id))} className="h-5 w-5 accent-clay-600" />
               {lorryLabel(l)}
             </label>
           ))}
@@ -103,7 +103,7 @@ export function ChangeSlotForm({ slot, drivers, onDone }: { slot: Slot; drivers:
   // The slot's own driver is always a choice, so a driver list still loading never reads as "take the driver off".
   const choices = [...(slot.driver && !drivers.some((d) => d.id === driverId) ? [slot.driver] : []), ...drivers];
   const driverOptions = [{ value: '', label: 'No driver' }, ...choices.map((d) => ({ value: String(d.id), label: d.name }))];
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema,
     onSubmit: async (body) => {
       const saved = await update.mutateAsync({ slotId: slot.id, body });

@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { putAccountBodySchema } from '../../../../shared/schemas/invoice.schema';
 import type { accountSchema } from '../../../../shared/schemas/invoice.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useSetAccountTerms } from '../api/set-account-terms';
@@ -21,7 +21,7 @@ const termsFormSchema = z
 export function AccountTermsForm({ account }: { account: Account }) {
   const setTerms = useSetAccountTerms(account.contractor.id);
   const toast = useToast();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: termsFormSchema,
     onSubmit: async (terms) => {
       await setTerms.mutateAsync(terms);
@@ -38,7 +38,7 @@ export function AccountTermsForm({ account }: { account: Account }) {
         className="w-40 [&_label]:sr-only"
       />
       <label className="flex min-h-tap items-center gap-2">
-        <input type="checkbox" name="card_payments" defaultChecked={account.card_payments} className="h-5 w-5 accent-clay-600" />
+        <input type="checkbox" {...form.register('card_payments')} defaultChecked={account.card_payments} className="h-5 w-5 accent-clay-600" />
         May also pay by card
       </label>
       <SubmitButton>Set terms</SubmitButton>

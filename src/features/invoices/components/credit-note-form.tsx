@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { CREDIT_REASONS, CREDIT_REASON_LABELS, creditNoteBodySchema } from '../../../../shared/schemas/invoice.schema';
 import type { CreditNoteBody, Invoice } from '../../../../shared/schemas/invoice.schema';
-import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateCreditNote } from '../api/create-credit-note';
 
@@ -36,7 +36,7 @@ function creditFormSchema(lines: Invoice['lines']) {
 export function CreditNoteForm({ invoice }: { invoice: Invoice }) {
   const create = useCreateCreditNote(invoice.id);
   const toast = useToast();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: creditFormSchema(invoice.lines),
     onSubmit: async (body, { reset }) => {
       await create.mutateAsync(body);

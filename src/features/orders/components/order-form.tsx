@@ -1,9 +1,9 @@
 import { createContext, useCallback, useContext, useEffect, useMemo, useRef, useState } from 'react';
 import { DELIVERY_METHODS, DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
 import type { Order } from '../../../../shared/schemas/order.schema';
-import { Form, RadioGroupField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
-import type { ZodForm } from '../../../components/form/use-zod-form';
+import { Form, RadioGroupField, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
+import type { SchemaForm } from '../../../components/form/use-schema-form';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
@@ -40,7 +40,7 @@ interface LineRow {
 }
 
 interface LinesState {
-  form: ZodForm;
+  form: SchemaForm;
   packs: Record<number, number | null>;
 }
 
@@ -60,11 +60,10 @@ function IncludeCell({ index, option }: LineRow) {
   return (
     <input
       type="checkbox"
-      name={name}
+      {...form.register(name)}
       defaultChecked={!option.excluded}
       aria-label={`Order ${option.description}`}
-      aria-invalid={form.fieldErrors[name] ? true : undefined}
-      onChange={() => form.clearFieldError(name)}
+      aria-invalid={form.fieldError(name) ? true : undefined}
       className="h-5 w-5 accent-clay-600"
     />
   );
@@ -72,7 +71,7 @@ function IncludeCell({ index, option }: LineRow) {
 
 function ItemCell({ index, option }: LineRow) {
   const { form } = useLines();
-  const error = form.fieldErrors[lineField(index, 'include')];
+  const error = form.fieldError(lineField(index, 'include'));
   return (
     <span className="block min-w-52">
       <span className="font-medium">{option.description}</span>
@@ -91,7 +90,7 @@ function ItemCell({ index, option }: LineRow) {
 function PacksCell({ index, option }: LineRow) {
   const { form } = useLines();
   const name = lineField(index, 'quantity');
-  const error = form.fieldErrors[name];
+  const error = form.fieldError(name);
   const id = `${form.id}-line-${index}`;
   return (
     <div className="w-28">
@@ -100,7 +99,7 @@ function PacksCell({ index, option }: LineRow) {
       </label>
       <input
         id={id}
-        name={name}
+        {...form.register(name)}
         type="number"
         inputMode="numeric"
         min={1}
@@ -108,7 +107,6 @@ function PacksCell({ index, option }: LineRow) {
         defaultValue={option.packs}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : undefined}
-        onInput={() => form.clearFieldError(name)}
         className={`block min-h-tap w-full rounded-md border bg-white px-2 tabular-nums ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`}
       />
       {error ? (
@@ -135,7 +133,7 @@ const lineColumns = lineHelper.columns([
   lineHelper.display({ id: 'total', header: 'Line total', cell: (info) => <LineTotalCell {...info.row.original} /> }),
 ]);
 
-function LinesTable({ form, lines, packs }: { form: ZodForm; lines: readonly OrderLineOption[]; packs: Record<number, number | null> }) {
+function LinesTable({ form, lines, packs }: { form: SchemaForm; lines: readonly OrderLineOption[]; packs: Record<number, number | null> }) {
   const rows = useMemo(() => lines.map((option, index) => ({ index, option })), [lines]);
   const state = useMemo(() => ({ form, packs }), [form, packs]);
   return (
@@ -165,9 +163,18 @@ export function OrderForm({ target, branchName, lines, site, current, onDone }: 
   // Hooks run whatever the mode; only the one that matches the target is used.
   const amend = useAmendOrder(target.mode === 'amend' ? target.order_id : 0);
   const schema = useMemo(() => orderFormSchema(target, lines, site), [target, lines, site]);
-  const form = useZodForm({
+  // The server names a line by its place among the lines sent; the form by its place on the form.
+  const sent = useRef<readonly { product_id: number }[]>([]);
+  const form = useSchemaForm({
     schema,
+    serverPath: (path) => {
+      const match = /^lines\.(\d+)\.(\w+)$/.exec(path);
+      if (!match) return path;
+      const at = lines.findIndex((option) => option.product_id === sent.current[Number(match[1])]?.product_id);
+      return at < 0 ? path : lineField(at, match[2] === 'product_id' ? 'include' : 'quantity');
+    },
     onSubmit: async (body) => {
+      sent.current = body.lines ?? [];
       const order = target.mode === 'place' ? await place.mutateAsync(body as PlaceOrderValues) : await amend.mutateAsync(body as AmendOrderValues);
       onDone(order);
     },

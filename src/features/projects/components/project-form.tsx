@@ -10,14 +10,12 @@ import {
   updateProjectBodySchema,
 } from '../../../../shared/schemas/project.schema';
 import type { BUILDING_KINDS, Project } from '../../../../shared/schemas/project.schema';
-import { Form, RadioGroupField, SelectField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
-import type { ZodForm } from '../../../components/form/use-zod-form';
+import { Form, RadioGroupField, SelectField, SubmitButton, TextAreaField, TextField, useFieldGroup, useSchemaFormContext } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { useCreateProject } from '../api/create-project';
 import { useUpdateProject } from '../api/update-project';
-import { TextAreaField } from './text-area-field';
 
 interface BuildingRow {
   key: number;
@@ -28,7 +26,54 @@ interface BuildingRow {
 
 const options = <T extends string>(values: readonly T[], labels: Record<T, string>) => values.map((value) => ({ value, label: labels[value] }));
 
-function BuildingsEditor({ form, rows, onChange }: { form: ZodForm; rows: BuildingRow[]; onChange: (rows: BuildingRow[]) => void }) {
+function BuildingItem({ row, index, onUpdate, onRemove }: { row: BuildingRow; index: number; onUpdate: (patch: Partial<BuildingRow>) => void; onRemove: () => void }) {
+  // The rows live in state and go to the schema as `buildings`; the name's path still carries its errors.
+  const name = `buildings.${index}.name`;
+  const { error, errorId } = useFieldGroup(name);
+  const { clearFieldError } = useSchemaFormContext();
+  return (
+    <li className="grid gap-2 rounded-md border border-mortar-300 p-3 sm:grid-cols-[1fr_10rem_1.5fr_auto] sm:items-end">
+      <label className="block">
+        <span className="mb-1 block text-sm font-medium">Name</span>
+        <input
+          value={row.name}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={error ? errorId : undefined}
+          onChange={(event) => {
+            clearFieldError(name);
+            onUpdate({ name: event.target.value });
+          }}
+          className={`block min-h-tap w-full rounded-md border bg-white px-3 ${error ? 'border-brick-600' : 'border-ink-300'}`}
+        />
+        {error ? (
+          <span id={errorId} className="mt-1 block text-sm font-medium text-brick-700">
+            {error}
+          </span>
+        ) : null}
+      </label>
+      <label className="block">
+        <span className="mb-1 block text-sm font-medium">Kind</span>
+        <select
+          value={row.kind}
+          onChange={(event) => onUpdate({ kind: event.target.value as BuildingRow['kind'] })}
+          className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-2"
+        >
+          <option value="building">Building</option>
+          <option value="plot">Plot</option>
+        </select>
+      </label>
+      <label className="block">
+        <span className="mb-1 block text-sm font-medium">Notes</span>
+        <input value={row.notes} onChange={(event) => onUpdate({ notes: event.target.value })} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" />
+      </label>
+      <Button variant="ghost" onClick={onRemove} aria-label={`Remove ${row.name || `building ${index + 1}`}`}>
+        Remove
+      </Button>
+    </li>
+  );
+}
+
+function BuildingsEditor({ rows, onChange }: { rows: BuildingRow[]; onChange: (rows: BuildingRow[]) => void }) {
   const nextKey = useRef(rows.length + 1);
   const update = (key: number, patch: Partial<BuildingRow>) => onChange(rows.map((row) => (row.key === key ? { ...row, ...patch } : row)));
   return (
@@ -40,50 +85,9 @@ function BuildingsEditor({ form, rows, onChange }: { form: ZodForm; rows: Buildi
       </p>
       {rows.length === 0 ? <p className="text-sm text-ink-600">None listed.</p> : null}
       <ul className="space-y-3">
-        {rows.map((row, index) => {
-          const nameField = `buildings.${index}.name`;
-          const error = form.fieldErrors[nameField];
-          return (
-            <li key={row.key} className="grid gap-2 rounded-md border border-mortar-300 p-3 sm:grid-cols-[1fr_10rem_1.5fr_auto] sm:items-end">
-              <label className="block">
-                <span className="mb-1 block text-sm font-medium">Name</span>
-                <input
-                  name={nameField}
-                  value={row.name}
-                  aria-invalid={error ? true : undefined}
-                  onChange={(event) => {
-                    form.clearFieldError(nameField);
-                    update(row.key, { name: event.target.value });
-                  }}
-                  className={`block min-h-tap w-full rounded-md border bg-white px-3 ${error ? 'border-brick-600' : 'border-ink-300'}`}
-                />
-                {error ? <span className="mt-1 block text-sm font-medium text-brick-700">{error}</span> : null}
-              </label>
-              <label className="block">
-                <span className="mb-1 block text-sm font-medium">Kind</span>
-                <select
-                  value={row.kind}
-                  onChange={(event) => update(row.key, { kind: event.target.value as BuildingRow['kind'] })}
-                  className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-2"
-                >
-                  <option value="building">Building</option>
-                  <option value="plot">Plot</option>
-                </select>
-              </label>
-              <label className="block">
-                <span className="mb-1 block text-sm font-medium">Notes</span>
-                <input
-                  value={row.notes}
-                  onChange={(event) => update(row.key, { notes: event.target.value })}
-                  className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3"
-                />
-              </label>
-              <Button variant="ghost" onClick={() => onChange(rows.filter((r) => r.key !== row.key))} aria-label={`Remove ${row.name || `building ${index + 1}`}`}>
-                Remove
-              </Button>
-            </li>
-          );
-        })}
+        {rows.map((row, index) => (
+          <BuildingItem key={row.key} row={row} index={index} onUpdate={(patch) => update(row.key, patch)} onRemove={() => onChange(rows.filter((r) => r.key !== row.key))} />
+        ))}
       </ul>
       <Button
         variant="secondary"
@@ -97,7 +101,7 @@ function BuildingsEditor({ form, rows, onChange }: { form: ZodForm; rows: Buildi
   );
 }
 
-function SiteFields({ form, project }: { form: ZodForm; project?: Project }) {
+function SiteFields({ project }: { project?: Project }) {
   return (
     <>
       <Card title="The site">
@@ -105,7 +109,7 @@ function SiteFields({ form, project }: { form: ZodForm; project?: Project }) {
           <TextField name="name" label="Site name" defaultValue={project?.name} autoComplete="off" className="sm:col-span-2" />
           <TextField name="reference" label="Your reference" hint="Optional: job number" defaultValue={project?.reference} autoComplete="off" />
           <TextField name="site_postcode" label="Postcode" defaultValue={project?.site_postcode} autoComplete="postal-code" />
-          <TextAreaField form={form} name="site_address" label="Site address" rows={2} defaultValue={project?.site_address} className="sm:col-span-2" />
+          <TextAreaField name="site_address" label="Site address" rows={2} defaultValue={project?.site_address} className="sm:col-span-2" />
           <TextField name="contact_name" label="Contact on site" defaultValue={project?.contact_name} autoComplete="off" />
           <TextField name="contact_phone" label="Their phone" type="tel" inputMode="tel" defaultValue={project?.contact_phone} autoComplete="off" />
         </div>
@@ -127,7 +131,6 @@ function SiteFields({ form, project }: { form: ZodForm; project?: Project }) {
           />
           <TextField name="set_down_place" label="Where pallets are set down" hint="e.g. hardstanding by the site cabin" defaultValue={project?.set_down_place} autoComplete="off" />
           <TextAreaField
-            form={form}
             name="access_notes"
             label="Access notes for the driver"
             hint="Gate times, width or weight limits, ground conditions, anything a driver should know before arriving."
@@ -153,16 +156,16 @@ export function CreateProjectForm({ onCreated }: { onCreated: (project: Project)
   const create = useCreateProject();
   const [rows, setRows] = useState<BuildingRow[]>([]);
   const extraValues = useMemo(() => ({ buildings: buildingsBody(rows) }), [rows]);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: createProjectBodySchema,
     extraValues,
     onSubmit: async (values) => onCreated(await create.mutateAsync(values)),
   });
   return (
     <Form form={form} label="New site" className="space-y-6">
-      <SiteFields form={form} />
+      <SiteFields />
       <Card title="Buildings">
-        <BuildingsEditor form={form} rows={rows} onChange={setRows} />
+        <BuildingsEditor rows={rows} onChange={setRows} />
       </Card>
       <SubmitButton size="lg">Create the site</SubmitButton>
     </Form>
@@ -174,16 +177,16 @@ export function EditProjectForm({ project, onSaved }: { project: Project; onSave
   const update = useUpdateProject(project.id);
   const [rows, setRows] = useState<BuildingRow[]>(() => initialRows(project));
   const extraValues = useMemo(() => ({ buildings: buildingsBody(rows), revision: project.revision }), [rows, project.revision]);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: updateProjectBodySchema,
     extraValues,
     onSubmit: async (values) => onSaved(await update.mutateAsync(values)),
   });
   return (
     <Form form={form} label={`Edit ${project.name}`} className="space-y-6">
-      <SiteFields form={form} project={project} />
+      <SiteFields project={project} />
       <Card title="Buildings">
-        <BuildingsEditor form={form} rows={rows} onChange={setRows} />
+        <BuildingsEditor rows={rows} onChange={setRows} />
       </Card>
       <SubmitButton size="lg">Save the changes</SubmitButton>
     </Form>

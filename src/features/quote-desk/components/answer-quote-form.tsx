@@ -1,8 +1,8 @@
 import { useMemo } from 'react';
 import type { Quote, QuoteRequest } from '../../../../shared/schemas/order.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useToast } from '../../../components/ui/toast';
 import { formatMoney } from '../../../lib/format';
 import { useAnswerQuote } from '../api/answer-quote';
@@ -21,7 +21,7 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
   const answer = useAnswerQuote(quote.id);
   const toast = useToast();
   const previous = new Map(quote.lines.map((l) => [l.request_line_id, l]));
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema,
     onSubmit: async (body) => {
       try {
@@ -33,7 +33,7 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
       onDone?.();
     },
   });
-  const err = (name: string) => form.fieldErrors[name];
+  const err = (name: string) => form.fieldError(name);
   return (
     <Form form={form} label="Price the quote">
       <p className="text-sm text-ink-600">
@@ -71,7 +71,7 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
                   <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">{formatQuantity(line.quantity, line.unit)}</td>
                   <td className="px-3 py-2">
                     <select
-                      name={fields[0]}
+                      {...form.register(fields[0])}
                       aria-label={`Product for ${line.description}`}
                       defaultValue={before?.product_id ? String(before.product_id) : ''}
                       aria-invalid={err(fields[0]) ? true : undefined}
@@ -86,11 +86,11 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
                     </select>
                   </td>
                   <td className="px-3 py-2">
-                    <input name={fields[1]} aria-label={`Packs of ${line.description}`} inputMode="numeric" defaultValue={before ? before.packs : ''} aria-invalid={err(fields[1]) ? true : undefined} className={cell} />
+                    <input {...form.register(fields[1])} aria-label={`Packs of ${line.description}`} inputMode="numeric" defaultValue={before ? before.packs : ''} aria-invalid={err(fields[1]) ? true : undefined} className={cell} />
                   </td>
                   <td className="px-3 py-2">
                     <input
-                      name={fields[2]}
+                      {...form.register(fields[2])}
                       aria-label={`Pack price of ${line.description}`}
                       inputMode="decimal"
                       defaultValue={before ? (before.unit_price / 100).toFixed(2) : ''}
@@ -99,7 +99,7 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
                     />
                   </td>
                   <td className="px-3 py-2">
-                    <input name={fields[3]} aria-label={`Note on ${line.description}`} maxLength={500} defaultValue={before?.note ?? ''} className="block min-h-tap w-48 rounded-md border border-ink-300 bg-white px-2" />
+                    <input {...form.register(fields[3])} aria-label={`Note on ${line.description}`} maxLength={500} defaultValue={before?.note ?? ''} className="block min-h-tap w-48 rounded-md border border-ink-300 bg-white px-2" />
                   </td>
                 </tr>
               );

@@ -1,6 +1,6 @@
 import { declineQuoteBodySchema } from '../../../../shared/schemas/order.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useToast } from '../../../components/ui/toast';
 import { useDeclineQuote } from '../api/decline-quote';
 
@@ -8,7 +8,7 @@ import { useDeclineQuote } from '../api/decline-quote';
 export function DeclineQuoteForm({ quoteId, onDone }: { quoteId: number; onDone?: () => void }) {
   const decline = useDeclineQuote(quoteId);
   const toast = useToast();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: declineQuoteBodySchema,
     onSubmit: async ({ message }) => {
       await decline.mutateAsync(message || undefined);

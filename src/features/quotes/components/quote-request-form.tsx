@@ -1,15 +1,28 @@
 import { businessCalendar } from '../../../lib/business-calendar';
 import { useMemo, useState } from 'react';
+import type { ChangeEvent, ReactNode } from 'react';
 import { DELIVERY_METHODS, DELIVERY_METHOD_LABELS, MAX_QUOTE_BRANCHES } from '../../../../shared/schemas/order.schema';
 import type { QuoteRequest } from '../../../../shared/schemas/order.schema';
-import { Form, RadioGroupField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { FieldMessage, Form, RadioGroupField, SubmitButton, TextField, useFieldGroup } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useCreateQuoteRequest } from '../api/create-quote-request';
 import { useMerchantBranches } from '../api/get-merchant-branches';
 import { branchField, quoteFormSchema } from '../lib/quote-form';
+
+/** The branches to ask: a rule across the ticks (at least one, at most three) is shown under them. */
+function BranchesGroup({ children }: { children: ReactNode }) {
+  const { error, errorId } = useFieldGroup('branch_ids');
+  return (
+    <fieldset aria-describedby={error ? errorId : undefined}>
+      <legend className="sr-only">Branches to ask</legend>
+      {children}
+      {error ? <FieldMessage id={errorId}>{error}</FieldMessage> : null}
+    </fieldset>
+  );
+}
 
 interface QuoteRequestFormProps {
   estimateId: number;
@@ -26,8 +39,7 @@ export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, 
   const create = useCreateQuoteRequest();
   const schema = useMemo(() => quoteFormSchema(estimateId), [estimateId]);
   const [ticked, setTicked] = useState<Set<number>>(() => new Set(preferredBranchId ? [preferredBranchId] : []));
-  const form = useZodForm({ schema, onSubmit: async (body) => onCreated(await create.mutateAsync(body)) });
-  const branchError = form.fieldErrors.branch_ids;
+  const form = useSchemaForm({ schema, onSubmit: async (body) => onCreated(await create.mutateAsync(body)) });
 
   return (
     <Form form={form} label="Ask for quotes" className="space-y-6">
@@ -37,8 +49,7 @@ export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, 
         ) : branches.isError ? (
           <ErrorAlert error={branches.error} title="The merchant branches could not be loaded" onRetry={() => void branches.refetch()} />
         ) : (
-          <fieldset aria-describedby={branchError ? `${form.id}-branches-error` : undefined}>
-            <legend className="sr-only">Branches to ask</legend>
+          <BranchesGroup>
             <div className="grid gap-2 sm:grid-cols-2">
               {branches.data.map((branch) => {
                 const checked = ticked.has(branch.id);
@@ -46,18 +57,17 @@ export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, 
                   <label key={branch.id} className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50 has-[:disabled]:cursor-not-allowed has-[:disabled]:opacity-60">
                     <input
                       type="checkbox"
-                      name={branchField(branch.id)}
+                      {...form.register(branchField(branch.id), {
+                        onChange: (event: ChangeEvent<HTMLInputElement>) =>
+                          setTicked((set) => {
+                            const next = new Set(set);
+                            if (event.target.checked) next.add(branch.id);
+                            else next.delete(branch.id);
+                            return next;
+                          }),
+                      })}
                       checked={checked}
                       disabled={!checked && ticked.size >= MAX_QUOTE_BRANCHES}
-                      onChange={(event) => {
-                        form.clearFieldError('branch_ids');
-                        setTicked((set) => {
-                          const next = new Set(set);
-                          if (event.target.checked) next.add(branch.id);
-                          else next.delete(branch.id);
-                          return next;
-                        });
-                      }}
                       className="mt-1 h-5 w-5 accent-clay-600"
                     />
                     <span>
@@ -70,12 +80,7 @@ export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, 
                 );
               })}
             </div>
-            {branchError ? (
-              <p id={`${form.id}-branches-error`} className="mt-2 text-sm font-medium text-brick-700">
-                {branchError}
-              </p>
-            ) : null}
-          </fieldset>
+          </BranchesGroup>
         )}
       </Card>
       <Card title="Delivery wanted">

@@ -6,9 +6,9 @@ import { MAX_SCHEDULE_FACES } from '../../../../shared/schemas/schedule-upload.s
 import type { ScheduleResponse, StoredFace, StoredOpening } from '../../../../shared/schemas/schedule-upload.schema';
 import { EDGE_KINDS, TOP_KINDS, faceKey, scheduleSchema } from '../../../../shared/schemas/schedule.schema';
 import type { ScheduleRowInput } from '../../../../shared/schemas/schedule.schema';
-import { Form, SubmitButton } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
-import type { ZodForm } from '../../../components/form/use-zod-form';
+import { Form, SubmitButton } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
+import type { SchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
 import { useSaveSchedule } from '../api/save-schedule';
 
@@ -137,7 +137,7 @@ function OpeningsFields({
   onChange,
   nextKey,
 }: {
-  form: ZodForm;
+  form: SchemaForm;
   row: FaceRow;
   faceIndex: number;
   firstIndex: number;
@@ -147,11 +147,10 @@ function OpeningsFields({
   const update = (key: number, patch: Partial<OpeningRow>) => onChange(row.openings.map((o) => (o.key === key ? { ...o, ...patch } : o)));
   const cell = (o: OpeningRow, i: number, column: 'kind' | 'width_mm' | 'height_mm' | 'quantity', label: string) => {
     const name = `openings.${firstIndex + i}.${column}`;
-    const error = form.fieldErrors[name];
+    const error = form.fieldError(name);
     const id = `${form.id}-${faceIndex}-opening-${o.key}-${column}`;
     const common = {
       id,
-      name,
       'aria-invalid': error ? true : undefined,
       'aria-describedby': error ? `${id}-error` : undefined,
       className: inputClasses(error),
@@ -236,7 +235,7 @@ function FaceFields({
   canRemove,
   nextKey,
 }: {
-  form: ZodForm;
+  form: SchemaForm;
   row: FaceRow;
   index: number;
   firstOpening: number;
@@ -247,11 +246,10 @@ function FaceFields({
 }) {
   const field = (column: keyof typeof LABELS) => {
     const name = `faces.${index}.${column}`;
-    const error = form.fieldErrors[name];
+    const error = form.fieldError(name);
     const id = `${form.id}-${index}-${column}`;
     const common = {
       id,
-      name,
       'aria-invalid': error ? true : undefined,
       'aria-describedby': error ? `${id}-error` : undefined,
       className: `block min-h-tap w-full rounded-md border bg-white px-2 ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`,
@@ -317,6 +315,9 @@ function FaceFields({
   );
 }
 
+/** The faces and openings live in state: their inputs show their own errors by path. */
+const isRowPath = (path: string) => /^(faces|openings)\.\d+\./.test(path);
+
 interface FacesFormProps {
   projectId: number;
   /** The faces to start from: the schedule in use, or none for a first schedule. */
@@ -343,9 +344,10 @@ export function FacesForm({ projectId, initial, initialOpenings = [], onSaved }:
     return initial.map((face, i) => fromStored(face, i + 1, byFace.get(faceKey(face.building, face.face)) ?? [], () => openingKey++));
   });
   const extraValues = useMemo(() => ({ faces: rows.map(rowToInput), openings: openingsToInput(rows) }), [rows]);
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: facesFormSchema,
     extraValues,
+    statePaths: isRowPath,
     onSubmit: async () => onSaved(await save.mutateAsync({ faces: extraValues.faces, openings: extraValues.openings })),
   });
   const firstOpenings: number[] = [];

@@ -1,8 +1,8 @@
 import { createInvitationBodySchema } from '../../../../shared/schemas/members.schema';
 import { OWNER_ROLE, ROLE_LABELS, kindOfRole } from '../../../../shared/domain/roles';
 import type { Role } from '../../../../shared/domain/roles';
-import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/form';
-import { useZodForm } from '../../../components/form/use-zod-form';
+import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Card } from '../../../components/ui/card';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateInvitation } from '../api/create-invitation';
@@ -20,7 +20,7 @@ function defaultRole(roles: readonly Role[]): Role | undefined {
 export function InviteMemberForm({ assignableRoles }: InviteMemberFormProps) {
   const create = useCreateInvitation();
   const toast = useToast();
-  const form = useZodForm({
+  const form = useSchemaForm({
     schema: createInvitationBodySchema,
     onSubmit: async (values, { reset }) => {
       const invitation = await create.mutateAsync(values);

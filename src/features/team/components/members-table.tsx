@@ -1,8 +1,11 @@
 import { useMemo, useState } from 'react';
-import type { FormEvent } from 'react';
+import type { ChangeEvent } from 'react';
 import { ROLE_LABELS } from '../../../../shared/domain/roles';
 import type { Role } from '../../../../shared/domain/roles';
+import { updateMemberBodySchema } from '../../../../shared/schemas/members.schema';
 import type { Member } from '../../../../shared/schemas/members.schema';
+import { Form } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
@@ -25,31 +28,30 @@ function RoleEditor({ member, assignableRoles }: { member: Member; assignableRol
   const [role, setRole] = useState<Role>(member.role);
   const update = useUpdateMemberRole();
   const toast = useToast();
+  const form = useSchemaForm({
+    schema: updateMemberBodySchema,
+    onSubmit: async (body) => {
+      try {
+        const saved = await update.mutateAsync({ id: member.id, role: body.role });
+        toast.show(`${saved.name} is now ${ROLE_LABELS[saved.role]}.`, 'success');
+      } catch (error) {
+        setRole(member.role);
+        form.methods.setValue('role', member.role);
+        toast.show(errorMessage(error), 'danger');
+      }
+    },
+  });
   const selectId = `member-${member.id}-role`;
 
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    update.mutate(
-      { id: member.id, role },
-      {
-        onSuccess: (saved) => toast.show(`${saved.name} is now ${ROLE_LABELS[saved.role]}.`, 'success'),
-        onError: (error) => {
-          setRole(member.role);
-          toast.show(errorMessage(error), 'danger');
-        },
-      },
-    );
-  }
-
   return (
-    <form onSubmit={submit} className="flex flex-wrap items-center gap-2">
+    <Form form={form} label={`Change the role of ${member.name}`} className="flex flex-wrap items-center gap-2">
       <label htmlFor={selectId} className="sr-only">
         Role of {member.name}
       </label>
       <select
         id={selectId}
+        {...form.register('role', { onChange: (event: ChangeEvent<HTMLSelectElement>) => setRole(event.target.value as Role) })}
         value={role}
-        onChange={(event) => setRole(event.target.value as Role)}
         className="min-h-tap rounded-md border border-ink-300 bg-white px-2"
       >
         {assignableRoles.map((option) => (
@@ -63,7 +65,7 @@ function RoleEditor({ member, assignableRoles }: { member: Member; assignableRol
           Save
         </Button>
       ) : null}
-    </form>
+    </Form>
   );
 }
 
