@@ -7,24 +7,14 @@ import jsxA11y from 'eslint-plugin-jsx-a11y';
 import { importX, createNodeResolver } from 'eslint-plugin-import-x';
 
 /** Files that may use devDependencies: tests, test helpers, benchmarks, tools and config files. */
-const devFiles = [
-  '**/*.test.{ts,tsx}',
-  'tests/**',
-  'src/test-utils/**',
-  'src/features/*/lib/*-fixture.ts',
-  'server/db/pg-dev.ts',
-  'server/db/pg-cluster.ts',
-  '*.config.{ts,js}',
-];
+const devFiles = ['**/*.test.{ts,tsx}', 'tests/**', 'src/test-utils/**', 'src/features/*/lib/*-fixture.ts', 'server/db/pg-dev.ts', 'server/db/pg-cluster.ts', '*.config.{ts,js}'];
 
 /** Dependency directions: shared is pure; src and server never import each other; features stay apart. */
 const restrict = (patterns) => ['error', { patterns }];
 const features = readdirSync(new URL('./src/features', import.meta.url), { withFileTypes: true })
   .filter((d) => d.isDirectory())
   .map((d) => d.name);
-const clientRules = [
-  { group: ['**/server/**', 'express', 'knex', 'better-sqlite3', 'node:*'], message: 'src/ never imports server code.' },
-];
+const clientRules = [{ group: ['**/server/**', 'express', 'knex', 'better-sqlite3', 'node:*'], message: 'src/ never imports server code.' }];
 
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', 'data/**', 'tmp/**', 'coverage/**'] },

@@ -125,7 +125,15 @@ export const DEMO_CATALOGUES: DemoMerchant[] = [
     organisation: 'Tollerbeck Roofing Supplies',
     products: [
       interlockingTile('TRS-FL420-SG', 'Flatlock 420 concrete interlocking tile, slate grey', {
-        length: 420, width: 330, cover: 300, bands: [[22.5, 100], [30, 75]], kg: 4.4, perPallet: 180,
+        length: 420,
+        width: 330,
+        cover: 300,
+        bands: [
+          [22.5, 100],
+          [30, 75],
+        ],
+        kg: 4.4,
+        perPallet: 180,
       }),
       {
         sku: 'TRS-KP265-BR',
@@ -229,7 +237,15 @@ export const DEMO_CATALOGUES: DemoMerchant[] = [
     organisation: 'Caddonmere Tile & Timber',
     products: [
       interlockingTile('CTT-WL380-RU', 'Wharf-Lock 380 concrete interlocking tile, russet', {
-        length: 380, width: 230, cover: 200, bands: [[25, 90], [30, 75]], kg: 2.6, perPallet: 350,
+        length: 380,
+        width: 230,
+        cover: 200,
+        bands: [
+          [25, 90],
+          [30, 75],
+        ],
+        kg: 2.6,
+        perPallet: 350,
       }),
       {
         sku: 'CTT-SL5025-BG',

@@ -73,7 +73,9 @@ export async function seed(knex: Knex): Promise<void> {
         for (const l of b.lorries) {
           let lorry = await trx('lorries').where({ organisation_id: org.id, registration: l.registration }).first();
           if (!lorry) {
-            const [row] = await trx('lorries').insert({ organisation_id: org.id, branch_id: branch.id, ...l, created_at: now, updated_at: now }).returning('id');
+            const [row] = await trx('lorries')
+              .insert({ organisation_id: org.id, branch_id: branch.id, ...l, created_at: now, updated_at: now })
+              .returning('id');
             lorry = { id: idOf(row) };
           }
           for (let d = 0; d < DAYS_AHEAD; d++) {

@@ -3,14 +3,7 @@ import type { Knex } from 'knex';
 import pino from 'pino';
 import { can, type Action } from '../shared/domain/policy';
 import { createProjectBodySchema } from '../shared/schemas/project.schema';
-import {
-  confirmOrderBodySchema,
-  createQuoteRequestBodySchema,
-  answerQuoteBodySchema,
-  placeOrderBodySchema,
-  proposalBodySchema,
-  type OrderDetail,
-} from '../shared/schemas/order.schema';
+import { confirmOrderBodySchema, createQuoteRequestBodySchema, answerQuoteBodySchema, placeOrderBodySchema, proposalBodySchema, type OrderDetail } from '../shared/schemas/order.schema';
 import type { AuthUser } from '../server/auth/auth-user';
 import type { Config } from '../server/config/env';
 import type { Mailer } from '../server/mail/mailer';
@@ -56,11 +49,7 @@ const SECOND_SITE = {
     buildings: [{ name: 'Rowan', kind: 'building', notes: 'Terrace of four, gable ends, plots 1–4' }],
   },
   /** A terrace of four with plain gable roofs, in millimetres. */
-  schedule: [
-    'building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top',
-    'Rowan,Front,4,40,4800,7800,verge,verge,ridge',
-    'Rowan,Back,4,40,4800,7800,verge,verge,ridge',
-  ].join('\r\n'),
+  schedule: ['building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top', 'Rowan,Front,4,40,4800,7800,verge,verge,ridge', 'Rowan,Back,4,40,4800,7800,verge,verge,ridge'].join('\r\n'),
 } as const;
 
 /** The app's settings a seed needs: links in e-mails that are never sent, and the currency invoices carry. */
@@ -186,15 +175,17 @@ async function buildOrderBook(knex: Knex): Promise<void> {
    * Hollin Brow, one house of the four at Ferncombe Rise. `only` keeps some categories.
    */
   const share = (e: Estimate, fraction: number, only?: string[]) =>
-    e.lines
-      .filter((l) => l.product_id !== null && (!only || only.includes(l.category)))
-      .map((l) => ({ product_id: l.product_id!, quantity: Math.max(1, Math.ceil(l.packs * fraction)) }));
+    e.lines.filter((l) => l.product_id !== null && (!only || only.includes(l.category))).map((l) => ({ product_id: l.product_id!, quantity: Math.max(1, Math.ceil(l.packs * fraction)) }));
 
   const today = deps.config.calendar.today();
   const day = (n: number) => workingDay(today, n);
 
-  const place = (email: string, e: Estimate, branchId: number, body: { requested_date: string; po_reference: string; delivery_method?: 'ground' | 'roof'; time_window?: string; notes?: string; lines: { product_id: number; quantity: number }[] }) =>
-    orders.place(as(email, 'orders:place'), placeOrderBodySchema.parse({ estimate_id: e.id, branch_id: branchId, delivery_method: 'ground', ...body }));
+  const place = (
+    email: string,
+    e: Estimate,
+    branchId: number,
+    body: { requested_date: string; po_reference: string; delivery_method?: 'ground' | 'roof'; time_window?: string; notes?: string; lines: { product_id: number; quantity: number }[] },
+  ) => orders.place(as(email, 'orders:place'), placeOrderBodySchema.parse({ estimate_id: e.id, branch_id: branchId, delivery_method: 'ground', ...body }));
 
   const slotIdOf = async (registration: string, date: string, window: string): Promise<number> => {
     const lorry = (await knex('lorries').where({ registration }).whereIn('organisation_id', merchantIds).first()) as { id: number; branch_id: number; organisation_id: number; has_crane: number | boolean };
@@ -218,13 +209,25 @@ async function buildOrderBook(knex: Knex): Promise<void> {
   };
   /** The driver's record of a drop; `proof` adds the signature and a photo made for the demo. */
   const deliver = async (email: string, o: OrderDetail, body: { received_by: string; notes?: string }, proof = false) =>
-    deliveries.record(as(email, 'deliveries:record'), o.id, { receiver_name: body.received_by, note: body.notes ?? '', ...(proof ? { position: { lat: 53.4862, lng: -2.0871, accuracy_m: 9 } } : {}) }, proof ? await demoProofFiles() : []);
+    deliveries.record(
+      as(email, 'deliveries:record'),
+      o.id,
+      { receiver_name: body.received_by, note: body.notes ?? '', ...(proof ? { position: { lat: 53.4862, lng: -2.0871, accuracy_m: 9 } } : {}) },
+      proof ? await demoProofFiles() : [],
+    );
   const invoice = (email: string, o: OrderDetail) => invoices.issue(as(email, 'invoices:issue'), o.id);
 
   // ---- Tollerbeck Roofing Supplies ----
 
   // Delivered this morning and invoiced on Brackenfold's 30-day account.
-  const plot1 = await place(EST1, hbFlatlock, tollerbeckYard.id, { requested_date: today, time_window: MORNING, po_reference: 'HB-P01', delivery_method: 'roof', notes: 'Plot 1 (Alder). Lift onto the scaffold loading bay.', lines: share(hbFlatlock, 1 / 20) });
+  const plot1 = await place(EST1, hbFlatlock, tollerbeckYard.id, {
+    requested_date: today,
+    time_window: MORNING,
+    po_reference: 'HB-P01',
+    delivery_method: 'roof',
+    notes: 'Plot 1 (Alder). Lift onto the scaffold loading bay.',
+    lines: share(hbFlatlock, 1 / 20),
+  });
   await confirm(SALES1, plot1, await slotIdOf('RL-TY01', today, MORNING));
   await dispatch('dispatch@demo.test', plot1);
   await deliver('driver@demo.test', plot1, { received_by: 'Gethin Marlow', notes: 'Lifted onto the loading bay of plot 1; stacks spread along both slopes.' }, true);
@@ -322,7 +325,13 @@ async function buildOrderBook(knex: Knex): Promise<void> {
 
   // Tollerbeck Yard, next working day: the crane lorry's morning run gets a second drop, set down at
   // ground level after the lift at plot 3; the yard loaded it all this evening.
-  const plot4 = await place(EST1, hbFlatlock, tollerbeckYard.id, { requested_date: day(1), time_window: MORNING, po_reference: 'HB-P04', notes: 'Plot 4: ridge, hips and tile nails, set down on the hardstanding by the site cabin.', lines: share(hbFlatlock, 1 / 20, ['ridge', 'hip', 'tile_nail']) });
+  const plot4 = await place(EST1, hbFlatlock, tollerbeckYard.id, {
+    requested_date: day(1),
+    time_window: MORNING,
+    po_reference: 'HB-P04',
+    notes: 'Plot 4: ridge, hips and tile nails, set down on the hardstanding by the site cabin.',
+    lines: share(hbFlatlock, 1 / 20, ['ridge', 'hip', 'tile_nail']),
+  });
   await confirm(SALES1, plot4, await slotIdOf('RL-TY01', day(1), MORNING));
   await load('dispatch@demo.test', plot3, 1);
   await load('dispatch@demo.test', plot4, 1);
@@ -332,7 +341,13 @@ async function buildOrderBook(knex: Knex): Promise<void> {
   await withDriver('dispatch@demo.test', tailLiftToday, 'driver@demo.test');
   const frPlot3 = await place(EST2, frPlain, tollerbeckYard.id, { requested_date: today, time_window: AFTERNOON, po_reference: 'FR-CL-3', notes: 'Plot 3 of the Rowan terrace.', lines: share(frPlain, 1 / 8) });
   await confirm(SALES1, frPlot3, tailLiftToday);
-  const fb7 = await place(EST1, hbFlatlock, tollerbeckYard.id, { requested_date: today, time_window: AFTERNOON, po_reference: 'HB-FB-07', notes: 'Felt and batten for plot 7.', lines: share(hbFlatlock, 1 / 20, ['batten', 'batten_nail', 'underlay']) });
+  const fb7 = await place(EST1, hbFlatlock, tollerbeckYard.id, {
+    requested_date: today,
+    time_window: AFTERNOON,
+    po_reference: 'HB-FB-07',
+    notes: 'Felt and batten for plot 7.',
+    lines: share(hbFlatlock, 1 / 20, ['batten', 'batten_nail', 'underlay']),
+  });
   await confirm(SALES1, fb7, tailLiftToday);
   await load('dispatch@demo.test', frPlot3, 1);
 
@@ -350,7 +365,12 @@ async function buildOrderBook(knex: Knex): Promise<void> {
   await withDriver('dispatch2@demo.test', wharfToday, 'driver2@demo.test');
   const plot12 = await place(EST1, hbWharfLock, caddonmereWharf.id, { requested_date: today, time_window: AFTERNOON, po_reference: 'HB-P12', delivery_method: 'roof', lines: share(hbWharfLock, 1 / 40) });
   await confirm(SALES2, plot12, wharfToday);
-  const plot13 = await place(EST1, hbWharfLock, caddonmereWharf.id, { requested_date: today, time_window: AFTERNOON, po_reference: 'HB-P13', lines: share(hbWharfLock, 1 / 40, ['ridge', 'hip', 'batten', 'batten_nail', 'tile_nail', 'underlay']) });
+  const plot13 = await place(EST1, hbWharfLock, caddonmereWharf.id, {
+    requested_date: today,
+    time_window: AFTERNOON,
+    po_reference: 'HB-P13',
+    lines: share(hbWharfLock, 1 / 40, ['ridge', 'hip', 'batten', 'batten_nail', 'tile_nail', 'underlay']),
+  });
   await confirm(SALES2, plot13, wharfToday);
 
   // Pellingsby Yard, next working day: slates on the tail-lift lorry.

@@ -145,7 +145,12 @@ export function createApp(deps: AppDeps): Express {
   api.use(exportsRoutes(estimates, projects));
   // Before the orders' routes: it answers POST /orders/:id/delivery (JSON or multipart, with proof).
   const invoices = invoicesService(deps, payments);
-  api.use(deliveriesRoutes(deliveriesService(deps, (user, invoiceId, body) => invoices.credit(user, invoiceId, body)), idempotent));
+  api.use(
+    deliveriesRoutes(
+      deliveriesService(deps, (user, invoiceId, body) => invoices.credit(user, invoiceId, body)),
+      idempotent,
+    ),
+  );
   api.use(ordersRoutes(orders, idempotent));
   api.use(quotesRoutes(quotesService(deps, orders)));
   api.use(priceListRoutes(priceListService(deps)));

@@ -32,7 +32,9 @@ export class DbRateLimitStore implements Store {
   }
 
   async get(key: string): Promise<ClientRateLimitInfo | undefined> {
-    const row = (await this.db(TABLE).where({ key: this.rowKey(key) }).first('hits', 'reset_at')) as Row | undefined;
+    const row = (await this.db(TABLE)
+      .where({ key: this.rowKey(key) })
+      .first('hits', 'reset_at')) as Row | undefined;
     if (!row || row.reset_at <= new Date().toISOString()) return undefined;
     return { totalHits: Number(row.hits), resetTime: new Date(row.reset_at) };
   }
@@ -64,7 +66,9 @@ export class DbRateLimitStore implements Store {
   }
 
   async resetKey(key: string): Promise<void> {
-    await this.db(TABLE).where({ key: this.rowKey(key) }).delete();
+    await this.db(TABLE)
+      .where({ key: this.rowKey(key) })
+      .delete();
   }
 
   async resetAll(): Promise<void> {

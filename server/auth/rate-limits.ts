@@ -16,12 +16,14 @@ function limiter(db: Db, name: string, limit: number, key: (req: Request) => str
     legacyHeaders: false,
     skipSuccessfulRequests,
     keyGenerator: key,
-    handler: (_req, _res, next) =>
-      next(new AppError(429, 'rate_limited', 'Too many attempts. Wait a few minutes and try again.')),
+    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many attempts. Wait a few minutes and try again.')),
   });
 }
 
-const emailOf = (req: Request) => String((req.body as { email?: unknown } | undefined)?.email ?? '').trim().toLowerCase();
+const emailOf = (req: Request) =>
+  String((req.body as { email?: unknown } | undefined)?.email ?? '')
+    .trim()
+    .toLowerCase();
 const ipOf = (req: Request) => ipKeyGenerator(req.ip ?? 'unknown');
 
 /** Failed sign-ins per address and e-mail; a successful one does not count. */

@@ -28,7 +28,9 @@ describe('the session store', () => {
 
   it('reads a session from the database on every request, so a change another server made counts at once', async () => {
     await store.set('b', session(12));
-    await db('sessions').where({ sid: 'b' }).update({ sess: JSON.stringify({ ...session(99) }) });
+    await db('sessions')
+      .where({ sid: 'b' })
+      .update({ sess: JSON.stringify({ ...session(99) }) });
     expect((await get('b'))?.passport).toEqual({ user: 99 });
     await db('sessions').where({ sid: 'b' }).delete();
     expect(await get('b')).toBeNull();

@@ -69,8 +69,7 @@ function readText(path: string, what: string): string {
     return readFileSync(path, 'utf8');
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
-    const reason =
-      code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : code === 'EACCES' ? 'permission denied' : String((e as Error).message);
+    const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : code === 'EACCES' ? 'permission denied' : String((e as Error).message);
     throw new UsageError(`cannot read the ${what} file '${path}': ${reason}`);
   }
 }

@@ -21,7 +21,10 @@ const envSchema = z.object({
     .optional()
     .transform((v, ctx) => {
       const origins: string[] = [];
-      for (const part of (v ?? '').split(',').map((x) => x.trim()).filter(Boolean)) {
+      for (const part of (v ?? '')
+        .split(',')
+        .map((x) => x.trim())
+        .filter(Boolean)) {
         try {
           origins.push(new URL(part).origin);
         } catch {
@@ -49,10 +52,7 @@ const envSchema = z.object({
   /** Where the SDK sends its calls when it is not the real service: the local fake in development and tests. */
   STRIPE_API_BASE: z.url().optional(),
   DEV_STRIPE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
-  BUSINESS_TIME_ZONE: z
-    .string()
-    .refine(isValidTimeZone, 'BUSINESS_TIME_ZONE must be an IANA time-zone name such as Europe/London')
-    .default(DEFAULT_BUSINESS_TIME_ZONE),
+  BUSINESS_TIME_ZONE: z.string().refine(isValidTimeZone, 'BUSINESS_TIME_ZONE must be an IANA time-zone name such as Europe/London').default(DEFAULT_BUSINESS_TIME_ZONE),
 });
 
 export interface Config {

@@ -18,9 +18,7 @@ describe('SQLite shared by two server processes', () => {
       t.integer('n').notNullable();
     });
     await db('counter').insert({ id: 1, n: 0 });
-    const servers = await Promise.all(
-      [1, 2].map(() => run(process.execPath, ['--import', 'tsx', worker, file, '60'], { encoding: 'utf8', timeout: 60_000 })),
-    );
+    const servers = await Promise.all([1, 2].map(() => run(process.execPath, ['--import', 'tsx', worker, file, '60'], { encoding: 'utf8', timeout: 60_000 })));
     const failures = servers.map((s) => (JSON.parse(s.stdout.trim().split('\n').pop()!) as { failed: number }).failed);
     expect({ failures, errors: servers.map((s) => s.stderr.trim()).filter(Boolean) }).toEqual({ failures: [0, 0], errors: [] });
     expect((await db('counter').where({ id: 1 }).first()).n).toBe(120);

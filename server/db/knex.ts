@@ -109,7 +109,6 @@ function createSqliteDb(filename: string): Db {
   return db;
 }
 
-
 interface Statement {
   get: (...params: unknown[]) => unknown;
 }

@@ -26,9 +26,7 @@ function binDir(): string {
       .sort((a, b) => Number(b) - Number(a));
     if (versions[0]) return join(root, versions[0], 'bin');
   }
-  throw new Error(
-    'PostgreSQL server binaries not found (looked in PG_BIN and /usr/lib/postgresql/*/bin). Install them with `apt-get install -y postgresql`; .ci/run does this where they are missing.',
-  );
+  throw new Error('PostgreSQL server binaries not found (looked in PG_BIN and /usr/lib/postgresql/*/bin). Install them with `apt-get install -y postgresql`; .ci/run does this where they are missing.');
 }
 
 function freePort(): Promise<number> {
@@ -54,15 +52,7 @@ export async function startPgCluster(): Promise<PgCluster> {
   };
   run('initdb', ['-D', join(dir, 'data'), '--auth=trust', '-U', 'postgres', '-E', 'UTF8', '--no-sync', '--locale=C']);
   const port = await freePort();
-  const options = [
-    `-p ${port}`,
-    `-k ${dir}`,
-    '-c listen_addresses=127.0.0.1',
-    '-c fsync=off',
-    '-c synchronous_commit=off',
-    '-c full_page_writes=off',
-    '-c max_connections=300',
-  ].join(' ');
+  const options = [`-p ${port}`, `-k ${dir}`, '-c listen_addresses=127.0.0.1', '-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off', '-c max_connections=300'].join(' ');
   run('pg_ctl', ['-D', join(dir, 'data'), '-l', join(dir, 'log'), '-w', '-o', options, 'start']);
   let stopped = false;
   return {

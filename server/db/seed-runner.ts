@@ -6,7 +6,9 @@ import type { Db } from './knex';
 
 /** Runs every seed file in name order; each one is safe to run again. */
 export async function runSeeds(db: Db): Promise<string[]> {
-  const files = readdirSync(SEEDS_DIR).filter((f) => /^\d{2}-[a-z0-9-]+\.(ts|mjs)$/.test(f) && f.endsWith(CODE_EXTENSION)).sort();
+  const files = readdirSync(SEEDS_DIR)
+    .filter((f) => /^\d{2}-[a-z0-9-]+\.(ts|mjs)$/.test(f) && f.endsWith(CODE_EXTENSION))
+    .sort();
   for (const file of files) {
     const mod = (await import(pathToFileURL(join(SEEDS_DIR, file)).href)) as { seed: (db: Db) => Promise<void> };
     await mod.seed(db);

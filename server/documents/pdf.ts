@@ -127,14 +127,14 @@ export async function createPdf(options: PdfOptions): Promise<PdfWriter> {
       const labelWidth = opts.labelWidth ?? Math.min(130, width * 0.35);
       for (const [label, value] of rows) {
         doc.font(FONT_REGULAR).fontSize(BODY_SIZE);
-        const height = Math.max(
-          doc.heightOfString(label, { width: labelWidth - 6 }),
-          doc.heightOfString(value || '—', { width: width - labelWidth }),
-        );
+        const height = Math.max(doc.heightOfString(label, { width: labelWidth - 6 }), doc.heightOfString(value || '—', { width: width - labelWidth }));
         writer.ensureSpace(height + 2);
         const y = doc.y;
         doc.fillColor('#555555').text(label, left, y, { width: labelWidth - 6 });
-        doc.fillColor('#111111').font(FONT_BOLD).text(value || '—', left + labelWidth, y, { width: width - labelWidth });
+        doc
+          .fillColor('#111111')
+          .font(FONT_BOLD)
+          .text(value || '—', left + labelWidth, y, { width: width - labelWidth });
         doc.font(FONT_REGULAR);
         doc.y = y + height + 2;
       }

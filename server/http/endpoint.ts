@@ -127,11 +127,7 @@ export function apiRouter() {
   );
   const add =
     (method: Method) =>
-    <P extends z.ZodType = z.ZodType, Q extends z.ZodType = z.ZodType, B extends z.ZodType = z.ZodType>(
-      path: string,
-      spec: EndpointSpec<P, Q, B>,
-      handler: EndpointHandler<Out<P>, Out<Q>, Out<B>>,
-    ) => {
+    <P extends z.ZodType = z.ZodType, Q extends z.ZodType = z.ZodType, B extends z.ZodType = z.ZodType>(path: string, spec: EndpointSpec<P, Q, B>, handler: EndpointHandler<Out<P>, Out<Q>, Out<B>>) => {
       const run = async (req: Request, res: Response, next: NextFunction) => {
         try {
           checkRequestShape(req);

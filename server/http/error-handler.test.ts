@@ -24,10 +24,7 @@ describe('database errors as answers', () => {
     const KnexTimeout = class extends Error {
       name = 'KnexTimeoutError';
     };
-    const errors = [
-      ...['40P01', '40001', '55P03'].map((code) => Object.assign(new Error('conflict'), { code })),
-      new KnexTimeout('Knex: Timeout acquiring a connection. The pool is probably full.'),
-    ];
+    const errors = [...['40P01', '40001', '55P03'].map((code) => Object.assign(new Error('conflict'), { code })), new KnexTimeout('Knex: Timeout acquiring a connection. The pool is probably full.')];
     for (const err of errors) {
       const res = await request(failingWith(err)).get('/x');
       expect(res.status).toBe(503);

@@ -102,7 +102,9 @@ function keepAnswer(db: Db, res: Response, id: { user_id: number; key: string; r
     const text = Buffer.isBuffer(body) ? body.toString('utf8') : typeof body === 'string' ? body : body === undefined ? '' : JSON.stringify(body);
     const write =
       res.statusCode < 400
-        ? db('idempotency_keys').where(id).update({ status: res.statusCode, content_type: String(res.getHeader('content-type') ?? 'application/json; charset=utf-8'), body: text })
+        ? db('idempotency_keys')
+            .where(id)
+            .update({ status: res.statusCode, content_type: String(res.getHeader('content-type') ?? 'application/json; charset=utf-8'), body: text })
         : db('idempotency_keys').where(id).whereNull('status').delete();
     write.then(
       () => send(body as never),
@@ -111,6 +113,11 @@ function keepAnswer(db: Db, res: Response, id: { user_id: number; key: string; r
     return res;
   }) as Response['send'];
   res.once('close', () => {
-    if (!filed) db('idempotency_keys').where(id).whereNull('status').delete().catch(() => undefined);
+    if (!filed)
+      db('idempotency_keys')
+        .where(id)
+        .whereNull('status')
+        .delete()
+        .catch(() => undefined);
   });
 }

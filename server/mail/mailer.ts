@@ -38,7 +38,10 @@ export function createSmtpMailer(smtpUrl: string, from: string): Mailer {
     },
     close() {
       closed = true;
-      void transport?.then((t) => t.close(), () => undefined);
+      void transport?.then(
+        (t) => t.close(),
+        () => undefined,
+      );
     },
   };
 }

@@ -55,14 +55,15 @@ export const newWorkerId = () => `${hostname()}:${process.pid}:${randomBytes(3).
 export async function claimDue(db: Db, workerId: string, limit: number, leaseMs: number, now = new Date()): Promise<OutboxRow[]> {
   const at = now.toISOString();
   const leaseCutoff = new Date(now.getTime() - leaseMs).toISOString();
-  const due = (q: ReturnType<Db>) =>
-    q.where((w) => w.where({ status: 'queued' }).andWhere('next_attempt_at', '<=', at)).orWhere((w) => w.where({ status: 'sending' }).andWhere('claimed_at', '<', leaseCutoff));
+  const due = (q: ReturnType<Db>) => q.where((w) => w.where({ status: 'queued' }).andWhere('next_attempt_at', '<=', at)).orWhere((w) => w.where({ status: 'sending' }).andWhere('claimed_at', '<', leaseCutoff));
   const mark = { status: 'sending', claimed_by: workerId, claimed_at: at, attempts: db.raw('attempts + 1') };
   if (dialectOf(db) === 'postgres') {
     return db.transaction(async (trx) => {
       const ids = (await due(trx('mail_outbox')).orderBy('next_attempt_at').orderBy('id').limit(limit).forUpdate().skipLocked().pluck('id')) as number[];
       if (ids.length === 0) return [];
-      const rows = (await trx('mail_outbox').whereIn('id', ids).update({ ...mark, attempts: trx.raw('attempts + 1') }, '*')) as OutboxRow[];
+      const rows = (await trx('mail_outbox')
+        .whereIn('id', ids)
+        .update({ ...mark, attempts: trx.raw('attempts + 1') }, '*')) as OutboxRow[];
       return rows.sort((a, b) => a.id - b.id);
     });
   }
@@ -93,11 +94,7 @@ export interface MailWorker {
  * servers and clients use to drop the second copy. A failed send waits with exponential backoff and
  * is marked failed after the last attempt, its error kept on the row.
  */
-export function createMailWorker(
-  deps: { db: Db; mailer: Mailer; logger: Logger },
-  options: Partial<MailWorkerOptions> = {},
-  renderers: Record<string, AttachmentRenderer> = {},
-): MailWorker {
+export function createMailWorker(deps: { db: Db; mailer: Mailer; logger: Logger }, options: Partial<MailWorkerOptions> = {}, renderers: Record<string, AttachmentRenderer> = {}): MailWorker {
   const { db, mailer, logger } = deps;
   const o: MailWorkerOptions = { ...DEFAULT_MAIL_WORKER_OPTIONS, ...options };
   const id = newWorkerId();
@@ -130,9 +127,7 @@ export function createMailWorker(
   async function sendOne(row: OutboxRow): Promise<void> {
     try {
       const attachments = await attachmentsOf(row);
-      await withTimeout(
-        mailer.send({ to: row.recipient, subject: row.subject, text: row.text, html: row.html ?? '', messageId: row.message_id, ...(attachments.length > 0 ? { attachments } : {}) }),
-      );
+      await withTimeout(mailer.send({ to: row.recipient, subject: row.subject, text: row.text, html: row.html ?? '', messageId: row.message_id, ...(attachments.length > 0 ? { attachments } : {}) }));
     } catch (err) {
       const error = (err instanceof Error ? err.message : String(err)).slice(0, 2000);
       const last = row.attempts >= o.maxAttempts;

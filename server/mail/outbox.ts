@@ -10,9 +10,7 @@ import type { MailMessage } from './mailer';
  * a reference that the worker renders when it sends (a delivery note with its photos), so the row
  * stays small and the file is made from what the committed change recorded.
  */
-export type OutboxAttachment =
-  | { filename: string; contentType: string; content: Buffer }
-  | { filename: string; contentType: string; render: AttachmentRef };
+export type OutboxAttachment = { filename: string; contentType: string; content: Buffer } | { filename: string; contentType: string; render: AttachmentRef };
 
 /** What a renderer needs to make a file again: its kind and the ids it is made from. */
 export interface AttachmentRef {
@@ -99,9 +97,7 @@ export async function enqueueMail(trx: Db, message: OutboxMessage, domain: strin
 /** The stored attachments of a row: inline files decoded, references left for the worker to render. */
 export function storedAttachments(row: Pick<OutboxRow, 'attachments'>): OutboxAttachment[] {
   if (!row.attachments) return [];
-  return (JSON.parse(row.attachments) as StoredAttachment[]).map((a) =>
-    'render' in a ? a : { filename: a.filename, contentType: a.contentType, content: Buffer.from(a.base64, 'base64') },
-  );
+  return (JSON.parse(row.attachments) as StoredAttachment[]).map((a) => ('render' in a ? a : { filename: a.filename, contentType: a.contentType, content: Buffer.from(a.base64, 'base64') }));
 }
 
 export interface OutboxHealth {

@@ -12,14 +12,7 @@ export interface EmailContent {
 
 /** Every e-mail has a plain-text part and an HTML part built from the same words. */
 export function renderEmail(c: EmailContent): MailMessage {
-  const text = [
-    c.heading,
-    '',
-    ...c.paragraphs.flatMap((p) => [p, '']),
-    ...(c.action ? [`${c.action.label}: ${c.action.url}`, ''] : []),
-    ...(c.footnote ? [c.footnote, ''] : []),
-    '— Ridgeload',
-  ].join('\n');
+  const text = [c.heading, '', ...c.paragraphs.flatMap((p) => [p, '']), ...(c.action ? [`${c.action.label}: ${c.action.url}`, ''] : []), ...(c.footnote ? [c.footnote, ''] : []), '— Ridgeload'].join('\n');
   const html = `<!doctype html><html><body style="margin:0;background:#f4f1ea;font-family:'Work Sans',Arial,sans-serif;color:#1f2a33">
 <table role="presentation" width="100%" cellpadding="0" cellspacing="0"><tr><td align="center" style="padding:24px">
 <table role="presentation" width="560" cellpadding="0" cellspacing="0" style="background:#ffffff;border-radius:8px;border-top:6px solid #b4532a">

@@ -84,8 +84,7 @@ class ApiError extends Error {
   }
 }
 
-const invalid = (message: string, param?: string, code = 'parameter_invalid') =>
-  new ApiError(400, { type: 'invalid_request_error', code, message, ...(param ? { param } : {}) });
+const invalid = (message: string, param?: string, code = 'parameter_invalid') => new ApiError(400, { type: 'invalid_request_error', code, message, ...(param ? { param } : {}) });
 
 function readBody(req: IncomingMessage): Promise<string> {
   return new Promise((resolve, reject) => {
@@ -309,7 +308,10 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
       const seen = idempotent.get(key);
       if (seen) {
         if (seen.fingerprint !== fingerprint) {
-          send(400, { type: 'idempotency_error', message: `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.` });
+          send(400, {
+            type: 'idempotency_error',
+            message: `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.`,
+          });
         } else {
           send(seen.status, seen.body, true);
         }

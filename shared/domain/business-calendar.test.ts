@@ -1,16 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  BusinessCalendar,
-  addDays,
-  addMonths,
-  dateInZone,
-  daysBetween,
-  isIsoDate,
-  isValidTimeZone,
-  isWorkingDay,
-  nextWorkingDay,
-  startOfWeek,
-} from './business-calendar';
+import { BusinessCalendar, addDays, addMonths, dateInZone, daysBetween, isIsoDate, isValidTimeZone, isWorkingDay, nextWorkingDay, startOfWeek } from './business-calendar';
 
 describe('business calendar', () => {
   it('takes the day from the firm time zone, not from UTC', () => {

@@ -2,14 +2,7 @@
 export const ORGANISATION_KINDS = ['contractor', 'merchant'] as const;
 export type OrganisationKind = (typeof ORGANISATION_KINDS)[number];
 
-export const ROLES = [
-  'contractor_owner',
-  'contractor_estimator',
-  'merchant_owner',
-  'merchant_sales',
-  'merchant_dispatcher',
-  'driver',
-] as const;
+export const ROLES = ['contractor_owner', 'contractor_estimator', 'merchant_owner', 'merchant_sales', 'merchant_dispatcher', 'driver'] as const;
 export type Role = (typeof ROLES)[number];
 
 /** Which roles a member of each kind of organisation may hold. Drivers work for merchants. */

@@ -110,20 +110,13 @@ describe('batten cutting plan (NHBC Standards 7.2.17, published)', () => {
   it('keeps to the rules on any face, verge or raking (property)', () => {
     const edge = fc.constantFrom<EdgeKind>('verge', 'hip', 'valley', 'abutment');
     fc.assert(
-      fc.property(
-        fc.integer({ min: 300, max: 40_000 }),
-        fc.double({ min: 0, max: 1.6, noNaN: true }),
-        fc.integer({ min: 500, max: 15_000 }),
-        edge,
-        edge,
-        (eaves, topRatio, rafter, left, right) => {
-          const bothVerges = left === 'verge' && right === 'verge';
-          const shape: FaceShape = { eaves_mm: eaves, top_mm: bothVerges ? eaves : Math.round(eaves * topRatio), rafter_mm: rafter, left, right };
-          const p = plan(shape);
-          if (p.forced_short > 0) return false;
-          return breaches(p.rows, sys) === null;
-        },
-      ),
+      fc.property(fc.integer({ min: 300, max: 40_000 }), fc.double({ min: 0, max: 1.6, noNaN: true }), fc.integer({ min: 500, max: 15_000 }), edge, edge, (eaves, topRatio, rafter, left, right) => {
+        const bothVerges = left === 'verge' && right === 'verge';
+        const shape: FaceShape = { eaves_mm: eaves, top_mm: bothVerges ? eaves : Math.round(eaves * topRatio), rafter_mm: rafter, left, right };
+        const p = plan(shape);
+        if (p.forced_short > 0) return false;
+        return breaches(p.rows, sys) === null;
+      }),
       { numRuns: 300 },
     );
   });

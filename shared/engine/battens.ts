@@ -142,9 +142,7 @@ export function planFaceBattens(
     result.crossings += n;
     if (supportsByRow) supportsByRow[r] = n;
 
-    const row: BattenRow | undefined = rows
-      ? { y_mm: y, from_mm: from, to_mm: to, pieces_mm: [], joints_mm: [], supports: n }
-      : undefined;
+    const row: BattenRow | undefined = rows ? { y_mm: y, from_mm: from, to_mm: to, pieces_mm: [], joints_mm: [], supports: n } : undefined;
 
     let i = 0;
     for (;;) {

@@ -81,14 +81,7 @@ export function vergeCourse(fit: VergeFit, broken: boolean, out?: CoursePieces):
  * rake. In a broken course the verge piece is a half. The raking cut is always counted: the edge
  * crosses the tile on a slant.
  */
-export function vergeToRakeCourse(
-  courseWidthMm: number,
-  overhangMm: number,
-  tileWidthMm: number,
-  coverMm: number,
-  broken: boolean,
-  out?: CoursePieces,
-): CoursePieces {
+export function vergeToRakeCourse(courseWidthMm: number, overhangMm: number, tileWidthMm: number, coverMm: number, broken: boolean, out?: CoursePieces): CoursePieces {
   if (!(courseWidthMm > 0)) return pieces(out, 0, 0, 0, 0);
   const span = courseWidthMm + overhangMm;
   if (!broken) {

@@ -20,8 +20,17 @@ const PLAIN_TILE = {
 /** 8940 mm between verges takes 30 default tiles at nominal cover; 2970 mm up the slope gives 9 courses. */
 function face(pitch: number, left: EdgeKind = 'verge', right: EdgeKind = 'verge', top_mm = 8_940, quantity = 1): Face {
   return {
-    building: '1', face: 'F', quantity, pitch_deg: pitch, rafter_mm: 370 + 8 * 320 + 40, run_mm: 1,
-    eaves_mm: 8_940, top_mm, left, right, top: 'ridge',
+    building: '1',
+    face: 'F',
+    quantity,
+    pitch_deg: pitch,
+    rafter_mm: 370 + 8 * 320 + 40,
+    run_mm: 1,
+    eaves_mm: 8_940,
+    top_mm,
+    left,
+    right,
+    top: 'ridge',
   };
 }
 

@@ -80,18 +80,7 @@ export function setOutCourses(rafterMm: number, pitchDeg: number, system: RoofSy
   return fill(out, headlap, maxG, distance / k, k, doubleLap ? k + 2 : k + 1, first, top, false, doubleLap);
 }
 
-function fill(
-  out: CourseSetOut | undefined,
-  headlap: number,
-  maxG: number,
-  gauge: number,
-  gauges: number,
-  courses: number,
-  first: number,
-  top: number,
-  tiny: boolean,
-  eavesCourse: boolean,
-): CourseSetOut {
+function fill(out: CourseSetOut | undefined, headlap: number, maxG: number, gauge: number, gauges: number, courses: number, first: number, top: number, tiny: boolean, eavesCourse: boolean): CourseSetOut {
   const c: CourseSetOut = out ?? {
     headlap_mm: 0,
     max_gauge_mm: 0,

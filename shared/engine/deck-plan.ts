@@ -176,9 +176,7 @@ export function planDeck(lorry: DeckLorry, drops: readonly DeckDrop[], loaded: R
     faces: all[i].pallet.faces,
     loaded: loaded.has(palletKey(all[i].dropInfo.order_id, all[i].pallet.n)),
   }));
-  const loading_sequence = positions
-    .map((_, idx) => idx)
-    .sort((a, b) => positions[b].drop - positions[a].drop || positions[b].pallet - positions[a].pallet);
+  const loading_sequence = positions.map((_, idx) => idx).sort((a, b) => positions[b].drop - positions[a].drop || positions[b].pallet - positions[a].pallet);
 
   const heaviest = Math.max(0, ...positions.map((p) => p.weight_kg));
   if (Math.abs(left - right) > heaviest + 0.001) {

@@ -60,7 +60,47 @@ describe('a fixed job of 40 houses', () => {
 });
 
 // Recorded from engine 1.2.0 before its memory and speed work.
-const TILED_TOTALS = { tiles: 58110, tiles_order: 61016, half_tiles: 956, cut_tiles: 5772, batten_m: 15613.42, batten_lengths: 3579, batten_nails: 34506, tile_nails: 58570, clips: 8781, ridge_tiles: 1258, hip_tiles: 2108, underlay_rolls: 140, pallets: 339, weight_kg: 303395.9, eaves_tiles: 0, top_tiles: 0, tile_and_half: 0, dry_verge_units: 0, valley_units: 0 };
-const SLATED_TOTALS = { tiles: 96727, tiles_order: 101564, half_tiles: 0, cut_tiles: 8169, batten_m: 24678.18, batten_lengths: 5680, batten_nails: 54662, tile_nails: 221726, clips: 0, ridge_tiles: 1235, hip_tiles: 2085, underlay_rolls: 137, pallets: 195, weight_kg: 294947.6, eaves_tiles: 7973, top_tiles: 4879, tile_and_half: 1284, dry_verge_units: 3262, valley_units: 40 };
+const TILED_TOTALS = {
+  tiles: 58110,
+  tiles_order: 61016,
+  half_tiles: 956,
+  cut_tiles: 5772,
+  batten_m: 15613.42,
+  batten_lengths: 3579,
+  batten_nails: 34506,
+  tile_nails: 58570,
+  clips: 8781,
+  ridge_tiles: 1258,
+  hip_tiles: 2108,
+  underlay_rolls: 140,
+  pallets: 339,
+  weight_kg: 303395.9,
+  eaves_tiles: 0,
+  top_tiles: 0,
+  tile_and_half: 0,
+  dry_verge_units: 0,
+  valley_units: 0,
+};
+const SLATED_TOTALS = {
+  tiles: 96727,
+  tiles_order: 101564,
+  half_tiles: 0,
+  cut_tiles: 8169,
+  batten_m: 24678.18,
+  batten_lengths: 5680,
+  batten_nails: 54662,
+  tile_nails: 221726,
+  clips: 0,
+  ridge_tiles: 1235,
+  hip_tiles: 2085,
+  underlay_rolls: 137,
+  pallets: 195,
+  weight_kg: 294947.6,
+  eaves_tiles: 7973,
+  top_tiles: 4879,
+  tile_and_half: 1284,
+  dry_verge_units: 3262,
+  valley_units: 40,
+};
 const TILED_FINGERPRINT = '319087:d98435ed';
 const SLATED_FINGERPRINT = '308072:43132191';

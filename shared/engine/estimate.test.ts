@@ -29,29 +29,86 @@ describe('the estimate', () => {
     expect(r.engine_version).toBe(ENGINE_VERSION);
     expect(Object.keys(r.faces[0])).toEqual(
       expect.arrayContaining([
-        'building', 'face', 'quantity', 'pitch_deg', 'rafter_mm', 'slope_area_m2', 'headlap_mm', 'gauge_mm', 'courses',
-        'tiles_per_course', 'cover_width_mm', 'verge_overhang_mm', 'whole_tiles', 'half_tiles', 'cut_tiles', 'tiles',
-        'batten_m', 'stacks', 'stack_positions', 'load_kg', 'setting_out_marks_mm', 'clips',
+        'building',
+        'face',
+        'quantity',
+        'pitch_deg',
+        'rafter_mm',
+        'slope_area_m2',
+        'headlap_mm',
+        'gauge_mm',
+        'courses',
+        'tiles_per_course',
+        'cover_width_mm',
+        'verge_overhang_mm',
+        'whole_tiles',
+        'half_tiles',
+        'cut_tiles',
+        'tiles',
+        'batten_m',
+        'stacks',
+        'stack_positions',
+        'load_kg',
+        'setting_out_marks_mm',
+        'clips',
       ]),
     );
     expect(Object.keys(r.totals).sort()).toEqual(
       [
-        'slope_area_m2', 'plan_area_m2', 'tiles', 'tiles_order', 'half_tiles', 'cut_tiles', 'batten_m', 'batten_lengths',
-        'batten_nails', 'tile_nails', 'clips', 'ridge_m', 'ridge_tiles', 'hip_m', 'hip_tiles', 'valley_m', 'underlay_rolls', 'pallets', 'weight_kg',
-        'eaves_tiles', 'top_tiles', 'tile_and_half', 'eaves_tiles_order', 'top_tiles_order', 'tile_and_half_order', 'openings_area_m2',
-        'roof_windows', 'hatches', 'flashings', 'verge_m', 'eaves_m', 'dry_verge_units', 'ridge_end_caps', 'hip_irons', 'valley_units',
+        'slope_area_m2',
+        'plan_area_m2',
+        'tiles',
+        'tiles_order',
+        'half_tiles',
+        'cut_tiles',
+        'batten_m',
+        'batten_lengths',
+        'batten_nails',
+        'tile_nails',
+        'clips',
+        'ridge_m',
+        'ridge_tiles',
+        'hip_m',
+        'hip_tiles',
+        'valley_m',
+        'underlay_rolls',
+        'pallets',
+        'weight_kg',
+        'eaves_tiles',
+        'top_tiles',
+        'tile_and_half',
+        'eaves_tiles_order',
+        'top_tiles_order',
+        'tile_and_half_order',
+        'openings_area_m2',
+        'roof_windows',
+        'hatches',
+        'flashings',
+        'verge_m',
+        'eaves_m',
+        'dry_verge_units',
+        'ridge_end_caps',
+        'hip_irons',
+        'valley_units',
       ].sort(),
     );
-    expect(r.faces.map((f) => `${f.building}/${f.face}`)).toEqual([
-      'Alder/Front', 'Alder/Back', 'Alder/East hip end', 'Alder/West hip end', 'Birch/Front', 'Birch/Back', 'Birch/Porch',
-    ]);
+    expect(r.faces.map((f) => `${f.building}/${f.face}`)).toEqual(['Alder/Front', 'Alder/Back', 'Alder/East hip end', 'Alder/West hip end', 'Birch/Front', 'Birch/Back', 'Birch/Porch']);
     expect(r.cautions.length).toBeGreaterThan(0);
   });
 
   it('lays a 265 × 165 mm plain tile at 100 mm gauge and about 60 tiles per m² of slope (double-lap rule of the Treatise, published)', () => {
     const face: Face = {
-      building: '1', face: 'Main', quantity: 1, pitch_deg: 40, rafter_mm: 215 + 7_800 + 40, run_mm: 1,
-      eaves_mm: 10_000, top_mm: 10_000, left: 'verge', right: 'verge', top: 'ridge',
+      building: '1',
+      face: 'Main',
+      quantity: 1,
+      pitch_deg: 40,
+      rafter_mm: 215 + 7_800 + 40,
+      run_mm: 1,
+      eaves_mm: 10_000,
+      top_mm: 10_000,
+      left: 'verge',
+      right: 'verge',
+      top: 'ridge',
     };
     const r = estimate([face], roofSystemSchema.parse({ tile: PLAIN_TILE }));
     const f = r.faces[0];
@@ -70,8 +127,17 @@ describe('the estimate', () => {
     // A 500 mm slate at 60.1 mm headlap: maximum gauge (500 − 60.1) ÷ 2 = 219.95 mm (Treatise rule, published).
     const slate = { kind: 'double_lap' as const, length_mm: 500, width_mm: 250, headlap_mm: [{ from_pitch_deg: 20, min_mm: 60.1 }], weight_kg: 2, per_pallet: 800 };
     const face: Face = {
-      building: '1', face: 'Main', quantity: 1, pitch_deg: 30, rafter_mm: 450 + 10 * 219.95 + 40, run_mm: 1,
-      eaves_mm: 5_000, top_mm: 5_000, left: 'verge', right: 'verge', top: 'ridge',
+      building: '1',
+      face: 'Main',
+      quantity: 1,
+      pitch_deg: 30,
+      rafter_mm: 450 + 10 * 219.95 + 40,
+      run_mm: 1,
+      eaves_mm: 5_000,
+      top_mm: 5_000,
+      left: 'verge',
+      right: 'verge',
+      top: 'ridge',
     };
     const f = estimate([face], roofSystemSchema.parse({ tile: slate })).faces[0];
     expect(f.courses).toBe(12);
@@ -114,8 +180,17 @@ describe('the estimate', () => {
 
   it('throws a typed error when called directly with a face the tile cannot be laid at', () => {
     const face: Face = {
-      building: '1', face: 'Flat', quantity: 1, pitch_deg: 10, rafter_mm: 3_000, run_mm: 1,
-      eaves_mm: 5_000, top_mm: 5_000, left: 'verge', right: 'verge', top: 'ridge',
+      building: '1',
+      face: 'Flat',
+      quantity: 1,
+      pitch_deg: 10,
+      rafter_mm: 3_000,
+      run_mm: 1,
+      eaves_mm: 5_000,
+      top_mm: 5_000,
+      left: 'verge',
+      right: 'verge',
+      top: 'ridge',
     };
     expect(() => estimate([face], roofSystemSchema.parse({}))).toThrow(ScheduleRejectedError);
   });
@@ -123,13 +198,7 @@ describe('the estimate', () => {
   it('handles degenerate shapes without throwing: a triangular hip end, a tiny face, a huge quantity', () => {
     const r = ok(
       runEstimateFromCsv(
-        [
-          HEADER,
-          'A,Hip end,1,45,3000,,6000,0,hip,hip,ridge',
-          'A,Sliver,1,45,120,,150,,verge,verge,ridge',
-          'A,Point,1,45,5000,,100,0,hip,verge,mono_ridge',
-          'B,Estate,10000,35,5000,,9000,,verge,verge,ridge',
-        ].join('\n'),
+        [HEADER, 'A,Hip end,1,45,3000,,6000,0,hip,hip,ridge', 'A,Sliver,1,45,120,,150,,verge,verge,ridge', 'A,Point,1,45,5000,,100,0,hip,verge,mono_ridge', 'B,Estate,10000,35,5000,,9000,,verge,verge,ridge'].join('\n'),
       ),
     );
     expect(r.faces[0].tiles).toBeGreaterThan(0);
@@ -141,7 +210,10 @@ describe('the estimate', () => {
   it('runs from a JSON schedule as well, with errors by entry and column', () => {
     const good = runEstimate([{ face: 'Front', pitch_deg: 35, rafter_mm: 4_000, eaves_mm: 9_000 }]);
     expect(good.ok && good.result.faces[0].tiles).toBeGreaterThan(0);
-    const bad = runEstimate([{ face: 'Front', pitch_deg: 35, rafter_mm: 4, eaves_mm: 9_000, left: 'gable' }, { face: 'Back', pitch_deg: 15, rafter_mm: 4_000, eaves_mm: 9_000 }]);
+    const bad = runEstimate([
+      { face: 'Front', pitch_deg: 35, rafter_mm: 4, eaves_mm: 9_000, left: 'gable' },
+      { face: 'Back', pitch_deg: 15, rafter_mm: 4_000, eaves_mm: 9_000 },
+    ]);
     expect(bad).toEqual({
       ok: false,
       errors: [
@@ -151,7 +223,10 @@ describe('the estimate', () => {
     });
     const low = runEstimate([{ face: 'Back', pitch_deg: 15, rafter_mm: 4_000, eaves_mm: 9_000 }]);
     expect(low).toEqual({ ok: false, errors: [{ row: 1, column: 'pitch_deg', message: '15° is below the lowest pitch this tile may be laid at (22.5°)' }] });
-    const twice = runEstimate([{ face: 'Front', pitch_deg: 35, rafter_mm: 4_000, eaves_mm: 9_000 }, { face: 'front', pitch_deg: 35, rafter_mm: 4_000, eaves_mm: 9_000 }]);
+    const twice = runEstimate([
+      { face: 'Front', pitch_deg: 35, rafter_mm: 4_000, eaves_mm: 9_000 },
+      { face: 'front', pitch_deg: 35, rafter_mm: 4_000, eaves_mm: 9_000 },
+    ]);
     expect(twice).toEqual({ ok: false, errors: [{ row: 2, column: 'face', message: "duplicate face 'front' in building '1' (first given at entry 1)" }] });
   });
 
@@ -159,10 +234,7 @@ describe('the estimate', () => {
     const out = runEstimateFromCsv(`${HEADER}\nA,Front,1,35,4000,,-1,,,,\n`, { rafter_spacing_mm: -600 });
     expect(out.ok).toBe(false);
     if (!out.ok) {
-      expect(out.errors.map(formatProblem)).toEqual([
-        'system field rafter_spacing_mm: must be more than 0',
-        'row 2, column eaves_mm: must be a positive number of millimetres',
-      ]);
+      expect(out.errors.map(formatProblem)).toEqual(['system field rafter_spacing_mm: must be more than 0', 'row 2, column eaves_mm: must be a positive number of millimetres']);
     }
   });
 });
@@ -328,17 +400,7 @@ describe('properties of the estimate over generated schedules', () => {
   }, 60_000);
 
   it('rejects a schedule with a bad cell, naming its row and column, and gives no result', () => {
-    const badCell = fc.constantFrom(
-      ['eaves_mm', '-3'],
-      ['eaves_mm', '7.5'],
-      ['rafter_mm', 'long'],
-      ['pitch_deg', '0'],
-      ['pitch_deg', '12'],
-      ['quantity', '1.5'],
-      ['left', 'gable'],
-      ['top', 'peak'],
-      ['face', ''],
-    );
+    const badCell = fc.constantFrom(['eaves_mm', '-3'], ['eaves_mm', '7.5'], ['rafter_mm', 'long'], ['pitch_deg', '0'], ['pitch_deg', '12'], ['quantity', '1.5'], ['left', 'gable'], ['top', 'peak'], ['face', '']);
     fc.assert(
       fc.property(fc.array(goodFace, { minLength: 1, maxLength: 6 }).map(uniqueFaces), fc.nat(), badCell, (faces, pick, [column, value]) => {
         const idx = pick % faces.length;
@@ -359,10 +421,16 @@ describe('properties of the estimate over generated schedules', () => {
 
   it('never throws on arbitrary text: it is a result or a list of problems', () => {
     fc.assert(
-      fc.property(fc.oneof(fc.string({ maxLength: 300 }), fc.array(fc.array(fc.string({ maxLength: 12 }), { maxLength: 12 }), { maxLength: 8 }).map((rows) => [HEADER, ...rows.map((r) => r.join(','))].join('\n'))), (text) => {
-        const out = runEstimateFromCsv(text);
-        return out.ok ? out.result.faces.length > 0 : out.errors.length > 0 && out.errors.every((e) => typeof e.message === 'string' && e.message.length > 0);
-      }),
+      fc.property(
+        fc.oneof(
+          fc.string({ maxLength: 300 }),
+          fc.array(fc.array(fc.string({ maxLength: 12 }), { maxLength: 12 }), { maxLength: 8 }).map((rows) => [HEADER, ...rows.map((r) => r.join(','))].join('\n')),
+        ),
+        (text) => {
+          const out = runEstimateFromCsv(text);
+          return out.ok ? out.result.faces.length > 0 : out.errors.length > 0 && out.errors.every((e) => typeof e.message === 'string' && e.message.length > 0);
+        },
+      ),
       { numRuns: 300 },
     );
   }, 60_000);

@@ -2,26 +2,10 @@ import { checkOpeningsAgainstFaces, openingsSchema, type Opening } from '../sche
 import type { RoofSystem, RoofSystemInput } from '../schemas/roof-system.schema';
 import { FaceLookup, faceKey, scheduleSchema, type Face, type Schedule } from '../schemas/schedule.schema';
 import { JointScratch, PieceTally, planFaceBattens, planStockLengths, type BattenRow, type FaceBattens } from './battens';
-import {
-  doubleLapVergeCourse,
-  halfToTileAndHalf,
-  isBrokenCourse,
-  isDoubleLapBrokenCourse,
-  rakeToRakeCourse,
-  tilesForHalves,
-  vergeCourse,
-  vergeToRakeCourse,
-  type CoursePieces,
-} from './bond';
+import { doubleLapVergeCourse, halfToTileAndHalf, isBrokenCourse, isDoubleLapBrokenCourse, rakeToRakeCourse, tilesForHalves, vergeCourse, vergeToRakeCourse, type CoursePieces } from './bond';
 import { clipRule, clipsEveryTile, courseClips, type ClipRule } from './clips';
 import { lowestPitch, rowHeight, setOutCourses, type CourseSetOut } from './courses';
-import {
-  EVERY_TILE_CLIP_PITCH_DEG,
-  EVERY_TILE_PITCH_DEG,
-  MAX_DELIVERY_PALLETS,
-  RIDGE_BALANCE_TOLERANCE,
-  SAFETY_CAUTIONS,
-} from './defaults';
+import { EVERY_TILE_CLIP_PITCH_DEG, EVERY_TILE_PITCH_DEG, MAX_DELIVERY_PALLETS, RIDGE_BALANCE_TOLERANCE, SAFETY_CAUTIONS } from './defaults';
 import { planDelivery } from './delivery';
 import { battenNails, nailedPieces } from './fixings';
 import { insets, isRaking, planAreaM2, rakingEdgeLength, slopeAreaM2, widthAt, type FaceShape } from './geometry';
@@ -64,11 +48,7 @@ export class ScheduleRejectedError extends Error {
  * Problems of checked faces against a system: a pitch below the tile's lowest band. `rowOf` turns a
  * face's index into the row number to report.
  */
-export function checkFacesAgainstSystem(
-  faces: readonly Face[],
-  system: RoofSystem,
-  rowOf: (index: number) => number = (i) => i + 1,
-): InputProblem[] {
+export function checkFacesAgainstSystem(faces: readonly Face[], system: RoofSystem, rowOf: (index: number) => number = (i) => i + 1): InputProblem[] {
   const low = lowestPitch(system.tile.headlap_mm);
   const problems: InputProblem[] = [];
   faces.forEach((f, i) => {
@@ -163,13 +143,7 @@ function addCourse(t: PieceCounts, course: CoursePieces, i: number, courses: num
 const FLASHING_PAST_SIDES_MM = 2 * 150;
 
 /** What the openings of one copy of a face take out and add, applied to its counted pieces. */
-function applyOpenings(
-  openings: readonly Opening[] | undefined,
-  gaugeMm: number,
-  coverMm: number,
-  counts: { whole: number; cut: number; removed: number; batten_mm: number; area_mm2: number },
-  scratch: Scratch,
-) {
+function applyOpenings(openings: readonly Opening[] | undefined, gaugeMm: number, coverMm: number, counts: { whole: number; cut: number; removed: number; batten_mm: number; area_mm2: number }, scratch: Scratch) {
   if (!openings) return;
   for (const o of openings) {
     const q = o.quantity;
@@ -219,15 +193,7 @@ function countVergeCourses(fit: VergeFit, C: number, system: RoofSystem, everyTi
  * Pieces, nails and clips of the courses of a face with a raking edge, each course as wide as the
  * face at it; the widest course and the most tiles in a course (into scratch).
  */
-function countRakingCourses(
-  shape: FaceShape,
-  setOut: CourseSetOut,
-  oneVerge: boolean,
-  overhang: number,
-  system: RoofSystem,
-  everyTileClipped: boolean,
-  scratch: Scratch,
-) {
+function countRakingCourses(shape: FaceShape, setOut: CourseSetOut, oneVerge: boolean, overhang: number, system: RoofSystem, everyTileClipped: boolean, scratch: Scratch) {
   const tile = system.tile;
   const cover = tile.cover_width_mm;
   const doubleLap = tile.kind === 'double_lap';
@@ -243,9 +209,7 @@ function countRakingCourses(
     const width = Math.max(widthAt(shape, Math.max(0, y - tile.length_mm)), widthAt(shape, Math.min(shape.rafter_mm, y)));
     if (width > widest) widest = width;
     const brokenHere = doubleLap ? isDoubleLapBrokenCourse(i, C) : isBrokenCourse(tile.bond, i);
-    const course: CoursePieces = oneVerge
-      ? vergeToRakeCourse(width, overhang, tile.width_mm, cover.nominal, brokenHere, scratch.course)
-      : rakeToRakeCourse(width, tile.width_mm, cover.nominal, scratch.course);
+    const course: CoursePieces = oneVerge ? vergeToRakeCourse(width, overhang, tile.width_mm, cover.nominal, brokenHere, scratch.course) : rakeToRakeCourse(width, tile.width_mm, cover.nominal, scratch.course);
     if (doubleLap) halfToTileAndHalf(course);
     addCourse(pieces, course, i, C, doubleLap);
     nailed += nailedPieces(system.fixing.rule, course, i, C);
@@ -259,14 +223,7 @@ function countRakingCourses(
   scratch.widest = widest;
 }
 
-function computeFace(
-  face: Face,
-  system: RoofSystem,
-  tally: PieceTally,
-  warnings: EngineWarning[],
-  scratch: Scratch,
-  openings?: readonly Opening[],
-): FaceResult {
+function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings: EngineWarning[], scratch: Scratch, openings?: readonly Opening[]): FaceResult {
   const { tile, setting_out: so } = system;
   const shape: FaceShape = face;
   const inset = insets(shape, scratch.inset);
@@ -313,12 +270,7 @@ function computeFace(
   if (leftVerge && rightVerge) {
     const fit = fitBetweenVerges(face.eaves_mm, tile.width_mm, cover, so.verge_overhang_mm);
     if (!fit.fits) {
-      warnFace(
-        warnings,
-        face,
-        'no_whole_tile_fit',
-        `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`,
-      );
+      warnFace(warnings, face, 'no_whole_tile_fit', `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`);
     }
     countVergeCourses(fit, C, system, everyTileClipped, scratch);
     nailed = scratch.nailed;
@@ -391,12 +343,7 @@ function computeFace(
 
   const battens = planFaceBattens(shape, inset, setOut, system, tally, face.quantity, false, scratch.joints, scratch.supportsByRow, scratch.battens);
   if (battens.stagger_relaxed > 0) {
-    warnFace(
-      warnings,
-      face,
-      'batten_joints_not_staggered',
-      `${battens.stagger_relaxed} batten joint(s) could not be staggered from the three rows below; check the cutting on site`,
-    );
+    warnFace(warnings, face, 'batten_joints_not_staggered', `${battens.stagger_relaxed} batten joint(s) could not be staggered from the three rows below; check the cutting on site`);
   }
   if (battens.forced_short > 0) {
     warnFace(warnings, face, 'short_batten', `${battens.forced_short} batten piece(s) had to be shorter than the minimum length or rafter count`);
@@ -621,15 +568,7 @@ function checkBalance(warnings: EngineWarning[], building: string, ridge: RidgeB
 }
 
 /** One building's ridge, hip and valley lengths and tiles (into the tally), its ridges and their warnings. */
-function finishBuilding(
-  b: BuildingFaces,
-  schedule: Schedule,
-  faces: readonly FaceResult[],
-  system: RoofSystem,
-  job: JobTally,
-  ridges: RidgeBalance[],
-  warnings: EngineWarning[],
-) {
+function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly FaceResult[], system: RoofSystem, job: JobTally, ridges: RidgeBalance[], warnings: EngineWarning[]) {
   const building = b.name;
   const edges = b.edges.finish(system.ridge.cover_mm, system.hip.cover_mm);
   job.ridgeMm += edges.ridge_mm;
@@ -680,12 +619,7 @@ function finishBuilding(
     checkBalance(warnings, building, ridge);
   }
   if (guessed.length > 0) {
-    warnBuilding(
-      warnings,
-      building,
-      'ridge_grouping_guessed',
-      `${guessed.length} face(s) meeting a ridge name no ridge: they were paired by equal top length, which can hide an uneven load; give the ridge column`,
-    );
+    warnBuilding(warnings, building, 'ridge_grouping_guessed', `${guessed.length} face(s) meeting a ridge name no ridge: they were paired by equal top length, which can hide an uneven load; give the ridge column`);
   }
   const paired = pairRidgeFaces(guessed);
   for (const pair of paired.pairs) {
@@ -856,7 +790,6 @@ function finishJob(faces: FaceResult[], system: RoofSystem, tally: PieceTally, j
   };
 }
 
-
 /** One face in full, for a drawing of its battens, joints, stacks and chalk lines. */
 export interface FaceDetail {
   face: FaceResult;
@@ -874,7 +807,11 @@ export function faceDetail(face: Face, system: RoofSystem, openings: readonly Op
   const problems = checkFacesAgainstSystem([face], system);
   if (problems.length > 0) throw new ScheduleRejectedError(problems);
   const key = faceKey(face.building, face.face);
-  const result = estimate([face], system, openings.filter((o) => faceKey(o.building, o.face) === key)).faces[0];
+  const result = estimate(
+    [face],
+    system,
+    openings.filter((o) => faceKey(o.building, o.face) === key),
+  ).faces[0];
   const setOut = setOutCourses(face.rafter_mm, face.pitch_deg, system) as CourseSetOut;
   const plan = planFaceBattens(face, insets(face), setOut, system, null, 1, true);
   const rows = plan.rows ?? [];
@@ -891,9 +828,7 @@ export function faceDetail(face: Face, system: RoofSystem, openings: readonly Op
   };
 }
 
-export type RunOutcome =
-  | { ok: true; result: EngineResult }
-  | { ok: false; errors: InputProblem[] };
+export type RunOutcome = { ok: true; result: EngineResult } | { ok: false; errors: InputProblem[] };
 
 function withParseWarnings(result: EngineResult, parseWarnings: readonly ScheduleWarning[]): EngineResult {
   if (parseWarnings.length === 0) return result;

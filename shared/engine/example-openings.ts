@@ -5,10 +5,4 @@
  */
 export const EXAMPLE_OPENINGS_FILENAME = 'openings.csv';
 
-export const EXAMPLE_OPENINGS_CSV = [
-  'building,face,kind,width_mm,height_mm,quantity',
-  'Alder,Back,roof_window,780,1180,2',
-  'Birch,Front,chimney,900,700,1',
-  'Birch,Back,hatch,600,900,1',
-  '',
-].join('\r\n');
+export const EXAMPLE_OPENINGS_CSV = ['building,face,kind,width_mm,height_mm,quantity', 'Alder,Back,roof_window,780,1180,2', 'Birch,Front,chimney,900,700,1', 'Birch,Back,hatch,600,900,1', ''].join('\r\n');

@@ -1,16 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  extentAt,
-  hipRafterLength,
-  insets,
-  planAreaM2,
-  rafterFromRun,
-  rakingEdgeLength,
-  slopeAreaM2,
-  slopeFactor,
-  widthAt,
-  type FaceShape,
-} from './geometry';
+import { extentAt, hipRafterLength, insets, planAreaM2, rafterFromRun, rakingEdgeLength, slopeAreaM2, slopeFactor, widthAt, type FaceShape } from './geometry';
 
 const FT = 304.8; // mm in a foot
 

@@ -80,12 +80,7 @@ export interface Extent {
  * distances from the right-hand end of the eaves, measured leftwards. y is held within the face.
  * Writes into `out` when given (hot loops reuse one object).
  */
-export function extentAt(
-  face: FaceShape,
-  inset: { left: number; right: number },
-  y: number,
-  out: Extent = { from: 0, to: 0 },
-): Extent {
+export function extentAt(face: FaceShape, inset: { left: number; right: number }, y: number, out: Extent = { from: 0, to: 0 }): Extent {
   const t = face.rafter_mm > 0 ? Math.min(Math.max(y / face.rafter_mm, 0), 1) : 0;
   const from = inset.right * t;
   const to = face.eaves_mm - inset.left * t;

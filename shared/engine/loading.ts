@@ -22,12 +22,7 @@ export interface FaceLoading {
  * size). `rowPositions` gives the rafters crossed by each loading row, top row first (its first `rows`
  * entries).
  */
-export function planFaceLoading(
-  tiles: number,
-  rowPositions: readonly number[],
-  stackSize: number,
-  rows: number = rowPositions.length,
-): FaceLoading {
+export function planFaceLoading(tiles: number, rowPositions: readonly number[], stackSize: number, rows: number = rowPositions.length): FaceLoading {
   const stacks = Math.ceil(tiles / stackSize);
   let positions = 0;
   for (let i = 0; i < rows; i++) positions += rowPositions[i];

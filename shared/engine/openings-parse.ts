@@ -1,23 +1,17 @@
 import Papa from 'papaparse';
-import {
-  OPENING_COLUMNS,
-  checkOpeningsAgainstFaces,
-  normaliseOpeningKind,
-  openingKindProblem,
-  type Opening,
-  type OpeningColumn,
-  type OpeningKind,
-} from '../schemas/openings.schema';
+import { OPENING_COLUMNS, checkOpeningsAgainstFaces, normaliseOpeningKind, openingKindProblem, type Opening, type OpeningColumn, type OpeningKind } from '../schemas/openings.schema';
 import { SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from '../schemas/schedule.schema';
 import type { InputProblem } from './result';
 import { detectDelimiter } from './schedule-parse';
 
-export type OpeningsParse =
-  | { ok: true; openings: Opening[]; warnings: Array<{ code: 'unknown_column'; building: null; face: null; message: string }> }
-  | { ok: false; errors: InputProblem[] };
+export type OpeningsParse = { ok: true; openings: Opening[]; warnings: Array<{ code: 'unknown_column'; building: null; face: null; message: string }> } | { ok: false; errors: InputProblem[] };
 
 function normaliseHeader(raw: string): string {
-  return raw.replace(/^\uFEFF/, '').trim().toLowerCase().replace(/[\s-]+/g, '_');
+  return raw
+    .replace(/^\uFEFF/, '')
+    .trim()
+    .toLowerCase()
+    .replace(/[\s-]+/g, '_');
 }
 
 function readNumber(raw: string, decimalComma: boolean): number | null {

@@ -100,18 +100,12 @@ describe('hips and valleys', () => {
   });
 
   it('warns when a building lists an odd number of hip edges', () => {
-    const r = estimate(
-      [face({ face: 'Front', eaves_mm: 8_000, top_mm: 4_000, rafter_mm: 4_000, left: 'hip', right: 'verge' })],
-      roofSystemSchema.parse({}),
-    );
+    const r = estimate([face({ face: 'Front', eaves_mm: 8_000, top_mm: 4_000, rafter_mm: 4_000, left: 'hip', right: 'verge' })], roofSystemSchema.parse({}));
     expect(r.warnings.map((w) => w.code)).toContain('odd_hip_edges');
   });
 
   it('applies the ridge and hip waste to the tiles ordered', () => {
-    const r = estimate(
-      [face({ face: 'A', eaves_mm: 8_400, rafter_mm: 4_000 }), face({ face: 'B', eaves_mm: 8_400, rafter_mm: 4_000 })],
-      roofSystemSchema.parse({ waste_pct: { ridge_hip: 10 } }),
-    );
+    const r = estimate([face({ face: 'A', eaves_mm: 8_400, rafter_mm: 4_000 }), face({ face: 'B', eaves_mm: 8_400, rafter_mm: 4_000 })], roofSystemSchema.parse({ waste_pct: { ridge_hip: 10 } }));
     expect(r.totals.ridge_m).toBe(8.4);
     expect(r.totals.ridge_tiles).toBe(22); // 20 net + 10 %
   });

@@ -37,7 +37,15 @@ describe('reading a roof system', () => {
   });
 
   it('sorts headlap bands by pitch', () => {
-    const r = parseRoofSystem({ tile: { ...DEFAULT_TILE, headlap_mm: [{ from_pitch_deg: 30, min_mm: 75 }, { from_pitch_deg: 22.5, min_mm: 100 }] } });
+    const r = parseRoofSystem({
+      tile: {
+        ...DEFAULT_TILE,
+        headlap_mm: [
+          { from_pitch_deg: 30, min_mm: 75 },
+          { from_pitch_deg: 22.5, min_mm: 100 },
+        ],
+      },
+    });
     expect(r.ok && r.system.tile.headlap_mm.map((b) => b.from_pitch_deg)).toEqual([22.5, 30]);
   });
 

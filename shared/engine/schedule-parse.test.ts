@@ -76,9 +76,7 @@ describe('reading a schedule', () => {
 
   it('warns about unknown columns instead of rejecting them', () => {
     const r = facesOf(`${HEADER},colour\nA,Front,1,35,4000,,9000,,,,,red\n`);
-    expect(r.warnings).toEqual([
-      { code: 'unknown_column', building: null, face: null, message: "column 'colour' is not a schedule column and was ignored" },
-    ]);
+    expect(r.warnings).toEqual([{ code: 'unknown_column', building: null, face: null, message: "column 'colour' is not a schedule column and was ignored" }]);
   });
 
   it('accepts rafter and run together when they agree with the pitch within 1 %', () => {
@@ -89,9 +87,7 @@ describe('reading a schedule', () => {
 
 describe('rejecting a schedule', () => {
   it('rejects an eaves length that is not a positive number of millimetres, naming row and column', () => {
-    expect(errorsOf(`${HEADER}\nA,Front,1,35,4000,,9000,,,,\nA,Back,1,35,4000,,-5,,,,\n`)).toEqual([
-      { row: 3, column: 'eaves_mm', message: 'must be a positive number of millimetres' },
-    ]);
+    expect(errorsOf(`${HEADER}\nA,Front,1,35,4000,,9000,,,,\nA,Back,1,35,4000,,-5,,,,\n`)).toEqual([{ row: 3, column: 'eaves_mm', message: 'must be a positive number of millimetres' }]);
     expect(errorsOf(`${HEADER}\nA,Front,1,35,4000,,0,,,,\n`)[0]).toMatchObject({ row: 2, column: 'eaves_mm' });
   });
 
@@ -143,9 +139,7 @@ describe('rejecting a schedule', () => {
   });
 
   it('rejects a pitch below the tile’s lowest allowed pitch', () => {
-    expect(errorsOf(`${HEADER}\nA,Front,1,15,4000,,9000,,,,\n`)).toEqual([
-      { row: 2, column: 'pitch_deg', message: '15° is below the lowest pitch this tile may be laid at (22.5°)' },
-    ]);
+    expect(errorsOf(`${HEADER}\nA,Front,1,15,4000,,9000,,,,\n`)).toEqual([{ row: 2, column: 'pitch_deg', message: '15° is below the lowest pitch this tile may be laid at (22.5°)' }]);
     expect(errorsOf(`${HEADER}\nA,Front,1,90,4000,,9000,,,,\n`)[0]).toMatchObject({ column: 'pitch_deg', message: expect.stringMatching(/below 90/) });
   });
 

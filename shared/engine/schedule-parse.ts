@@ -28,9 +28,7 @@ export interface ScheduleWarning {
   message: string;
 }
 
-export type ScheduleParse =
-  | { ok: true; faces: Face[]; warnings: ScheduleWarning[]; delimiter: string }
-  | { ok: false; errors: InputProblem[]; warnings: ScheduleWarning[] };
+export type ScheduleParse = { ok: true; faces: Face[]; warnings: ScheduleWarning[]; delimiter: string } | { ok: false; errors: InputProblem[]; warnings: ScheduleWarning[] };
 
 const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
 
@@ -76,11 +74,7 @@ export type ChunkedParseConfig = Papa.ParseConfig<string[]> & {
 };
 
 /** The papaparse settings the schedule reader uses (the benchmark times the bare parse with these). */
-export function papaConfig(
-  delimiter: string,
-  chunk: (results: Papa.ParseResult<string[]>) => void,
-  textLength = 0,
-): ChunkedParseConfig {
+export function papaConfig(delimiter: string, chunk: (results: Papa.ParseResult<string[]>) => void, textLength = 0): ChunkedParseConfig {
   // A string is read synchronously, chunk by chunk, before Papa.parse returns.
   return {
     delimiter,
@@ -96,7 +90,11 @@ function noop() {}
 
 /** Header names are read without case, outer spaces, or the difference between "pitch deg" and pitch_deg. */
 function normaliseHeader(raw: string): string {
-  return raw.replace(/^\uFEFF/, '').trim().toLowerCase().replace(/[\s-]+/g, '_');
+  return raw
+    .replace(/^\uFEFF/, '')
+    .trim()
+    .toLowerCase()
+    .replace(/[\s-]+/g, '_');
 }
 
 function isBlankRow(cells: readonly string[]): boolean {
@@ -256,11 +254,7 @@ export function parseScheduleCsv(text: string, system?: RoofSystem): SchedulePar
   }
   const delimiter = detectDelimiter(body);
   const reader = new ScheduleReader(delimiter, system ? lowestPitch(system.tile.headlap_mm) : -Infinity);
-  Papa.parse<string[]>(
-    body,
-    papaConfig(delimiter, (results) => reader.chunk(results), body.length) as ChunkedParseConfig &
-      Papa.ParseLocalConfig<string[], Papa.LocalFile>,
-  );
+  Papa.parse<string[]>(body, papaConfig(delimiter, (results) => reader.chunk(results), body.length) as ChunkedParseConfig & Papa.ParseLocalConfig<string[], Papa.LocalFile>);
   return reader.finish();
 }
 

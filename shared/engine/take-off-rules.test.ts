@@ -28,8 +28,18 @@ function ok(out: ReturnType<typeof runEstimateFromCsv>): EngineResult {
 
 function face(over: Partial<Face>): Face {
   return {
-    building: '1', face: 'Main', quantity: 1, pitch_deg: 40, rafter_mm: 3_255, run_mm: 1,
-    eaves_mm: 6_510, top_mm: 6_510, left: 'verge', right: 'verge', top: 'ridge', ...over,
+    building: '1',
+    face: 'Main',
+    quantity: 1,
+    pitch_deg: 40,
+    rafter_mm: 3_255,
+    run_mm: 1,
+    eaves_mm: 6_510,
+    top_mm: 6_510,
+    left: 'verge',
+    right: 'verge',
+    top: 'ridge',
+    ...over,
   };
 }
 
@@ -82,10 +92,7 @@ describe('schedule rows that give a wrong roof silently are rejected, naming row
     const r = parseScheduleCsv(csv);
     expect(r.ok).toBe(false);
     if (!r.ok) {
-      expect(r.errors.map(formatProblem)).toEqual([
-        'row 2, column top_mm: required on a face with a hip or valley edge',
-        'row 4, column top_mm: required on a face with a hip or valley edge',
-      ]);
+      expect(r.errors.map(formatProblem)).toEqual(['row 2, column top_mm: required on a face with a hip or valley edge', 'row 4, column top_mm: required on a face with a hip or valley edge']);
     }
     const json = runEstimate([{ face: 'Front', pitch_deg: 35, rafter_mm: 4_000, eaves_mm: 9_000, left: 'hip', right: 'hip' }]);
     expect(json.ok).toBe(false);
@@ -327,8 +334,14 @@ const systems: RoofSystemInput[] = [{}, { tile: PLAIN_TILE }, { verge: { kind: '
 function toFace(g: { eaves: number; rafter: number; pitch: number; left: Face['left']; right: Face['right']; topRatio: number; quantity: number }, i: number): Face {
   const rect = g.left === 'verge' && g.right === 'verge';
   return face({
-    face: `F${i}`, quantity: g.quantity, pitch_deg: g.pitch, rafter_mm: g.rafter, eaves_mm: g.eaves,
-    top_mm: rect ? g.eaves : Math.round(g.eaves * g.topRatio), left: g.left, right: g.right,
+    face: `F${i}`,
+    quantity: g.quantity,
+    pitch_deg: g.pitch,
+    rafter_mm: g.rafter,
+    eaves_mm: g.eaves,
+    top_mm: rect ? g.eaves : Math.round(g.eaves * g.topRatio),
+    left: g.left,
+    right: g.right,
   });
 }
 
@@ -341,7 +354,10 @@ describe('properties of the second edition over generated roofs', () => {
         const openings: Opening[] = os.map(([at, o]) => {
           const f = faces[at % faces.length];
           return {
-            building: f.building, face: f.face, kind: o.kind, quantity: o.quantity,
+            building: f.building,
+            face: f.face,
+            kind: o.kind,
+            quantity: o.quantity,
             width_mm: Math.max(100, Math.floor(Math.max(f.eaves_mm, f.top_mm) * o.w)),
             height_mm: Math.max(100, Math.floor(f.rafter_mm * o.h)),
           };
@@ -350,9 +366,7 @@ describe('properties of the second edition over generated roofs', () => {
         const withOpenings = estimate(faces, system, openings);
         withOpenings.faces.forEach((f, i) => {
           expect(f.tiles).toBeLessThanOrEqual(without.faces[i].tiles);
-          expect(f.tiles + f.eaves_tiles + f.top_tiles + f.tile_and_half).toBeLessThanOrEqual(
-            without.faces[i].tiles + without.faces[i].eaves_tiles + without.faces[i].top_tiles + without.faces[i].tile_and_half,
-          );
+          expect(f.tiles + f.eaves_tiles + f.top_tiles + f.tile_and_half).toBeLessThanOrEqual(without.faces[i].tiles + without.faces[i].eaves_tiles + without.faces[i].top_tiles + without.faces[i].tile_and_half);
         });
         expect(withOpenings.totals.tiles).toBeLessThanOrEqual(without.totals.tiles);
         const sum = (pick: (f: EngineResult['faces'][number]) => number) => withOpenings.faces.reduce((s, f) => s + pick(f) * f.quantity, 0);

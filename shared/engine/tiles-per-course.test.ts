@@ -78,12 +78,7 @@ describe('tiles per course between two verges', () => {
         const f = fitBetweenVerges(width, w, cover, overhang);
         if (!f.fits) return f.cover_mm === cover.nominal && f.overhang_mm === overhang.target;
         const spanOk = Math.abs((f.tiles - 1) * f.cover_mm + w - (width + 2 * f.overhang_mm)) < 1e-6;
-        return (
-          spanOk &&
-          f.overhang_mm >= overhang.min - 1e-6 &&
-          f.overhang_mm <= overhang.max + 1e-6 &&
-          (f.tiles === 1 || (f.cover_mm >= cover.min - 1e-6 && f.cover_mm <= cover.max + 1e-6))
-        );
+        return spanOk && f.overhang_mm >= overhang.min - 1e-6 && f.overhang_mm <= overhang.max + 1e-6 && (f.tiles === 1 || (f.cover_mm >= cover.min - 1e-6 && f.cover_mm <= cover.max + 1e-6));
       }),
       { numRuns: 2_000 },
     );
@@ -99,8 +94,6 @@ describe('tiles to span a course', () => {
   });
 
   it('never needs fewer tiles for more span (property)', () => {
-    fc.assert(
-      fc.property(fc.double({ min: 0, max: 100_000, noNaN: true }), fc.double({ min: 0, max: 1_000, noNaN: true }), (a, d) => tilesToSpan(a + d, 330, 300) >= tilesToSpan(a, 330, 300)),
-    );
+    fc.assert(fc.property(fc.double({ min: 0, max: 100_000, noNaN: true }), fc.double({ min: 0, max: 1_000, noNaN: true }), (a, d) => tilesToSpan(a + d, 330, 300) >= tilesToSpan(a, 330, 300)));
   });
 });

@@ -66,12 +66,7 @@ function tryGaps(gaps: number, span: number, widthMm: number, tileWidthMm: numbe
  * the play allows). When no whole n fits, the course is set out at nominal cover and target overhang
  * and one tile is cut.
  */
-export function fitBetweenVerges(
-  widthMm: number,
-  tileWidthMm: number,
-  cover: CoverPlay,
-  overhang: OverhangRange,
-): VergeFit {
+export function fitBetweenVerges(widthMm: number, tileWidthMm: number, cover: CoverPlay, overhang: OverhangRange): VergeFit {
   const span = widthMm + 2 * overhang.target - tileWidthMm;
   const ideal = span / cover.nominal;
   // The feasible numbers of gaps form an interval that holds `ideal`, so if any whole number fits,

@@ -8,10 +8,7 @@ export const emailSchema = z
   .max(254, 'An e-mail address has at most 254 characters')
   .pipe(z.email({ message: 'Enter a valid e-mail address' }));
 
-export const passwordSchema = z
-  .string()
-  .min(10, 'Use at least 10 characters')
-  .max(200, 'Use at most 200 characters');
+export const passwordSchema = z.string().min(10, 'Use at least 10 characters').max(200, 'Use at most 200 characters');
 
 export const personNameSchema = z.string().trim().min(1, 'Enter a name').max(120, 'At most 120 characters');
 

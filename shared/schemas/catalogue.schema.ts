@@ -76,7 +76,11 @@ export type SystemRole = (typeof SYSTEM_ROLES)[number];
 export const REQUIRED_SYSTEM_ROLES: readonly SystemRole[] = ['tile', 'ridge', 'batten', 'batten_nail', 'tile_nail', 'underlay'];
 
 const positive = () => z.number({ error: 'must be a number' }).positive({ error: 'must be more than 0' });
-const whole = (min: number) => z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(min, { error: `must be at least ${min}` });
+const whole = (min: number) =>
+  z
+    .number({ error: 'must be a number' })
+    .int({ error: 'must be a whole number' })
+    .min(min, { error: `must be at least ${min}` });
 
 /** A tile's technical fields are the engine's own tile input. */
 export const tileTechnicalSchema = roofSystemSchema.shape.tile.unwrap();

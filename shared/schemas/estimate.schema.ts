@@ -12,10 +12,7 @@ import { roofSystemSchema } from './roof-system.schema';
 const percent = z.number({ error: 'must be a number' }).min(0, { error: 'must be 0 or more' }).max(100, { error: 'must be at most 100' });
 
 /** Waste allowances in per cent, over the system's own; any may be left out. */
-export const wastePctSchema = z
-  .object({ tiles: percent, battens: percent, underlay: percent, ridge_hip: percent })
-  .partial()
-  .strict();
+export const wastePctSchema = z.object({ tiles: percent, battens: percent, underlay: percent, ridge_hip: percent }).partial().strict();
 export type WastePct = z.infer<typeof wastePctSchema>;
 
 export const createEstimateBodySchema = z
@@ -105,10 +102,7 @@ export const estimateTotalsSchema = z.object({
 });
 
 /** The engine's output as stored with the estimate (shared/engine/result.ts describes every field). */
-export const engineResultSchema = z.custom<EngineResult>(
-  (v) => typeof v === 'object' && v !== null && 'totals' in v && 'faces' in v && 'engine_version' in v,
-  { error: 'is not an engine result' },
-);
+export const engineResultSchema = z.custom<EngineResult>((v) => typeof v === 'object' && v !== null && 'totals' in v && 'faces' in v && 'engine_version' in v, { error: 'is not an engine result' });
 
 export const estimateSchema = z.object({
   id: z.number().int(),

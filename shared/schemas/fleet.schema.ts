@@ -5,7 +5,11 @@ import { z } from 'zod';
  * crane with the heaviest load it lifts at the reach a delivery needs (kg).
  */
 
-const text = (max: number) => z.string().trim().max(max, { error: `must be at most ${max} characters` });
+const text = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, { error: `must be at most ${max} characters` });
 
 export const registrationSchema = z
   .string({ error: 'must be a registration' })

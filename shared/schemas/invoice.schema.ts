@@ -73,7 +73,17 @@ export const creditNoteSchema = z.object({
   tax_total: z.number().int(),
   total: z.number().int(),
   lines: z.array(
-    z.object({ invoice_line_id: z.number().int(), sku: z.string(), description: z.string(), quantity: z.number().int(), unit_price: z.number().int(), tax_rate_bp: z.number().int(), net: z.number().int(), tax: z.number().int(), total: z.number().int() }),
+    z.object({
+      invoice_line_id: z.number().int(),
+      sku: z.string(),
+      description: z.string(),
+      quantity: z.number().int(),
+      unit_price: z.number().int(),
+      tax_rate_bp: z.number().int(),
+      net: z.number().int(),
+      tax: z.number().int(),
+      total: z.number().int(),
+    }),
   ),
   refund: z.object({ status: z.enum(REFUND_STATUSES), amount: z.number().int(), last_error: z.string().nullable() }).nullable(),
   created_at: z.string(),

@@ -15,21 +15,18 @@ export const OPENING_COLUMNS = ['building', 'face', 'kind', 'width_mm', 'height_
 export type OpeningColumn = (typeof OPENING_COLUMNS)[number];
 
 export function openingKindProblem(word: string): string | null {
-  return (OPENING_KINDS as readonly string[]).includes(word)
-    ? null
-    : `unknown kind '${word}': use roof_window, chimney, dormer or hatch`;
+  return (OPENING_KINDS as readonly string[]).includes(word) ? null : `unknown kind '${word}': use roof_window, chimney, dormer or hatch`;
 }
 
 /** Spreadsheets write "Roof window" or "roof-window"; the file means the same word. */
 export function normaliseOpeningKind(raw: string): string {
-  return raw.trim().toLowerCase().replace(/[\s-]+/g, '_');
+  return raw
+    .trim()
+    .toLowerCase()
+    .replace(/[\s-]+/g, '_');
 }
 
-const textField = z
-  .string({ error: SCHEDULE_MESSAGES.required })
-  .trim()
-  .min(1, { error: SCHEDULE_MESSAGES.required })
-  .max(SCHEDULE_LIMITS.maxTextLength, { error: SCHEDULE_MESSAGES.textTooLong });
+const textField = z.string({ error: SCHEDULE_MESSAGES.required }).trim().min(1, { error: SCHEDULE_MESSAGES.required }).max(SCHEDULE_LIMITS.maxTextLength, { error: SCHEDULE_MESSAGES.textTooLong });
 
 const mmField = z.number({ error: SCHEDULE_MESSAGES.notNumber }).superRefine((v, ctx) => {
   const problem = millimetreProblem(v, false);

@@ -108,13 +108,12 @@ export const timeWindowSchema = z
   .regex(/^([01]\d|2[0-3]):[0-5]\d-([01]\d|2[0-3]):[0-5]\d$/, { error: 'must be a time window HH:MM-HH:MM, e.g. 07:30-12:00' })
   .refine((w) => minutes(w.slice(0, 5)) < minutes(w.slice(6, 11)), { error: 'must end after it starts' });
 
-const text = (max: number) => z.string().trim().max(max, { error: `must be at most ${max} characters` });
-const packs = () =>
+const text = (max: number) =>
   z
-    .number({ error: 'must be a whole number of packs' })
-    .int({ error: 'must be a whole number of packs' })
-    .min(1, { error: 'must be at least 1' })
-    .max(1_000_000, { error: 'must be at most 1,000,000' });
+    .string()
+    .trim()
+    .max(max, { error: `must be at most ${max} characters` });
+const packs = () => z.number({ error: 'must be a whole number of packs' }).int({ error: 'must be a whole number of packs' }).min(1, { error: 'must be at least 1' }).max(1_000_000, { error: 'must be at most 1,000,000' });
 
 export const orderLineInputSchema = z.object({
   product_id: z.number().int().positive(),
@@ -595,7 +594,10 @@ const statusList = z
   .trim()
   .max(200)
   .transform((s, ctx) => {
-    const parts = s.split(',').map((p) => p.trim()).filter(Boolean);
+    const parts = s
+      .split(',')
+      .map((p) => p.trim())
+      .filter(Boolean);
     for (const p of parts) {
       if (!(ORDER_STATUSES as readonly string[]).includes(p)) {
         ctx.addIssue({ code: 'custom', message: `"${p}" is not a stage; use ${ORDER_STATUSES.join(', ')}` });

@@ -7,7 +7,11 @@ import { PRODUCT_CATEGORIES, SYSTEM_ROLES, TECHNICAL_SCHEMAS, branchRefSchema, s
  * integer minor units, tax rates in basis points (2000 = 20 %), weights in kg, stock in packs.
  */
 
-const text = (max: number) => z.string().trim().max(max, { error: `must be at most ${max} characters` });
+const text = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, { error: `must be at most ${max} characters` });
 
 /** SKUs are the merchant's own codes: letters, digits and - _ . / only, so they survive every spreadsheet. */
 export const skuSchema = z
@@ -18,21 +22,13 @@ export const skuSchema = z
   .regex(/^[A-Za-z0-9][A-Za-z0-9._/-]*$/, { error: 'may hold only letters, digits and - _ . / and must start with a letter or digit' });
 
 /** 0 to 100 %, in basis points. */
-export const taxRateBpSchema = z
-  .number({ error: 'must be a number' })
-  .int({ error: 'must be whole basis points (2000 = 20 %)' })
-  .min(0, { error: 'must not be negative' })
-  .max(10_000, { error: 'must be at most 100 %' });
+export const taxRateBpSchema = z.number({ error: 'must be a number' }).int({ error: 'must be whole basis points (2000 = 20 %)' }).min(0, { error: 'must not be negative' }).max(10_000, { error: 'must be at most 100 %' });
 
 /**
  * One side of the pallet the product travels on, for the lorry's deck plan: 1200 × 1000 mm for the
  * usual pallet unless told (common practice; 1200 × 800 mm is the other common size).
  */
-export const palletSideSchema = z
-  .number({ error: 'must be a number' })
-  .int({ error: 'must be whole mm' })
-  .min(300, { error: 'must be at least 300 mm' })
-  .max(2_500, { error: 'must be at most 2,500 mm' });
+export const palletSideSchema = z.number({ error: 'must be a number' }).int({ error: 'must be whole mm' }).min(300, { error: 'must be at least 300 mm' }).max(2_500, { error: 'must be at most 2,500 mm' });
 
 export const DEFAULT_PALLET_MM = { length: 1200, width: 1000 } as const;
 

@@ -24,7 +24,11 @@ export const OVERHEAD_LINES_LABELS: Record<(typeof OVERHEAD_LINES)[number], stri
 };
 export const BUILDING_KINDS = ['building', 'plot'] as const;
 
-const text = (max: number) => z.string().trim().max(max, { error: `must be at most ${max} characters` });
+const text = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, { error: `must be at most ${max} characters` });
 const required = (max: number) => text(max).min(1, { error: 'is required' });
 
 export const buildingInputSchema = z.object({

@@ -1,10 +1,5 @@
 import { z } from 'zod';
-import {
-  DEFAULT_TILE,
-  SYSTEM_DEFAULTS,
-  DOUBLE_LAP_TILE_DEFAULTS,
-  SINGLE_LAP_TILE_DEFAULTS,
-} from '../engine/defaults';
+import { DEFAULT_TILE, SYSTEM_DEFAULTS, DOUBLE_LAP_TILE_DEFAULTS, SINGLE_LAP_TILE_DEFAULTS } from '../engine/defaults';
 
 /**
  * The roof system: the tile being laid and how it is set out, battened, fixed, loaded and delivered.
@@ -140,9 +135,7 @@ export const roofSystemSchema = z
         kg_per_m: nonNegative().default(d.batten.kg_per_m),
       })
       .prefault({}),
-    ridge: z
-      .strictObject({ cover_mm: positive().default(d.ridge.cover_mm), weight_kg: nonNegative().default(d.ridge.weight_kg) })
-      .prefault({}),
+    ridge: z.strictObject({ cover_mm: positive().default(d.ridge.cover_mm), weight_kg: nonNegative().default(d.ridge.weight_kg) }).prefault({}),
     hip: z
       .strictObject({
         cover_mm: positive().default(d.hip.cover_mm),
@@ -180,9 +173,7 @@ export const roofSystemSchema = z
       }),
     fixing: z
       .strictObject({
-        rule: z
-          .enum(FIXING_RULES, { error: 'must be every_tile or perimeter_and_alternate_courses' })
-          .default(d.fixing.rule),
+        rule: z.enum(FIXING_RULES, { error: 'must be every_tile or perimeter_and_alternate_courses' }).default(d.fixing.rule),
         batten_nail_g: nonNegative().default(d.fixing.batten_nail_g),
         tile_nail_g: nonNegative().default(d.fixing.tile_nail_g),
         // Each field left out follows the tile kind (SINGLE_LAP_CLIP_DEFAULTS, DOUBLE_LAP_CLIP_DEFAULTS);

@@ -29,7 +29,10 @@ export const putFacesBodySchema = z.object({
     .array(z.unknown())
     .min(1, { error: 'the schedule has no faces' })
     .max(MAX_SCHEDULE_FACES, { error: `at most ${MAX_SCHEDULE_FACES} faces` }),
-  openings: z.array(z.unknown()).max(MAX_SCHEDULE_OPENINGS, { error: `at most ${MAX_SCHEDULE_OPENINGS} openings` }).optional(),
+  openings: z
+    .array(z.unknown())
+    .max(MAX_SCHEDULE_OPENINGS, { error: `at most ${MAX_SCHEDULE_OPENINGS} openings` })
+    .optional(),
 });
 
 export const storedFaceSchema = z.object({
@@ -81,7 +84,12 @@ export type ScheduleVersion = z.infer<typeof scheduleVersionSchema>;
 export const scheduleWarningSchema = z.object({ code: z.string(), message: z.string() });
 
 /** Reading a site's schedule: `optional=1` answers null (200) for a site without one, instead of 404. */
-export const currentScheduleQuerySchema = z.object({ optional: z.enum(['0', '1']).optional().transform((v) => v === '1') });
+export const currentScheduleQuerySchema = z.object({
+  optional: z
+    .enum(['0', '1'])
+    .optional()
+    .transform((v) => v === '1'),
+});
 
 export const scheduleResponseSchema = scheduleVersionSchema.extend({
   faces: z.array(storedFaceSchema),

@@ -12,20 +12,7 @@ export type EdgeKind = (typeof EDGE_KINDS)[number];
 export type TopKind = (typeof TOP_KINDS)[number];
 
 /** Column names of the schedule, in the order the example file uses. */
-export const SCHEDULE_COLUMNS = [
-  'building',
-  'face',
-  'quantity',
-  'pitch_deg',
-  'rafter_mm',
-  'run_mm',
-  'eaves_mm',
-  'top_mm',
-  'left',
-  'right',
-  'top',
-  'ridge',
-] as const;
+export const SCHEDULE_COLUMNS = ['building', 'face', 'quantity', 'pitch_deg', 'rafter_mm', 'run_mm', 'eaves_mm', 'top_mm', 'left', 'right', 'top', 'ridge'] as const;
 export type ScheduleColumn = (typeof SCHEDULE_COLUMNS)[number];
 
 export const SCHEDULE_LIMITS = {
@@ -90,20 +77,19 @@ export function quantityProblem(v: number): string | null {
 }
 
 export function edgeProblem(word: string): string | null {
-  return (EDGE_KINDS as readonly string[]).includes(word)
-    ? null
-    : `unknown edge '${word}': use verge, hip, valley or abutment`;
+  return (EDGE_KINDS as readonly string[]).includes(word) ? null : `unknown edge '${word}': use verge, hip, valley or abutment`;
 }
 
 export function topProblem(word: string): string | null {
-  return (TOP_KINDS as readonly string[]).includes(word)
-    ? null
-    : `unknown top edge '${word}': use ridge, mono_ridge or abutment`;
+  return (TOP_KINDS as readonly string[]).includes(word) ? null : `unknown top edge '${word}': use ridge, mono_ridge or abutment`;
 }
 
 /** Spreadsheets write "Mono-Ridge" or "mono ridge"; the schedule means the same word. */
 export function normaliseEdgeWord(raw: string): string {
-  return raw.trim().toLowerCase().replace(/[\s-]+/g, '_');
+  return raw
+    .trim()
+    .toLowerCase()
+    .replace(/[\s-]+/g, '_');
 }
 
 /** The fields of one row once each cell has been read on its own. */
@@ -244,11 +230,7 @@ function mmField(allowZero: boolean) {
   });
 }
 
-const textField = z
-  .string({ error: SCHEDULE_MESSAGES.required })
-  .trim()
-  .min(1, { error: SCHEDULE_MESSAGES.required })
-  .max(SCHEDULE_LIMITS.maxTextLength, { error: SCHEDULE_MESSAGES.textTooLong });
+const textField = z.string({ error: SCHEDULE_MESSAGES.required }).trim().min(1, { error: SCHEDULE_MESSAGES.required }).max(SCHEDULE_LIMITS.maxTextLength, { error: SCHEDULE_MESSAGES.textTooLong });
 
 const edgeField = z
   .string()

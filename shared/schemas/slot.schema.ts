@@ -44,9 +44,7 @@ export const slotDaySchema = z.object({
   slots: z.array(slotSchema),
 });
 
-export const createSlotBodySchema = z
-  .object({ lorry_id: z.number().int().positive(), date: isoDateSchema, time_window: timeWindowSchema, driver_id: z.number().int().positive().nullable().optional() })
-  .strict();
+export const createSlotBodySchema = z.object({ lorry_id: z.number().int().positive(), date: isoDateSchema, time_window: timeWindowSchema, driver_id: z.number().int().positive().nullable().optional() }).strict();
 
 /** A calendar of slots: every listed window, for each lorry of the branch (or those named), on each day from..to (at most 62 days). */
 export const generateSlotsBodySchema = z

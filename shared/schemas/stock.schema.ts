@@ -6,8 +6,7 @@ import { PRODUCT_CATEGORIES, STOCK_STATES } from './catalogue.schema';
  * (on hand less reserved: what the desk may still promise) and the reorder level.
  */
 
-const packsCount = () =>
-  z.number({ error: 'must be a number' }).int({ error: 'must be a whole number of packs' }).min(0, { error: 'must not be negative' }).max(100_000_000, { error: 'must be at most 100,000,000' });
+const packsCount = () => z.number({ error: 'must be a number' }).int({ error: 'must be a whole number of packs' }).min(0, { error: 'must not be negative' }).max(100_000_000, { error: 'must be at most 100,000,000' });
 
 export const stockItemSchema = z.object({
   product_id: z.number().int(),

@@ -10,12 +10,7 @@ import type { Role } from '../../shared/domain/roles';
 
 function renderShellFor(role: Role) {
   renderWithProviders(
-    <AppShell
-      navItems={navItemsForRole(role)}
-      homePath="/"
-      person={{ name: 'Kit Trelawny', roleLabel: role, organisationName: 'Carn Tile Supplies' }}
-      onSignOut={vi.fn()}
-    >
+    <AppShell navItems={navItemsForRole(role)} homePath="/" person={{ name: 'Kit Trelawny', roleLabel: role, organisationName: 'Carn Tile Supplies' }} onSignOut={vi.fn()}>
       <p>page</p>
     </AppShell>,
   );

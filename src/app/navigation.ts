@@ -34,10 +34,7 @@ function withPrefetch(item: NavItem): NavItem {
 /** The navigation a role sees: its home, then every section the policy lets it read (its home only once). */
 export function navItemsForRole(role: Role): NavItem[] {
   const home = homePathForRole(role);
-  return [
-    { to: home, label: 'Home', icon: 'home' as const },
-    ...SECTIONS.filter((section) => section.to !== home && can(role, section.action)).map(({ to, label, icon }) => ({ to, label, icon })),
-  ].map(withPrefetch);
+  return [{ to: home, label: 'Home', icon: 'home' as const }, ...SECTIONS.filter((section) => section.to !== home && can(role, section.action)).map(({ to, label, icon }) => ({ to, label, icon }))].map(withPrefetch);
 }
 
 /** The action each section's route requires; the route guard and the navigation share it. */

@@ -106,13 +106,18 @@ describe('api client', () => {
 
   it('turns a body that is not the error schema into a generic ApiError naming the status', async () => {
     stubFetch({ 'GET /api/organisation': { status: 502, body: '<html>Bad gateway</html>' } });
-    const error = await createApiClient().get('/api/organisation').catch((caught: unknown) => caught);
+    const error = await createApiClient()
+      .get('/api/organisation')
+      .catch((caught: unknown) => caught);
     expect(error).toMatchObject({ status: 502, code: 'http_error' });
     expect((error as ApiError).message).toContain('502');
   });
 
   it('reports a network failure as an ApiError with status 0', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     await expect(createApiClient().get('/api/members')).rejects.toMatchObject({ status: 0, code: 'network_error' });
   });
 

@@ -142,11 +142,7 @@ export function createApiClient(options: ApiClientOptions = {}) {
     csrfToken = null;
   }
 
-  async function request<TSchema extends z.ZodType | undefined = undefined>(
-    method: Method,
-    path: string,
-    opts: RequestOptions<TSchema> = {},
-  ): Promise<Result<TSchema>> {
+  async function request<TSchema extends z.ZodType | undefined = undefined>(method: Method, path: string, opts: RequestOptions<TSchema> = {}): Promise<Result<TSchema>> {
     const needsToken = STATE_CHANGING.has(method);
     let token = needsToken ? await getCsrfToken() : null;
     let response = await send(method, path, opts.body, opts.signal, token, opts.headers);

@@ -63,7 +63,15 @@ export function driverDrop(overrides: Partial<DriverDrop> = {}): DriverDrop {
     weight_kg: 2246,
     pallets: [
       { n: 1, weight_kg: 1080, faces: [{ building: 'Alder', face: 'Front', tiles: 240 }], items: [] },
-      { n: 2, weight_kg: 1070, faces: [{ building: 'Alder', face: 'Rear', tiles: 200 }, { building: 'spare', face: '', tiles: 38 }], items: [] },
+      {
+        n: 2,
+        weight_kg: 1070,
+        faces: [
+          { building: 'Alder', face: 'Rear', tiles: 200 },
+          { building: 'spare', face: '', tiles: 38 },
+        ],
+        items: [],
+      },
       {
         n: 3,
         weight_kg: 96,

@@ -4,26 +4,26 @@ import { lineAmounts, orderAmounts } from '../../shared/domain/order-amounts';
 
 /** An invented order line for component tests: packs of 240 tiles at £307.20 a pack, nothing answered yet. */
 export const fixtureLine = (id: number, product_id: number, sku: string, description: string, quantity: number): OrderDetail['lines'][number] => ({
-    id,
-    position: id - 100,
-    product_id,
-    sku,
-    description,
-    category: 'tile',
-    unit: 'pack',
-    pack_size: 240,
-    pack_weight_kg: 1100,
-    quantity,
-    confirmed_quantity: null,
-    back_order_quantity: 0,
-    reserved_quantity: 0,
-    unit_price: 30_720,
-    total: 30_720 * quantity,
-    status: 'asked',
-    replaces_line_id: null,
-    delivered_quantity: null,
-    ...lineAmounts({ quantity, confirmed_quantity: null, back_order_quantity: 0, delivered_quantity: null, unit_price: 30_720 }, 'sent'),
-  });
+  id,
+  position: id - 100,
+  product_id,
+  sku,
+  description,
+  category: 'tile',
+  unit: 'pack',
+  pack_size: 240,
+  pack_weight_kg: 1100,
+  quantity,
+  confirmed_quantity: null,
+  back_order_quantity: 0,
+  reserved_quantity: 0,
+  unit_price: 30_720,
+  total: 30_720 * quantity,
+  status: 'asked',
+  replaces_line_id: null,
+  delivered_quantity: null,
+  ...lineAmounts({ quantity, confirmed_quantity: null, back_order_quantity: 0, delivered_quantity: null, unit_price: 30_720 }, 'sent'),
+});
 
 /** An invented order for component tests: two lines at Tollerbeck Yard, waiting for the desk. */
 export function orderFixture(overrides: Partial<OrderDetail> = {}): OrderDetail {
@@ -82,5 +82,19 @@ export function orderFixture(overrides: Partial<OrderDetail> = {}): OrderDetail 
 }
 
 export function stockFixture(product_id: number, sku: string, available: number): StockItem {
-  return { product_id, sku, name: sku, category: 'tile', unit: 'pack', pack_size: 240, pack_price: 30_720, on_hand: available + 2, reserved: 2, available, reorder_level: 4, state: 'in_stock', updated_at: '2027-02-20 09:00:00' };
+  return {
+    product_id,
+    sku,
+    name: sku,
+    category: 'tile',
+    unit: 'pack',
+    pack_size: 240,
+    pack_price: 30_720,
+    on_hand: available + 2,
+    reserved: 2,
+    available,
+    reorder_level: 4,
+    state: 'in_stock',
+    updated_at: '2027-02-20 09:00:00',
+  };
 }

@@ -44,11 +44,7 @@ export function runFixture(overrides: Partial<Run> = {}): Run {
     weight_kg: 5_380,
     pallets: 6,
     loaded_count: 0,
-    drops: [
-      drop(15, 'RL-000015', 1, 3, 2_700),
-      drop(16, 'RL-000016', 2, 2, 1_780, { contractor: { id: 6, name: 'Quillsby Roofing' }, short: true }),
-      drop(17, 'RL-000017', 3, 1, 900, { delivery_method: 'roof' }),
-    ],
+    drops: [drop(15, 'RL-000015', 1, 3, 2_700), drop(16, 'RL-000016', 2, 2, 1_780, { contractor: { id: 6, name: 'Quillsby Roofing' }, short: true }), drop(17, 'RL-000017', 3, 1, 900, { delivery_method: 'roof' })],
     deck: {
       positions: [
         pos(1, 'left', 3, 17, 1, 900, [face('Rear', 180), face('Hip', 20)]),

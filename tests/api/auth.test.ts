@@ -158,7 +158,8 @@ describe('password reset', () => {
     expect((await laptop.get('/api/auth/me')).status).toBe(401);
     expect((await phone.get('/api/auth/me')).status).toBe(401);
     expect((await colleague.get('/api/auth/me')).status).toBe(200);
-    const left = await t.db('sessions')
+    const left = await t
+      .db('sessions')
       .whereRaw(`${jsonTextSql(t.db, ['passport', 'user'])} = ?`, ['sess', dialectOf(t.db) === 'postgres' ? String(u.userId) : u.userId])
       .count({ n: '*' })
       .first();
@@ -193,7 +194,10 @@ describe('password reset', () => {
     const c = new Client(t.app);
     await c.post('/api/auth/password/forgot', { email: u.email });
     const token = tokenFrom((await t.mail.waitFor(u.email)).text, 'reset-password\\?token=');
-    await t.db('password_resets').where({ user_id: u.userId }).update({ expires_at: new Date(Date.now() - 1000).toISOString() });
+    await t
+      .db('password_resets')
+      .where({ user_id: u.userId })
+      .update({ expires_at: new Date(Date.now() - 1000).toISOString() });
     const res = await c.post('/api/auth/password/reset', { token, password: 'a-brand-new-password' });
     expect(res.status).toBe(400);
   });

@@ -51,16 +51,65 @@ interface Row {
 const TARGETS: { label: string; as: Who; method: Row['method']; path: () => string; valid: () => Record<string, unknown>; text: string }[] = [
   { label: 'new site', as: 'estimator', method: 'post', path: () => '/api/projects', valid: () => ({ name: 'Marlpit Row', site_address: '2 Marlpit Row, Dunsworth' }), text: 'name' },
   { label: 'site edit', as: 'estimator', method: 'patch', path: () => `/api/projects/${w.ids.projectId}`, valid: () => ({ revision: 1, contact_name: 'Ivo Penrake' }), text: 'contact_name' },
-  { label: 'new order', as: 'estimator', method: 'post', path: () => '/api/orders', valid: () => ({ estimate_id: w.ids.estimateId, branch_id: w.ids.branchId, requested_date: t.config.calendar.fromToday(7), delivery_method: 'ground', notes: 'Gate code 4411' }), text: 'notes' },
-  { label: 'desk offer', as: 'desk', method: 'post', path: () => `/api/orders/${w.ids.orderId}/proposals`, valid: () => ({ revision: 1, message: 'One day later', proposed_date: t.config.calendar.fromToday(8) }), text: 'message' },
+  {
+    label: 'new order',
+    as: 'estimator',
+    method: 'post',
+    path: () => '/api/orders',
+    valid: () => ({ estimate_id: w.ids.estimateId, branch_id: w.ids.branchId, requested_date: t.config.calendar.fromToday(7), delivery_method: 'ground', notes: 'Gate code 4411' }),
+    text: 'notes',
+  },
+  {
+    label: 'desk offer',
+    as: 'desk',
+    method: 'post',
+    path: () => `/api/orders/${w.ids.orderId}/proposals`,
+    valid: () => ({ revision: 1, message: 'One day later', proposed_date: t.config.calendar.fromToday(8) }),
+    text: 'message',
+  },
   { label: 'order change', as: 'estimator', method: 'patch', path: () => `/api/orders/${w.ids.orderId}`, valid: () => ({ revision: 1, notes: 'Ring first' }), text: 'notes' },
-  { label: 'quote request', as: 'estimator', method: 'post', path: () => '/api/quote-requests', valid: () => ({ estimate_id: w.ids.estimateId, branch_ids: [w.ids.branchId], requested_date: t.config.calendar.fromToday(9), delivery_method: 'ground', notes: 'Prices please' }), text: 'notes' },
+  {
+    label: 'quote request',
+    as: 'estimator',
+    method: 'post',
+    path: () => '/api/quote-requests',
+    valid: () => ({ estimate_id: w.ids.estimateId, branch_ids: [w.ids.branchId], requested_date: t.config.calendar.fromToday(9), delivery_method: 'ground', notes: 'Prices please' }),
+    text: 'notes',
+  },
   { label: 'order comment', as: 'estimator', method: 'post', path: () => `/api/orders/${w.ids.orderId}/comments`, valid: () => ({ body: 'Is Tuesday possible?' }), text: 'body' },
   { label: 'invitation', as: 'owner', method: 'post', path: () => '/api/invitations', valid: () => ({ email: 'new.hand@dunsworth.test', role: 'merchant_sales' }), text: 'email' },
-  { label: 'new product', as: 'desk', method: 'post', path: () => '/api/products', valid: () => ({ sku: 'CORPUS-1', name: 'Corpus tile', category: 'accessory', unit: 'each', pack_size: 1, pack_weight_kg: 1 }), text: 'name' },
-  { label: 'new lorry', as: 'yard', method: 'post', path: () => `/api/branches/${w.ids.branchId}/lorries`, valid: () => ({ name: 'Corpus rigid', registration: 'CP-01X', payload_kg: 9000, pallet_slots: 8 }), text: 'name' },
-  { label: 'credit note', as: 'desk', method: 'post', path: () => `/api/invoices/${w.ids.invoiceId}/credit-notes`, valid: () => ({ reason: 'damage', notes: 'Two broken', lines: [{ invoice_line_id: w.ids.invoiceLineId, quantity: 1 }] }), text: 'notes' },
-  { label: 'sign-up', as: 'anon', method: 'post', path: () => '/api/auth/signup', valid: () => ({ organisation_name: 'Corpus Roofing', kind: 'contractor', name: 'Wren Alder', email: 'wren@corpus.test', password: 'a-long-enough-password' }), text: 'organisation_name' },
+  {
+    label: 'new product',
+    as: 'desk',
+    method: 'post',
+    path: () => '/api/products',
+    valid: () => ({ sku: 'CORPUS-1', name: 'Corpus tile', category: 'accessory', unit: 'each', pack_size: 1, pack_weight_kg: 1 }),
+    text: 'name',
+  },
+  {
+    label: 'new lorry',
+    as: 'yard',
+    method: 'post',
+    path: () => `/api/branches/${w.ids.branchId}/lorries`,
+    valid: () => ({ name: 'Corpus rigid', registration: 'CP-01X', payload_kg: 9000, pallet_slots: 8 }),
+    text: 'name',
+  },
+  {
+    label: 'credit note',
+    as: 'desk',
+    method: 'post',
+    path: () => `/api/invoices/${w.ids.invoiceId}/credit-notes`,
+    valid: () => ({ reason: 'damage', notes: 'Two broken', lines: [{ invoice_line_id: w.ids.invoiceLineId, quantity: 1 }] }),
+    text: 'notes',
+  },
+  {
+    label: 'sign-up',
+    as: 'anon',
+    method: 'post',
+    path: () => '/api/auth/signup',
+    valid: () => ({ organisation_name: 'Corpus Roofing', kind: 'contractor', name: 'Wren Alder', email: 'wren@corpus.test', password: 'a-long-enough-password' }),
+    text: 'organisation_name',
+  },
   { label: 'sign-in', as: 'anon', method: 'post', path: () => '/api/auth/login', valid: () => ({ email: 'nobody@corpus.test', password: 'whatever-it-is' }), text: 'email' },
   { label: 'password reset', as: 'anon', method: 'post', path: () => '/api/auth/password/reset', valid: () => ({ token: 'x'.repeat(43), password: 'a-long-enough-password' }), text: 'token' },
 ];
@@ -89,7 +138,13 @@ function genericRows(): Row[] {
       { ...base, name: `${x.label}: a number where text belongs`, json: withText(12), status: 422, ...INVALID, field: x.text },
     ];
     // A JSON body labelled as something else arrives as no body at all: the required fields are missing.
-    rows.push({ ...base, name: `${x.label}: JSON sent as text/plain`, raw: { type: 'text/plain', data: JSON.stringify(x.valid()) }, status: x.label === 'sign-in' || x.label === 'password reset' || x.label === 'sign-up' ? 422 : 422, ...INVALID });
+    rows.push({
+      ...base,
+      name: `${x.label}: JSON sent as text/plain`,
+      raw: { type: 'text/plain', data: JSON.stringify(x.valid()) },
+      status: x.label === 'sign-in' || x.label === 'password reset' || x.label === 'sign-up' ? 422 : 422,
+      ...INVALID,
+    });
     return rows;
   });
 }
@@ -112,10 +167,12 @@ function fieldRows(): Row[] {
     field,
   });
   const rows: Row[] = [];
-  for (const d of ['2027-02-30', '2027-13-01', '2027-00-10', '27-01-10', 'tomorrow', '2027-1-5', '9999-12-31', '0000-01-01', '', '2027-01-10T00:00:00Z']) rows.push(row(order, `requested_date ${JSON.stringify(d)}`, { requested_date: d }, 'requested_date'));
+  for (const d of ['2027-02-30', '2027-13-01', '2027-00-10', '27-01-10', 'tomorrow', '2027-1-5', '9999-12-31', '0000-01-01', '', '2027-01-10T00:00:00Z'])
+    rows.push(row(order, `requested_date ${JSON.stringify(d)}`, { requested_date: d }, 'requested_date'));
   for (const id of ['1', '0x1', 1.5, -1, 0, '1 OR 1=1', "1'; DROP TABLE orders;--", 1e21]) rows.push(row(order, `estimate_id ${JSON.stringify(id)}`, { estimate_id: id }, 'estimate_id'));
   rows.push(row(order, 'estimate_id as a huge number literal', {}, 'estimate_id', JSON.stringify(order.valid()).replace(/"estimate_id":\d+/, '"estimate_id":1e999')));
-  for (const v of [-1, 0.5, Infinity, '12', null]) rows.push(row(product, `pack_size ${String(v)}`, { pack_size: v }, 'pack_size', v === Infinity ? JSON.stringify(product.valid()).replace(/"pack_size":\d+/, '"pack_size":1e999') : undefined));
+  for (const v of [-1, 0.5, Infinity, '12', null])
+    rows.push(row(product, `pack_size ${String(v)}`, { pack_size: v }, 'pack_size', v === Infinity ? JSON.stringify(product.valid()).replace(/"pack_size":\d+/, '"pack_size":1e999') : undefined));
   for (const v of [-100, 0, 1e9, 'heavy', NaN]) rows.push(row(lorry, `payload_kg ${String(v)}`, { payload_kg: Number.isNaN(v) ? 'NaN' : v }, 'payload_kg'));
   for (const v of [-1, 0, 2.5, '1']) rows.push(row(credit, `credit quantity ${String(v)}`, { lines: [{ invoice_line_id: w.ids.invoiceLineId, quantity: v }] }, 'lines.0.quantity'));
   rows.push(row(site, 'a 100,000-character name', { name: 'n'.repeat(100_000) }, 'name'));
@@ -134,8 +191,26 @@ function uploadRows(): Row[] {
   const counts = () => `/api/branches/${w.ids.branchId}/stock-counts`;
   const big = (n: number) => 'sku,price,tax_rate\n' + 'TRS-FL420-SG,1.30,20\n'.repeat(Math.ceil(n / 21));
   const randomBytes = Buffer.from(Array.from({ length: 4096 }, (_, i) => (i * 7919 + 13) % 256));
-  const up = (name: string, who: Who, path: () => string, data: string | Buffer, type: string, status: number, code: string, message?: RegExp): Row => ({ name, as: who, method: 'post', path, raw: { type, data }, status, code, message });
-  const form = (name: string, who: Who, path: () => string, filename: string, data: string | Buffer, type: string, status: number, code: string, message?: RegExp): Row => ({ name, as: who, method: 'post', path, file: { field: 'file', filename, data, type }, status, code, message });
+  const up = (name: string, who: Who, path: () => string, data: string | Buffer, type: string, status: number, code: string, message?: RegExp): Row => ({
+    name,
+    as: who,
+    method: 'post',
+    path,
+    raw: { type, data },
+    status,
+    code,
+    message,
+  });
+  const form = (name: string, who: Who, path: () => string, filename: string, data: string | Buffer, type: string, status: number, code: string, message?: RegExp): Row => ({
+    name,
+    as: who,
+    method: 'post',
+    path,
+    file: { field: 'file', filename, data, type },
+    status,
+    code,
+    message,
+  });
   return [
     up('schedule over 5 MB', 'estimator', schedule, GABLE_CSV + 'x'.repeat(MAX_SCHEDULE_BYTES), 'text/csv', 413, 'payload_too_large', /too large/),
     form('schedule file over 5 MB', 'estimator', schedule, 'roof.csv', GABLE_CSV + 'x'.repeat(MAX_SCHEDULE_BYTES), 'text/csv', 413, 'payload_too_large', /too large/),

@@ -149,13 +149,25 @@ describe('booking orders into slots from the engine’s delivery plan', () => {
     const second = await tileOrder(m, k, 1);
     const desk = await login(m.salesEmail);
     expect((await desk.post(`/api/orders/${first.id}/confirm`, { slot_id: slot.id })).status).toBe(200);
-    const reserved = (await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') }).first()).reserved;
+    const reserved = (
+      await t
+        .db('branch_products')
+        .where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') })
+        .first()
+    ).reserved;
     const res = await desk.post(`/api/orders/${second.id}/confirm`, { slot_id: slot.id });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('slot_full');
     expect(res.body.error.details[0]).toMatchObject({ remaining_kg: Math.round((2000 - 2 * FULL_PALLET_KG) * 10) / 10, remaining_pallets: 10, pallets: 1 });
     expect((await t.db('orders').where({ id: second.id }).first()).status).toBe('sent');
-    expect((await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') }).first()).reserved).toBe(reserved);
+    expect(
+      (
+        await t
+          .db('branch_products')
+          .where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') })
+          .first()
+      ).reserved,
+    ).toBe(reserved);
     expect((await t.db('delivery_slots').where({ id: slot.id }).first()).booked_pallets).toBe(2);
   });
 
@@ -207,7 +219,10 @@ describe('the driver’s day', () => {
     const desk = await login(m.salesEmail);
     expect((await desk.post(`/api/orders/${order.id}/confirm`, { slot_id: slot.id })).status).toBe(200);
     const tiles = order.lines.find((l: { sku: string }) => l.sku === 'TRS-FL420-SG');
-    const stockBefore = await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') }).first();
+    const stockBefore = await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') })
+      .first();
 
     expect((await m.yard.post(`/api/orders/${order.id}/dispatch`)).body.error.code).toBe('no_driver');
     expect((await (await login(m.salesEmail)).send('patch', `/api/slots/${slot.id}`, { driver_id: m.driverId })).status).toBe(403);
@@ -242,7 +257,10 @@ describe('the driver’s day', () => {
     expect(rec.body.status).toBe('delivered');
     expect(rec.body.delivery).toMatchObject({ received_by: 'Lowri Haskett', notes: 'Two tiles broken in one pack' });
     expect(rec.body.lines.find((l: { id: number }) => l.id === tiles.id)).toMatchObject({ delivered_quantity: tiles.quantity - 2, reserved_quantity: 0 });
-    const stockAfter = await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') }).first();
+    const stockAfter = await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') })
+      .first();
     expect(stockBefore.reserved - stockAfter.reserved).toBe(tiles.quantity);
     expect(stockBefore.on_hand - stockAfter.on_hand).toBe(tiles.quantity - 2);
     expect(rec.body.timeline.at(-1).summary).toMatch(/short: TRS-FL420-SG/);

@@ -49,7 +49,8 @@ describe('the demo seeds on a fresh database', () => {
   it('hold at each branch exactly the packs its confirmed and loaded orders reserve, and never more than it has', async () => {
     // Stock on hand less what is promised is what can still be sold (common practice in stock keeping).
     const stock = await t.db('branch_products').select('branch_id', 'product_id', 'on_hand', 'reserved');
-    const held = (await t.db('order_lines as l')
+    const held = (await t
+      .db('order_lines as l')
       .join('orders as o', 'o.id', 'l.order_id')
       .whereIn('o.status', HELD)
       .groupBy('o.branch_id', 'l.product_id')
@@ -72,12 +73,14 @@ describe('the demo seeds on a fresh database', () => {
   });
 
   it('take what was handed over off the shelf: on hand is the seeded count less the packs delivered', async () => {
-    const rows = await t.db('branch_products as bp')
+    const rows = await t
+      .db('branch_products as bp')
       .join('branches as b', 'b.id', 'bp.branch_id')
       .join('organisations as m', 'm.id', 'b.organisation_id')
       .join('products as p', 'p.id', 'bp.product_id')
       .select('bp.branch_id', 'bp.product_id', 'bp.on_hand', 'b.name as branch', 'm.name as merchant', 'p.sku');
-    const delivered = (await t.db('order_lines as l')
+    const delivered = (await t
+      .db('order_lines as l')
       .join('orders as o', 'o.id', 'l.order_id')
       .where('o.status', 'delivered')
       .groupBy('o.branch_id', 'l.product_id')
@@ -96,7 +99,10 @@ describe('the demo seeds on a fresh database', () => {
   it('book every lorry run within its payload and pallet slots, on a slot of the order’s own branch, today or later', async () => {
     // Payloads are set below the legal gross weights of Great Britain rigid lorries (Road Vehicles
     // (Authorised Weight) Regulations 1998: 18,000 kg on two axles, 26,000 kg on three) less their own weight.
-    const slots = await t.db('delivery_slots as s').join('lorries as l', 'l.id', 's.lorry_id').select('s.id', 's.date', 's.branch_id', 's.booked_kg', 's.booked_pallets', 'l.payload_kg', 'l.pallet_slots', 'l.registration');
+    const slots = await t
+      .db('delivery_slots as s')
+      .join('lorries as l', 'l.id', 's.lorry_id')
+      .select('s.id', 's.date', 's.branch_id', 's.booked_kg', 's.booked_pallets', 'l.payload_kg', 'l.pallet_slots', 'l.registration');
     const bookings = await t.db('slot_bookings as sb').join('orders as o', 'o.id', 'sb.order_id').select('sb.slot_id', 'sb.weight_kg', 'sb.pallets', 'o.branch_id', 'o.status');
     expect(bookings.length).toBeGreaterThanOrEqual(4);
     const today = new Date().toISOString().slice(0, 10);
@@ -112,7 +118,12 @@ describe('the demo seeds on a fresh database', () => {
       if (mine.length > 0) expect(s.date >= today).toBe(true);
     }
     // A lorry on the road, or back from a drop, had a driver on its run.
-    const gone = await t.db('slot_bookings as sb').join('orders as o', 'o.id', 'sb.order_id').join('delivery_slots as s', 's.id', 'sb.slot_id').whereIn('o.status', ['on_the_road', 'delivered']).select('s.driver_user_id');
+    const gone = await t
+      .db('slot_bookings as sb')
+      .join('orders as o', 'o.id', 'sb.order_id')
+      .join('delivery_slots as s', 's.id', 'sb.slot_id')
+      .whereIn('o.status', ['on_the_road', 'delivered'])
+      .select('s.driver_user_id');
     expect(gone.length).toBeGreaterThanOrEqual(2);
     for (const g of gone) expect(g.driver_user_id).not.toBeNull();
   });
@@ -190,7 +201,7 @@ describe('the demo seeds on a fresh database', () => {
     expect((await (await demoClient('contractor2@demo.test')).get(`/api/orders/${withBoth[0]}/delivery`)).status).toBe(404);
   });
 
-  it("give every demo branch runs today or on the next working days: two drops on one lorry, a crane drop, a run loaded, one half loaded, a face short", async () => {
+  it('give every demo branch runs today or on the next working days: two drops on one lorry, a crane drop, a run loaded, one half loaded, a face short', async () => {
     const today = t.config.calendar.today();
     const runs: Run[] = [];
     for (const email of ['dispatch@demo.test', 'dispatch2@demo.test']) {

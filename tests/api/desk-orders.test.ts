@@ -21,7 +21,11 @@ const merchant = (catalogue = TOLLERBECK) => merchantWithCatalogue(t, catalogue)
 type Merchant = TestMerchant;
 const contractorWithEstimate = (m: Merchant, access: Record<string, string> = {}) => sharedContractor(t, m, access);
 
-const stockOf = (m: Merchant, sku: string) => t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product(sku) }).first();
+const stockOf = (m: Merchant, sku: string) =>
+  t
+    .db('branch_products')
+    .where({ branch_id: m.branchId, product_id: m.product(sku) })
+    .first();
 const tileLine = (o: { lines: { sku: string }[] }) => o.lines.find((l) => l.sku === 'TRS-FL420-SG') as { id: number; quantity: number; sku: string };
 
 const mailTo = (address: string, subject: RegExp) => sharedMailTo(t, address, subject);
@@ -56,7 +60,10 @@ describe('confirming an order against stock', () => {
     const k = await contractorWithEstimate(m);
     const order = (await k.c.post('/api/orders', orderBody(k, m))).body;
     const tiles = tileLine(order);
-    await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') }).update({ on_hand: 100, reserved: 40 });
+    await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') })
+      .update({ on_hand: 100, reserved: 40 });
     const reservedBefore = await t.db('branch_products').where({ branch_id: m.branchId }).sum({ r: 'reserved' }).first();
     const desk = await login(m.ownerEmail);
     const res = await desk.post(`/api/orders/${order.id}/confirm`, {});
@@ -128,11 +135,22 @@ describe('two dozen desks competing for the last pallets', () => {
     const battenId = m.product('TRS-BAT-3825');
     const ids: number[] = [];
     for (let i = 0; i < ORDERS; i++) {
-      const o = await k.c.post('/api/orders', orderBody(k, m, { lines: [{ product_id: tileId, quantity: PER_ORDER }, { product_id: battenId, quantity: 10 }] }));
+      const o = await k.c.post(
+        '/api/orders',
+        orderBody(k, m, {
+          lines: [
+            { product_id: tileId, quantity: PER_ORDER },
+            { product_id: battenId, quantity: 10 },
+          ],
+        }),
+      );
       ids.push(o.body.id);
     }
     // Stock for five orders' tiles and far more battens: only the tiles decide.
-    await t.db('branch_products').where({ branch_id: m.branchId, product_id: tileId }).update({ on_hand: 5 * PER_ORDER + 90, reserved: 0 });
+    await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: tileId })
+      .update({ on_hand: 5 * PER_ORDER + 90, reserved: 0 });
     const desks = await Promise.all([m.salesEmail, m.ownerEmail].map(login));
     const results = await Promise.all(ids.map((id, i) => desks[i % 2].post(`/api/orders/${id}/confirm`, {})));
     const ok = results.filter((r) => r.status === 200);
@@ -146,10 +164,22 @@ describe('two dozen desks competing for the last pallets', () => {
     expect(tile.reserved).toBe(5 * PER_ORDER);
     expect(batten.reserved).toBe(5 * 10);
     const held = (await t.db('order_lines').whereIn('order_id', ids).select('product_id').sum({ r: 'reserved_quantity' }).groupBy('product_id')) as { product_id: number; r: number }[];
-    expect(new Map(held.map((h) => [h.product_id, Number(h.r)]))).toEqual(new Map([[tileId, tile.reserved], [battenId, batten.reserved]]));
+    expect(new Map(held.map((h) => [h.product_id, Number(h.r)]))).toEqual(
+      new Map([
+        [tileId, tile.reserved],
+        [battenId, batten.reserved],
+      ]),
+    );
     const confirmed = await t.db('orders').whereIn('id', ids).where({ status: 'confirmed' }).pluck('id');
     expect(confirmed.sort()).toEqual(ok.map((r) => r.body.id).sort());
-    const unconfirmedHolding = await t.db('order_lines').whereIn('order_id', ids.filter((id) => !confirmed.includes(id))).where('reserved_quantity', '>', 0).first();
+    const unconfirmedHolding = await t
+      .db('order_lines')
+      .whereIn(
+        'order_id',
+        ids.filter((id) => !confirmed.includes(id)),
+      )
+      .where('reserved_quantity', '>', 0)
+      .first();
     expect(unconfirmedHolding).toBeUndefined();
   });
 });

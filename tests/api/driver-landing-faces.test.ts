@@ -17,7 +17,14 @@ let lorryNo = 0;
 /** A crane lorry with a run today (the firm's calendar), driven by the merchant's driver. */
 async function runToday(m: TestMerchant) {
   const yard = await signIn(t.app, m.dispatcherEmail);
-  const l = await yard.post(`/api/branches/${m.branchId}/lorries`, { registration: `RL-LF${String(++lorryNo).padStart(2, '0')}`, name: 'Crane rigid', payload_kg: 26000, pallet_slots: 26, has_crane: true, crane_max_kg: 2000 });
+  const l = await yard.post(`/api/branches/${m.branchId}/lorries`, {
+    registration: `RL-LF${String(++lorryNo).padStart(2, '0')}`,
+    name: 'Crane rigid',
+    payload_kg: 26000,
+    pallet_slots: 26,
+    has_crane: true,
+    crane_max_kg: 2000,
+  });
   expect(l.status, JSON.stringify(l.body)).toBe(201);
   const s = await yard.post(`/api/branches/${m.branchId}/slots`, { lorry_id: l.body.id, date: t.config.calendar.today(), time_window: '00:00-23:59' });
   expect(s.status, JSON.stringify(s.body)).toBe(201);

@@ -47,12 +47,7 @@ async function siteWith(c: Client, csv: string) {
 }
 
 /** One gable slope and its pair, 8 m at the eaves, 5 m up the rafter, at 40°. */
-const GABLE_40 = [
-  'building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top',
-  'House,Front,1,40,5000,8000,verge,verge,ridge',
-  'House,Back,1,40,5000,8000,verge,verge,ridge',
-  '',
-].join('\n');
+const GABLE_40 = ['building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top', 'House,Front,1,40,5000,8000,verge,verge,ridge', 'House,Back,1,40,5000,8000,verge,verge,ridge', ''].join('\n');
 
 const estimatesCount = async () => Number((await t.db('estimates').count({ n: '*' }).first())?.n);
 
@@ -86,7 +81,10 @@ describe('roof systems offered by merchant branches', () => {
     const m = await merchant();
     const tile = m.productIds.get('TRS-FL420-SG')!;
     await t.db('branch_products').where({ branch_id: m.branchId, product_id: tile }).update({ on_hand: 100, reserved: 100 });
-    await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.productIds.get('TRS-RHR-SG') }).update({ on_hand: 100, reorder_level: 150 });
+    await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: m.productIds.get('TRS-RHR-SG') })
+      .update({ on_hand: 100, reorder_level: 150 });
     const { c } = await signedIn();
     const s = (await c.get(`/api/systems/${m.system(INTERLOCKING)}`)).body;
     expect(s.components.find((x: { role: string }) => x.role === 'tile').stock).toBe('out_of_stock');
@@ -96,7 +94,10 @@ describe('roof systems offered by merchant branches', () => {
 
   it('leaves out a system whose branch does not price every component', async () => {
     const m = await merchant();
-    await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.productIds.get('TRS-UVP-50') }).delete();
+    await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: m.productIds.get('TRS-UVP-50') })
+      .delete();
     const { c } = await signedIn();
     const list = (await c.get(`/api/systems?branch_id=${m.branchId}`)).body.systems;
     expect(list).toEqual([]);
@@ -137,9 +138,7 @@ describe('making an estimate', () => {
     expect(res.status).toBe(201);
     const e = estimateSchema.parse(res.body);
 
-    const faces = (await c.get(`/api/projects/${pid}/schedule`)).body.faces.map(
-      ({ id: _i, position: _p, top_assumed: _t, ridge, ...f }: Record<string, unknown>) => (ridge === null ? f : { ...f, ridge }),
-    );
+    const faces = (await c.get(`/api/projects/${pid}/schedule`)).body.faces.map(({ id: _i, position: _p, top_assumed: _t, ridge, ...f }: Record<string, unknown>) => (ridge === null ? f : { ...f, ridge }));
     const direct = estimate(scheduleSchema.parse(faces), e.system_input);
     expect(e.result).toEqual(direct);
     expect(e.engine_version).toBe(ENGINE_VERSION);
@@ -268,7 +267,10 @@ describe('reopening, recomputing and comparing', () => {
     const { c } = await signedIn();
     const pid = await siteWith(c, GABLE_40);
     const first = (await c.post(`/api/projects/${pid}/estimates`, { system_id: m.system(INTERLOCKING) })).body;
-    await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.productIds.get('TRS-FL420-SG') }).update({ pack_price: 150 });
+    await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: m.productIds.get('TRS-FL420-SG') })
+      .update({ pack_price: 150 });
     await t.db('estimates').where({ id: first.id }).update({ engine_version: '0.9.0' });
 
     const reopened = await c.get(`/api/estimates/${first.id}`);

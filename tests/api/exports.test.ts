@@ -55,7 +55,10 @@ const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => 
 };
 
 async function download(c: Client, path: string): Promise<{ status: number; type: string; body: Buffer; disposition: string }> {
-  const res = await c.agent.get(path).buffer(true).parse(binary as never);
+  const res = await c.agent
+    .get(path)
+    .buffer(true)
+    .parse(binary as never);
   return { status: res.status, type: String(res.headers['content-type']), body: res.body as Buffer, disposition: String(res.headers['content-disposition']) };
 }
 

@@ -41,7 +41,12 @@ describe('back-ordered packs follow as an order of their own', () => {
     const owed = tile.quantity - 2;
     expect(order.back_ordered_packs).toBe(owed);
     expect(order.allowed_actions).toContain('start_follow_up');
-    const heldBefore = (await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product(TILE) }).first()).reserved;
+    const heldBefore = (
+      await t
+        .db('branch_products')
+        .where({ branch_id: m.branchId, product_id: m.product(TILE) })
+        .first()
+    ).reserved;
 
     const res = await desk.post(`/api/orders/${order.id}/follow-up`, { requested_date: inDays(14), time_window: '08:00-12:00', note: 'Second tile run from the works' });
     expect(res.status).toBe(201);
@@ -55,7 +60,14 @@ describe('back-ordered packs follow as an order of their own', () => {
     expect(follow.po_reference).toBe('PO-FOLLOW');
     expect(follow.site).toEqual(order.site);
     // Nothing is held from stock until the desk confirms the follow-up.
-    expect((await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product(TILE) }).first()).reserved).toBe(heldBefore);
+    expect(
+      (
+        await t
+          .db('branch_products')
+          .where({ branch_id: m.branchId, product_id: m.product(TILE) })
+          .first()
+      ).reserved,
+    ).toBe(heldBefore);
 
     const first = orderDetailSchema.parse((await desk.get(`/api/orders/${order.id}`)).body);
     expect(first.followed_by).toMatchObject({ id: follow.id, reference: follow.reference });
@@ -72,7 +84,14 @@ describe('back-ordered packs follow as an order of their own', () => {
     // The desk confirms it like any order, which now holds the stock.
     const confirmed = await desk.post(`/api/orders/${follow.id}/confirm`, {});
     expect(confirmed.status).toBe(200);
-    expect((await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product(TILE) }).first()).reserved).toBe(heldBefore + owed);
+    expect(
+      (
+        await t
+          .db('branch_products')
+          .where({ branch_id: m.branchId, product_id: m.product(TILE) })
+          .first()
+      ).reserved,
+    ).toBe(heldBefore + owed);
   });
 
   it('starts one follow-up per order, however often it is asked', async () => {

@@ -56,7 +56,15 @@ const scheduleRow = fc.tuple(
   fc.oneof(fc.constantFrom('ridge', 'wall', 'hip'), nasty),
 );
 const scheduleFile = fc
-  .tuple(fc.oneof(fc.constant(SCHEDULE_HEADER), fc.constant(SCHEDULE_HEADER.replace('pitch_deg', 'pitch')), fc.array(nasty, { minLength: 1, maxLength: 9 }).map((h) => h.map(csvCell).join(','))), fc.array(scheduleRow, { maxLength: 8 }), fc.constantFrom('\n', '\r\n'))
+  .tuple(
+    fc.oneof(
+      fc.constant(SCHEDULE_HEADER),
+      fc.constant(SCHEDULE_HEADER.replace('pitch_deg', 'pitch')),
+      fc.array(nasty, { minLength: 1, maxLength: 9 }).map((h) => h.map(csvCell).join(',')),
+    ),
+    fc.array(scheduleRow, { maxLength: 8 }),
+    fc.constantFrom('\n', '\r\n'),
+  )
   .map(([header, rows, nl]) => [header, ...rows.map((r) => r.map(csvCell).join(','))].join(nl) + nl);
 
 describe('fuzzing the roof schedule importer', () => {
@@ -85,16 +93,17 @@ describe('fuzzing the roof schedule importer', () => {
 
 const priceRow = fc.tuple(
   fc.oneof(fc.constantFrom(...['TRS-FL420-SG', 'TRS-BAT-3825', 'NOPE-1']), nasty),
-  fc.oneof(fc.integer({ min: 0, max: 99_999 }).map((p) => (p / 100).toFixed(2)), nasty),
+  fc.oneof(
+    fc.integer({ min: 0, max: 99_999 }).map((p) => (p / 100).toFixed(2)),
+    nasty,
+  ),
   fc.oneof(fc.constantFrom('0', '5', '20'), nasty),
 );
-const priceFile = fc
-  .tuple(fc.constantFrom('sku,price,tax_rate', 'sku;price;tax_rate', 'sku,price', 'price,sku,tax_rate'), fc.array(priceRow, { maxLength: 8 }))
-  .map(([header, rows]) => {
-    const sep = header.includes(';') ? ';' : ',';
-    const width = header.split(sep).length;
-    return [header, ...rows.map((r) => r.slice(0, width).map(csvCell).join(sep))].join('\n') + '\n';
-  });
+const priceFile = fc.tuple(fc.constantFrom('sku,price,tax_rate', 'sku;price;tax_rate', 'sku,price', 'price,sku,tax_rate'), fc.array(priceRow, { maxLength: 8 })).map(([header, rows]) => {
+  const sep = header.includes(';') ? ';' : ',';
+  const width = header.split(sep).length;
+  return [header, ...rows.map((r) => r.slice(0, width).map(csvCell).join(sep))].join('\n') + '\n';
+});
 
 describe('fuzzing the price-list importer', () => {
   it('applies a whole file or refuses it naming rows and changes no price; never a server error', async () => {

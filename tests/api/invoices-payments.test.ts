@@ -30,7 +30,15 @@ async function merchant() {
   const owner = await makeOrgWithUser(t.db, 'merchant', 'merchant_owner');
   const installed = await installCatalogue(t.db, owner.organisationId, [{ id: owner.branchId!, priceFactor: 1, stockFactor: 1 }], TOLLERBECK);
   const sales = await makeUser(t.db, owner.organisationId, 'merchant_sales');
-  return { organisationId: owner.organisationId, branchId: owner.branchId!, ownerEmail: owner.email, salesEmail: sales.email, desk: await login(sales.email), product: (sku: string) => installed.productIds.get(sku)!, systemId: installed.systemIds[0].id };
+  return {
+    organisationId: owner.organisationId,
+    branchId: owner.branchId!,
+    ownerEmail: owner.email,
+    salesEmail: sales.email,
+    desk: await login(sales.email),
+    product: (sku: string) => installed.productIds.get(sku)!,
+    systemId: installed.systemIds[0].id,
+  };
 }
 type Merchant = Awaited<ReturnType<typeof merchant>>;
 
@@ -119,11 +127,14 @@ describe('issuing invoices', () => {
     expect(page.text).toMatch(/Invoice INV-000001/);
     // 360 × £1.28 + 10 × £4.40 = £504.80 net, £100.96 tax at 20 %: £605.76.
     expect(page.text).toMatch(/£605\.76/);
-    const xlsx = await m.desk.get(`/api/invoices/${invoice.id}/export.xlsx`).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const xlsx = await m.desk
+      .get(`/api/invoices/${invoice.id}/export.xlsx`)
+      .buffer(true)
+      .parse((res, cb) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     const wb = new ExcelJS.Workbook();
     await wb.xlsx.load(xlsx.body as ArrayBuffer);
     const ws = wb.worksheets[0];
@@ -139,7 +150,9 @@ describe('issuing invoices', () => {
     const yard = await login(dispatcher.email);
     const lorry = (await yard.post(`/api/branches/${m.branchId}/lorries`, { registration: 'RL-IN01', payload_kg: 14000, pallet_slots: 12 })).body;
     const slot = (await yard.post(`/api/branches/${m.branchId}/slots`, { lorry_id: lorry.id, date: today(), time_window: '00:00-23:59', driver_id: driver.userId })).body;
-    const order = (await k.c.post('/api/orders', { estimate_id: k.estimate.id, branch_id: m.branchId, requested_date: today(), delivery_method: 'ground', lines: [{ product_id: m.product('TRS-FL420-SG'), quantity: 360 }] })).body;
+    const order = (
+      await k.c.post('/api/orders', { estimate_id: k.estimate.id, branch_id: m.branchId, requested_date: today(), delivery_method: 'ground', lines: [{ product_id: m.product('TRS-FL420-SG'), quantity: 360 }] })
+    ).body;
     expect((await m.desk.post(`/api/orders/${order.id}/confirm`, { slot_id: slot.id })).status).toBe(200);
     await loadRunOf(yard, order.id);
     expect((await yard.post(`/api/orders/${order.id}/dispatch`)).status).toBe(200);

@@ -91,7 +91,10 @@ describe('mail across a crash', () => {
         headers: { cookie, ...(token ? { 'x-csrf-token': token } : {}), ...(body ? { 'content-type': 'application/json' } : {}) },
         body: body ? JSON.stringify(body) : undefined,
       });
-      const set = res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+      const set = res.headers
+        .getSetCookie()
+        .map((c) => c.split(';')[0])
+        .join('; ');
       if (set) cookie = set;
       return { status: res.status, body: (await res.json().catch(() => null)) as Record<string, unknown> | null };
     };
@@ -114,7 +117,9 @@ describe('mail across a crash', () => {
     // A row caught between the mail server's accept and being marked sent (the worst moment to die):
     // claimed by the dead process long ago, and already delivered once.
     const caught = queued[0]!.message_id;
-    await db('mail_outbox').where({ message_id: caught }).update({ status: 'sending', claimed_by: 'the-dead-server', claimed_at: new Date(Date.now() - 10 * 60_000).toISOString(), attempts: 1 });
+    await db('mail_outbox')
+      .where({ message_id: caught })
+      .update({ status: 'sending', claimed_by: 'the-dead-server', claimed_at: new Date(Date.now() - 10 * 60_000).toISOString(), attempts: 1 });
     const [caughtRow] = await db('mail_outbox').where({ message_id: caught }).select('recipient', 'subject', 'text', 'html');
     await mail.mailer.send({ to: caughtRow.recipient, subject: caughtRow.subject, text: caughtRow.text, html: caughtRow.html, messageId: caught });
 

@@ -31,7 +31,13 @@ describe('the mail outbox', () => {
     expect(placed.status, JSON.stringify(placed.body)).toBe(201);
     // Committed with the order, before any worker ran: the contractor and the desk's two people.
     const queued = (await rows()).slice(before);
-    expect(queued.map((r) => [r.recipient, r.status])).toEqual(expect.arrayContaining([[k.email, 'queued'], [m.ownerEmail, 'queued'], [m.salesEmail, 'queued']]));
+    expect(queued.map((r) => [r.recipient, r.status])).toEqual(
+      expect.arrayContaining([
+        [k.email, 'queued'],
+        [m.ownerEmail, 'queued'],
+        [m.salesEmail, 'queued'],
+      ]),
+    );
     expect(queued).toHaveLength(3);
     for (const r of queued) expect(r.message_id).toMatch(/^<[0-9a-f-]{36}@ridgeload\.test>$/);
     expect(new Set(queued.map((r) => r.message_id)).size).toBe(3);
@@ -93,7 +99,10 @@ describe('the mail outbox', () => {
         // Not due yet: the backoff holds it back.
         expect(await worker.runOnce()).toBe(0);
         // Time passes: make it due.
-        await t.db('mail_outbox').where({ id: r.id }).update({ next_attempt_at: new Date(Date.now() - 1).toISOString() });
+        await t
+          .db('mail_outbox')
+          .where({ id: r.id })
+          .update({ next_attempt_at: new Date(Date.now() - 1).toISOString() });
       } else {
         expect(r.status).toBe('failed');
       }
@@ -191,10 +200,16 @@ describe('claiming', () => {
     // Within the lease neither is claimable.
     expect(await claimDue(other, 'worker-b', 10, 120_000)).toEqual([]);
     // Three minutes on, the first claim's lease has run out; the second is still held.
-    await t.db('mail_outbox').where({ id: stuck!.id }).update({ claimed_at: new Date(Date.now() - 180_000).toISOString() });
+    await t
+      .db('mail_outbox')
+      .where({ id: stuck!.id })
+      .update({ claimed_at: new Date(Date.now() - 180_000).toISOString() });
     const again = await claimDue(other, 'worker-b', 10, 120_000);
     expect(again.map((r) => [r.id, r.claimed_by, r.attempts])).toEqual([[stuck!.id, 'worker-b', 2]]);
-    await t.db('mail_outbox').where({ id: stuck!.id }).update({ claimed_at: new Date(Date.now() - 180_000).toISOString() });
+    await t
+      .db('mail_outbox')
+      .where({ id: stuck!.id })
+      .update({ claimed_at: new Date(Date.now() - 180_000).toISOString() });
     await t.drainOutbox();
     const [done] = await rows({ id: stuck!.id });
     expect(done).toMatchObject({ status: 'sent', message_id: stuck!.message_id });

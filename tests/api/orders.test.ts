@@ -20,8 +20,7 @@ const login = (email: string) => signIn(t.app, email);
 const merchant = (catalogue = TOLLERBECK) => merchantWithCatalogue(t, catalogue);
 
 /** A contractor's estimator with a site (crane allowed, overhead lines present) and an estimate from the merchant's first system. */
-const contractorWithEstimate = (m: TestMerchant, access: Record<string, string> = {}) =>
-  sharedContractor(t, m, { site_postcode: 'TB2 6FM', overhead_lines: 'present', ...access });
+const contractorWithEstimate = (m: TestMerchant, access: Record<string, string> = {}) => sharedContractor(t, m, { site_postcode: 'TB2 6FM', overhead_lines: 'present', ...access });
 
 async function world() {
   const m = await merchant();
@@ -103,7 +102,10 @@ describe('placing an order from an estimate', () => {
     for (const [over, path] of cases) {
       const res = await k.c.post('/api/orders', orderBody(k, m, over));
       expect(res.status, JSON.stringify(over)).toBe(422);
-      expect(res.body.error.details.map((d: { path: string }) => d.path), JSON.stringify(over)).toContain(path);
+      expect(
+        res.body.error.details.map((d: { path: string }) => d.path),
+        JSON.stringify(over),
+      ).toContain(path);
     }
     const noCrane = await contractorWithEstimate(m, { crane_lift: 'not_allowed' });
     const res = await noCrane.c.post('/api/orders', orderBody(noCrane, m));

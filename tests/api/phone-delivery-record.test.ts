@@ -48,8 +48,12 @@ describe("the phone's delivery record", () => {
       position: { lat: 52.5, lng: -1.9, accuracy_m: 15 },
       lines: [{ line_id: line.id, handed_over: line.reserved_quantity - 1, short: 1, damaged: 0 }],
     };
-    const signature = await sharp({ create: { width: 300, height: 120, channels: 3, background: '#ffffff' } }).png().toBuffer();
-    const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#7a8c99' } }).jpeg().toBuffer();
+    const signature = await sharp({ create: { width: 300, height: 120, channels: 3, background: '#ffffff' } })
+      .png()
+      .toBuffer();
+    const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#7a8c99' } })
+      .jpeg()
+      .toBuffer();
     const key = randomUUID();
     const send = () =>
       driver.agent
@@ -81,7 +85,11 @@ describe("the phone's delivery record", () => {
     const m = await merchantWithCatalogue(t);
     const { order } = await droppedToday(m);
     const driver = await signIn(t.app, m.driverEmail);
-    const res = await driver.agent.post(`/api/orders/${order.id}/delivery`).set('X-CSRF-Token', await driver.csrf()).field('data', '{receiver_name: Ffion').attach('photos', Buffer.from([0xff, 0xd8, 0xff]), { filename: 'a.jpg', contentType: 'image/jpeg' });
+    const res = await driver.agent
+      .post(`/api/orders/${order.id}/delivery`)
+      .set('X-CSRF-Token', await driver.csrf())
+      .field('data', '{receiver_name: Ffion')
+      .attach('photos', Buffer.from([0xff, 0xd8, 0xff]), { filename: 'a.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(422);
     expect(res.body.error.details).toContainEqual(expect.objectContaining({ path: 'data' }));
     expect((await signIn(t.app, m.salesEmail).then((d) => d.get(`/api/orders/${order.id}`))).body.status).toBe('on_the_road');

@@ -69,7 +69,8 @@ describe('no role reaches another organisation’s records', () => {
   async function makeVictim(kind: 'contractor' | 'merchant') {
     const owner = await makeOrgWithUser(t.db, kind, kind === 'merchant' ? 'merchant_owner' : 'contractor_owner');
     const member = await makeUser(t.db, owner.organisationId, kind === 'merchant' ? 'driver' : 'contractor_estimator');
-    const [inv] = await t.db('invitations')
+    const [inv] = await t
+      .db('invitations')
       .insert({
         organisation_id: owner.organisationId,
         email: `pending.${member.userId}@victim.test`,

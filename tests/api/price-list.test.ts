@@ -23,7 +23,14 @@ async function merchant() {
   const installed = await installCatalogue(t.db, owner.organisationId, [{ id: owner.branchId!, priceFactor: 1, stockFactor: 1 }], TOLLERBECK);
   const sales = await makeUser(t.db, owner.organisationId, 'merchant_sales');
   const dispatcher = await makeUser(t.db, owner.organisationId, 'merchant_dispatcher');
-  return { organisationId: owner.organisationId, branchId: owner.branchId!, desk: await login(sales.email), yard: await login(dispatcher.email), product: (sku: string) => installed.productIds.get(sku)!, systemIds: installed.systemIds };
+  return {
+    organisationId: owner.organisationId,
+    branchId: owner.branchId!,
+    desk: await login(sales.email),
+    yard: await login(dispatcher.email),
+    product: (sku: string) => installed.productIds.get(sku)!,
+    systemIds: installed.systemIds,
+  };
 }
 type Merchant = Awaited<ReturnType<typeof merchant>>;
 
@@ -53,7 +60,9 @@ describe('products', () => {
     const p = productSchema.parse(res.body);
     expect(p).toMatchObject({ ...ridge, tax_rate_bp: 2000, branches: [], archived_at: null });
     expect((await m.desk.patch(`/api/products/${p.id}`, { tax_rate_bp: 500, pack_size: 10 })).body).toMatchObject({ tax_rate_bp: 500, pack_size: 10 });
-    expect((await m.desk.send('put', `/api/branches/${m.branchId}/products/${p.id}`, { pack_price: 725 })).body.branches).toEqual([expect.objectContaining({ branch_id: m.branchId, pack_price: 725, on_hand: 0, available: 0 })]);
+    expect((await m.desk.send('put', `/api/branches/${m.branchId}/products/${p.id}`, { pack_price: 725 })).body.branches).toEqual([
+      expect.objectContaining({ branch_id: m.branchId, pack_price: 725, on_hand: 0, available: 0 }),
+    ]);
     expect((await m.desk.delete(`/api/products/${p.id}`)).body.archived_at).not.toBeNull();
     expect((await m.desk.get('/api/products?q=angle')).body.products).toEqual([]);
     expect((await m.desk.get('/api/products?q=angle&archived=all')).body.products).toHaveLength(1);
@@ -103,7 +112,9 @@ describe('products', () => {
     });
     expect(s.status).toBe(201);
     expect(s.body).toMatchObject({ offerable: false, problems: ['has no underlay product'] });
-    const fixed = await m.desk.patch(`/api/roof-systems/${s.body.id}`, { components: { ...Object.fromEntries(s.body.components.map((c: { role: string; product_id: number }) => [c.role, c.product_id])), underlay: m.product('TRS-UVP-50') } });
+    const fixed = await m.desk.patch(`/api/roof-systems/${s.body.id}`, {
+      components: { ...Object.fromEntries(s.body.components.map((c: { role: string; product_id: number }) => [c.role, c.product_id])), underlay: m.product('TRS-UVP-50') },
+    });
     expect(fixed.body).toMatchObject({ offerable: true, problems: [] });
     // A change names only what changes: renaming keeps the description and the settings.
     await m.desk.patch(`/api/roof-systems/${s.body.id}`, { description: 'For the Hollin Brow plots', settings: { rafter_spacing_mm: 450 } });
@@ -140,7 +151,10 @@ describe('price lists as files', () => {
 
   it('neutralises text that a spreadsheet would run as a formula', async () => {
     const m = await merchant();
-    await t.db('products').where({ id: m.product('TRS-CLP-FL') }).update({ name: '=HYPERLINK("http://example.test","clips")' });
+    await t
+      .db('products')
+      .where({ id: m.product('TRS-CLP-FL') })
+      .update({ name: '=HYPERLINK("http://example.test","clips")' });
     const csv = (await m.desk.get(`/api/branches/${m.branchId}/price-list`)).text;
     expect(csv).toMatch(/"'=HYPERLINK\(/);
     const xlsx = await binary(m.desk.get(`/api/branches/${m.branchId}/price-list?format=xlsx`));
@@ -223,7 +237,10 @@ describe('stock per branch', () => {
 
   it('imports stock counts in one go, refusing a count below reservations and a SKU the branch does not sell', async () => {
     const m = await merchant();
-    await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product('TRS-RHR-SG') }).update({ reserved: 50 });
+    await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: m.product('TRS-RHR-SG') })
+      .update({ reserved: 50 });
     const exported = (await m.yard.get(`/api/branches/${m.branchId}/stock-counts`)).text;
     expect(exported.split('\r\n')[0]).toBe('\uFEFFsku,name,unit,on_hand,reserved,available,reorder_level');
     const before = await t.db('branch_products').where({ branch_id: m.branchId }).orderBy('id');
@@ -236,7 +253,12 @@ describe('stock per branch', () => {
     expect(await t.db('branch_products').where({ branch_id: m.branchId }).orderBy('id')).toEqual(before);
     const ok = await upload(m.yard, `/api/branches/${m.branchId}/stock-counts`, 'sku,on_hand,reorder_level\nTRS-FL420-SG,5000,900\nTRS-RHR-SG,60,\n');
     expect(ok.body).toMatchObject({ rows: 2, updated: 2 });
-    expect((await t.db('branch_products').where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') }).first())).toMatchObject({ on_hand: 5000, reorder_level: 900 });
+    expect(
+      await t
+        .db('branch_products')
+        .where({ branch_id: m.branchId, product_id: m.product('TRS-FL420-SG') })
+        .first(),
+    ).toMatchObject({ on_hand: 5000, reorder_level: 900 });
   });
 });
 

@@ -73,10 +73,7 @@ describe('creating a site', () => {
 
   it('rejects a missing name, an unknown access word, a bad phone and a building named twice, naming each field', async () => {
     const { c } = await signedIn();
-    const res = await c.post(
-      '/api/projects',
-      site({ name: '  ', crane_lift: 'maybe', contact_phone: 'ring the office', buildings: [{ name: 'Plot 1' }, { name: 'plot 1' }] }),
-    );
+    const res = await c.post('/api/projects', site({ name: '  ', crane_lift: 'maybe', contact_phone: 'ring the office', buildings: [{ name: 'Plot 1' }, { name: 'plot 1' }] }));
     expect(res.status).toBe(422);
     const body = errorBodySchema.parse(res.body);
     expect(body.error.code).toBe('validation_failed');

@@ -21,7 +21,14 @@ type Detail = ReturnType<typeof orderDetailSchema.parse>;
 /** A crane lorry with a run today (by the business calendar) driven by the merchant's driver. */
 async function runToday(m: TestMerchant) {
   const yard = await signIn(t.app, m.dispatcherEmail);
-  const l = await yard.post(`/api/branches/${m.branchId}/lorries`, { registration: `RL-PD${String(++lorryNo).padStart(2, '0')}`, name: 'Crane rigid', payload_kg: 26000, pallet_slots: 26, has_crane: true, crane_max_kg: 2000 });
+  const l = await yard.post(`/api/branches/${m.branchId}/lorries`, {
+    registration: `RL-PD${String(++lorryNo).padStart(2, '0')}`,
+    name: 'Crane rigid',
+    payload_kg: 26000,
+    pallet_slots: 26,
+    has_crane: true,
+    crane_max_kg: 2000,
+  });
   expect(l.status, JSON.stringify(l.body)).toBe(201);
   const s = await yard.post(`/api/branches/${m.branchId}/slots`, { lorry_id: l.body.id, date: t.config.calendar.today(), time_window: '00:00-23:59' });
   expect(s.status, JSON.stringify(s.body)).toBe(201);
@@ -45,8 +52,14 @@ async function dropOnRun(m: TestMerchant, run: { yard: Client; slotId: number },
   return { k, desk, order };
 }
 
-const png = (w = 300, h = 120) => sharp({ create: { width: w, height: h, channels: 3, background: '#ffffff' } }).png().toBuffer();
-const jpeg = () => sharp({ create: { width: 1200, height: 800, channels: 3, background: '#7a8c99' } }).jpeg().toBuffer();
+const png = (w = 300, h = 120) =>
+  sharp({ create: { width: w, height: h, channels: 3, background: '#ffffff' } })
+    .png()
+    .toBuffer();
+const jpeg = () =>
+  sharp({ create: { width: 1200, height: 800, channels: 3, background: '#7a8c99' } })
+    .jpeg()
+    .toBuffer();
 
 /** A multipart delivery record from the phone. */
 function multipart(c: Client, token: string, orderId: number, fields: Record<string, string>, files: { field: string; data: Buffer; name: string; type: string }[], key?: string) {
@@ -101,7 +114,9 @@ describe('proof of delivery: uploads are checked by their bytes, size and count'
     const run = await runToday(m);
     const { order } = await dropOnRun(m, run);
     const driver = await signIn(t.app, m.driverEmail);
-    const webp = await sharp({ create: { width: 64, height: 64, channels: 3, background: '#335577' } }).webp().toBuffer();
+    const webp = await sharp({ create: { width: 64, height: 64, channels: 3, background: '#335577' } })
+      .webp()
+      .toBuffer();
     const res = await multipart(driver, await driver.csrf(), order.id, { receiver_name: 'Site office' }, [{ field: 'photos', data: webp, name: 'notes.txt', type: 'text/plain' }]);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(res.body.proof.photos[0].content_type).toBe('image/webp');
@@ -287,7 +302,15 @@ describe('a retried delivery (Idempotency-Key) is recorded once', () => {
     expect(changed.status).toBe(422);
     expect(changed.body.error.code).toBe('idempotency_key_reused');
     // The key belongs to its user: the contractor's client cannot read the driver's answer with it.
-    expect((await k.c.agent.post(`/api/orders/${order.id}/delivery`).set('X-CSRF-Token', await k.c.csrf()).set('Idempotency-Key', key).send({ receiver_name: 'x' })).status).toBe(403);
+    expect(
+      (
+        await k.c.agent
+          .post(`/api/orders/${order.id}/delivery`)
+          .set('X-CSRF-Token', await k.c.csrf())
+          .set('Idempotency-Key', key)
+          .send({ receiver_name: 'x' })
+      ).status,
+    ).toBe(403);
     // Without a key a repeat is refused by the order's stage, as before.
     expect((await driver.post(`/api/orders/${order.id}/delivery`, { receiver_name: 'Lowri Haskett' })).body.error.code).toBe('order_not_on_the_road');
   });
@@ -332,7 +355,7 @@ describe('the same Idempotency-Key mechanism on placing, confirming and importin
 
     const versions = async () => (await t.db('schedules').where({ project_id: k.projectId })).length;
     const before = await versions();
-    const csv = "building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top\nGarage,Front,1,35,4000,6000,verge,verge,ridge\n";
+    const csv = 'building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top\nGarage,Front,1,35,4000,6000,verge,verge,ridge\n';
     const upload = () => k.c.agent.post(`/api/projects/${k.projectId}/schedule`).set('X-CSRF-Token', token).set('Idempotency-Key', 'import-7d1e-0001').set('Content-Type', 'text/csv').send(csv);
     expect((await upload()).status).toBe(201);
     expect((await upload()).headers['idempotent-replayed']).toBe('true');
@@ -378,7 +401,12 @@ describe('the driver’s day', () => {
     expect(drop.landing_plan.map((f) => f.face)).toEqual(expect.arrayContaining(['Front', 'Back']));
     const front = drop.landing_plan.find((f) => f.face === 'Front')!;
     expect(front.estimate_face_index).toBe(first.k.estimate.result.faces.findIndex((f: { face: string }) => f.face === 'Front'));
-    expect(front.tiles).toBe(drop.pallets.flatMap((p) => p.faces).filter((f) => f.face === 'Front').reduce((s, f) => s + f.tiles, 0));
+    expect(front.tiles).toBe(
+      drop.pallets
+        .flatMap((p) => p.faces)
+        .filter((f) => f.face === 'Front')
+        .reduce((s, f) => s + f.tiles, 0),
+    );
     expect(r.drops[1].landing_plan).toEqual([]);
     expect(r.status).toBe('on_the_road');
 

@@ -124,20 +124,31 @@ describe('merchants answer and the contractor compares', () => {
     });
     expect(res.status).toBe(422);
     expect(res.body.error.details.map((d: { path: string }) => d.path)).toEqual(['lines.0.product_id', 'lines.1.request_line_id']);
-    expect((await t.db('quotes').where({ id: quoteFor(b.branchId) }).first()).status).toBe('asked');
+    expect(
+      (
+        await t
+          .db('quotes')
+          .where({ id: quoteFor(b.branchId) })
+          .first()
+      ).status,
+    ).toBe('asked');
   });
 
   it('compares the answers side by side and turns the accepted one into an order at its prices', async () => {
     const { a, b, c2, k, request, quoteFor } = await asked();
     const tileLine = lineOf(request, 'tile');
     const ridgeLine = lineOf(request, 'ridge');
-    await (await login(a.salesEmail)).post(`/api/quotes/${quoteFor(a.branchId)}/answer`, {
+    await (
+      await login(a.salesEmail)
+    ).post(`/api/quotes/${quoteFor(a.branchId)}/answer`, {
       lines: [
         { request_line_id: tileLine, product_id: a.product('TRS-FL420-SG'), unit_price: 120 },
         { request_line_id: ridgeLine, product_id: a.product('TRS-RHR-SG') },
       ],
     });
-    await (await login(b.salesEmail)).post(`/api/quotes/${quoteFor(b.branchId)}/answer`, {
+    await (
+      await login(b.salesEmail)
+    ).post(`/api/quotes/${quoteFor(b.branchId)}/answer`, {
       lines: [{ request_line_id: tileLine, product_id: b.product('CTT-WL380-RU') }],
     });
     const declined = await (await login(c2.email)).post(`/api/quotes/${quoteFor(c2.branchId)}/decline`, { message: 'No lorry that week' });
@@ -173,7 +184,12 @@ describe('merchants answer and the contractor compares', () => {
     expect((await k.c.post(`/api/quotes/${quoteFor(b.branchId)}/accept`)).status).toBe(409);
     const late = await (await login(b.salesEmail)).post(`/api/quotes/${quoteFor(b.branchId)}/answer`, { lines: [{ request_line_id: tileLine, product_id: b.product('CTT-WL380-RU') }] });
     expect(late.status).toBe(409);
-    expect(await t.db('orders').where({ quote_id: quoteFor(b.branchId) }).first()).toBeUndefined();
+    expect(
+      await t
+        .db('orders')
+        .where({ quote_id: quoteFor(b.branchId) })
+        .first(),
+    ).toBeUndefined();
   });
 
   it('cannot accept a quote that is not priced yet, or one past its date', async () => {
@@ -182,7 +198,10 @@ describe('merchants answer and the contractor compares', () => {
     expect(notYet.status).toBe(409);
     expect(notYet.body.error.code).toBe('quote_not_priced');
     await (await login(a.salesEmail)).post(`/api/quotes/${quoteFor(a.branchId)}/answer`, { lines: [{ request_line_id: lineOf(request, 'tile'), product_id: a.product('TRS-FL420-SG') }] });
-    await t.db('quotes').where({ id: quoteFor(a.branchId) }).update({ valid_until: inDays(-1) });
+    await t
+      .db('quotes')
+      .where({ id: quoteFor(a.branchId) })
+      .update({ valid_until: inDays(-1) });
     const expired = await k.c.post(`/api/quotes/${quoteFor(a.branchId)}/accept`);
     expect(expired.body.error.code).toBe('quote_expired');
     expect(await t.db('orders').where({ contractor_organisation_id: k.organisationId }).first()).toBeUndefined();

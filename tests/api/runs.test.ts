@@ -241,11 +241,14 @@ describe('run documents', () => {
   it('prints a loading sheet with the lorry, driver, drops in order, the pallet list and its weights, cautions once', async () => {
     const { yard, runId } = await runWithTwoDrops(t.config.calendar.fromToday(1));
     const run = runSchema.parse((await yard.get(`/api/runs/${runId}`)).body);
-    const res = await yard.get(`/api/runs/${runId}/loading-sheet.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await yard
+      .get(`/api/runs/${runId}/loading-sheet.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const { text } = await pdfText(res.body as Buffer);
@@ -267,11 +270,14 @@ describe('run documents', () => {
   it('prints A6 pallet labels four to an A4 sheet with drop n of m, pallet n of m, faces and weight', async () => {
     const { yard, runId } = await runWithTwoDrops(t.config.calendar.fromToday(1));
     const run = runSchema.parse((await yard.get(`/api/runs/${runId}`)).body);
-    const res = await yard.get(`/api/runs/${runId}/labels.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await yard
+      .get(`/api/runs/${runId}/labels.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     const { text, pages } = await pdfText(res.body as Buffer);
     if (process.env.DUMP_PDF) console.log(text);

@@ -65,15 +65,7 @@ describe('importing a schedule as CSV', () => {
     expect(res.status).toBe(201);
     const s = scheduleResponseSchema.parse(res.body);
     expect(s).toMatchObject({ version: 1, source: 'csv', face_count: 7 });
-    expect(s.faces.map((f) => `${f.building}/${f.face}`)).toEqual([
-      'Alder/Front',
-      'Alder/Back',
-      'Alder/East hip end',
-      'Alder/West hip end',
-      'Birch/Front',
-      'Birch/Back',
-      'Birch/Porch',
-    ]);
+    expect(s.faces.map((f) => `${f.building}/${f.face}`)).toEqual(['Alder/Front', 'Alder/Back', 'Alder/East hip end', 'Alder/West hip end', 'Birch/Front', 'Birch/Back', 'Birch/Porch']);
     // A run of 4200 mm at 35° is a rafter of 4200 ÷ cos 35° (slope factor 1.2208, trigonometry; TRADE.md Geometry).
     expect(s.faces[0].rafter_mm).toBeCloseTo(4200 * 1.2208, -1);
     expect(s.faces[0]).toMatchObject({ quantity: 12, pitch_deg: 35, run_mm: 4200, eaves_mm: 10200, top_mm: 1800, left: 'hip', right: 'hip', top: 'ridge' });
@@ -156,14 +148,9 @@ describe('importing a schedule as CSV', () => {
   it('lists every bad row at once, and one bad row keeps the good rows out too', async () => {
     const { c } = await signedIn();
     const id = await siteOf(c);
-    const csv = [
-      HEADER,
-      'A,Front,1,35,5100,,10200,,verge,verge,ridge',
-      'A,Back,0,35,5100,,10200,,verge,verge,ridge',
-      'A,Side,1,95,5100,,10200,,verge,verge,ridge',
-      'A,Lean,1,35,5100,,10200,,verge,gutter,ridge',
-      '',
-    ].join('\n');
+    const csv = [HEADER, 'A,Front,1,35,5100,,10200,,verge,verge,ridge', 'A,Back,0,35,5100,,10200,,verge,verge,ridge', 'A,Side,1,95,5100,,10200,,verge,verge,ridge', 'A,Lean,1,35,5100,,10200,,verge,gutter,ridge', ''].join(
+      '\n',
+    );
     const details = expectInvalid(await sendCsv(c, id, csv));
     expect(details.map((d) => [d.row, d.column])).toEqual([
       [3, 'quantity'],

@@ -108,7 +108,7 @@ describe('an invitation does not tell who has an account', () => {
       const freshMs: number[] = [];
       for (let i = 0; i < TRIES; i++) {
         const pair = [
-          [taken[(used++) % taken.length]!, takenMs],
+          [taken[used++ % taken.length]!, takenMs],
           [`new.${round}.${i}@timing.test`, freshMs],
         ] as const;
         for (const [email, into] of i % 2 === 0 ? pair : [...pair].reverse()) {

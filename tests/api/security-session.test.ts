@@ -47,8 +47,7 @@ describe('the session cookie', () => {
 });
 
 describe('CSRF on every write', () => {
-  const writes = () =>
-    listRoutes(t.app).filter((r) => r.path.startsWith('/api/') && r.method !== 'GET' && r.method !== 'HEAD' && r.path !== PAYMENT_WEBHOOK_PATH);
+  const writes = () => listRoutes(t.app).filter((r) => r.path.startsWith('/api/') && r.method !== 'GET' && r.method !== 'HEAD' && r.path !== PAYMENT_WEBHOOK_PATH);
   const concrete = (path: string) => path.replace(/:token/g, 'a'.repeat(43)).replace(/:[A-Za-z]+/g, '1');
 
   it('finds the writes in the route inventory (sign-in among them) and leaves out only the signed payment webhook', () => {

@@ -80,7 +80,23 @@ describe('ids are plain decimal integers', () => {
   it('reads an order by its plain id, and answers 404 to every other spelling of it', async () => {
     const { k, orderId } = world;
     expect((await k.c.get(`/api/orders/${orderId}`)).status).toBe(200);
-    for (const spelt of [`0x${orderId.toString(16)}`, `${orderId}e0`, `%20${orderId}`, `${orderId}%20`, `+${orderId}`, `%2B${orderId}`, `0${orderId}`, `${orderId}.0`, `${orderId}.`, '0', '-1', 'Infinity', 'NaN', '1_0', '99999999999999999999']) {
+    for (const spelt of [
+      `0x${orderId.toString(16)}`,
+      `${orderId}e0`,
+      `%20${orderId}`,
+      `${orderId}%20`,
+      `+${orderId}`,
+      `%2B${orderId}`,
+      `0${orderId}`,
+      `${orderId}.0`,
+      `${orderId}.`,
+      '0',
+      '-1',
+      'Infinity',
+      'NaN',
+      '1_0',
+      '99999999999999999999',
+    ]) {
       const res = await k.c.get(`/api/orders/${spelt}`);
       expect(res.status, spelt).toBe(404);
     }

@@ -53,7 +53,10 @@ describe('rate limits shared by every server on one database', () => {
     // The window ends (as if fifteen minutes had passed): the next request counts as the first.
     const rows = await a.db('rate_limit_hits').where('key', 'like', 'reset:%');
     expect(rows.map((r) => Number(r.hits))).toEqual([8]); // five let through, three refused
-    await a.db('rate_limit_hits').where('key', 'like', 'reset:%').update({ reset_at: new Date(Date.now() - 1000).toISOString() });
+    await a
+      .db('rate_limit_hits')
+      .where('key', 'like', 'reset:%')
+      .update({ reset_at: new Date(Date.now() - 1000).toISOString() });
     expect((await ask(b, 7)).status).toBe(202);
     expect((await a.db('rate_limit_hits').where('key', 'like', 'reset:%').first()).hits).toBe(1);
   });

@@ -70,14 +70,24 @@ describe('200 confirmations split across two server processes, racing for the la
     const battenId = m.product('TRS-BAT-3825');
     // One order placed through the API, copied 199 times in the database (lines and all): the race
     // is in the confirmations, and placing 200 orders one by one would only slow the test.
-    const placed = await k.c.post('/api/orders', orderBody(k, m, { lines: [{ product_id: tileId, quantity: TILES_PER_ORDER }, { product_id: battenId, quantity: BATTENS_PER_ORDER }] }));
+    const placed = await k.c.post(
+      '/api/orders',
+      orderBody(k, m, {
+        lines: [
+          { product_id: tileId, quantity: TILES_PER_ORDER },
+          { product_id: battenId, quantity: BATTENS_PER_ORDER },
+        ],
+      }),
+    );
     expect(placed.status, JSON.stringify(placed.body)).toBe(201);
     const ids: number[] = [placed.body.id as number];
     const { id: _order, ...orderRow } = await t.db('orders').where({ id: ids[0] }).first();
     const lineRows = ((await t.db('order_lines').where({ order_id: ids[0] }).orderBy('id')) as { id: number }[]).map(({ id: _line, ...rest }) => rest);
     await t.db.transaction(async (trx) => {
       for (let i = 1; i < ORDERS; i++) {
-        const [row] = await trx('orders').insert({ ...orderRow, po_reference: `PO-RACE-${i}` }).returning('id');
+        const [row] = await trx('orders')
+          .insert({ ...orderRow, po_reference: `PO-RACE-${i}` })
+          .returning('id');
         const id = typeof row === 'object' ? (row as { id: number }).id : (row as number);
         await trx('order_lines').insert(lineRows.map((l) => ({ ...l, order_id: id })));
         ids.push(id);
@@ -85,7 +95,10 @@ describe('200 confirmations split across two server processes, racing for the la
     });
     const tileStock = COVERED * TILES_PER_ORDER + TILES_PER_ORDER - 1;
     await t.db('branch_products').where({ branch_id: m.branchId, product_id: tileId }).update({ on_hand: tileStock, reserved: 0 });
-    await t.db('branch_products').where({ branch_id: m.branchId, product_id: battenId }).update({ on_hand: ORDERS * BATTENS_PER_ORDER * 2, reserved: 0 });
+    await t
+      .db('branch_products')
+      .where({ branch_id: m.branchId, product_id: battenId })
+      .update({ on_hand: ORDERS * BATTENS_PER_ORDER * 2, reserved: 0 });
 
     // Two desks, each signed in on one server; every request goes to the other server from the last.
     const desks = [await signInOver(servers[0].url, m.salesEmail), await signInOver(servers[1].url, m.ownerEmail)];
@@ -124,7 +137,21 @@ describe('200 confirmations split across two server processes, racing for the la
     const confirmed = ((await t.db('orders').whereIn('id', ids).where({ status: 'confirmed' }).pluck('id')) as number[]).sort((x, y) => x - y);
     expect(confirmed).toEqual(winners.sort((x, y) => x - y));
     const held = (await t.db('order_lines').whereIn('order_id', ids).select('product_id').sum({ r: 'reserved_quantity' }).groupBy('product_id')) as { product_id: number; r: number }[];
-    expect(new Map(held.map((h) => [h.product_id, Number(h.r)]))).toEqual(new Map([[tileId, tile.reserved], [battenId, batten.reserved]]));
-    expect(await t.db('order_lines').whereIn('order_id', ids.filter((id) => !confirmed.includes(id))).where('reserved_quantity', '>', 0).first()).toBeUndefined();
+    expect(new Map(held.map((h) => [h.product_id, Number(h.r)]))).toEqual(
+      new Map([
+        [tileId, tile.reserved],
+        [battenId, batten.reserved],
+      ]),
+    );
+    expect(
+      await t
+        .db('order_lines')
+        .whereIn(
+          'order_id',
+          ids.filter((id) => !confirmed.includes(id)),
+        )
+        .where('reserved_quantity', '>', 0)
+        .first(),
+    ).toBeUndefined();
   }, 180_000);
 });

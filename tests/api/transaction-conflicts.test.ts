@@ -15,7 +15,10 @@ beforeAll(async () => {
     c.integer('id').primary();
     c.integer('n').notNullable();
   });
-  await t.db('conflict_counters').insert([{ id: 1, n: 0 }, { id: 2, n: 0 }]);
+  await t.db('conflict_counters').insert([
+    { id: 1, n: 0 },
+    { id: 2, n: 0 },
+  ]);
 });
 afterAll(async () => {
   await other?.destroy();

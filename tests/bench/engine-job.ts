@@ -47,7 +47,13 @@ export function generateSchedule(houses: number, seed = 1, prefix = 'H'): { sche
     const b = `${prefix}${String(h).padStart(3, '0')}`;
     const rows: string[] = [];
     const add = (face: string, pitch: number, rafter: number | '', run: number | '', eaves: number, top: number | '', left: string, right: string, topKind: string) => {
-      const ridge = topKind === 'abutment' ? '' : face.split(' ').slice(0, face.startsWith('Dormer') ? 2 : 1).join(' ');
+      const ridge =
+        topKind === 'abutment'
+          ? ''
+          : face
+              .split(' ')
+              .slice(0, face.startsWith('Dormer') ? 2 : 1)
+              .join(' ');
       rows.push([b, face, 1, pitch, rafter, run, eaves, top, left, right, topKind, ridge].join(','));
     };
     const opening = (face: string, kind: string, width: number, height: number) => openingLines.push([b, face, kind, width, height, 1].join(','));

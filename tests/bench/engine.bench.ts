@@ -178,9 +178,7 @@ function main() {
   const parseRssMb = measureApart(MEMORY_MODES.parse);
   const ms = (list: number[]) => `median ${median(list).toFixed(1)} ms, fastest ${Math.min(...list).toFixed(1)} ms`;
 
-  console.log(
-    `schedule: ${faces} faces (${HOUSES} houses × ${FACES_PER_HOUSE}; ${doubleLapFaces} slated, double lap), ${openings} openings, ${(csvBytes / 1024).toFixed(0)} KiB of CSV, ${RUNS} interleaved runs`,
-  );
+  console.log(`schedule: ${faces} faces (${HOUSES} houses × ${FACES_PER_HOUSE}; ${doubleLapFaces} slated, double lap), ${openings} openings, ${(csvBytes / 1024).toFixed(0)} KiB of CSV, ${RUNS} interleaved runs`);
   console.log(`papaparse alone, header row:           ${ms(headerMs)}`);
   console.log(`papaparse alone, the reader's settings: ${ms(sameMs)} (chunked, no header objects)`);
   console.log(`parse + check + estimate:              ${ms(pipelineMs)}`);

@@ -71,17 +71,46 @@ async function seedBook(db: Db) {
     branches.push(idOf((await db('branches').insert({ organisation_id: merchant, name, address: '1 Bench Road', town: 'Benchton', created_at: now }).returning('id'))[0]));
   }
   await db('users').insert({ organisation_id: merchant, email: 'desk@bench.test', name: 'Bench Desk', role: 'merchant_sales', password_hash: hash, created_at: now });
-  const product = idOf((await db('products').insert({ organisation_id: merchant, sku: 'BEN-TILE', name: 'Bench tile', category: 'tile', unit: 'tile', pack_size: 1, pack_weight_kg: 4.4, technical: '{}', created_at: now, updated_at: now }).returning('id'))[0]);
+  const product = idOf(
+    (
+      await db('products')
+        .insert({ organisation_id: merchant, sku: 'BEN-TILE', name: 'Bench tile', category: 'tile', unit: 'tile', pack_size: 1, pack_weight_kg: 4.4, technical: '{}', created_at: now, updated_at: now })
+        .returning('id')
+    )[0],
+  );
   const contractors: { org: number; project: number }[] = [];
   await db.transaction(async (trx) => {
     for (let i = 0; i < CONTRACTORS; i++) {
-      const org = idOf((await trx('organisations').insert({ name: `Contractor ${String(i).padStart(3, '0')} Roofing`, kind: 'contractor', created_at: now }).returning('id'))[0]);
-      const project = idOf((await trx('projects').insert({ organisation_id: org, name: `Site ${i}`, site_address: `${i} Bench Lane`, created_at: now, updated_at: now }).returning('id'))[0]);
+      const org = idOf(
+        (
+          await trx('organisations')
+            .insert({ name: `Contractor ${String(i).padStart(3, '0')} Roofing`, kind: 'contractor', created_at: now })
+            .returning('id')
+        )[0],
+      );
+      const project = idOf(
+        (
+          await trx('projects')
+            .insert({ organisation_id: org, name: `Site ${i}`, site_address: `${i} Bench Lane`, created_at: now, updated_at: now })
+            .returning('id')
+        )[0],
+      );
       contractors.push({ org, project });
     }
   });
   const rand = rng(7);
-  const site = JSON.stringify({ name: 'Site', site_address: '1 Bench Lane', site_postcode: '', contact_name: '', contact_phone: '', vehicle_access: 'any', crane_lift: 'allowed', overhead_lines: 'none', set_down_place: '', access_notes: '' });
+  const site = JSON.stringify({
+    name: 'Site',
+    site_address: '1 Bench Lane',
+    site_postcode: '',
+    contact_name: '',
+    contact_phone: '',
+    vehicle_access: 'any',
+    crane_lift: 'allowed',
+    overhead_lines: 'none',
+    set_down_place: '',
+    access_notes: '',
+  });
   const start = Date.parse('2025-01-01T00:00:00Z');
   const BATCH = 500;
   for (let done = 0; done < ORDERS; done += BATCH * 20) {
@@ -212,7 +241,9 @@ async function main() {
     const t0 = performance.now();
     const { branches, contractors } = await seedBook(db);
     const count = Number((await db('orders').count({ n: '*' }).first())?.n);
-    console.log(`seeded ${count.toLocaleString('en-GB')} orders (${(count * LINES_PER_ORDER).toLocaleString('en-GB')} lines) in ${DB === 'pg' ? 'PostgreSQL' : 'SQLite'} in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+    console.log(
+      `seeded ${count.toLocaleString('en-GB')} orders (${(count * LINES_PER_ORDER).toLocaleString('en-GB')} lines) in ${DB === 'pg' ? 'PostgreSQL' : 'SQLite'} in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+    );
 
     const mailer = { send: async () => {}, close: () => {} };
     const servers: Server[] = [];
@@ -248,9 +279,7 @@ async function main() {
 
     // 1,200 different pages, each new to the cache when its turn comes round (it keeps 500).
     const turning = [1, 2, 3].flatMap((page) =>
-      ['sort=placed_at&dir=desc', 'status=confirmed&sort=requested_date&dir=asc'].flatMap((view) =>
-        contractors.map((c) => `/api/orders?contractor_id=${c}&${view}&page=${page}&page_size=25`),
-      ),
+      ['sort=placed_at&dir=desc', 'status=confirmed&sort=requested_date&dir=asc'].flatMap((view) => contractors.map((c) => `/api/orders?contractor_id=${c}&${view}&page=${page}&page_size=25`)),
     );
 
     await run(bareBase, ['/bare'], {}); // warm-up of the load generator itself, not reported
@@ -271,7 +300,11 @@ async function main() {
     console.log(fmt('bare route', plain));
     const ratioOf = (r: autocannon.Result) => Math.round((r.latency.p99 / Math.max(plain.latency.p99, 1)) * 100) / 100;
     const ratio = ratioOf(list);
-    console.log(`${DB === 'pg' ? 'PostgreSQL' : 'SQLite'}, ${INSTANCES} app instance${INSTANCES > 1 ? 's' : ''}; load average ${loadavg().map((l) => l.toFixed(2)).join(' ')}`);
+    console.log(
+      `${DB === 'pg' ? 'PostgreSQL' : 'SQLite'}, ${INSTANCES} app instance${INSTANCES > 1 ? 's' : ''}; load average ${loadavg()
+        .map((l) => l.toFixed(2))
+        .join(' ')}`,
+    );
     console.log(`ratio p99 list/bare ${ratio} (target ≤ ${TARGET_RATIO}); cold lookups/bare ${ratioOf(cold)}${errors ? `; ${errors} errors or non-2xx answers` : ''}`);
     console.log(
       JSON.stringify({

@@ -68,7 +68,7 @@ async function main() {
     }
     const pid = child.pid as number;
     console.log(`server started in ${((Date.now() - started) / 1000).toFixed(1)} s (pid ${pid}, data in ${dataDir}); RSS ${mb((procStatusKb(pid, 'VmRSS') ?? 0) * 1024)} MB`);
-    for (let waited = 0; waited < AFTER_S; ) {
+    for (let waited = 0; waited < AFTER_S;) {
       const step = Math.min(10, AFTER_S - waited);
       await new Promise((r) => setTimeout(r, step * 1000));
       waited += step;

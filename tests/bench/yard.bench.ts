@@ -60,9 +60,22 @@ async function seedDay(db: Db, date: string) {
     ['BEN-RIDGE', 'ridge', 5],
     ['BEN-BATTEN', 'batten', 2.2],
   ] as const) {
-    products.push(idOf((await db('products').insert({ organisation_id: merchant, sku, name: sku, category, unit: 'piece', pack_size: 1, pack_weight_kg: kg, technical: '{}', created_at: now, updated_at: now }).returning('id'))[0]));
+    products.push(
+      idOf((await db('products').insert({ organisation_id: merchant, sku, name: sku, category, unit: 'piece', pack_size: 1, pack_weight_kg: kg, technical: '{}', created_at: now, updated_at: now }).returning('id'))[0]),
+    );
   }
-  const site = JSON.stringify({ name: 'Bench site', site_address: '2 Bench Lane, Benchton', site_postcode: 'BE1 1NC', contact_name: 'Site agent', contact_phone: '07700 900 000', vehicle_access: 'any', crane_lift: 'allowed', overhead_lines: 'none', set_down_place: 'By the cabin', access_notes: 'Gate code at the office' });
+  const site = JSON.stringify({
+    name: 'Bench site',
+    site_address: '2 Bench Lane, Benchton',
+    site_postcode: 'BE1 1NC',
+    contact_name: 'Site agent',
+    contact_phone: '07700 900 000',
+    vehicle_access: 'any',
+    crane_lift: 'allowed',
+    overhead_lines: 'none',
+    set_down_place: 'By the cabin',
+    access_notes: 'Gate code at the office',
+  });
   let runs = 0;
   let pallets = 0;
   await db.transaction(async (trx) => {
@@ -70,12 +83,31 @@ async function seedDay(db: Db, date: string) {
       const lorry = idOf(
         (
           await trx('lorries')
-            .insert({ organisation_id: merchant, branch_id: branch, registration: `BN${String(l).padStart(2, '0')} YRD`, name: 'Trailer', payload_kg: 26_000, pallet_slots: MAX_PALLETS, has_crane: l % 2 === 0, crane_max_kg: l % 2 === 0 ? 1_250 : null, deck_length_mm: 13_600, deck_width_mm: 2450, created_at: now, updated_at: now })
+            .insert({
+              organisation_id: merchant,
+              branch_id: branch,
+              registration: `BN${String(l).padStart(2, '0')} YRD`,
+              name: 'Trailer',
+              payload_kg: 26_000,
+              pallet_slots: MAX_PALLETS,
+              has_crane: l % 2 === 0,
+              crane_max_kg: l % 2 === 0 ? 1_250 : null,
+              deck_length_mm: 13_600,
+              deck_width_mm: 2450,
+              created_at: now,
+              updated_at: now,
+            })
             .returning('id')
         )[0],
       );
       for (const window of ['07:30-12:00', '12:30-16:30']) {
-        const slot = idOf((await trx('delivery_slots').insert({ organisation_id: merchant, branch_id: branch, lorry_id: lorry, date, time_window: window, driver_user_id: driver, booked_kg: 0, booked_pallets: 0, created_at: now, updated_at: now }).returning('id'))[0]);
+        const slot = idOf(
+          (
+            await trx('delivery_slots')
+              .insert({ organisation_id: merchant, branch_id: branch, lorry_id: lorry, date, time_window: window, driver_user_id: driver, booked_kg: 0, booked_pallets: 0, created_at: now, updated_at: now })
+              .returning('id')
+          )[0],
+        );
         runs++;
         const drops = 1 + Math.floor(rand() * 4);
         let room = 14 + Math.floor(rand() * (MAX_PALLETS - 13));
@@ -88,7 +120,23 @@ async function seedDay(db: Db, date: string) {
           const order = idOf(
             (
               await trx('orders')
-                .insert({ contractor_organisation_id: contractor, merchant_organisation_id: merchant, branch_id: branch, project_id: project, status: 'confirmed', revision: 1, requested_date: date, delivery_method: method, po_reference: `PO-${slot}-${d}`, notes: '', site_name: 'Bench site', site, subtotal: 100_000, placed_at: now, updated_at: now })
+                .insert({
+                  contractor_organisation_id: contractor,
+                  merchant_organisation_id: merchant,
+                  branch_id: branch,
+                  project_id: project,
+                  status: 'confirmed',
+                  revision: 1,
+                  requested_date: date,
+                  delivery_method: method,
+                  po_reference: `PO-${slot}-${d}`,
+                  notes: '',
+                  site_name: 'Bench site',
+                  site,
+                  subtotal: 100_000,
+                  placed_at: now,
+                  updated_at: now,
+                })
                 .returning('id')
             )[0],
           );
@@ -108,9 +156,35 @@ async function seedDay(db: Db, date: string) {
           slotPallets += count;
           pallets += count;
           await trx('order_lines').insert(
-            products.map((p, i) => ({ order_id: order, position: i + 1, product_id: p, sku: ['BEN-TILE', 'BEN-RIDGE', 'BEN-BATTEN'][i], description: 'Bench product', category: ['tile', 'ridge', 'batten'][i], unit: 'piece', pack_size: 1, pack_weight_kg: 4.4, quantity: 100, confirmed_quantity: 100, back_order_quantity: 0, reserved_quantity: 100, unit_price: 100, total: 10_000, status: 'agreed' })),
+            products.map((p, i) => ({
+              order_id: order,
+              position: i + 1,
+              product_id: p,
+              sku: ['BEN-TILE', 'BEN-RIDGE', 'BEN-BATTEN'][i],
+              description: 'Bench product',
+              category: ['tile', 'ridge', 'batten'][i],
+              unit: 'piece',
+              pack_size: 1,
+              pack_weight_kg: 4.4,
+              quantity: 100,
+              confirmed_quantity: 100,
+              back_order_quantity: 0,
+              reserved_quantity: 100,
+              unit_price: 100,
+              total: 10_000,
+              status: 'agreed',
+            })),
           );
-          await trx('slot_bookings').insert({ order_id: order, slot_id: slot, weight_kg: kg, pallets: count, heaviest_pallet_kg: Math.max(...plan.map((p) => p.weight_kg)), plan: JSON.stringify({ pallets: plan }), booked_by: yard, booked_at: now });
+          await trx('slot_bookings').insert({
+            order_id: order,
+            slot_id: slot,
+            weight_kg: kg,
+            pallets: count,
+            heaviest_pallet_kg: Math.max(...plan.map((p) => p.weight_kg)),
+            plan: JSON.stringify({ pallets: plan }),
+            booked_by: yard,
+            booked_at: now,
+          });
           for (const p of plan) if (rand() < 0.4) await trx('run_loaded_pallets').insert({ slot_id: slot, order_id: order, pallet: p.n, loaded_by: yard, loaded_at: now });
         }
         await trx('delivery_slots').where('id', slot).update({ booked_kg: slotKg, booked_pallets: slotPallets });
@@ -131,7 +205,11 @@ async function signIn(base: string): Promise<string> {
   const first = await fetch(`${base}/api/auth/csrf`);
   const cookie = (first.headers.get('set-cookie') ?? '').split(';')[0];
   const { token } = (await first.json()) as { token: string };
-  const res = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': token, cookie }, body: JSON.stringify({ email: 'yard@bench.test', password: PASSWORD }) });
+  const res = await fetch(`${base}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'x-csrf-token': token, cookie },
+    body: JSON.stringify({ email: 'yard@bench.test', password: PASSWORD }),
+  });
   if (res.status !== 200) throw new Error(`sign-in failed: ${res.status} ${await res.text()}`);
   return (res.headers.get('set-cookie') ?? cookie).split(';')[0];
 }
@@ -184,7 +262,8 @@ async function main() {
       const buf = Buffer.from(await res.arrayBuffer());
       if (res.status !== 200) throw new Error(`loading sheet answered ${res.status}`);
       bytes = buf.length;
-      if (i > 0) times.push(performance.now() - t0); // the first one loads pdfkit and the font
+      if (i > 0)
+        times.push(performance.now() - t0); // the first one loads pdfkit and the font
       else console.log(`  first loading sheet (pdfkit and the font loaded): ${(performance.now() - t0).toFixed(0)} ms`);
     }
     times.sort((a, b) => a - b);
@@ -200,7 +279,9 @@ async function main() {
     console.log(fmt('day plan', dayRun));
     console.log(fmt('bare route', plain));
     const ratio = Math.round((dayRun.latency.p99 / Math.max(plain.latency.p99, 1)) * 100) / 100;
-    console.log(`ratio p99 day/bare ${ratio} (target ≤ ${TARGET_RATIO}); loading sheet of ${fullest.pallets} pallets: median ${pdfMs} ms over ${PDF_REPEATS}, ${(bytes / 1024).toFixed(0)} kB${errors ? `; ${errors} errors or non-2xx answers` : ''}`);
+    console.log(
+      `ratio p99 day/bare ${ratio} (target ≤ ${TARGET_RATIO}); loading sheet of ${fullest.pallets} pallets: median ${pdfMs} ms over ${PDF_REPEATS}, ${(bytes / 1024).toFixed(0)} kB${errors ? `; ${errors} errors or non-2xx answers` : ''}`,
+    );
     console.log(JSON.stringify({ runs: day.length, day_p99_ms: dayRun.latency.p99, bare_p99_ms: plain.latency.p99, ratio_p99: ratio, pdf_ms: pdfMs }));
   } finally {
     await db.destroy();

@@ -128,7 +128,11 @@ describe.concurrent('estimate CLI', () => {
   });
 
   it.each([
-    ['a double-lap tile laid straight bond', { tile: { kind: 'double_lap', length_mm: 265, width_mm: 165, headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }], weight_kg: 1.1, per_pallet: 1000, bond: 'straight' } }, 'system field tile.bond: '],
+    [
+      'a double-lap tile laid straight bond',
+      { tile: { kind: 'double_lap', length_mm: 265, width_mm: 165, headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }], weight_kg: 1.1, per_pallet: 1000, bond: 'straight' } },
+      'system field tile.bond: ',
+    ],
     ['a pallet limit below the empty pallet', { truck: { pallet_tare_kg: 25, max_pallet_kg: 20 } }, 'system field truck.max_pallet_kg: '],
   ])('rejects %s, naming the field: nothing on stdout, exit 2', async (_name, system, start) => {
     const r = await run(['--schedule', file(`sys-${start.length}.csv`, EXAMPLE_SCHEDULE_CSV), '--system', file(`sys-${start.length}.json`, JSON.stringify(system))]);

@@ -80,7 +80,10 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       const slots = confirmForm.getByRole('list', { name: /^Slots on / });
       await slots.waitFor();
       // A slot whose lorry has the demo driver, so the driver's own page can record the drop.
-      const free = slots.getByRole('listitem').filter({ has: desk.getByRole('radio', { disabled: false }), hasText: 'driver Kofi Brennagh' }).first();
+      const free = slots
+        .getByRole('listitem')
+        .filter({ has: desk.getByRole('radio', { disabled: false }), hasText: 'driver Kofi Brennagh' })
+        .first();
       const slotText = await free.innerText();
       const [windowText, lorryText] = slotText.split('\n')[0].split(' · ');
       const window = windowText.trim();
@@ -120,7 +123,10 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
         const branchValue = await yard.getByLabel('Branch', { exact: true }).locator('option', { hasText: 'Tollerbeck Yard' }).getAttribute('value');
         await yard.getByLabel('Branch', { exact: true }).selectOption(branchValue!);
         await yard.getByRole('region', { name: 'Slot calendar' }).getByLabel('Day', { exact: true }).fill(date);
-        const booking = yard.getByRole('list', { name: /^Orders on / }).getByRole('listitem').filter({ hasText: placed.reference });
+        const booking = yard
+          .getByRole('list', { name: /^Orders on / })
+          .getByRole('listitem')
+          .filter({ hasText: placed.reference });
         // The run is for the next working day: the dispatcher sends it out ahead of its day, with a reason.
         await booking.getByRole('link', { name: `${placed.reference}: open its run` }).click();
         await yard.waitForURL(/\/yard\/runs\/\d+$/);
@@ -128,7 +134,10 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
         const override = yard.getByRole('form', { name: 'Send out anyway' });
         await override.getByLabel('Reason for sending out anyway').fill('Site asked for it a day early');
         await override.getByRole('button', { name: 'Send out with this reason' }).click();
-        await yard.getByTestId('send-out').filter({ hasText: /^On the road/ }).waitFor();
+        await yard
+          .getByTestId('send-out')
+          .filter({ hasText: /^On the road/ })
+          .waitFor();
         const sentOut = await pageApi<{ status: string; timeline: { summary: string }[] }>(yard, 'GET', `/api/orders/${placed.id}`);
         expect(sentOut.status).toBe('on_the_road');
         expect(sentOut.timeline.map((e) => e.summary).join(' ')).toContain('Site asked for it a day early');

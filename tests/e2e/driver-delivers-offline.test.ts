@@ -83,7 +83,10 @@ describe('the driver records a delivery without signal, and the contractor sees 
       // The morning's crane lift (delivered already) keeps its landing plan: each face drawn with its stacks,
       // from the day alone (the driver may not read the estimate).
       const morning = day.runs.find((r) => r.lorry.registration === REGISTRATION && r.time_window !== AFTERNOON)!;
-      const lift = driver.getByRole('region', { name: `Run ${morning.time_window} on ${REGISTRATION}` }).getByRole('article').first();
+      const lift = driver
+        .getByRole('region', { name: `Run ${morning.time_window} on ${REGISTRATION}` })
+        .getByRole('article')
+        .first();
       await lift.getByRole('button', { name: new RegExp(morning.drops[0].reference) }).click();
       const landing = lift.getByRole('region', { name: 'Roof landing plan' });
       const firstFace = landing.getByTestId('landing-face').first();

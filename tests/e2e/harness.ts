@@ -77,8 +77,6 @@ const BLOCKING = new Set(['serious', 'critical']);
 export async function expectAccessible(page: Page): Promise<void> {
   await page.waitForLoadState('load');
   const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
-  const blocking = results.violations
-    .filter((v) => BLOCKING.has(v.impact ?? ''))
-    .map((v) => `${v.impact} ${v.id} on ${new URL(page.url()).pathname}: ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
+  const blocking = results.violations.filter((v) => BLOCKING.has(v.impact ?? '')).map((v) => `${v.impact} ${v.id} on ${new URL(page.url()).pathname}: ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
   expect(blocking, `axe-core found on ${page.url()}:\n${blocking.join('\n')}`).toEqual([]);
 }

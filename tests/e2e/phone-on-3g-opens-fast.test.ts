@@ -131,15 +131,19 @@ function printFigures() {
 
 describe('a site phone on 3G opens the sign-in form and each role’s home (measured, not asserted)', () => {
   for (const person of PEOPLE) {
-    it(`${person.role}: sign-in form, then home after signing in, ${RUNS} cold run(s)`, async () => {
-      const entry = { role: person.role, signInMs: [] as number[], homeMs: [] as number[], scriptKb: [] as number[] };
-      for (let run = 0; run < RUNS; run++) {
-        const result = await coldRun(person);
-        entry.signInMs.push(result.signInMs);
-        entry.homeMs.push(result.homeMs);
-        entry.scriptKb.push(result.scriptKb);
-      }
-      figures.push(entry);
-    }, 60_000 + RUNS * 60_000);
+    it(
+      `${person.role}: sign-in form, then home after signing in, ${RUNS} cold run(s)`,
+      async () => {
+        const entry = { role: person.role, signInMs: [] as number[], homeMs: [] as number[], scriptKb: [] as number[] };
+        for (let run = 0; run < RUNS; run++) {
+          const result = await coldRun(person);
+          entry.signInMs.push(result.signInMs);
+          entry.homeMs.push(result.homeMs);
+          entry.scriptKb.push(result.scriptKb);
+        }
+        figures.push(entry);
+      },
+      60_000 + RUNS * 60_000,
+    );
   }
 });

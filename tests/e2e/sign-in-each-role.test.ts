@@ -13,16 +13,7 @@ const HOMES: Record<string, string> = {
   driver: '/driver',
 };
 
-const README_ACCOUNTS = [
-  'contractor@demo.test',
-  'estimator@demo.test',
-  'contractor2@demo.test',
-  'merchant@demo.test',
-  'sales@demo.test',
-  'dispatch@demo.test',
-  'driver@demo.test',
-  'merchant2@demo.test',
-];
+const README_ACCOUNTS = ['contractor@demo.test', 'estimator@demo.test', 'contractor2@demo.test', 'merchant@demo.test', 'sales@demo.test', 'dispatch@demo.test', 'driver@demo.test', 'merchant2@demo.test'];
 
 describe('each demo person signs in and lands on their role’s home', () => {
   const people = DEMO_ORGANISATIONS.flatMap((o) => o.people.map((p) => ({ ...p, firm: o.name })));

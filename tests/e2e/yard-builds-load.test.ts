@@ -39,7 +39,12 @@ interface RunJson {
 }
 
 const dropRefs = async (page: Page) =>
-  (await page.getByRole('list', { name: `Drops of ${REGISTRATION} in order, the first off first` }).getByTestId('drop-row').allInnerTexts()).map((t) => /RL-\d+/.exec(t)?.[0] ?? t);
+  (
+    await page
+      .getByRole('list', { name: `Drops of ${REGISTRATION} in order, the first off first` })
+      .getByTestId('drop-row')
+      .allInnerTexts()
+  ).map((t) => /RL-\d+/.exec(t)?.[0] ?? t);
 
 describe('the yard builds today’s load and sends the lorry out by the rule', () => {
   it('the dispatcher opens today’s run, swaps its drops with the arrow buttons, ticks every pallet loaded, prints the labels and sends it out without an override', async () => {
@@ -124,7 +129,10 @@ describe('the yard builds today’s load and sends the lorry out by the rule', (
       expect(await yard.getByRole('list', { name: 'Why it cannot go yet' }).count()).toBe(0);
       expect(await yard.getByRole('button', { name: 'Send out anyway…' }).count()).toBe(0);
       await yard.getByRole('button', { name: `Send out ${REGISTRATION}` }).click();
-      await yard.getByTestId('send-out').filter({ hasText: /^On the road since / }).waitFor();
+      await yard
+        .getByTestId('send-out')
+        .filter({ hasText: /^On the road since / })
+        .waitFor();
       await yard.getByText(`${REGISTRATION} is on the road.`).waitFor();
       // Once gone, the drops and the deck are fixed.
       expect(await yard.getByRole('button', { name: `Move ${TILES} up` }).count()).toBe(0);

@@ -125,7 +125,10 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       await yard.getByLabel('Branch', { exact: true }).selectOption({ label: 'Tollerbeck Yard, Tollerbeck' });
       await calendar.getByLabel('Day', { exact: true }).fill(monday);
       const run = runOf(WINDOWS[0]);
-      const booking = run.getByRole('list', { name: `Orders on ${REGISTRATION} ${WINDOWS[0]}` }).getByRole('listitem').filter({ hasText: order.reference });
+      const booking = run
+        .getByRole('list', { name: `Orders on ${REGISTRATION} ${WINDOWS[0]}` })
+        .getByRole('listitem')
+        .filter({ hasText: order.reference });
       await booking.waitFor();
       expect(await booking.innerText()).toContain('confirmed');
       // The booked load opens its run in one click; the calendar itself sends nothing out.
@@ -150,7 +153,10 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       const override = yard.getByRole('form', { name: 'Send out anyway' });
       await override.getByLabel('Reason for sending out anyway').fill('Site manager asked for it ahead of the day');
       await override.getByRole('button', { name: 'Send out with this reason' }).click();
-      await yard.getByTestId('send-out').filter({ hasText: /^On the road/ }).waitFor();
+      await yard
+        .getByTestId('send-out')
+        .filter({ hasText: /^On the road/ })
+        .waitFor();
 
       const after = await api<SlotDay>(yard, 'GET', `/api/branches/${branch.id}/slots?date=${monday}`);
       const sent = after.slots.find((s) => s.id === morning.id)!;

@@ -24,7 +24,14 @@ export async function startMailCapture(): Promise<{ mailer: Mailer; port: number
       simpleParser(stream)
         .then((mail: ParsedMail) => {
           const to = Array.isArray(mail.to) ? mail.to.map((a) => a.text).join(', ') : (mail.to?.text ?? '');
-          const m: CapturedMail = { to, subject: mail.subject ?? '', text: mail.text ?? '', html: mail.html ?? false, attachments: mail.attachments.map((a) => ({ filename: a.filename ?? '', contentType: a.contentType, content: a.content })), messageId: mail.messageId ? `<${mail.messageId.replace(/^<|>$/g, '')}>` : '' };
+          const m: CapturedMail = {
+            to,
+            subject: mail.subject ?? '',
+            text: mail.text ?? '',
+            html: mail.html ?? false,
+            attachments: mail.attachments.map((a) => ({ filename: a.filename ?? '', contentType: a.contentType, content: a.content })),
+            messageId: mail.messageId ? `<${mail.messageId.replace(/^<|>$/g, '')}>` : '',
+          };
           messages.push(m);
           for (const w of waiters.filter((x) => to.includes(x.to))) {
             waiters.splice(waiters.indexOf(w), 1);

@@ -4,12 +4,7 @@ import { TEST_PASSWORD } from './factories';
 import { Client } from './test-app';
 
 /** A plain two-face gable, 8 m of eaves and 5 m rafters at 40°: the smallest roof an order is made from. */
-export const GABLE_CSV = [
-  'building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top',
-  'House,Front,1,40,5000,8000,verge,verge,ridge',
-  'House,Back,1,40,5000,8000,verge,verge,ridge',
-  '',
-].join('\n');
+export const GABLE_CSV = ['building,face,quantity,pitch_deg,rafter_mm,eaves_mm,left,right,top', 'House,Front,1,40,5000,8000,verge,verge,ridge', 'House,Back,1,40,5000,8000,verge,verge,ridge', ''].join('\n');
 
 /** A calendar day n days from today, as YYYY-MM-DD (UTC). */
 export const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);

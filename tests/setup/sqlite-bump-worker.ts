@@ -9,7 +9,9 @@ for (let i = 0; i < times; i++) {
     await db.transaction(async (trx) => {
       const row = await trx('counter').where({ id: 1 }).first();
       await new Promise((r) => setTimeout(r, 1));
-      await trx('counter').where({ id: 1 }).update({ n: row.n + 1 });
+      await trx('counter')
+        .where({ id: 1 })
+        .update({ n: row.n + 1 });
     });
   } catch (err) {
     failed++;

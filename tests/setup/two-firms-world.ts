@@ -39,8 +39,17 @@ export async function tradingPair(t: TestApp, n: 0 | 1) {
   const qr = await k.c.post('/api/quote-requests', { estimate_id: k.estimate.id, branch_ids: [m.branchId], requested_date: addDays(t.config.calendar.today(), 12), time_window: '07:00-11:00', delivery_method: 'ground' });
   expect(qr.status, JSON.stringify(qr.body)).toBe(201);
   const quote = await t.db('quotes').where({ quote_request_id: qr.body.id }).first();
-  const [inv] = await t.db('invitations')
-    .insert({ organisation_id: m.organisationId, email: `pending.${n}@matrix.test`, role: 'merchant_sales', token_hash: `matrix-${n}`.padEnd(64, '0'), invited_by: null, expires_at: new Date(Date.now() + 86_400_000).toISOString(), created_at: new Date().toISOString() })
+  const [inv] = await t
+    .db('invitations')
+    .insert({
+      organisation_id: m.organisationId,
+      email: `pending.${n}@matrix.test`,
+      role: 'merchant_sales',
+      token_hash: `matrix-${n}`.padEnd(64, '0'),
+      invited_by: null,
+      expires_at: new Date(Date.now() + 86_400_000).toISOString(),
+      created_at: new Date().toISOString(),
+    })
     .returning('id');
   const memberOfMerchant = await makeUser(t.db, m.organisationId, 'merchant_sales');
   const memberOfContractor = await makeUser(t.db, k.organisationId, 'contractor_estimator');
@@ -63,8 +72,12 @@ export async function tradingPair(t: TestApp, n: 0 | 1) {
   expect(out.status, JSON.stringify(out.body)).toBe(200);
   const sent = (droppedOn.body.lines as { id: number; reserved_quantity: number }[]).find((l) => l.reserved_quantity >= 2)!;
   const driver = await signIn(t.app, m.driverEmail);
-  const signature = await sharp({ create: { width: 300, height: 120, channels: 3, background: '#ffffff' } }).png().toBuffer();
-  const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#7a8c99' } }).jpeg().toBuffer();
+  const signature = await sharp({ create: { width: 300, height: 120, channels: 3, background: '#ffffff' } })
+    .png()
+    .toBuffer();
+  const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#7a8c99' } })
+    .jpeg()
+    .toBuffer();
   const delivery = await driver.agent
     .post(`/api/orders/${dropped.body.id}/delivery`)
     .set('X-CSRF-Token', await driver.csrf())

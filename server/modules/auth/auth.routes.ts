@@ -1,10 +1,4 @@
-import {
-  acceptInvitationBodySchema,
-  forgotPasswordBodySchema,
-  loginBodySchema,
-  resetPasswordBodySchema,
-  signupBodySchema,
-} from '../../../shared/schemas/auth.schema';
+import { acceptInvitationBodySchema, forgotPasswordBodySchema, loginBodySchema, resetPasswordBodySchema, signupBodySchema } from '../../../shared/schemas/auth.schema';
 import { tokenParamsSchema } from '../../../shared/schemas/members.schema';
 import type { AppDeps } from '../../app-deps';
 import { issueCsrfToken } from '../../auth/csrf';
@@ -25,16 +19,12 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
     res.json({ token: issueCsrfToken(req) });
   });
 
-  r.post(
-    '/auth/login',
-    { access: { public: 'signing in' }, before: [loginRateLimit(deps.db, deps.config.loginRateLimit)], body: loginBodySchema },
-    async (req, res, { body }) => {
-      const user = await auth.verifyCredentials(body.email, body.password);
-      if (!user) throw new AppError(401, 'invalid_credentials', 'E-mail or password is wrong');
-      await logIn(req, user);
-      res.json(sessionBody(user, deps.config.calendar));
-    },
-  );
+  r.post('/auth/login', { access: { public: 'signing in' }, before: [loginRateLimit(deps.db, deps.config.loginRateLimit)], body: loginBodySchema }, async (req, res, { body }) => {
+    const user = await auth.verifyCredentials(body.email, body.password);
+    if (!user) throw new AppError(401, 'invalid_credentials', 'E-mail or password is wrong');
+    await logIn(req, user);
+    res.json(sessionBody(user, deps.config.calendar));
+  });
 
   // "Nobody is signed in" is an answer, not a failure: signed-out pages ask this and get a 200 either way.
   r.get('/auth/session', { access: { public: 'says whether anyone is signed in, and who' } }, (req, res) => {
@@ -56,39 +46,27 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
     res.status(201).json(sessionBody(user, deps.config.calendar));
   });
 
-  r.post(
-    '/auth/password/forgot',
-    { access: { public: 'asking for a reset link' }, before: [resetLimit], body: forgotPasswordBodySchema },
-    async (_req, res, { body }) => {
-      res.status(202).json({ ok: true });
-      auth.requestPasswordReset(body.email);
-    },
-  );
+  r.post('/auth/password/forgot', { access: { public: 'asking for a reset link' }, before: [resetLimit], body: forgotPasswordBodySchema }, async (_req, res, { body }) => {
+    res.status(202).json({ ok: true });
+    auth.requestPasswordReset(body.email);
+  });
 
-  r.post(
-    '/auth/password/reset',
-    { access: { public: 'using a reset link' }, before: [resetLimit], body: resetPasswordBodySchema },
-    async (req, res, { body }) => {
-      const userId = await auth.resetPassword(body.token, body.password);
-      // Whoever held the old password is signed out everywhere (this browser is not signed in here).
-      await sessions.endAllFor(userId, req.sessionID);
-      res.json({ ok: true });
-    },
-  );
+  r.post('/auth/password/reset', { access: { public: 'using a reset link' }, before: [resetLimit], body: resetPasswordBodySchema }, async (req, res, { body }) => {
+    const userId = await auth.resetPassword(body.token, body.password);
+    // Whoever held the old password is signed out everywhere (this browser is not signed in here).
+    await sessions.endAllFor(userId, req.sessionID);
+    res.json({ ok: true });
+  });
 
   r.get('/invitations/:token', { access: { public: 'reading an invitation one holds the token of' }, params: tokenParamsSchema }, async (_req, res, { params }) => {
     res.json(await members.previewInvitation(params.token));
   });
 
-  r.post(
-    '/invitations/:token/accept',
-    { access: { public: 'joining a firm through an invitation' }, params: tokenParamsSchema, body: acceptInvitationBodySchema },
-    async (req, res, { params, body }) => {
-      const user = await members.acceptInvitation(params.token, body);
-      await logIn(req, user);
-      res.status(201).json(sessionBody(user, deps.config.calendar));
-    },
-  );
+  r.post('/invitations/:token/accept', { access: { public: 'joining a firm through an invitation' }, params: tokenParamsSchema, body: acceptInvitationBodySchema }, async (req, res, { params, body }) => {
+    const user = await members.acceptInvitation(params.token, body);
+    await logIn(req, user);
+    res.status(201).json(sessionBody(user, deps.config.calendar));
+  });
 
   return r.router;
 }

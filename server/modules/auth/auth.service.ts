@@ -40,10 +40,7 @@ export function authService({ db, config, logger }: AppDeps) {
           throw AppError.conflict('signup_failed', 'We could not create an account with these details. If you already have one, sign in or reset your password.');
         }
         const org = await organisations.create({ name: body.organisation_name, kind: body.kind }, trx);
-        return users.create(
-          { organisation_id: org.id, email: body.email, name: body.name, role: OWNER_ROLE[body.kind], password_hash: passwordHash },
-          trx,
-        );
+        return users.create({ organisation_id: org.id, email: body.email, name: body.name, role: OWNER_ROLE[body.kind], password_hash: passwordHash }, trx);
       });
       return (await users.findAuthUser(userId))!;
     },
@@ -67,10 +64,7 @@ export function authService({ db, config, logger }: AppDeps) {
           to: user.email,
           subject: 'Reset your Ridgeload password',
           heading: 'Reset your password',
-          paragraphs: [
-            `Hello ${user.name},`,
-            `Someone asked to reset the password of your Ridgeload account. The link works once and for ${RESET_TOKEN_HOURS} hour.`,
-          ],
+          paragraphs: [`Hello ${user.name},`, `Someone asked to reset the password of your Ridgeload account. The link works once and for ${RESET_TOKEN_HOURS} hour.`],
           action: { label: 'Choose a new password', url },
           footnote: 'If you did not ask for this, you can ignore this e-mail; your password stays as it is.',
         });

@@ -8,12 +8,7 @@ export function passwordResetsRepository(db: Db) {
     },
 
     async findUsable(tokenHash: string, trx: Db = db): Promise<{ id: number; user_id: number } | undefined> {
-      return trx('password_resets')
-        .select('id', 'user_id')
-        .where({ token_hash: tokenHash })
-        .whereNull('used_at')
-        .where('expires_at', '>', nowIso())
-        .first();
+      return trx('password_resets').select('id', 'user_id').where({ token_hash: tokenHash }).whereNull('used_at').where('expires_at', '>', nowIso()).first();
     },
 
     /** Marks this token and every other open token of the user as used, so each link works once. */

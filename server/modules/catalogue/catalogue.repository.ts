@@ -72,9 +72,7 @@ export function catalogueRepository(db: Db) {
       .where('o.kind', 'merchant')
       .whereIn('b.id', ids)
       .select('b.id', 'b.name', 'b.town', 'b.address', 'o.id as merchant_id', 'o.name as merchant_name');
-    return new Map(
-      rows.map((r) => [r.id as number, { id: r.id, name: r.name, town: r.town, address: r.address, merchant: { id: r.merchant_id, name: r.merchant_name } }]),
-    );
+    return new Map(rows.map((r) => [r.id as number, { id: r.id, name: r.name, town: r.town, address: r.address, merchant: { id: r.merchant_id, name: r.merchant_name } }]));
   }
 
   async function loadSystems(query: (q: ReturnType<Db>) => void, trx: Db = db): Promise<SystemRow[]> {
@@ -106,10 +104,7 @@ export function catalogueRepository(db: Db) {
         .map((c) => ({
           role: c.role as SystemRole,
           product: toProduct(c),
-          price:
-            c.pack_price === null || c.pack_price === undefined
-              ? null
-              : { pack_price: c.pack_price, on_hand: c.on_hand, reserved: c.reserved, reorder_level: c.reorder_level },
+          price: c.pack_price === null || c.pack_price === undefined ? null : { pack_price: c.pack_price, on_hand: c.on_hand, reserved: c.reserved, reorder_level: c.reorder_level },
         })),
     }));
   }

@@ -1,13 +1,6 @@
 import { parseRoofSystem } from '../../../shared/engine/roof-system';
 import type { RoofSystem } from '../../../shared/schemas/roof-system.schema';
-import {
-  REQUIRED_SYSTEM_ROLES,
-  TECHNICAL_SCHEMAS,
-  systemSettingsSchema,
-  type RoofSystemOffer,
-  type StockState,
-  type SystemRole,
-} from '../../../shared/schemas/catalogue.schema';
+import { REQUIRED_SYSTEM_ROLES, TECHNICAL_SCHEMAS, systemSettingsSchema, type RoofSystemOffer, type StockState, type SystemRole } from '../../../shared/schemas/catalogue.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
 import { AppError } from '../../http/app-error';
@@ -16,9 +9,7 @@ import { catalogueRepository, type CatalogueViewer, type SystemRow } from './cat
 type Technical = Record<string, unknown>;
 
 /** Why a system cannot be offered, or its engine input and the component per role. */
-export type BuiltSystem =
-  | { ok: true; system: RoofSystem; components: Map<SystemRole, SystemRow['components'][number]> }
-  | { ok: false; problems: string[] };
+export type BuiltSystem = { ok: true; system: RoofSystem; components: Map<SystemRole, SystemRow['components'][number]> } | { ok: false; problems: string[] };
 
 /**
  * The engine's roof-system input, taken from the products' technical fields and the system's own
@@ -63,12 +54,8 @@ export function buildSystem(row: SystemRow): BuiltSystem {
     ridge: { cover_mm: ridge.cover_mm, weight_kg: ridge.weight_kg },
     hip: { cover_mm: hip.cover_mm, weight_kg: hip.weight_kg, ...(byRole.has('hip_iron') ? { iron_kg: weight('hip_iron') } : {}) },
     // The fittings a system names decide how its verges and valleys are done.
-    verge: byRole.has('dry_verge')
-      ? { kind: 'dry', unit_kg: weight('dry_verge'), ...(byRole.has('ridge_end_cap') ? { end_cap_kg: weight('ridge_end_cap') } : {}) }
-      : { kind: 'mortar' },
-    valley: byRole.has('valley_trough')
-      ? { kind: 'trough', unit_length_mm: trough.unit_length_mm, lap_mm: trough.lap_mm, unit_kg: trough.weight_kg }
-      : { kind: 'lined' },
+    verge: byRole.has('dry_verge') ? { kind: 'dry', unit_kg: weight('dry_verge'), ...(byRole.has('ridge_end_cap') ? { end_cap_kg: weight('ridge_end_cap') } : {}) } : { kind: 'mortar' },
+    valley: byRole.has('valley_trough') ? { kind: 'trough', unit_length_mm: trough.unit_length_mm, lap_mm: trough.lap_mm, unit_kg: trough.weight_kg } : { kind: 'lined' },
     batten: { stock_length_mm: batten.stock_length_mm, kg_per_m: batten.kg_per_m, ...s.batten },
     underlay: { roll_width_mm: underlay.roll_width_mm, roll_length_mm: underlay.roll_length_mm, roll_kg: underlay.roll_kg, ...s.underlay },
     fixing: { ...s.fixing, batten_nail_g: t('batten_nail').nail_g, tile_nail_g: t('tile_nail').nail_g },

@@ -68,7 +68,9 @@ export interface FileMeta {
 export function deliveriesRepository(db: Db) {
   return {
     async insertProof(trx: Db, p: Omit<ProofRow, 'id' | 'created_at'>, lines: ProofLineRow[], files: ProofFile[]): Promise<number> {
-      const [row] = await trx('delivery_proofs').insert({ ...p, created_at: nowIso() }).returning('id');
+      const [row] = await trx('delivery_proofs')
+        .insert({ ...p, created_at: nowIso() })
+        .returning('id');
       const id = (row as { id: number }).id;
       if (lines.length > 0) await trx('delivery_proof_lines').insert(lines.map((l) => ({ proof_id: id, ...l })));
       for (const f of files) {
@@ -104,7 +106,9 @@ export function deliveriesRepository(db: Db) {
     },
 
     async insertDraft(trx: Db, d: Omit<DraftRow, 'id' | 'created_at' | 'status' | 'credit_note_id'>): Promise<number> {
-      const [row] = await trx('credit_note_drafts').insert({ ...d, status: 'draft', lines: JSON.stringify(d.lines), created_at: nowIso() }).returning('id');
+      const [row] = await trx('credit_note_drafts')
+        .insert({ ...d, status: 'draft', lines: JSON.stringify(d.lines), created_at: nowIso() })
+        .returning('id');
       return (row as { id: number }).id;
     },
 

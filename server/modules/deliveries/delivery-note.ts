@@ -98,7 +98,11 @@ export async function deliveryNotePdf(n: DeliveryNoteInput): Promise<Buffer> {
       ['Received by', proof.receiver_name],
       ['Delivered at', when(proof.delivered_at)],
       ['Recorded by', proof.recorded_by.name],
-      ...(proof.position ? ([['Position', `${proof.position.lat.toFixed(5)}, ${proof.position.lng.toFixed(5)}${proof.position.accuracy_m !== undefined ? ` (within ${Math.round(proof.position.accuracy_m)} m)` : ''}`]] as Array<[string, string]>) : []),
+      ...(proof.position
+        ? ([['Position', `${proof.position.lat.toFixed(5)}, ${proof.position.lng.toFixed(5)}${proof.position.accuracy_m !== undefined ? ` (within ${Math.round(proof.position.accuracy_m)} m)` : ''}`]] as Array<
+            [string, string]
+          >)
+        : []),
       ...(proof.note ? ([['Note', proof.note]] as Array<[string, string]>) : []),
     ]);
     if (n.signature) {
@@ -115,13 +119,26 @@ export async function deliveryNotePdf(n: DeliveryNoteInput): Promise<Buffer> {
     w.ensureSpace(120);
     const y = doc.y + 4;
     doc.rect(w.left, y, w.width, 100).lineWidth(0.75).strokeColor('#555555').stroke();
-    doc.font(FONT_BOLD).fontSize(9.5).fillColor('#111111').text('Received in good order by', w.left + 8, y + 8);
+    doc
+      .font(FONT_BOLD)
+      .fontSize(9.5)
+      .fillColor('#111111')
+      .text('Received in good order by', w.left + 8, y + 8);
     doc.font(FONT_REGULAR).text('Name (capitals)', w.left + 8, y + 34);
-    doc.moveTo(w.left + 100, y + 44).lineTo(w.left + w.width - 8, y + 44).stroke();
+    doc
+      .moveTo(w.left + 100, y + 44)
+      .lineTo(w.left + w.width - 8, y + 44)
+      .stroke();
     doc.text('Signature', w.left + 8, y + 58);
-    doc.moveTo(w.left + 100, y + 68).lineTo(w.left + w.width / 2, y + 68).stroke();
+    doc
+      .moveTo(w.left + 100, y + 68)
+      .lineTo(w.left + w.width / 2, y + 68)
+      .stroke();
     doc.text('Date and time', w.left + w.width / 2 + 8, y + 58);
-    doc.moveTo(w.left + w.width / 2 + 80, y + 68).lineTo(w.left + w.width - 8, y + 68).stroke();
+    doc
+      .moveTo(w.left + w.width / 2 + 80, y + 68)
+      .lineTo(w.left + w.width - 8, y + 68)
+      .stroke();
     doc.text('Note anything short or damaged on this note before signing.', w.left + 8, y + 80);
     doc.y = y + 108;
     doc.x = w.left;
@@ -138,7 +155,11 @@ export async function deliveryNotePdf(n: DeliveryNoteInput): Promise<Buffer> {
       const x = w.left + (i % 2) * (size + 12);
       const y = doc.y;
       doc.image(jpeg, x, y, { fit: [size, size] });
-      doc.font(FONT_REGULAR).fontSize(8).fillColor('#555555').text(`Photo ${i + 1}`, x, y + size + 2);
+      doc
+        .font(FONT_REGULAR)
+        .fontSize(8)
+        .fillColor('#555555')
+        .text(`Photo ${i + 1}`, x, y + size + 2);
       if (i % 2 === 1 || i === n.photos.length - 1) doc.y = y + size + 14;
       else doc.y = y;
     }

@@ -98,12 +98,7 @@ export interface EstimateFace {
  * pallets carry for it. The pallets are filled face by face in schedule order, so the faces at the
  * end of the schedule are the ones left short.
  */
-export function shortFaces(
-  faces: readonly EstimateFace[],
-  pallets: readonly Pallet[],
-  lines: readonly SheetLine[],
-  followUp: { reference: string; due_date: string | null } | null,
-): ShortFace[] {
+export function shortFaces(faces: readonly EstimateFace[], pallets: readonly Pallet[], lines: readonly SheetLine[], followUp: { reference: string; due_date: string | null } | null): ShortFace[] {
   const tilesShort = lines.some((l) => l.category === 'tile' && l.reserved_quantity < (l.confirmed_quantity ?? l.quantity) + l.back_order_quantity);
   if (!tilesShort) return [];
   const carried = new Map<string, number>();
@@ -146,7 +141,10 @@ export function landingPlan(faces: readonly EstimateFace[], pallets: readonly Pa
 
 /** A `geo:` link the phone hands to its own maps app, searching for the site's address and postcode. */
 export function mapsUrl(site: Pick<OrderSite, 'site_address' | 'site_postcode'>): string {
-  const q = [site.site_address, site.site_postcode].map((s) => s.trim()).filter(Boolean).join(', ');
+  const q = [site.site_address, site.site_postcode]
+    .map((s) => s.trim())
+    .filter(Boolean)
+    .join(', ');
   return `geo:0,0?q=${encodeURIComponent(q)}`;
 }
 
@@ -160,9 +158,7 @@ export function runCautions(perDrop: readonly (readonly string[])[]): string[] {
  * where one is set, then the booking time (new bookings go last).
  */
 export function dropOrder<T extends { booked_at: string; id: number; drop_position?: number | null }>(bookings: readonly T[]): T[] {
-  return [...bookings].sort(
-    (a, b) => (a.drop_position ?? Number.MAX_SAFE_INTEGER) - (b.drop_position ?? Number.MAX_SAFE_INTEGER) || a.booked_at.localeCompare(b.booked_at) || a.id - b.id,
-  );
+  return [...bookings].sort((a, b) => (a.drop_position ?? Number.MAX_SAFE_INTEGER) - (b.drop_position ?? Number.MAX_SAFE_INTEGER) || a.booked_at.localeCompare(b.booked_at) || a.id - b.id);
 }
 
 /** The driver's notes for a drop: how it is set down, where, access, contact and the order's own notes. */

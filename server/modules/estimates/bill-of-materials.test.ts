@@ -68,9 +68,7 @@ describe('billOfMaterials', () => {
     expect(lines.map((l) => l.category)).toEqual(['tile']);
     expect(not_counted.map((n) => n.category)).toContain('valley');
     expect(not_counted.map((n) => n.category)).toContain('clip');
-    expect(not_counted.find((n) => n.category === 'hip_iron')?.message).toBe(
-      'the roof needs 4 piece of hip irons, but this system has no such product: add it to the order by hand',
-    );
+    expect(not_counted.find((n) => n.category === 'hip_iron')?.message).toBe('the roof needs 4 piece of hip irons, but this system has no such product: add it to the order by hand');
   });
 
   it('orders trough valleys as units instead of valley lining, and a slate roof’s special pieces as their own lines', () => {

@@ -95,11 +95,7 @@ function genericDescription(category: SystemRole, s: RoofSystem): string {
  * the lines carry the engine's quantities and no price. Counted items with no product (valleys on a
  * system without a valley lining) are listed apart.
  */
-export function billOfMaterials(
-  result: EngineResult,
-  system: RoofSystem,
-  components: Map<SystemRole, PricedComponent> | null,
-): { lines: BillLine[]; not_counted: NotCounted[] } {
+export function billOfMaterials(result: EngineResult, system: RoofSystem, components: Map<SystemRole, PricedComponent> | null): { lines: BillLine[]; not_counted: NotCounted[] } {
   const t = result.totals;
   const lines: BillLine[] = [];
   const notCounted: NotCounted[] = [];

@@ -31,9 +31,7 @@ export function orderCautions(method: 'ground' | 'roof', site: DeliverySite): st
       );
     }
   } else {
-    delivery.push(
-      'Pallets set down at ground level are moved by plant or by hand: plan each lift, keep people clear of the lorry while it unloads, and remember manual-handling figures are not safe limits.',
-    );
+    delivery.push('Pallets set down at ground level are moved by plant or by hand: plan each lift, keep people clear of the lorry while it unloads, and remember manual-handling figures are not safe limits.');
   }
   return [...delivery, ...SAFETY_CAUTIONS, FIGURES_ARE_ESTIMATES];
 }

@@ -7,13 +7,9 @@ import type { EstimatesService } from './estimates.service';
 export function estimatesRoutes(estimates: EstimatesService) {
   const r = apiRouter();
 
-  r.post(
-    '/projects/:id/estimates',
-    { access: { action: 'estimates:write' }, params: projectParamsSchema, body: createEstimateBodySchema },
-    async (req, res, { params, body }) => {
-      res.status(201).json(await estimates.create(currentUser(req), params.id, body));
-    },
-  );
+  r.post('/projects/:id/estimates', { access: { action: 'estimates:write' }, params: projectParamsSchema, body: createEstimateBodySchema }, async (req, res, { params, body }) => {
+    res.status(201).json(await estimates.create(currentUser(req), params.id, body));
+  });
 
   r.get('/projects/:id/estimates', { access: { action: 'estimates:read' }, params: projectParamsSchema }, async (req, res, { params }) => {
     res.json(await estimates.listForProject(currentUser(req), params.id));

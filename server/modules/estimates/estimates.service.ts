@@ -4,12 +4,7 @@ import type { EngineResult } from '../../../shared/engine/result';
 import { parseRoofSystem } from '../../../shared/engine/roof-system';
 import { ENGINE_VERSION } from '../../../shared/engine/version';
 import { CATEGORY_LABELS, PRODUCT_CATEGORIES, type SystemRole } from '../../../shared/schemas/catalogue.schema';
-import type {
-  Estimate,
-  EstimateComparison,
-  WastePct,
-  createEstimateBodySchema,
-} from '../../../shared/schemas/estimate.schema';
+import type { Estimate, EstimateComparison, WastePct, createEstimateBodySchema } from '../../../shared/schemas/estimate.schema';
 import type { RoofSystem } from '../../../shared/schemas/roof-system.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
@@ -50,12 +45,7 @@ export function estimatesService(deps: Pick<AppDeps, 'db' | 'logger'>) {
   const projects = projectsService(deps);
 
   /** Runs the engine and prices its result; nothing is stored when the schedule does not suit the system. */
-  async function compute(
-    user: AuthUser,
-    schedule: ScheduleWithFaces,
-    source: { system_id: number; waste?: WastePct } | { system: unknown; waste?: WastePct },
-    recomputedFrom: number | null,
-  ) {
+  async function compute(user: AuthUser, schedule: ScheduleWithFaces, source: { system_id: number; waste?: WastePct } | { system: unknown; waste?: WastePct }, recomputedFrom: number | null) {
     let system: RoofSystem;
     let components: Map<SystemRole, PricedComponent> | null = null;
     let systemName = 'Generic roof system';
@@ -64,9 +54,7 @@ export function estimatesService(deps: Pick<AppDeps, 'db' | 'logger'>) {
     if ('system_id' in source) {
       const { row, built } = await catalogue.systemForEstimate(user, source.system_id);
       system = resolveSystem(built.system, source.waste, '');
-      components = new Map(
-        [...built.components].map(([role, c]) => [role, { product: c.product, pack_price: c.price!.pack_price }] as const),
-      );
+      components = new Map([...built.components].map(([role, c]) => [role, { product: c.product, pack_price: c.price!.pack_price }] as const));
       systemName = row.name;
       roofSystemId = row.id;
       branchId = row.branch_id;

@@ -19,16 +19,12 @@ export function exportsRoutes(estimates: EstimatesService, projects: ProjectsSer
     res.send(buffer);
   });
 
-  r.get(
-    '/estimates/:id/export.csv',
-    { access: { action: 'estimates:read' }, params: estimateParamsSchema, query: csvQuerySchema },
-    async (req, res, { params, query }) => {
-      const text = await exports.csv(currentUser(req), params.id, query.table);
-      res.type('text/csv; charset=utf-8');
-      res.attachment(`estimate-${params.id}-${query.table === 'faces' ? 'faces' : 'bill-of-materials'}.csv`);
-      res.send(text);
-    },
-  );
+  r.get('/estimates/:id/export.csv', { access: { action: 'estimates:read' }, params: estimateParamsSchema, query: csvQuerySchema }, async (req, res, { params, query }) => {
+    const text = await exports.csv(currentUser(req), params.id, query.table);
+    res.type('text/csv; charset=utf-8');
+    res.attachment(`estimate-${params.id}-${query.table === 'faces' ? 'faces' : 'bill-of-materials'}.csv`);
+    res.send(text);
+  });
 
   return r.router;
 }

@@ -64,7 +64,6 @@ const FACE_COLUMNS: Column<FaceResult>[] = [
   { header: 'Openings (m²)', width: 13, numFmt: TWO_DP, value: (f) => f.openings_area_m2 ?? 0 },
 ];
 
-
 /** One row per thing on a pallet: each face its tiles serve (or spare tiles), or each accessory. */
 interface PalletRow {
   pallet: Pallet;
@@ -110,9 +109,7 @@ interface StackRow {
 }
 
 function stackRows(faces: readonly FaceResult[], everyNth: number, stackSize: number): StackRow[] {
-  return faces.flatMap((f) =>
-    f.stacks_by_row.map((stacks, i) => ({ face: f, row: f.courses - i * everyNth, stacks, tiles: stacks * stackSize })),
-  );
+  return faces.flatMap((f) => f.stacks_by_row.map((stacks, i) => ({ face: f, row: f.courses - i * everyNth, stacks, tiles: stacks * stackSize })));
 }
 
 const STACK_COLUMNS: Column<StackRow>[] = [

@@ -51,12 +51,16 @@ export function fleetRepository(db: Db) {
 
     async insert(orgId: number, branchId: number, v: LorryValues): Promise<number> {
       const now = nowIso();
-      const [row] = await db('lorries').insert({ organisation_id: orgId, branch_id: branchId, ...v, created_at: now, updated_at: now }).returning('id');
+      const [row] = await db('lorries')
+        .insert({ organisation_id: orgId, branch_id: branchId, ...v, created_at: now, updated_at: now })
+        .returning('id');
       return (row as { id: number }).id;
     },
 
     async update(orgId: number, id: number, v: Partial<LorryValues> & { archived_at?: string | null }, trx: Db = db): Promise<void> {
-      await trx('lorries').where({ organisation_id: orgId, id }).update({ ...v, updated_at: nowIso() });
+      await trx('lorries')
+        .where({ organisation_id: orgId, id })
+        .update({ ...v, updated_at: nowIso() });
     },
 
     /** The lorry's runs from a day on, with how many of their orders are still to be delivered and how many are done. */

@@ -10,8 +10,7 @@ import { fleetRepository } from './fleet.repository';
 type CreateBody = z.output<typeof createLorryBodySchema>;
 type UpdateBody = z.output<typeof updateLorryBodySchema>;
 
-const taken = (registration: string) =>
-  AppError.conflict('registration_taken', `A lorry with the registration ${registration} is already in your fleet`, [{ path: 'registration', message: 'is already in your fleet' }]);
+const taken = (registration: string) => AppError.conflict('registration_taken', `A lorry with the registration ${registration} is already in your fleet`, [{ path: 'registration', message: 'is already in your fleet' }]);
 
 export function fleetService({ db, config }: Pick<AppDeps, 'db' | 'config'>) {
   const fleet = fleetRepository(db);
@@ -40,7 +39,7 @@ export function fleetService({ db, config }: Pick<AppDeps, 'db' | 'config'>) {
       const existing = await lorry(user, id);
       if (body.registration && (await fleet.registrationTaken(user.organisation.id, body.registration, id))) throw taken(body.registration);
       const hasCrane = body.has_crane ?? existing.has_crane;
-      const craneMax = body.has_crane === false ? null : (body.crane_max_kg !== undefined ? body.crane_max_kg : existing.crane_max_kg);
+      const craneMax = body.has_crane === false ? null : body.crane_max_kg !== undefined ? body.crane_max_kg : existing.crane_max_kg;
       if (hasCrane && !craneMax) throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path: 'crane_max_kg', message: 'give the heaviest load the crane lifts, in kg' }]);
       const peak = await fleet.bookedPeak(id, config.calendar.today());
       const problems: { path: string; message: string }[] = [];

@@ -4,7 +4,6 @@ import { safeCell } from '../exports/spreadsheet-text';
 import escapeHtml from 'escape-html';
 import { formatMoney } from '../../../shared/domain/money';
 
-
 const rate = (bp: number) => `${(bp / 100).toLocaleString('en-GB', { maximumFractionDigits: 2 })}%`;
 
 /** Tax per rate, as an invoice's tax summary shows it. */
@@ -24,7 +23,8 @@ export function invoiceHtml(inv: Invoice, merchant: { name: string; branch_addre
   const m = (v: number) => escapeHtml(formatMoney(v, inv.currency));
   const rows = inv.lines
     .map(
-      (l) => `<tr><td>${escapeHtml(l.sku)}</td><td>${escapeHtml(l.description)}</td><td class="n">${l.quantity}</td><td>${escapeHtml(l.unit)}${l.pack_size > 1 ? ` × ${l.pack_size}` : ''}</td><td class="n">${m(l.unit_price)}</td><td class="n">${rate(l.tax_rate_bp)}</td><td class="n">${m(l.net)}</td><td class="n">${m(l.tax)}</td><td class="n">${m(l.total)}</td></tr>`,
+      (l) =>
+        `<tr><td>${escapeHtml(l.sku)}</td><td>${escapeHtml(l.description)}</td><td class="n">${l.quantity}</td><td>${escapeHtml(l.unit)}${l.pack_size > 1 ? ` × ${l.pack_size}` : ''}</td><td class="n">${m(l.unit_price)}</td><td class="n">${rate(l.tax_rate_bp)}</td><td class="n">${m(l.net)}</td><td class="n">${m(l.tax)}</td><td class="n">${m(l.total)}</td></tr>`,
     )
     .join('\n');
   const tax = taxSummary(inv.lines)

@@ -68,16 +68,7 @@ export interface PaymentRow {
   created_at: string;
 }
 
-const INVOICE_COLUMNS = [
-  'i.*',
-  'mo.name as merchant_name',
-  'co.name as contractor_name',
-  'b.name as branch_name',
-  'b.town as branch_town',
-  'b.address as branch_address',
-  'o.site_name',
-  'o.po_reference',
-];
+const INVOICE_COLUMNS = ['i.*', 'mo.name as merchant_name', 'co.name as contractor_name', 'b.name as branch_name', 'b.town as branch_town', 'b.address as branch_address', 'o.site_name', 'o.po_reference'];
 
 /**
  * Invoices, credit notes, card payments and refunds. Every read is scoped to the merchant that
@@ -107,9 +98,15 @@ export function invoicesRepository(db: Db) {
       return row.last_number as number;
     },
 
-    async insert(trx: Db, inv: Omit<InvoiceRow, 'id' | 'merchant_name' | 'contractor_name' | 'branch_name' | 'branch_town' | 'branch_address' | 'site_name' | 'po_reference' | 'credited' | 'paid' | 'created_at'> & { issued_by: number }, lines: NewInvoiceLine[]): Promise<number> {
+    async insert(
+      trx: Db,
+      inv: Omit<InvoiceRow, 'id' | 'merchant_name' | 'contractor_name' | 'branch_name' | 'branch_town' | 'branch_address' | 'site_name' | 'po_reference' | 'credited' | 'paid' | 'created_at'> & { issued_by: number },
+      lines: NewInvoiceLine[],
+    ): Promise<number> {
       const now = nowIso();
-      const [row] = await trx('invoices').insert({ ...inv, credited: 0, paid: 0, created_at: now, updated_at: now }).returning('id');
+      const [row] = await trx('invoices')
+        .insert({ ...inv, credited: 0, paid: 0, created_at: now, updated_at: now })
+        .returning('id');
       const id = (row as { id: number }).id;
       if (lines.length > 0) await trx('invoice_lines').insert(lines.map((l) => ({ ...l, invoice_id: id })));
       return id;
@@ -171,22 +168,41 @@ export function invoicesRepository(db: Db) {
     },
 
     async addPaid(trx: Db, invoiceId: number, amount: number): Promise<void> {
-      await trx('invoices').where('id', invoiceId).update({ paid: trx.raw('?? + ?', ['paid', amount]), updated_at: nowIso() });
+      await trx('invoices')
+        .where('id', invoiceId)
+        .update({ paid: trx.raw('?? + ?', ['paid', amount]), updated_at: nowIso() });
     },
 
     async insertCreditNote(
       trx: Db,
-      cn: { merchant_organisation_id: number; contractor_organisation_id: number; invoice_id: number; number: number; reason: string; notes: string; subtotal: number; tax_total: number; total: number; issued_by: number },
+      cn: {
+        merchant_organisation_id: number;
+        contractor_organisation_id: number;
+        invoice_id: number;
+        number: number;
+        reason: string;
+        notes: string;
+        subtotal: number;
+        tax_total: number;
+        total: number;
+        issued_by: number;
+      },
       lines: { invoice_line_id: number; quantity: number; unit_price: number; tax_rate_bp: number; net: number; tax: number; total: number }[],
     ): Promise<number> {
-      const [row] = await trx('credit_notes').insert({ ...cn, created_at: nowIso() }).returning('id');
+      const [row] = await trx('credit_notes')
+        .insert({ ...cn, created_at: nowIso() })
+        .returning('id');
       const id = (row as { id: number }).id;
       await trx('credit_note_lines').insert(lines.map((l) => ({ ...l, credit_note_id: id })));
       return id;
     },
 
     async creditNotes(invoiceId: number, trx: Db = db) {
-      const notes = await trx('credit_notes as c').leftJoin('refunds as r', 'r.credit_note_id', 'c.id').where('c.invoice_id', invoiceId).select('c.*', 'r.status as refund_status', 'r.amount as refund_amount', 'r.last_error as refund_error').orderBy('c.id');
+      const notes = await trx('credit_notes as c')
+        .leftJoin('refunds as r', 'r.credit_note_id', 'c.id')
+        .where('c.invoice_id', invoiceId)
+        .select('c.*', 'r.status as refund_status', 'r.amount as refund_amount', 'r.last_error as refund_error')
+        .orderBy('c.id');
       if (notes.length === 0) return [];
       const lines = await trx('credit_note_lines as cl')
         .join('invoice_lines as il', 'il.id', 'cl.invoice_line_id')
@@ -247,7 +263,9 @@ export function invoicesRepository(db: Db) {
 
     async insertRefund(trx: Db, r: { credit_note_id: number; payment_id: number; amount: number }): Promise<number> {
       const now = nowIso();
-      const [row] = await trx('refunds').insert({ ...r, status: 'pending', created_at: now, updated_at: now }).returning('id');
+      const [row] = await trx('refunds')
+        .insert({ ...r, status: 'pending', created_at: now, updated_at: now })
+        .returning('id');
       return (row as { id: number }).id;
     },
 
@@ -281,11 +299,7 @@ export function invoicesRepository(db: Db) {
           this.on('a.contractor_organisation_id', '=', 'co.id').andOn('a.merchant_organisation_id', '=', db.raw('?', [merchantId]));
         })
         .where('co.kind', 'contractor')
-        .where((w) =>
-          w
-            .whereNotNull('a.id')
-            .orWhereExists(db('orders as o').whereRaw('?? = ??', ['o.contractor_organisation_id', 'co.id']).where('o.merchant_organisation_id', merchantId)),
-        )
+        .where((w) => w.whereNotNull('a.id').orWhereExists(db('orders as o').whereRaw('?? = ??', ['o.contractor_organisation_id', 'co.id']).where('o.merchant_organisation_id', merchantId)))
         .select('co.id', 'co.name', 'a.terms_days', 'a.card_payments')
         .select(db('orders as o2').count('*').whereRaw('?? = ??', ['o2.contractor_organisation_id', 'co.id']).where('o2.merchant_organisation_id', merchantId).as('orders'))
         .orderBy('co.name');

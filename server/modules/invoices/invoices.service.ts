@@ -1,13 +1,5 @@
 import type { z } from 'zod';
-import {
-  INVOICE_STATUS_LABELS,
-  creditNoteNumber,
-  invoiceNumber,
-  type Invoice,
-  type InvoiceStatus,
-  type InvoiceSummary,
-  type creditNoteBodySchema,
-} from '../../../shared/schemas/invoice.schema';
+import { INVOICE_STATUS_LABELS, creditNoteNumber, invoiceNumber, type Invoice, type InvoiceStatus, type InvoiceSummary, type creditNoteBodySchema } from '../../../shared/schemas/invoice.schema';
 import { orderReference } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
 import type { AuthUser } from '../../auth/auth-user';
@@ -157,7 +149,15 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         if (await invoices.byOrder(orderId, trx)) throw AppError.conflict('already_invoiced', `${orderReference(orderId)} already has an invoice: credit it to change it`);
         const lines = await orders.lines(orderId, trx);
         const rates = new Map<number, number>(
-          (await trx('products').where('organisation_id', user.organisation.id).whereIn('id', lines.map((l) => l.product_id)).select('id', 'tax_rate_bp')).map((r) => [r.id as number, r.tax_rate_bp as number]),
+          (
+            await trx('products')
+              .where('organisation_id', user.organisation.id)
+              .whereIn(
+                'id',
+                lines.map((l) => l.product_id),
+              )
+              .select('id', 'tax_rate_bp')
+          ).map((r) => [r.id as number, r.tax_rate_bp as number]),
         );
         const invoiceLines: NewInvoiceLine[] = lines
           .map((l) => ({ l, quantity: basis === 'delivered' ? (l.delivered_quantity ?? 0) : l.reserved_quantity }))
@@ -166,7 +166,20 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
             const net = quantity * l.unit_price;
             const rate = rates.get(l.product_id) ?? 0;
             const tax = lineTax(net, rate);
-            return { position: i + 1, order_line_id: l.id, sku: l.sku, description: l.description, unit: l.unit, pack_size: l.pack_size, quantity, unit_price: l.unit_price, tax_rate_bp: rate, net, tax, total: net + tax };
+            return {
+              position: i + 1,
+              order_line_id: l.id,
+              sku: l.sku,
+              description: l.description,
+              unit: l.unit,
+              pack_size: l.pack_size,
+              quantity,
+              unit_price: l.unit_price,
+              tax_rate_bp: rate,
+              net,
+              tax,
+              total: net + tax,
+            };
           });
         if (invoiceLines.length === 0) throw AppError.conflict('nothing_to_invoice', `Nothing on ${orderReference(orderId)} was ${basis === 'delivered' ? 'delivered' : 'confirmed to send'}`);
         const terms = await invoices.terms(user.organisation.id, order.contractor_organisation_id, trx);
@@ -200,7 +213,14 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
           summary: `Invoice ${invoiceNumber(number)} issued: ${formatMoney(subtotal + taxTotal, config.currency)} with tax`,
           data: { invoice_id: invoiceId },
         });
-        await mailIssued(trx, order, { id: invoiceId, number: invoiceNumber(number), total: subtotal + taxTotal, tax_total: taxTotal, pay_by: terms === null ? 'card' : 'account', due_date: terms === null ? null : addDays(issueDate, terms) });
+        await mailIssued(trx, order, {
+          id: invoiceId,
+          number: invoiceNumber(number),
+          total: subtotal + taxTotal,
+          tax_total: taxTotal,
+          pay_by: terms === null ? 'card' : 'account',
+          due_date: terms === null ? null : addDays(issueDate, terms),
+        });
         return invoiceId;
       });
       return get(user, id);
@@ -241,7 +261,18 @@ export function invoicesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         const number = await invoices.nextNumber(trx, user.organisation.id, 'credit_note');
         const cnId = await invoices.insertCreditNote(
           trx,
-          { merchant_organisation_id: user.organisation.id, contractor_organisation_id: inv.contractor_organisation_id, invoice_id: invoiceId, number, reason: body.reason, notes: body.notes ?? '', subtotal, tax_total: taxTotal, total, issued_by: user.id },
+          {
+            merchant_organisation_id: user.organisation.id,
+            contractor_organisation_id: inv.contractor_organisation_id,
+            invoice_id: invoiceId,
+            number,
+            reason: body.reason,
+            notes: body.notes ?? '',
+            subtotal,
+            tax_total: taxTotal,
+            total,
+            issued_by: user.id,
+          },
           noteLines,
         );
         await orders.insertEvent(trx, inv.order_id, {

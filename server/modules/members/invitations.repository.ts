@@ -18,14 +18,17 @@ const LIST_COLUMNS = ['id', 'email', 'role', 'expires_at', 'created_at'] as cons
 
 export function invitationsRepository(db: Db) {
   return {
-    async create(input: {
-      organisation_id: number;
-      email: string;
-      role: Role;
-      token_hash: string;
-      invited_by: number;
-      expires_at: string;
-    }, trx: Db = db) {
+    async create(
+      input: {
+        organisation_id: number;
+        email: string;
+        role: Role;
+        token_hash: string;
+        invited_by: number;
+        expires_at: string;
+      },
+      trx: Db = db,
+    ) {
       const [row] = await trx('invitations')
         .insert({ ...input, created_at: nowIso() })
         .returning([...LIST_COLUMNS]);
@@ -44,12 +47,7 @@ export function invitationsRepository(db: Db) {
 
     /** An invitation that can still be used: not accepted, not revoked, not expired. */
     async findUsable(tokenHash: string, trx: Db = db): Promise<InvitationRow | undefined> {
-      return trx('invitations')
-        .where({ token_hash: tokenHash })
-        .whereNull('accepted_at')
-        .whereNull('revoked_at')
-        .where('expires_at', '>', nowIso())
-        .first();
+      return trx('invitations').where({ token_hash: tokenHash }).whereNull('accepted_at').whereNull('revoked_at').where('expires_at', '>', nowIso()).first();
     },
 
     /** Marks it used; returns false when another request used it first. */
@@ -59,11 +57,7 @@ export function invitationsRepository(db: Db) {
     },
 
     async revoke(organisationId: number, id: number): Promise<boolean> {
-      const n = await db('invitations')
-        .where({ id, organisation_id: organisationId })
-        .whereNull('accepted_at')
-        .whereNull('revoked_at')
-        .update({ revoked_at: nowIso() });
+      const n = await db('invitations').where({ id, organisation_id: organisationId }).whereNull('accepted_at').whereNull('revoked_at').update({ revoked_at: nowIso() });
       return n === 1;
     },
   };

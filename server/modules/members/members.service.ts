@@ -15,9 +15,7 @@ export const INVITATION_HOURS = 7 * 24;
 
 function assertRoleFitsOrganisation(actor: AuthUser, role: Role) {
   if (!ROLES_BY_KIND[actor.organisation.kind].includes(role)) {
-    throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [
-      { path: 'role', message: `A ${actor.organisation.kind} firm cannot have the role ${ROLE_LABELS[role]}` },
-    ]);
+    throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path: 'role', message: `A ${actor.organisation.kind} firm cannot have the role ${ROLE_LABELS[role]}` }]);
   }
 }
 
@@ -80,10 +78,7 @@ export function membersService({ db, config }: AppDeps) {
             to: email,
             subject: `${actor.name} invited you to ${actor.organisation.name} on Ridgeload`,
             heading: `Join ${actor.organisation.name}`,
-            paragraphs: [
-              `${actor.name} has invited you to work in Ridgeload for ${actor.organisation.name} as ${ROLE_LABELS[role]}.`,
-              'The link works once and for seven days.',
-            ],
+            paragraphs: [`${actor.name} has invited you to work in Ridgeload for ${actor.organisation.name} as ${ROLE_LABELS[role]}.`, 'The link works once and for seven days.'],
             action: { label: 'Accept the invitation', url },
             footnote: 'If you do not know this firm, ignore this e-mail.',
           });
@@ -127,10 +122,7 @@ export function membersService({ db, config }: AppDeps) {
         if (await trx('users').where({ email: invitation.email }).first()) {
           throw AppError.conflict('already_member', 'This e-mail address already has a Ridgeload account; sign in instead');
         }
-        return users.create(
-          { organisation_id: invitation.organisation_id, email: invitation.email, name: input.name, role: invitation.role, password_hash: passwordHash },
-          trx,
-        );
+        return users.create({ organisation_id: invitation.organisation_id, email: invitation.email, name: input.name, role: invitation.role, password_hash: passwordHash }, trx);
       });
       return (await users.findAuthUser(userId))!;
     },

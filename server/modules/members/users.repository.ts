@@ -24,8 +24,7 @@ interface AuthUserRow {
   org_name: string;
   org_kind: AuthUser['organisation']['kind'];
 }
-const AUTH_USER_SQL =
-  'select u.id, u.email, u.name, u.role, o.id as org_id, o.name as org_name, o.kind as org_kind from users u join organisations o on o.id = u.organisation_id where u.id = ?';
+const AUTH_USER_SQL = 'select u.id, u.email, u.name, u.role, o.id as org_id, o.name as org_name, o.kind as org_kind from users u join organisations o on o.id = u.organisation_id where u.id = ?';
 
 export function usersRepository(db: Db) {
   /**
@@ -62,10 +61,7 @@ export function usersRepository(db: Db) {
       return readAuthUser(id);
     },
 
-    async create(
-      input: { organisation_id: number; email: string; name: string; role: Role; password_hash: string },
-      trx: Db = db,
-    ): Promise<number> {
+    async create(input: { organisation_id: number; email: string; name: string; role: Role; password_hash: string }, trx: Db = db): Promise<number> {
       const [row] = await trx('users')
         .insert({ ...input, email: input.email.toLowerCase(), created_at: nowIso() })
         .returning('id');
@@ -77,11 +73,17 @@ export function usersRepository(db: Db) {
     },
 
     async listMembers(organisationId: number) {
-      return db('users').select(...PUBLIC_COLUMNS).where({ organisation_id: organisationId }).orderBy('name');
+      return db('users')
+        .select(...PUBLIC_COLUMNS)
+        .where({ organisation_id: organisationId })
+        .orderBy('name');
     },
 
     async findMember(organisationId: number, userId: number, trx: Db = db) {
-      return trx('users').select(...PUBLIC_COLUMNS).where({ organisation_id: organisationId, id: userId }).first();
+      return trx('users')
+        .select(...PUBLIC_COLUMNS)
+        .where({ organisation_id: organisationId, id: userId })
+        .first();
     },
 
     async countWithRole(organisationId: number, role: Role, trx: Db = db): Promise<number> {

@@ -24,9 +24,7 @@ export interface OrderBookSource<Filter, Page> {
  * older than the version it is filed under. The count is kept without the page and sort, so turning
  * pages or re-sorting a filter already counted costs only the page.
  */
-export function orderBookCache<Filter extends { page: number; page_size: number; sort: string; dir: string }, Page extends NonNullable<unknown>>(
-  source: OrderBookSource<Filter, Page>,
-) {
+export function orderBookCache<Filter extends { page: number; page_size: number; sort: string; dir: string }, Page extends NonNullable<unknown>>(source: OrderBookSource<Filter, Page>) {
   const counts = new LRUCache<string, { total: number; capped: boolean }>({ max: MAX_ENTRIES, ttl: TTL_MS });
   const pages = new LRUCache<string, Page>({ max: MAX_ENTRIES, ttl: TTL_MS });
   let hits = 0;

@@ -6,19 +6,7 @@ import { renderEmail } from '../../mail/templates';
 import type { OrderRow } from './orders.repository';
 
 export type OrderMailEvent =
-  | 'placed'
-  | 'amended'
-  | 'cancelled'
-  | 'changes_offered'
-  | 'changes_accepted'
-  | 'changes_declined'
-  | 'confirmed'
-  | 'turned_down'
-  | 'slot_booked'
-  | 'dispatched'
-  | 'delivered'
-  | 'follow_up_started'
-  | 'commented';
+  'placed' | 'amended' | 'cancelled' | 'changes_offered' | 'changes_accepted' | 'changes_declined' | 'confirmed' | 'turned_down' | 'slot_booked' | 'dispatched' | 'delivered' | 'follow_up_started' | 'commented';
 
 /** The booked delivery, for the e-mails that name it. */
 export interface MailSlot {
@@ -97,7 +85,11 @@ function letters(event: OrderMailEvent, o: OrderRow, note?: string, slot?: MailS
       };
     case 'turned_down':
       return {
-        contractor: { subject: `${o.branch_name} cannot supply order ${ref}`, heading: `Order ${ref} turned down`, paragraphs: [`${place} cannot supply this order.`, ...noted, 'You can send the estimate to another branch or ask for quotes.'] },
+        contractor: {
+          subject: `${o.branch_name} cannot supply order ${ref}`,
+          heading: `Order ${ref} turned down`,
+          paragraphs: [`${place} cannot supply this order.`, ...noted, 'You can send the estimate to another branch or ask for quotes.'],
+        },
       };
     case 'slot_booked':
       return { contractor: { subject: `Delivery booked for order ${ref}`, heading: `Delivery booked for order ${ref}`, paragraphs: [booked, delivery] } };
@@ -159,7 +151,11 @@ export async function sendOrderMail(
   ] as const) {
     if (!letter) continue;
     for (const address of to[side]) {
-      await enqueueMail(trx, renderEmail({ to: address, ...letter, action: { label: 'Open the order', url }, footnote: 'Figures are estimates; check them against the tile maker’s fixing specification.' }), config.mailDomain);
+      await enqueueMail(
+        trx,
+        renderEmail({ to: address, ...letter, action: { label: 'Open the order', url }, footnote: 'Figures are estimates; check them against the tile maker’s fixing specification.' }),
+        config.mailDomain,
+      );
     }
   }
 }

@@ -42,37 +42,21 @@ export function ordersRoutes(orders: OrdersService, idempotent: RequestHandler =
     res.json(await orders.amend(currentUser(req), params.id, body));
   });
 
-  r.post(
-    '/orders/:id/cancel',
-    { access: { action: 'orders:place' }, params: orderParamsSchema, body: cancelOrderBodySchema },
-    async (req, res, { params, body }) => {
-      res.json(await orders.cancel(currentUser(req), params.id, body.reason));
-    },
-  );
+  r.post('/orders/:id/cancel', { access: { action: 'orders:place' }, params: orderParamsSchema, body: cancelOrderBodySchema }, async (req, res, { params, body }) => {
+    res.json(await orders.cancel(currentUser(req), params.id, body.reason));
+  });
 
-  r.post(
-    '/orders/:id/proposals',
-    { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: proposalBodySchema },
-    async (req, res, { params, body }) => {
-      res.status(201).json(await orders.offerChanges(currentUser(req), params.id, body));
-    },
-  );
+  r.post('/orders/:id/proposals', { access: { action: 'orders:confirm' }, params: orderParamsSchema, body: proposalBodySchema }, async (req, res, { params, body }) => {
+    res.status(201).json(await orders.offerChanges(currentUser(req), params.id, body));
+  });
 
-  r.post(
-    '/orders/:id/proposals/:proposalId/accept',
-    { access: { action: 'orders:respond' }, params: proposalParamsSchema, body: answerProposalBodySchema },
-    async (req, res, { params, body }) => {
-      res.json(await orders.acceptChanges(currentUser(req), params.id, params.proposalId, body.note));
-    },
-  );
+  r.post('/orders/:id/proposals/:proposalId/accept', { access: { action: 'orders:respond' }, params: proposalParamsSchema, body: answerProposalBodySchema }, async (req, res, { params, body }) => {
+    res.json(await orders.acceptChanges(currentUser(req), params.id, params.proposalId, body.note));
+  });
 
-  r.post(
-    '/orders/:id/proposals/:proposalId/decline',
-    { access: { action: 'orders:respond' }, params: proposalParamsSchema, body: answerProposalBodySchema },
-    async (req, res, { params, body }) => {
-      res.json(await orders.declineChanges(currentUser(req), params.id, params.proposalId, body.note));
-    },
-  );
+  r.post('/orders/:id/proposals/:proposalId/decline', { access: { action: 'orders:respond' }, params: proposalParamsSchema, body: answerProposalBodySchema }, async (req, res, { params, body }) => {
+    res.json(await orders.declineChanges(currentUser(req), params.id, params.proposalId, body.note));
+  });
 
   r.get('/orders/:id/lines/:lineId/substitutes', { access: { action: 'orders:confirm' }, params: orderLineParamsSchema }, async (req, res, { params }) => {
     res.json(await orders.substitutes(currentUser(req), params.id, params.lineId));

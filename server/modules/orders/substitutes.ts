@@ -67,7 +67,10 @@ export async function substituteTileFigures(
   let afterBill: ReturnType<typeof billOfMaterials>;
   let engineVersion: string;
   try {
-    const beforeResult = estimate(suited.filter((f) => checkFacesAgainstSystem([f], before).length === 0), before);
+    const beforeResult = estimate(
+      suited.filter((f) => checkFacesAgainstSystem([f], before).length === 0),
+      before,
+    );
     const afterResult = estimate(suited, after);
     beforeBill = billOfMaterials(beforeResult, before, components);
     afterBill = billOfMaterials(afterResult, after, subComponents);

@@ -20,9 +20,7 @@ export interface BranchRow {
 export function organisationsRepository(db: Db) {
   return {
     async create(input: { name: string; kind: OrganisationKind }, trx: Db = db): Promise<OrganisationRow> {
-      const [row] = await trx('organisations')
-        .insert({ name: input.name, kind: input.kind, created_at: nowIso() })
-        .returning(['id', 'name', 'kind']);
+      const [row] = await trx('organisations').insert({ name: input.name, kind: input.kind, created_at: nowIso() }).returning(['id', 'name', 'kind']);
       return row as OrganisationRow;
     },
 
@@ -32,17 +30,11 @@ export function organisationsRepository(db: Db) {
 
     /** Branches of the caller's own organisation only. */
     async listBranches(organisationId: number): Promise<BranchRow[]> {
-      return db('branches')
-        .select('id', 'organisation_id', 'name', 'address', 'town', 'phone')
-        .where({ organisation_id: organisationId })
-        .orderBy('name');
+      return db('branches').select('id', 'organisation_id', 'name', 'address', 'town', 'phone').where({ organisation_id: organisationId }).orderBy('name');
     },
 
     async findBranch(organisationId: number, branchId: number): Promise<BranchRow | undefined> {
-      return db('branches')
-        .select('id', 'organisation_id', 'name', 'address', 'town', 'phone')
-        .where({ id: branchId, organisation_id: organisationId })
-        .first();
+      return db('branches').select('id', 'organisation_id', 'name', 'address', 'town', 'phone').where({ id: branchId, organisation_id: organisationId }).first();
     },
   };
 }

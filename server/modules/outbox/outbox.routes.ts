@@ -8,16 +8,9 @@ import { loopbackOnly } from '../../http/loopback';
  */
 export function outboxRoutes(db: Db) {
   const r = apiRouter();
-  r.get(
-    '/dev/outbox',
-    { access: { public: 'development mail reader: not mounted in production, and answers loopback only' }, before: [loopbackOnly] },
-    async (_req, res) => {
-      const messages = await db('dev_outbox')
-        .select('id', 'from', 'to', 'subject', 'text', 'html', 'created_at')
-        .orderBy('id', 'desc')
-        .limit(200);
-      res.json({ messages });
-    },
-  );
+  r.get('/dev/outbox', { access: { public: 'development mail reader: not mounted in production, and answers loopback only' }, before: [loopbackOnly] }, async (_req, res) => {
+    const messages = await db('dev_outbox').select('id', 'from', 'to', 'subject', 'text', 'html', 'created_at').orderBy('id', 'desc').limit(200);
+    res.json({ messages });
+  });
   return r.router;
 }

@@ -8,11 +8,7 @@ import { returnBase } from '../../http/return-origin';
 import { toPayment, type PaymentsService } from './payments.service';
 
 /** Starting and checking card payments, for the signed-in contractor. */
-export function paymentsRoutes(
-  payments: PaymentsService,
-  config: Pick<Config, 'appUrl' | 'allowedOrigins' | 'isProduction'>,
-  idempotent: RequestHandler = (_req, _res, next) => next(),
-) {
+export function paymentsRoutes(payments: PaymentsService, config: Pick<Config, 'appUrl' | 'allowedOrigins' | 'isProduction'>, idempotent: RequestHandler = (_req, _res, next) => next()) {
   const r = apiRouter();
 
   r.post('/invoices/:id/payments', { access: { action: 'payments:make' }, params: invoiceParamsSchema, body: startPaymentBodySchema, before: [idempotent] }, async (req, res, { params }) => {
@@ -34,14 +30,10 @@ export function paymentsRoutes(
  */
 export function paymentWebhookRoutes(payments: PaymentsService) {
   const r = apiRouter();
-  r.post(
-    '/payments/webhook',
-    { access: { public: 'the payment provider posts signed events; the signature is checked' }, before: [express.raw({ type: '*/*', limit: '1mb' })] },
-    async (req, res) => {
-      const event = await payments.verify(Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0), req.get('stripe-signature'));
-      const { duplicate } = await payments.handleEvent(event);
-      res.json({ received: true, duplicate });
-    },
-  );
+  r.post('/payments/webhook', { access: { public: 'the payment provider posts signed events; the signature is checked' }, before: [express.raw({ type: '*/*', limit: '1mb' })] }, async (req, res) => {
+    const event = await payments.verify(Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0), req.get('stripe-signature'));
+    const { duplicate } = await payments.handleEvent(event);
+    res.json({ received: true, duplicate });
+  });
   return r.router;
 }

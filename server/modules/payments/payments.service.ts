@@ -62,7 +62,12 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     const number = invoiceNumber(inv.number);
     const url = `${config.appUrl}/invoices/${invoiceId}`;
     const jobs = [
-      ...contractor.map((to) => ({ to, subject: `Payment received for invoice ${number}`, heading: 'Thank you: payment received', paragraphs: [`${order.merchant_name} received ${paid} by card for invoice ${number} (order ${orderReference(order.id)}).`] })),
+      ...contractor.map((to) => ({
+        to,
+        subject: `Payment received for invoice ${number}`,
+        heading: 'Thank you: payment received',
+        paragraphs: [`${order.merchant_name} received ${paid} by card for invoice ${number} (order ${orderReference(order.id)}).`],
+      })),
       ...desk.map((to) => ({ to, subject: `${order.contractor_name} paid invoice ${number}`, heading: `Invoice ${number} paid`, paragraphs: [`${paid} was paid by card for order ${orderReference(order.id)}.`] })),
     ];
     for (const j of jobs) await enqueueMail(trx, renderEmail({ ...j, action: { label: 'Open the invoice', url } }), config.mailDomain);
@@ -79,7 +84,9 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
     if (!stripe) throw unavailable();
     const back = `${base}/invoices/${invoiceId}`;
     try {
-      return await (await stripe.get()).checkout.sessions.create(
+      return await (
+        await stripe.get()
+      ).checkout.sessions.create(
         {
           mode: 'payment',
           line_items: [{ quantity: 1, price_data: { currency: payment.currency.toLowerCase(), unit_amount: payment.amount, product_data: { name: `Invoice ${number} (order ${orderReference(orderId)})` } } }],
@@ -197,10 +204,9 @@ export function paymentsService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' |
         return;
       }
       try {
-        const r = await (await stripe.get()).refunds.create(
-          { payment_intent: refund.provider_payment_id, amount: refund.amount, metadata: { credit_note_id: String(refund.credit_note_id) } },
-          { idempotencyKey: `ridgeload-refund-${refundId}` },
-        );
+        const r = await (
+          await stripe.get()
+        ).refunds.create({ payment_intent: refund.provider_payment_id, amount: refund.amount, metadata: { credit_note_id: String(refund.credit_note_id) } }, { idempotencyKey: `ridgeload-refund-${refundId}` });
         await db.transaction(async (trx) => {
           if (await invoices.updateRefund(trx, refundId, { status: r.status === 'succeeded' ? 'succeeded' : 'pending', provider_refund_id: r.id, last_error: null })) {
             if (r.status === 'succeeded') await invoices.addPaid(trx, refund.invoice_id, -refund.amount);

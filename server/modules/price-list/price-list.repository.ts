@@ -122,7 +122,9 @@ export function priceListRepository(db: Db) {
     },
 
     async setArchived(orgId: number, id: number, archived: boolean): Promise<void> {
-      await db('products').where({ organisation_id: orgId, id }).update({ archived_at: archived ? nowIso() : null, updated_at: nowIso() });
+      await db('products')
+        .where({ organisation_id: orgId, id })
+        .update({ archived_at: archived ? nowIso() : null, updated_at: nowIso() });
     },
 
     /** Sells the product at the branch at this pack price, or changes its price there. Returns whether it was new. */

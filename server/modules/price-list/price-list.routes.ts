@@ -46,13 +46,9 @@ export function priceListRoutes(priceList: PriceListService) {
   r.post('/products/:id/restore', { access: { action: 'catalogue:manage' }, params: idParamsSchema }, async (req, res, { params }) => {
     res.json(await priceList.archiveProduct(currentUser(req), params.id, false));
   });
-  r.put(
-    '/branches/:id/products/:productId',
-    { access: { action: 'catalogue:manage' }, params: branchProductParamsSchema, body: branchPriceBodySchema },
-    async (req, res, { params, body }) => {
-      res.json(await priceList.setBranchPrice(currentUser(req), params.id, params.productId, body.pack_price));
-    },
-  );
+  r.put('/branches/:id/products/:productId', { access: { action: 'catalogue:manage' }, params: branchProductParamsSchema, body: branchPriceBodySchema }, async (req, res, { params, body }) => {
+    res.json(await priceList.setBranchPrice(currentUser(req), params.id, params.productId, body.pack_price));
+  });
 
   r.get('/roof-systems', { access: { action: 'catalogue:read' }, query: roofSystemListQuerySchema }, async (req, res, { query }) => {
     res.json(await priceList.listSystems(currentUser(req), query.branch_id));

@@ -165,9 +165,7 @@ export function priceListService({ db }: Pick<AppDeps, 'db'>) {
       const branch = await branchOf(user, branchId);
       const rows = await repo.priceList(user.organisation.id, branchId);
       const name = `price-list-${branch.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}`;
-      return format === 'xlsx'
-        ? { filename: `${name}.xlsx`, body: await toXlsx('Price list', PRICE_LIST_FILE_COLUMNS, rows) }
-        : { filename: `${name}.csv`, body: toCsv(CSV_COLUMNS, rows) };
+      return format === 'xlsx' ? { filename: `${name}.xlsx`, body: await toXlsx('Price list', PRICE_LIST_FILE_COLUMNS, rows) } : { filename: `${name}.csv`, body: toCsv(CSV_COLUMNS, rows) };
     },
 
     /**

@@ -28,7 +28,12 @@ export function invalidSheet(problems: SheetProblem[]): AppError {
   return AppError.unprocessable('invalid_sheet', `Nothing was changed: ${n} ${n === 1 ? 'problem' : 'problems'} to fix in the file`, problems);
 }
 
-const normaliseHeader = (h: string) => h.replace(/^\uFEFF/, '').trim().toLowerCase().replace(/[\s-]+/g, '_');
+const normaliseHeader = (h: string) =>
+  h
+    .replace(/^\uFEFF/, '')
+    .trim()
+    .toLowerCase()
+    .replace(/[\s-]+/g, '_');
 
 /** An xlsx is a zip: it starts with PK\x03\x04. */
 export const isXlsx = (bytes: Buffer) => bytes.length > 4 && bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 0x03 && bytes[3] === 0x04;

@@ -31,18 +31,7 @@ export interface ListFilter {
   archived: 'false' | 'true' | 'all';
 }
 
-const SUMMARY_COLUMNS = [
-  'p.id',
-  'p.name',
-  'p.reference',
-  'p.site_address',
-  'p.site_postcode',
-  'p.contact_name',
-  'p.contact_phone',
-  'p.archived_at',
-  'p.created_at',
-  'p.updated_at',
-];
+const SUMMARY_COLUMNS = ['p.id', 'p.name', 'p.reference', 'p.site_address', 'p.site_postcode', 'p.contact_name', 'p.contact_phone', 'p.archived_at', 'p.created_at', 'p.updated_at'];
 const DETAIL_COLUMNS = [...SUMMARY_COLUMNS, 'p.revision', 'p.vehicle_access', 'p.crane_lift', 'p.overhead_lines', 'p.set_down_place', 'p.access_notes'];
 
 /** Special characters of LIKE are matched literally, so a search for "50%" finds "50%". */

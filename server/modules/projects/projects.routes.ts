@@ -1,9 +1,4 @@
-import {
-  createProjectBodySchema,
-  projectListQuerySchema,
-  projectParamsSchema,
-  updateProjectBodySchema,
-} from '../../../shared/schemas/project.schema';
+import { createProjectBodySchema, projectListQuerySchema, projectParamsSchema, updateProjectBodySchema } from '../../../shared/schemas/project.schema';
 import { currentUser } from '../../auth/policy';
 import { apiRouter } from '../../http/endpoint';
 import type { ProjectsService } from './projects.service';
@@ -23,13 +18,9 @@ export function projectsRoutes(projects: ProjectsService) {
     res.json(await projects.get(currentUser(req), params.id));
   });
 
-  r.patch(
-    '/projects/:id',
-    { access: { action: 'projects:write' }, params: projectParamsSchema, body: updateProjectBodySchema },
-    async (req, res, { params, body }) => {
-      res.json(await projects.update(currentUser(req), params.id, body));
-    },
-  );
+  r.patch('/projects/:id', { access: { action: 'projects:write' }, params: projectParamsSchema, body: updateProjectBodySchema }, async (req, res, { params, body }) => {
+    res.json(await projects.update(currentUser(req), params.id, body));
+  });
 
   r.post('/projects/:id/archive', { access: { action: 'projects:write' }, params: projectParamsSchema }, async (req, res, { params }) => {
     res.json(await projects.setArchived(currentUser(req), params.id, true));

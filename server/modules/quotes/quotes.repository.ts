@@ -193,12 +193,7 @@ export function quotesRepository(db: Db) {
       return (await quotesOf([found.quote_request_id], party, trx)).find((x) => x.id === quoteId);
     },
 
-    async replaceAnswer(
-      trx: Db,
-      quoteId: number,
-      answer: { message: string; valid_until: string | null; total: number; answered_by: number },
-      lines: Omit<Quote['lines'][number], never>[],
-    ): Promise<boolean> {
+    async replaceAnswer(trx: Db, quoteId: number, answer: { message: string; valid_until: string | null; total: number; answered_by: number }, lines: Omit<Quote['lines'][number], never>[]): Promise<boolean> {
       const n = await trx('quotes')
         .where({ id: quoteId })
         .whereIn('status', ['asked', 'answered'])
@@ -224,7 +219,10 @@ export function quotesRepository(db: Db) {
     },
 
     async setQuoteStatus(trx: Db, quoteId: number, from: QuoteStatus[], to: QuoteStatus, values: Record<string, unknown> = {}): Promise<boolean> {
-      const n = await trx('quotes').where({ id: quoteId }).whereIn('status', from).update({ ...values, status: to });
+      const n = await trx('quotes')
+        .where({ id: quoteId })
+        .whereIn('status', from)
+        .update({ ...values, status: to });
       return n > 0;
     },
 

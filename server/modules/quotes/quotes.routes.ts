@@ -1,10 +1,4 @@
-import {
-  answerQuoteBodySchema,
-  createQuoteRequestBodySchema,
-  declineQuoteBodySchema,
-  quoteParamsSchema,
-  quoteRequestListQuerySchema,
-} from '../../../shared/schemas/order.schema';
+import { answerQuoteBodySchema, createQuoteRequestBodySchema, declineQuoteBodySchema, quoteParamsSchema, quoteRequestListQuerySchema } from '../../../shared/schemas/order.schema';
 import { currentUser } from '../../auth/policy';
 import { apiRouter } from '../../http/endpoint';
 import type { QuotesService } from './quotes.service';
@@ -28,21 +22,13 @@ export function quotesRoutes(quotes: QuotesService) {
     res.json(await quotes.withdraw(currentUser(req), params.id));
   });
 
-  r.post(
-    '/quotes/:id/answer',
-    { access: { action: 'orders:confirm' }, params: quoteParamsSchema, body: answerQuoteBodySchema },
-    async (req, res, { params, body }) => {
-      res.json(await quotes.answer(currentUser(req), params.id, body));
-    },
-  );
+  r.post('/quotes/:id/answer', { access: { action: 'orders:confirm' }, params: quoteParamsSchema, body: answerQuoteBodySchema }, async (req, res, { params, body }) => {
+    res.json(await quotes.answer(currentUser(req), params.id, body));
+  });
 
-  r.post(
-    '/quotes/:id/decline',
-    { access: { action: 'orders:confirm' }, params: quoteParamsSchema, body: declineQuoteBodySchema },
-    async (req, res, { params, body }) => {
-      res.json(await quotes.decline(currentUser(req), params.id, body.message));
-    },
-  );
+  r.post('/quotes/:id/decline', { access: { action: 'orders:confirm' }, params: quoteParamsSchema, body: declineQuoteBodySchema }, async (req, res, { params, body }) => {
+    res.json(await quotes.decline(currentUser(req), params.id, body.message));
+  });
 
   r.post('/quotes/:id/accept', { access: { action: 'orders:place' }, params: quoteParamsSchema }, async (req, res, { params }) => {
     res.status(201).json(await quotes.accept(currentUser(req), params.id));

@@ -1,12 +1,6 @@
 import type { z } from 'zod';
 import { bookingDateProblem } from '../../../shared/domain/booking-window';
-import {
-  QUOTE_STATUS_LABELS,
-  type QuoteRequest,
-  type answerQuoteBodySchema,
-  type createQuoteRequestBodySchema,
-  type quoteRequestListQuerySchema,
-} from '../../../shared/schemas/order.schema';
+import { QUOTE_STATUS_LABELS, type QuoteRequest, type answerQuoteBodySchema, type createQuoteRequestBodySchema, type quoteRequestListQuerySchema } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
 import type { Db } from '../../db/knex';
 import type { AuthUser } from '../../auth/auth-user';
@@ -236,9 +230,14 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       const total = priced.reduce((s, l) => s + l.total, 0);
       const ok = await db.transaction(async (trx) => {
         if (!(await quotes.replaceAnswer(trx, quoteId, { message: body.message ?? '', valid_until: body.valid_until ?? null, total, answered_by: user.id }, priced))) return false;
-        await mail(trx, await requesterEmails(request, trx), `${quote.branch.name} priced your quote request`, `A price from ${quote.branch.name}`, [
-          `${quote.branch.merchant.name} priced ${priced.length} of ${requestLines.length} lines. Compare the answers side by side in Ridgeload before you accept one.`,
-        ], request.id);
+        await mail(
+          trx,
+          await requesterEmails(request, trx),
+          `${quote.branch.name} priced your quote request`,
+          `A price from ${quote.branch.name}`,
+          [`${quote.branch.merchant.name} priced ${priced.length} of ${requestLines.length} lines. Compare the answers side by side in Ridgeload before you accept one.`],
+          request.id,
+        );
         return true;
       });
       if (!ok) throw AppError.conflict('quote_closed', 'This quote request is closed');
@@ -295,9 +294,14 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
             await quotes.closeOtherQuotes(trx, request.id, quoteId, 'not_chosen');
             const others = (await quotes.quotesOf([request.id], party, trx)).filter((q) => q.id !== quoteId && q.status === 'not_chosen');
             for (const q of others) {
-              await mail(trx, await ordersRepo.deskEmails(q.merchant_organisation_id, trx), `Quote request from ${request.contractor_name} went elsewhere`, 'Another quote was chosen', [
-                `${request.contractor_name} chose another merchant for this request. Thank you for pricing it.`,
-              ], request.id);
+              await mail(
+                trx,
+                await ordersRepo.deskEmails(q.merchant_organisation_id, trx),
+                `Quote request from ${request.contractor_name} went elsewhere`,
+                'Another quote was chosen',
+                [`${request.contractor_name} chose another merchant for this request. Thank you for pricing it.`],
+                request.id,
+              );
             }
           },
         },

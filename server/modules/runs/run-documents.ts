@@ -6,8 +6,7 @@ import { palletItems, type RunDetail } from './runs.service';
 
 const kg = (v: number) => `${(Math.round(v * 10) / 10).toLocaleString('en-GB')} kg`;
 const mm = (v: number) => `${Math.round(v).toLocaleString('en-GB')} mm`;
-const facesText = (faces: ReadonlyArray<{ building: string; face: string; tiles: number }>) =>
-  faces.length === 0 ? 'accessories' : faces.map((f) => `${f.building} ${f.face} (${f.tiles})`).join(', ');
+const facesText = (faces: ReadonlyArray<{ building: string; face: string; tiles: number }>) => (faces.length === 0 ? 'accessories' : faces.map((f) => `${f.building} ${f.face} (${f.tiles})`).join(', '));
 
 /** Drops told apart by number, fill and pattern: the drawing reads in black and white too. */
 const DROP_FILLS = ['#f6d7c3', '#cfe3f2', '#dcedc8', '#f3e5f5', '#fff3c4', '#e0e0e0'];
@@ -21,10 +20,30 @@ function hatch(doc: PdfKitDocument, x: number, y: number, w: number, h: number, 
   doc.rect(x, y, w, h).clip();
   doc.lineWidth(0.4).strokeColor('#555555');
   const step = 5;
-  if (kind === 'diagonal' || kind === 'cross') for (let t = -h; t < w; t += step) doc.moveTo(x + t, y + h).lineTo(x + t + h, y).stroke();
-  if (kind === 'cross') for (let t = 0; t < w + h; t += step) doc.moveTo(x + t, y + h).lineTo(x + t - h, y).stroke();
-  if (kind === 'horizontal') for (let t = y + step / 2; t < y + h; t += step) doc.moveTo(x, t).lineTo(x + w, t).stroke();
-  if (kind === 'vertical') for (let t = x + step / 2; t < x + w; t += step) doc.moveTo(t, y).lineTo(t, y + h).stroke();
+  if (kind === 'diagonal' || kind === 'cross')
+    for (let t = -h; t < w; t += step)
+      doc
+        .moveTo(x + t, y + h)
+        .lineTo(x + t + h, y)
+        .stroke();
+  if (kind === 'cross')
+    for (let t = 0; t < w + h; t += step)
+      doc
+        .moveTo(x + t, y + h)
+        .lineTo(x + t - h, y)
+        .stroke();
+  if (kind === 'horizontal')
+    for (let t = y + step / 2; t < y + h; t += step)
+      doc
+        .moveTo(x, t)
+        .lineTo(x + w, t)
+        .stroke();
+  if (kind === 'vertical')
+    for (let t = x + step / 2; t < x + w; t += step)
+      doc
+        .moveTo(t, y)
+        .lineTo(t, y + h)
+        .stroke();
   if (kind === 'dots') for (let i = x + 3; i < x + w; i += step) for (let j = y + 3; j < y + h; j += step) doc.circle(i, j, 0.5).fill('#555555');
   doc.restore();
 }
@@ -55,8 +74,15 @@ function drawDeck(doc: PdfKitDocument, d: RunDetail, left: number, top: number, 
     hatch(doc, x, y, w, h, DROP_HATCH[(p.drop - 1) % DROP_HATCH.length]);
     doc.lineWidth(0.8).strokeColor('#111111').rect(x, y, w, h).stroke();
     doc.rect(x + 2, y + 2, w - 4, 20).fill('#ffffff');
-    doc.fillColor('#111111').font(FONT_BOLD).fontSize(8).text(`D${p.drop} · P${p.pallet}`, x + 3, y + 3, { width: w - 6, lineBreak: false });
-    doc.font(FONT_REGULAR).fontSize(6.5).text(kg(p.weight_kg), x + 3, y + 12, { width: w - 6, lineBreak: false });
+    doc
+      .fillColor('#111111')
+      .font(FONT_BOLD)
+      .fontSize(8)
+      .text(`D${p.drop} · P${p.pallet}`, x + 3, y + 3, { width: w - 6, lineBreak: false });
+    doc
+      .font(FONT_REGULAR)
+      .fontSize(6.5)
+      .text(kg(p.weight_kg), x + 3, y + 12, { width: w - 6, lineBreak: false });
   });
   return deckH + 14;
 }
@@ -99,7 +125,10 @@ export async function loadingSheetPdf(d: RunDetail): Promise<Buffer> {
 
   pdf.heading('Drops in order', 2);
   run.drops.forEach((drop, i) => {
-    pdf.heading(`Drop ${drop.position} of ${run.drops.length} — ${drop.reference} · ${drop.contractor.name} · ${drop.pallets} pallets, ${kg(drop.weight_kg)}${drop.short ? ' · SHORT: a face waits for back-ordered packs' : ''}`, 3);
+    pdf.heading(
+      `Drop ${drop.position} of ${run.drops.length} — ${drop.reference} · ${drop.contractor.name} · ${drop.pallets} pallets, ${kg(drop.weight_kg)}${drop.short ? ' · SHORT: a face waits for back-ordered packs' : ''}`,
+      3,
+    );
     pdf.keyValues(siteNotes(d.drops[i]));
     if (d.drops[i].notes) pdf.keyValues([['Order notes', d.drops[i].notes]]);
   });
@@ -145,21 +174,49 @@ export async function labelsPdf(d: RunDetail, appUrl: string): Promise<Buffer> {
     const y = (Math.floor(k / 2) % 2) * A6_H;
     const pad = 14;
     const w = A6_W - pad * 2;
-    doc.lineWidth(0.5).strokeColor('#999999').dash(3, { space: 3 }).rect(x + 2, y + 2, A6_W - 4, A6_H - 4).stroke().undash();
-    doc.fillColor('#111111').font(FONT_BOLD).fontSize(20).text(drop.reference, x + pad, y + pad, { width: w, lineBreak: false });
-    doc.font(FONT_BOLD).fontSize(13).text(`Drop ${drop.position} of ${d.run.drops.length}`, x + pad, y + pad + 28, { width: w });
+    doc
+      .lineWidth(0.5)
+      .strokeColor('#999999')
+      .dash(3, { space: 3 })
+      .rect(x + 2, y + 2, A6_W - 4, A6_H - 4)
+      .stroke()
+      .undash();
+    doc
+      .fillColor('#111111')
+      .font(FONT_BOLD)
+      .fontSize(20)
+      .text(drop.reference, x + pad, y + pad, { width: w, lineBreak: false });
+    doc
+      .font(FONT_BOLD)
+      .fontSize(13)
+      .text(`Drop ${drop.position} of ${d.run.drops.length}`, x + pad, y + pad + 28, { width: w });
     doc.text(`Pallet ${p.n} of ${row.plan.pallets.length}`, x + pad, y + pad + 46, { width: w });
-    doc.font(FONT_REGULAR).fontSize(9).text([drop.site_name, row.site.site_address, row.site.site_postcode].filter(Boolean).join(', '), x + pad, y + pad + 68, { width: w, height: 36 });
-    doc.font(FONT_BOLD).fontSize(11).text(`Weight ${kg(p.weight_kg)}`, x + pad, y + pad + 106, { width: w });
+    doc
+      .font(FONT_REGULAR)
+      .fontSize(9)
+      .text([drop.site_name, row.site.site_address, row.site.site_postcode].filter(Boolean).join(', '), x + pad, y + pad + 68, { width: w, height: 36 });
+    doc
+      .font(FONT_BOLD)
+      .fontSize(11)
+      .text(`Weight ${kg(p.weight_kg)}`, x + pad, y + pad + 106, { width: w });
     doc.font(FONT_REGULAR).fontSize(8.5);
-    const body = p.faces.length > 0 ? `Roof faces: ${facesText(p.faces)}` : `Contents: ${palletItems(p, d.names.get(drop.order_id)).map((it) => `${it.description}: ${it.quantity} ${it.unit}`).join('; ')}`;
+    const body =
+      p.faces.length > 0
+        ? `Roof faces: ${facesText(p.faces)}`
+        : `Contents: ${palletItems(p, d.names.get(drop.order_id))
+            .map((it) => `${it.description}: ${it.quantity} ${it.unit}`)
+            .join('; ')}`;
     doc.text(body, x + pad, y + pad + 124, { width: w, height: 80 });
     doc.fontSize(8).text(`${DELIVERY_METHOD_LABELS[drop.delivery_method]} · ${d.run.lorry.registration} · ${d.run.date} ${d.run.time_window}`, x + pad, y + pad + 210, { width: w });
     const url = `${appUrl}/yard/pallets/${drop.order_id}/${p.n}`;
     const png = await QRCode.toBuffer(url, { type: 'png', margin: 1, width: 240, errorCorrectionLevel: 'M' });
     const qr = 120;
     doc.image(png, x + (A6_W - qr) / 2, y + A6_H - qr - pad - 10, { width: qr, height: qr });
-    doc.font(FONT_REGULAR).fontSize(6).fillColor('#555555').text(url, x + pad, y + A6_H - pad - 8, { width: w, align: 'center', lineBreak: false });
+    doc
+      .font(FONT_REGULAR)
+      .fontSize(6)
+      .fillColor('#555555')
+      .text(url, x + pad, y + A6_H - pad - 8, { width: w, align: 'center', lineBreak: false });
     k++;
   }
   if (labels.length === 0) doc.font(FONT_REGULAR).fontSize(12).text('This run has no pallets booked yet.', 40, 40);

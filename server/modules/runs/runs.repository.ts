@@ -68,8 +68,7 @@ const toRun = (r: Record<string, unknown>): RunRow => ({ ...(r as unknown as Run
 
 /** Runs of a merchant: every query is scoped to the merchant's organisation. */
 export function runsRepository(db: Db) {
-  const runs = (trx: Db, orgId: number) =>
-    trx('delivery_slots as s').join('lorries as l', 'l.id', 's.lorry_id').leftJoin('users as u', 'u.id', 's.driver_user_id').where('s.organisation_id', orgId).select(RUN_COLUMNS);
+  const runs = (trx: Db, orgId: number) => trx('delivery_slots as s').join('lorries as l', 'l.id', 's.lorry_id').leftJoin('users as u', 'u.id', 's.driver_user_id').where('s.organisation_id', orgId).select(RUN_COLUMNS);
 
   return {
     async find(orgId: number, id: number, trx: Db = db): Promise<RunRow | undefined> {
@@ -91,7 +90,22 @@ export function runsRepository(db: Db) {
         .join('orders as o', 'o.id', 'sb.order_id')
         .join('organisations as co', 'co.id', 'o.contractor_organisation_id')
         .whereIn('sb.slot_id', slotIds)
-        .select('sb.slot_id', 'sb.order_id', 'sb.drop_position', 'sb.weight_kg', 'sb.pallets', 'sb.plan', 'sb.delivered_at', 'o.status', 'o.site_name', 'o.site', 'o.delivery_method', 'o.notes', 'co.id as contractor_id', 'co.name as contractor_name')
+        .select(
+          'sb.slot_id',
+          'sb.order_id',
+          'sb.drop_position',
+          'sb.weight_kg',
+          'sb.pallets',
+          'sb.plan',
+          'sb.delivered_at',
+          'o.status',
+          'o.site_name',
+          'o.site',
+          'o.delivery_method',
+          'o.notes',
+          'co.id as contractor_id',
+          'co.name as contractor_name',
+        )
         .orderByRaw('sb.slot_id, sb.drop_position is null, sb.drop_position, sb.booked_at, sb.id');
       return rows.map((r: Record<string, unknown>) => ({
         ...(r as unknown as DropRow),
@@ -128,7 +142,10 @@ export function runsRepository(db: Db) {
     },
 
     async setDropOrder(trx: Db, slotId: number, orderIds: number[]): Promise<void> {
-      for (const [i, id] of orderIds.entries()) await trx('slot_bookings').where({ slot_id: slotId, order_id: id }).update({ drop_position: i + 1 });
+      for (const [i, id] of orderIds.entries())
+        await trx('slot_bookings')
+          .where({ slot_id: slotId, order_id: id })
+          .update({ drop_position: i + 1 });
     },
 
     async markLoaded(slotId: number, orderId: number, pallet: number, userId: number): Promise<void> {

@@ -291,7 +291,8 @@ export function runsService(deps: Pick<AppDeps, 'db' | 'config' | 'mailer' | 'lo
         const override = refusal ? body.override_reason! : null;
         const actor = { userId: user.id, name: user.name, organisationId: user.organisation.id };
         for (const orderId of going) {
-          if (!(await orders.updateIf(trx, orderId, { statuses: t.from }, { status: t.to }, false))) throw AppError.conflict('order_changed', `${orderReference(orderId)} changed at the same moment; reload the run and try again`);
+          if (!(await orders.updateIf(trx, orderId, { statuses: t.from }, { status: t.to }, false)))
+            throw AppError.conflict('order_changed', `${orderReference(orderId)} changed at the same moment; reload the run and try again`);
           await orders.insertEvent(trx, orderId, {
             kind: 'dispatched',
             actor,

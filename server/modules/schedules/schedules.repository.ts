@@ -61,7 +61,17 @@ function toOpening(r: Record<string, unknown>): StoredOpening {
 export function engineFace(f: StoredFace): Face {
   const { building, face, quantity, pitch_deg, rafter_mm, run_mm, eaves_mm, top_mm, left, right, top } = f;
   return {
-    building, face, quantity, pitch_deg, rafter_mm, run_mm, eaves_mm, top_mm, left, right, top,
+    building,
+    face,
+    quantity,
+    pitch_deg,
+    rafter_mm,
+    run_mm,
+    eaves_mm,
+    top_mm,
+    left,
+    right,
+    top,
     ...(f.ridge === null ? {} : { ridge: f.ridge }),
     ...(f.top_assumed ? { top_assumed: true } : {}),
   };
@@ -149,10 +159,7 @@ export function schedulesRepository(db: Db) {
     },
 
     async listVersions(organisationId: number, projectId: number): Promise<ScheduleVersion[]> {
-      const rows = await versions(db)
-        .where({ 's.organisation_id': organisationId, 's.project_id': projectId })
-        .select(VERSION_COLUMNS)
-        .orderBy('s.version', 'desc');
+      const rows = await versions(db).where({ 's.organisation_id': organisationId, 's.project_id': projectId }).select(VERSION_COLUMNS).orderBy('s.version', 'desc');
       return rows.map(toVersion);
     },
 

@@ -3,14 +3,7 @@ import multer from 'multer';
 import { EXAMPLE_OPENINGS_CSV, EXAMPLE_OPENINGS_FILENAME } from '../../../shared/engine/example-openings';
 import { EXAMPLE_SCHEDULE_CSV, EXAMPLE_SCHEDULE_FILENAME } from '../../../shared/engine/example-schedule';
 import { projectParamsSchema } from '../../../shared/schemas/project.schema';
-import {
-  MAX_SCHEDULE_BYTES,
-  SCHEDULE_CONTENT_TYPES,
-  SCHEDULE_FILE_FIELD,
-  currentScheduleQuerySchema,
-  putFacesBodySchema,
-  scheduleVersionParamsSchema,
-} from '../../../shared/schemas/schedule-upload.schema';
+import { MAX_SCHEDULE_BYTES, SCHEDULE_CONTENT_TYPES, SCHEDULE_FILE_FIELD, currentScheduleQuerySchema, putFacesBodySchema, scheduleVersionParamsSchema } from '../../../shared/schemas/schedule-upload.schema';
 import { currentUser } from '../../auth/policy';
 import { AppError } from '../../http/app-error';
 import { apiRouter } from '../../http/endpoint';
@@ -35,7 +28,11 @@ const readScheduleUpload: RequestHandler = (req, res, next) => {
     return;
   }
   if (req.is([...SCHEDULE_CONTENT_TYPES])) {
-    const charset = (req.get('content-type') ?? '').match(/charset=([^;]+)/i)?.[1]?.trim().toLowerCase().replace(/"/g, '');
+    const charset = (req.get('content-type') ?? '')
+      .match(/charset=([^;]+)/i)?.[1]
+      ?.trim()
+      .toLowerCase()
+      .replace(/"/g, '');
     if (charset && !['utf-8', 'utf8', 'us-ascii'].includes(charset)) {
       return next(new AppError(415, 'unsupported_encoding', 'Send the schedule as UTF-8 text'));
     }
@@ -66,41 +63,29 @@ export function schedulesRoutes(schedules: SchedulesService, idempotent: Request
     res.send(EXAMPLE_OPENINGS_CSV);
   });
 
-  r.post(
-    '/projects/:id/schedule/openings',
-    { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload] },
-    async (req, res, { params }) => {
-      const { bytes, filename } = uploaded(req);
-      res.status(201).json(await schedules.importOpeningsCsv(currentUser(req), params.id, decodeScheduleBytes(bytes), filename));
-    },
-  );
+  r.post('/projects/:id/schedule/openings', { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload] }, async (req, res, { params }) => {
+    const { bytes, filename } = uploaded(req);
+    res.status(201).json(await schedules.importOpeningsCsv(currentUser(req), params.id, decodeScheduleBytes(bytes), filename));
+  });
 
-  r.post(
-    '/projects/:id/schedule',
-    { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload, idempotent] },
-    async (req, res, { params }) => {
-      let bytes: Buffer | undefined;
-      let filename: string | null = null;
-      if (req.file) {
-        bytes = req.file.buffer;
-        // Only the file's own name is kept: folders in it (../../x.csv, C:\\x.csv) say nothing about the roof.
-        filename = req.file.originalname.split(/[\\/]/).pop()!.slice(0, 200) || null;
-      } else if (Buffer.isBuffer(req.body)) {
-        bytes = req.body;
-      }
-      if (!bytes) throw invalidSchedule([{ message: `no CSV received: send it as the request body or in the form field '${SCHEDULE_FILE_FIELD}'` }]);
-      const text = decodeScheduleBytes(bytes);
-      res.status(201).json(await schedules.importCsv(currentUser(req), params.id, text, filename));
-    },
-  );
+  r.post('/projects/:id/schedule', { access: { action: 'projects:write' }, params: projectParamsSchema, before: [readScheduleUpload, idempotent] }, async (req, res, { params }) => {
+    let bytes: Buffer | undefined;
+    let filename: string | null = null;
+    if (req.file) {
+      bytes = req.file.buffer;
+      // Only the file's own name is kept: folders in it (../../x.csv, C:\\x.csv) say nothing about the roof.
+      filename = req.file.originalname.split(/[\\/]/).pop()!.slice(0, 200) || null;
+    } else if (Buffer.isBuffer(req.body)) {
+      bytes = req.body;
+    }
+    if (!bytes) throw invalidSchedule([{ message: `no CSV received: send it as the request body or in the form field '${SCHEDULE_FILE_FIELD}'` }]);
+    const text = decodeScheduleBytes(bytes);
+    res.status(201).json(await schedules.importCsv(currentUser(req), params.id, text, filename));
+  });
 
-  r.put(
-    '/projects/:id/schedule',
-    { access: { action: 'projects:write' }, params: projectParamsSchema, body: putFacesBodySchema },
-    async (req, res, { params, body }) => {
-      res.status(201).json(await schedules.replaceFaces(currentUser(req), params.id, body.faces, body.openings));
-    },
-  );
+  r.put('/projects/:id/schedule', { access: { action: 'projects:write' }, params: projectParamsSchema, body: putFacesBodySchema }, async (req, res, { params, body }) => {
+    res.status(201).json(await schedules.replaceFaces(currentUser(req), params.id, body.faces, body.openings));
+  });
 
   // ?optional=1: a site without a schedule is an answer (200, null), so a page that only asks whether
   // there is one makes no failed request; without it the answer stays 404 no_schedule.
@@ -117,13 +102,9 @@ export function schedulesRoutes(schedules: SchedulesService, idempotent: Request
     res.json(await schedules.history(currentUser(req), params.id));
   });
 
-  r.get(
-    '/projects/:id/schedules/:version',
-    { access: { action: 'projects:read' }, params: scheduleVersionParamsSchema },
-    async (req, res, { params }) => {
-      res.json(await schedules.version(currentUser(req), params.id, params.version));
-    },
-  );
+  r.get('/projects/:id/schedules/:version', { access: { action: 'projects:read' }, params: scheduleVersionParamsSchema }, async (req, res, { params }) => {
+    res.json(await schedules.version(currentUser(req), params.id, params.version));
+  });
 
   return r.router;
 }

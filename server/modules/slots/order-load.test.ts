@@ -10,10 +10,7 @@ const line = (category: string, packs: number, packWeightKg: number, packSize = 
 
 describe('an order’s lorry load', () => {
   it('carries double-lap special tiles on the tile pallets after the full tiles, and fittings with the accessories', () => {
-    const load = orderLoad(
-      [line('tile', 900, 1.1), line('eaves_tile', 42, 1.1), line('tile_and_half', 32, 1.65), line('dry_verge', 60, 0.35), line('ridge_end_cap', 2, 0.4)],
-      null,
-    );
+    const load = orderLoad([line('tile', 900, 1.1), line('eaves_tile', 42, 1.1), line('tile_and_half', 32, 1.65), line('dry_verge', 60, 0.35), line('ridge_end_cap', 2, 0.4)], null);
     const tilePallets = load.plan.pallets.filter((p) => p.kind === 'tiles');
     // 900 + 42 + 32 pieces at 180 a pallet (the default system's pallet): 6 pallets, the specials at the end.
     expect(tilePallets).toHaveLength(Math.ceil((900 + 42 + 32) / 180));

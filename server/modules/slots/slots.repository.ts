@@ -76,12 +76,7 @@ const toBooking = (r: Record<string, unknown>): BookingRow => ({
 
 /** The delivery calendar of a merchant; every query is scoped to the merchant. */
 export function slotsRepository(db: Db) {
-  const slots = (trx: Db, orgId: number) =>
-    trx('delivery_slots as s')
-      .join('lorries as l', 'l.id', 's.lorry_id')
-      .leftJoin('users as u', 'u.id', 's.driver_user_id')
-      .where('s.organisation_id', orgId)
-      .select(SLOT_COLUMNS);
+  const slots = (trx: Db, orgId: number) => trx('delivery_slots as s').join('lorries as l', 'l.id', 's.lorry_id').leftJoin('users as u', 'u.id', 's.driver_user_id').where('s.organisation_id', orgId).select(SLOT_COLUMNS);
 
   return {
     async find(orgId: number, id: number, trx: Db = db): Promise<SlotRow | undefined> {
@@ -111,16 +106,25 @@ export function slotsRepository(db: Db) {
       const exists = await trx('delivery_slots').where({ lorry_id: v.lorry_id, date: v.date, time_window: v.time_window }).first('id');
       if (exists) return null;
       const now = nowIso();
-      const [row] = await trx('delivery_slots').insert({ organisation_id: orgId, ...v, booked_kg: 0, booked_pallets: 0, created_at: now, updated_at: now }).returning('id');
+      const [row] = await trx('delivery_slots')
+        .insert({ organisation_id: orgId, ...v, booked_kg: 0, booked_pallets: 0, created_at: now, updated_at: now })
+        .returning('id');
       return (row as { id: number }).id;
     },
 
     async update(orgId: number, id: number, v: { driver_user_id?: number | null; time_window?: string }): Promise<void> {
-      await db('delivery_slots').where({ organisation_id: orgId, id }).update({ ...v, updated_at: nowIso() });
+      await db('delivery_slots')
+        .where({ organisation_id: orgId, id })
+        .update({ ...v, updated_at: nowIso() });
     },
 
     async remove(orgId: number, id: number): Promise<boolean> {
-      return (await db('delivery_slots').where({ organisation_id: orgId, id, booked_pallets: 0 }).whereNotExists(db('slot_bookings').whereRaw('?? = ??', ['slot_bookings.slot_id', 'delivery_slots.id'])).delete()) > 0;
+      return (
+        (await db('delivery_slots')
+          .where({ organisation_id: orgId, id, booked_pallets: 0 })
+          .whereNotExists(db('slot_bookings').whereRaw('?? = ??', ['slot_bookings.slot_id', 'delivery_slots.id']))
+          .delete()) > 0
+      );
     },
 
     async booking(orderId: number, trx: Db = db): Promise<BookingRow | undefined> {

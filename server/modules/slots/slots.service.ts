@@ -164,7 +164,8 @@ export function slotsService({ db, config }: Pick<AppDeps, 'db' | 'config'>) {
     async book(trx: Db, user: AuthUser, order: BookableOrder, slotId: number, load: OrderLoad): Promise<SlotRow> {
       const slot = await slots.find(user.organisation.id, slotId, trx);
       if (!slot) throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path: 'slot_id', message: 'is not one of your delivery slots' }]);
-      if (slot.branch_id !== order.branch_id) throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path: 'slot_id', message: "is a slot of another branch: book a lorry of the order's branch" }]);
+      if (slot.branch_id !== order.branch_id)
+        throw AppError.unprocessable('validation_failed', 'Some fields are not valid', [{ path: 'slot_id', message: "is a slot of another branch: book a lorry of the order's branch" }]);
       if (slot.date < todayIso()) throw AppError.conflict('slot_past', `The slot on ${slot.date} has passed`);
       if (slot.lorry_archived_at) throw AppError.conflict('lorry_archived', `${slot.registration} is out of service: book another lorry`);
       if (load.pallets === 0) throw AppError.conflict('nothing_to_deliver', 'Nothing on this order is confirmed to send yet');
@@ -240,7 +241,16 @@ export function slotsService({ db, config }: Pick<AppDeps, 'db' | 'config'>) {
             ...(b.notes ? [`Order notes: ${b.notes}`] : []),
             ...(b.delivery_method === 'roof' ? ['Roof loading: spread the stacks evenly over both slopes and across braced rafters, as the roof loading plan shows; never stack on one spot.'] : []),
           ];
-          const plan = JSON.parse(typeof b.plan === 'string' ? b.plan : JSON.stringify(b.plan)) as { pallets: { n: number; kind: 'tiles' | 'accessories'; weight_kg: number; tiles: number; faces: { building: string; face: string; tiles: number }[]; items: { item: string; quantity: number; weight_kg: number }[] }[] };
+          const plan = JSON.parse(typeof b.plan === 'string' ? b.plan : JSON.stringify(b.plan)) as {
+            pallets: {
+              n: number;
+              kind: 'tiles' | 'accessories';
+              weight_kg: number;
+              tiles: number;
+              faces: { building: string; face: string; tiles: number }[];
+              items: { item: string; quantity: number; weight_kg: number }[];
+            }[];
+          };
           stops.push({
             order_id: b.order_id,
             reference: orderReference(b.order_id),

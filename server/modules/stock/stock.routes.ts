@@ -13,13 +13,9 @@ export function stockRoutes(stock: StockService) {
   r.get('/branches/:id/stock', { access: { action: 'catalogue:read' }, params: idParamsSchema, query: stockListQuerySchema }, async (req, res, { params, query }) => {
     res.json(await stock.list(currentUser(req), params.id, { q: query.q, category: query.category, low: query.low === 'true' }));
   });
-  r.patch(
-    '/branches/:id/stock/:productId',
-    { access: { action: 'stock:manage' }, params: branchProductParamsSchema, body: updateStockBodySchema },
-    async (req, res, { params, body }) => {
-      res.json(await stock.update(currentUser(req), params.id, params.productId, body));
-    },
-  );
+  r.patch('/branches/:id/stock/:productId', { access: { action: 'stock:manage' }, params: branchProductParamsSchema, body: updateStockBodySchema }, async (req, res, { params, body }) => {
+    res.json(await stock.update(currentUser(req), params.id, params.productId, body));
+  });
   r.get('/branches/:id/stock-counts', { access: { action: 'catalogue:read' }, params: idParamsSchema, query: sheetExportQuerySchema }, async (req, res, { params, query }) => {
     sendSheet(res, await stock.exportCounts(currentUser(req), params.id, query.format));
   });

@@ -50,11 +50,7 @@ export function FaceDrawingCaution() {
   const estimate = useEstimate(Number(params.estimateId ?? 0));
   return (
     <CautionBody
-      points={[
-        'The stacks show an even spread over the rafters, every few battens from the top: load both slopes in step, and only braced rafters or trusses.',
-        SHORT.height,
-        SHORT.figures,
-      ]}
+      points={['The stacks show an even spread over the rafters, every few battens from the top: load both slopes in step, and only braced rafters or trusses.', SHORT.height, SHORT.figures]}
       full={estimate.data?.cautions ?? SAFETY_CAUTIONS}
     />
   );

@@ -21,10 +21,7 @@ export function DeskHomeRoute() {
       </SectionBoundary>
       <div className="mt-6 grid items-start gap-6 lg:grid-cols-[1fr_2fr]">
         <SectionBoundary name="organisation">
-          <OrganisationSummary
-            title="Your business"
-            footer={can(user.role, 'members:read') ? <TextLink to="/team">Open the team page</TextLink> : null}
-          />
+          <OrganisationSummary title="Your business" footer={can(user.role, 'members:read') ? <TextLink to="/team">Open the team page</TextLink> : null} />
         </SectionBoundary>
         <SectionBoundary name="branches">
           <BranchList />

@@ -33,7 +33,10 @@ export function FaceRoute() {
             <NotFoundContent />
           ) : (
             <>
-              <PageHeader title={`${result.building} · ${result.face}`} lead={`${result.quantity} ${result.quantity === 1 ? 'face' : 'faces'} like this · ${result.pitch_deg}° · ${result.courses} courses at ${result.gauge_mm} mm gauge`} />
+              <PageHeader
+                title={`${result.building} · ${result.face}`}
+                lead={`${result.quantity} ${result.quantity === 1 ? 'face' : 'faces'} like this · ${result.pitch_deg}° · ${result.courses} courses at ${result.gauge_mm} mm gauge`}
+              />
               <div className="space-y-4">
                 <FaceWarnings warnings={placeWarnings(estimate.data.result).byFace.get(index) ?? []} />
                 <Card>

@@ -10,10 +10,7 @@ export function OutboxRoute() {
   const selectedId = messageId && /^\d+$/.test(messageId) ? Number(messageId) : null;
   return (
     <PublicLayout wide>
-      <PageHeader
-        title="Outbox"
-        lead="The e-mails this server has sent, caught by its local mail fake so nothing leaves the machine."
-      />
+      <PageHeader title="Outbox" lead="The e-mails this server has sent, caught by its local mail fake so nothing leaves the machine." />
       <OutboxReader selectedId={selectedId} hrefFor={(id) => `/outbox/${id}`} listHref="/outbox" />
     </PublicLayout>
   );

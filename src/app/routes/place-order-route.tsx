@@ -36,10 +36,7 @@ export function PlaceOrderRoute() {
         })),
     [estimate.data],
   );
-  const target = useMemo(
-    () => (estimate.data?.system.branch ? { mode: 'place' as const, estimate_id: estimate.data.id, branch_id: estimate.data.system.branch.id } : null),
-    [estimate.data],
-  );
+  const target = useMemo(() => (estimate.data?.system.branch ? { mode: 'place' as const, estimate_id: estimate.data.id, branch_id: estimate.data.system.branch.id } : null), [estimate.data]);
 
   return (
     <>

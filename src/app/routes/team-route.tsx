@@ -15,10 +15,7 @@ export function TeamRoute() {
   const assignableRoles = ROLES_BY_KIND[organisation.kind];
   return (
     <>
-      <PageHeader
-        title="Team"
-        lead={canManage ? `Everyone at ${organisation.name}. Change roles, remove people and invite new ones.` : `Everyone at ${organisation.name}.`}
-      />
+      <PageHeader title="Team" lead={canManage ? `Everyone at ${organisation.name}. Change roles, remove people and invite new ones.` : `Everyone at ${organisation.name}.`} />
       <div className="space-y-6">
         <SectionBoundary name="members">
           <TeamMembersSection currentUserId={user.id} canManage={canManage} assignableRoles={assignableRoles} />

@@ -25,11 +25,7 @@ export function YardHomeRoute() {
   const { user, organisation } = useCurrentSession();
   const page = (
     <>
-      <PageHeader
-        title="Yard and transport"
-        lead={`${organisation.name} · ${user.name}, ${ROLE_LABELS[user.role]}`}
-        actions={<TextLink to="/fleet">Lorries and slots</TextLink>}
-      />
+      <PageHeader title="Yard and transport" lead={`${organisation.name} · ${user.name}, ${ROLE_LABELS[user.role]}`} actions={<TextLink to="/fleet">Lorries and slots</TextLink>} />
       <SectionBoundary name="day plan">
         <DayPlanSection />
       </SectionBoundary>

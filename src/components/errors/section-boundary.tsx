@@ -26,13 +26,7 @@ export class SectionBoundary extends Component<SectionBoundaryProps, SectionBoun
 
   render(): ReactNode {
     if (this.state.error) {
-      return (
-        <ErrorAlert
-          error={this.state.error}
-          title={`The ${this.props.name} could not be shown`}
-          onRetry={() => this.setState({ error: null })}
-        />
-      );
+      return <ErrorAlert error={this.state.error} title={`The ${this.props.name} could not be shown`} onRetry={() => this.setState({ error: null })} />;
     }
     return this.props.children;
   }

@@ -28,7 +28,15 @@ function LinesForm({ onSubmit }: { onSubmit: (body: z.output<typeof formSchema>)
   return (
     <Form form={form} label="Delivery">
       <TextField name="name" label="Site name" hint="As the driver will see it." />
-      <RadioGroupField name="method" legend="How it comes off" options={[{ value: 'ground', label: 'Ground' }, { value: 'roof', label: 'Roof' }]} defaultValue="ground" />
+      <RadioGroupField
+        name="method"
+        legend="How it comes off"
+        options={[
+          { value: 'ground', label: 'Ground' },
+          { value: 'roof', label: 'Roof' },
+        ]}
+        defaultValue="ground"
+      />
       <FieldGroup name="lines" legend="Lines">
         {[0, 1, 2].map((i) => (
           <TextField key={i} name={`lines.${i}.quantity`} label={`Packs on line ${i + 1}`} defaultValue="1" />

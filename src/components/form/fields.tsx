@@ -46,8 +46,7 @@ function FormErrorArea() {
 }
 
 export const inputClasses =
-  'block w-full min-h-tap rounded-md border bg-white px-3 text-base text-ink-900 placeholder:text-ink-400 ' +
-  'aria-[invalid=true]:border-brick-600 aria-[invalid=true]:ring-1 aria-[invalid=true]:ring-brick-600';
+  'block w-full min-h-tap rounded-md border bg-white px-3 text-base text-ink-900 placeholder:text-ink-400 ' + 'aria-[invalid=true]:border-brick-600 aria-[invalid=true]:ring-1 aria-[invalid=true]:ring-brick-600';
 
 /** The ids of a field's input, hint and error, from the form's id and the field's path. */
 export function fieldIds(form: Pick<SchemaForm, 'id'>, name: string) {
@@ -137,9 +136,7 @@ export function TextAreaField({ name, label, hint, className = '', rows = 3, onC
         rows={rows}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(ids, hint, error)}
-        className={`block w-full rounded-md border bg-white px-3 py-2 text-base text-ink-900 placeholder:text-ink-400 ${
-          error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'
-        }`}
+        className={`block w-full rounded-md border bg-white px-3 py-2 text-base text-ink-900 placeholder:text-ink-400 ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`}
         {...rest}
         {...registered}
       />
@@ -200,15 +197,7 @@ export function CheckboxField({ name, label, hint, className = '', onChange, onB
   return (
     <div className={className}>
       <label htmlFor={ids.input} className="flex min-h-tap cursor-pointer items-center gap-3 font-medium">
-        <input
-          id={ids.input}
-          type="checkbox"
-          aria-invalid={error ? true : undefined}
-          aria-describedby={describedBy(ids, hint, error)}
-          className="h-5 w-5 accent-clay-600"
-          {...rest}
-          {...registered}
-        />
+        <input id={ids.input} type="checkbox" aria-invalid={error ? true : undefined} aria-describedby={describedBy(ids, hint, error)} className="h-5 w-5 accent-clay-600" {...rest} {...registered} />
         {label}
       </label>
       {hint ? <FieldHint id={ids.hint}>{hint}</FieldHint> : null}
@@ -234,19 +223,8 @@ export function RadioGroupField({ name, legend, options, defaultValue }: RadioGr
         {options.map((option) => {
           const optionId = `${ids.input}-${option.value}`;
           return (
-            <label
-              key={option.value}
-              htmlFor={optionId}
-              className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50"
-            >
-              <input
-                id={optionId}
-                type="radio"
-                value={option.value}
-                defaultChecked={defaultValue === option.value}
-                className="mt-1 h-5 w-5 accent-clay-600"
-                {...registered}
-              />
+            <label key={option.value} htmlFor={optionId} className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50">
+              <input id={optionId} type="radio" value={option.value} defaultChecked={defaultValue === option.value} className="mt-1 h-5 w-5 accent-clay-600" {...registered} />
               <span>
                 <span className="block font-medium">{option.label}</span>
                 {option.description ? <span className="block text-sm text-ink-600">{option.description}</span> : null}

@@ -103,12 +103,7 @@ export function AppShell({ navItems, homePath, person, onSignOut, signingOut = f
             className="inline-flex min-h-tap min-w-tap items-center gap-2 rounded-md border border-ink-600 px-4 text-lg font-semibold text-white"
           >
             <svg viewBox="0 0 24 24" className="h-6 w-6" aria-hidden="true" focusable="false">
-              <path
-                d={menuOpen ? 'M6 6l12 12M18 6 6 18' : 'M4 7h16M4 12h16M4 17h16'}
-                stroke="currentColor"
-                strokeWidth="2"
-                strokeLinecap="round"
-              />
+              <path d={menuOpen ? 'M6 6l12 12M18 6 6 18' : 'M4 7h16M4 12h16M4 17h16'} stroke="currentColor" strokeWidth="2" strokeLinecap="round" />
             </svg>
             Menu
           </button>

@@ -11,7 +11,15 @@ import { renderWithProviders, stubFetch } from '../../test-utils/render-with-pro
  * 20 ridge pieces asked at £6.50 of which the desk could send 15 and dropped 5.
  */
 function partConfirmed(overrides: Partial<OrderDetailData> = {}): OrderDetailData {
-  const tile = { ...fixtureLine(101, 11, 'TRS-FL420-SG', 'Interlocking tile, slate grey', 1593), pack_size: 1, unit_price: 128, confirmed_quantity: 1500, back_order_quantity: 93, reserved_quantity: 1500, status: 'part_agreed' as const };
+  const tile = {
+    ...fixtureLine(101, 11, 'TRS-FL420-SG', 'Interlocking tile, slate grey', 1593),
+    pack_size: 1,
+    unit_price: 128,
+    confirmed_quantity: 1500,
+    back_order_quantity: 93,
+    reserved_quantity: 1500,
+    status: 'part_agreed' as const,
+  };
   const ridge = { ...fixtureLine(102, 12, 'TRS-RHR-SG', 'Half-round ridge', 20), pack_size: 1, unit_price: 650, confirmed_quantity: 15, back_order_quantity: 0, reserved_quantity: 15, status: 'part_agreed' as const };
   return orderFixture({ status: 'confirmed', status_label: 'Confirmed', lines: [tile, ridge], allowed_actions: [], back_ordered_packs: 93, ...overrides });
 }

@@ -40,9 +40,15 @@ export function SubstituteFigures({ figures, caption }: { figures: Figures; capt
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-mortar-100">
             <tr>
-              <th scope="col" className="px-3 py-2">Item</th>
-              <th scope="col" className="px-3 py-2">As ordered</th>
-              <th scope="col" className="px-3 py-2">With {figures.tile.sku}</th>
+              <th scope="col" className="px-3 py-2">
+                Item
+              </th>
+              <th scope="col" className="px-3 py-2">
+                As ordered
+              </th>
+              <th scope="col" className="px-3 py-2">
+                With {figures.tile.sku}
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -59,7 +65,9 @@ export function SubstituteFigures({ figures, caption }: { figures: Figures; capt
           </tbody>
           <tfoot>
             <tr className="border-t-2 border-mortar-300 font-semibold">
-              <th scope="row" className="px-3 py-2">Bill</th>
+              <th scope="row" className="px-3 py-2">
+                Bill
+              </th>
               <td className="px-3 py-2 tabular-nums">{formatMoney(figures.before_total)}</td>
               <td className="px-3 py-2 tabular-nums">
                 {formatMoney(figures.after_total)}{' '}

@@ -66,11 +66,7 @@ export function ErrorAlert({ error, title = 'This could not be loaded', onRetry,
       className={className}
       action={
         onRetry ? (
-          <button
-            type="button"
-            onClick={onRetry}
-            className="min-h-tap rounded-md border border-brick-600 bg-white px-4 font-semibold text-brick-700 hover:bg-brick-50"
-          >
+          <button type="button" onClick={onRetry} className="min-h-tap rounded-md border border-brick-600 bg-white px-4 font-semibold text-brick-700 hover:bg-brick-50">
             Try again
           </button>
         ) : null

@@ -19,13 +19,7 @@ const sizes: Record<ButtonSize, string> = {
 
 /** Classes of a button, for links that look like one. */
 export function buttonClasses(variant: ButtonVariant = 'primary', size: ButtonSize = 'md', extra = ''): string {
-  return [
-    'inline-flex items-center justify-center gap-2 rounded-md font-semibold transition-colors',
-    'disabled:cursor-not-allowed disabled:opacity-60',
-    variants[variant],
-    sizes[size],
-    extra,
-  ].join(' ');
+  return ['inline-flex items-center justify-center gap-2 rounded-md font-semibold transition-colors', 'disabled:cursor-not-allowed disabled:opacity-60', variants[variant], sizes[size], extra].join(' ');
 }
 
 interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
@@ -38,13 +32,7 @@ interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
 
 export function Button({ variant = 'primary', size = 'md', busy = false, className = '', type = 'button', disabled, children, ...rest }: ButtonProps) {
   return (
-    <button
-      type={type}
-      className={buttonClasses(variant, size, className)}
-      disabled={disabled || busy}
-      aria-busy={busy || undefined}
-      {...rest}
-    >
+    <button type={type} className={buttonClasses(variant, size, className)} disabled={disabled || busy} aria-busy={busy || undefined} {...rest}>
       {busy ? <Spinner className="h-4 w-4" label={null} /> : null}
       {children}
     </button>

@@ -44,9 +44,7 @@ describe('DataTable', () => {
   });
 
   it('sorts numbers as numbers, not as text', () => {
-    render(
-      <DataTable caption="Pallets" columns={columns} data={data} getRowId={(row) => String(row.id)} initialSorting={[{ id: 'tiles', desc: false }]} />,
-    );
+    render(<DataTable caption="Pallets" columns={columns} data={data} getRowId={(row) => String(row.id)} initialSorting={[{ id: 'tiles', desc: false }]} />);
     expect(firstColumn()).toEqual(['C-1', 'B-2', 'A-9']);
   });
 
@@ -116,7 +114,9 @@ describe('DataTable', () => {
       const tiles = () => screen.getByRole('columnheader', { name: /Tiles/ }).getAttribute('aria-sort');
       expect([reference(), tiles()]).toEqual(['none', 'descending']);
 
-      rerender(<DataTable caption="Pallets" columns={columns} data={data} getRowId={(row) => String(row.id)} serverSorting={{ sorting: { id: 'ref', desc: false }, sortable: ['ref', 'tiles'], onSortingChange: vi.fn() }} />);
+      rerender(
+        <DataTable caption="Pallets" columns={columns} data={data} getRowId={(row) => String(row.id)} serverSorting={{ sorting: { id: 'ref', desc: false }, sortable: ['ref', 'tiles'], onSortingChange: vi.fn() }} />,
+      );
       expect([reference(), tiles()]).toEqual(['ascending', 'none']);
 
       rerender(<DataTable caption="Pallets" columns={columns} data={data} getRowId={(row) => String(row.id)} serverSorting={{ sorting: null, sortable: ['ref', 'tiles'], onSortingChange: vi.fn() }} />);

@@ -1,15 +1,6 @@
 import { useId } from 'react';
 import type { ReactNode } from 'react';
-import {
-  createColumnHelper,
-  createSortedRowModel,
-  rowSortingFeature,
-  sortFn_alphanumeric,
-  sortFn_datetime,
-  sortFn_text,
-  tableFeatures,
-  useTable,
-} from '@tanstack/react-table';
+import { createColumnHelper, createSortedRowModel, rowSortingFeature, sortFn_alphanumeric, sortFn_datetime, sortFn_text, tableFeatures, useTable } from '@tanstack/react-table';
 import type { Column, ColumnDef, RowData, SortDirection, SortingState } from '@tanstack/react-table';
 
 /** The features every Ridgeload table has: click-to-sort headers, sorted in the browser. */
@@ -149,11 +140,7 @@ export function DataTable<TRow extends RowData, TSortId extends string = string>
                     className={`border-b border-mortar-300 ${cellPaddingClass} py-2 font-semibold whitespace-nowrap ${columnClassName?.(header.column.id) ?? ''}`}
                   >
                     {header.isPlaceholder ? null : canSort ? (
-                      <button
-                        type="button"
-                        onClick={onClick}
-                        className="-mx-2 inline-flex min-h-tap items-center gap-1.5 rounded px-2 hover:bg-mortar-200"
-                      >
+                      <button type="button" onClick={onClick} className="-mx-2 inline-flex min-h-tap items-center gap-1.5 rounded px-2 hover:bg-mortar-200">
                         <table.FlexRender header={header} />
                         <SortIcon direction={sorted} />
                       </button>

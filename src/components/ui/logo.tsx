@@ -11,14 +11,7 @@ interface LogoMarkProps {
 export function LogoMark({ className = 'h-9 w-9', ridgeColour = '#bd5a36' }: LogoMarkProps) {
   return (
     <svg viewBox="0 0 40 40" className={className} aria-hidden="true" focusable="false">
-      <path
-        d="M4 17.5 L20 5.5 L36 17.5"
-        fill="none"
-        stroke={ridgeColour}
-        strokeWidth="3.5"
-        strokeLinecap="round"
-        strokeLinejoin="round"
-      />
+      <path d="M4 17.5 L20 5.5 L36 17.5" fill="none" stroke={ridgeColour} strokeWidth="3.5" strokeLinecap="round" strokeLinejoin="round" />
       <g fill="currentColor">
         <rect x="8" y="20.5" width="11" height="4" rx="1" />
         <rect x="21" y="20.5" width="11" height="4" rx="1" />

@@ -45,7 +45,15 @@ function EstimatePage() {
 
 function renderApp() {
   const router = createMemoryRouter(
-    [{ element: <Layout />, children: [{ path: '/', element: <EstimatePage /> }, { path: '/faces', element: <p>Rafter 5,000 mm</p> }] }],
+    [
+      {
+        element: <Layout />,
+        children: [
+          { path: '/', element: <EstimatePage /> },
+          { path: '/faces', element: <p>Rafter 5,000 mm</p> },
+        ],
+      },
+    ],
     { initialEntries: ['/'] },
   );
   render(

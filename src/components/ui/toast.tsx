@@ -55,11 +55,7 @@ function ToastItem({ toast, onDismiss }: { toast: Toast; onDismiss: (id: number)
       onBlur={() => setPaused(false)}
     >
       <p className="flex-1 font-medium">{toast.message}</p>
-      <button
-        type="button"
-        onClick={() => onDismiss(toast.id)}
-        className="-my-2 -mr-2 inline-flex min-h-tap min-w-tap items-center justify-center rounded-md text-ink-600 hover:bg-ink-100"
-      >
+      <button type="button" onClick={() => onDismiss(toast.id)} className="-my-2 -mr-2 inline-flex min-h-tap min-w-tap items-center justify-center rounded-md text-ink-600 hover:bg-ink-100">
         <span className="sr-only">Dismiss message</span>
         <svg viewBox="0 0 24 24" className="h-5 w-5" aria-hidden="true" focusable="false">
           <path d="M6 6l12 12M18 6 6 18" stroke="currentColor" strokeWidth="2" strokeLinecap="round" />

@@ -75,9 +75,7 @@ export function deliveryContext(deps: DeliveriesDeps, issueCredit?: IssueCredit)
       position: p.lat !== null && p.lng !== null ? { lat: p.lat, lng: p.lng, ...(p.accuracy_m !== null ? { accuracy_m: p.accuracy_m } : {}) } : null,
       note: p.note,
       signature_url: signature ? `${base}/signature` : null,
-      photos: files
-        .filter((f) => f.kind === 'photo')
-        .map((f) => ({ id: f.id, url: `${base}/photos/${f.id}`, thumbnail_url: `${base}/photos/${f.id}/thumbnail`, content_type: f.content_type })),
+      photos: files.filter((f) => f.kind === 'photo').map((f) => ({ id: f.id, url: `${base}/photos/${f.id}`, thumbnail_url: `${base}/photos/${f.id}/thumbnail`, content_type: f.content_type })),
       lines: lines.map((l) => {
         const ol = byId.get(l.order_line_id);
         return { line_id: l.order_line_id, sku: ol?.sku ?? '', description: ol?.description ?? '', unit: ol?.unit ?? '', sent: l.sent, handed_over: l.handed_over, short: l.short, damaged: l.damaged };
@@ -89,13 +87,7 @@ export function deliveryContext(deps: DeliveriesDeps, issueCredit?: IssueCredit)
   async function notePdf(order: OrderRow): Promise<Buffer> {
     const booking = await slots.booking(order.id);
     if (!booking) throw AppError.conflict('not_booked', `${orderReference(order.id)} is not booked onto a run yet: its delivery note prints once it is`);
-    const [slot, lines, proof, faces, followUp] = await Promise.all([
-      slots.find(order.merchant_organisation_id, booking.slot_id),
-      orders.lines(order.id),
-      proofOf(order),
-      estimateFaces(order),
-      followUpOf(order.id),
-    ]);
+    const [slot, lines, proof, faces, followUp] = await Promise.all([slots.find(order.merchant_organisation_id, booking.slot_id), orders.lines(order.id), proofOf(order), estimateFaces(order), followUpOf(order.id)]);
     const p = proof ? await repo.proofOf(order.id) : undefined;
     const files = p ? await repo.files(p.id) : [];
     const signature = p && files.some((f) => f.kind === 'signature') ? await repo.fileData(p.id, null, 'signature', false) : undefined;

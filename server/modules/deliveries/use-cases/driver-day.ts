@@ -55,9 +55,7 @@ async function landingDrawings(ctx: DeliveryContext, order: Pick<OrderRow, 'esti
     byFace.set(`${result.building}\u0000${result.face}`, {
       shape: { eaves_mm: shape.eaves_mm, top_mm: shape.top_mm, rafter_mm: shape.rafter_mm, pitch_deg: shape.pitch_deg, left: shape.left, right: shape.right, top: shape.top },
       result,
-      openings: schedule.openings
-        .filter((o) => faceKey(o.building, o.face) === key)
-        .map(({ building, face, kind, width_mm, height_mm, quantity }) => ({ building, face, kind, width_mm, height_mm, quantity })),
+      openings: schedule.openings.filter((o) => faceKey(o.building, o.face) === key).map(({ building, face, kind, width_mm, height_mm, quantity }) => ({ building, face, kind, width_mm, height_mm, quantity })),
     });
   }
   return { system: e.system_input, byFace };

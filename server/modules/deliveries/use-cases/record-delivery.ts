@@ -49,7 +49,11 @@ async function draftLines(ctx: DeliveryContext, trx: Db, orgId: number, proof: P
   const owed = proof.filter((p) => p.short + p.damaged > 0);
   if (owed.length === 0) return [];
   const byId = new Map(lines.map((l) => [l.id, l]));
-  const rates = await ctx.repo.taxRates(orgId, owed.map((p) => byId.get(p.order_line_id)!.product_id), trx);
+  const rates = await ctx.repo.taxRates(
+    orgId,
+    owed.map((p) => byId.get(p.order_line_id)!.product_id),
+    trx,
+  );
   return owed.map((p) => {
     const l = byId.get(p.order_line_id)!;
     const quantity = p.short + p.damaged;
@@ -90,7 +94,9 @@ async function mailDelivered(ctx: DeliveryContext, trx: Db, user: AuthUser, orde
           heading: `Order ${ref} delivered`,
           paragraphs: [
             `The driver handed the delivery over at ${order.site_name} to ${receiver}. The signed delivery note is attached.`,
-            ...(short.length > 0 ? [`Short or damaged: ${short.map((l) => `${lines.get(l.order_line_id)?.description ?? ''} ${l.short + l.damaged} of ${l.sent}`).join('; ')}. ${order.merchant_name} will credit them.`] : []),
+            ...(short.length > 0
+              ? [`Short or damaged: ${short.map((l) => `${lines.get(l.order_line_id)?.description ?? ''} ${l.short + l.damaged} of ${l.sent}`).join('; ')}. ${order.merchant_name} will credit them.`]
+              : []),
           ],
           action: { label: 'Open the order', url: `${config.appUrl}/orders/${orderId}` },
         }),

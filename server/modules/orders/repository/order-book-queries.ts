@@ -48,14 +48,24 @@ export function orderBookRepository(db: Db) {
   return {
     /** How many orders match the filter, stopping at ORDER_COUNT_CAP (paging and sort play no part). */
     async count(party: OrderParty, f: ListFilter): Promise<{ total: number; capped: boolean }> {
-      const matches = bookFilter(db, party, f)(db('orders as o')).select(db.raw('1')).limit(ORDER_COUNT_CAP + 1);
+      const matches = bookFilter(
+        db,
+        party,
+        f,
+      )(db('orders as o'))
+        .select(db.raw('1'))
+        .limit(ORDER_COUNT_CAP + 1);
       const counted = Number((await db.from(matches.as('m')).count({ n: '*' }).first())?.n ?? 0);
       return { total: Math.min(counted, ORDER_COUNT_CAP), capped: counted > ORDER_COUNT_CAP };
     },
 
     /** One page of the book in the asked order: the ids are paged on an index, then only those rows are joined. */
     async page(party: OrderParty, f: ListFilter): Promise<OrderRow[]> {
-      const ids = (await bookFilter(db, party, f)(db('orders as o'))
+      const ids = (await bookFilter(
+        db,
+        party,
+        f,
+      )(db('orders as o'))
         .orderBy([
           { column: `o.${f.sort}`, order: f.dir },
           { column: 'o.id', order: f.dir },
@@ -64,7 +74,9 @@ export function orderBookRepository(db: Db) {
         .offset((f.page - 1) * f.page_size)
         .pluck('o.id')) as number[];
       if (ids.length === 0) return [];
-      const rows = await scoped(db, party).whereIn('o.id', ids).select([...ORDER_COLUMNS, lineCount(db)]);
+      const rows = await scoped(db, party)
+        .whereIn('o.id', ids)
+        .select([...ORDER_COLUMNS, lineCount(db)]);
       const byId = new Map(rows.map((r) => [r.id as number, r]));
       return ids.map((oid) => toOrder(byId.get(oid)!));
     },

@@ -30,8 +30,8 @@ export function orderLinesRepository(db: Db) {
         })
         .returning('id');
       ids.push((row as { id: number }).id);
-  }
-  return ids;
+    }
+    return ids;
   }
 
   return {

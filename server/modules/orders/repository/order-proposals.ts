@@ -27,7 +27,9 @@ export function orderProposalsRepository(db: Db) {
         note: string;
       }[],
     ): Promise<number> {
-      const [row] = await trx('order_proposals').insert({ ...p, status: 'open', proposed_at: nowIso() }).returning('id');
+      const [row] = await trx('order_proposals')
+        .insert({ ...p, status: 'open', proposed_at: nowIso() })
+        .returning('id');
       const id = (row as { id: number }).id;
       if (lines.length > 0) {
         await trx('order_proposal_lines').insert(lines.map((l) => ({ ...l, substitute_figures: l.substitute_figures ? JSON.stringify(l.substitute_figures) : null, proposal_id: id })));
@@ -60,16 +62,7 @@ export function orderProposalsRepository(db: Db) {
           'pl.proposal_id',
           rows.map((r) => r.id),
         )
-        .select(
-          'pl.*',
-          'ol.sku',
-          'ol.description',
-          'ol.quantity',
-          'sp.sku as sub_sku',
-          'sp.name as sub_name',
-          'sp.unit as sub_unit',
-          'sp.pack_size as sub_pack_size',
-        )
+        .select('pl.*', 'ol.sku', 'ol.description', 'ol.quantity', 'sp.sku as sub_sku', 'sp.name as sub_name', 'sp.unit as sub_unit', 'sp.pack_size as sub_pack_size')
         .orderBy('pl.id');
       return rows.map((r) => ({
         id: r.id,

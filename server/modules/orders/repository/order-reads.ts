@@ -8,7 +8,10 @@ import { ORDER_COLUMNS, lineCount, scoped, toOrder } from './order-row';
 export function orderReadsRepository(db: Db) {
   return {
     async find(party: OrderParty, id: number, trx: Db = db): Promise<OrderRow | undefined> {
-      const row = await scoped(trx, party).where('o.id', id).select([...ORDER_COLUMNS, lineCount(trx)]).first();
+      const row = await scoped(trx, party)
+        .where('o.id', id)
+        .select([...ORDER_COLUMNS, lineCount(trx)])
+        .first();
       return row ? toOrder(row) : undefined;
     },
 

@@ -62,10 +62,7 @@ export function toLine(r: Record<string, unknown>): StoredOrderLine {
 
 /** Orders joined to their firms and branch, limited to the caller's side: another firm's order is not there. */
 export function scoped(trx: Db, party: OrderParty) {
-  const q = trx('orders as o')
-    .join('organisations as co', 'co.id', 'o.contractor_organisation_id')
-    .join('organisations as mo', 'mo.id', 'o.merchant_organisation_id')
-    .join('branches as b', 'b.id', 'o.branch_id');
+  const q = trx('orders as o').join('organisations as co', 'co.id', 'o.contractor_organisation_id').join('organisations as mo', 'mo.id', 'o.merchant_organisation_id').join('branches as b', 'b.id', 'o.branch_id');
   if (party.kind === 'contractor') q.where('o.contractor_organisation_id', party.organisationId);
   else q.where('o.merchant_organisation_id', party.organisationId);
   return q;

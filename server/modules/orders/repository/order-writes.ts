@@ -10,7 +10,9 @@ export function orderWritesRepository(db: Db) {
   return {
     async insertOrder(
       trx: Db,
-      o: Omit<OrderRow, 'id' | 'contractor_name' | 'merchant_name' | 'branch_name' | 'branch_town' | 'line_count' | 'revision' | 'confirmed_at' | 'cancelled_at' | 'updated_at' | 'follows_order_id'> & { follows_order_id?: number | null },
+      o: Omit<OrderRow, 'id' | 'contractor_name' | 'merchant_name' | 'branch_name' | 'branch_town' | 'line_count' | 'revision' | 'confirmed_at' | 'cancelled_at' | 'updated_at' | 'follows_order_id'> & {
+        follows_order_id?: number | null;
+      },
       orderLines: NewOrderLine[],
     ): Promise<number> {
       const [row] = await trx('orders')
@@ -46,14 +48,10 @@ export function orderWritesRepository(db: Db) {
      * Changes an order only if it is still in one of the given stages (and, when given, at the given
      * revision), so two people acting at once cannot both win. Returns whether it changed.
      */
-    async updateIf(
-      trx: Db,
-      id: number,
-      guard: { statuses: readonly OrderStatus[]; revision?: number },
-      values: Record<string, unknown>,
-      bumpRevision: boolean,
-    ): Promise<boolean> {
-      const q = trx('orders').where('id', id).whereIn('status', guard.statuses as OrderStatus[]);
+    async updateIf(trx: Db, id: number, guard: { statuses: readonly OrderStatus[]; revision?: number }, values: Record<string, unknown>, bumpRevision: boolean): Promise<boolean> {
+      const q = trx('orders')
+        .where('id', id)
+        .whereIn('status', guard.statuses as OrderStatus[]);
       if (guard.revision !== undefined) q.where('revision', guard.revision);
       const n = await q.update({
         ...values,
@@ -64,9 +62,7 @@ export function orderWritesRepository(db: Db) {
     },
 
     async insertComment(trx: Db, orderId: number, c: { userId: number; name: string; organisationId: number; body: string }): Promise<number> {
-      const [row] = await trx('order_comments')
-        .insert({ order_id: orderId, author_user_id: c.userId, author_name: c.name, author_organisation_id: c.organisationId, body: c.body, created_at: nowIso() })
-        .returning('id');
+      const [row] = await trx('order_comments').insert({ order_id: orderId, author_user_id: c.userId, author_name: c.name, author_organisation_id: c.organisationId, body: c.body, created_at: nowIso() }).returning('id');
       return (row as { id: number }).id;
     },
 

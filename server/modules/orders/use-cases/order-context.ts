@@ -90,9 +90,7 @@ export function orderContext(deps: OrderDeps) {
       wanted.map((l) => l.product_id),
       trx,
     );
-    const problems = wanted
-      .map((l, i) => (products.has(l.product_id) ? null : { path: path(i), message: `is not a product ${branchName} sells` }))
-      .filter((p): p is { path: string; message: string } => p !== null);
+    const problems = wanted.map((l, i) => (products.has(l.product_id) ? null : { path: path(i), message: `is not a product ${branchName} sells` })).filter((p): p is { path: string; message: string } => p !== null);
     if (problems.length > 0) throw AppError.unprocessable('validation_failed', 'Some lines cannot be ordered from this branch', problems);
     return wanted.map((l) => newLine(products.get(l.product_id)!, l.quantity, 'asked'));
   }

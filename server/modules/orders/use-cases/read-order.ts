@@ -86,15 +86,14 @@ export async function readOrder(ctx: OrderContext, user: AuthUser, id: number): 
             booked_at: booking.booked_at,
           }
         : null,
-    delivery:
-      booking?.delivered_at
-        ? {
-            delivered_at: booking.delivered_at,
-            received_by: booking.received_by ?? '',
-            notes: booking.delivery_notes ?? '',
-            recorded_by: booking.recorded_by ? { id: booking.recorded_by, name: booking.recorded_by_name ?? '' } : null,
-          }
-        : null,
+    delivery: booking?.delivered_at
+      ? {
+          delivered_at: booking.delivered_at,
+          received_by: booking.received_by ?? '',
+          notes: booking.delivery_notes ?? '',
+          recorded_by: booking.recorded_by ? { id: booking.recorded_by, name: booking.recorded_by_name ?? '' } : null,
+        }
+      : null,
     comments: comments.map(({ organisationKind: _kind, ...c }) => c),
     invoice,
     follows: follows ? link(follows) : null,

@@ -23,7 +23,10 @@ export async function startFollowUp(ctx: OrderContext, user: AuthUser, id: numbe
     await lockRow(trx, 'orders', id);
     const order = await ctx.orderForStep(trx, user, id, 'start_follow_up');
     const existing = await orders.followUpOf(id, trx);
-    if (existing) throw AppError.conflict('follow_up_exists', `The back-ordered packs of ${orderReference(id)} already follow as ${orderReference(existing.id)}`, [{ message: `already follows as ${orderReference(existing.id)}`, order_id: existing.id, reference: orderReference(existing.id) }]);
+    if (existing)
+      throw AppError.conflict('follow_up_exists', `The back-ordered packs of ${orderReference(id)} already follow as ${orderReference(existing.id)}`, [
+        { message: `already follows as ${orderReference(existing.id)}`, order_id: existing.id, reference: orderReference(existing.id) },
+      ]);
     const owed = (await orders.lines(id, trx)).filter((l) => l.back_order_quantity > 0);
     if (owed.length === 0) throw AppError.conflict('nothing_back_ordered', `${orderReference(id)} has no back-ordered packs to send`);
     const lines: NewOrderLine[] = owed.map((l) => ({

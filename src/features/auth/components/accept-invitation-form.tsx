@@ -55,13 +55,7 @@ export function AcceptInvitation({ token, onAccepted }: AcceptInvitationProps) {
       <Form form={form} label="Accept the invitation">
         <TextField name="name" label="Your name" autoComplete="name" />
         <div>
-          <TextField
-            name="password"
-            label="Choose a password"
-            type={showPassword ? 'text' : 'password'}
-            autoComplete="new-password"
-            hint="At least 10 characters."
-          />
+          <TextField name="password" label="Choose a password" type={showPassword ? 'text' : 'password'} autoComplete="new-password" hint="At least 10 characters." />
           <ShowPasswordToggle shown={showPassword} onChange={setShowPassword} />
         </div>
         <SubmitButton size="lg" className="w-full">

@@ -20,8 +20,7 @@ export function ForgotPasswordForm() {
   if (sentTo) {
     return (
       <Alert tone="success" title="Check your inbox">
-        If an account uses {sentTo}, an e-mail with a link to choose a new password is on its way. The link works once
-        and stops working after a while; ask for a new one if it has.
+        If an account uses {sentTo}, an e-mail with a link to choose a new password is on its way. The link works once and stops working after a while; ask for a new one if it has.
       </Alert>
     );
   }

@@ -25,13 +25,7 @@ export function ResetPasswordForm({ token, onDone }: ResetPasswordFormProps) {
   return (
     <Form form={form} label="Choose a new password">
       <div>
-        <TextField
-          name="password"
-          label="New password"
-          type={showPassword ? 'text' : 'password'}
-          autoComplete="new-password"
-          hint="At least 10 characters."
-        />
+        <TextField name="password" label="New password" type={showPassword ? 'text' : 'password'} autoComplete="new-password" hint="At least 10 characters." />
         <ShowPasswordToggle shown={showPassword} onChange={setShowPassword} />
       </div>
       <SubmitButton size="lg" className="w-full">

@@ -29,13 +29,7 @@ export function SignUpForm({ onSignedUp }: SignUpFormProps) {
       <TextField name="name" label="Your name" autoComplete="name" />
       <TextField name="email" label="E-mail" type="email" autoComplete="email" inputMode="email" />
       <div>
-        <TextField
-          name="password"
-          label="Password"
-          type={showPassword ? 'text' : 'password'}
-          autoComplete="new-password"
-          hint="At least 10 characters. A few unrelated words make a strong one."
-        />
+        <TextField name="password" label="Password" type={showPassword ? 'text' : 'password'} autoComplete="new-password" hint="At least 10 characters. A few unrelated words make a strong one." />
         <ShowPasswordToggle shown={showPassword} onChange={setShowPassword} />
       </div>
       <SubmitButton size="lg" className="w-full">

@@ -67,10 +67,18 @@ export function CatalogueBoard({ canImportPrices, canImportStock }: { canImportP
               </Card>
               <Card title="Sheets">
                 <div className="flex flex-wrap gap-2">
-                  <a href={sheetExportUrl(branchId, 'price-list', 'csv')} download className={buttonClasses('secondary')}>Price list .csv</a>
-                  <a href={sheetExportUrl(branchId, 'price-list', 'xlsx')} download className={buttonClasses('secondary')}>Price list .xlsx</a>
-                  <a href={sheetExportUrl(branchId, 'stock-counts', 'csv')} download className={buttonClasses('secondary')}>Stock counts .csv</a>
-                  <a href={sheetExportUrl(branchId, 'stock-counts', 'xlsx')} download className={buttonClasses('secondary')}>Stock counts .xlsx</a>
+                  <a href={sheetExportUrl(branchId, 'price-list', 'csv')} download className={buttonClasses('secondary')}>
+                    Price list .csv
+                  </a>
+                  <a href={sheetExportUrl(branchId, 'price-list', 'xlsx')} download className={buttonClasses('secondary')}>
+                    Price list .xlsx
+                  </a>
+                  <a href={sheetExportUrl(branchId, 'stock-counts', 'csv')} download className={buttonClasses('secondary')}>
+                    Stock counts .csv
+                  </a>
+                  <a href={sheetExportUrl(branchId, 'stock-counts', 'xlsx')} download className={buttonClasses('secondary')}>
+                    Stock counts .xlsx
+                  </a>
                 </div>
                 <div className="mt-6 grid gap-6 lg:grid-cols-2">
                   {canImportPrices ? <SheetImport key={`p${branchId}`} branchId={branchId} kind="price-list" /> : null}

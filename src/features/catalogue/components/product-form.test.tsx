@@ -44,7 +44,18 @@ describe('ProductForm', () => {
     expect(screen.queryByLabelText('Tile length (mm)')).toBeNull();
     type('Category', 'tile');
     const tile = screen.getByRole('region', { name: 'Technical fields for Tiles' });
-    for (const label of ['Tile kind', 'Tile length (mm)', 'Tile width (mm)', 'Weight of one tile (kg)', 'Tiles per pallet', 'Closed up (min)', 'Nominal', 'Spread (max)', 'Band 1: from pitch (°)', 'Band 1: minimum headlap (mm)']) {
+    for (const label of [
+      'Tile kind',
+      'Tile length (mm)',
+      'Tile width (mm)',
+      'Weight of one tile (kg)',
+      'Tiles per pallet',
+      'Closed up (min)',
+      'Nominal',
+      'Spread (max)',
+      'Band 1: from pitch (°)',
+      'Band 1: minimum headlap (mm)',
+    ]) {
       expect(within(tile).getByLabelText(label)).toBeTruthy();
     }
     type('Category', 'tile_nail');
@@ -212,13 +223,15 @@ describe('ProductForm', () => {
 
   it('changes a stored tile with PATCH, keeping its fields and the engine label not on the form', async () => {
     // 1.1 kg a plain tile, 1000 a pallet: from memory.
-    const tile = productSchema.parse(saved({
-      sku: 'TRS-PT265-RD',
-      name: 'Stanmoor plain tile, red',
-      pack_weight_kg: 1.1,
-      pallet_width_mm: 800,
-      technical: { name: 'Stanmoor plain', kind: 'double_lap', length_mm: 265, width_mm: 165, headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }], weight_kg: 1.1, per_pallet: 1000, nails_per_tile: 2 },
-    }));
+    const tile = productSchema.parse(
+      saved({
+        sku: 'TRS-PT265-RD',
+        name: 'Stanmoor plain tile, red',
+        pack_weight_kg: 1.1,
+        pallet_width_mm: 800,
+        technical: { name: 'Stanmoor plain', kind: 'double_lap', length_mm: 265, width_mm: 165, headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }], weight_kg: 1.1, per_pallet: 1000, nails_per_tile: 2 },
+      }),
+    );
     const fetchMock = stubFetch({ ...csrf, 'PATCH /api/products/21': { status: 200, body: tile } });
     renderWithProviders(<ProductForm product={tile} onDone={() => undefined} />);
     // Plain tile 265 × 165 mm at 65 mm headlap from 35°: NHBC Standards 7.2.19, table "Pitch, gauge and lap".

@@ -36,8 +36,7 @@ function TileFields({ form, product }: { form: SchemaForm; product: Product | nu
   return (
     <div className="space-y-4">
       <Alert tone="caution" title="Take these from the tile maker">
-        Sizes, headlaps per pitch and fixings come from the tile maker&rsquo;s data and fixing specification; every roof is laid to that specification, the local codes and
-        licensed practice for its pitch and exposure.
+        Sizes, headlaps per pitch and fixings come from the tile maker&rsquo;s data and fixing specification; every roof is laid to that specification, the local codes and licensed practice for its pitch and exposure.
       </Alert>
       <div className="grid gap-4 sm:grid-cols-2">
         <SelectField name={technicalField('kind')} label="Tile kind" options={[{ value: '', label: 'Choose the kind' }, ...TILE_KINDS.map((k) => ({ value: k, label: KIND_WORDS[k] }))]} defaultValue={t('kind')} />
@@ -58,7 +57,11 @@ function TileFields({ form, product }: { form: SchemaForm; product: Product | nu
           defaultValue={t('halves_per_tile')}
         />
       </div>
-      <FieldGroup name={technicalField('cover_width_mm')} legend="Cover width (mm)" hint="Needed for a single-lap tile: the side lock's closed, nominal and open cover. Leave blank for a double-lap tile (its cover is its width).">
+      <FieldGroup
+        name={technicalField('cover_width_mm')}
+        legend="Cover width (mm)"
+        hint="Needed for a single-lap tile: the side lock's closed, nominal and open cover. Leave blank for a double-lap tile (its cover is its width)."
+      >
         <div className="grid gap-4 sm:grid-cols-3">
           <TextField name={technicalField('cover_width_mm', 'min')} label="Closed up (min)" inputMode="decimal" defaultValue={t('cover_width_mm', 'min')} />
           <TextField name={technicalField('cover_width_mm', 'nominal')} label="Nominal" inputMode="decimal" defaultValue={t('cover_width_mm', 'nominal')} />
@@ -129,13 +132,7 @@ export function ProductForm({ product = null, onDone }: { product?: Product | nu
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField name="sku" label="SKU" hint="Your own code: letters, digits and - _ . /" autoComplete="off" maxLength={40} defaultValue={product?.sku ?? ''} />
         <TextField name="name" label="Name" maxLength={160} defaultValue={product?.name ?? ''} />
-        <SelectField
-          name="category"
-          label="Category"
-          options={CATEGORY_OPTIONS}
-          value={category}
-          onChange={(e) => setCategory(e.target.value as ProductCategory | '')}
-        />
+        <SelectField name="category" label="Category" options={CATEGORY_OPTIONS} value={category} onChange={(e) => setCategory(e.target.value as ProductCategory | '')} />
         <TextField name="unit" label="Unit" hint="What one is counted in: piece, roll, length, m…" maxLength={20} defaultValue={product?.unit ?? ''} />
         <TextField name="pack_size" label="Pack size (units in one pack)" inputMode="numeric" defaultValue={product ? String(product.pack_size) : ''} />
         <TextField name="pack_weight_kg" label="Pack weight (kg)" inputMode="decimal" defaultValue={product ? String(product.pack_weight_kg) : ''} />

@@ -23,7 +23,15 @@ const figureColumns = [
   h.accessor('sku', { header: 'SKU', sortFn: 'text', cell: (info) => <span className="font-mono text-sm whitespace-nowrap">{info.getValue()}</span> }),
   h.accessor('name', { header: 'Product', sortFn: 'text', cell: (info) => <span className="block min-w-48 text-sm">{info.getValue()}</span> }),
   h.accessor('category', { header: 'Kind', sortFn: 'text', cell: (info) => CATEGORY_LABELS[info.getValue()] }),
-  h.accessor('pack_size', { header: 'Pack', sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap tabular-nums">{info.getValue()} {info.row.original.unit}</span> }),
+  h.accessor('pack_size', {
+    header: 'Pack',
+    sortFn: 'alphanumeric',
+    cell: (info) => (
+      <span className="whitespace-nowrap tabular-nums">
+        {info.getValue()} {info.row.original.unit}
+      </span>
+    ),
+  }),
   h.accessor('pack_weight_kg', { header: 'Pack weight', sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap tabular-nums">{info.getValue().toLocaleString('en-GB')} kg</span> }),
   h.accessor('tax_rate_bp', { header: 'Tax', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() / 100} %</span> }),
   h.accessor((p) => p.branches.length, { id: 'branches', header: 'Sold at', sortFn: 'alphanumeric', cell: (info) => `${info.getValue()} ${info.getValue() === 1 ? 'branch' : 'branches'}` }),
@@ -81,7 +89,19 @@ export function ProductsPanel({ canManage }: { canManage: boolean }) {
     () =>
       canManage
         ? h.columns([
-            h.display({ id: 'actions', header: () => <span className="sr-only">Change</span>, cell: (info) => <ProductActions product={info.row.original} onEdit={(p) => { setAdding(false); setEditing(p); }} /> }),
+            h.display({
+              id: 'actions',
+              header: () => <span className="sr-only">Change</span>,
+              cell: (info) => (
+                <ProductActions
+                  product={info.row.original}
+                  onEdit={(p) => {
+                    setAdding(false);
+                    setEditing(p);
+                  }}
+                />
+              ),
+            }),
             ...figureColumns,
           ])
         : h.columns(figureColumns),
@@ -101,14 +121,7 @@ export function ProductsPanel({ canManage }: { canManage: boolean }) {
           </Card>
         ) : null}
       </div>
-      <Card
-        title="Products"
-        actions={
-          canManage && !adding && !editing ? (
-            <Button onClick={() => setAdding(true)}>Add a product</Button>
-          ) : null
-        }
-      >
+      <Card title="Products" actions={canManage && !adding && !editing ? <Button onClick={() => setAdding(true)}>Add a product</Button> : null}>
         <div className="mb-4 flex flex-wrap gap-4">
           <div>
             <label htmlFor={shownId} className="mb-1 block font-medium">

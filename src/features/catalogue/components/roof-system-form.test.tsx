@@ -6,7 +6,23 @@ import { RoofSystemForm } from './roof-system-form';
 
 const csrf = { 'GET /api/auth/csrf': { status: 200, body: { token: 't' } } };
 const product = (id: number, sku: string, name: string, category: string, archived = false) =>
-  productSchema.parse({ id, sku, name, category, unit: 'piece', pack_size: 1, pack_weight_kg: 1, tax_rate_bp: 2000, technical: {}, pallet_length_mm: 1200, pallet_width_mm: 1000, branches: [], archived_at: archived ? '2026-11-01T00:00:00.000Z' : null, created_at: '2026-10-01T00:00:00.000Z', updated_at: '2026-10-01T00:00:00.000Z' });
+  productSchema.parse({
+    id,
+    sku,
+    name,
+    category,
+    unit: 'piece',
+    pack_size: 1,
+    pack_weight_kg: 1,
+    tax_rate_bp: 2000,
+    technical: {},
+    pallet_length_mm: 1200,
+    pallet_width_mm: 1000,
+    branches: [],
+    archived_at: archived ? '2026-11-01T00:00:00.000Z' : null,
+    created_at: '2026-10-01T00:00:00.000Z',
+    updated_at: '2026-10-01T00:00:00.000Z',
+  });
 const products = [
   product(1, 'TRS-FL420-SG', 'Flat interlocking tile, slate grey', 'tile'),
   product(2, 'TRS-FL420-BR', 'Flat interlocking tile, brindle', 'tile'),
@@ -29,9 +45,15 @@ describe('RoofSystemForm', () => {
   it('offers only products of each part’s category, leaving archived ones out', () => {
     stubFetch({});
     renderWithProviders(<RoofSystemForm branchId={3} products={products} />);
-    const tiles = within(screen.getByLabelText('Tile')).getAllByRole('option').map((o) => o.textContent);
+    const tiles = within(screen.getByLabelText('Tile'))
+      .getAllByRole('option')
+      .map((o) => o.textContent);
     expect(tiles).toEqual(['None', 'TRS-FL420-SG · Flat interlocking tile, slate grey', 'TRS-FL420-BR · Flat interlocking tile, brindle']);
-    expect(within(screen.getByLabelText('Ridge tile')).getAllByRole('option').map((o) => o.textContent)).toEqual(['None', 'TRS-RHR-SG · Half-round ridge, slate grey']);
+    expect(
+      within(screen.getByLabelText('Ridge tile'))
+        .getAllByRole('option')
+        .map((o) => o.textContent),
+    ).toEqual(['None', 'TRS-RHR-SG · Half-round ridge, slate grey']);
     expect(screen.getByText('No hip products in the catalogue yet.')).toBeTruthy();
   });
 
@@ -62,7 +84,10 @@ describe('RoofSystemForm', () => {
   it('shows the server’s refusal of a part at that part’s picker', async () => {
     stubFetch({
       ...csrf,
-      'POST /api/roof-systems': { status: 422, body: { error: { code: 'validation_failed', message: 'The roof system has 1 problem', details: [{ path: 'components.ridge', message: 'TRS-RHR-SG is no longer sold: pick another ridge product' }] } } },
+      'POST /api/roof-systems': {
+        status: 422,
+        body: { error: { code: 'validation_failed', message: 'The roof system has 1 problem', details: [{ path: 'components.ridge', message: 'TRS-RHR-SG is no longer sold: pick another ridge product' }] } },
+      },
     });
     renderWithProviders(<RoofSystemForm branchId={3} products={products} />);
     fireEvent.change(screen.getByLabelText('Name'), { target: { value: 'Flat tile on 38 × 25' } });
@@ -93,11 +118,13 @@ describe('RoofSystemForm', () => {
     choose('Underlay', '');
     choose('Batten', '4');
     fireEvent.click(screen.getByRole('button', { name: 'Save the roof system' }));
-    await waitFor(() => expect(sentBody(fetchMock, 'PATCH', '/api/roof-systems/40')).toEqual({
+    await waitFor(() =>
+      expect(sentBody(fetchMock, 'PATCH', '/api/roof-systems/40')).toEqual({
         name: 'Flat tile on 38 × 25',
         description: 'Brindle, for the Quillsby estates',
         components: { tile: 8, ridge: 3, batten: 4 },
-      }));
+      }),
+    );
     expect(await screen.findByText('Flat tile on 38 × 25 is saved; it is not offered yet: has no batten product.')).toBeTruthy();
   });
 });

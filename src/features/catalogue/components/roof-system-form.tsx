@@ -10,7 +10,6 @@ import { useUpdateRoofSystem } from '../api/update-roof-system';
 import { withFieldDetails } from '../lib/form-values';
 import { ROLE_WORDS, componentField, createRoofSystemFormSchema, updateRoofSystemFormSchema } from '../lib/roof-system-form';
 
-
 /**
  * A roof system at a branch: a tile and the accessories laid with it, each picked from the merchant's
  * products of the same category. A system missing a needed part can be saved; it is not offered until whole.

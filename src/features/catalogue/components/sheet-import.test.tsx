@@ -41,7 +41,14 @@ describe('SheetImport', () => {
     fireEvent.change(screen.getByLabelText('Import a price list (CSV or .xlsx)'), { target: { files: [file] } });
     fireEvent.click(screen.getByRole('button', { name: 'Upload' }));
     const table = await screen.findByRole('table', { name: 'Problems in the file' });
-    const rows = within(table).getAllByRole('row').slice(1).map((r) => within(r).getAllByRole('cell').map((c) => c.textContent));
+    const rows = within(table)
+      .getAllByRole('row')
+      .slice(1)
+      .map((r) =>
+        within(r)
+          .getAllByRole('cell')
+          .map((c) => c.textContent),
+      );
     expect(rows).toEqual([
       ['4', 'price', 'is not a number (write it like 12.80)'],
       ['7', 'sku', 'TRS-XX-1 is not one of your products'],

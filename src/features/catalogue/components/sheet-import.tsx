@@ -69,9 +69,15 @@ export function SheetImport({ branchId, kind }: { branchId: number; kind: SheetK
           <table className="mt-2 w-full border-collapse text-left text-sm" aria-label="Problems in the file">
             <thead>
               <tr>
-                <th scope="col" className="py-1 pr-4">Row</th>
-                <th scope="col" className="py-1 pr-4">Column</th>
-                <th scope="col" className="py-1">Problem</th>
+                <th scope="col" className="py-1 pr-4">
+                  Row
+                </th>
+                <th scope="col" className="py-1 pr-4">
+                  Column
+                </th>
+                <th scope="col" className="py-1">
+                  Problem
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -86,7 +92,9 @@ export function SheetImport({ branchId, kind }: { branchId: number; kind: SheetK
           </table>
         </Alert>
       ) : upload.isError ? (
-        <Alert tone="danger" title="The file could not be imported">{errorMessage(upload.error)}</Alert>
+        <Alert tone="danger" title="The file could not be imported">
+          {errorMessage(upload.error)}
+        </Alert>
       ) : null}
     </Form>
   );

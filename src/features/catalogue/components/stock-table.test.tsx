@@ -69,7 +69,13 @@ describe('StockTable editing', () => {
       'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
       'PATCH /api/branches/3/stock/11': {
         status: 409,
-        body: { error: { code: 'below_reserved', message: '400 packs of TRS-FL420-SG are reserved for confirmed orders: on hand cannot be less', details: [{ path: 'on_hand', message: 'must be at least the 400 packs reserved' }] } },
+        body: {
+          error: {
+            code: 'below_reserved',
+            message: '400 packs of TRS-FL420-SG are reserved for confirmed orders: on hand cannot be less',
+            details: [{ path: 'on_hand', message: 'must be at least the 400 packs reserved' }],
+          },
+        },
       },
     });
     renderWithProviders(<StockTable branchId={3} canEdit />);
@@ -112,7 +118,23 @@ describe('StockTable price', () => {
       'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
       'PUT /api/branches/3/products/11': {
         status: 200,
-        body: { id: 11, sku: item.sku, name: item.name, category: 'tile', unit: 'tile', pack_size: 1, pack_weight_kg: 4.4, tax_rate_bp: 2000, technical: {}, pallet_length_mm: 1200, pallet_width_mm: 1000, branches: [], archived_at: null, created_at: item.updated_at, updated_at: item.updated_at },
+        body: {
+          id: 11,
+          sku: item.sku,
+          name: item.name,
+          category: 'tile',
+          unit: 'tile',
+          pack_size: 1,
+          pack_weight_kg: 4.4,
+          tax_rate_bp: 2000,
+          technical: {},
+          pallet_length_mm: 1200,
+          pallet_width_mm: 1000,
+          branches: [],
+          archived_at: null,
+          created_at: item.updated_at,
+          updated_at: item.updated_at,
+        },
       },
     });
     renderWithProviders(<StockTable branchId={3} canEditPrice />);

@@ -17,7 +17,15 @@ const figureColumns = [
   h.accessor('sku', { header: 'SKU', sortFn: 'text', cell: (info) => <span className="font-mono text-sm whitespace-nowrap">{info.getValue()}</span> }),
   h.accessor('name', { header: 'Product', sortFn: 'text', cell: (info) => <span className="block min-w-56 text-sm">{info.getValue()}</span> }),
   h.accessor('category', { header: 'Kind', sortFn: 'text', cell: (info) => CATEGORY_LABELS[info.getValue()] }),
-  h.accessor('pack_size', { header: 'Pack', sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap tabular-nums">{info.getValue()} {info.row.original.unit}</span> }),
+  h.accessor('pack_size', {
+    header: 'Pack',
+    sortFn: 'alphanumeric',
+    cell: (info) => (
+      <span className="whitespace-nowrap tabular-nums">
+        {info.getValue()} {info.row.original.unit}
+      </span>
+    ),
+  }),
   h.accessor('pack_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('on_hand', { header: 'On hand', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue().toLocaleString('en-GB')}</span> }),
   h.accessor('reserved', { header: 'Reserved', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue().toLocaleString('en-GB')}</span> }),
@@ -27,7 +35,9 @@ const figureColumns = [
     header: 'State',
     sortFn: 'text',
     cell: (info) => (
-      <span className={`rounded px-2 py-0.5 text-sm whitespace-nowrap ${info.getValue() === 'in_stock' ? '' : info.getValue() === 'low' ? 'bg-ochre-100 font-semibold text-ochre-800' : 'bg-brick-50 font-semibold text-brick-800'}`}>
+      <span
+        className={`rounded px-2 py-0.5 text-sm whitespace-nowrap ${info.getValue() === 'in_stock' ? '' : info.getValue() === 'low' ? 'bg-ochre-100 font-semibold text-ochre-800' : 'bg-brick-50 font-semibold text-brick-800'}`}
+      >
         {STATE_WORDS[info.getValue()]}
       </span>
     ),
@@ -92,7 +102,15 @@ export function StockTable({ branchId, canEdit = false, canEditPrice = false }: 
         <input type="checkbox" checked={lowOnly} onChange={(e) => setLowOnly(e.target.checked)} className="h-5 w-5" />
         Only what is at or below its reorder level ({low})
       </label>
-      <DataTable caption={`Stock at ${stock.data.branch.name}`} captionHidden columns={columns} data={items} getRowId={(i) => String(i.product_id)} minWidthClass="min-w-[72rem]" initialSorting={[{ id: 'sku', desc: false }]} />
+      <DataTable
+        caption={`Stock at ${stock.data.branch.name}`}
+        captionHidden
+        columns={columns}
+        data={items}
+        getRowId={(i) => String(i.product_id)}
+        minWidthClass="min-w-[72rem]"
+        initialSorting={[{ id: 'sku', desc: false }]}
+      />
     </div>
   );
 }

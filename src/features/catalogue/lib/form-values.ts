@@ -6,7 +6,10 @@ import { ApiError, isApiError } from '../../../lib/api-client';
  */
 export function numberOrText(text: unknown): number | string | undefined {
   if (typeof text !== 'string') return undefined;
-  const t = text.trim().replace(/\s/g, '').replace(/,(?=\d{3}(?!\d))/g, '');
+  const t = text
+    .trim()
+    .replace(/\s/g, '')
+    .replace(/,(?=\d{3}(?!\d))/g, '');
   if (t === '') return undefined;
   return /^-?\d+(\.\d+)?$/.test(t) ? Number(t) : text.trim();
 }

@@ -73,7 +73,11 @@ describe('DriverDay', () => {
     expect(within(products).getByText('Dry ridge tile, slate grey: 24 pieces')).toBeTruthy();
     expect(within(products).getByText('Tile clips: 200 pieces')).toBeTruthy();
     // No line starts with an engine key such as "clips" or "ridge_tiles".
-    expect(within(products).getAllByRole('listitem').map((li) => li.textContent)).not.toContainEqual(expect.stringMatching(/^[a-z_]+:/));
+    expect(
+      within(products)
+        .getAllByRole('listitem')
+        .map((li) => li.textContent),
+    ).not.toContainEqual(expect.stringMatching(/^[a-z_]+:/));
     const pallets = screen.getAllByTestId('pallet');
     expect(pallets.map((p) => p.querySelector('p')?.textContent)).toEqual(['Pallet 1 of 3 · 1,080 kg', 'Pallet 2 of 3 · 1,070 kg', 'Pallet 3 of 3 · 96 kg']);
     expect(within(pallets[1]).getByText('spare (waste allowance)')).toBeTruthy();

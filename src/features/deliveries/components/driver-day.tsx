@@ -58,14 +58,7 @@ function DropCard({ drop, total, state, open, onToggle, onRecorded, headerRef, r
   return (
     <article aria-labelledby={`drop-${drop.order_id}-title`} className={`rounded-lg border-2 bg-white ${open ? 'border-ink-700' : 'border-ink-200'}`}>
       <h3 id={`drop-${drop.order_id}-title`} className="m-0">
-        <button
-          ref={headerRef}
-          type="button"
-          aria-expanded={open}
-          aria-controls={bodyId}
-          onClick={onToggle}
-          className="flex min-h-tap-lg w-full scroll-mt-20 items-center gap-3 rounded-lg p-4 text-left"
-        >
+        <button ref={headerRef} type="button" aria-expanded={open} aria-controls={bodyId} onClick={onToggle} className="flex min-h-tap-lg w-full scroll-mt-20 items-center gap-3 rounded-lg p-4 text-left">
           <span className="flex h-12 w-12 shrink-0 items-center justify-center rounded-full bg-ink-900 text-xl font-bold text-white" aria-hidden="true">
             {drop.position}
           </span>
@@ -185,8 +178,7 @@ export function DriverDay({ day, renderFaceDrawing }: DriverDayProps) {
                 {run.time_window} · {run.lorry.registration}
               </h2>
               <p className="text-lg">
-                {RUN_STATUS_LABELS[run.status]} · {drops.length} {drops.length === 1 ? 'drop' : 'drops'}, {done} delivered ·{' '}
-                {run.lorry.has_crane ? `crane lifts up to ${kg(run.lorry.crane_max_kg ?? 0)}` : 'no crane'}
+                {RUN_STATUS_LABELS[run.status]} · {drops.length} {drops.length === 1 ? 'drop' : 'drops'}, {done} delivered · {run.lorry.has_crane ? `crane lifts up to ${kg(run.lorry.crane_max_kg ?? 0)}` : 'no crane'}
               </p>
             </header>
             <RunCautions run={run} pending={readPending.has(run.id)} />

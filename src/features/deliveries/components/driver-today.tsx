@@ -32,13 +32,7 @@ export function DriverToday({ driverId, renderFaceDrawing }: DriverTodayProps) {
         <label htmlFor={dateId} className="mb-1.5 block text-xl font-semibold">
           Day
         </label>
-        <input
-          id={dateId}
-          type="date"
-          value={date}
-          onChange={(e) => setPicked(e.target.value || null)}
-          className="block min-h-tap-lg w-full rounded-md border-2 border-ink-300 bg-white px-4 text-xl"
-        />
+        <input id={dateId} type="date" value={date} onChange={(e) => setPicked(e.target.value || null)} className="block min-h-tap-lg w-full rounded-md border-2 border-ink-300 bg-white px-4 text-xl" />
         {date !== today ? (
           <button type="button" className="mt-2 min-h-tap-lg text-lg font-semibold text-clay-700 underline" onClick={() => setPicked(null)}>
             Back to today

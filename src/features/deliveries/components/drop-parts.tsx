@@ -69,8 +69,7 @@ export function ShortFaces({ drop }: { drop: DriverDrop }) {
       <ul className="space-y-1" aria-label="Short faces">
         {drop.short_faces.map((f) => (
           <li key={`${f.building}-${f.face}`} data-testid="short-face">
-            <span className="font-semibold">{faceWords(f)}</span>: {f.tiles_short.toLocaleString('en-GB')} tiles missing;{' '}
-            {f.due_date ? `the rest due ${formatDate(f.due_date)}` : 'no date yet for the rest'}
+            <span className="font-semibold">{faceWords(f)}</span>: {f.tiles_short.toLocaleString('en-GB')} tiles missing; {f.due_date ? `the rest due ${formatDate(f.due_date)}` : 'no date yet for the rest'}
             {f.follow_up_reference ? ` on ${f.follow_up_reference}` : ''}.
           </li>
         ))}
@@ -131,8 +130,7 @@ export function LandingPlan({ drop, renderFaceDrawing }: { drop: DriverDrop; ren
         {drop.landing_plan.map((face) => (
           <li key={`${face.building}-${face.face}`} data-testid="landing-face" className="rounded-md border-2 border-ink-200 p-3">
             <p>
-              <span className="font-semibold">{faceWords(face)}</span> ← {face.pallets.length === 1 ? 'pallet' : 'pallets'} {face.pallets.join(', ')} ·{' '}
-              {face.tiles.toLocaleString('en-GB')} tiles
+              <span className="font-semibold">{faceWords(face)}</span> ← {face.pallets.length === 1 ? 'pallet' : 'pallets'} {face.pallets.join(', ')} · {face.tiles.toLocaleString('en-GB')} tiles
             </p>
             {face.drawing && drop.roof_system && renderFaceDrawing ? (
               <details className="mt-2">

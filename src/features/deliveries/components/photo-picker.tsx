@@ -28,13 +28,19 @@ export function PhotoPicker({ photos, onChange, error, errorId }: PhotoPickerPro
   const left = PHOTO_LIMIT - photos.length;
   return (
     <fieldset className="space-y-3" aria-describedby={error ? errorId : undefined}>
-      <legend className="text-xl font-semibold">Photos ({photos.length} of {PHOTO_LIMIT})</legend>
+      <legend className="text-xl font-semibold">
+        Photos ({photos.length} of {PHOTO_LIMIT})
+      </legend>
       <p className="text-ink-700">Where the load was left, and any damage. JPEG, PNG or WebP, at most 8 MB each.</p>
       {photos.length > 0 ? (
         <ul className="grid grid-cols-3 gap-2" aria-label="Photos taken">
           {photos.map((photo, i) => (
             <li key={`${i}-${photo.size}`} className="relative">
-              {thumbnails[i] ? <img src={thumbnails[i]} alt={`Taken on site, ${i + 1} of ${photos.length}`} className="aspect-square w-full rounded-md border border-ink-300 object-cover" /> : <div role="img" className="aspect-square w-full rounded-md border border-ink-300 bg-ink-100" aria-label={`Taken on site, ${i + 1} of ${photos.length}`} />}
+              {thumbnails[i] ? (
+                <img src={thumbnails[i]} alt={`Taken on site, ${i + 1} of ${photos.length}`} className="aspect-square w-full rounded-md border border-ink-300 object-cover" />
+              ) : (
+                <div role="img" className="aspect-square w-full rounded-md border border-ink-300 bg-ink-100" aria-label={`Taken on site, ${i + 1} of ${photos.length}`} />
+              )}
               <button
                 type="button"
                 onClick={() => onChange(photos.filter((_, j) => j !== i))}

@@ -163,7 +163,10 @@ describe('ProofForm', () => {
 
   it('keeps the record on the phone as waiting when there is no signal', async () => {
     stubFetch({ 'GET /api/auth/csrf': { status: 200, body: { token: 't' } } });
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     const { onRecorded } = renderForm();
     fireEvent.change(screen.getByLabelText('Taken by (name)'), { target: { value: 'Gethin Marlow' } });
     fireEvent.change(screen.getByLabelText(/type the receiver.s name again to confirm/), { target: { value: 'Gethin Marlow' } });

@@ -48,8 +48,7 @@ function usePosition(): PositionState {
   return state;
 }
 
-const inputClass =
-  'block min-h-tap-lg w-full rounded-md border-2 border-ink-300 bg-white px-3 text-xl aria-[invalid=true]:border-brick-600 aria-[invalid=true]:ring-1 aria-[invalid=true]:ring-brick-600';
+const inputClass = 'block min-h-tap-lg w-full rounded-md border-2 border-ink-300 bg-white px-3 text-xl aria-[invalid=true]:border-brick-600 aria-[invalid=true]:ring-1 aria-[invalid=true]:ring-brick-600';
 
 function FieldError({ id, message }: { id: string; message?: string }) {
   if (!message) return null;

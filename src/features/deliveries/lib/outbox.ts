@@ -11,13 +11,7 @@ import type { QueuedEntry, SendOutcome } from './outbox-types';
  */
 
 /** Error codes with which the server says the write is already recorded (409/422): nothing left to send. */
-export const ALREADY_RECORDED_CODES: ReadonlySet<string> = new Set([
-  'already_recorded',
-  'already_delivered',
-  'delivery_already_recorded',
-  'cautions_already_read',
-  'idempotency_key_replayed',
-]);
+export const ALREADY_RECORDED_CODES: ReadonlySet<string> = new Set(['already_recorded', 'already_delivered', 'delivery_already_recorded', 'cautions_already_read', 'idempotency_key_replayed']);
 
 /** Codes with which the server says the same key is still being worked on: try again later. */
 const IN_PROGRESS_CODES: ReadonlySet<string> = new Set(['idempotency_in_progress', 'request_in_progress']);

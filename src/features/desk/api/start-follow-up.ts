@@ -22,10 +22,7 @@ export function useStartFollowUp(orderId: number) {
     mutationFn: (body: FollowUpBody) => startFollowUp(orderId, body),
     onSuccess: (followUp) => {
       queryClient.setQueryData(deskKeys.orderDetail(followUp.id), followUp);
-      return Promise.all([
-        queryClient.invalidateQueries({ queryKey: deskKeys.orderDetail(orderId) }),
-        queryClient.invalidateQueries({ queryKey: [...deskKeys.orders(), 'list'] }),
-      ]);
+      return Promise.all([queryClient.invalidateQueries({ queryKey: deskKeys.orderDetail(orderId) }), queryClient.invalidateQueries({ queryKey: [...deskKeys.orders(), 'list'] })]);
     },
   });
 }

@@ -48,10 +48,7 @@ describe('ConfirmOrderForm', () => {
   it('marks which lorries can lift and disables those that cannot for an order lifted onto the roof', async () => {
     const withFlatbed = {
       ...slotDay,
-      slots: [
-        ...slotDay.slots,
-        { ...slotDay.slots[0], id: 41, lorry: { id: 2, registration: 'RL-TY02', name: 'Two-axle flatbed', has_crane: false, crane_max_kg: null } },
-      ],
+      slots: [...slotDay.slots, { ...slotDay.slots[0], id: 41, lorry: { id: 2, registration: 'RL-TY02', name: 'Two-axle flatbed', has_crane: false, crane_max_kg: null } }],
     };
     stubFetch({ [SLOTS]: { status: 200, body: withFlatbed } });
     renderForm([50, 50], { delivery_method: 'roof' });
@@ -93,16 +90,35 @@ describe('ConfirmOrderForm', () => {
     expect(screen.getByTestId('back-order-102').textContent).toBe('2');
     await screen.findByText(/RL-TY01/);
     submit();
-    await waitFor(() => expect(sentBody(fetchMock)).toEqual({ lines: [{ line_id: 101, quantity: 6 }, { line_id: 102, quantity: 3 }] }));
+    await waitFor(() =>
+      expect(sentBody(fetchMock)).toEqual({
+        lines: [
+          { line_id: 101, quantity: 6 },
+          { line_id: 102, quantity: 3 },
+        ],
+      }),
+    );
   });
 
   it('books the chosen slot in the same confirmation', async () => {
-    const fetchMock = stubFetch({ [SLOTS]: { status: 200, body: slotDay }, 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/confirm': { status: 200, body: orderFixture({ status: 'confirmed' }) } });
+    const fetchMock = stubFetch({
+      [SLOTS]: { status: 200, body: slotDay },
+      'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
+      'POST /api/orders/1/confirm': { status: 200, body: orderFixture({ status: 'confirmed' }) },
+    });
     renderForm([50, 50]);
     fireEvent.click(await screen.findByRole('radio', { name: /07:30-12:00 · RL-TY01/ }));
     expect(screen.getByText(/12,000 kg of 14,000 kg left · 10 of 12 pallet slots left/)).toBeTruthy();
     submit();
-    await waitFor(() => expect(sentBody(fetchMock)).toEqual({ lines: [{ line_id: 101, quantity: 10 }, { line_id: 102, quantity: 5 }], slot_id: 40 }));
+    await waitFor(() =>
+      expect(sentBody(fetchMock)).toEqual({
+        lines: [
+          { line_id: 101, quantity: 10 },
+          { line_id: 102, quantity: 5 },
+        ],
+        slot_id: 40,
+      }),
+    );
   });
 
   it('refuses more packs than are open on a line, naming it, and sends nothing', async () => {
@@ -136,7 +152,11 @@ describe('ConfirmOrderForm', () => {
     submit();
     const table = await screen.findByRole('table', { name: 'Lines short of stock' });
     const row = within(table).getAllByRole('row')[1];
-    expect(within(row).getAllByRole('cell').map((c) => c.textContent)).toEqual(['TRS-FL420-SG', 'Interlocking tile, slate grey', '2', '10', '8']);
+    expect(
+      within(row)
+        .getAllByRole('cell')
+        .map((c) => c.textContent),
+    ).toEqual(['TRS-FL420-SG', 'Interlocking tile, slate grey', '2', '10', '8']);
     expect(screen.getByText('Not enough stock to confirm: nothing was reserved')).toBeTruthy();
   });
 });

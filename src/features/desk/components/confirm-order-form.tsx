@@ -52,11 +52,21 @@ export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
           <caption className="sr-only">Packs to send now per line</caption>
           <thead className="bg-mortar-100">
             <tr>
-              <th scope="col" className="px-3 py-2">Item</th>
-              <th scope="col" className="px-3 py-2 text-right">Open</th>
-              <th scope="col" className="px-3 py-2 text-right">Free at branch</th>
-              <th scope="col" className="px-3 py-2">Send now</th>
-              <th scope="col" className="px-3 py-2 text-right">Back-order</th>
+              <th scope="col" className="px-3 py-2">
+                Item
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                Open
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                Free at branch
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Send now
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                Back-order
+              </th>
             </tr>
           </thead>
           <tbody>

@@ -31,11 +31,21 @@ export function ConflictDetails({ error, descriptions }: ConflictDetailsProps) {
           <table className="mt-2 w-full border-collapse text-left text-sm" aria-label="Lines short of stock">
             <thead>
               <tr>
-                <th scope="col" className="py-1 pr-4 font-semibold">SKU</th>
-                <th scope="col" className="py-1 pr-4 font-semibold">Item</th>
-                <th scope="col" className="py-1 pr-4 text-right font-semibold">Free now</th>
-                <th scope="col" className="py-1 pr-4 text-right font-semibold">Asked to send</th>
-                <th scope="col" className="py-1 text-right font-semibold">Short by</th>
+                <th scope="col" className="py-1 pr-4 font-semibold">
+                  SKU
+                </th>
+                <th scope="col" className="py-1 pr-4 font-semibold">
+                  Item
+                </th>
+                <th scope="col" className="py-1 pr-4 text-right font-semibold">
+                  Free now
+                </th>
+                <th scope="col" className="py-1 pr-4 text-right font-semibold">
+                  Asked to send
+                </th>
+                <th scope="col" className="py-1 text-right font-semibold">
+                  Short by
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -67,7 +77,9 @@ export function ConflictDetails({ error, descriptions }: ConflictDetailsProps) {
         {remainingKg !== null && weight !== null ? (
           <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 text-sm" aria-label="Lorry capacity">
             <dt>Payload left</dt>
-            <dd className="tabular-nums">{kg(remainingKg)} (this order {kg(weight)})</dd>
+            <dd className="tabular-nums">
+              {kg(remainingKg)} (this order {kg(weight)})
+            </dd>
             <dt>Pallet slots left</dt>
             <dd className="tabular-nums">
               {remainingPallets ?? '—'} (this order {pallets ?? '—'})

@@ -58,7 +58,12 @@ const lineColumns = h.columns([
   h.accessor('back_order_quantity', { header: 'To follow', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
   h.accessor('dropped_quantity', { header: 'Dropped', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
   h.accessor('reserved_quantity', { header: 'Reserved', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
-  h.accessor((row) => row.delivered_quantity ?? -1, { id: 'delivered', header: 'Delivered', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatCount(info.row.original.delivered_quantity)}</span> }),
+  h.accessor((row) => row.delivered_quantity ?? -1, {
+    id: 'delivered',
+    header: 'Delivered',
+    sortFn: 'alphanumeric',
+    cell: (info) => <span className="tabular-nums">{formatCount(info.row.original.delivered_quantity)}</span>,
+  }),
   h.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{ORDER_LINE_STATUS_LABELS[info.getValue()]}</span> }),
   h.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('now_total', { header: 'This delivery (£)', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),

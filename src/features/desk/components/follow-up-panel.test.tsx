@@ -59,7 +59,13 @@ describe('FollowUpPanel', () => {
     renderWithProviders(<FollowUpPanel order={confirmedWithBackOrder()} />);
     const table = screen.getByRole('table', { name: 'Packs still to follow, per line' });
     const rows = within(table).getAllByRole('row').slice(1);
-    expect(rows.map((r) => within(r).getAllByRole('cell').map((c) => c.textContent))).toEqual([
+    expect(
+      rows.map((r) =>
+        within(r)
+          .getAllByRole('cell')
+          .map((c) => c.textContent),
+      ),
+    ).toEqual([
       ['TRS-FL420-SG', 'Interlocking tile, slate grey', '4'],
       ['TRS-DVR-SG', 'Dry verge unit, slate grey', '2'],
     ]);

@@ -126,17 +126,23 @@ export function FollowUpPanel({ order }: { order: OrderDetail }) {
   return (
     <Card title="Back-ordered packs">
       <p className="mb-3 text-ink-700">
-        {packs} {packs === 1 ? 'pack' : 'packs'} on {lines.length} {lines.length === 1 ? 'line' : 'lines'} still to follow. Start them as a new order to the same site; it waits for
-        you to confirm it against stock like any order.
+        {packs} {packs === 1 ? 'pack' : 'packs'} on {lines.length} {lines.length === 1 ? 'line' : 'lines'} still to follow. Start them as a new order to the same site; it waits for you to confirm it against stock like
+        any order.
       </p>
       <div className="mb-4 overflow-x-auto rounded-md border border-mortar-300" role="region" aria-label="Packs to follow" tabIndex={0}>
         <table className="w-full min-w-[28rem] border-collapse text-left text-sm">
           <caption className="sr-only">Packs still to follow, per line</caption>
           <thead className="bg-mortar-100">
             <tr>
-              <th scope="col" className="px-3 py-2">SKU</th>
-              <th scope="col" className="px-3 py-2">Item</th>
-              <th scope="col" className="px-3 py-2 text-right">Packs to follow</th>
+              <th scope="col" className="px-3 py-2">
+                SKU
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Item
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                Packs to follow
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -157,9 +163,7 @@ export function FollowUpPanel({ order }: { order: OrderDetail }) {
           <TextField name="time_window" label="Window from" type="time" defaultValue={from} />
           <TextField name="time_window_to" label="Window to" type="time" defaultValue={to} />
         </div>
-        <p className="-mt-2 text-sm text-ink-600">
-          Leave both window times blank to keep this order&rsquo;s window ({order.time_window ?? 'any time'}).
-        </p>
+        <p className="-mt-2 text-sm text-ink-600">Leave both window times blank to keep this order&rsquo;s window ({order.time_window ?? 'any time'}).</p>
         <TextField name="note" label="Note to the contractor (optional)" maxLength={500} autoComplete="off" hint="Goes on the new order and in the e-mail to the contractor." />
         <SubmitButton>Start the follow-up order</SubmitButton>
       </Form>

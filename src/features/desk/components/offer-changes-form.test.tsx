@@ -16,8 +16,20 @@ const figures: SubstituteFigures = {
   tile: { sku: 'TRS-FL420-BR', description: 'Interlocking tile, brindle', kind: 'single_lap', lowest_pitch_deg: 22.5 },
   refused_faces: [],
   rows: [
-    { role: 'tile', label: 'Tiles', changes: true, before: { product_id: 11, sku: 'TRS-FL420-SG', description: 'Interlocking tile, slate grey', quantity: 2400, unit: 'tile', packs: 10, unit_price: 30_720, total: 307_200 }, after: { product_id: 13, sku: 'TRS-FL420-BR', description: 'Interlocking tile, brindle', quantity: 2640, unit: 'tile', packs: 11, unit_price: 30_720, total: 337_920 } },
-    { role: 'batten', label: 'Battens', changes: true, before: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten 38 × 25', quantity: 60, unit: 'length', packs: 60, unit_price: 440, total: 26_400 }, after: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten 38 × 25', quantity: 66, unit: 'length', packs: 66, unit_price: 440, total: 29_040 } },
+    {
+      role: 'tile',
+      label: 'Tiles',
+      changes: true,
+      before: { product_id: 11, sku: 'TRS-FL420-SG', description: 'Interlocking tile, slate grey', quantity: 2400, unit: 'tile', packs: 10, unit_price: 30_720, total: 307_200 },
+      after: { product_id: 13, sku: 'TRS-FL420-BR', description: 'Interlocking tile, brindle', quantity: 2640, unit: 'tile', packs: 11, unit_price: 30_720, total: 337_920 },
+    },
+    {
+      role: 'batten',
+      label: 'Battens',
+      changes: true,
+      before: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten 38 × 25', quantity: 60, unit: 'length', packs: 60, unit_price: 440, total: 26_400 },
+      after: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten 38 × 25', quantity: 66, unit: 'length', packs: 66, unit_price: 440, total: 29_040 },
+    },
   ],
   not_counted: [],
   before_total: 333_600,
@@ -59,7 +71,14 @@ describe('OfferChangesForm', () => {
         body: {
           line_id: 101,
           options: [
-            option({ product_id: 16, sku: 'TRS-KP265-BR', name: 'Clay plain tile', quantity: 0, suitable: false, reason: 'not for this roof: Porch Front: 30° is below the lowest pitch TRS-KP265-BR may be laid at (35°)' }),
+            option({
+              product_id: 16,
+              sku: 'TRS-KP265-BR',
+              name: 'Clay plain tile',
+              quantity: 0,
+              suitable: false,
+              reason: 'not for this roof: Porch Front: 30° is below the lowest pitch TRS-KP265-BR may be laid at (35°)',
+            }),
             option({ product_id: 13, sku: 'TRS-FL420-BR', name: 'Interlocking tile, brindle', quantity: 11, suitable: true, figures }),
           ],
         },

@@ -35,12 +35,24 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
           <caption className="sr-only">Changes per line</caption>
           <thead className="bg-mortar-100">
             <tr>
-              <th scope="col" className="px-3 py-2">Item</th>
-              <th scope="col" className="px-3 py-2 text-right">Open</th>
-              <th scope="col" className="px-3 py-2">Now</th>
-              <th scope="col" className="px-3 py-2">To follow</th>
-              <th scope="col" className="px-3 py-2">Offer instead</th>
-              <th scope="col" className="px-3 py-2">Packs</th>
+              <th scope="col" className="px-3 py-2">
+                Item
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                Open
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Now
+              </th>
+              <th scope="col" className="px-3 py-2">
+                To follow
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Offer instead
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Packs
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -117,7 +129,8 @@ function OfferLineRow({ order, line, index, stock, form }: { order: OrderDetail;
               {...form.register(fields[2], { onChange: (event: ChangeEvent<HTMLSelectElement>) => choose(event.target.value) })}
               aria-label={`Substitute for ${line.sku}`}
               value={chosen}
-              className="block min-h-tap max-w-72 rounded-md border border-ink-300 bg-white px-2">
+              className="block min-h-tap max-w-72 rounded-md border border-ink-300 bg-white px-2"
+            >
               <option value="">No substitute</option>
               {options.data.options.map((o) => (
                 <option key={o.product_id} value={o.product_id} disabled={!o.suitable}>

@@ -91,7 +91,11 @@ describe('OrderBook sorting', () => {
     stubOrderApi();
     renderWithProviders(<OrderBook />, { path: '/desk/orders' });
     const table = await screen.findByRole('table', { name: 'Order book' });
-    expect(within(table).getAllByRole('button').map((b) => b.textContent)).toEqual(['Wanted', 'Stage', 'Subtotal', 'Placed', 'Last change']);
+    expect(
+      within(table)
+        .getAllByRole('button')
+        .map((b) => b.textContent),
+    ).toEqual(['Wanted', 'Stage', 'Subtotal', 'Placed', 'Last change']);
     for (const name of ['Order', 'Contractor', 'Site', 'Branch', 'Lines']) expect(header(name).getAttribute('aria-sort')).toBeNull();
   });
 
@@ -104,4 +108,3 @@ describe('OrderBook sorting', () => {
     expect(header('Subtotal').getAttribute('aria-sort')).toBe('ascending');
   });
 });
-

@@ -122,56 +122,80 @@ export function OrderBook() {
     <section aria-label="Order book" className="space-y-4">
       <div className="flex flex-wrap items-end gap-3">
         <div>
-          <label htmlFor={`${id}-stage`} className="mb-1 block text-sm font-medium">Stage</label>
+          <label htmlFor={`${id}-stage`} className="mb-1 block text-sm font-medium">
+            Stage
+          </label>
           <select id={`${id}-stage`} value={filters.statuses ?? ''} onChange={(e) => set({ statuses: e.target.value })} className={selectClass}>
             <option value="">Every stage</option>
             {STAGE_CHOICES.map((c) => (
-              <option key={c.value} value={c.value}>{c.label}</option>
+              <option key={c.value} value={c.value}>
+                {c.label}
+              </option>
             ))}
           </select>
         </div>
         <div>
-          <label htmlFor={`${id}-branch`} className="mb-1 block text-sm font-medium">Branch</label>
+          <label htmlFor={`${id}-branch`} className="mb-1 block text-sm font-medium">
+            Branch
+          </label>
           <select id={`${id}-branch`} value={filters.branch_id ?? ''} onChange={(e) => set({ branch_id: e.target.value })} className={selectClass}>
             <option value="">Every branch</option>
             {(branches.data ?? []).map((b) => (
-              <option key={b.id} value={b.id}>{b.name}</option>
+              <option key={b.id} value={b.id}>
+                {b.name}
+              </option>
             ))}
           </select>
         </div>
         {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
         <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />
         <div>
-          <label htmlFor={`${id}-size`} className="mb-1 block text-sm font-medium">Per page</label>
+          <label htmlFor={`${id}-size`} className="mb-1 block text-sm font-medium">
+            Per page
+          </label>
           <select id={`${id}-size`} value={pageSize} onChange={(e) => set({ page_size: e.target.value })} className={selectClass}>
             {PAGE_SIZES.map((s) => (
-              <option key={s} value={s}>{s}</option>
+              <option key={s} value={s}>
+                {s}
+              </option>
             ))}
           </select>
         </div>
       </div>
       <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={[filters.q, filters.date_from, filters.date_to].join('|')}>
         <div className="min-w-56 flex-1">
-          <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">Search orders</label>
+          <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">
+            Search orders
+          </label>
           <input id={`${id}-q`} name="q" type="search" defaultValue={filters.q ?? ''} placeholder="RL-000123, PO, site or contractor" className={`${inputClass} w-full`} />
         </div>
         <div>
-          <label htmlFor={`${id}-field`} className="mb-1 block text-sm font-medium">Dates of</label>
+          <label htmlFor={`${id}-field`} className="mb-1 block text-sm font-medium">
+            Dates of
+          </label>
           <select id={`${id}-field`} value={filters.date_field} onChange={(e) => set({ date_field: e.target.value })} className={selectClass}>
             {ORDER_DATE_FIELDS.map((f) => (
-              <option key={f} value={f}>{f === 'requested_date' ? 'Day wanted' : 'Day placed'}</option>
+              <option key={f} value={f}>
+                {f === 'requested_date' ? 'Day wanted' : 'Day placed'}
+              </option>
             ))}
           </select>
         </div>
         <div>
-          <label htmlFor={`${id}-from`} className="mb-1 block text-sm font-medium">From</label>
+          <label htmlFor={`${id}-from`} className="mb-1 block text-sm font-medium">
+            From
+          </label>
           <input id={`${id}-from`} name="date_from" type="date" defaultValue={filters.date_from ?? ''} className={inputClass} />
         </div>
         <div>
-          <label htmlFor={`${id}-to`} className="mb-1 block text-sm font-medium">To</label>
+          <label htmlFor={`${id}-to`} className="mb-1 block text-sm font-medium">
+            To
+          </label>
           <input id={`${id}-to`} name="date_to" type="date" defaultValue={filters.date_to ?? ''} className={inputClass} />
         </div>
-        <Button type="submit" variant="secondary">Search</Button>
+        <Button type="submit" variant="secondary">
+          Search
+        </Button>
         {filtered ? (
           <Button variant="ghost" onClick={() => setSearch(keepListOrder(search), { replace: true })}>
             Clear the filters

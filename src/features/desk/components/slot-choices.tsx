@@ -37,11 +37,17 @@ export function SlotChoices({ branchId, initialDate, allowNone = false, currentS
         <label htmlFor={dateId} className="mb-1.5 block font-medium">
           Day
         </label>
-        <input id={dateId} type="date" value={date} onChange={(event) => {
+        <input
+          id={dateId}
+          type="date"
+          value={date}
+          onChange={(event) => {
             // A slot of the day left behind is no longer on the screen, so it is no longer the choice.
             form.methods.setValue('slot_id', '');
             setDate(event.target.value);
-          }} className="block min-h-tap rounded-md border border-ink-300 bg-white px-3" />
+          }}
+          className="block min-h-tap rounded-md border border-ink-300 bg-white px-3"
+        />
       </div>
       {allowNone ? (
         <label className="flex min-h-tap items-center gap-3">

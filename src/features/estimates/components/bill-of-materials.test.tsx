@@ -53,9 +53,13 @@ describe('bill of materials', () => {
   it('shows each line’s need, its whole packs and prices, and the subtotal', () => {
     const subtotal = lines.reduce((sum, l) => sum + (l.total ?? 0), 0);
     render(<BillOfMaterials lines={lines} notCounted={[]} subtotal={subtotal} />);
-    const rows = within(screen.getByRole('table', { name: 'Bill of materials' })).getAllByRole('row').slice(1);
+    const rows = within(screen.getByRole('table', { name: 'Bill of materials' }))
+      .getAllByRole('row')
+      .slice(1);
     expect(rows.map((row) => within(row).getAllByRole('cell')[0].textContent)).toEqual(['Tiles', 'Ridge', 'Batten nails', 'Underlay', 'Accessories', 'Accessories']);
-    const nails = within(rows[2]).getAllByRole('cell').map((cell) => cell.textContent);
+    const nails = within(rows[2])
+      .getAllByRole('cell')
+      .map((cell) => cell.textContent);
     // 12,136 nails in boxes of 1,000 round up to 13 boxes.
     expect(nails.slice(2)).toEqual(['12,136 nails', '13 × 1,000', '£18.50', '£240.50']);
     expect(within(rows[0]).getAllByRole('cell')[5].textContent).toBe('£28,385.28');
@@ -68,7 +72,9 @@ describe('bill of materials', () => {
   it('says there are no prices for a generic system instead of showing £0', () => {
     const generic = [line('tile', 'Tile, generic', 1000, 1, null, 1)];
     render(<BillOfMaterials lines={generic} notCounted={[]} subtotal={null} />);
-    const cells = within(screen.getAllByRole('row')[1]).getAllByRole('cell').map((cell) => cell.textContent);
+    const cells = within(screen.getAllByRole('row')[1])
+      .getAllByRole('cell')
+      .map((cell) => cell.textContent);
     expect(cells.slice(4)).toEqual(['—', '—']);
     expect(screen.getByTestId('bill-subtotal').textContent).toBe('No prices (generic system)');
   });

@@ -107,21 +107,16 @@ export function BillOfMaterials({ lines, notCounted, subtotal }: BillOfMaterials
   const rows: BillRow[] = groups.flatMap((group) => group.lines.map((line, i) => ({ line, group, first: i === 0 })));
   return (
     <div className="space-y-4">
-      <DataTable
-        caption="Bill of materials"
-        captionHidden
-        columns={columns}
-        data={rows}
-        getRowId={(row) => String(row.line.id)}
-        minWidthClass="min-w-[46rem]"
-      />
+      <DataTable caption="Bill of materials" captionHidden columns={columns} data={rows} getRowId={(row) => String(row.line.id)} minWidthClass="min-w-[46rem]" />
       <dl className="grid max-w-md grid-cols-[1fr_auto] gap-x-6 gap-y-1" aria-label="Totals by category">
-        {groups.some((group) => group.lines.length > 1) ? groups.map((group) => (
-          <Fragment key={group.category}>
-            <dt className="text-ink-700">{group.label}</dt>
-            <dd className="text-right tabular-nums">{formatMoney(group.subtotal)}</dd>
-          </Fragment>
-        )) : null}
+        {groups.some((group) => group.lines.length > 1)
+          ? groups.map((group) => (
+              <Fragment key={group.category}>
+                <dt className="text-ink-700">{group.label}</dt>
+                <dd className="text-right tabular-nums">{formatMoney(group.subtotal)}</dd>
+              </Fragment>
+            ))
+          : null}
         <dt className="border-t border-mortar-300 pt-1 font-semibold">Subtotal (before delivery and VAT)</dt>
         <dd className="border-t border-mortar-300 pt-1 text-right font-bold tabular-nums" data-testid="bill-subtotal">
           {subtotal === null ? 'No prices (generic system)' : formatMoney(subtotal)}

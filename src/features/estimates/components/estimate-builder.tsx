@@ -75,7 +75,13 @@ function Preview({ outcome }: { outcome: PreviewOutcome }) {
           <ul className="list-disc space-y-1 pl-5">
             {outcome.result.warnings.map((w, i) => (
               <li key={`${w.code}-${i}`}>
-                {w.face ? <span className="font-semibold">{w.building} · {w.face}: </span> : w.building ? <span className="font-semibold">{w.building}: </span> : null}
+                {w.face ? (
+                  <span className="font-semibold">
+                    {w.building} · {w.face}:{' '}
+                  </span>
+                ) : w.building ? (
+                  <span className="font-semibold">{w.building}: </span>
+                ) : null}
                 {w.message}
               </li>
             ))}
@@ -91,8 +97,7 @@ function GenericSystemFields() {
   return (
     <div className="space-y-4">
       <p className="text-sm text-ink-700">
-        Type the figures from the tile maker&rsquo;s data sheet. Anything left blank takes Ridgeload&rsquo;s generic figures, which are
-        typical of the kind and no maker&rsquo;s product.
+        Type the figures from the tile maker&rsquo;s data sheet. Anything left blank takes Ridgeload&rsquo;s generic figures, which are typical of the kind and no maker&rsquo;s product.
       </p>
       <div className="grid gap-4 sm:grid-cols-2">
         <SelectField
@@ -262,13 +267,7 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
             ) : shown.length === 0 ? (
               <EmptyState title="No roof systems to choose from">Merchants have not listed any of this kind yet; a generic system works meanwhile.</EmptyState>
             ) : (
-              <SystemPicker
-                systems={shown}
-                faces={faces}
-                chosenId={chosenId}
-                error={form.fieldError('system_id')}
-                describedBy={form.fieldError('system_id') ? `${form.id}-system-error` : undefined}
-              />
+              <SystemPicker systems={shown} faces={faces} chosenId={chosenId} error={form.fieldError('system_id')} describedBy={form.fieldError('system_id') ? `${form.id}-system-error` : undefined} />
             )}
           </div>
 

@@ -29,7 +29,11 @@ export function EstimateSummary({ estimate }: { estimate: Estimate }) {
   return (
     <Card title="Summary">
       <dl className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
-        <Figure label="Subtotal" value={estimate.totals.subtotal === null ? '—' : formatMoney(estimate.totals.subtotal)} hint={estimate.totals.subtotal === null ? 'generic system: no prices' : 'before delivery and VAT'} />
+        <Figure
+          label="Subtotal"
+          value={estimate.totals.subtotal === null ? '—' : formatMoney(estimate.totals.subtotal)}
+          hint={estimate.totals.subtotal === null ? 'generic system: no prices' : 'before delivery and VAT'}
+        />
         <Figure label="Slope area" value={`${n(totals.slope_area_m2, 1)} m²`} hint={`${n(totals.plan_area_m2, 1)} m² on plan`} />
         <Figure label="Tiles to order" value={n(totals.tiles_order)} hint={`${n(totals.tiles)} laid, waste added`} />
         <Figure label="Battens" value={`${n(totals.batten_lengths)} lengths`} hint={`${n(totals.batten_m)} m on the roof`} />
@@ -44,8 +48,8 @@ export function EstimateSummary({ estimate }: { estimate: Estimate }) {
         </dd>
         <dt className="text-ink-600">Tile</dt>
         <dd>
-          {estimate.system_input.tile.name ?? (estimate.system_input.tile.kind === 'double_lap' ? 'Double-lap tile or slate' : 'Single-lap tile')},{' '}
-          {estimate.system_input.tile.length_mm} × {estimate.system_input.tile.width_mm} mm, {estimate.system_input.tile.weight_kg} kg
+          {estimate.system_input.tile.name ?? (estimate.system_input.tile.kind === 'double_lap' ? 'Double-lap tile or slate' : 'Single-lap tile')}, {estimate.system_input.tile.length_mm} ×{' '}
+          {estimate.system_input.tile.width_mm} mm, {estimate.system_input.tile.weight_kg} kg
         </dd>
         <dt className="text-ink-600">Waste allowed</dt>
         <dd>

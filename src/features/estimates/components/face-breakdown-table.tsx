@@ -90,7 +90,11 @@ const compactColumns = helper.columns([
     id: 'face',
     header: 'Face',
     sortFn: 'text',
-    cell: (info) => <span className="block min-w-28 font-medium">{info.row.original.face.building} · {info.row.original.face.face}</span>,
+    cell: (info) => (
+      <span className="block min-w-28 font-medium">
+        {info.row.original.face.building} · {info.row.original.face.face}
+      </span>
+    ),
   }),
   ...columns.filter((column) => COMPACT.has(column.id ?? '')),
 ]);
@@ -104,14 +108,5 @@ interface FaceBreakdownTableProps {
 /** The engine's figures for each face (one copy; multiply by the quantity for the job), with its warnings on its row. */
 export function FaceBreakdownTable({ faces, warningsByFace, compact = false }: FaceBreakdownTableProps) {
   const rows = useMemo(() => faces.map((face, index) => ({ index, face, warnings: warningsByFace.get(index) ?? [] })), [faces, warningsByFace]);
-  return (
-    <DataTable
-      caption="Figures per face"
-      captionHidden
-      columns={compact ? compactColumns : columns}
-      data={rows}
-      getRowId={(row) => String(row.index)}
-      minWidthClass={compact ? 'min-w-[28rem]' : 'min-w-[80rem]'}
-    />
-  );
+  return <DataTable caption="Figures per face" captionHidden columns={compact ? compactColumns : columns} data={rows} getRowId={(row) => String(row.index)} minWidthClass={compact ? 'min-w-[28rem]' : 'min-w-[80rem]'} />;
 }

@@ -68,7 +68,7 @@ const mm = (v: number) => Math.round(v).toLocaleString('en-GB');
 /** "every batten", "every 2nd batten", "every 3rd batten". */
 function everyNth(n: number): string {
   if (n === 1) return 'every batten';
-  const suffix = n % 100 >= 11 && n % 100 <= 13 ? 'th' : ({ 1: 'st', 2: 'nd', 3: 'rd' } as Record<number, string>)[n % 10] ?? 'th';
+  const suffix = n % 100 >= 11 && n % 100 <= 13 ? 'th' : (({ 1: 'st', 2: 'nd', 3: 'rd' } as Record<number, string>)[n % 10] ?? 'th');
   return `every ${n}${suffix} batten`;
 }
 
@@ -158,9 +158,7 @@ export function FaceDrawing({ face, result, system, large = false, openings = []
         data-testid="face-drawing"
       >
         <title id={`${uid}-title`}>{title}</title>
-        <desc id={`${uid}-desc`}>
-          {`Outline ${mm(face.eaves_mm)} mm at the eaves, ${mm(face.top_mm)} mm at the top, ${mm(face.rafter_mm)} mm up the slope. Setting-out lines from ${referenceWords}.`}
-        </desc>
+        <desc id={`${uid}-desc`}>{`Outline ${mm(face.eaves_mm)} mm at the eaves, ${mm(face.top_mm)} mm at the top, ${mm(face.rafter_mm)} mm up the slope. Setting-out lines from ${referenceWords}.`}</desc>
         <defs>
           <clipPath id={`${uid}-clip`}>
             <polygon points={model.outline.map((p) => `${p.x},${Y(p.y)}`).join(' ')} />
@@ -238,22 +236,24 @@ export function FaceDrawing({ face, result, system, large = false, openings = []
           if (face.left === 'verge') marks.push(left);
           if (face.right === 'verge') marks.push(right - tahWidth);
           return marks.map((x) => (
-            <rect
-              key={`th${b.index}-${x}`}
-              x={x}
-              y={Y(b.y) - Math.max(result.gauge_mm, 1) / 2}
-              width={tahWidth}
-              height={Math.max(result.gauge_mm, 1)}
-              className="fill-moss-600/60"
-              data-testid="tile-and-half"
-            />
+            <rect key={`th${b.index}-${x}`} x={x} y={Y(b.y) - Math.max(result.gauge_mm, 1) / 2} width={tahWidth} height={Math.max(result.gauge_mm, 1)} className="fill-moss-600/60" data-testid="tile-and-half" />
           ));
         })}
         {drawnOpenings.map((o, i) => (
           <g key={`o${i}`}>
             <rect x={o.x} y={Y(o.bandY + o.bandHeight)} width={o.width} height={o.bandHeight} className="fill-ink-200" data-testid="opening-tiles-left-out" />
             {o.cuts.map((c, j) => (
-              <rect key={j} x={c.x} y={Y(c.y + c.height)} width={c.width} height={c.height} className="fill-ochre-400/70 stroke-ochre-700" strokeWidth={1} vectorEffect="non-scaling-stroke" data-testid="opening-cut-tile" />
+              <rect
+                key={j}
+                x={c.x}
+                y={Y(c.y + c.height)}
+                width={c.width}
+                height={c.height}
+                className="fill-ochre-400/70 stroke-ochre-700"
+                strokeWidth={1}
+                vectorEffect="non-scaling-stroke"
+                data-testid="opening-cut-tile"
+              />
             ))}
             <rect x={o.x} y={Y(o.y + o.height)} width={o.width} height={o.height} className="fill-white stroke-ink-900" strokeWidth={2} vectorEffect="non-scaling-stroke" data-testid="opening" />
             <text x={o.x + o.width / 2} y={Y(o.y + o.height / 2)} fontSize={font * 0.7} textAnchor="middle" className="fill-ink-800">
@@ -386,17 +386,16 @@ export function FaceDrawing({ face, result, system, large = false, openings = []
           <summary className="min-h-tap cursor-pointer content-center font-semibold">The drawing in words</summary>
           <ul className="mt-2 list-disc space-y-1 pl-5" data-testid="face-drawing-words">
             <li>
-              Outline: {mm(face.eaves_mm)} mm at the eaves, {mm(face.top_mm)} mm at the top ({EDGE_WORDS[face.top]}), {mm(face.rafter_mm)} mm up the slope at {face.pitch_deg}°; left edge {EDGE_WORDS[face.left]}, right edge {EDGE_WORDS[face.right]}.
+              Outline: {mm(face.eaves_mm)} mm at the eaves, {mm(face.top_mm)} mm at the top ({EDGE_WORDS[face.top]}), {mm(face.rafter_mm)} mm up the slope at {face.pitch_deg}°; left edge {EDGE_WORDS[face.left]}, right
+              edge {EDGE_WORDS[face.right]}.
             </li>
             <li>
-              {model.battens.length} battens, one per course, at {result.gauge_mm} mm gauge ({result.headlap_mm} mm headlap): the first {mm(model.first_batten_mm)} mm up from the eaves, the top one at {mm(model.top_batten_mm)} mm.
+              {model.battens.length} battens, one per course, at {result.gauge_mm} mm gauge ({result.headlap_mm} mm headlap): the first {mm(model.first_batten_mm)} mm up from the eaves, the top one at{' '}
+              {mm(model.top_batten_mm)} mm.
             </li>
             <li>
               {model.stacks.length} stacks of up to {system.roof_loading.stack_size} tiles ({result.stack_positions} places over the rafters):{' '}
-              {model.loadingRows.length === 0
-                ? 'no loading battens on this face.'
-                : model.loadingRows.map((row) => `batten ${row.row + 1} from the eaves, ${row.stacks}`).join('; ')}
-              .
+              {model.loadingRows.length === 0 ? 'no loading battens on this face.' : model.loadingRows.map((row) => `batten ${row.row + 1} from the eaves, ${row.stacks}`).join('; ')}.
             </li>
             {special ? (
               <li>
@@ -405,13 +404,12 @@ export function FaceDrawing({ face, result, system, large = false, openings = []
             ) : null}
             {openings.length > 0 ? (
               <li>
-                Openings (positions not given, drawn side by side at mid-slope):{' '}
-                {openings.map((o) => `${o.quantity} × ${OPENING_WORDS[o.kind]} ${mm(o.width_mm)} × ${mm(o.height_mm)} mm`).join('; ')}; {result.openings_area_m2} m² left untiled.
+                Openings (positions not given, drawn side by side at mid-slope): {openings.map((o) => `${o.quantity} × ${OPENING_WORDS[o.kind]} ${mm(o.width_mm)} × ${mm(o.height_mm)} mm`).join('; ')};{' '}
+                {result.openings_area_m2} m² left untiled.
               </li>
             ) : null}
             <li>
-              Setting-out marks from {referenceWords}:{' '}
-              {model.marks.length === 0 ? 'none (three tiles or fewer a course).' : `${model.marks.map((m) => mm(m.mm)).join(', ')} mm.`}
+              Setting-out marks from {referenceWords}: {model.marks.length === 0 ? 'none (three tiles or fewer a course).' : `${model.marks.map((m) => mm(m.mm)).join(', ')} mm.`}
             </li>
           </ul>
         </details>

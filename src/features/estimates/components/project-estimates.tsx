@@ -119,7 +119,15 @@ export function ProjectEstimates({ projectId, canEstimate }: ProjectEstimatesPro
       ) : (
         <div className="space-y-3">
           <PickContext.Provider value={pickState}>
-            <DataTable caption="Estimates of this site" captionHidden columns={columns} data={estimates.data} getRowId={(row) => String(row.id)} initialSorting={[{ id: 'id', desc: true }]} minWidthClass="min-w-[48rem]" />
+            <DataTable
+              caption="Estimates of this site"
+              captionHidden
+              columns={columns}
+              data={estimates.data}
+              getRowId={(row) => String(row.id)}
+              initialSorting={[{ id: 'id', desc: true }]}
+              minWidthClass="min-w-[48rem]"
+            />
           </PickContext.Provider>
           <div className="flex flex-wrap items-center gap-3">
             {picked.length === 2 ? (

@@ -51,15 +51,23 @@ export function TakeOffExtras({ totals }: { totals: Partial<Totals> }) {
       <caption className="sr-only">Special pieces, fittings and flashings</caption>
       <thead>
         <tr className="border-b border-mortar-300">
-          <th scope="col" className="py-2 pr-4 font-semibold">What</th>
-          <th scope="col" className="py-2 pr-4 text-right font-semibold">Quantity</th>
-          <th scope="col" className="py-2 font-semibold">How it is counted</th>
+          <th scope="col" className="py-2 pr-4 font-semibold">
+            What
+          </th>
+          <th scope="col" className="py-2 pr-4 text-right font-semibold">
+            Quantity
+          </th>
+          <th scope="col" className="py-2 font-semibold">
+            How it is counted
+          </th>
         </tr>
       </thead>
       <tbody>
         {lines.map((line) => (
           <tr key={line.label} className="border-b border-mortar-200">
-            <th scope="row" className="py-2 pr-4 font-medium">{line.label}</th>
+            <th scope="row" className="py-2 pr-4 font-medium">
+              {line.label}
+            </th>
             <td className="py-2 pr-4 text-right tabular-nums">{line.value}</td>
             <td className="py-2 text-ink-700">{line.hint}</td>
           </tr>
@@ -80,22 +88,26 @@ export function RidgeLoads({ result }: { result: EngineResult }) {
   return (
     <div className="space-y-3">
       <Alert tone="caution" title="Load the roof evenly" live={false}>
-        Load the slopes of each ridge in step, top to bottom, over braced rafters or trusses, and never leave one side loaded alone. A structural
-        engineer decides what the roof can carry; the tile maker&rsquo;s fixing specification and local codes come first.
+        Load the slopes of each ridge in step, top to bottom, over braced rafters or trusses, and never leave one side loaded alone. A structural engineer decides what the roof can carry; the tile maker&rsquo;s fixing
+        specification and local codes come first.
       </Alert>
-      {guessed ? (
-        <p className="text-sm text-ink-700">
-          Some faces name no ridge: they were paired by equal top length. Give the ridge column in the schedule to group them as built.
-        </p>
-      ) : null}
+      {guessed ? <p className="text-sm text-ink-700">Some faces name no ridge: they were paired by equal top length. Give the ridge column in the schedule to group them as built.</p> : null}
       <table className="w-full text-left text-sm">
         <caption className="sr-only">Ridges and the loads of their faces</caption>
         <thead>
           <tr className="border-b border-mortar-300">
-            <th scope="col" className="py-2 pr-4 font-semibold">Building</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Ridge</th>
-            <th scope="col" className="py-2 pr-4 font-semibold">Faces and loads</th>
-            <th scope="col" className="py-2 text-right font-semibold">Load difference</th>
+            <th scope="col" className="py-2 pr-4 font-semibold">
+              Building
+            </th>
+            <th scope="col" className="py-2 pr-4 font-semibold">
+              Ridge
+            </th>
+            <th scope="col" className="py-2 pr-4 font-semibold">
+              Faces and loads
+            </th>
+            <th scope="col" className="py-2 text-right font-semibold">
+              Load difference
+            </th>
           </tr>
         </thead>
         <tbody>

@@ -25,14 +25,7 @@ function SystemOption({ offer, faces, checked, describedBy }: { offer: RoofSyste
   const ridge = offer.components.find((c) => c.role === 'ridge');
   return (
     <label className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50 has-[:checked]:ring-1 has-[:checked]:ring-clay-600">
-      <input
-        type="radio"
-        {...form.register('system_id')}
-        value={offer.id}
-        defaultChecked={checked}
-        aria-describedby={describedBy}
-        className="mt-1 h-5 w-5 shrink-0 accent-clay-600"
-      />
+      <input type="radio" {...form.register('system_id')} value={offer.id} defaultChecked={checked} aria-describedby={describedBy} className="mt-1 h-5 w-5 shrink-0 accent-clay-600" />
       <span className="min-w-0 flex-1 space-y-1">
         <span className="block font-semibold">
           {offer.name} <span className="font-normal text-ink-600">· {offer.branch.name}</span>

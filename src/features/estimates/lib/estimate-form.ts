@@ -110,18 +110,10 @@ export const estimateFormSchema = z.record(z.string(), z.string()).transform((va
   return { system_id: id, ...(waste_pct ? { waste_pct } : {}) };
 });
 
-export type PreviewOutcome =
-  | { state: 'empty' }
-  | { state: 'problems'; problems: string[] }
-  | { state: 'ready'; result: EngineResult };
+export type PreviewOutcome = { state: 'empty' } | { state: 'problems'; problems: string[] } | { state: 'ready'; result: EngineResult };
 
 /** The engine's estimate of the schedule with the system as the form stands, worked out in the browser. */
-export function previewEstimate(
-  faces: readonly Face[],
-  body: CreateEstimateBody | null,
-  offers: readonly RoofSystemOffer[],
-  openings: readonly Opening[] = [],
-): PreviewOutcome {
+export function previewEstimate(faces: readonly Face[], body: CreateEstimateBody | null, offers: readonly RoofSystemOffer[], openings: readonly Opening[] = []): PreviewOutcome {
   if (!body) return { state: 'empty' };
   let input: Record<string, unknown>;
   if (body.system_id !== undefined) {

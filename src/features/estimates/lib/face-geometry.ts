@@ -97,7 +97,10 @@ export function faceDrawingModel(shape: FaceShape & { pitch_deg: number }, resul
       const k0 = Math.floor((row.from_mm + HALF_MM) / spacing) + 1;
       const interior = Array.from({ length: Math.max(0, row.supports - 2) }, (_, i) => (k0 + i) * spacing);
       const crossings = [row.from_mm, ...interior, row.to_mm];
-      supportsByRow.set(r, crossings.map(toX).sort((a, b) => a - b));
+      supportsByRow.set(
+        r,
+        crossings.map(toX).sort((a, b) => a - b),
+      );
     }
   }
 
@@ -107,9 +110,7 @@ export function faceDrawingModel(shape: FaceShape & { pitch_deg: number }, resul
 
   const rows = loadingRowIndices(result.courses, system.roof_loading.every_nth_batten);
   const loadingRows = rows.map((row, i) => ({ row, y: setOut ? rowHeight(setOut, row) : 0, stacks: result.stacks_by_row[i] ?? 0 }));
-  const stacks: DrawnStack[] = loadingRows.flatMap((loading) =>
-    spreadOver(supportsByRow.get(loading.row) ?? [], loading.stacks).map((x) => ({ row: loading.row, x, y: loading.y })),
-  );
+  const stacks: DrawnStack[] = loadingRows.flatMap((loading) => spreadOver(supportsByRow.get(loading.row) ?? [], loading.stacks).map((x) => ({ row: loading.row, x, y: loading.y })));
 
   const marks = result.setting_out_marks_mm.map((mm) => ({
     mm,

@@ -13,11 +13,7 @@ export function useArchiveLorry(branchId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: archiveLorry,
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: fleetKeys.lorries(branchId) }),
-        queryClient.invalidateQueries({ queryKey: [...fleetKeys.all, 'slots', branchId] }),
-      ]),
+    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: fleetKeys.lorries(branchId) }), queryClient.invalidateQueries({ queryKey: [...fleetKeys.all, 'slots', branchId] })]),
   });
 }
 

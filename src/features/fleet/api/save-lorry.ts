@@ -17,10 +17,6 @@ export function useSaveLorry(branchId: number, lorryId?: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: CreateLorryBody) => (lorryId === undefined ? createLorry(branchId, body) : updateLorry(lorryId, body)),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: fleetKeys.lorries(branchId) }),
-        queryClient.invalidateQueries({ queryKey: [...fleetKeys.all, 'slots', branchId] }),
-      ]),
+    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: fleetKeys.lorries(branchId) }), queryClient.invalidateQueries({ queryKey: [...fleetKeys.all, 'slots', branchId] })]),
   });
 }

@@ -25,8 +25,8 @@ export function ArchiveLorry({ lorry }: { lorry: Lorry }) {
   return (
     <div className="w-full max-w-xl space-y-3">
       <Alert tone="caution" title={`Archive ${lorry.registration}?`} live={false}>
-        An archived lorry gets no new slots, and its coming empty slots are removed with it. If a coming run still has orders to deliver, the lorry is kept until those orders are moved to
-        another lorry. An archived lorry can be restored from the archived list.
+        An archived lorry gets no new slots, and its coming empty slots are removed with it. If a coming run still has orders to deliver, the lorry is kept until those orders are moved to another lorry. An archived lorry
+        can be restored from the archived list.
       </Alert>
       {archive.isError ? <ActionError error={archive.error} title={`${lorry.registration} was not archived`} /> : null}
       <div className="flex flex-wrap gap-2">

@@ -34,35 +34,35 @@ export function ArchivedLorries({ branchId, canManage = false }: { branchId: num
             <p className="text-sm text-ink-600">No archived lorries at this branch.</p>
           ) : (
             <>
-            {restore.isError ? <ActionError error={restore.error} title="The lorry was not restored" /> : null}
-            <ul className="divide-y divide-mortar-200" aria-label="Archived lorries">
-              {archived.map((l) => (
-                <li key={l.id} className="flex flex-wrap items-center justify-between gap-3 py-2 text-ink-700">
-                  <span>
-                    <span className="font-mono font-semibold">{l.registration}</span>
-                    {l.name ? ` · ${l.name}` : ''}
-                    <span className="block text-sm tabular-nums">
-                      {l.payload_kg.toLocaleString('en-GB')} kg · {l.pallet_slots} pallet slots · archived {formatDate(l.archived_at ?? '')}
+              {restore.isError ? <ActionError error={restore.error} title="The lorry was not restored" /> : null}
+              <ul className="divide-y divide-mortar-200" aria-label="Archived lorries">
+                {archived.map((l) => (
+                  <li key={l.id} className="flex flex-wrap items-center justify-between gap-3 py-2 text-ink-700">
+                    <span>
+                      <span className="font-mono font-semibold">{l.registration}</span>
+                      {l.name ? ` · ${l.name}` : ''}
+                      <span className="block text-sm tabular-nums">
+                        {l.payload_kg.toLocaleString('en-GB')} kg · {l.pallet_slots} pallet slots · archived {formatDate(l.archived_at ?? '')}
+                      </span>
                     </span>
-                  </span>
-                  {canManage ? (
-                    <Button
-                      variant="secondary"
-                      aria-label={`Restore ${l.registration}`}
-                      busy={restore.isPending && restore.variables === l.id}
-                      onClick={() =>
-                        restore.mutateAsync(l.id).then(
-                          (back) => toast.show(`${back.registration} is back in service; make its slots in the calendar.`, 'success'),
-                          () => {},
-                        )
-                      }
-                    >
-                      Restore
-                    </Button>
-                  ) : null}
-                </li>
-              ))}
-            </ul>
+                    {canManage ? (
+                      <Button
+                        variant="secondary"
+                        aria-label={`Restore ${l.registration}`}
+                        busy={restore.isPending && restore.variables === l.id}
+                        onClick={() =>
+                          restore.mutateAsync(l.id).then(
+                            (back) => toast.show(`${back.registration} is back in service; make its slots in the calendar.`, 'success'),
+                            () => {},
+                          )
+                        }
+                      >
+                        Restore
+                      </Button>
+                    ) : null}
+                  </li>
+                ))}
+              </ul>
             </>
           )}
         </div>

@@ -3,7 +3,19 @@ import { describe, expect, it } from 'vitest';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { LorryForm } from './lorry-form';
 
-const lorry = { id: 4, branch_id: 3, registration: 'TY61 KRB', name: 'Crane rigid', payload_kg: 12_000, pallet_slots: 10, has_crane: true, crane_max_kg: 1_200, deck_length_mm: 7300, deck_width_mm: 2450, archived_at: null };
+const lorry = {
+  id: 4,
+  branch_id: 3,
+  registration: 'TY61 KRB',
+  name: 'Crane rigid',
+  payload_kg: 12_000,
+  pallet_slots: 10,
+  has_crane: true,
+  crane_max_kg: 1_200,
+  deck_length_mm: 7300,
+  deck_width_mm: 2450,
+  archived_at: null,
+};
 
 describe('LorryForm', () => {
   it('refuses a payload typed in tonnes, naming the payload field, and sends nothing', async () => {
@@ -42,7 +54,16 @@ describe('LorryForm', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Add the lorry' }));
     await waitFor(() => {
       const call = fetchMock.mock.calls.find(([url]) => String(url).endsWith('/api/branches/3/lorries'));
-      expect(call && JSON.parse(String(call[1]?.body))).toEqual({ registration: 'TY61 KRC', name: '', payload_kg: 18_000, pallet_slots: 12, has_crane: true, crane_max_kg: 1_500, deck_length_mm: 7300, deck_width_mm: 2450 });
+      expect(call && JSON.parse(String(call[1]?.body))).toEqual({
+        registration: 'TY61 KRC',
+        name: '',
+        payload_kg: 18_000,
+        pallet_slots: 12,
+        has_crane: true,
+        crane_max_kg: 1_500,
+        deck_length_mm: 7300,
+        deck_width_mm: 2450,
+      });
     });
   });
 

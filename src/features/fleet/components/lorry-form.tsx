@@ -40,8 +40,7 @@ export function LorryForm({ branchId, lorry, onDone }: { branchId: number; lorry
         />
       </div>
       <Alert tone="caution" title="Lifting">
-        Lifts are planned and run by a competent person to the crane maker&rsquo;s load chart and the lifting rules that apply on site; a pallet heavier than the limit at its reach is
-        never lifted to a roof.
+        Lifts are planned and run by a competent person to the crane maker&rsquo;s load chart and the lifting rules that apply on site; a pallet heavier than the limit at its reach is never lifted to a roof.
       </Alert>
       <SubmitButton>{lorry ? 'Save the lorry' : 'Add the lorry'}</SubmitButton>
     </Form>

@@ -38,7 +38,15 @@ const slot = {
 const day = (slots: (typeof slot)[]) => ({ status: 200, body: { branch: { id: 3, name: 'North yard', town: 'Quennick' }, date: today, slots } });
 const base = {
   'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
-  'GET /api/drivers': { status: 200, body: { drivers: [{ id: 9, name: 'Dee Fenwick', email: 'dee@northyard.test' }, { id: 10, name: 'Sol Brant', email: 'sol@northyard.test' }] } },
+  'GET /api/drivers': {
+    status: 200,
+    body: {
+      drivers: [
+        { id: 9, name: 'Dee Fenwick', email: 'dee@northyard.test' },
+        { id: 10, name: 'Sol Brant', email: 'sol@northyard.test' },
+      ],
+    },
+  },
 };
 const sent = (fetchMock: ReturnType<typeof stubFetch>, method: string, path: string) =>
   fetchMock.mock.calls.filter(([url, init]) => String(url) === path && init?.method === method).map(([, init]) => (init?.body ? JSON.parse(String(init.body)) : undefined));
@@ -130,7 +138,11 @@ describe('SlotCalendar', () => {
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
     const item = await slotItem();
     expect(within(item).getByRole('link', { name: 'RL-000088: open its run' }).getAttribute('href')).toBe('/yard/runs/21');
-    expect(within(item).getByRole('link', { name: /^Open the run/ }).getAttribute('href')).toBe('/yard/runs/21');
+    expect(
+      within(item)
+        .getByRole('link', { name: /^Open the run/ })
+        .getAttribute('href'),
+    ).toBe('/yard/runs/21');
     expect(within(item).queryByRole('button', { name: 'Send out' })).toBeNull();
   });
 

@@ -84,7 +84,11 @@ function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: numb
     <li className="space-y-3 rounded-md border border-mortar-300 bg-white p-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="font-semibold">
-          {slot.time_window} · {slot.lorry.registration} <span className="font-normal text-ink-700">{slot.lorry.name}{slot.lorry.has_crane ? `, crane ${kg(slot.lorry.crane_max_kg ?? 0)}` : ''}</span>
+          {slot.time_window} · {slot.lorry.registration}{' '}
+          <span className="font-normal text-ink-700">
+            {slot.lorry.name}
+            {slot.lorry.has_crane ? `, crane ${kg(slot.lorry.crane_max_kg ?? 0)}` : ''}
+          </span>
         </h3>
         {canManage ? (
           <div className="flex flex-wrap items-center gap-2">
@@ -142,7 +146,8 @@ function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: numb
               <span>
                 <Link to={runPath(slot.id)} className="font-semibold text-clay-700 underline underline-offset-2" aria-label={`${b.reference}: open its run`}>
                   {b.reference}
-                </Link> · {b.contractor.name} · {b.site_name} · {kg(b.weight_kg)}, {b.pallets} pallets{b.delivery_method === 'roof' ? ' · crane onto the roof' : ''}
+                </Link>{' '}
+                · {b.contractor.name} · {b.site_name} · {kg(b.weight_kg)}, {b.pallets} pallets{b.delivery_method === 'roof' ? ' · crane onto the roof' : ''}
                 <span className="ml-2 text-sm text-ink-600">{b.status.replace(/_/g, ' ')}</span>
               </span>
             </li>
@@ -154,7 +159,6 @@ function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: numb
     </li>
   );
 }
-
 
 /**
  * A branch's slots on a day: what each lorry carries, who drives it, and sending the loads out.

@@ -32,11 +32,7 @@ export function CreateSlotForm({ branchId, lorries }: { branchId: number; lorrie
         <SelectField name="lorry_id" label="Lorry" options={lorries.map((l) => ({ value: String(l.id), label: lorryLabel(l) }))} />
         <TextField name="date" type="date" label="Day" />
         <TextField name="time_window" label="Time window" hint="HH:MM-HH:MM, e.g. 07:30-12:00" autoComplete="off" />
-        <SelectField
-          name="driver_id"
-          label="Driver (optional)"
-          options={[{ value: '', label: 'Not yet' }, ...(drivers.data?.drivers ?? []).map((d) => ({ value: String(d.id), label: d.name }))]}
-        />
+        <SelectField name="driver_id" label="Driver (optional)" options={[{ value: '', label: 'Not yet' }, ...(drivers.data?.drivers ?? []).map((d) => ({ value: String(d.id), label: d.name }))]} />
       </div>
       <SubmitButton>Add the slot</SubmitButton>
     </Form>

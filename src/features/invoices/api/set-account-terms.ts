@@ -8,9 +8,7 @@ import { accountKeys } from './account-keys';
  * card too; null removes the account (the contractor pays by card).
  */
 export function setAccountTerms(contractorId: number, terms: { terms_days: number; card_payments?: boolean } | null) {
-  return terms === null
-    ? apiClient.delete(`/api/accounts/${contractorId}`, { schema: accountSchema })
-    : apiClient.put(`/api/accounts/${contractorId}`, { body: terms, schema: accountSchema });
+  return terms === null ? apiClient.delete(`/api/accounts/${contractorId}`, { schema: accountSchema }) : apiClient.put(`/api/accounts/${contractorId}`, { body: terms, schema: accountSchema });
 }
 
 export function useSetAccountTerms(contractorId: number) {

@@ -30,13 +30,7 @@ export function AccountTermsForm({ account }: { account: Account }) {
   });
   return (
     <Form form={form} label={`Terms for ${account.contractor.name}`} className="flex flex-wrap items-end gap-2">
-      <TextField
-        name="terms_days"
-        label={`Days to pay, ${account.contractor.name}`}
-        inputMode="numeric"
-        defaultValue={account.terms_days === null ? '' : String(account.terms_days)}
-        className="w-40 [&_label]:sr-only"
-      />
+      <TextField name="terms_days" label={`Days to pay, ${account.contractor.name}`} inputMode="numeric" defaultValue={account.terms_days === null ? '' : String(account.terms_days)} className="w-40 [&_label]:sr-only" />
       <label className="flex min-h-tap items-center gap-2">
         <input type="checkbox" {...form.register('card_payments')} defaultChecked={account.card_payments} className="h-5 w-5 accent-clay-600" />
         May also pay by card

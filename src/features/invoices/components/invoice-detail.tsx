@@ -108,9 +108,7 @@ export function InvoiceDetail({ invoice, canCredit, canPay, returned, orderPath 
       {canPay && invoice.card_payment ? (
         <Card title="Pay">
           {invoice.pay_by === 'account' && invoice.balance > 0 ? (
-            <p className="mb-3 text-ink-700">
-              This invoice is on your account: pay by the due date{invoice.due_date ? ` (${formatDate(invoice.due_date)})` : ''} as usual, or by card now if you prefer.
-            </p>
+            <p className="mb-3 text-ink-700">This invoice is on your account: pay by the due date{invoice.due_date ? ` (${formatDate(invoice.due_date)})` : ''} as usual, or by card now if you prefer.</p>
           ) : null}
           <PayByCard invoice={invoice} returned={returned} />
         </Card>

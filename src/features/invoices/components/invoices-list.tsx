@@ -26,7 +26,16 @@ const columns = h.columns([
   h.accessor((r) => r.branch.name, { id: 'branch', header: 'Branch', enableSorting: false }),
   h.accessor('issue_date', { header: 'Issued', enableSorting: false, cell: (info) => formatDate(info.getValue()) }),
   h.accessor('due_date', { header: 'Due', enableSorting: false, cell: (info) => (info.getValue() ? formatDate(info.getValue()!) : 'by card') }),
-  h.accessor('status_label', { header: 'State', enableSorting: false, cell: (info) => <span className={info.row.original.overdue ? 'font-semibold text-brick-700' : ''}>{info.getValue()}{info.row.original.overdue ? ' · overdue' : ''}</span> }),
+  h.accessor('status_label', {
+    header: 'State',
+    enableSorting: false,
+    cell: (info) => (
+      <span className={info.row.original.overdue ? 'font-semibold text-brick-700' : ''}>
+        {info.getValue()}
+        {info.row.original.overdue ? ' · overdue' : ''}
+      </span>
+    ),
+  }),
   h.accessor('total', { header: 'Total', enableSorting: false, cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('balance', { header: 'Balance', enableSorting: false, cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
 ]);
@@ -39,11 +48,23 @@ export function InvoicesList() {
   return (
     <section aria-label="Invoices" className="space-y-4">
       <div>
-        <label htmlFor="invoice-status" className="mb-1 block text-sm font-medium">State</label>
-        <select id="invoice-status" value={status} onChange={(e) => { setStatus(e.target.value); setPage(1); }} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
+        <label htmlFor="invoice-status" className="mb-1 block text-sm font-medium">
+          State
+        </label>
+        <select
+          id="invoice-status"
+          value={status}
+          onChange={(e) => {
+            setStatus(e.target.value);
+            setPage(1);
+          }}
+          className="block min-h-tap rounded-md border border-ink-300 bg-white px-2"
+        >
           <option value="">Every invoice</option>
           {INVOICE_STATUSES.map((s) => (
-            <option key={s} value={s}>{INVOICE_STATUS_LABELS[s]}</option>
+            <option key={s} value={s}>
+              {INVOICE_STATUS_LABELS[s]}
+            </option>
           ))}
         </select>
       </div>
@@ -53,12 +74,26 @@ export function InvoicesList() {
         <ErrorAlert error={invoices.error} title="The invoices could not be loaded" onRetry={() => void invoices.refetch()} />
       ) : (
         <>
-          <DataTable caption="Invoices" captionHidden columns={columns} data={invoices.data.invoices} getRowId={(r) => String(r.id)} minWidthClass="min-w-[60rem]" empty={<EmptyState title="No invoices">Invoices are issued from confirmed or delivered orders.</EmptyState>} />
+          <DataTable
+            caption="Invoices"
+            captionHidden
+            columns={columns}
+            data={invoices.data.invoices}
+            getRowId={(r) => String(r.id)}
+            minWidthClass="min-w-[60rem]"
+            empty={<EmptyState title="No invoices">Invoices are issued from confirmed or delivered orders.</EmptyState>}
+          />
           {pages > 1 ? (
             <div className="flex items-center gap-3">
-              <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>Previous page</Button>
-              <span className="text-sm">Page {page} of {pages}</span>
-              <Button variant="secondary" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>Next page</Button>
+              <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
+                Previous page
+              </Button>
+              <span className="text-sm">
+                Page {page} of {pages}
+              </span>
+              <Button variant="secondary" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
+                Next page
+              </Button>
             </div>
           ) : null}
         </>

@@ -28,7 +28,11 @@ export function IssueInvoiceButton({ orderId, status, invoice, onIssued }: Issue
   if (!['confirmed', 'on_the_road', 'delivered'].includes(status)) return null;
   return (
     <div className="space-y-2">
-      {issue.isError ? <Alert tone="danger" title="The invoice could not be issued">{errorMessage(issue.error)}</Alert> : null}
+      {issue.isError ? (
+        <Alert tone="danger" title="The invoice could not be issued">
+          {errorMessage(issue.error)}
+        </Alert>
+      ) : null}
       <Button
         variant={status === 'delivered' ? 'primary' : 'secondary'}
         busy={issue.isPending}

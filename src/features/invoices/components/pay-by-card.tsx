@@ -53,7 +53,11 @@ export function PayByCard({ invoice, returned }: { invoice: Invoice; returned: P
           {open.last_error} You can try again with another card.
         </Alert>
       ) : null}
-      {start.isError ? <Alert tone="danger" title="The card page could not be opened">{errorMessage(start.error)}</Alert> : null}
+      {start.isError ? (
+        <Alert tone="danger" title="The card page could not be opened">
+          {errorMessage(start.error)}
+        </Alert>
+      ) : null}
       {!paid ? (
         <Button
           size="lg"

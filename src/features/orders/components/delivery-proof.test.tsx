@@ -35,7 +35,11 @@ describe('DeliveryProofCard', () => {
     expect(photos.map((a) => a.getAttribute('href'))).toEqual(['/api/orders/11/delivery/photos/1', '/api/orders/11/delivery/photos/2']);
     expect(within(photos[0]).getByRole('img').getAttribute('src')).toBe('/api/orders/11/delivery/photos/1/thumbnail');
     const row = screen.getByRole('row', { name: /Interlocking tile/ });
-    expect(within(row).getAllByRole('cell').map((c) => c.textContent)).toEqual(['10', '8', '1', '1']);
+    expect(
+      within(row)
+        .getAllByRole('cell')
+        .map((c) => c.textContent),
+    ).toEqual(['10', '8', '1', '1']);
     expect(screen.getByText(/credit note drafted/)).toBeTruthy();
     expect(screen.getByText('Left on the hardstanding by the cabin')).toBeTruthy();
   });

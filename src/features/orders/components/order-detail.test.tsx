@@ -42,9 +42,7 @@ describe('OrderDetail (contractor) and back-ordered packs', () => {
 
   it('links a follow-up order to the order whose packs it carries', () => {
     stubFetch({});
-    renderWithProviders(
-      <OrderDetail order={contractorOrder({ id: 7, reference: 'RL-000007', back_ordered_packs: 0, follows: { id: 1, reference: 'RL-000001', status: 'delivered', status_label: 'Delivered' } })} />,
-    );
+    renderWithProviders(<OrderDetail order={contractorOrder({ id: 7, reference: 'RL-000007', back_ordered_packs: 0, follows: { id: 1, reference: 'RL-000001', status: 'delivered', status_label: 'Delivered' } })} />);
     expect(linked()?.textContent).toContain('Carries the back-ordered packs of RL-000001 (Delivered)');
     expect(screen.getByRole('link', { name: 'RL-000001' }).getAttribute('href')).toBe('/orders/1');
   });
@@ -67,8 +65,20 @@ describe('OrderDetail (contractor) and a substitute tile offered by the desk', (
       tile: { sku: 'TRS-KP265-BR', description: 'Clay plain tile', kind: 'double_lap', lowest_pitch_deg: 35 },
       refused_faces: [],
       rows: [
-        { role: 'tile', label: 'Tiles', changes: true, before: { product_id: 11, sku: 'TRS-FL420-SG', description: 'Interlocking tile, slate grey', quantity: 800, unit: 'tile', packs: 800, unit_price: 128, total: 102_400 }, after: { product_id: 16, sku: 'TRS-KP265-BR', description: 'Clay plain tile', quantity: 5_120, unit: 'tile', packs: 5_120, unit_price: 74, total: 378_880 } },
-        { role: 'batten', label: 'Battens', changes: true, before: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten', quantity: 50, unit: 'length', packs: 50, unit_price: 440, total: 22_000 }, after: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten', quantity: 170, unit: 'length', packs: 170, unit_price: 440, total: 74_800 } },
+        {
+          role: 'tile',
+          label: 'Tiles',
+          changes: true,
+          before: { product_id: 11, sku: 'TRS-FL420-SG', description: 'Interlocking tile, slate grey', quantity: 800, unit: 'tile', packs: 800, unit_price: 128, total: 102_400 },
+          after: { product_id: 16, sku: 'TRS-KP265-BR', description: 'Clay plain tile', quantity: 5_120, unit: 'tile', packs: 5_120, unit_price: 74, total: 378_880 },
+        },
+        {
+          role: 'batten',
+          label: 'Battens',
+          changes: true,
+          before: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten', quantity: 50, unit: 'length', packs: 50, unit_price: 440, total: 22_000 },
+          after: { product_id: 14, sku: 'TRS-BAT-3825', description: 'Batten', quantity: 170, unit: 'length', packs: 170, unit_price: 440, total: 74_800 },
+        },
       ],
       not_counted: [],
       before_total: 124_400,

@@ -228,8 +228,8 @@ export function OrderForm({ target, branchName, lines, site, current, onDone }: 
                 </Alert>
               ) : (
                 <Alert tone="caution" title="A crane lift needs a lift plan" live={false}>
-                  A competent person plans the lift: where the lorry stands, the exclusion zone below the load, and where the pallets land.
-                  Land them only where the scaffold or roof structure is made to take them, spread over both slopes.
+                  A competent person plans the lift: where the lorry stands, the exclusion zone below the load, and where the pallets land. Land them only where the scaffold or roof structure is made to take them, spread
+                  over both slopes.
                   {site.overhead_lines !== 'none' ? ` Overhead lines are ${site.overhead_lines === 'present' ? 'recorded near the site' : 'not yet checked'}: the crane keeps its clearance.` : ''}
                 </Alert>
               )
@@ -252,7 +252,10 @@ export function OrderForm({ target, branchName, lines, site, current, onDone }: 
           <p className="mb-3 text-sm text-ink-700">Whole packs, as {branchName} sells them. Untick a line to leave it off, or change the packs.</p>
           <LinesTable form={form} lines={lines} packs={packs} />
           <p className="mt-3 text-right text-lg">
-            Subtotal at today&rsquo;s prices: <span className="font-bold tabular-nums" data-testid="order-subtotal">{formatMoney(subtotal)}</span>
+            Subtotal at today&rsquo;s prices:{' '}
+            <span className="font-bold tabular-nums" data-testid="order-subtotal">
+              {formatMoney(subtotal)}
+            </span>
           </p>
         </Card>
       </div>

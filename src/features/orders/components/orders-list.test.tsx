@@ -137,7 +137,11 @@ describe('OrdersList sorting and paging through the server', () => {
     stubOrderApi();
     renderWithProviders(<OrdersList />, { path: '/orders' });
     const table = await tableShown();
-    expect(within(table).getAllByRole('button').map((b) => b.textContent)).toEqual(['Wanted', 'Stage', 'Subtotal', 'Placed']);
+    expect(
+      within(table)
+        .getAllByRole('button')
+        .map((b) => b.textContent),
+    ).toEqual(['Wanted', 'Stage', 'Subtotal', 'Placed']);
     for (const name of ['Order', 'Site', 'Merchant', 'Unloading']) expect(header(name).getAttribute('aria-sort')).toBeNull();
   });
 

@@ -107,14 +107,7 @@ export function OrdersList() {
           <label htmlFor={`${id}-q`} className="mb-1.5 block font-medium">
             Search orders
           </label>
-          <input
-            id={`${id}-q`}
-            name="q"
-            type="search"
-            defaultValue={state.q ?? ''}
-            placeholder="RL-000123, PO, site or merchant"
-            className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3"
-          />
+          <input id={`${id}-q`} name="q" type="search" defaultValue={state.q ?? ''} placeholder="RL-000123, PO, site or merchant" className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" />
         </div>
         <Button type="submit" variant="secondary">
           Search

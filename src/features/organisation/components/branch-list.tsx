@@ -20,11 +20,7 @@ export function BranchList({ title = 'Branches', large = false }: BranchListProp
       ) : organisation.isError ? (
         <ErrorAlert error={organisation.error} title="The branches could not be loaded" onRetry={() => void organisation.refetch()} />
       ) : branches.length === 0 ? (
-        <EmptyState title="No branches">
-          {organisation.data.kind === 'contractor'
-            ? 'Branches belong to merchants; a contractor firm has none.'
-            : 'This merchant has no branches recorded yet.'}
-        </EmptyState>
+        <EmptyState title="No branches">{organisation.data.kind === 'contractor' ? 'Branches belong to merchants; a contractor firm has none.' : 'This merchant has no branches recorded yet.'}</EmptyState>
       ) : (
         <ul className={large ? 'space-y-4' : 'grid gap-3 sm:grid-cols-2'}>
           {branches.map((branch) => (

@@ -19,11 +19,7 @@ export function OrganisationSummary({ title = 'Organisation', footer }: Organisa
       {organisation.isPending ? (
         <SkeletonBlock label="Loading the organisation" lines={2} />
       ) : organisation.isError ? (
-        <ErrorAlert
-          error={organisation.error}
-          title="The organisation could not be loaded"
-          onRetry={() => void organisation.refetch()}
-        />
+        <ErrorAlert error={organisation.error} title="The organisation could not be loaded" onRetry={() => void organisation.refetch()} />
       ) : (
         <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2">
           <dt className="text-sm font-medium text-ink-600">Name</dt>

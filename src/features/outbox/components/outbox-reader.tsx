@@ -37,9 +37,7 @@ function MessageView({ message, listHref }: { message: OutboxMessage; listHref: 
         <h3 id={`message-${message.id}-text`} className="mb-2 font-semibold">
           Text part
         </h3>
-        <pre className="overflow-x-auto rounded-md border border-mortar-300 bg-mortar-50 p-3 font-sans text-sm whitespace-pre-wrap">
-          {message.text}
-        </pre>
+        <pre className="overflow-x-auto rounded-md border border-mortar-300 bg-mortar-50 p-3 font-sans text-sm whitespace-pre-wrap">{message.text}</pre>
       </section>
       <section aria-labelledby={`message-${message.id}-html`}>
         <h3 id={`message-${message.id}-html`} className="mb-2 font-semibold">
@@ -47,12 +45,7 @@ function MessageView({ message, listHref }: { message: OutboxMessage; listHref: 
         </h3>
         {message.html ? (
           // An empty sandbox: no scripts, no forms, no navigation of this page from the e-mail.
-          <iframe
-            title={`HTML part of “${message.subject}”`}
-            sandbox=""
-            srcDoc={message.html}
-            className="h-96 w-full rounded-md border border-mortar-300 bg-white"
-          />
+          <iframe title={`HTML part of “${message.subject}”`} sandbox="" srcDoc={message.html} className="h-96 w-full rounded-md border border-mortar-300 bg-white" />
         ) : (
           <p className="text-ink-600">This message has no HTML part.</p>
         )}
@@ -70,8 +63,7 @@ export function OutboxReader({ selectedId, hrefFor, listHref }: OutboxReaderProp
     if (isApiError(outbox.error) && outbox.error.status === 404) {
       return (
         <Alert tone="info" title="No outbox on this server">
-          The outbox is only there while Ridgeload runs outside production; this server sends real e-mail.{' '}
-          <span className="text-ink-600">({outbox.error.message})</span>
+          The outbox is only there while Ridgeload runs outside production; this server sends real e-mail. <span className="text-ink-600">({outbox.error.message})</span>
         </Alert>
       );
     }
@@ -80,11 +72,7 @@ export function OutboxReader({ selectedId, hrefFor, listHref }: OutboxReaderProp
 
   const messages = outbox.data;
   if (messages.length === 0) {
-    return (
-      <EmptyState title="No e-mail sent yet">
-        Invitations and password-reset links appear here as soon as the app sends them.
-      </EmptyState>
-    );
+    return <EmptyState title="No e-mail sent yet">Invitations and password-reset links appear here as soon as the app sends them.</EmptyState>;
   }
 
   const selected = selectedId === null ? null : (messages.find((message) => message.id === selectedId) ?? null);
@@ -95,11 +83,7 @@ export function OutboxReader({ selectedId, hrefFor, listHref }: OutboxReaderProp
         <ul className="-mx-2 divide-y divide-mortar-200">
           {messages.map((message) => (
             <li key={message.id}>
-              <Link
-                to={hrefFor(message.id)}
-                aria-current={message.id === selectedId ? 'true' : undefined}
-                className="block min-h-tap rounded px-2 py-2 hover:bg-mortar-100 aria-[current=true]:bg-clay-50"
-              >
+              <Link to={hrefFor(message.id)} aria-current={message.id === selectedId ? 'true' : undefined} className="block min-h-tap rounded px-2 py-2 hover:bg-mortar-100 aria-[current=true]:bg-clay-50">
                 <span className="block font-medium">{message.subject}</span>
                 <span className="block text-sm break-all text-ink-600">{message.to}</span>
                 <span className="block text-sm text-ink-600">{formatDateTime(message.created_at)}</span>

@@ -1,14 +1,5 @@
 import { useMemo, useRef, useState } from 'react';
-import {
-  CRANE_LIFT,
-  CRANE_LIFT_LABELS,
-  OVERHEAD_LINES,
-  OVERHEAD_LINES_LABELS,
-  VEHICLE_ACCESS,
-  VEHICLE_ACCESS_LABELS,
-  createProjectBodySchema,
-  updateProjectBodySchema,
-} from '../../../../shared/schemas/project.schema';
+import { CRANE_LIFT, CRANE_LIFT_LABELS, OVERHEAD_LINES, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS, VEHICLE_ACCESS_LABELS, createProjectBodySchema, updateProjectBodySchema } from '../../../../shared/schemas/project.schema';
 import type { BUILDING_KINDS, Project } from '../../../../shared/schemas/project.schema';
 import { Form, RadioGroupField, SelectField, SubmitButton, TextAreaField, TextField, useFieldGroup, useSchemaFormContext } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
@@ -53,11 +44,7 @@ function BuildingItem({ row, index, onUpdate, onRemove }: { row: BuildingRow; in
       </label>
       <label className="block">
         <span className="mb-1 block text-sm font-medium">Kind</span>
-        <select
-          value={row.kind}
-          onChange={(event) => onUpdate({ kind: event.target.value as BuildingRow['kind'] })}
-          className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-2"
-        >
+        <select value={row.kind} onChange={(event) => onUpdate({ kind: event.target.value as BuildingRow['kind'] })} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-2">
           <option value="building">Building</option>
           <option value="plot">Plot</option>
         </select>
@@ -80,8 +67,7 @@ function BuildingsEditor({ rows, onChange }: { rows: BuildingRow[]; onChange: (r
     <fieldset className="space-y-3">
       <legend className="font-medium text-ink-900">Buildings or plots</legend>
       <p className="text-sm text-ink-600">
-        Optional. Name the house types or plots the way the schedule&rsquo;s <code>building</code> column does, so the roofs and
-        deliveries line up.
+        Optional. Name the house types or plots the way the schedule&rsquo;s <code>building</code> column does, so the roofs and deliveries line up.
       </p>
       {rows.length === 0 ? <p className="text-sm text-ink-600">None listed.</p> : null}
       <ul className="space-y-3">
@@ -116,19 +102,9 @@ function SiteFields({ project }: { project?: Project }) {
       </Card>
       <Card title="Access for deliveries">
         <div className="space-y-4">
-          <SelectField
-            name="vehicle_access"
-            label="Biggest lorry that can reach the set-down place"
-            options={options(VEHICLE_ACCESS, VEHICLE_ACCESS_LABELS)}
-            defaultValue={project?.vehicle_access ?? 'any'}
-          />
+          <SelectField name="vehicle_access" label="Biggest lorry that can reach the set-down place" options={options(VEHICLE_ACCESS, VEHICLE_ACCESS_LABELS)} defaultValue={project?.vehicle_access ?? 'any'} />
           <RadioGroupField name="crane_lift" legend="Crane lift from the lorry" options={options(CRANE_LIFT, CRANE_LIFT_LABELS)} defaultValue={project?.crane_lift ?? 'unknown'} />
-          <RadioGroupField
-            name="overhead_lines"
-            legend="Overhead lines"
-            options={options(OVERHEAD_LINES, OVERHEAD_LINES_LABELS)}
-            defaultValue={project?.overhead_lines ?? 'unknown'}
-          />
+          <RadioGroupField name="overhead_lines" legend="Overhead lines" options={options(OVERHEAD_LINES, OVERHEAD_LINES_LABELS)} defaultValue={project?.overhead_lines ?? 'unknown'} />
           <TextField name="set_down_place" label="Where pallets are set down" hint="e.g. hardstanding by the site cabin" defaultValue={project?.set_down_place} autoComplete="off" />
           <TextAreaField
             name="access_notes"

@@ -78,10 +78,7 @@ export function ProjectsList() {
   const [showArchived, setShowArchived] = useState(false);
   const [page, setPage] = useState(1);
   const q = useDebouncedValue(search.trim());
-  const filters = useMemo(
-    () => ({ q: q || undefined, archived: showArchived ? ('all' as const) : ('false' as const), page, page_size: PAGE_SIZE }),
-    [q, showArchived, page],
-  );
+  const filters = useMemo(() => ({ q: q || undefined, archived: showArchived ? ('all' as const) : ('false' as const), page, page_size: PAGE_SIZE }), [q, showArchived, page]);
   const projects = useProjects(filters);
   const pages = projects.data ? Math.max(1, Math.ceil(projects.data.total / PAGE_SIZE)) : 1;
 
@@ -136,18 +133,21 @@ export function ProjectsList() {
               q ? (
                 <EmptyState title={`No site matches “${q}”`}>Try fewer letters, or include archived sites.</EmptyState>
               ) : (
-                <EmptyState title="No sites yet" action={<Link to="/sites/new" className={buttonClasses('primary')}>Add the first site</Link>}>
+                <EmptyState
+                  title="No sites yet"
+                  action={
+                    <Link to="/sites/new" className={buttonClasses('primary')}>
+                      Add the first site
+                    </Link>
+                  }
+                >
                   A site holds the roof schedule, the estimates and the orders for one job.
                 </EmptyState>
               )
             }
           />
           <div className="flex flex-wrap items-center justify-between gap-3 text-sm text-ink-700">
-            <p aria-live="polite">
-              {projects.data.total === 0
-                ? 'No sites'
-                : `${projects.data.total} ${projects.data.total === 1 ? 'site' : 'sites'}${pages > 1 ? ` · page ${page} of ${pages}` : ''}`}
-            </p>
+            <p aria-live="polite">{projects.data.total === 0 ? 'No sites' : `${projects.data.total} ${projects.data.total === 1 ? 'site' : 'sites'}${pages > 1 ? ` · page ${page} of ${pages}` : ''}`}</p>
             {pages > 1 ? (
               <div className="flex gap-2">
                 <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>

@@ -26,8 +26,8 @@ export function RecentProjects({ limit = 5 }: { limit?: number }) {
                 {project.name}
               </Link>
               <span className="text-sm text-ink-600">
-                {project.schedule ? `Schedule v${project.schedule.version}, ${project.schedule.face_count} faces` : 'No schedule yet'} ·{' '}
-                {project.estimate_count} {project.estimate_count === 1 ? 'estimate' : 'estimates'} · {formatDate(project.updated_at)}
+                {project.schedule ? `Schedule v${project.schedule.version}, ${project.schedule.face_count} faces` : 'No schedule yet'} · {project.estimate_count} {project.estimate_count === 1 ? 'estimate' : 'estimates'}{' '}
+                · {formatDate(project.updated_at)}
               </span>
             </li>
           ))}

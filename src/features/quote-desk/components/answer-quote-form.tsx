@@ -36,20 +36,30 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
   const err = (name: string) => form.fieldError(name);
   return (
     <Form form={form} label="Price the quote">
-      <p className="text-sm text-ink-600">
-        Leave packs empty for enough packs to cover the quantity asked, and the price empty for the branch&rsquo;s pack price. Prices are per pack, in pounds.
-      </p>
+      <p className="text-sm text-ink-600">Leave packs empty for enough packs to cover the quantity asked, and the price empty for the branch&rsquo;s pack price. Prices are per pack, in pounds.</p>
       <div className="overflow-x-auto rounded-md border border-mortar-300 bg-white" role="region" aria-label="Prices per line" tabIndex={0}>
         <table className="w-full min-w-[60rem] border-collapse text-left text-sm">
           <caption className="sr-only">Prices per line</caption>
           <thead className="bg-mortar-100">
             <tr>
-              <th scope="col" className="px-3 py-2">Asked for</th>
-              <th scope="col" className="px-3 py-2 text-right">Quantity</th>
-              <th scope="col" className="px-3 py-2">Product offered</th>
-              <th scope="col" className="px-3 py-2">Packs</th>
-              <th scope="col" className="px-3 py-2">Pack price (£)</th>
-              <th scope="col" className="px-3 py-2">Note</th>
+              <th scope="col" className="px-3 py-2">
+                Asked for
+              </th>
+              <th scope="col" className="px-3 py-2 text-right">
+                Quantity
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Product offered
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Packs
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Pack price (£)
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Note
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -86,7 +96,14 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
                     </select>
                   </td>
                   <td className="px-3 py-2">
-                    <input {...form.register(fields[1])} aria-label={`Packs of ${line.description}`} inputMode="numeric" defaultValue={before ? before.packs : ''} aria-invalid={err(fields[1]) ? true : undefined} className={cell} />
+                    <input
+                      {...form.register(fields[1])}
+                      aria-label={`Packs of ${line.description}`}
+                      inputMode="numeric"
+                      defaultValue={before ? before.packs : ''}
+                      aria-invalid={err(fields[1]) ? true : undefined}
+                      className={cell}
+                    />
                   </td>
                   <td className="px-3 py-2">
                     <input
@@ -99,7 +116,13 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
                     />
                   </td>
                   <td className="px-3 py-2">
-                    <input {...form.register(fields[3])} aria-label={`Note on ${line.description}`} maxLength={500} defaultValue={before?.note ?? ''} className="block min-h-tap w-48 rounded-md border border-ink-300 bg-white px-2" />
+                    <input
+                      {...form.register(fields[3])}
+                      aria-label={`Note on ${line.description}`}
+                      maxLength={500}
+                      defaultValue={before?.note ?? ''}
+                      className="block min-h-tap w-48 rounded-md border border-ink-300 bg-white px-2"
+                    />
                   </td>
                 </tr>
               );

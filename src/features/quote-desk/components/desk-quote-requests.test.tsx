@@ -64,7 +64,11 @@ describe('DeskQuoteRequests', () => {
     await screen.findByRole('table', { name: 'Quote requests' });
     expect(sent(queries.at(-1))).toMatchObject({ page: '3', sort: 'created_at', dir: 'desc' });
     // Only the columns the server can sort by have a header button.
-    expect(within(screen.getByRole('table', { name: 'Quote requests' })).getAllByRole('button').map((b) => b.textContent)).toEqual(['Wanted', 'Asked']);
+    expect(
+      within(screen.getByRole('table', { name: 'Quote requests' }))
+        .getAllByRole('button')
+        .map((b) => b.textContent),
+    ).toEqual(['Wanted', 'Asked']);
 
     fireEvent.click(within(header('Wanted')).getByRole('button'));
     await waitFor(() => expect(sent(queries.at(-1))).toMatchObject({ page: '1', sort: 'requested_date', dir: 'asc' }));

@@ -92,10 +92,7 @@ export function QuoteRequestDetail({ request, onAccepted }: { request: QuoteRequ
   const withdraw = useWithdrawQuoteRequest();
   const toast = useToast();
   const comparison = request.comparison;
-  const quotesInOrder = useMemo(
-    () => (comparison ? comparison.quote_ids.map((id) => request.quotes.find((q) => q.id === id)).filter((q): q is Quote => Boolean(q)) : request.quotes),
-    [comparison, request.quotes],
-  );
+  const quotesInOrder = useMemo(() => (comparison ? comparison.quote_ids.map((id) => request.quotes.find((q) => q.id === id)).filter((q): q is Quote => Boolean(q)) : request.quotes), [comparison, request.quotes]);
   const columns = useMemo(() => {
     const helper = dataTableColumns<Row>();
     return helper.columns([
@@ -166,9 +163,7 @@ export function QuoteRequestDetail({ request, onAccepted }: { request: QuoteRequ
         ))}
       </div>
 
-      {comparison ? (
-        <DataTable caption="The answers side by side" columns={columns} data={comparison.rows} getRowId={(row) => String(row.request_line_id)} minWidthClass="min-w-[52rem]" />
-      ) : null}
+      {comparison ? <DataTable caption="The answers side by side" columns={columns} data={comparison.rows} getRowId={(row) => String(row.request_line_id)} minWidthClass="min-w-[52rem]" /> : null}
     </div>
   );
 }

@@ -32,7 +32,6 @@ interface QuoteRequestFormProps {
   onCreated: (request: QuoteRequest) => void;
 }
 
-
 /** Asks up to three merchant branches to price an estimate's materials for one delivery. */
 export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, onCreated }: QuoteRequestFormProps) {
   const branches = useMerchantBranches();
@@ -54,7 +53,10 @@ export function QuoteRequestForm({ estimateId, preferredBranchId, craneAllowed, 
               {branches.data.map((branch) => {
                 const checked = ticked.has(branch.id);
                 return (
-                  <label key={branch.id} className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50 has-[:disabled]:cursor-not-allowed has-[:disabled]:opacity-60">
+                  <label
+                    key={branch.id}
+                    className="flex min-h-tap cursor-pointer items-start gap-3 rounded-md border border-ink-300 bg-white p-3 has-[:checked]:border-clay-600 has-[:checked]:bg-clay-50 has-[:disabled]:cursor-not-allowed has-[:disabled]:opacity-60"
+                  >
                     <input
                       type="checkbox"
                       {...form.register(branchField(branch.id), {

@@ -53,7 +53,11 @@ describe('QuoteRequestsList', () => {
     const queries = stubQuoteRequestListApi(serverPage, 120);
     const { router } = renderWithProviders(<QuoteRequestsList />, { path: '/quotes?page=2' });
     await screen.findByRole('table', { name: 'Quote requests' });
-    expect(within(screen.getByRole('table', { name: 'Quote requests' })).getAllByRole('button').map((b) => b.textContent)).toEqual(['Wanted', 'Asked']);
+    expect(
+      within(screen.getByRole('table', { name: 'Quote requests' }))
+        .getAllByRole('button')
+        .map((b) => b.textContent),
+    ).toEqual(['Wanted', 'Asked']);
 
     // The list starts newest asked first, so pressing Asked asks for the oldest first.
     fireEvent.click(within(header('Asked')).getByRole('button'));

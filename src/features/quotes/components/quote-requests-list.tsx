@@ -102,11 +102,15 @@ export function QuoteRequestsList() {
     <section aria-label="Quote requests" className="space-y-4">
       <div className="flex flex-wrap items-end gap-3">
         <div>
-          <label htmlFor={`${id}-stage`} className="mb-1 block text-sm font-medium">Stage</label>
+          <label htmlFor={`${id}-stage`} className="mb-1 block text-sm font-medium">
+            Stage
+          </label>
           <select id={`${id}-stage`} value={filters.status ?? ''} onChange={(e) => set({ status: e.target.value })} className={selectClass}>
             <option value="">Every stage</option>
             {QUOTE_REQUEST_STATUSES.map((s) => (
-              <option key={s} value={s}>{REQUEST_WORDS[s]}</option>
+              <option key={s} value={s}>
+                {REQUEST_WORDS[s]}
+              </option>
             ))}
           </select>
         </div>
@@ -116,10 +120,14 @@ export function QuoteRequestsList() {
       {/* Keyed on the search so Back and Forward put the words of that step back in the box. */}
       <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={filters.q ?? ''}>
         <div className="min-w-56 flex-1">
-          <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">Search quote requests</label>
+          <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">
+            Search quote requests
+          </label>
           <input id={`${id}-q`} name="q" type="search" maxLength={100} defaultValue={filters.q ?? ''} placeholder="12 or Q-12, site or PO" className={`${inputClass} w-full`} />
         </div>
-        <Button type="submit" variant="secondary">Search</Button>
+        <Button type="submit" variant="secondary">
+          Search
+        </Button>
         {filtered ? (
           <Button variant="ghost" onClick={() => setSearch(keepListOrder(search))}>
             Clear the filters
@@ -148,11 +156,25 @@ export function QuoteRequestsList() {
               minWidthClass="min-w-[48rem]"
               empty={
                 pastTheEnd ? (
-                  <EmptyState title={`Nothing on page ${page}`} action={<Button variant="secondary" onClick={() => goToPage(pages)}>Go to page {pages}</Button>}>
+                  <EmptyState
+                    title={`Nothing on page ${page}`}
+                    action={
+                      <Button variant="secondary" onClick={() => goToPage(pages)}>
+                        Go to page {pages}
+                      </Button>
+                    }
+                  >
                     The list has {pages === 1 ? 'one page' : `${pages} pages`} now.
                   </EmptyState>
                 ) : filtered ? (
-                  <EmptyState title="No quote request matches" action={<Button variant="secondary" onClick={() => setSearch(keepListOrder(search))}>Clear the filters</Button>}>
+                  <EmptyState
+                    title="No quote request matches"
+                    action={
+                      <Button variant="secondary" onClick={() => setSearch(keepListOrder(search))}>
+                        Clear the filters
+                      </Button>
+                    }
+                  >
                     Showing {words.join(', ')}.
                   </EmptyState>
                 ) : (

@@ -150,11 +150,15 @@ export function DeckDrawing({ run, onToggle, pending, className = 'w-full max-w-
         <path d={`M${-SIDE_MARGIN + 40} ${cog} l160 -110 v220 z`} fill="#8f1e18" />
       </g>
       <g fontSize={190} fill="#232b37" textAnchor="middle">
-        <text x={W / 4} y={drawnLength + 260}>Left</text>
+        <text x={W / 4} y={drawnLength + 260}>
+          Left
+        </text>
         <text x={W / 4} y={drawnLength + 500} fontWeight={700}>
           {kg(run.deck.left_kg)}
         </text>
-        <text x={(3 * W) / 4} y={drawnLength + 260}>Right</text>
+        <text x={(3 * W) / 4} y={drawnLength + 260}>
+          Right
+        </text>
         <text x={(3 * W) / 4} y={drawnLength + 500} fontWeight={700}>
           {kg(run.deck.right_kg)}
         </text>

@@ -6,8 +6,7 @@ import { DeckDrawing } from './deck-drawing';
 import { DeckPanel } from './deck-panel';
 
 const csrf = { 'GET /api/auth/csrf': { status: 200, body: { token: 't' } } };
-const calls = (fetchMock: ReturnType<typeof stubFetch>, method: string) =>
-  fetchMock.mock.calls.filter(([, init]) => (init?.method ?? 'GET') === method).map(([url]) => String(url));
+const calls = (fetchMock: ReturnType<typeof stubFetch>, method: string) => fetchMock.mock.calls.filter(([, init]) => (init?.method ?? 'GET') === method).map(([url]) => String(url));
 
 /** The fill pattern a drawn pallet uses, read from its rectangle. */
 const fillOf = (pallet: Element) => pallet.querySelector('rect')?.getAttribute('fill') ?? '';

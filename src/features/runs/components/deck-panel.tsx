@@ -17,7 +17,10 @@ export function DropLegend({ run }: { run: Run }) {
           <li key={d.order_id} className="flex items-center gap-1.5">
             <DropSwatch drop={d.position} />
             <span>
-              <span className="font-semibold">D{d.position}</span> {d.reference} <span className="text-ink-600">({style.patternName}, {style.colourName})</span>
+              <span className="font-semibold">D{d.position}</span> {d.reference}{' '}
+              <span className="text-ink-600">
+                ({style.patternName}, {style.colourName})
+              </span>
             </span>
           </li>
         );

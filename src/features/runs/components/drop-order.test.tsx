@@ -5,8 +5,7 @@ import { runFixture } from '../../../test-utils/run-fixture';
 import { DropOrder } from './drop-order';
 
 const csrf = { 'GET /api/auth/csrf': { status: 200, body: { token: 't' } } };
-const puts = (fetchMock: ReturnType<typeof stubFetch>) =>
-  fetchMock.mock.calls.filter(([url, init]) => String(url) === '/api/runs/7/drops' && init?.method === 'PUT').map(([, init]) => JSON.parse(String(init?.body)));
+const puts = (fetchMock: ReturnType<typeof stubFetch>) => fetchMock.mock.calls.filter(([url, init]) => String(url) === '/api/runs/7/drops' && init?.method === 'PUT').map(([, init]) => JSON.parse(String(init?.body)));
 const order = () => screen.getAllByTestId('drop-row').map((row) => within(row).getByRole('link', { name: /^RL-/ }).textContent);
 const href = (id: number) => `/yard/orders/${id}`;
 

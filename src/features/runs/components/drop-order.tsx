@@ -20,8 +20,7 @@ interface DropOrderProps {
   orderHref: (orderId: number) => string;
 }
 
-const arrowButton =
-  'inline-flex min-h-tap min-w-tap items-center justify-center rounded-md border border-ink-300 bg-white text-ink-900 hover:bg-ink-50 aria-disabled:cursor-not-allowed aria-disabled:opacity-40';
+const arrowButton = 'inline-flex min-h-tap min-w-tap items-center justify-center rounded-md border border-ink-300 bg-white text-ink-900 hover:bg-ink-50 aria-disabled:cursor-not-allowed aria-disabled:opacity-40';
 
 function Arrow({ up }: { up: boolean }) {
   return (
@@ -49,12 +48,7 @@ function DropRow({ drop, place, count, editable, orderHref, onMove }: DropRowPro
   const first = place === 0;
   const last = place === count - 1;
   return (
-    <li
-      ref={setNodeRef}
-      style={style}
-      className={`flex flex-wrap items-center gap-x-3 gap-y-2 bg-white px-3 py-2 ${isDragging ? 'relative z-10 shadow-raised' : ''}`}
-      data-testid="drop-row"
-    >
+    <li ref={setNodeRef} style={style} className={`flex flex-wrap items-center gap-x-3 gap-y-2 bg-white px-3 py-2 ${isDragging ? 'relative z-10 shadow-raised' : ''}`} data-testid="drop-row">
       {editable ? (
         <button
           type="button"
@@ -175,7 +169,11 @@ export function DropOrder({ run, canReorder, orderHref }: DropOrderProps) {
         accessibility={{ announcements, screenReaderInstructions: { draggable: 'To move a drop, press space, then the up and down arrow keys, then space again to put it down, or escape to cancel.' } }}
       >
         <SortableContext items={ids} strategy={verticalListSortingStrategy}>
-          <ol className="divide-y divide-mortar-200 overflow-hidden rounded-md border border-mortar-300" aria-label={`Drops of ${run.lorry.registration} in order, the first off first`} aria-busy={save.isPending || undefined}>
+          <ol
+            className="divide-y divide-mortar-200 overflow-hidden rounded-md border border-mortar-300"
+            aria-label={`Drops of ${run.lorry.registration} in order, the first off first`}
+            aria-busy={save.isPending || undefined}
+          >
             {drops.map((drop, place) => (
               <DropRow key={drop.order_id} drop={drop} place={place} count={drops.length} editable={editable} orderHref={orderHref} onMove={move} />
             ))}

@@ -55,7 +55,11 @@ describe('RunDayPlan', () => {
     expect(within(card).getByRole('meter', { name: 'Pallet slots' }).getAttribute('aria-valuetext')).toBe('6 of 12');
     expect(within(card).getAllByTestId('deck-pallet')).toHaveLength(6);
     const drops = within(card).getByRole('list', { name: 'Drops of 07:30-12:00 · TY61 KRB, the first off first' });
-    expect(within(drops).getAllByRole('listitem').map((li) => li.textContent?.slice(0, 12))).toEqual(['1. RL-000015', '2. RL-000016', '3. RL-000017']);
+    expect(
+      within(drops)
+        .getAllByRole('listitem')
+        .map((li) => li.textContent?.slice(0, 12)),
+    ).toEqual(['1. RL-000015', '2. RL-000016', '3. RL-000017']);
     expect(within(card).getByText('Plain tile, red')).toBeTruthy();
     expect(within(card).getByRole('link', { name: 'Open the run 07:30-12:00 · TY61 KRB' }).getAttribute('href')).toBe('/yard/runs/7');
 

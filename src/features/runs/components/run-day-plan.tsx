@@ -30,7 +30,11 @@ function DayRuns({ branchId, date }: { branchId: number; date: string }) {
   return (
     <div className="space-y-3">
       <p className="text-sm text-ink-700">
-        {plural(day.data.length, 'run')}, {plural(drops, 'drop')}, {kg(weight)} · <span className="font-semibold tabular-nums">{loaded} of {pallets}</span> pallets loaded
+        {plural(day.data.length, 'run')}, {plural(drops, 'drop')}, {kg(weight)} ·{' '}
+        <span className="font-semibold tabular-nums">
+          {loaded} of {pallets}
+        </span>{' '}
+        pallets loaded
       </p>
       <ul className="space-y-4" aria-label={`Runs on ${formatDay(date)}`}>
         {day.data.map((run) => (
@@ -110,14 +114,7 @@ export function RunDayPlan({ branches }: { branches: readonly BranchOption[] }) 
           <DayRuns key={`${branchId}-${date}`} branchId={branchId} date={date} />
         </section>
         <div className={view === 'day' ? 'hidden lg:block' : ''}>
-          <RunWeekView
-            branchId={branchId}
-            from={monday}
-            selectedDate={date}
-            today={today}
-            onPickDay={(d) => set({ date: d, view: null })}
-            onShiftWeek={(weeks) => set({ date: addDays(monday, weeks * 7) })}
-          />
+          <RunWeekView branchId={branchId} from={monday} selectedDate={date} today={today} onPickDay={(d) => set({ date: d, view: null })} onShiftWeek={(weeks) => set({ date: addDays(monday, weeks * 7) })} />
         </div>
       </div>
     </div>

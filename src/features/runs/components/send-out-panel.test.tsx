@@ -23,7 +23,11 @@ describe('SendOutPanel', () => {
     renderWithProviders(<SendOutPanel run={loadedRunFixture()} canSendOut canOverride={false} />);
     expect(screen.queryByRole('button', { name: /^Send out/ })).toBeNull();
     const why = screen.getByRole('list', { name: 'Why it cannot go yet' });
-    expect(within(why).getAllByRole('listitem').map((li) => li.textContent)).toEqual(['Not before its day: this run is for Mon 1 Mar 2027 and today is Fri 26 Feb 2027.']);
+    expect(
+      within(why)
+        .getAllByRole('listitem')
+        .map((li) => li.textContent),
+    ).toEqual(['Not before its day: this run is for Mon 1 Mar 2027 and today is Fri 26 Feb 2027.']);
   });
 
   it('hides Send out on the day while a pallet is not loaded, saying how many', () => {
@@ -53,7 +57,11 @@ describe('SendOutPanel', () => {
   });
 
   it('shows the server’s 409 when the send-out is refused', async () => {
-    stubFetch({ ...csrf, 'POST /api/runs/7/send-out': { status: 409, body: { error: { code: 'not_loaded', message: 'Pallet 3 of RL-000015 is not loaded' } } }, 'GET /api/runs/7': { status: 200, body: loadedRunFixture() } });
+    stubFetch({
+      ...csrf,
+      'POST /api/runs/7/send-out': { status: 409, body: { error: { code: 'not_loaded', message: 'Pallet 3 of RL-000015 is not loaded' } } },
+      'GET /api/runs/7': { status: 200, body: loadedRunFixture() },
+    });
     renderWithProviders(<SendOutPanel run={loadedRunFixture()} canSendOut canOverride />);
     fireEvent.click(screen.getByRole('button', { name: 'Send out TY61 KRB' }));
     const alert = await screen.findByRole('alert');

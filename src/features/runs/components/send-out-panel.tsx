@@ -51,9 +51,7 @@ function OverrideForm({ run, blocks, onSent, onCancel }: { run: Run; blocks: str
           {errors.root.server.message}
         </Alert>
       ) : null}
-      <p className="text-sm text-ochre-800">
-        Sending out anyway ({blocks.join(' and ')}) is recorded on each drop&apos;s order with your name and the reason.
-      </p>
+      <p className="text-sm text-ochre-800">Sending out anyway ({blocks.join(' and ')}) is recorded on each drop&apos;s order with your name and the reason.</p>
       <div>
         <label htmlFor={`${ids}-reason`} className="mb-1.5 block font-medium">
           Reason for sending out anyway

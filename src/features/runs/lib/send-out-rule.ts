@@ -31,9 +31,7 @@ export function sendOutState(run: RunForSendOut, today: string): SendOutState {
   if (run.date !== today) {
     blocks.push('not_today');
     reasons.push(
-      run.date > today
-        ? `Not before its day: this run is for ${formatDay(run.date)} and today is ${formatDay(today)}.`
-        : `Its day has passed: this run was for ${formatDay(run.date)} and today is ${formatDay(today)}.`,
+      run.date > today ? `Not before its day: this run is for ${formatDay(run.date)} and today is ${formatDay(today)}.` : `Its day has passed: this run was for ${formatDay(run.date)} and today is ${formatDay(today)}.`,
     );
   }
   const positions = run.deck.positions;

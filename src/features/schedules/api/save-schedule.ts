@@ -46,9 +46,7 @@ function useStoreSchedule<T>(projectId: number, store: (input: T) => Promise<Sch
 }
 
 export function useSaveSchedule(projectId: number) {
-  return useStoreSchedule(projectId, (input: { faces: readonly ScheduleRowInput[]; openings?: readonly OpeningRowInput[] }) =>
-    saveSchedule(projectId, input.faces, input.openings),
-  );
+  return useStoreSchedule(projectId, (input: { faces: readonly ScheduleRowInput[]; openings?: readonly OpeningRowInput[] }) => saveSchedule(projectId, input.faces, input.openings));
 }
 
 export function useUploadOpenings(projectId: number) {

@@ -23,11 +23,17 @@ const GUIDE: Record<ScheduleColumn, { need: string; meaning: string }> = {
   rafter_mm: { need: 'This or run_mm', meaning: 'Length up the slope from eaves to top edge, in millimetres. Needed for faces of 80° and steeper.' },
   run_mm: { need: 'This or rafter_mm', meaning: `Length of the rafter measured on plan, in millimetres. Given with rafter_mm, the two must agree with the pitch within ${SCHEDULE_LIMITS.rafterRunTolerance * 100} %.` },
   eaves_mm: { need: 'Required', meaning: 'Length of the eaves (the bottom edge), in millimetres.' },
-  top_mm: { need: 'Required beside a hip or valley', meaning: 'Length of the top edge in millimetres: 0 for a triangular hip end. Required on a face with a hip or valley edge; otherwise left blank, the same as the eaves. Between two verges it must equal the eaves.' },
+  top_mm: {
+    need: 'Required beside a hip or valley',
+    meaning: 'Length of the top edge in millimetres: 0 for a triangular hip end. Required on a face with a hip or valley edge; otherwise left blank, the same as the eaves. Between two verges it must equal the eaves.',
+  },
   left: { need: 'Optional (verge)', meaning: `The left-hand edge seen from the eaves: ${words(EDGE_KINDS)}.` },
   right: { need: 'Optional (verge)', meaning: `The right-hand edge seen from the eaves: ${words(EDGE_KINDS)}.` },
   top: { need: 'Optional (ridge)', meaning: `The top edge: ${words(TOP_KINDS)}.` },
-  ridge: { need: 'Optional', meaning: 'A name for the ridge line the top edge meets (e.g. Main), unique within the building: faces with the same name are loaded as one ridge. Left blank, faces are paired by equal top length.' },
+  ridge: {
+    need: 'Optional',
+    meaning: 'A name for the ridge line the top edge meets (e.g. Main), unique within the building: faces with the same name are loaded as one ridge. Left blank, faces are paired by equal top length.',
+  },
 };
 
 const rows: GuideRow[] = SCHEDULE_COLUMNS.map((column, i) => ({ column, letter: columnLetter(i), ...GUIDE[column] }));
@@ -53,8 +59,8 @@ export function ColumnGuide() {
     >
       <div className="mb-4 space-y-2 text-sm text-ink-700">
         <p>
-          The first row names the columns, in any order; case and spaces in the names do not matter. Lengths are millimetres: a figure
-          under {SCHEDULE_LIMITS.metresBelowMm} is taken as metres typed by mistake, and anything over {SCHEDULE_LIMITS.maxLengthMm / 1000} m as a unit slip.
+          The first row names the columns, in any order; case and spaces in the names do not matter. Lengths are millimetres: a figure under {SCHEDULE_LIMITS.metresBelowMm} is taken as metres typed by mistake, and
+          anything over {SCHEDULE_LIMITS.maxLengthMm / 1000} m as a unit slip.
         </p>
         <p>Columns the schedule does not know are ignored, with a note. Every problem is listed with its row (the header is row 1) and column.</p>
       </div>

@@ -40,24 +40,15 @@ export function CurrentSchedule({ projectId, readOnly }: CurrentScheduleProps) {
       ) : (
         <div className="space-y-4">
           <p className="text-sm text-ink-700">
-            Version {schedule.data.version} · {schedule.data.faces.length} {schedule.data.faces.length === 1 ? 'face' : 'faces'} ·{' '}
-            {sourceWords(schedule.data)} · {formatDateTime(schedule.data.created_at)}
+            Version {schedule.data.version} · {schedule.data.faces.length} {schedule.data.faces.length === 1 ? 'face' : 'faces'} · {sourceWords(schedule.data)} · {formatDateTime(schedule.data.created_at)}
           </p>
           <ScheduleFacesTable faces={schedule.data.faces} />
           {schedule.data.faces.some((f) => f.top_assumed) ? (
-            <p className="text-sm font-medium text-brick-700">
-              Some faces beside a hip or valley were stored without a top edge: their top was taken as the eaves. Edit the faces to give it.
-            </p>
+            <p className="text-sm font-medium text-brick-700">Some faces beside a hip or valley were stored without a top edge: their top was taken as the eaves. Edit the faces to give it.</p>
           ) : null}
           <section aria-label="Openings" className="space-y-2">
-            <h3 className="font-semibold">
-              Openings {schedule.data.openings.length > 0 ? `(${schedule.data.openings.length})` : ''}
-            </h3>
-            {schedule.data.openings.length > 0 ? (
-              <ScheduleOpeningsTable openings={schedule.data.openings} />
-            ) : (
-              <p className="text-sm text-ink-700">No roof windows, chimneys, dormers or hatches recorded.</p>
-            )}
+            <h3 className="font-semibold">Openings {schedule.data.openings.length > 0 ? `(${schedule.data.openings.length})` : ''}</h3>
+            {schedule.data.openings.length > 0 ? <ScheduleOpeningsTable openings={schedule.data.openings} /> : <p className="text-sm text-ink-700">No roof windows, chimneys, dormers or hatches recorded.</p>}
             {readOnly ? null : <OpeningsImport projectId={projectId} />}
           </section>
           <details className="rounded-md border border-mortar-300 px-4 py-2">

@@ -125,8 +125,7 @@ function blankRow(key: number, building = '1'): FaceRow {
   return { key, building, face: '', quantity: '1', pitch_deg: '', rafter_mm: '', run_mm: '', eaves_mm: '', top_mm: '', left: 'verge', right: 'verge', top: 'ridge', ridge: '', openings: [] };
 }
 
-const inputClasses = (error: string | undefined) =>
-  `block min-h-tap w-full rounded-md border bg-white px-2 ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`;
+const inputClasses = (error: string | undefined) => `block min-h-tap w-full rounded-md border bg-white px-2 ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`;
 
 /** The openings of one face: a small table typed row by row, named in the form by their place in the whole list. */
 function OpeningsFields({
@@ -361,9 +360,8 @@ export function FacesForm({ projectId, initial, initialOpenings = [], onSaved }:
   return (
     <Form form={form} label="Roof faces" className="space-y-4">
       <p className="text-sm text-ink-700">
-        Give rafter or run (or both, if they agree with the pitch; rafter alone from 80°). Give the top edge beside a hip or valley (0 for a
-        triangular hip end); leave it blank for a face as wide at the top as at the eaves. Faces with the same ridge name in a building are
-        loaded as one ridge. Saving stores a new version; the earlier ones are kept.
+        Give rafter or run (or both, if they agree with the pitch; rafter alone from 80°). Give the top edge beside a hip or valley (0 for a triangular hip end); leave it blank for a face as wide at the top as at the
+        eaves. Faces with the same ridge name in a building are loaded as one ridge. Saving stores a new version; the earlier ones are kept.
       </p>
       {rows.map((row, index) => (
         <FaceFields
@@ -379,11 +377,7 @@ export function FacesForm({ projectId, initial, initialOpenings = [], onSaved }:
         />
       ))}
       <div className="flex flex-wrap gap-3">
-        <Button
-          variant="secondary"
-          disabled={rows.length >= MAX_SCHEDULE_FACES}
-          onClick={() => setRows((list) => [...list, blankRow(nextKey.current++, list[list.length - 1]?.building ?? '1')])}
-        >
+        <Button variant="secondary" disabled={rows.length >= MAX_SCHEDULE_FACES} onClick={() => setRows((list) => [...list, blankRow(nextKey.current++, list[list.length - 1]?.building ?? '1')])}>
           Add a face
         </Button>
         <SubmitButton size="lg">Save as a new version</SubmitButton>

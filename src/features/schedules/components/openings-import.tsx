@@ -60,10 +60,14 @@ export function OpeningsImport({ projectId, onImported }: { projectId: number; o
         </a>
       </div>
       <p className="text-sm text-ink-600">
-        Columns: building, face, kind (roof_window, chimney, dormer or hatch), width_mm across the slope, height_mm up the slope, quantity
-        (1 if blank). The openings replace those of the current version; the faces stay as they are.
+        Columns: building, face, kind (roof_window, chimney, dormer or hatch), width_mm across the slope, height_mm up the slope, quantity (1 if blank). The openings replace those of the current version; the faces stay
+        as they are.
       </p>
-      {problem ? <Alert tone="danger" title="This file cannot be read">{problem}</Alert> : null}
+      {problem ? (
+        <Alert tone="danger" title="This file cannot be read">
+          {problem}
+        </Alert>
+      ) : null}
       {stored ? (
         <Alert tone="success" title={`Version ${stored.version} stored`}>
           {stored.openings.length} {stored.openings.length === 1 ? 'opening' : 'openings'} in {stored.faces.length} faces.

@@ -42,30 +42,10 @@ const openingColumns = openingHelper.columns([
 
 /** The openings of one stored schedule version: each is in every copy of its face. */
 export function ScheduleOpeningsTable({ openings }: { openings: readonly StoredOpening[] }) {
-  return (
-    <DataTable
-      caption="Openings"
-      captionHidden
-      columns={openingColumns}
-      data={openings}
-      getRowId={(o) => String(o.id)}
-      initialSorting={[{ id: 'building', desc: false }]}
-      minWidthClass="min-w-[36rem]"
-    />
-  );
+  return <DataTable caption="Openings" captionHidden columns={openingColumns} data={openings} getRowId={(o) => String(o.id)} initialSorting={[{ id: 'building', desc: false }]} minWidthClass="min-w-[36rem]" />;
 }
 
 /** The faces of one stored schedule version, as the engine reads them (rafter worked out from run where needed). */
 export function ScheduleFacesTable({ faces, caption = 'Roof faces' }: { faces: readonly StoredFace[]; caption?: string }) {
-  return (
-    <DataTable
-      caption={caption}
-      captionHidden
-      columns={columns}
-      data={faces}
-      getRowId={(face) => String(face.id)}
-      initialSorting={[{ id: 'position', desc: false }]}
-      minWidthClass="min-w-[50rem]"
-    />
-  );
+  return <DataTable caption={caption} captionHidden columns={columns} data={faces} getRowId={(face) => String(face.id)} initialSorting={[{ id: 'position', desc: false }]} minWidthClass="min-w-[50rem]" />;
 }

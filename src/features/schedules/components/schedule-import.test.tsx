@@ -101,7 +101,10 @@ describe('ScheduleImport', () => {
     const onImported = vi.fn();
     stubFetch({
       'GET /api/auth/csrf': { status: 200, body: { token: 'csrf' } },
-      'POST /api/projects/4/schedule': { status: 201, body: storedSchedule([{ building: 'Birch', face: 'Porch', quantity: 8, pitch_deg: 25, rafter_mm: 1800, run_mm: 1631.4, eaves_mm: 2400, top_mm: 2400, left: 'verge', right: 'verge', top: 'abutment' }]) },
+      'POST /api/projects/4/schedule': {
+        status: 201,
+        body: storedSchedule([{ building: 'Birch', face: 'Porch', quantity: 8, pitch_deg: 25, rafter_mm: 1800, run_mm: 1631.4, eaves_mm: 2400, top_mm: 2400, left: 'verge', right: 'verge', top: 'abutment' }]),
+      },
     });
     renderWithProviders(<ScheduleImport projectId={4} onImported={onImported} />);
     chooseFile(['building,face,quantity,pitch_deg,rafter_mm,eaves_mm,top', 'Birch,Porch,8,25,1800,2400,abutment'].join('\n'));

@@ -130,12 +130,15 @@ export function ScheduleImport({ projectId, onImported }: ScheduleImportProps) {
 
   function upload() {
     if (!check?.ok || !grid || !loaded) return;
-    save.mutate({ csv: gridToCsv(grid), filename: loaded.name }, {
-      onSuccess: (schedule) => onImported(schedule),
-      onError: (error) => {
-        if (isApiError(error) && error.code === 'invalid_schedule') setServerProblems(serverProblemsOnGrid(error.details, grid));
+    save.mutate(
+      { csv: gridToCsv(grid), filename: loaded.name },
+      {
+        onSuccess: (schedule) => onImported(schedule),
+        onError: (error) => {
+          if (isApiError(error) && error.code === 'invalid_schedule') setServerProblems(serverProblemsOnGrid(error.details, grid));
+        },
       },
-    });
+    );
   }
 
   return (
@@ -167,9 +170,7 @@ export function ScheduleImport({ projectId, onImported }: ScheduleImportProps) {
               }}
             />
           </label>
-          <p className="mt-3 text-sm text-ink-600">
-            One row per roof face, lengths in millimetres. Save from the spreadsheet as “CSV UTF-8”; comma, semicolon or tab separated.
-          </p>
+          <p className="mt-3 text-sm text-ink-600">One row per roof face, lengths in millimetres. Save from the spreadsheet as “CSV UTF-8”; comma, semicolon or tab separated.</p>
         </div>
         {reading ? (
           <div className="mt-4">
@@ -200,12 +201,8 @@ export function ScheduleImport({ projectId, onImported }: ScheduleImportProps) {
             </Button>
             <p className="text-sm text-ink-600">The server checks the faces again and stores all of them as a new version, or none.</p>
           </div>
-          {save.isError && !(isApiError(save.error) && save.error.code === 'invalid_schedule') ? (
-            <ErrorAlert className="mt-4" error={save.error} title="The schedule was not stored" />
-          ) : null}
-          {serverProblems ? (
-            <ErrorAlert className="mt-4" error={save.error} title="The server refused the schedule; the cells it named are marked above" />
-          ) : null}
+          {save.isError && !(isApiError(save.error) && save.error.code === 'invalid_schedule') ? <ErrorAlert className="mt-4" error={save.error} title="The schedule was not stored" /> : null}
+          {serverProblems ? <ErrorAlert className="mt-4" error={save.error} title="The server refused the schedule; the cells it named are marked above" /> : null}
         </Card>
       ) : null}
     </div>

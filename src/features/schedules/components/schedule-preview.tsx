@@ -165,10 +165,7 @@ export function SchedulePreview({ grid, check, checking, onCellChange }: Schedul
   }, [grid.rows.length, onlyProblems, problemRows, listedRows]);
   const pages = Math.max(1, Math.ceil(dataRows.length / PAGE_ROWS));
   const shownPage = Math.min(page, pages - 1);
-  const visible: PreviewRow[] = useMemo(
-    () => [{ row: 1 }, ...dataRows.slice(shownPage * PAGE_ROWS, (shownPage + 1) * PAGE_ROWS).map((row) => ({ row }))],
-    [dataRows, shownPage],
-  );
+  const visible: PreviewRow[] = useMemo(() => [{ row: 1 }, ...dataRows.slice(shownPage * PAGE_ROWS, (shownPage + 1) * PAGE_ROWS).map((row) => ({ row }))], [dataRows, shownPage]);
 
   // Each "go to" focuses its cell once, after the page that shows the cell is on the screen.
   const focusedTarget = useRef<typeof focusTarget>(null);

@@ -5,7 +5,4 @@ export interface WorkerRequest {
   file: File;
 }
 
-export type WorkerAnswer =
-  | { type: 'progress'; fraction: number }
-  | { type: 'done'; grid: CsvGrid; check: GridCheck }
-  | { type: 'failed'; message: string };
+export type WorkerAnswer = { type: 'progress'; fraction: number } | { type: 'done'; grid: CsvGrid; check: GridCheck } | { type: 'failed'; message: string };

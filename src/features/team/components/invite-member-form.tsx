@@ -34,20 +34,11 @@ export function InviteMemberForm({ assignableRoles }: InviteMemberFormProps) {
       <Form form={form} label="Invite someone" className="space-y-4">
         <TextField name="email" label="E-mail" type="email" autoComplete="off" inputMode="email" />
         <div className="flex flex-wrap items-end gap-3">
-          <SelectField
-            name="role"
-            label="Role"
-            className="min-w-48 flex-1"
-            defaultValue={defaultRole(assignableRoles)}
-            options={assignableRoles.map((role) => ({ value: role, label: ROLE_LABELS[role] }))}
-          />
+          <SelectField name="role" label="Role" className="min-w-48 flex-1" defaultValue={defaultRole(assignableRoles)} options={assignableRoles.map((role) => ({ value: role, label: ROLE_LABELS[role] }))} />
           <SubmitButton>Send invitation</SubmitButton>
         </div>
       </Form>
-      <p className="mt-3 text-sm text-ink-600">
-        They get an e-mail with a link that works once. Until they accept, the invitation is listed under pending
-        invitations and can be withdrawn.
-      </p>
+      <p className="mt-3 text-sm text-ink-600">They get an e-mail with a link that works once. Until they accept, the invitation is listed under pending invitations and can be withdrawn.</p>
     </Card>
   );
 }

@@ -133,8 +133,7 @@ export function MembersTable({ members, currentUserId, canManage, assignableRole
           id: 'role',
           header: 'Role',
           sortFn: 'text',
-          cell: (info) =>
-            canManage ? <RoleEditor member={info.row.original} assignableRoles={assignableRoles} /> : info.getValue(),
+          cell: (info) => (canManage ? <RoleEditor member={info.row.original} assignableRoles={assignableRoles} /> : info.getValue()),
         }),
         helper.accessor('created_at', {
           header: 'Member since',
@@ -154,14 +153,5 @@ export function MembersTable({ members, currentUserId, canManage, assignableRole
     [canManage, currentUserId, assignableRoles],
   );
 
-  return (
-    <DataTable
-      caption="Members"
-      captionHidden
-      columns={columns}
-      data={members}
-      getRowId={(member) => String(member.id)}
-      initialSorting={[{ id: 'name', desc: false }]}
-    />
-  );
+  return <DataTable caption="Members" captionHidden columns={columns} data={members} getRowId={(member) => String(member.id)} initialSorting={[{ id: 'name', desc: false }]} />;
 }

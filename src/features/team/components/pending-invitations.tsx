@@ -63,11 +63,7 @@ export function PendingInvitations() {
       {invitations.isPending ? (
         <SkeletonBlock label="Loading the invitations" lines={2} />
       ) : invitations.isError ? (
-        <ErrorAlert
-          error={invitations.error}
-          title="The invitations could not be loaded"
-          onRetry={() => void invitations.refetch()}
-        />
+        <ErrorAlert error={invitations.error} title="The invitations could not be loaded" onRetry={() => void invitations.refetch()} />
       ) : invitations.data.length === 0 ? (
         <EmptyState title="No invitations waiting">Everyone you invited has joined, or nobody is invited yet.</EmptyState>
       ) : (

@@ -24,7 +24,11 @@ describe('TeamMembersSection', () => {
     stubFetch({ 'GET /api/members': { status: 200, body: { members } } });
     renderWithProviders(<TeamMembersSection currentUserId={1} canManage assignableRoles={ROLES_BY_KIND.contractor} />);
     const select = await screen.findByLabelText('Role of Ana Brettle');
-    expect(within(select).getAllByRole('option').map((option) => option.textContent)).toEqual(['Contractor owner', 'Estimator']);
+    expect(
+      within(select)
+        .getAllByRole('option')
+        .map((option) => option.textContent),
+    ).toEqual(['Contractor owner', 'Estimator']);
     expect(screen.getByRole('button', { name: 'Remove Ana Brettle' })).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Remove Wyn Kestle' })).toBeNull();
   });

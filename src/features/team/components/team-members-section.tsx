@@ -23,12 +23,7 @@ export function TeamMembersSection({ currentUserId, canManage, assignableRoles }
       ) : members.data.length === 0 ? (
         <EmptyState title="No members yet" />
       ) : (
-        <MembersTable
-          members={members.data}
-          currentUserId={currentUserId}
-          canManage={canManage}
-          assignableRoles={assignableRoles}
-        />
+        <MembersTable members={members.data} currentUserId={currentUserId} canManage={canManage} assignableRoles={assignableRoles} />
       )}
     </Card>
   );

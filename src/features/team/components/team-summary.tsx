@@ -25,9 +25,7 @@ export function TeamSummary({ footer, limit = 6 }: TeamSummaryProps) {
         <EmptyState title="Nobody here yet" />
       ) : (
         <>
-          <p className="mb-3 text-sm text-ink-600">
-            {members.data.length === 1 ? '1 person' : `${members.data.length} people`} in the organisation
-          </p>
+          <p className="mb-3 text-sm text-ink-600">{members.data.length === 1 ? '1 person' : `${members.data.length} people`} in the organisation</p>
           <ul className="divide-y divide-mortar-200">
             {[...members.data]
               .sort((a, b) => a.name.localeCompare(b.name))
