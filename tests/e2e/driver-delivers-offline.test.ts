@@ -1,27 +1,9 @@
-import type { Browser } from 'playwright-core';
 import sharp from 'sharp';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, watchConsole } from '../setup/browser';
-import { pageApi, signInPage } from '../setup/e2e-pages';
-import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+import { describe, expect, it } from 'vitest';
+import { pageApi } from '../setup/e2e-pages';
+import { expectAccessible, useJourney } from './harness';
 
-let server: E2eServer;
-let browser: Browser;
-let consoleProblems: ReturnType<typeof watchConsole>;
-// No page a journey visits may log an error or throw (a failed request shows as a console error too).
-afterEach(() => {
-  expect(consoleProblems.take()).toEqual([]);
-});
-
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  consoleProblems = watchConsole(browser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const journey = useJourney();
 
 // The demo seed sends the crane lorry's afternoon run of today out with Kofi Brennagh driving it: one
 // ground drop for Brackenfold Roofworks (PO HB-P02), on the road and not yet delivered.
@@ -48,7 +30,7 @@ describe('the driver records a delivery without signal, and the contractor sees 
   it('on a phone the driver reads the cautions, opens the drop, records it offline with a signature and a photo, sees it wait, and sees it sent when the signal returns', async () => {
     const photo = await sitePhoto();
     expect((await sharp(photo).metadata()).format).toBe('jpeg');
-    const phone = await browser.newContext({
+    const phone = await journey.browser.newContext({
       viewport: { width: 390, height: 844 },
       deviceScaleFactor: 3,
       isMobile: true,
@@ -56,10 +38,10 @@ describe('the driver records a delivery without signal, and the contractor sees 
       geolocation: { latitude: 53.4871, longitude: -2.0858, accuracy: 12 },
       permissions: ['geolocation'],
     });
-    const contractorContext = await browser.newContext();
+    const contractorContext = await journey.browser.newContext();
     try {
       const driver = await phone.newPage();
-      await signInPage(driver, server.url, 'driver@demo.test', /\/driver$/);
+      await journey.signIn(driver, 'driver@demo.test', /\/driver$/);
 
       // Today's runs, from the firm's calendar: the afternoon crane run with its one drop, to deliver.
       const day = await pageApi<DriverDayJson>(driver, 'GET', '/api/driver/runs');
@@ -72,6 +54,7 @@ describe('the driver records a delivery without signal, and the contractor sees 
       // The cautions once for the run, each line shown, then folded once read.
       const cautions = runSection.getByTestId('run-cautions');
       await cautions.waitFor();
+      await expectAccessible(driver);
       expect(await cautions.getByRole('listitem').count()).toBe(run.cautions.length);
       expect(await cautions.innerText()).toMatch(/work at height/i);
       await cautions.getByRole('button', { name: 'I have read these' }).click();
@@ -93,6 +76,7 @@ describe('the driver records a delivery without signal, and the contractor sees 
       await firstFace.getByText(/^Show the stacks on /).click();
       const faceDrawing = firstFace.getByTestId('face-drawing');
       await faceDrawing.waitFor();
+      await expectAccessible(driver);
       expect(await faceDrawing.locator('[data-testid="stack"]').count()).toBeGreaterThan(0);
       expect(await faceDrawing.locator('[data-testid="loading-batten"]').count()).toBeGreaterThan(0);
       expect(await firstFace.innerText()).toMatch(/Stacks of 6 on every 2nd batten from the top, \d+ stacks on this face; load both slopes in step\./);
@@ -119,9 +103,10 @@ describe('the driver records a delivery without signal, and the contractor sees 
       await driver.mouse.up();
       await form.getByText('Signed. Clear it to sign again.').waitFor();
       await form.getByLabel('Take a photo').setInputFiles({ name: 'set-down.jpg', mimeType: 'image/jpeg', buffer: photo });
-      await form.getByRole('img', { name: 'Photo 1' }).waitFor();
+      await form.getByRole('img', { name: 'Taken on site, 1 of 1' }).waitFor();
       await form.getByLabel(/^Note/).fill('Set down on the hardstanding by the site cabin.');
       await form.getByText(/^Add where I am/).waitFor();
+      await expectAccessible(driver);
       await form.getByRole('button', { name: 'Delivered' }).click();
 
       // Kept on the phone, waiting for signal.
@@ -131,10 +116,10 @@ describe('the driver records a delivery without signal, and the contractor sees 
       expect(await waiting.getByTestId('waiting-entry').innerText()).toContain(`Delivery of ${drop.reference} at ${drop.site.name}, taken by ${RECEIVER} (signature, 1 photo)`);
       await card.getByText('Recorded, waiting to send', { exact: true }).waitFor();
       // Nothing reached the server yet.
-      const [{ count: before }] = await server.db('delivery_proofs').where({ order_id: drop.order_id }).count({ count: '*' });
+      const [{ count: before }] = await journey.server.db('delivery_proofs').where({ order_id: drop.order_id }).count({ count: '*' });
       expect(Number(before)).toBe(0);
       // The page's failed tries while offline are the story, not a fault: only those may be logged.
-      const offlineLogs = consoleProblems.take();
+      const offlineLogs = journey.consoleProblems.take();
       expect(offlineLogs.filter((p) => !/ERR_INTERNET_DISCONNECTED|Failed to fetch|NetworkError/.test(p.text))).toEqual([]);
 
       // Signal again: it is sent by itself, once, and the drop shows delivered.
@@ -142,20 +127,21 @@ describe('the driver records a delivery without signal, and the contractor sees 
       await driver.getByText('Everything recorded on this phone has been sent.').waitFor({ timeout: 30_000 });
       expect(await driver.getByRole('region', { name: /^Waiting to send/ }).count()).toBe(0);
       await card.getByText('Delivered', { exact: true }).first().waitFor();
-      const proofs = await server.db('delivery_proofs').where({ order_id: drop.order_id }).select('receiver_name');
+      const proofs = await journey.server.db('delivery_proofs').where({ order_id: drop.order_id }).select('receiver_name');
       expect(proofs.map((p: { receiver_name: string }) => p.receiver_name)).toEqual([RECEIVER]);
-      const files = await server.db('delivery_files').join('delivery_proofs', 'delivery_proofs.id', 'delivery_files.proof_id').where('delivery_proofs.order_id', drop.order_id).select('kind', 'content_type');
+      const files = await journey.server.db('delivery_files').join('delivery_proofs', 'delivery_proofs.id', 'delivery_files.proof_id').where('delivery_proofs.order_id', drop.order_id).select('kind', 'content_type');
       expect(files.map((f: { kind: string }) => f.kind).sort()).toEqual(['photo', 'signature']);
 
       // The contractor opens the order and sees who took it, the signature and the photo.
       const contractor = await contractorContext.newPage();
-      await signInPage(contractor, server.url, 'estimator@demo.test', /\/contractor$/);
-      await contractor.goto(`${server.url}/orders/${drop.order_id}`);
+      await journey.signIn(contractor, 'estimator@demo.test', /\/contractor$/);
+      await contractor.goto(`${journey.server.url}/orders/${drop.order_id}`);
       await contractor.getByRole('heading', { name: 'Proof of delivery' }).waitFor();
       await contractor.getByText(RECEIVER, { exact: true }).waitFor();
       await contractor.getByText('Set down on the hardstanding by the site cabin.').waitFor();
       const signature = contractor.getByRole('img', { name: `Signature of ${RECEIVER}` });
       await signature.waitFor();
+      await expectAccessible(contractor);
       const thumbnail = contractor.getByRole('list', { name: 'Delivery photos' }).getByRole('img');
       expect(await thumbnail.count()).toBe(1);
       // Both pictures really load (a broken image has no natural width).

@@ -1,28 +1,11 @@
 import { PDFParse } from 'pdf-parse';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { BusinessCalendar, DEFAULT_BUSINESS_TIME_ZONE } from '../../shared/domain/business-calendar';
-import { launchBrowser, watchConsole } from '../setup/browser';
-import { pageApi, signInPage } from '../setup/e2e-pages';
-import { startE2eServer, type E2eServer } from '../setup/e2e-server';
+import { pageApi } from '../setup/e2e-pages';
+import { expectAccessible, useJourney } from './harness';
 
-let server: E2eServer;
-let browser: Browser;
-let consoleProblems: ReturnType<typeof watchConsole>;
-// No page a journey visits may log an error or throw (a failed request shows as a console error too).
-afterEach(() => {
-  expect(consoleProblems.take()).toEqual([]);
-});
-
-beforeAll(async () => {
-  server = await startE2eServer();
-  browser = await launchBrowser();
-  consoleProblems = watchConsole(browser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const journey = useJourney();
 
 // The demo seed books two drops on the tail-lift lorry's afternoon run of today (the firm's calendar):
 // Wrenhallow's plain tiles (PO FR-CL-3) first, their pallets ticked loaded, and Brackenfold's felt and battens
@@ -49,10 +32,10 @@ const dropRefs = async (page: Page) =>
 describe('the yard builds today’s load and sends the lorry out by the rule', () => {
   it('the dispatcher opens today’s run, swaps its drops with the arrow buttons, ticks every pallet loaded, prints the labels and sends it out without an override', async () => {
     const today = new BusinessCalendar(process.env.BUSINESS_TIME_ZONE ?? DEFAULT_BUSINESS_TIME_ZONE).today();
-    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const context = await journey.browser.newContext({ viewport: { width: 1440, height: 900 } });
     try {
       const yard = await context.newPage();
-      await signInPage(yard, server.url, 'dispatch@demo.test', /\/yard$/);
+      await journey.signIn(yard, 'dispatch@demo.test', /\/yard$/);
 
       // The day plan opens on today, and today's afternoon run of the tail-lift lorry is on it.
       const dayPlan = yard.getByRole('region', { name: 'Runs of the day' });
@@ -60,6 +43,7 @@ describe('the yard builds today’s load and sends the lorry out by the rule', (
       await yard.getByLabel('Branch', { exact: true }).selectOption({ label: 'Tollerbeck Yard, Tollerbeck' });
       const card = dayPlan.getByRole('listitem', { name: `${AFTERNOON} · ${REGISTRATION}` });
       await card.waitFor();
+      await expectAccessible(yard);
       expect(await card.getByRole('list', { name: `Drops of ${AFTERNOON} · ${REGISTRATION}, the first off first` }).innerText()).toMatch(/^1\. RL-\d+ · Wrenhallow[\s\S]*\n2\. RL-\d+ · Brackenfold/);
       await card.getByRole('link', { name: `Open the run ${AFTERNOON} · ${REGISTRATION}` }).click();
       await yard.waitForURL(/\/yard\/runs\/\d+$/);
@@ -75,6 +59,7 @@ describe('the yard builds today’s load and sends the lorry out by the rule', (
       expect(await why.innerText()).toMatch(/not ticked loaded/);
       expect(await why.innerText()).not.toMatch(/Not before its day/);
       expect(await yard.getByRole('button', { name: `Send out ${REGISTRATION}` }).count()).toBe(0);
+      await expectAccessible(yard);
 
       // The felt and battens go first off with its up arrow (a keyboard press on the button); the order holds after a reload.
       await expect.poll(() => dropRefs(yard)).toEqual([TILES, BATTENS]);
@@ -115,7 +100,7 @@ describe('the yard builds today’s load and sends the lorry out by the rule', (
       const labelsLink = yard.getByRole('group', { name: 'Print' }).getByRole('link', { name: 'Pallet labels (PDF)' });
       const href = await labelsLink.getAttribute('href');
       expect(href).toBe(`/api/runs/${runId}/labels.pdf`);
-      const labels = await context.request.get(`${server.url}${href}`);
+      const labels = await context.request.get(`${journey.server.url}${href}`);
       expect(labels.status()).toBe(200);
       expect(labels.headers()['content-type']).toMatch(/^application\/pdf/);
       const pdf = await labels.body();
