@@ -145,8 +145,8 @@ describe('the driver records a delivery without signal, and the contractor sees 
       const thumbnail = contractor.getByRole('list', { name: 'Delivery photos' }).getByRole('img');
       expect(await thumbnail.count()).toBe(1);
       // Both pictures really load (a broken image has no natural width).
-      await expect.poll(() => signature.evaluate((img) => imageLoaded(img))).toBeGreaterThan(0);
-      await expect.poll(() => thumbnail.evaluate((img) => imageLoaded(img))).toBeGreaterThan(0);
+      await expect.poll(() => signature.evaluate(imageLoaded)).toBeGreaterThan(0);
+      await expect.poll(() => thumbnail.evaluate(imageLoaded)).toBeGreaterThan(0);
       expect(await contractor.getByText(/^53\.4871\d, -2\.0858\d/).count()).toBe(1);
     } finally {
       await phone.close();
