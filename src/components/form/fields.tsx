@@ -89,6 +89,20 @@ function useRegistered<E>(name: string, handlers: { onChange?: (event: E) => voi
   return { form, registered: form.register(name, options), error: form.fieldError(name), ids: fieldIds(form, name) };
 }
 
+/** The frame every text-like field shares: its label, its hint, the control, then its error. */
+function FieldFrame({ ids, label, hint, error, className, children }: { ids: { input: string; hint: string; error: string }; label: string; hint?: ReactNode; error?: string; className: string; children: ReactNode }) {
+  return (
+    <div className={className}>
+      <label htmlFor={ids.input} className="mb-1.5 block font-medium text-ink-900">
+        {label}
+      </label>
+      {hint ? <FieldHint id={ids.hint}>{hint}</FieldHint> : null}
+      {children}
+      {error ? <FieldMessage id={ids.error}>{error}</FieldMessage> : null}
+    </div>
+  );
+}
+
 interface TextFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'name' | 'id'> {
   name: string;
   label: string;
@@ -98,11 +112,7 @@ interface TextFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'na
 export function TextField({ name, label, hint, type = 'text', className = '', onChange, onBlur, ...rest }: TextFieldProps) {
   const { registered, error, ids } = useRegistered(name, { onChange, onBlur });
   return (
-    <div className={className}>
-      <label htmlFor={ids.input} className="mb-1.5 block font-medium text-ink-900">
-        {label}
-      </label>
-      {hint ? <FieldHint id={ids.hint}>{hint}</FieldHint> : null}
+    <FieldFrame ids={ids} label={label} hint={hint} error={error} className={className}>
       <input
         id={ids.input}
         type={type}
@@ -112,8 +122,7 @@ export function TextField({ name, label, hint, type = 'text', className = '', on
         {...rest}
         {...registered}
       />
-      {error ? <FieldMessage id={ids.error}>{error}</FieldMessage> : null}
-    </div>
+    </FieldFrame>
   );
 }
 
@@ -126,11 +135,7 @@ interface TextAreaFieldProps extends Omit<TextareaHTMLAttributes<HTMLTextAreaEle
 export function TextAreaField({ name, label, hint, className = '', rows = 3, onChange, onBlur, ...rest }: TextAreaFieldProps) {
   const { registered, error, ids } = useRegistered(name, { onChange, onBlur });
   return (
-    <div className={className}>
-      <label htmlFor={ids.input} className="mb-1.5 block font-medium text-ink-900">
-        {label}
-      </label>
-      {hint ? <FieldHint id={ids.hint}>{hint}</FieldHint> : null}
+    <FieldFrame ids={ids} label={label} hint={hint} error={error} className={className}>
       <textarea
         id={ids.input}
         rows={rows}
@@ -140,8 +145,7 @@ export function TextAreaField({ name, label, hint, className = '', rows = 3, onC
         {...rest}
         {...registered}
       />
-      {error ? <FieldMessage id={ids.error}>{error}</FieldMessage> : null}
-    </div>
+    </FieldFrame>
   );
 }
 
@@ -161,11 +165,7 @@ interface SelectFieldProps extends Omit<SelectHTMLAttributes<HTMLSelectElement>,
 export function SelectField({ name, label, options, hint, className = '', onChange, onBlur, ...rest }: SelectFieldProps) {
   const { registered, error, ids } = useRegistered(name, { onChange, onBlur });
   return (
-    <div className={className}>
-      <label htmlFor={ids.input} className="mb-1.5 block font-medium text-ink-900">
-        {label}
-      </label>
-      {hint ? <FieldHint id={ids.hint}>{hint}</FieldHint> : null}
+    <FieldFrame ids={ids} label={label} hint={hint} error={error} className={className}>
       <select
         id={ids.input}
         aria-invalid={error ? true : undefined}
@@ -180,8 +180,7 @@ export function SelectField({ name, label, options, hint, className = '', onChan
           </option>
         ))}
       </select>
-      {error ? <FieldMessage id={ids.error}>{error}</FieldMessage> : null}
-    </div>
+    </FieldFrame>
   );
 }
 
