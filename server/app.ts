@@ -5,15 +5,15 @@ import session from 'express-session';
 import helmet from 'helmet';
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import { pinoHttp } from 'pino-http';
 import { clientAssets } from './http/client-assets';
 import { CLIENT_DIR } from './paths';
 import type { AppDeps } from './app-deps';
 import { csrfProtection } from './auth/csrf';
-import { SessionStore } from './auth/session-store';
+import { SessionStore, userReadWithSession } from './auth/session-store';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { fromLoopback } from './http/loopback';
 import { idempotency } from './http/idempotency';
+import { requestLog } from './http/request-log';
 import { authRoutes } from './modules/auth/auth.routes';
 import { authService } from './modules/auth/auth.service';
 import { catalogueRoutes } from './modules/catalogue/catalogue.routes';
@@ -77,16 +77,7 @@ export function createApp(deps: AppDeps): Express {
       },
     }),
   );
-  app.use(
-    pinoHttp({
-      logger,
-      autoLogging: { ignore: (req) => req.url === '/api/health' },
-      serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
-        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
-      },
-    }),
-  );
+  app.use(requestLog(logger, (url) => url === '/api/health'));
 
   const auth = authService(deps);
   const members = membersService(deps);
@@ -99,7 +90,10 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  passport.deserializeUser((id: number, done) => {
+  passport.deserializeUser((req: express.Request, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
+    // Usually read in the same query as the session (session-store.ts); otherwise read here.
+    const read = userReadWithSession(req, id);
+    if (read !== undefined) return done(null, read ?? false);
     users.findAuthUser(id).then((u) => done(null, u ?? false), done);
   });
 

@@ -1,7 +1,8 @@
+import type { Request } from 'express';
 import type { SessionData } from 'express-session';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createDb, type Db } from '../db/knex';
-import { SessionStore } from './session-store';
+import { createDb, migrateLatest, type Db } from '../db/knex';
+import { SessionStore, userReadWithSession } from './session-store';
 
 let db: Db;
 let store: SessionStore;
@@ -80,5 +81,63 @@ describe('the session store', () => {
     await reading;
     expect(await stored('h')).toBeUndefined();
     expect(await new Promise((r) => void restarted.get('h', (_e, s) => r(s)))).toBeNull();
+  });
+});
+
+describe('the person read with the session', () => {
+  let app: Db;
+  let appStore: SessionStore;
+  let userId: number;
+  beforeAll(async () => {
+    app = createDb(':memory:');
+    await migrateLatest(app);
+    appStore = new SessionStore(app);
+    await new Promise<void>((resolve) => void appStore.length(() => resolve()));
+    const now = new Date().toISOString();
+    const [org] = await app('organisations').insert({ name: 'Harlow Vale Tiles', kind: 'merchant', created_at: now }).returning('id');
+    const [user] = await app('users')
+      .insert({ organisation_id: (org as { id: number }).id, email: 'desk@harlowvale.test', name: 'Ada Brook', role: 'merchant_sales', password_hash: 'x', created_at: now })
+      .returning('id');
+    userId = (user as { id: number }).id;
+  });
+  afterAll(async () => app.destroy());
+
+  /** What express-session does with a stored session on a request: get() it, then createSession() on the request. */
+  async function request(sid: string) {
+    const req = {} as Request;
+    const data = await new Promise<SessionData | null | undefined>((resolve, reject) => void appStore.get(sid, (err, s) => (err ? reject(err) : resolve(s))));
+    if (data) appStore.createSession(req, data);
+    return { req, data };
+  }
+
+  it('comes from the same read as the session, with the organisation, and is never stored in it', async () => {
+    await appStore.set('p1', session(userId));
+    const { req, data } = await request('p1');
+    expect(userReadWithSession(req, userId)).toEqual({
+      id: userId,
+      email: 'desk@harlowvale.test',
+      name: 'Ada Brook',
+      role: 'merchant_sales',
+      organisation: { id: expect.any(Number), name: 'Harlow Vale Tiles', kind: 'merchant' },
+    });
+    expect(Object.keys(JSON.parse(JSON.stringify(data)) as object).sort()).toEqual(['cookie', 'passport']);
+    await appStore.set('p1', data!);
+    expect(Object.keys(JSON.parse((await app('sessions').where({ sid: 'p1' }).first()).sess as string) as object).sort()).toEqual(['cookie', 'passport']);
+  });
+
+  it('sees a role change and a removal at the next request', async () => {
+    await appStore.set('p2', session(userId));
+    await app('users').where({ id: userId }).update({ role: 'merchant_owner' });
+    expect(userReadWithSession((await request('p2')).req, userId)?.role).toBe('merchant_owner');
+    await app('users').where({ id: userId }).delete();
+    expect(userReadWithSession((await request('p2')).req, userId)).toBeNull();
+  });
+
+  it('is not there for a request whose session signs nobody in, or for another id', async () => {
+    await appStore.set('p3', { cookie: session(1).cookie } as SessionData);
+    expect(userReadWithSession((await request('p3')).req, userId)).toBeUndefined();
+    await appStore.set('p4', session(userId));
+    expect(userReadWithSession((await request('p4')).req, userId + 1)).toBeUndefined();
+    expect(userReadWithSession({} as Request, userId)).toBeUndefined();
   });
 });

@@ -1,6 +1,9 @@
 import { ConnectSessionKnexStore } from 'connect-session-knex';
-import type { SessionData } from 'express-session';
+import type { Request } from 'express';
+import type { Session, SessionData } from 'express-session';
 import { LRUCache } from 'lru-cache';
+import type { OrganisationKind, Role } from '../../shared/domain/roles';
+import type { AuthUser } from './auth-user';
 import { dialectOf, jsonTextSql } from '../db/dialect';
 import { peekRow, type Db } from '../db/knex';
 
@@ -8,12 +11,53 @@ const TOUCH_EVERY_MS = 5 * 60_000;
 const WRITTEN_AT_ENTRIES = 10_000;
 const STORED_EXPIRY_MARGIN_MS = 60 * 60_000;
 
+const USER_COLUMNS = 'u.id as user_id, u.email, u.name, u.role, o.id as org_id, o.name as org_name, o.kind as org_kind';
+/** The session and the person it signs in, in one read (the user id sits in the session's JSON). */
+const SESSION_WITH_USER_SQL = {
+  sqlite: `select s.sess, json_extract(s.sess, '$.passport.user') as signed_in, ${USER_COLUMNS} from sessions s
+    left join users u on u.id = json_extract(s.sess, '$.passport.user') left join organisations o on o.id = u.organisation_id
+    where s.sid = ? and datetime(?) <= datetime(s.expired)`,
+  postgres: `select s.sess, s.sess #>> '{passport,user}' as signed_in, ${USER_COLUMNS} from sessions s
+    left join users u on u.id = case when (s.sess #>> '{passport,user}') ~ '^[0-9]{1,15}$' then (s.sess #>> '{passport,user}')::bigint end
+    left join organisations o on o.id = u.organisation_id
+    where s.sid = ? and cast(? as timestamp with time zone) <= s.expired`,
+};
+
+interface SessionWithUserRow {
+  sess: string | SessionData;
+  signed_in: number | string | null;
+  user_id: number | null;
+  email: string;
+  name: string;
+  role: Role;
+  org_id: number;
+  org_name: string;
+  org_kind: OrganisationKind;
+}
+
+/** The user read with a session, carried from the store's read to passport's on the same request. */
+const USER_READ_WITH_SESSION = Symbol('userReadWithSession');
+type UserReadWithSession = { id: number; user: AuthUser | null };
+const usersReadWithSessions = new WeakMap<Request, UserReadWithSession>();
+
+/**
+ * The signed-in person as read in the same query as this request's session, or undefined when it
+ * was not read that way (then the caller reads it itself). Null: the session names someone who is
+ * no longer there.
+ */
+export function userReadWithSession(req: Request, id: number): AuthUser | null | undefined {
+  const read = usersReadWithSessions.get(req);
+  return read !== undefined && read.id === Number(id) ? read.user : undefined;
+}
+
 /**
  * Sessions in the database, read from it on every request: no copy lives in one process, so a
  * sign-out, a reset or a removal made through any server is seen by every server at once.
  *
  * The read is the commonest query there is, so on SQLite it goes straight to the open connection
- * (peekRow: a prepared statement, no query building) whenever no transaction is open there.
+ * (peekRow: a prepared statement, no query building) whenever no transaction is open there. The
+ * same query reads the person the session signs in and their organisation, which passport would
+ * otherwise read again (see userReadWithSession): one read per request on either database.
  *
  * express-session also touches the stored expiry on every response, which would make every
  * signed-in read a database write; with a 7-day rolling session, moving the stored expiry at most
@@ -29,20 +73,38 @@ export class SessionStore extends ConnectSessionKnexStore {
   }
 
   override async get(sid: string, callback: (err: unknown, session?: SessionData | null) => void): Promise<SessionData | null> {
-    if (dialectOf(this.db) === 'sqlite') {
-      let peek: { row: { sess: string } | undefined } | null;
+    const dialect = dialectOf(this.db);
+    let row: SessionWithUserRow | undefined;
+    if (dialect === 'sqlite') {
+      let peek: { row: SessionWithUserRow | undefined } | null;
       try {
-        peek = peekRow<{ sess: string }>(this.db, 'select sess from sessions where sid = ? and datetime(?) <= datetime(expired)', sid, new Date().toISOString());
+        peek = peekRow<SessionWithUserRow>(this.db, SESSION_WITH_USER_SQL.sqlite, sid, new Date().toISOString());
       } catch {
         peek = null; // the table is not there yet: let the store's own read wait for it
       }
-      if (peek) {
-        const session = peek.row ? (JSON.parse(peek.row.sess) as SessionData) : null;
-        callback(null, session);
-        return session;
+      if (!peek) return (await super.get(sid, callback)) as SessionData | null;
+      row = peek.row;
+    } else {
+      try {
+        await this.ready;
+        const result = (await this.db.raw(SESSION_WITH_USER_SQL.postgres, [sid, new Date().toISOString()])) as { rows: SessionWithUserRow[] };
+        row = result.rows[0];
+      } catch (err) {
+        callback(err);
+        throw err;
       }
     }
-    return (await super.get(sid, callback)) as SessionData | null;
+    const session = row ? withUser(row) : null;
+    callback(null, session);
+    return session;
+  }
+
+  /** express-session makes the request's session from what get() answered: the user read with it goes to the request. */
+  override createSession(req: Request, data: SessionData): Session & SessionData {
+    const read = (data as { [USER_READ_WITH_SESSION]?: UserReadWithSession })[USER_READ_WITH_SESSION];
+    if (read) usersReadWithSessions.set(req, read);
+    else usersReadWithSessions.delete(req);
+    return super.createSession(req, data);
   }
 
   override async set(sid: string, session: SessionData, callback?: (err?: unknown) => void): Promise<void> {
@@ -94,4 +156,14 @@ function expiryOf(session: SessionData): number {
   const e = session.cookie?.expires as Date | string | null | undefined;
   const t = e ? new Date(e).getTime() : NaN;
   return Number.isFinite(t) ? t : Date.now() + 86_400_000;
+}
+
+/** The stored session, carrying the user read with it under a symbol (never copied into the session, never saved). */
+function withUser(row: SessionWithUserRow): SessionData {
+  const session = (typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess) as SessionData & { [USER_READ_WITH_SESSION]?: UserReadWithSession };
+  if (row.signed_in !== null && row.signed_in !== undefined) {
+    const user: AuthUser | null = row.user_id === null ? null : { id: row.user_id, email: row.email, name: row.name, role: row.role, organisation: { id: row.org_id, name: row.org_name, kind: row.org_kind } };
+    Object.defineProperty(session, USER_READ_WITH_SESSION, { value: { id: Number(row.signed_in), user }, enumerable: false });
+  }
+  return session;
 }

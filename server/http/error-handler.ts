@@ -16,7 +16,7 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
 /** The central error handler: every error leaves as {error:{code,message,details?}}, never a stack. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const { status, body, log, retryAfter } = toErrorResponse(err);
-  if (log) req.log?.error({ err }, 'unhandled error');
+  if (log) req.log?.error({ err, req: { id: req.id, method: req.method, url: req.originalUrl } }, 'unhandled error');
   if (res.headersSent) return;
   if (retryAfter) res.setHeader('Retry-After', String(retryAfter));
   res.status(status).json(body);
