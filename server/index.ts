@@ -1,6 +1,6 @@
-import pino from 'pino';
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config/env';
+import { createLogger, sourceMappedStack } from './logger';
 import { createDb, migrateLatest } from './db/knex';
 import { seedDemoIfEmpty } from './db/seed-runner';
 import { startDevSmtp } from './mail/dev-smtp';
@@ -11,7 +11,7 @@ import type { StripeFake } from './payments/stripe-fake';
 
 async function main() {
   let config = loadConfig();
-  const logger = pino({ level: config.logLevel });
+  const logger = createLogger(config.logLevel);
   const db = createDb(config.database);
   await migrateLatest(db);
   if (config.seedDemo === 'auto' && (await seedDemoIfEmpty(db))) logger.info('seeded the demo data');
@@ -65,6 +65,6 @@ async function main() {
 }
 
 main().catch((err: unknown) => {
-  console.error(err instanceof ConfigError ? err.message : err);
+  console.error(err instanceof ConfigError ? err.message : err instanceof Error && err.stack ? sourceMappedStack(err.stack) : err);
   process.exit(1);
 });

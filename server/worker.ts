@@ -1,5 +1,5 @@
-import pino from 'pino';
 import { ConfigError, loadConfig } from './config/env';
+import { createLogger, sourceMappedStack } from './logger';
 import { createDb } from './db/knex';
 import { createAppMailWorker } from './mail-worker';
 import { createSmtpMailer } from './mail/mailer';
@@ -11,7 +11,7 @@ import { createSmtpMailer } from './mail/mailer';
  */
 async function main() {
   const config = loadConfig();
-  const logger = pino({ level: config.logLevel });
+  const logger = createLogger(config.logLevel);
   if (!config.smtpUrl && config.isProduction) throw new ConfigError('SMTP_URL is required in production');
   const db = createDb(config.database);
   if (!(await db.schema.hasTable('mail_outbox'))) {
@@ -36,6 +36,6 @@ async function main() {
 }
 
 main().catch((err: unknown) => {
-  console.error(err instanceof ConfigError ? err.message : err);
+  console.error(err instanceof ConfigError ? err.message : err instanceof Error && err.stack ? sourceMappedStack(err.stack) : err);
   process.exit(1);
 });

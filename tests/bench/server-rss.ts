@@ -1,7 +1,9 @@
 /**
  * Resident memory of the compiled server at rest: seeds the demo data into a fresh temporary DATA_DIR
  * with the compiled database tool, starts the compiled server on it (default SQLite, local mail and
- * payment fakes, every port chosen by the system), waits, and prints its RSS and heap. Builds nothing:
+ * payment fakes, every port chosen by the system), waits, and prints its RSS and heap, and fails when a
+ * package meant to load on first use is already loaded. Runs without --enable-source-maps, as
+ * `npm start` does (see server/logger.ts). Builds nothing:
  * run `npm run build` first. Ends with one JSON line. Target: RSS ≤ 120 MB a minute after start.
  *
  *   npm run measure:rss                      (60 s)
@@ -18,9 +20,18 @@ const DB_TOOL = join(ROOT, 'dist/server/server/db/cli.mjs');
 const AFTER_S = Number(process.env.SERVER_RSS_AFTER_S ?? 60);
 const START_TIMEOUT_MS = 60_000;
 
-/** Loaded into the server with --import: answers a request for process.memoryUsage() over the IPC channel. */
+/**
+ * Packages the server needs only for some requests, or only in some set-ups, and loads on first use
+ * (uploads, spreadsheets, PDFs, images, QR codes, the payment SDK, mail parsing, PostgreSQL): none
+ * should be loaded in a server at rest. They are CommonJS, so Node's module cache shows them.
+ */
+const LOADED_ON_FIRST_USE = ['multer', 'busboy', 'exceljs', 'pdfkit', 'sharp', 'qrcode', 'stripe', 'mailparser', 'pg'];
+
+/** Loaded into the server with --import: answers a request for process.memoryUsage() and the packages in the module cache over the IPC channel. */
 const MEMORY_PROBE = `data:text/javascript,${encodeURIComponent(
-  "if (process.send) { process.on('message', (m) => { if (m === 'memory') process.send({ memory: process.memoryUsage() }); }); process.channel?.unref(); }",
+  "import { createRequire } from 'node:module'; const cache = createRequire(process.cwd() + '/').cache; " +
+    'const packages = () => [...new Set(Object.keys(cache).map((f) => /node_modules\\/((@[^/]+\\/)?[^/]+)/.exec(f)?.[1]).filter(Boolean))]; ' +
+    "if (process.send) { process.on('message', (m) => { if (m === 'memory') process.send({ memory: process.memoryUsage(), packages: packages() }); }); process.channel?.unref(); }",
 )}`;
 
 interface Memory {
@@ -55,7 +66,7 @@ async function main() {
     const seeded = spawnSync(process.execPath, [DB_TOOL, 'seed'], { env, encoding: 'utf8' });
     if (seeded.status !== 0) throw new Error(`seeding the demo data failed: ${seeded.stderr || seeded.stdout}`);
 
-    const child = spawn(process.execPath, ['--enable-source-maps', '--import', MEMORY_PROBE, SERVER], { env, stdio: ['ignore', 'pipe', 'pipe', 'ipc'] });
+    const child = spawn(process.execPath, ['--import', MEMORY_PROBE, SERVER], { env, stdio: ['ignore', 'pipe', 'pipe', 'ipc'] });
     let output = '';
     child.stdout?.on('data', (d: Buffer) => (output += d.toString()));
     child.stderr?.on('data', (d: Buffer) => (output += d.toString()));
@@ -74,11 +85,11 @@ async function main() {
       waited += step;
       console.log(`after ${waited} s: RSS ${mb((procStatusKb(pid, 'VmRSS') ?? 0) * 1024)} MB`);
     }
-    const memory = await new Promise<Memory>((res, rej) => {
+    const { memory, packages } = await new Promise<{ memory: Memory; packages: string[] }>((res, rej) => {
       const timer = setTimeout(() => rej(new Error('the server did not answer the memory probe')), 5_000);
-      child.once('message', (m: { memory: Memory }) => {
+      child.once('message', (m: { memory: Memory; packages: string[] }) => {
         clearTimeout(timer);
-        res(m.memory);
+        res(m);
       });
       child.send('memory');
     });
@@ -86,8 +97,11 @@ async function main() {
     child.kill('SIGTERM');
     await exited;
     console.log(`heap used ${mb(memory.heapUsed)} MB of ${mb(memory.heapTotal)} MB, external ${mb(memory.external)} MB, peak RSS since start ${peakKb === null ? '?' : mb(peakKb * 1024)} MB`);
+    const loadedEarly = LOADED_ON_FIRST_USE.filter((p) => packages.includes(p));
+    console.log(`${packages.length} packages loaded; of those loaded on first use: ${loadedEarly.length ? `${loadedEarly.join(', ')} — loaded at rest, NOT on first use` : 'none at rest'}`);
     console.log(`target: RSS ≤ 120 MB a minute after start — ${mb(memory.rss) <= 120 ? 'met' : 'MISSED'}`);
-    console.log(JSON.stringify({ rss_mb: mb(memory.rss), heap_used_mb: mb(memory.heapUsed), after_s: AFTER_S, peak_rss_mb: peakKb === null ? null : mb(peakKb * 1024) }));
+    console.log(JSON.stringify({ rss_mb: mb(memory.rss), heap_used_mb: mb(memory.heapUsed), after_s: AFTER_S, peak_rss_mb: peakKb === null ? null : mb(peakKb * 1024), loaded_at_rest_of_first_use: loadedEarly }));
+    if (loadedEarly.length > 0) process.exitCode = 1;
   } finally {
     rmSync(dataDir, { recursive: true, force: true });
   }

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
-import multer from 'multer';
 import { AppError } from '../../http/app-error';
+import { isMulterError, multipartUpload } from '../../http/multipart';
 
 /** At most six photos a delivery, each at most 8 MB; one signature. */
 export const MAX_PHOTOS = 6;
@@ -17,13 +17,12 @@ export interface ProofFile {
   thumbnail: Buffer | null;
 }
 
-const upload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: MAX_FILE_BYTES, files: MAX_PHOTOS + 1, fields: 20, fieldSize: 64 * 1024 },
-}).fields([
-  { name: 'signature', maxCount: 1 },
-  { name: 'photos', maxCount: MAX_PHOTOS },
-]);
+const upload = multipartUpload({ limits: { fileSize: MAX_FILE_BYTES, files: MAX_PHOTOS + 1, fields: 20, fieldSize: 64 * 1024 } }, (m) =>
+  m.fields([
+    { name: 'signature', maxCount: 1 },
+    { name: 'photos', maxCount: MAX_PHOTOS },
+  ]),
+);
 
 /**
  * Reads a multipart delivery record into memory (files as buffers, text fields as strings); a JSON
@@ -33,7 +32,7 @@ export const proofUpload: RequestHandler = (req, res, next) => {
   if (!req.is('multipart/form-data')) return next();
   upload(req, res, (err: unknown) => {
     if (!err) return next();
-    if (err instanceof multer.MulterError) {
+    if (isMulterError(err)) {
       const field = err.field ?? 'photos';
       if (err.code === 'LIMIT_FILE_SIZE') {
         return next(new AppError(413, 'file_too_large', `${field === 'signature' ? 'The signature' : 'A photo'} is larger than 8 MB: take it again at a smaller size`, [{ path: field, message: 'must be at most 8 MB' }]));

@@ -1,11 +1,11 @@
 import express, { type Request, type RequestHandler } from 'express';
-import multer from 'multer';
 import { MAX_SHEET_BYTES, SHEET_CONTENT_TYPES, SHEET_FILE_FIELD } from '../../../shared/schemas/price-list.schema';
 import { AppError } from '../../http/app-error';
+import { isMulterError, multipartUpload } from '../../http/multipart';
 import { invalidSheet } from './sheet-file';
 
 const raw = express.raw({ type: [...SHEET_CONTENT_TYPES, 'application/octet-stream'], limit: MAX_SHEET_BYTES });
-const multipart = multer({ storage: multer.memoryStorage(), defParamCharset: 'utf8', limits: { fileSize: MAX_SHEET_BYTES, files: 1, fields: 10 } }).single(SHEET_FILE_FIELD);
+const multipart = multipartUpload({ defParamCharset: 'utf8', limits: { fileSize: MAX_SHEET_BYTES, files: 1, fields: 10 } }, (m) => m.single(SHEET_FILE_FIELD));
 
 /**
  * Reads a price-list or stock file after the access check: the CSV or .xlsx as the request body, or
@@ -15,7 +15,7 @@ export const readSheetUpload: RequestHandler = (req, res, next) => {
   if (req.is('multipart/form-data')) {
     multipart(req, res, (err: unknown) => {
       if (!err) return next();
-      if (err instanceof multer.MulterError && err.code !== 'LIMIT_FILE_SIZE') {
+      if (isMulterError(err) && err.code !== 'LIMIT_FILE_SIZE') {
         return next(invalidSheet([{ message: `send one file in the form field '${SHEET_FILE_FIELD}' (${err.message})` }]));
       }
       next(err);

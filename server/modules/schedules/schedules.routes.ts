@@ -1,16 +1,16 @@
 import express, { type RequestHandler } from 'express';
-import multer from 'multer';
 import { EXAMPLE_OPENINGS_CSV, EXAMPLE_OPENINGS_FILENAME } from '../../../shared/engine/example-openings';
 import { EXAMPLE_SCHEDULE_CSV, EXAMPLE_SCHEDULE_FILENAME } from '../../../shared/engine/example-schedule';
 import { projectParamsSchema } from '../../../shared/schemas/project.schema';
 import { MAX_SCHEDULE_BYTES, SCHEDULE_CONTENT_TYPES, SCHEDULE_FILE_FIELD, currentScheduleQuerySchema, putFacesBodySchema, scheduleVersionParamsSchema } from '../../../shared/schemas/schedule-upload.schema';
 import { currentUser } from '../../auth/policy';
 import { AppError } from '../../http/app-error';
+import { isMulterError, multipartUpload } from '../../http/multipart';
 import { apiRouter } from '../../http/endpoint';
 import { decodeScheduleBytes, invalidSchedule, type SchedulesService } from './schedules.service';
 
 const rawCsv = express.raw({ type: [...SCHEDULE_CONTENT_TYPES], limit: MAX_SCHEDULE_BYTES });
-const multipart = multer({ storage: multer.memoryStorage(), defParamCharset: 'utf8', limits: { fileSize: MAX_SCHEDULE_BYTES, files: 1, fields: 10 } }).single(SCHEDULE_FILE_FIELD);
+const multipart = multipartUpload({ defParamCharset: 'utf8', limits: { fileSize: MAX_SCHEDULE_BYTES, files: 1, fields: 10 } }, (m) => m.single(SCHEDULE_FILE_FIELD));
 
 /**
  * Reads the schedule upload after the access check: a multipart form with the field `file`, or the
@@ -20,7 +20,7 @@ const readScheduleUpload: RequestHandler = (req, res, next) => {
   if (req.is('multipart/form-data')) {
     multipart(req, res, (err: unknown) => {
       if (!err) return next();
-      if (err instanceof multer.MulterError && err.code !== 'LIMIT_FILE_SIZE') {
+      if (isMulterError(err) && err.code !== 'LIMIT_FILE_SIZE') {
         return next(invalidSchedule([{ message: `send one CSV file in the form field '${SCHEDULE_FILE_FIELD}' (${err.message})` }]));
       }
       next(err);
