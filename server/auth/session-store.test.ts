@@ -2,7 +2,7 @@ import type { Request } from 'express';
 import type { SessionData } from 'express-session';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb, migrateLatest, type Db } from '../db/knex';
-import { SessionStore, userReadWithSession } from './session-store';
+import { SessionStore, bookVersionReadWith, userReadWithSession } from './session-store';
 
 let db: Db;
 let store: SessionStore;
@@ -123,6 +123,18 @@ describe('the person read with the session', () => {
     expect(Object.keys(JSON.parse(JSON.stringify(data)) as object).sort()).toEqual(['cookie', 'passport']);
     await appStore.set('p1', data!);
     expect(Object.keys(JSON.parse((await app('sessions').where({ sid: 'p1' }).first()).sess as string) as object).sort()).toEqual(['cookie', 'passport']);
+  });
+
+  it('comes with the organisation’s order-book version as it is at that read', async () => {
+    await appStore.set('p5', session(userId));
+    const orgId = (await app('users').where({ id: userId }).first('organisation_id')).organisation_id as number;
+    const first = userReadWithSession((await request('p5')).req, userId)!;
+    expect(bookVersionReadWith(first)).toBe(0);
+    await app('order_book_versions').insert({ organisation_id: orgId, version: 7 });
+    const second = userReadWithSession((await request('p5')).req, userId)!;
+    expect(bookVersionReadWith(second)).toBe(7);
+    expect(bookVersionReadWith(first)).toBe(0);
+    expect(bookVersionReadWith({ ...second })).toBeUndefined();
   });
 
   it('sees a role change and a removal at the next request', async () => {

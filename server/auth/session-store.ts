@@ -11,15 +11,21 @@ const TOUCH_EVERY_MS = 5 * 60_000;
 const WRITTEN_AT_ENTRIES = 10_000;
 const STORED_EXPIRY_MARGIN_MS = 60 * 60_000;
 
-const USER_COLUMNS = 'u.id as user_id, u.email, u.name, u.role, o.id as org_id, o.name as org_name, o.kind as org_kind';
-/** The session and the person it signs in, in one read (the user id sits in the session's JSON). */
+const USER_COLUMNS = 'u.id as user_id, u.email, u.name, u.role, o.id as org_id, o.name as org_name, o.kind as org_kind, v.version as book_version';
+/**
+ * The session and the person it signs in, in one read (the user id sits in the session's JSON),
+ * with their organisation's order-book version: the order book reads it first on every request,
+ * and it may as well come with the session's row than in a query of its own.
+ */
 const SESSION_WITH_USER_SQL = {
   sqlite: `select s.sess, json_extract(s.sess, '$.passport.user') as signed_in, ${USER_COLUMNS} from sessions s
     left join users u on u.id = json_extract(s.sess, '$.passport.user') left join organisations o on o.id = u.organisation_id
+    left join order_book_versions v on v.organisation_id = u.organisation_id
     where s.sid = ? and datetime(?) <= datetime(s.expired)`,
   postgres: `select s.sess, s.sess #>> '{passport,user}' as signed_in, ${USER_COLUMNS} from sessions s
     left join users u on u.id = case when (s.sess #>> '{passport,user}') ~ '^[0-9]{1,15}$' then (s.sess #>> '{passport,user}')::bigint end
     left join organisations o on o.id = u.organisation_id
+    left join order_book_versions v on v.organisation_id = u.organisation_id
     where s.sid = ? and cast(? as timestamp with time zone) <= s.expired`,
 };
 
@@ -33,12 +39,24 @@ interface SessionWithUserRow {
   org_id: number;
   org_name: string;
   org_kind: OrganisationKind;
+  book_version: number | string | null;
 }
 
 /** The user read with a session, carried from the store's read to passport's on the same request. */
 const USER_READ_WITH_SESSION = Symbol('userReadWithSession');
 type UserReadWithSession = { id: number; user: AuthUser | null };
 const usersReadWithSessions = new WeakMap<Request, UserReadWithSession>();
+
+/** Each request's person (a new object per read) to their organisation's order-book version, read at the same moment. */
+const bookVersionsReadWithUsers = new WeakMap<AuthUser, number>();
+
+/**
+ * The order-book version of the person's organisation, read in the same query as the session on
+ * this request (so before anything of the order book is read), or undefined when it was not.
+ */
+export function bookVersionReadWith(user: AuthUser): number | undefined {
+  return bookVersionsReadWithUsers.get(user);
+}
 
 /**
  * The signed-in person as read in the same query as this request's session, or undefined when it
@@ -163,6 +181,7 @@ function withUser(row: SessionWithUserRow): SessionData {
   const session = (typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess) as SessionData & { [USER_READ_WITH_SESSION]?: UserReadWithSession };
   if (row.signed_in !== null && row.signed_in !== undefined) {
     const user: AuthUser | null = row.user_id === null ? null : { id: row.user_id, email: row.email, name: row.name, role: row.role, organisation: { id: row.org_id, name: row.org_name, kind: row.org_kind } };
+    if (user) bookVersionsReadWithUsers.set(user, Number(row.book_version ?? 0));
     Object.defineProperty(session, USER_READ_WITH_SESSION, { value: { id: Number(row.signed_in), user }, enumerable: false });
   }
   return session;

@@ -31,8 +31,9 @@ export function orderBookCache<Filter extends { page: number; page_size: number;
   let misses = 0;
 
   return {
-    async read(party: OrderParty, filter: Filter): Promise<{ total: number; capped: boolean; page: Page | null }> {
-      const version = await source.version(party.organisationId);
+    /** `knownVersion`: the organisation's version when the caller has already read it (with the session) for this request. */
+    async read(party: OrderParty, filter: Filter, knownVersion?: number): Promise<{ total: number; capped: boolean; page: Page | null }> {
+      const version = knownVersion ?? (await source.version(party.organisationId));
       const { page, page_size, sort, dir, ...rest } = filter;
       // zod gives the parsed query its keys in schema order, so equal filters stringify equally.
       const countKey = `${party.kind}:${party.organisationId}:${version}:${JSON.stringify(rest)}`;

@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import type { z } from 'zod';
 import type { OrderSummary, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import type { AuthUser } from '../../../auth/auth-user';
+import { bookVersionReadWith } from '../../../auth/session-store';
 import { orderBookCache } from '../order-book-cache';
 import type { OrderParty } from '../orders.repository';
 import { partyOf, type OrderContext } from './order-context';
@@ -32,7 +33,7 @@ export function orderBook(ctx: OrderContext) {
   });
 
   return async function listPage(user: AuthUser, query: ListQuery): Promise<{ body: string; etag?: string }> {
-    const { page, total, capped } = await book.read(partyOf(user), query);
+    const { page, total, capped } = await book.read(partyOf(user), query, bookVersionReadWith(user));
     return page ?? { body: bookBody(query, { total, capped }, []) };
   };
 }
