@@ -119,7 +119,8 @@ export function createApp(deps: AppDeps): Express {
       },
     }),
   );
-  api.use(passport.initialize());
+  // No compatibility object for passport 0.4 strategies on every request: none is installed.
+  api.use(passport.initialize({ compat: false }));
   api.use(passport.session());
   api.use(csrfProtection);
 

@@ -9,6 +9,12 @@
  * in turn. Prints p50/p99 latency and requests per second for both and their ratio, and ends with one
  * JSON line. Targets: list p99 within 2× of the bare route on SQLite, within 3× on PostgreSQL.
  *
+ * It also prints the process's CPU time per request in each run (the app and autocannon together, as
+ * autocannon runs in this process for both): on a machine shared with other work the p99 of each run
+ * depends on how much of a core the process got in its ten seconds, while the CPU a request costs
+ * stays close to what a quiet machine shows, so its ratio tells whether a change made requests cheaper.
+ * On PostgreSQL the database's own CPU is in its server processes and not counted.
+ *
  * The list is measured twice. "order list" is the desk's working day: the same few views asked for
  * again and again by everyone at the desk, which the order-book cache answers until an order
  * changes. "cold lookups" asks on every request for a page nobody has asked for lately: the first
@@ -190,7 +196,17 @@ async function signIn(base: string): Promise<string> {
   return (res.headers.get('set-cookie') ?? cookie).split(';')[0];
 }
 
-function run(url: string | string[], paths: string[], headers: Record<string, string>): Promise<autocannon.Result> {
+/** A load run's result with the process's CPU time per request (server and load generator together). */
+type Run = autocannon.Result & { cpuUsPerRequest: number };
+
+async function run(url: string | string[], paths: string[], headers: Record<string, string>): Promise<Run> {
+  const before = process.cpuUsage();
+  const result = await load(url, paths, headers);
+  const cpu = process.cpuUsage(before);
+  return Object.assign(result, { cpuUsPerRequest: Math.round((cpu.user + cpu.system) / Math.max(result.requests.total, 1)) });
+}
+
+function load(url: string | string[], paths: string[], headers: Record<string, string>): Promise<autocannon.Result> {
   let i = 0;
   return new Promise((resolve, reject) => {
     autocannon(
@@ -293,8 +309,8 @@ async function main() {
     }
 
     const errors = list.errors + list.non2xx + cold.errors + cold.non2xx + plain.errors + plain.non2xx;
-    const fmt = (name: string, r: autocannon.Result) =>
-      `${name.padEnd(13)} p50 ${String(r.latency.p50).padStart(4)} ms   p99 ${String(r.latency.p99).padStart(4)} ms   ${Math.round(r.requests.average).toLocaleString('en-GB').padStart(6)} req/s   (${r.requests.total.toLocaleString('en-GB')} requests, ${CONNECTIONS} connections, ${SECONDS} s)`;
+    const fmt = (name: string, r: Run) =>
+      `${name.padEnd(13)} p50 ${String(r.latency.p50).padStart(4)} ms   p99 ${String(r.latency.p99).padStart(4)} ms   ${Math.round(r.requests.average).toLocaleString('en-GB').padStart(6)} req/s   ${String(r.cpuUsPerRequest).padStart(5)} µs CPU/request   (${r.requests.total.toLocaleString('en-GB')} requests, ${CONNECTIONS} connections, ${SECONDS} s)`;
     console.log(fmt('order list', list));
     console.log(fmt('cold lookups', cold));
     console.log(fmt('bare route', plain));
@@ -305,7 +321,8 @@ async function main() {
         .map((l) => l.toFixed(2))
         .join(' ')}`,
     );
-    console.log(`ratio p99 list/bare ${ratio} (target ≤ ${TARGET_RATIO}); cold lookups/bare ${ratioOf(cold)}${errors ? `; ${errors} errors or non-2xx answers` : ''}`);
+    const cpuRatio = Math.round((list.cpuUsPerRequest / Math.max(plain.cpuUsPerRequest, 1)) * 100) / 100;
+    console.log(`ratio p99 list/bare ${ratio} (target ≤ ${TARGET_RATIO}); cold lookups/bare ${ratioOf(cold)}; CPU per request list/bare ${cpuRatio}${errors ? `; ${errors} errors or non-2xx answers` : ''}`);
     console.log(
       JSON.stringify({
         db: DB,
@@ -320,6 +337,9 @@ async function main() {
         cold_p99_ms: cold.latency.p99,
         cold_ratio_p99: ratioOf(cold),
         cold_rps: Math.round(cold.requests.average),
+        list_cpu_us: list.cpuUsPerRequest,
+        bare_cpu_us: plain.cpuUsPerRequest,
+        cpu_ratio: cpuRatio,
         errors,
         // of which: no answer within autocannon's 10 s (a loaded machine), and answers other than 2xx
         timeouts: list.timeouts + cold.timeouts + plain.timeouts,
