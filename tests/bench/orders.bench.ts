@@ -231,6 +231,9 @@ async function openDatabase(dir: string): Promise<{ env: Record<string, string>;
   const admin = createDb(cluster.adminUrl);
   try {
     await admin.raw('CREATE DATABASE ridgeload_bench');
+  } catch (err) {
+    cluster.stop(); // nothing else would stop it: the run ends here
+    throw err;
   } finally {
     await admin.destroy();
   }
