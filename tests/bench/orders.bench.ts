@@ -11,8 +11,9 @@
  *
  * It also prints the process's CPU time per request in each run (the app and autocannon together, as
  * autocannon runs in this process for both): on a machine shared with other work the p99 of each run
- * depends on how much of a core the process got in its ten seconds, while the CPU a request costs
- * stays close to what a quiet machine shows, so its ratio tells whether a change made requests cheaper.
+ * depends on how much of a core the process got in its ten seconds; the CPU a request costs does not
+ * depend on that, though contention for caches still inflates it (measured: list/bare 3.2 at load
+ * average 4, 5.2 at 19), so compare it between runs taken at similar load.
  * On PostgreSQL the database's own CPU is in its server processes and not counted.
  *
  * The list is measured twice. "order list" is the desk's working day: the same few views asked for
