@@ -9,7 +9,7 @@ import { EVERY_TILE_CLIP_PITCH_DEG, EVERY_TILE_PITCH_DEG, MAX_DELIVERY_PALLETS, 
 import { planDelivery } from './delivery';
 import { battenNails, nailedPieces } from './fixings';
 import { insets, isRaking, planAreaM2, rakingEdgeLength, slopeAreaM2, widthAt, type FaceShape } from './geometry';
-import { loadingRowIndices, namedRidge, pairRidgeFaces, planFaceLoading, type RidgeBalance, type RidgeSide } from './loading';
+import { loadingRowIndices, namedRidge, pairRidgeFaces, planFaceLoading, type FaceLoading, type RidgeBalance, type RidgeSide } from './loading';
 import { BuildingEdgeTally } from './ridge-hip';
 import type { EngineResult, EngineWarning, FaceResult, Flashings, InputProblem } from './result';
 import { parseOpeningsCsv } from './openings-parse';
@@ -87,6 +87,8 @@ interface Scratch {
   brokenCourse: CoursePieces;
   rowPositions: number[];
   supportsByRow: number[];
+  fit: VergeFit;
+  loading: FaceLoading;
   /** Figures of the face just computed that the totals need but the face result does not show. */
   plan_m2: number;
   batten_mm: number;
@@ -268,7 +270,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   let marksOverhang: number;
 
   if (leftVerge && rightVerge) {
-    const fit = fitBetweenVerges(face.eaves_mm, tile.width_mm, cover, so.verge_overhang_mm);
+    const fit = fitBetweenVerges(face.eaves_mm, tile.width_mm, cover, so.verge_overhang_mm, scratch.fit);
     if (!fit.fits) {
       warnFace(warnings, face, 'no_whole_tile_fit', `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`);
     }
@@ -355,7 +357,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   for (let r = C - 1, k = Math.floor(C / system.roof_loading.every_nth_batten); k > 0; r -= system.roof_loading.every_nth_batten, k--) {
     rowPositions[loadingRows++] = scratch.supportsByRow[r];
   }
-  const loading = planFaceLoading(tiles + eavesTiles + topTiles + tah, rowPositions, system.roof_loading.stack_size, loadingRows);
+  const loading = planFaceLoading(tiles + eavesTiles + topTiles + tah, rowPositions, system.roof_loading.stack_size, loadingRows, scratch.loading);
   if (loading.needed_stack !== null) {
     warnFace(
       warnings,
@@ -567,8 +569,105 @@ function checkBalance(warnings: EngineWarning[], building: string, ridge: RidgeB
   }
 }
 
+/**
+ * Faces of one building grouped by the ridge they name, reused from building to building: `members`
+ * holds the faces' indices group by group (each in schedule order), `start` and `count` say where each
+ * group is; groups are in the order their names first appear. `guessed` counts faces naming no ridge.
+ */
+interface RidgeGroups {
+  members: number[];
+  start: number[];
+  count: number[];
+  groupOf: number[];
+  names: string[];
+  guessed: number;
+}
+
+function newRidgeGroups(): RidgeGroups {
+  return { members: [], start: [], count: [], groupOf: [], names: [], guessed: 0 };
+}
+
+/** True for a name of ASCII characters with no space at either end: trim() keeps it and toLowerCase() keeps its length. */
+function isPlainAscii(s: string): boolean {
+  const n = s.length;
+  if (n === 0 || s.charCodeAt(0) <= 32 || s.charCodeAt(n - 1) <= 32) return false;
+  for (let i = 0; i < n; i++) if (s.charCodeAt(i) >= 128) return false;
+  return true;
+}
+
+/** a.trim().toLowerCase() === b.trim().toLowerCase(), without building the strings for plain ASCII names. */
+export function sameNameWithoutCase(a: string, b: string): boolean {
+  if (a === b) return true;
+  if (!isPlainAscii(a) || !isPlainAscii(b)) return a.trim().toLowerCase() === b.trim().toLowerCase();
+  const n = a.length;
+  if (n !== b.length) return false;
+  for (let i = 0; i < n; i++) {
+    let x = a.charCodeAt(i);
+    let y = b.charCodeAt(i);
+    if (x >= 65 && x <= 90) x += 32;
+    if (y >= 65 && y <= 90) y += 32;
+    if (x !== y) return false;
+  }
+  return true;
+}
+
+/** Past this many ridges in one building, names are found through a map instead of one by one. */
+const RIDGE_GROUPS_SCANNED = 16;
+
+/** Groups a building's ridge faces by ridge name (without case) into `out`; returns the number of groups. */
+function groupRidgeFaces(ridgeFaces: readonly number[], schedule: Schedule, out: RidgeGroups): number {
+  const { groupOf, names, count, start, members } = out;
+  let groups = 0;
+  let guessed = 0;
+  let byKey: Map<string, number> | null = null;
+  for (let k = 0; k < ridgeFaces.length; k++) {
+    const ridge = schedule[ridgeFaces[k]].ridge;
+    if (ridge === undefined) {
+      groupOf[k] = -1;
+      guessed++;
+      continue;
+    }
+    let g = -1;
+    if (byKey !== null) g = byKey.get(ridge.trim().toLowerCase()) ?? -1;
+    else {
+      for (let j = 0; j < groups; j++) {
+        if (sameNameWithoutCase(names[j], ridge)) {
+          g = j;
+          break;
+        }
+      }
+    }
+    if (g < 0) {
+      g = groups++;
+      names[g] = ridge;
+      count[g] = 0;
+      if (byKey !== null) byKey.set(ridge.trim().toLowerCase(), g);
+      else if (groups > RIDGE_GROUPS_SCANNED) {
+        byKey = new Map();
+        for (let j = 0; j < groups; j++) byKey.set(names[j].trim().toLowerCase(), j);
+      }
+    }
+    groupOf[k] = g;
+    count[g]++;
+  }
+  // Members group by group, each group in schedule order (a counting sort).
+  let at = 0;
+  for (let g = 0; g < groups; g++) {
+    start[g] = at;
+    at += count[g];
+  }
+  for (let g = 0; g < groups; g++) count[g] = 0;
+  for (let k = 0; k < ridgeFaces.length; k++) {
+    const g = groupOf[k];
+    if (g < 0) continue;
+    members[start[g] + count[g]++] = ridgeFaces[k];
+  }
+  out.guessed = guessed;
+  return groups;
+}
+
 /** One building's ridge, hip and valley lengths and tiles (into the tally), its ridges and their warnings. */
-function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly FaceResult[], system: RoofSystem, job: JobTally, ridges: RidgeBalance[], warnings: EngineWarning[]) {
+function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly FaceResult[], system: RoofSystem, job: JobTally, ridges: RidgeBalance[], warnings: EngineWarning[], scratch: RidgeGroups) {
   const building = b.name;
   const edges = b.edges.finish(system.ridge.cover_mm, system.hip.cover_mm);
   job.ridgeMm += edges.ridge_mm;
@@ -591,32 +690,27 @@ function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly Fa
     );
   }
   // Faces naming their ridge are grouped by the name (without case); the others are paired by top length.
-  const named = new Map<string, { name: string; sides: RidgeSide[]; mono: boolean }>();
-  const guessed: RidgeSide[] = [];
-  for (const i of b.ridgeFaces) {
-    const face = schedule[i];
-    const side: RidgeSide = { building, face: face.face, top_mm: face.top_mm, load_kg: faces[i].load_kg };
-    if (face.ridge === undefined) {
-      guessed.push(side);
-      continue;
-    }
-    const key = face.ridge.trim().toLowerCase();
-    const group = named.get(key);
-    if (group) group.sides.push(side);
-    else named.set(key, { name: face.ridge.trim(), sides: [side], mono: face.top === 'mono_ridge' });
-  }
-  for (const { name, sides, mono } of named.values()) {
-    const ridge = namedRidge(building, name, sides);
+  const groups = groupRidgeFaces(b.ridgeFaces, schedule, scratch);
+  for (let g = 0; g < groups; g++) {
+    const first = schedule[scratch.members[scratch.start[g]]];
+    const name = (first.ridge as string).trim();
+    const ridge = namedRidge(building, name, scratch.members, scratch.start[g], scratch.count[g], schedule, faces);
     ridges.push(ridge);
-    if (sides.length === 1 && sides[0].top_mm > 0 && !mono) {
+    if (scratch.count[g] === 1 && first.top_mm > 0 && first.top !== 'mono_ridge') {
       warnings.push({
         code: 'unpaired_ridge_face',
         building,
-        face: sides[0].face,
+        face: first.face,
         message: `no other face names ridge ${name}: the ridge is counted at half this face's top edge; check the schedule`,
       });
     }
     checkBalance(warnings, building, ridge);
+  }
+  if (scratch.guessed === 0) return;
+  const guessed: RidgeSide[] = [];
+  for (const i of b.ridgeFaces) {
+    const face = schedule[i];
+    if (face.ridge === undefined) guessed.push({ building, face: face.face, top_mm: face.top_mm, load_kg: faces[i].load_kg });
   }
   if (guessed.length > 0) {
     warnBuilding(warnings, building, 'ridge_grouping_guessed', `${guessed.length} face(s) meeting a ridge name no ridge: they were paired by equal top length, which can hide an uneven load; give the ridge column`);
@@ -651,6 +745,8 @@ function estimateChecked(schedule: Schedule, system: RoofSystem, openings: reado
     brokenCourse: { whole: 0, halves: 0, cut: 0, perimeter: 0, tah: 0 },
     rowPositions: [],
     supportsByRow: [],
+    fit: { tiles: 0, cover_mm: 0, overhang_mm: 0, fits: false },
+    loading: { positions: 0, stacks: 0, stacks_by_row: [], needed_stack: null },
     plan_m2: 0,
     batten_mm: 0,
     batten_nails: 0,
@@ -679,7 +775,8 @@ function estimateChecked(schedule: Schedule, system: RoofSystem, openings: reado
   }
 
   const ridges: RidgeBalance[] = [];
-  for (const b of job.buildings) finishBuilding(b, schedule, faces, system, job, ridges, warnings);
+  const groups = newRidgeGroups();
+  for (const b of job.buildings) finishBuilding(b, schedule, faces, system, job, ridges, warnings, groups);
   return finishJob(faces, system, tally, job, ridges, warnings);
 }
 
