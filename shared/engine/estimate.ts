@@ -15,7 +15,7 @@ import type { EngineResult, EngineWarning, FaceResult, Flashings, InputProblem }
 import { parseOpeningsCsv } from './openings-parse';
 import { parseRoofSystem } from './roof-system';
 import { parseScheduleCsv, type ScheduleWarning } from './schedule-parse';
-import { settingOutMarks, settingOutReference } from './setting-out';
+import { settingOutMarks, settingOutReference, type SettingOutFrom } from './setting-out';
 import { fitBetweenVerges, tilesToSpan, type VergeFit } from './tiles-per-course';
 import { ENGINE_VERSION } from './version';
 
@@ -70,12 +70,26 @@ function ordinal(n: number): string {
   return `${n}${suffix}`;
 }
 
+/** A warning (a class for the reason FaceFigures is one: a big job has hundreds). */
+class Notice implements EngineWarning {
+  declare code: string;
+  declare building: string | null;
+  declare face: string | null;
+  declare message: string;
+  constructor(code: string, building: string | null, face: string | null, message: string) {
+    this.code = code;
+    this.building = building;
+    this.face = face;
+    this.message = message;
+  }
+}
+
 function warnBuilding(warnings: EngineWarning[], building: string, code: string, message: string) {
-  warnings.push({ code, building, face: null, message });
+  warnings.push(new Notice(code, building, null, message));
 }
 
 function warnFace(warnings: EngineWarning[], face: Face, code: string, message: string) {
-  warnings.push({ code, building: face.building, face: face.face, message });
+  warnings.push(new Notice(code, face.building, face.face, message));
 }
 
 /** Objects reused from face to face so a 10,000-face job does not allocate per course. */
@@ -225,6 +239,106 @@ function countRakingCourses(shape: FaceShape, setOut: CourseSetOut, oneVerge: bo
   scratch.widest = widest;
 }
 
+/**
+ * One face's figures. Built by a constructor, not an object literal: V8 moves objects from a literal
+ * whose copies all outlive a young-generation collection straight into the old generation from then
+ * on, and a big job's results would then stay in memory until the next full collection (DEVELOPERS.md,
+ * decision 30). Its fields, their order and its JSON are those of FaceResult.
+ */
+class FaceFigures implements FaceResult {
+  declare building: string;
+  declare face: string;
+  declare quantity: number;
+  declare pitch_deg: number;
+  declare rafter_mm: number;
+  declare slope_area_m2: number;
+  declare headlap_mm: number;
+  declare gauge_mm: number;
+  declare courses: number;
+  declare tiles_per_course: number;
+  declare cover_width_mm: number;
+  declare verge_overhang_mm: number | null;
+  declare whole_tiles: number;
+  declare half_tiles: number;
+  declare cut_tiles: number;
+  declare tiles: number;
+  declare eaves_tiles: number;
+  declare top_tiles: number;
+  declare tile_and_half: number;
+  declare openings_area_m2: number;
+  declare ridge: string | null;
+  declare batten_m: number;
+  declare stacks: number;
+  declare stack_positions: number;
+  declare load_kg: number;
+  declare clips: number;
+  declare setting_out_marks_mm: number[];
+  declare setting_out_from: SettingOutFrom;
+  declare stacks_by_row: number[];
+
+  constructor(
+    building: string,
+    face: string,
+    quantity: number,
+    pitch_deg: number,
+    rafter_mm: number,
+    slope_area_m2: number,
+    headlap_mm: number,
+    gauge_mm: number,
+    courses: number,
+    tiles_per_course: number,
+    cover_width_mm: number,
+    verge_overhang_mm: number | null,
+    whole_tiles: number,
+    half_tiles: number,
+    cut_tiles: number,
+    tiles: number,
+    eaves_tiles: number,
+    top_tiles: number,
+    tile_and_half: number,
+    openings_area_m2: number,
+    ridge: string | null,
+    batten_m: number,
+    stacks: number,
+    stack_positions: number,
+    load_kg: number,
+    clips: number,
+    setting_out_marks_mm: number[],
+    setting_out_from: SettingOutFrom,
+    stacks_by_row: number[],
+  ) {
+    this.building = building;
+    this.face = face;
+    this.quantity = quantity;
+    this.pitch_deg = pitch_deg;
+    this.rafter_mm = rafter_mm;
+    this.slope_area_m2 = slope_area_m2;
+    this.headlap_mm = headlap_mm;
+    this.gauge_mm = gauge_mm;
+    this.courses = courses;
+    this.tiles_per_course = tiles_per_course;
+    this.cover_width_mm = cover_width_mm;
+    this.verge_overhang_mm = verge_overhang_mm;
+    this.whole_tiles = whole_tiles;
+    this.half_tiles = half_tiles;
+    this.cut_tiles = cut_tiles;
+    this.tiles = tiles;
+    this.eaves_tiles = eaves_tiles;
+    this.top_tiles = top_tiles;
+    this.tile_and_half = tile_and_half;
+    this.openings_area_m2 = openings_area_m2;
+    this.ridge = ridge;
+    this.batten_m = batten_m;
+    this.stacks = stacks;
+    this.stack_positions = stack_positions;
+    this.load_kg = load_kg;
+    this.clips = clips;
+    this.setting_out_marks_mm = setting_out_marks_mm;
+    this.setting_out_from = setting_out_from;
+    this.stacks_by_row = stacks_by_row;
+  }
+}
+
 function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings: EngineWarning[], scratch: Scratch, openings?: readonly Opening[]): FaceResult {
   const { tile, setting_out: so } = system;
   const shape: FaceShape = face;
@@ -372,37 +486,37 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   const slope = Math.max(0, slopeAreaM2(shape) - counts.area_mm2 * 1e-6);
   const battenMm = Math.max(0, battens.batten_mm - counts.batten_mm);
   const reference = settingOutReference(face.left, face.right);
-  const result: FaceResult = {
-    building: face.building,
-    face: face.face,
-    quantity: face.quantity,
-    pitch_deg: face.pitch_deg,
-    rafter_mm: r1(face.rafter_mm),
-    slope_area_m2: r2(slope),
-    headlap_mm: setOut.headlap_mm,
-    gauge_mm: down1(setOut.gauge_mm),
-    courses: C,
-    tiles_per_course: tilesPerCourse,
-    cover_width_mm: r1(coverUsed),
-    verge_overhang_mm: overhangUsed === null ? null : r1(overhangUsed),
-    whole_tiles: whole,
-    half_tiles: halves,
-    cut_tiles: cut,
+  const result = new FaceFigures(
+    face.building,
+    face.face,
+    face.quantity,
+    face.pitch_deg,
+    r1(face.rafter_mm),
+    r2(slope),
+    setOut.headlap_mm,
+    down1(setOut.gauge_mm),
+    C,
+    tilesPerCourse,
+    r1(coverUsed),
+    overhangUsed === null ? null : r1(overhangUsed),
+    whole,
+    halves,
+    cut,
     tiles,
-    eaves_tiles: eavesTiles,
-    top_tiles: topTiles,
-    tile_and_half: tah,
-    openings_area_m2: r2(counts.area_mm2 * 1e-6),
-    ridge: face.ridge ?? null,
-    batten_m: r2(battenMm / 1000),
-    stacks: loading.stacks,
-    stack_positions: loading.positions,
-    load_kg: r1(tiles * tile.weight_kg + eavesTiles * tile.eaves_tile_kg + topTiles * tile.top_tile_kg + tah * tile.tile_and_half_kg),
+    eavesTiles,
+    topTiles,
+    tah,
+    r2(counts.area_mm2 * 1e-6),
+    face.ridge ?? null,
+    r2(battenMm / 1000),
+    loading.stacks,
+    loading.positions,
+    r1(tiles * tile.weight_kg + eavesTiles * tile.eaves_tile_kg + topTiles * tile.top_tile_kg + tah * tile.tile_and_half_kg),
     clips,
-    setting_out_marks_mm: settingOutMarks(marksTiles, coverUsed, marksOverhang),
-    setting_out_from: reference,
-    stacks_by_row: loading.stacks_by_row,
-  };
+    settingOutMarks(marksTiles, coverUsed, marksOverhang),
+    reference,
+    loading.stacks_by_row,
+  );
   scratch.plan_m2 = planAreaM2(slope, face.pitch_deg);
   scratch.net_slope_m2 = slope;
   scratch.openings_m2 = counts.area_mm2 * 1e-6;
@@ -697,12 +811,7 @@ function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly Fa
     const ridge = namedRidge(building, name, scratch.members, scratch.start[g], scratch.count[g], schedule, faces);
     ridges.push(ridge);
     if (scratch.count[g] === 1 && first.top_mm > 0 && first.top !== 'mono_ridge') {
-      warnings.push({
-        code: 'unpaired_ridge_face',
-        building,
-        face: first.face,
-        message: `no other face names ridge ${name}: the ridge is counted at half this face's top edge; check the schedule`,
-      });
+      warnings.push(new Notice('unpaired_ridge_face', building, first.face, `no other face names ridge ${name}: the ridge is counted at half this face's top edge; check the schedule`));
     }
     checkBalance(warnings, building, ridge);
   }
@@ -830,7 +939,7 @@ function finishJob(faces: FaceResult[], system: RoofSystem, tally: PieceTally, j
     system,
     MAX_DELIVERY_PALLETS,
   );
-  for (const issue of delivery.issues) warnings.push({ code: issue.code, building: null, face: null, message: issue.message });
+  for (const issue of delivery.issues) warnings.push(new Notice(issue.code, null, null, issue.message));
 
   const flashings: Flashings = {
     side_abutment_m: r2(flashMm.side / 1000),

@@ -6,6 +6,9 @@ export function loadingRowIndices(courses: number, everyNth: number): number[] {
   return rows;
 }
 
+/** Stacks by row while they are shared out (numbers only, reused from face to face). */
+const PLACED: number[] = [];
+
 export interface FaceLoading {
   /** Places for a stack: rafters crossed by the loading rows. */
   positions: number;
@@ -26,10 +29,12 @@ export function planFaceLoading(tiles: number, rowPositions: readonly number[], 
   const stacks = Math.ceil(tiles / stackSize);
   let positions = 0;
   for (let i = 0; i < rows; i++) positions += rowPositions[i];
-  // Sized up front: a job holds one of these per face.
-  const placed: number[] = new Array<number>(rows);
-  for (let i = 0; i < rows; i++) placed[i] = 0;
-  if (positions === 0) return loadingResult(out, positions, stacks, placed, stacks > 0 ? tiles : null);
+  // Counted in a scratch row and copied out at its size: a job holds one of these per face, and a copy
+  // comes from no literal (see FaceFigures in estimate.ts).
+  const placed = PLACED;
+  placed.length = 0;
+  for (let i = 0; i < rows; i++) placed.push(0);
+  if (positions === 0) return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > 0 ? tiles : null);
   let left = Math.min(stacks, positions);
   // Share out evenly in rounds so a full row passes its share on to the rows below it.
   while (left > 0) {
@@ -47,7 +52,7 @@ export function planFaceLoading(tiles: number, rowPositions: readonly number[], 
       left -= take;
     }
   }
-  return loadingResult(out, positions, stacks, placed, stacks > positions ? Math.ceil(tiles / positions) : null);
+  return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > positions ? Math.ceil(tiles / positions) : null);
 }
 
 function loadingResult(out: FaceLoading | undefined, positions: number, stacks: number, placed: number[], neededStack: number | null): FaceLoading {
@@ -140,9 +145,10 @@ export function namedRidge(
   schedule: ReadonlyArray<{ face: string; top_mm: number }>,
   results: ReadonlyArray<{ load_kg: number }>,
 ): RidgeBalance {
-  // Sized up front: a job holds one of these per ridge.
-  const faces = new Array<string>(n);
-  const loads = new Array<number>(n);
+  const faces = RIDGE_FACES;
+  const loads = RIDGE_LOADS;
+  faces.length = 0;
+  loads.length = 0;
   let slopes = 0;
   let slopeLo = Infinity;
   let slopeHi = -Infinity;
@@ -153,8 +159,8 @@ export function namedRidge(
     const at = members[from + i];
     const s = schedule[at];
     const v = results[at].load_kg;
-    faces[i] = s.face;
-    loads[i] = v;
+    faces.push(s.face);
+    loads.push(v);
     if (s.top_mm > 0) {
       slopes++;
       if (v < slopeLo) slopeLo = v;
@@ -166,11 +172,31 @@ export function namedRidge(
     }
   }
   const difference = Math.max(slopes < 2 ? 0 : slopeHi - slopeLo, ends < 2 ? 0 : endHi - endLo);
-  return {
-    building,
-    ridge,
-    faces,
-    load_kg: loads,
-    difference_kg: Math.round(difference * 10) / 10,
-  };
+  // Exact-size copies (a job holds one of these per ridge); the scratch lets go of the names.
+  const names = faces.slice(0, n);
+  faces.length = 0;
+  return new RidgeLoad(building, ridge, names, loads.slice(0, n), Math.round(difference * 10) / 10);
+}
+
+/** Names and loads of a ridge's faces while it is put together, reused from ridge to ridge. */
+const RIDGE_FACES: string[] = [];
+const RIDGE_LOADS: number[] = [];
+
+/**
+ * A ridge's balance, built by a constructor rather than an object literal (see FaceFigures in
+ * estimate.ts); fields, their order and the JSON are RidgeBalance's.
+ */
+class RidgeLoad implements RidgeBalance {
+  declare building: string;
+  declare ridge: string | null;
+  declare faces: string[];
+  declare load_kg: number[];
+  declare difference_kg: number;
+  constructor(building: string, ridge: string | null, faces: string[], loads: number[], differenceKg: number) {
+    this.building = building;
+    this.ridge = ridge;
+    this.faces = faces;
+    this.load_kg = loads;
+    this.difference_kg = differenceKg;
+  }
 }
