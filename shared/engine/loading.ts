@@ -31,9 +31,9 @@ export function planFaceLoading(tiles: number, rowPositions: readonly number[], 
   for (let i = 0; i < rows; i++) positions += rowPositions[i];
   // Counted in a scratch row and copied out at its size: a job holds one of these per face, and a copy
   // comes from no literal (see FaceFigures in estimate.ts).
+  // (Written over, never emptied: setting length to 0 would drop its storage.)
   const placed = PLACED;
-  placed.length = 0;
-  for (let i = 0; i < rows; i++) placed.push(0);
+  for (let i = 0; i < rows; i++) placed[i] = 0;
   if (positions === 0) return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > 0 ? tiles : null);
   let left = Math.min(stacks, positions);
   // Share out evenly in rounds so a full row passes its share on to the rows below it.
@@ -147,8 +147,6 @@ export function namedRidge(
 ): RidgeBalance {
   const faces = RIDGE_FACES;
   const loads = RIDGE_LOADS;
-  faces.length = 0;
-  loads.length = 0;
   let slopes = 0;
   let slopeLo = Infinity;
   let slopeHi = -Infinity;
@@ -159,8 +157,8 @@ export function namedRidge(
     const at = members[from + i];
     const s = schedule[at];
     const v = results[at].load_kg;
-    faces.push(s.face);
-    loads.push(v);
+    faces[i] = s.face;
+    loads[i] = v;
     if (s.top_mm > 0) {
       slopes++;
       if (v < slopeLo) slopeLo = v;
@@ -174,7 +172,7 @@ export function namedRidge(
   const difference = Math.max(slopes < 2 ? 0 : slopeHi - slopeLo, ends < 2 ? 0 : endHi - endLo);
   // Exact-size copies (a job holds one of these per ridge); the scratch lets go of the names.
   const names = faces.slice(0, n);
-  faces.length = 0;
+  for (let i = 0; i < n; i++) faces[i] = '';
   return new RidgeLoad(building, ridge, names, loads.slice(0, n), Math.round(difference * 10) / 10);
 }
 

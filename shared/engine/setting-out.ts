@@ -12,9 +12,9 @@ export function settingOutMarks(tilesInCourse: number, coverMm: number, overhang
   // Worked out in a scratch row and copied at its size: a job holds one of these per face, and a copy
   // comes from no literal, which V8 would move to the old generation wholesale (DEVELOPERS.md, decision 30).
   const count = tilesInCourse > 3 ? Math.floor((tilesInCourse - 1) / 3) : 0;
+  // (Written over, never emptied: setting length to 0 would drop its storage.)
   const marks = MARKS;
-  marks.length = 0;
-  for (let i = 0; i < count; i++) marks.push(Math.round((3 * (i + 1) * coverMm - overhangMm) * 10) / 10);
+  for (let i = 0; i < count; i++) marks[i] = Math.round((3 * (i + 1) * coverMm - overhangMm) * 10) / 10;
   return marks.slice(0, count);
 }
 
