@@ -210,57 +210,40 @@ export interface StockPlan {
  * are not allowed for: battens are butt-jointed on the rafter centre line.
  */
 export function planStockLengths(tally: PieceTally, stockMm: number): StockPlan {
-  const lengths = tally.longestFirst();
-  if (lengths.length === 0) return { lengths: 0, pieces_from_offcuts: 0, pieces: 0 };
-  const shortest = lengths[lengths.length - 1][0];
-  // Offcuts by length, ascending, with how many of each.
-  const poolLen: number[] = [];
-  const poolCount: number[] = [];
-  const addOffcut = (len: number, count: number) => {
-    if (count <= 0 || len < shortest) return;
-    let lo = 0;
-    let hi = poolLen.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (poolLen[mid] < len) lo = mid + 1;
-      else hi = mid;
+  let shortest = 0;
+  for (let mm = 1; mm <= tally.stockMm; mm++) {
+    if (tally.get(mm) > 0) {
+      shortest = mm;
+      break;
     }
-    if (poolLen[lo] === len) poolCount[lo] += count;
-    else {
-      poolLen.splice(lo, 0, len);
-      poolCount.splice(lo, 0, count);
-    }
-  };
+  }
+  if (shortest === 0) return { lengths: 0, pieces_from_offcuts: 0, pieces: 0 };
+  // Offcuts by length, ascending, with how many of each (typed arrays: no garbage per insert).
+  const pool = new OffcutPool(shortest);
   let bars = 0;
   let fromOffcuts = 0;
   let pieces = 0;
-  for (const [len, count] of lengths) {
+  // Longest pieces first, straight from the tally.
+  for (let len = tally.stockMm; len > 0; len--) {
+    const count = tally.get(len);
+    if (!(count > 0)) continue;
     let need = count;
     pieces += need;
     while (need > 0) {
-      let lo = 0;
-      let hi = poolLen.length;
-      while (lo < hi) {
-        const mid = (lo + hi) >> 1;
-        if (poolLen[mid] < len) lo = mid + 1;
-        else hi = mid;
-      }
-      if (lo >= poolLen.length) break;
-      const offcut = poolLen[lo];
+      const lo = pool.atLeast(len);
+      if (lo >= pool.size) break;
+      const offcut = pool.len[lo];
       const perOffcut = Math.floor(offcut / len);
-      const used = Math.min(poolCount[lo], Math.ceil(need / perOffcut));
+      const used = Math.min(pool.count[lo], Math.ceil(need / perOffcut));
       const placed = Math.min(need, used * perOffcut);
-      poolCount[lo] -= used;
-      if (poolCount[lo] === 0) {
-        poolLen.splice(lo, 1);
-        poolCount.splice(lo, 1);
-      }
+      pool.count[lo] -= used;
+      if (pool.count[lo] === 0) pool.removeAt(lo);
       need -= placed;
       fromOffcuts += placed;
       const full = Math.floor(placed / perOffcut);
       const rest = placed - full * perOffcut;
-      addOffcut(offcut - perOffcut * len, full);
-      if (rest > 0) addOffcut(offcut - rest * len, 1);
+      pool.add(offcut - perOffcut * len, full);
+      if (rest > 0) pool.add(offcut - rest * len, 1);
     }
     if (need > 0) {
       const perBar = Math.floor(stockMm / len);
@@ -268,9 +251,58 @@ export function planStockLengths(tally: PieceTally, stockMm: number): StockPlan 
       bars += newBars;
       const full = Math.floor(need / perBar);
       const rest = need - full * perBar;
-      addOffcut(stockMm - perBar * len, full);
-      if (rest > 0) addOffcut(stockMm - rest * len, 1);
+      pool.add(stockMm - perBar * len, full);
+      if (rest > 0) pool.add(stockMm - rest * len, 1);
     }
   }
   return { lengths: bars, pieces_from_offcuts: fromOffcuts, pieces };
+}
+
+/** Offcut lengths in ascending order with their counts; lengths below the shortest piece are dropped. */
+class OffcutPool {
+  len = new Float64Array(64);
+  count = new Float64Array(64);
+  size = 0;
+  constructor(private readonly shortest: number) {}
+
+  /** Index of the first length ≥ len (size when none). */
+  atLeast(len: number): number {
+    let lo = 0;
+    let hi = this.size;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (this.len[mid] < len) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo;
+  }
+
+  add(len: number, count: number) {
+    if (count <= 0 || len < this.shortest) return;
+    const lo = this.atLeast(len);
+    if (lo < this.size && this.len[lo] === len) {
+      this.count[lo] += count;
+      return;
+    }
+    if (this.size === this.len.length) {
+      const grow = (a: Float64Array) => {
+        const b = new Float64Array(a.length * 2);
+        b.set(a);
+        return b;
+      };
+      this.len = grow(this.len);
+      this.count = grow(this.count);
+    }
+    this.len.copyWithin(lo + 1, lo, this.size);
+    this.count.copyWithin(lo + 1, lo, this.size);
+    this.len[lo] = len;
+    this.count[lo] = count;
+    this.size++;
+  }
+
+  removeAt(i: number) {
+    this.len.copyWithin(i, i + 1, this.size);
+    this.count.copyWithin(i, i + 1, this.size);
+    this.size--;
+  }
 }

@@ -110,60 +110,150 @@ function round1(v: number): number {
 const NO_ITEMS: PalletItem[] = Object.freeze([]) as unknown as PalletItem[];
 const NO_FACES: PalletFace[] = Object.freeze([]) as unknown as PalletFace[];
 
+/**
+ * Pallets, their faces and items and the loads are built by constructors, not object literals: V8 moves
+ * objects from a literal whose copies all outlive a young-generation collection straight into the old
+ * generation from then on, and a big job's thousands of pallets would stay in memory until the next
+ * full collection (DEVELOPERS.md, decision 31). Fields, their order and the JSON are the interfaces'.
+ */
+class PalletRecord implements Pallet {
+  declare n: number;
+  declare kind: 'tiles' | 'accessories';
+  declare tiles: number;
+  declare weight_kg: number;
+  declare faces: PalletFace[];
+  declare items: PalletItem[];
+  constructor(n: number, kind: 'tiles' | 'accessories', tiles: number, weightKg: number, faces: PalletFace[], items: PalletItem[]) {
+    this.n = n;
+    this.kind = kind;
+    this.tiles = tiles;
+    this.weight_kg = weightKg;
+    this.faces = faces;
+    this.items = items;
+  }
+}
+
+class PalletShare implements PalletFace {
+  declare building: string;
+  declare face: string;
+  declare tiles: number;
+  constructor(building: string, face: string, tiles: number) {
+    this.building = building;
+    this.face = face;
+    this.tiles = tiles;
+  }
+}
+
+class PalletLine implements PalletItem {
+  declare item: AccessoryItem;
+  declare quantity: number;
+  declare weight_kg: number;
+  constructor(item: AccessoryItem, quantity: number, weightKg: number) {
+    this.item = item;
+    this.quantity = quantity;
+    this.weight_kg = weightKg;
+  }
+}
+
+class LorryLoad implements Load {
+  declare load: number;
+  declare pallets: number[];
+  declare weight_kg: number;
+  constructor(load: number, pallets: number[], weightKg: number) {
+    this.load = load;
+    this.pallets = pallets;
+    this.weight_kg = weightKg;
+  }
+}
+
+/**
+ * Accessory pallets being made up, one after another (a class, not closures: a call site keeps the
+ * last closure it called, and with it the pallets, until the next full collection).
+ */
+class AccessoryPacker {
+  readonly pallets: PalletItem[][] = [];
+  count = 0;
+  current: PalletItem[] | null = null;
+  room = 0;
+  constructor(
+    readonly capacityKg: number,
+    readonly build: boolean,
+  ) {}
+
+  open() {
+    this.count++;
+    this.room = this.capacityKg;
+    this.current = this.build ? NO_ITEMS.slice() : null;
+    if (this.current) this.pallets.push(this.current);
+  }
+}
+
 /** Accessory pallets made up to a net capacity in kg, items in the order given, whole units only. */
 function packAccessories(items: readonly Accessory[], capacityKg: number, build: boolean): { pallets: PalletItem[][]; count: number } {
-  const pallets: PalletItem[][] = [];
-  let count = 0;
-  let current: PalletItem[] | null = null;
-  let room = 0;
-  const open = () => {
-    count++;
-    room = capacityKg;
-    current = build ? [] : null;
-    if (current) pallets.push(current);
-  };
+  const p = new AccessoryPacker(capacityKg, build);
   let started = false;
-  for (const it of items) {
+  for (let k = 0; k < items.length; k++) {
+    const it = items[k];
     let units = it.quantity;
     if (units <= 0) continue;
     if (it.unit_kg <= 0) {
       // Weightless in the system (no weight given): rides on whatever pallet is open.
       if (!started) {
-        open();
+        p.open();
         started = true;
       }
-      if (current) (current as PalletItem[]).push({ item: it.item, quantity: units, weight_kg: 0 });
+      if (p.current) p.current.push(new PalletLine(it.item, units, 0));
       continue;
     }
     const perFull = Math.max(1, Math.floor(capacityKg / it.unit_kg + 1e-9));
     while (units > 0) {
       if (!started) {
-        open();
+        p.open();
         started = true;
       }
-      let fit = Math.floor(room / it.unit_kg + 1e-9);
+      let fit = Math.floor(p.room / it.unit_kg + 1e-9);
       if (fit <= 0) {
-        if (room < capacityKg) {
-          open();
+        if (p.room < capacityKg) {
+          p.open();
           continue;
         }
         fit = 1; // one unit heavier than a pallet: it goes alone
       }
-      if (room === capacityKg && units >= 2 * perFull && !build) {
+      if (p.room === capacityKg && units >= 2 * perFull && !build) {
         // Counting only: whole pallets of this item in one step.
         const whole = Math.floor(units / perFull) - 1;
-        count += whole;
+        p.count += whole;
         units -= whole * perFull;
         continue;
       }
       const take = Math.min(units, fit);
-      if (current) (current as PalletItem[]).push({ item: it.item, quantity: take, weight_kg: round1(take * it.unit_kg) });
+      if (p.current) p.current.push(new PalletLine(it.item, take, round1(take * it.unit_kg)));
       units -= take;
-      room -= take * it.unit_kg;
-      if (units > 0) open();
+      p.room -= take * it.unit_kg;
+      if (units > 0) p.open();
     }
   }
-  return { pallets, count };
+  return { pallets: p.pallets, count: p.count };
+}
+
+/** Accessory pallets for `items`, numbered on from the pallets already listed. */
+function addAccessoryPallets(pallets: Pallet[], items: readonly Accessory[], capacity: number, tare: number) {
+  const packed = packAccessories(items, capacity, true).pallets;
+  for (let k = 0; k < packed.length; k++) {
+    const content = packed[k];
+    let kg = 0;
+    for (let j = 0; j < content.length; j++) kg += content[j].weight_kg;
+    kg += tare;
+    pallets.push(new PalletRecord(pallets.length + 1, 'accessories', 0, round1(kg), NO_FACES, content));
+  }
+}
+
+/** Closes the load being filled: its pallets in loading order (the first off goes on last). */
+function closeLoad(loads: Load[], onLoad: readonly Pallet[], loadKg: number) {
+  if (onLoad.length === 0) return;
+  const order = new Array<number>(onLoad.length);
+  for (let k = 0; k < onLoad.length; k++) order[k] = onLoad[onLoad.length - 1 - k].n;
+  loads.push(new LorryLoad(loads.length + 1, order, round1(loadKg)));
 }
 
 /**
@@ -179,7 +269,8 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
   const issues: DeliveryIssue[] = [];
   const tare = truck.pallet_tare_kg;
   const capacity = Math.max(1e-9, truck.max_pallet_kg - tare);
-  const specials = (input.withTiles ?? []).filter((a) => a.quantity > 0);
+  const specials: Accessory[] = [];
+  if (input.withTiles) for (const a of input.withTiles) if (a.quantity > 0) specials.push(a);
   let specialCount = 0;
   let specialKg = 0;
   for (const a of specials) {
@@ -190,7 +281,9 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
   const tilePallets = pieces > 0 ? Math.ceil(pieces / tile.per_pallet) : 0;
   const firstCount = packAccessories(input.firstOff, capacity, false).count;
   const lastCount = packAccessories(input.lastOff, capacity, false).count;
-  const accessoryKg = [...input.firstOff, ...input.lastOff].reduce((sum, a) => sum + a.quantity * a.unit_kg, 0);
+  let accessoryKg = 0;
+  for (const a of input.firstOff) accessoryKg += a.quantity * a.unit_kg;
+  for (const a of input.lastOff) accessoryKg += a.quantity * a.unit_kg;
   const totalPallets = tilePallets + firstCount + lastCount;
   const weight = input.tilesOrdered * tile.weight_kg + specialKg + accessoryKg + totalPallets * tare;
 
@@ -217,20 +310,14 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
   }
 
   const pallets: Pallet[] = [];
-  const addAccessoryPallets = (items: readonly Accessory[]) => {
-    for (const content of packAccessories(items, capacity, true).pallets) {
-      const kg = content.reduce((s, it) => s + it.weight_kg, 0) + tare;
-      pallets.push({ n: pallets.length + 1, kind: 'accessories', tiles: 0, weight_kg: round1(kg), faces: NO_FACES, items: content });
-    }
-  };
-  addAccessoryPallets(input.firstOff);
+  addAccessoryPallets(pallets, input.firstOff, capacity, tare);
 
   // Stream the faces' tiles onto pallets, then the spare tiles.
   const sources = input.faces;
   let faceIdx = 0;
   let faceLeft = sources.length > 0 ? sources[0].tiles * sources[0].quantity : 0;
   let netLeft = 0;
-  for (const f of sources) netLeft += f.tiles * f.quantity;
+  for (let k = 0; k < sources.length; k++) netLeft += sources[k].tiles * sources[k].quantity;
   let spareLeft = Math.max(0, input.tilesOrdered - netLeft);
   let toPlace = input.tilesOrdered;
   let specialIdx = 0;
@@ -251,8 +338,8 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
       }
       const take = Math.min(specialRoom, specialLeft);
       const a = specials[specialIdx];
-      if (items === NO_ITEMS) items = [];
-      items.push({ item: a.item, quantity: take, weight_kg: round1(take * a.unit_kg) });
+      if (items === NO_ITEMS) items = NO_ITEMS.slice();
+      items.push(new PalletLine(a.item, take, round1(take * a.unit_kg)));
       itemsKg += take * a.unit_kg;
       specialLeft -= take;
       specialRoom -= take;
@@ -266,44 +353,36 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
       }
       const take = Math.min(room, faceLeft);
       const f = sources[faceIdx];
-      palletFaces[served++] = { building: f.building, face: f.face, tiles: take };
+      palletFaces[served++] = new PalletShare(f.building, f.face, take);
       faceLeft -= take;
       room -= take;
     }
     if (room > 0 && spareLeft > 0) {
       const take = Math.min(room, spareLeft);
-      palletFaces[served++] = { building: '', face: 'spare', tiles: take };
+      palletFaces[served++] = new PalletShare('', 'spare', take);
       spareLeft -= take;
     }
-    pallets.push({
-      n: pallets.length + 1,
-      kind: 'tiles',
-      tiles: count,
-      weight_kg: round1(count * tile.weight_kg + itemsKg + tare),
-      // An exact-size copy: a big job holds one of these per pallet.
-      faces: palletFaces.slice(0, served),
-      items,
-    });
+    // The faces as an exact-size copy: a big job holds one of these per pallet.
+    pallets.push(new PalletRecord(pallets.length + 1, 'tiles', count, round1(count * tile.weight_kg + itemsKg + tare), palletFaces.slice(0, served), items));
   }
-  addAccessoryPallets(input.lastOff);
+  addAccessoryPallets(pallets, input.lastOff, capacity, tare);
 
   const loads: Load[] = [];
-  let onLoad: Pallet[] = [];
+  const onLoad: Pallet[] = [];
   let loadKg = 0;
   let overPayload = 0;
-  const close = () => {
-    if (onLoad.length === 0) return;
-    loads.push({ load: loads.length + 1, pallets: onLoad.map((p) => p.n).reverse(), weight_kg: round1(loadKg) });
-    onLoad = [];
-    loadKg = 0;
-  };
-  for (const p of pallets) {
-    if (onLoad.length > 0 && (onLoad.length >= truck.pallet_slots || loadKg + p.weight_kg > truck.payload_kg + 1e-9)) close();
+  for (let k = 0; k < pallets.length; k++) {
+    const p = pallets[k];
+    if (onLoad.length > 0 && (onLoad.length >= truck.pallet_slots || loadKg + p.weight_kg > truck.payload_kg + 1e-9)) {
+      closeLoad(loads, onLoad, loadKg);
+      onLoad.length = 0;
+      loadKg = 0;
+    }
     if (p.weight_kg > truck.payload_kg) overPayload++;
     onLoad.push(p);
     loadKg += p.weight_kg;
   }
-  close();
+  closeLoad(loads, onLoad, loadKg);
   if (overPayload > 0) {
     issues.push({
       code: 'pallet_over_payload',

@@ -9,13 +9,13 @@ import { EVERY_TILE_CLIP_PITCH_DEG, EVERY_TILE_PITCH_DEG, MAX_DELIVERY_PALLETS, 
 import { planDelivery } from './delivery';
 import { battenNails, nailedPieces } from './fixings';
 import { insets, isRaking, planAreaM2, rakingEdgeLength, slopeAreaM2, widthAt, type FaceShape } from './geometry';
-import { loadingRowIndices, namedRidge, pairRidgeFaces, planFaceLoading, type RidgeBalance, type RidgeSide } from './loading';
+import { loadingRowIndices, namedRidge, pairRidgeFaces, planFaceLoading, type FaceLoading, type RidgeBalance, type RidgeSide } from './loading';
 import { BuildingEdgeTally } from './ridge-hip';
 import type { EngineResult, EngineWarning, FaceResult, Flashings, InputProblem } from './result';
 import { parseOpeningsCsv } from './openings-parse';
 import { parseRoofSystem } from './roof-system';
 import { parseScheduleCsv, type ScheduleWarning } from './schedule-parse';
-import { settingOutMarks, settingOutReference } from './setting-out';
+import { settingOutMarks, settingOutReference, type SettingOutFrom } from './setting-out';
 import { fitBetweenVerges, tilesToSpan, type VergeFit } from './tiles-per-course';
 import { ENGINE_VERSION } from './version';
 
@@ -70,12 +70,26 @@ function ordinal(n: number): string {
   return `${n}${suffix}`;
 }
 
+/** A warning (a class for the reason FaceFigures is one: a big job has hundreds). */
+class Notice implements EngineWarning {
+  declare code: string;
+  declare building: string | null;
+  declare face: string | null;
+  declare message: string;
+  constructor(code: string, building: string | null, face: string | null, message: string) {
+    this.code = code;
+    this.building = building;
+    this.face = face;
+    this.message = message;
+  }
+}
+
 function warnBuilding(warnings: EngineWarning[], building: string, code: string, message: string) {
-  warnings.push({ code, building, face: null, message });
+  warnings.push(new Notice(code, building, null, message));
 }
 
 function warnFace(warnings: EngineWarning[], face: Face, code: string, message: string) {
-  warnings.push({ code, building: face.building, face: face.face, message });
+  warnings.push(new Notice(code, face.building, face.face, message));
 }
 
 /** Objects reused from face to face so a 10,000-face job does not allocate per course. */
@@ -87,6 +101,8 @@ interface Scratch {
   brokenCourse: CoursePieces;
   rowPositions: number[];
   supportsByRow: number[];
+  fit: VergeFit;
+  loading: FaceLoading;
   /** Figures of the face just computed that the totals need but the face result does not show. */
   plan_m2: number;
   batten_mm: number;
@@ -223,6 +239,106 @@ function countRakingCourses(shape: FaceShape, setOut: CourseSetOut, oneVerge: bo
   scratch.widest = widest;
 }
 
+/**
+ * One face's figures. Built by a constructor, not an object literal: V8 moves objects from a literal
+ * whose copies all outlive a young-generation collection straight into the old generation from then
+ * on, and a big job's results would then stay in memory until the next full collection (DEVELOPERS.md,
+ * decision 31). Its fields, their order and its JSON are those of FaceResult.
+ */
+class FaceFigures implements FaceResult {
+  declare building: string;
+  declare face: string;
+  declare quantity: number;
+  declare pitch_deg: number;
+  declare rafter_mm: number;
+  declare slope_area_m2: number;
+  declare headlap_mm: number;
+  declare gauge_mm: number;
+  declare courses: number;
+  declare tiles_per_course: number;
+  declare cover_width_mm: number;
+  declare verge_overhang_mm: number | null;
+  declare whole_tiles: number;
+  declare half_tiles: number;
+  declare cut_tiles: number;
+  declare tiles: number;
+  declare eaves_tiles: number;
+  declare top_tiles: number;
+  declare tile_and_half: number;
+  declare openings_area_m2: number;
+  declare ridge: string | null;
+  declare batten_m: number;
+  declare stacks: number;
+  declare stack_positions: number;
+  declare load_kg: number;
+  declare clips: number;
+  declare setting_out_marks_mm: number[];
+  declare setting_out_from: SettingOutFrom;
+  declare stacks_by_row: number[];
+
+  constructor(
+    building: string,
+    face: string,
+    quantity: number,
+    pitch_deg: number,
+    rafter_mm: number,
+    slope_area_m2: number,
+    headlap_mm: number,
+    gauge_mm: number,
+    courses: number,
+    tiles_per_course: number,
+    cover_width_mm: number,
+    verge_overhang_mm: number | null,
+    whole_tiles: number,
+    half_tiles: number,
+    cut_tiles: number,
+    tiles: number,
+    eaves_tiles: number,
+    top_tiles: number,
+    tile_and_half: number,
+    openings_area_m2: number,
+    ridge: string | null,
+    batten_m: number,
+    stacks: number,
+    stack_positions: number,
+    load_kg: number,
+    clips: number,
+    setting_out_marks_mm: number[],
+    setting_out_from: SettingOutFrom,
+    stacks_by_row: number[],
+  ) {
+    this.building = building;
+    this.face = face;
+    this.quantity = quantity;
+    this.pitch_deg = pitch_deg;
+    this.rafter_mm = rafter_mm;
+    this.slope_area_m2 = slope_area_m2;
+    this.headlap_mm = headlap_mm;
+    this.gauge_mm = gauge_mm;
+    this.courses = courses;
+    this.tiles_per_course = tiles_per_course;
+    this.cover_width_mm = cover_width_mm;
+    this.verge_overhang_mm = verge_overhang_mm;
+    this.whole_tiles = whole_tiles;
+    this.half_tiles = half_tiles;
+    this.cut_tiles = cut_tiles;
+    this.tiles = tiles;
+    this.eaves_tiles = eaves_tiles;
+    this.top_tiles = top_tiles;
+    this.tile_and_half = tile_and_half;
+    this.openings_area_m2 = openings_area_m2;
+    this.ridge = ridge;
+    this.batten_m = batten_m;
+    this.stacks = stacks;
+    this.stack_positions = stack_positions;
+    this.load_kg = load_kg;
+    this.clips = clips;
+    this.setting_out_marks_mm = setting_out_marks_mm;
+    this.setting_out_from = setting_out_from;
+    this.stacks_by_row = stacks_by_row;
+  }
+}
+
 function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings: EngineWarning[], scratch: Scratch, openings?: readonly Opening[]): FaceResult {
   const { tile, setting_out: so } = system;
   const shape: FaceShape = face;
@@ -268,7 +384,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   let marksOverhang: number;
 
   if (leftVerge && rightVerge) {
-    const fit = fitBetweenVerges(face.eaves_mm, tile.width_mm, cover, so.verge_overhang_mm);
+    const fit = fitBetweenVerges(face.eaves_mm, tile.width_mm, cover, so.verge_overhang_mm, scratch.fit);
     if (!fit.fits) {
       warnFace(warnings, face, 'no_whole_tile_fit', `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`);
     }
@@ -355,7 +471,7 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   for (let r = C - 1, k = Math.floor(C / system.roof_loading.every_nth_batten); k > 0; r -= system.roof_loading.every_nth_batten, k--) {
     rowPositions[loadingRows++] = scratch.supportsByRow[r];
   }
-  const loading = planFaceLoading(tiles + eavesTiles + topTiles + tah, rowPositions, system.roof_loading.stack_size, loadingRows);
+  const loading = planFaceLoading(tiles + eavesTiles + topTiles + tah, rowPositions, system.roof_loading.stack_size, loadingRows, scratch.loading);
   if (loading.needed_stack !== null) {
     warnFace(
       warnings,
@@ -370,37 +486,37 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   const slope = Math.max(0, slopeAreaM2(shape) - counts.area_mm2 * 1e-6);
   const battenMm = Math.max(0, battens.batten_mm - counts.batten_mm);
   const reference = settingOutReference(face.left, face.right);
-  const result: FaceResult = {
-    building: face.building,
-    face: face.face,
-    quantity: face.quantity,
-    pitch_deg: face.pitch_deg,
-    rafter_mm: r1(face.rafter_mm),
-    slope_area_m2: r2(slope),
-    headlap_mm: setOut.headlap_mm,
-    gauge_mm: down1(setOut.gauge_mm),
-    courses: C,
-    tiles_per_course: tilesPerCourse,
-    cover_width_mm: r1(coverUsed),
-    verge_overhang_mm: overhangUsed === null ? null : r1(overhangUsed),
-    whole_tiles: whole,
-    half_tiles: halves,
-    cut_tiles: cut,
+  const result = new FaceFigures(
+    face.building,
+    face.face,
+    face.quantity,
+    face.pitch_deg,
+    r1(face.rafter_mm),
+    r2(slope),
+    setOut.headlap_mm,
+    down1(setOut.gauge_mm),
+    C,
+    tilesPerCourse,
+    r1(coverUsed),
+    overhangUsed === null ? null : r1(overhangUsed),
+    whole,
+    halves,
+    cut,
     tiles,
-    eaves_tiles: eavesTiles,
-    top_tiles: topTiles,
-    tile_and_half: tah,
-    openings_area_m2: r2(counts.area_mm2 * 1e-6),
-    ridge: face.ridge ?? null,
-    batten_m: r2(battenMm / 1000),
-    stacks: loading.stacks,
-    stack_positions: loading.positions,
-    load_kg: r1(tiles * tile.weight_kg + eavesTiles * tile.eaves_tile_kg + topTiles * tile.top_tile_kg + tah * tile.tile_and_half_kg),
+    eavesTiles,
+    topTiles,
+    tah,
+    r2(counts.area_mm2 * 1e-6),
+    face.ridge ?? null,
+    r2(battenMm / 1000),
+    loading.stacks,
+    loading.positions,
+    r1(tiles * tile.weight_kg + eavesTiles * tile.eaves_tile_kg + topTiles * tile.top_tile_kg + tah * tile.tile_and_half_kg),
     clips,
-    setting_out_marks_mm: settingOutMarks(marksTiles, coverUsed, marksOverhang),
-    setting_out_from: reference,
-    stacks_by_row: loading.stacks_by_row,
-  };
+    settingOutMarks(marksTiles, coverUsed, marksOverhang),
+    reference,
+    loading.stacks_by_row,
+  );
   scratch.plan_m2 = planAreaM2(slope, face.pitch_deg);
   scratch.net_slope_m2 = slope;
   scratch.openings_m2 = counts.area_mm2 * 1e-6;
@@ -567,8 +683,105 @@ function checkBalance(warnings: EngineWarning[], building: string, ridge: RidgeB
   }
 }
 
+/**
+ * Faces of one building grouped by the ridge they name, reused from building to building: `members`
+ * holds the faces' indices group by group (each in schedule order), `start` and `count` say where each
+ * group is; groups are in the order their names first appear. `guessed` counts faces naming no ridge.
+ */
+interface RidgeGroups {
+  members: number[];
+  start: number[];
+  count: number[];
+  groupOf: number[];
+  names: string[];
+  guessed: number;
+}
+
+function newRidgeGroups(): RidgeGroups {
+  return { members: [], start: [], count: [], groupOf: [], names: [], guessed: 0 };
+}
+
+/** True for a name of ASCII characters with no space at either end: trim() keeps it and toLowerCase() keeps its length. */
+function isPlainAscii(s: string): boolean {
+  const n = s.length;
+  if (n === 0 || s.charCodeAt(0) <= 32 || s.charCodeAt(n - 1) <= 32) return false;
+  for (let i = 0; i < n; i++) if (s.charCodeAt(i) >= 128) return false;
+  return true;
+}
+
+/** a.trim().toLowerCase() === b.trim().toLowerCase(), without building the strings for plain ASCII names. */
+export function sameNameWithoutCase(a: string, b: string): boolean {
+  if (a === b) return true;
+  if (!isPlainAscii(a) || !isPlainAscii(b)) return a.trim().toLowerCase() === b.trim().toLowerCase();
+  const n = a.length;
+  if (n !== b.length) return false;
+  for (let i = 0; i < n; i++) {
+    let x = a.charCodeAt(i);
+    let y = b.charCodeAt(i);
+    if (x >= 65 && x <= 90) x += 32;
+    if (y >= 65 && y <= 90) y += 32;
+    if (x !== y) return false;
+  }
+  return true;
+}
+
+/** Past this many ridges in one building, names are found through a map instead of one by one. */
+const RIDGE_GROUPS_SCANNED = 16;
+
+/** Groups a building's ridge faces by ridge name (without case) into `out`; returns the number of groups. */
+function groupRidgeFaces(ridgeFaces: readonly number[], schedule: Schedule, out: RidgeGroups): number {
+  const { groupOf, names, count, start, members } = out;
+  let groups = 0;
+  let guessed = 0;
+  let byKey: Map<string, number> | null = null;
+  for (let k = 0; k < ridgeFaces.length; k++) {
+    const ridge = schedule[ridgeFaces[k]].ridge;
+    if (ridge === undefined) {
+      groupOf[k] = -1;
+      guessed++;
+      continue;
+    }
+    let g = -1;
+    if (byKey !== null) g = byKey.get(ridge.trim().toLowerCase()) ?? -1;
+    else {
+      for (let j = 0; j < groups; j++) {
+        if (sameNameWithoutCase(names[j], ridge)) {
+          g = j;
+          break;
+        }
+      }
+    }
+    if (g < 0) {
+      g = groups++;
+      names[g] = ridge;
+      count[g] = 0;
+      if (byKey !== null) byKey.set(ridge.trim().toLowerCase(), g);
+      else if (groups > RIDGE_GROUPS_SCANNED) {
+        byKey = new Map();
+        for (let j = 0; j < groups; j++) byKey.set(names[j].trim().toLowerCase(), j);
+      }
+    }
+    groupOf[k] = g;
+    count[g]++;
+  }
+  // Members group by group, each group in schedule order (a counting sort).
+  let at = 0;
+  for (let g = 0; g < groups; g++) {
+    start[g] = at;
+    at += count[g];
+  }
+  for (let g = 0; g < groups; g++) count[g] = 0;
+  for (let k = 0; k < ridgeFaces.length; k++) {
+    const g = groupOf[k];
+    if (g < 0) continue;
+    members[start[g] + count[g]++] = ridgeFaces[k];
+  }
+  out.guessed = guessed;
+  return groups;
+}
+
 /** One building's ridge, hip and valley lengths and tiles (into the tally), its ridges and their warnings. */
-function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly FaceResult[], system: RoofSystem, job: JobTally, ridges: RidgeBalance[], warnings: EngineWarning[]) {
+function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly FaceResult[], system: RoofSystem, job: JobTally, ridges: RidgeBalance[], warnings: EngineWarning[], scratch: RidgeGroups) {
   const building = b.name;
   const edges = b.edges.finish(system.ridge.cover_mm, system.hip.cover_mm);
   job.ridgeMm += edges.ridge_mm;
@@ -591,32 +804,22 @@ function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly Fa
     );
   }
   // Faces naming their ridge are grouped by the name (without case); the others are paired by top length.
-  const named = new Map<string, { name: string; sides: RidgeSide[]; mono: boolean }>();
+  const groups = groupRidgeFaces(b.ridgeFaces, schedule, scratch);
+  for (let g = 0; g < groups; g++) {
+    const first = schedule[scratch.members[scratch.start[g]]];
+    const name = (first.ridge as string).trim();
+    const ridge = namedRidge(building, name, scratch.members, scratch.start[g], scratch.count[g], schedule, faces);
+    ridges.push(ridge);
+    if (scratch.count[g] === 1 && first.top_mm > 0 && first.top !== 'mono_ridge') {
+      warnings.push(new Notice('unpaired_ridge_face', building, first.face, `no other face names ridge ${name}: the ridge is counted at half this face's top edge; check the schedule`));
+    }
+    checkBalance(warnings, building, ridge);
+  }
+  if (scratch.guessed === 0) return;
   const guessed: RidgeSide[] = [];
   for (const i of b.ridgeFaces) {
     const face = schedule[i];
-    const side: RidgeSide = { building, face: face.face, top_mm: face.top_mm, load_kg: faces[i].load_kg };
-    if (face.ridge === undefined) {
-      guessed.push(side);
-      continue;
-    }
-    const key = face.ridge.trim().toLowerCase();
-    const group = named.get(key);
-    if (group) group.sides.push(side);
-    else named.set(key, { name: face.ridge.trim(), sides: [side], mono: face.top === 'mono_ridge' });
-  }
-  for (const { name, sides, mono } of named.values()) {
-    const ridge = namedRidge(building, name, sides);
-    ridges.push(ridge);
-    if (sides.length === 1 && sides[0].top_mm > 0 && !mono) {
-      warnings.push({
-        code: 'unpaired_ridge_face',
-        building,
-        face: sides[0].face,
-        message: `no other face names ridge ${name}: the ridge is counted at half this face's top edge; check the schedule`,
-      });
-    }
-    checkBalance(warnings, building, ridge);
+    if (face.ridge === undefined) guessed.push({ building, face: face.face, top_mm: face.top_mm, load_kg: faces[i].load_kg });
   }
   if (guessed.length > 0) {
     warnBuilding(warnings, building, 'ridge_grouping_guessed', `${guessed.length} face(s) meeting a ridge name no ridge: they were paired by equal top length, which can hide an uneven load; give the ridge column`);
@@ -651,6 +854,8 @@ function estimateChecked(schedule: Schedule, system: RoofSystem, openings: reado
     brokenCourse: { whole: 0, halves: 0, cut: 0, perimeter: 0, tah: 0 },
     rowPositions: [],
     supportsByRow: [],
+    fit: { tiles: 0, cover_mm: 0, overhang_mm: 0, fits: false },
+    loading: { positions: 0, stacks: 0, stacks_by_row: [], needed_stack: null },
     plan_m2: 0,
     batten_mm: 0,
     batten_nails: 0,
@@ -679,7 +884,8 @@ function estimateChecked(schedule: Schedule, system: RoofSystem, openings: reado
   }
 
   const ridges: RidgeBalance[] = [];
-  for (const b of job.buildings) finishBuilding(b, schedule, faces, system, job, ridges, warnings);
+  const groups = newRidgeGroups();
+  for (const b of job.buildings) finishBuilding(b, schedule, faces, system, job, ridges, warnings, groups);
   return finishJob(faces, system, tally, job, ridges, warnings);
 }
 
@@ -733,7 +939,7 @@ function finishJob(faces: FaceResult[], system: RoofSystem, tally: PieceTally, j
     system,
     MAX_DELIVERY_PALLETS,
   );
-  for (const issue of delivery.issues) warnings.push({ code: issue.code, building: null, face: null, message: issue.message });
+  for (const issue of delivery.issues) warnings.push(new Notice(issue.code, null, null, issue.message));
 
   const flashings: Flashings = {
     side_abutment_m: r2(flashMm.side / 1000),

@@ -6,6 +6,9 @@ export function loadingRowIndices(courses: number, everyNth: number): number[] {
   return rows;
 }
 
+/** Stacks by row while they are shared out (numbers only, reused from face to face). */
+const PLACED: number[] = [];
+
 export interface FaceLoading {
   /** Places for a stack: rafters crossed by the loading rows. */
   positions: number;
@@ -20,18 +23,18 @@ export interface FaceLoading {
  * Roof loading of one face: stacks of stack_size tiles over the rafters on every nth batten, spread
  * evenly from the top of the face down (upper rows take any odd stack). Stacks = ceil(tiles ÷ stack
  * size). `rowPositions` gives the rafters crossed by each loading row, top row first (its first `rows`
- * entries).
+ * entries). `out`, when given, receives the result (a big job plans one face after another).
  */
-export function planFaceLoading(tiles: number, rowPositions: readonly number[], stackSize: number, rows: number = rowPositions.length): FaceLoading {
+export function planFaceLoading(tiles: number, rowPositions: readonly number[], stackSize: number, rows: number = rowPositions.length, out?: FaceLoading): FaceLoading {
   const stacks = Math.ceil(tiles / stackSize);
   let positions = 0;
   for (let i = 0; i < rows; i++) positions += rowPositions[i];
-  // Sized up front: a job holds one of these per face.
-  const placed: number[] = new Array<number>(rows);
+  // Counted in a scratch row and copied out at its size: a job holds one of these per face, and a copy
+  // comes from no literal (see FaceFigures in estimate.ts).
+  // (Written over, never emptied: setting length to 0 would drop its storage.)
+  const placed = PLACED;
   for (let i = 0; i < rows; i++) placed[i] = 0;
-  if (positions === 0) {
-    return { positions, stacks, stacks_by_row: placed, needed_stack: stacks > 0 ? tiles : null };
-  }
+  if (positions === 0) return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > 0 ? tiles : null);
   let left = Math.min(stacks, positions);
   // Share out evenly in rounds so a full row passes its share on to the rows below it.
   while (left > 0) {
@@ -49,12 +52,16 @@ export function planFaceLoading(tiles: number, rowPositions: readonly number[], 
       left -= take;
     }
   }
-  return {
-    positions,
-    stacks,
-    stacks_by_row: placed,
-    needed_stack: stacks > positions ? Math.ceil(tiles / positions) : null,
-  };
+  return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > positions ? Math.ceil(tiles / positions) : null);
+}
+
+function loadingResult(out: FaceLoading | undefined, positions: number, stacks: number, placed: number[], neededStack: number | null): FaceLoading {
+  if (!out) return { positions, stacks, stacks_by_row: placed, needed_stack: neededStack };
+  out.positions = positions;
+  out.stacks = stacks;
+  out.stacks_by_row = placed;
+  out.needed_stack = neededStack;
+  return out;
 }
 
 export interface RidgeSide {
@@ -126,13 +133,20 @@ export function pairRidgeFaces(sides: readonly RidgeSide[]): { pairs: RidgeBalan
 /**
  * One named ridge of a building: every face that meets it, in schedule order. Its load difference is
  * the heaviest less the lightest of its slopes (faces with a top edge); its hip ends (top 0), which
- * meet it at a point, are compared with each other; the larger difference is given, kg to 0.1.
+ * meet it at a point, are compared with each other; the larger difference is given, kg to 0.1. The
+ * faces are `members[from]` … `members[from + n − 1]`, indices into the schedule and its results.
  */
-export function namedRidge(building: string, ridge: string, sides: readonly RidgeSide[]): RidgeBalance {
-  const n = sides.length;
-  // Sized up front: a job holds one of these per ridge.
-  const faces = new Array<string>(n);
-  const loads = new Array<number>(n);
+export function namedRidge(
+  building: string,
+  ridge: string,
+  members: readonly number[],
+  from: number,
+  n: number,
+  schedule: ReadonlyArray<{ face: string; top_mm: number }>,
+  results: ReadonlyArray<{ load_kg: number }>,
+): RidgeBalance {
+  const faces = RIDGE_FACES;
+  const loads = RIDGE_LOADS;
   let slopes = 0;
   let slopeLo = Infinity;
   let slopeHi = -Infinity;
@@ -140,8 +154,9 @@ export function namedRidge(building: string, ridge: string, sides: readonly Ridg
   let endLo = Infinity;
   let endHi = -Infinity;
   for (let i = 0; i < n; i++) {
-    const s = sides[i];
-    const v = s.load_kg;
+    const at = members[from + i];
+    const s = schedule[at];
+    const v = results[at].load_kg;
     faces[i] = s.face;
     loads[i] = v;
     if (s.top_mm > 0) {
@@ -155,11 +170,31 @@ export function namedRidge(building: string, ridge: string, sides: readonly Ridg
     }
   }
   const difference = Math.max(slopes < 2 ? 0 : slopeHi - slopeLo, ends < 2 ? 0 : endHi - endLo);
-  return {
-    building,
-    ridge,
-    faces,
-    load_kg: loads,
-    difference_kg: Math.round(difference * 10) / 10,
-  };
+  // Exact-size copies (a job holds one of these per ridge); the scratch lets go of the names.
+  const names = faces.slice(0, n);
+  for (let i = 0; i < n; i++) faces[i] = '';
+  return new RidgeLoad(building, ridge, names, loads.slice(0, n), Math.round(difference * 10) / 10);
+}
+
+/** Names and loads of a ridge's faces while it is put together, reused from ridge to ridge. */
+const RIDGE_FACES: string[] = [];
+const RIDGE_LOADS: number[] = [];
+
+/**
+ * A ridge's balance, built by a constructor rather than an object literal (see FaceFigures in
+ * estimate.ts); fields, their order and the JSON are RidgeBalance's.
+ */
+class RidgeLoad implements RidgeBalance {
+  declare building: string;
+  declare ridge: string | null;
+  declare faces: string[];
+  declare load_kg: number[];
+  declare difference_kg: number;
+  constructor(building: string, ridge: string | null, faces: string[], loads: number[], differenceKg: number) {
+    this.building = building;
+    this.ridge = ridge;
+    this.faces = faces;
+    this.load_kg = loads;
+    this.difference_kg = differenceKg;
+  }
 }

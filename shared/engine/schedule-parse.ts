@@ -253,9 +253,14 @@ export function parseScheduleCsv(text: string, system?: RoofSystem): SchedulePar
     };
   }
   const delimiter = detectDelimiter(body);
-  const reader = new ScheduleReader(delimiter, system ? lowestPitch(system.tile.headlap_mm) : -Infinity);
-  Papa.parse<string[]>(body, papaConfig(delimiter, (results) => reader.chunk(results), body.length) as ChunkedParseConfig & Papa.ParseLocalConfig<string[], Papa.LocalFile>);
-  return reader.finish();
+  let reader: ScheduleReader | null = new ScheduleReader(delimiter, system ? lowestPitch(system.tile.headlap_mm) : -Infinity);
+  Papa.parse<string[]>(body, papaConfig(delimiter, (results) => reader?.chunk(results), body.length) as ChunkedParseConfig & Papa.ParseLocalConfig<string[], Papa.LocalFile>);
+  const parsed = reader.finish();
+  // papaparse's call sites keep a reference to the last callback they called until the next full
+  // collection, and young-generation collections count it: cut the callback off from the faces, so
+  // they die young once the caller is done with them.
+  reader = null;
+  return parsed;
 }
 
 /** The state of one schedule being read, fed by papaparse a chunk of rows at a time. */

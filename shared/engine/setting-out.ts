@@ -9,12 +9,17 @@ export type SettingOutFrom = 'right_verge' | 'left_verge' | 'right_end';
  * (no overhang). Returned to 0.1 mm.
  */
 export function settingOutMarks(tilesInCourse: number, coverMm: number, overhangMm: number): number[] {
-  // Sized up front: a job holds one of these per face.
+  // Worked out in a scratch row and copied at its size: a job holds one of these per face, and a copy
+  // comes from no literal, which V8 would move to the old generation wholesale (DEVELOPERS.md, decision 31).
   const count = tilesInCourse > 3 ? Math.floor((tilesInCourse - 1) / 3) : 0;
-  const marks: number[] = new Array<number>(count);
+  // (Written over, never emptied: setting length to 0 would drop its storage.)
+  const marks = MARKS;
   for (let i = 0; i < count; i++) marks[i] = Math.round((3 * (i + 1) * coverMm - overhangMm) * 10) / 10;
-  return marks;
+  return marks.slice(0, count);
 }
+
+/** Marks being worked out (numbers only, reused from face to face). */
+const MARKS: number[] = [];
 
 /** Which edge the marks are measured from, for a face's left and right edges. */
 export function settingOutReference(left: string, right: string): SettingOutFrom {

@@ -64,9 +64,9 @@ function tryGaps(gaps: number, span: number, widthMm: number, tileWidthMm: numbe
  * inside its range. Of the n that fit, the one whose cover at the target overhang is nearest the
  * nominal cover wins (the cover is spread or closed at the side lock, the overhang kept on target when
  * the play allows). When no whole n fits, the course is set out at nominal cover and target overhang
- * and one tile is cut.
+ * and one tile is cut. `out`, when given, receives the result.
  */
-export function fitBetweenVerges(widthMm: number, tileWidthMm: number, cover: CoverPlay, overhang: OverhangRange): VergeFit {
+export function fitBetweenVerges(widthMm: number, tileWidthMm: number, cover: CoverPlay, overhang: OverhangRange, out?: VergeFit): VergeFit {
   const span = widthMm + 2 * overhang.target - tileWidthMm;
   const ideal = span / cover.nominal;
   // The feasible numbers of gaps form an interval that holds `ideal`, so if any whole number fits,
@@ -85,13 +85,17 @@ export function fitBetweenVerges(widthMm: number, tileWidthMm: number, cover: Co
       bestOverhang = trial.overhang;
     }
   }
-  if (bestGaps >= 0) return { tiles: bestGaps + 1, cover_mm: bestCover, overhang_mm: bestOverhang, fits: true };
-  return {
-    tiles: Math.max(1, Math.ceil(ideal - EPS) + 1),
-    cover_mm: cover.nominal,
-    overhang_mm: overhang.target,
-    fits: false,
-  };
+  if (bestGaps >= 0) return fitResult(out, bestGaps + 1, bestCover, bestOverhang, true);
+  return fitResult(out, Math.max(1, Math.ceil(ideal - EPS) + 1), cover.nominal, overhang.target, false);
+}
+
+function fitResult(out: VergeFit | undefined, tiles: number, coverMm: number, overhangMm: number, fits: boolean): VergeFit {
+  if (!out) return { tiles, cover_mm: coverMm, overhang_mm: overhangMm, fits };
+  out.tiles = tiles;
+  out.cover_mm = coverMm;
+  out.overhang_mm = overhangMm;
+  out.fits = fits;
+  return out;
 }
 
 /**

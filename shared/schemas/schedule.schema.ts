@@ -164,26 +164,50 @@ export function crossCheckFace(c: FaceCandidate): FieldProblem[] {
 
 /** Fills the derived fields of a checked row: rafter from run, top from eaves. */
 export function resolveFace(c: FaceCandidate): Face {
-  const cos = Math.cos((c.pitch_deg * Math.PI) / 180);
-  const rafter = c.rafter_mm ?? (c.run_mm as number) / cos;
-  const bothVerges = c.left === 'verge' && c.right === 'verge';
-  return {
-    building: c.building,
-    face: c.face,
-    quantity: c.quantity,
-    pitch_deg: c.pitch_deg,
-    rafter_mm: rafter,
-    run_mm: c.run_mm ?? rafter * cos,
-    eaves_mm: c.eaves_mm,
+  return new ResolvedFace(c);
+}
+
+/**
+ * A checked face. Built by a constructor, not an object literal: V8 moves objects from a literal whose
+ * copies all outlive a young-generation collection straight into the old generation from then on, and
+ * a big schedule's faces would then stay in memory until the next full collection (see DEVELOPERS.md,
+ * decision 31). Its fields, their order and its JSON are those of the literal it replaces.
+ */
+class ResolvedFace {
+  declare building: string;
+  declare face: string;
+  declare quantity: number;
+  declare pitch_deg: number;
+  declare rafter_mm: number;
+  declare run_mm: number;
+  declare eaves_mm: number;
+  declare top_mm: number;
+  declare left: EdgeKind;
+  declare right: EdgeKind;
+  declare top: TopKind;
+  declare ridge?: string;
+  declare top_assumed?: boolean;
+
+  constructor(c: FaceCandidate) {
+    const cos = Math.cos((c.pitch_deg * Math.PI) / 180);
+    const rafter = c.rafter_mm ?? (c.run_mm as number) / cos;
+    const bothVerges = c.left === 'verge' && c.right === 'verge';
+    this.building = c.building;
+    this.face = c.face;
+    this.quantity = c.quantity;
+    this.pitch_deg = c.pitch_deg;
+    this.rafter_mm = rafter;
+    this.run_mm = c.run_mm ?? rafter * cos;
+    this.eaves_mm = c.eaves_mm;
     // Between two verges the face is a rectangle; a top within 1 % of the eaves is read as the same length.
-    top_mm: bothVerges ? c.eaves_mm : (c.top_mm ?? c.eaves_mm),
-    left: c.left,
-    right: c.right,
-    top: c.top,
-    ...(c.ridge === undefined ? {} : { ridge: c.ridge }),
+    this.top_mm = bothVerges ? c.eaves_mm : (c.top_mm ?? c.eaves_mm);
+    this.left = c.left;
+    this.right = c.right;
+    this.top = c.top;
+    if (c.ridge !== undefined) this.ridge = c.ridge;
     // Only a stored schedule from before top_mm was required beside hips and valleys gets here without one.
-    ...(c.top_mm === undefined && !bothVerges && hasDiagonalEdge(c) ? { top_assumed: true } : {}),
-  };
+    if (c.top_mm === undefined && !bothVerges && hasDiagonalEdge(c)) this.top_assumed = true;
+  }
 }
 
 /** Key that makes a face unique within its building (names compared without case or outer spaces). */

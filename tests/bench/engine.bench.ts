@@ -4,7 +4,8 @@
  * Half the houses are slated (double lap, with eaves and top courses and slate-and-a-half verges) and
  * half are in single-lap tiles, so the job is two schedules, each with its openings file and its own
  * roof system. In the same run papaparse reads the same CSVs alone: as a header-row CSV usually is (the
- * ratio the target applies to), and with the schedule reader's own chunked settings (printed too).
+ * ratio the target applies to), and with the schedule reader's own chunked settings (printed too); the
+ * three are warmed up alike and timed interleaved, their order turned from round to round.
  * Prints faces per second, both ratios and peak memory, and ends with one JSON line.
  * Peak memory is measured in processes of their own, each running the same warm-up and timed runs:
  * one runs only the pipeline (the target's figure), one only the bare header-row parse (for
@@ -148,23 +149,29 @@ function main() {
   const headerAll = (_csv: string) => parseAll(headerParse, parts);
   const csv = '';
 
-  // Warm up every path so the JIT has compiled them before timing.
+  // Warm up every path alike, so the JIT has compiled each before timing.
   for (let i = 0; i < WARM_UP; i++) {
+    timeParse(headerAll, csv, faces);
     timeParse(sameAll, csv, faces);
     timePipeline(parts);
   }
-  timeParse(headerAll, csv, faces);
 
-  // The pipeline and the parse with its own settings interleaved, so a busy moment on a shared machine
-  // falls on both alike; then the header-row parse, whose 10,000 row objects are its own garbage.
+  // The pipeline and both bare parses interleaved, their order turned from round to round: the header
+  // parse is the ratio's denominator, so a busy moment on a shared machine, or a collection of the
+  // garbage the run before left behind, falls on it and on the pipeline alike. (Timing the header parse
+  // in a block of its own after the pipeline's, with one warm-up to the pipeline's two, set the two
+  // sides of the ratio in different minutes of a machine whose load swings.)
+  const headerMs: number[] = [];
   const sameMs: number[] = [];
   const pipelineMs: number[] = [];
   for (let i = 0; i < RUNS; i++) {
-    sameMs.push(timeParse(sameAll, csv, faces));
-    pipelineMs.push(timePipeline(parts));
+    for (let k = 0; k < 3; k++) {
+      const which = (i + k) % 3;
+      if (which === 0) headerMs.push(timeParse(headerAll, csv, faces));
+      else if (which === 1) sameMs.push(timeParse(sameAll, csv, faces));
+      else pipelineMs.push(timePipeline(parts));
+    }
   }
-  const headerMs: number[] = [];
-  for (let i = 0; i < RUNS; i++) headerMs.push(timeParse(headerAll, csv, faces));
 
   const header = median(headerMs);
   const same = median(sameMs);
@@ -178,7 +185,7 @@ function main() {
   const parseRssMb = measureApart(MEMORY_MODES.parse);
   const ms = (list: number[]) => `median ${median(list).toFixed(1)} ms, fastest ${Math.min(...list).toFixed(1)} ms`;
 
-  console.log(`schedule: ${faces} faces (${HOUSES} houses × ${FACES_PER_HOUSE}; ${doubleLapFaces} slated, double lap), ${openings} openings, ${(csvBytes / 1024).toFixed(0)} KiB of CSV, ${RUNS} interleaved runs`);
+  console.log(`schedule: ${faces} faces (${HOUSES} houses × ${FACES_PER_HOUSE}; ${doubleLapFaces} slated, double lap), ${openings} openings, ${(csvBytes / 1024).toFixed(0)} KiB of CSV, ${RUNS} interleaved rounds`);
   console.log(`papaparse alone, header row:           ${ms(headerMs)}`);
   console.log(`papaparse alone, the reader's settings: ${ms(sameMs)} (chunked, no header objects)`);
   console.log(`parse + check + estimate:              ${ms(pipelineMs)}`);
