@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { pageApi } from '../setup/e2e-pages';
-import { useJourney } from './harness';
+import { expectAccessible, useJourney } from './harness';
 
 const journey = useJourney();
 
@@ -54,12 +54,15 @@ describe('the demo desk answers a quote request from the demo estimator', () => 
 
       // The estimator asks Tollerbeck Yard (its system's branch, ticked already) and Caddonmere Wharf.
       await estimator.goto(`${journey.server.url}/estimates/${estimate.id}`);
+      await estimator.getByRole('link', { name: 'Ask merchants for quotes' }).waitFor();
+      await expectAccessible(estimator);
       await estimator.getByRole('link', { name: 'Ask merchants for quotes' }).click();
       await estimator.waitForURL(new RegExp(`/estimates/${estimate.id}/quote$`));
       const askForm = estimator.getByRole('form', { name: 'Ask for quotes' });
       const yardBox = askForm.getByRole('checkbox', { name: /Tollerbeck Yard/ });
       await yardBox.waitFor();
       expect(await yardBox.isChecked()).toBe(true);
+      await expectAccessible(estimator);
       await askForm.getByRole('checkbox', { name: /Caddonmere Wharf/ }).check();
       await askForm.getByLabel('Day wanted').fill(inThreeWeeks());
       await askForm.getByLabel('Your PO reference').fill('HB-QUOTE-E2E');
@@ -68,15 +71,19 @@ describe('the demo desk answers a quote request from the demo estimator', () => 
       const requestId = Number(new URL(estimator.url()).pathname.split('/').pop());
       await estimator.getByRole('heading', { level: 1, name: `Quote request ${requestId}` }).waitFor();
       expect(await estimator.getByText('Waiting for a price').count()).toBe(2);
+      await expectAccessible(estimator);
 
       // The desk finds this request among the ones waiting (the demo has others) and prices it.
       const desk = await deskContext.newPage();
       desk.on('pageerror', (error) => failures.push(error.message));
       await signIn(desk, 'sales@demo.test', /\/desk$/);
       await desk.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Quote requests' }).click();
+      await desk.getByRole('link', { name: `Request ${requestId}`, exact: true }).waitFor();
+      await expectAccessible(desk);
       await desk.getByRole('link', { name: `Request ${requestId}`, exact: true }).click();
       await desk.waitForURL(new RegExp(`/desk/quotes/${requestId}$`));
       await desk.getByRole('heading', { name: 'Tollerbeck Yard: Waiting for a price' }).waitFor();
+      await expectAccessible(desk);
 
       const asked = await api<RequestDetail>(desk, 'GET', `/api/quote-requests/${requestId}`);
       expect(asked.lines.length).toBeGreaterThanOrEqual(5);
@@ -126,6 +133,7 @@ describe('the demo desk answers a quote request from the demo estimator', () => 
       await estimator.reload();
       const table = estimator.getByRole('table', { name: 'The answers side by side' });
       await table.waitFor();
+      await expectAccessible(estimator);
       const tileRow = table.getByRole('row').filter({ hasText: tileLine.description });
       expect(await tileRow.innerText()).toContain('Not offered');
       expect(await tileRow.innerText()).toContain(`× £${(TILE_JOB_PRICE / 100).toFixed(2)}`);
@@ -144,6 +152,7 @@ describe('the demo desk answers a quote request from the demo estimator', () => 
       const orderId = Number(new URL(estimator.url()).pathname.split('/').pop());
       await estimator.getByRole('heading', { level: 1, name: /^Order RL-\d{6}$/ }).waitFor();
       await estimator.getByText('Sent to the merchant').first().waitFor();
+      await expectAccessible(estimator);
 
       // The order carries the quoted products, packs and prices, and the request is closed.
       const order = await api<{ quote_id: number; po_reference: string; reference: string; subtotal: number; lines: { sku: string; quantity: number; unit_price: number }[] }>(estimator, 'GET', `/api/orders/${orderId}`);
@@ -160,6 +169,7 @@ describe('the demo desk answers a quote request from the demo estimator', () => 
       const row = desk.getByRole('table', { name: 'Order book' }).getByRole('row', { name: new RegExp(order.reference) });
       await row.waitFor();
       expect(await row.innerText()).toContain('Hollin Brow');
+      await expectAccessible(desk);
 
       expect(failures).toEqual([]);
     } finally {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { pageApi } from '../setup/e2e-pages';
-import { useJourney } from './harness';
+import { expectAccessible, useJourney } from './harness';
 
 const journey = useJourney();
 
@@ -31,9 +31,11 @@ describe('the desk sends the back-ordered packs on later', () => {
 
     await desk.goto(`${journey.server.url}/desk/orders/${first!.id}`);
     await desk.getByRole('heading', { name: 'Back-ordered packs' }).waitFor();
+    await expectAccessible(desk);
     await desk.getByRole('button', { name: 'Start the follow-up order' }).click();
     await desk.waitForURL((url) => /\/desk\/orders\/\d+$/.test(url.pathname) && !url.pathname.endsWith(`/${first!.id}`));
     await desk.getByRole('list', { name: 'Linked orders' }).getByText(`Carries the back-ordered packs of ${first!.reference}`).waitFor();
+    await expectAccessible(desk);
 
     const followId = Number(new URL(desk.url()).pathname.split('/').pop());
     const follow = await pageApi<Detail>(desk, 'GET', `/api/orders/${followId}`);
@@ -50,5 +52,6 @@ describe('the desk sends the back-ordered packs on later', () => {
     await journey.signIn(estimator, 'estimator@demo.test', /\/contractor$/);
     await estimator.goto(`${journey.server.url}/orders/${followId}`);
     await estimator.getByRole('list', { name: 'Back-ordered packs' }).getByText(`Carries the back-ordered packs of ${first!.reference}`).waitFor();
+    await expectAccessible(estimator);
   });
 });
