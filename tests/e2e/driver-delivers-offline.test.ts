@@ -115,6 +115,7 @@ describe('the driver records a delivery without signal, and the contractor sees 
       expect(await waiting.innerText()).toContain('No signal: kept on this phone and sent when the signal returns.');
       expect(await waiting.getByTestId('waiting-entry').innerText()).toContain(`Delivery of ${drop.reference} at ${drop.site.name}, taken by ${RECEIVER} (signature, 1 photo)`);
       await card.getByText('Recorded, waiting to send', { exact: true }).waitFor();
+      await expectAccessible(driver);
       // Nothing reached the server yet.
       const [{ count: before }] = await journey.server.db('delivery_proofs').where({ order_id: drop.order_id }).count({ count: '*' });
       expect(Number(before)).toBe(0);
