@@ -18,7 +18,7 @@ interface Detail {
 }
 
 describe('the desk sends the back-ordered packs on later', () => {
-  it('starts the follow-up order from the part-confirmed demo order, lands on it, and the contractor sees both ends', { timeout: 90_000 }, async () => {
+  it('starts the follow-up order from the part-confirmed demo order, lands on it, and the contractor sees both ends', { timeout: 180_000 }, async () => {
     const desk = await (await journey.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
     await journey.signIn(desk, 'sales@demo.test', /\/desk$/);
     // The demo book holds one confirmed order with part of its hip tiles back-ordered (PO HB-P05).
