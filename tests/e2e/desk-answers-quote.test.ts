@@ -35,7 +35,7 @@ describe('the demo desk answers a quote request from the demo estimator', () => 
   // A long story with an accessibility check on every page it opens: each check takes seconds on a busy machine.
   it(
     'the estimator asks two merchants to price an estimate, the desk prices each line with its own products and packs, the estimator compares and turns the answer into an order at the quoted prices',
-    { timeout: 240_000 },
+    { timeout: 300_000 },
     async () => {
       const estimatorContext = await journey.browser.newContext({ viewport: { width: 1280, height: 900 } });
       const deskContext = await journey.browser.newContext({ viewport: { width: 1440, height: 900 } });

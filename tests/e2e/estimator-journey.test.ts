@@ -22,7 +22,7 @@ async function tilesOnTheBill(page: Page): Promise<number> {
 
 describe('an estimator goes from a CSV of roof faces to a placed order', () => {
   // A long story with an accessibility check on every page it opens: each check takes seconds on a busy machine.
-  it('creates a site, fixes a bad cell in the preview, imports, estimates, exports and orders', { timeout: 240_000 }, async () => {
+  it('creates a site, fixes a bad cell in the preview, imports, estimates, exports and orders', { timeout: 300_000 }, async () => {
     const context = await journey.browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
     const page = await context.newPage();
     const failures: string[] = [];

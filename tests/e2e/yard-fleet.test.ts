@@ -27,7 +27,7 @@ const WINDOWS = ['07:30-12:00', '12:30-16:30'];
 
 describe('the demo yard adds a lorry, gives it a week of slots and sends a booked order out with a driver', () => {
   // A long story with an accessibility check on every page it opens: each check takes seconds on a busy machine.
-  it('the dispatcher adds a crane lorry, makes its slots for a run of weekdays, sees them on the calendar, and puts the driver on a booked run before sending it out', { timeout: 240_000 }, async () => {
+  it('the dispatcher adds a crane lorry, makes its slots for a run of weekdays, sees them on the calendar, and puts the driver on a booked run before sending it out', { timeout: 300_000 }, async () => {
     const monday = mondayAhead();
     const sunday = iso(Date.parse(`${monday}T00:00:00Z`) + 6 * DAY);
     const saturday = iso(Date.parse(`${monday}T00:00:00Z`) + 5 * DAY);
