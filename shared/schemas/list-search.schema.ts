@@ -68,3 +68,13 @@ export const quoteRequestSearchSchema = z.object({
   q: searchWordsSchema,
 });
 export type QuoteRequestSearch = z.output<typeof quoteRequestSearchSchema>;
+
+/** The firm's sites: the search words (the list follows them as they are typed) and whether archived sites are included. */
+export const projectSearchSchema = z.object({
+  q: searchWordsSchema,
+  archived: z
+    .literal('on')
+    .optional()
+    .transform((ticked) => (ticked ? ('all' as const) : ('false' as const))),
+});
+export type ProjectSearch = z.output<typeof projectSearchSchema>;
