@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { PRODUCT_CATEGORIES } from './catalogue.schema';
+import { INVOICE_STATUSES } from './invoice.schema';
 import { ORDER_DATE_FIELDS, ORDER_STATUSES, QUOTE_REQUEST_STATUSES, isoDateSchema } from './order.schema';
 
 /**
@@ -78,3 +80,20 @@ export const projectSearchSchema = z.object({
     .transform((ticked) => (ticked ? ('all' as const) : ('false' as const))),
 });
 export type ProjectSearch = z.output<typeof projectSearchSchema>;
+
+/** Invoices: one state, or every invoice. */
+export const invoiceFilterSchema = z.object({ status: choiceOrEvery(INVOICE_STATUSES) });
+
+/** The merchant's products: in use, archived or both, and one category or every one. */
+export const productFilterSchema = z.object({
+  archived: z.enum(['false', 'true', 'all']).default('false'),
+  category: choiceOrEvery(PRODUCT_CATEGORIES),
+});
+
+/** A branch's stock: only what is at or below its reorder level (a tick box), or everything. */
+export const stockFilterSchema = z.object({
+  low_only: z
+    .literal('on')
+    .optional()
+    .transform((ticked) => ticked === 'on'),
+});

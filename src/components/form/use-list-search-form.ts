@@ -1,5 +1,7 @@
 import { useEffect, useRef } from 'react';
+import { useWatch } from 'react-hook-form';
 import type { z } from 'zod';
+import { flattenFieldValues } from './server-errors';
 import { useSchemaForm } from './use-schema-form';
 import type { SchemaForm } from './use-schema-form';
 
@@ -29,4 +31,16 @@ export function useListSearchForm<TSchema extends z.ZodType>({ schema, address, 
   });
   const { submit } = form;
   return { form, searchNow: () => void submit() };
+}
+
+/**
+ * A filter bar the list follows as it changes, with nothing to press (a view's selects and tick
+ * boxes): the form's values read through its schema on every change. Until the inputs have
+ * registered, or should they hold something the schema refuses, the list shows `fallback`.
+ */
+export function useLiveFilterForm<TSchema extends z.ZodType>(schema: TSchema, fallback: z.output<TSchema>): { form: SchemaForm; filters: z.output<TSchema> } {
+  const form = useSchemaForm({ schema, onSubmit: () => undefined });
+  const watched = useWatch({ control: form.methods.control });
+  const read = schema.safeParse(flattenFieldValues(watched));
+  return { form, filters: read.success ? read.data : fallback };
 }
