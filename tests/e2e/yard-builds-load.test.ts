@@ -30,7 +30,8 @@ const dropRefs = async (page: Page) =>
   ).map((t) => /RL-\d+/.exec(t)?.[0] ?? t);
 
 describe('the yard builds today’s load and sends the lorry out by the rule', () => {
-  it('the dispatcher opens today’s run, swaps its drops with the arrow buttons, ticks every pallet loaded, prints the labels and sends it out without an override', async () => {
+  // A long story with an accessibility check on every page it opens: each check takes seconds on a busy machine.
+  it('the dispatcher opens today’s run, swaps its drops with the arrow buttons, ticks every pallet loaded, prints the labels and sends it out without an override', { timeout: 300_000 }, async () => {
     const today = new BusinessCalendar(process.env.BUSINESS_TIME_ZONE ?? DEFAULT_BUSINESS_TIME_ZONE).today();
     const context = await journey.browser.newContext({ viewport: { width: 1440, height: 900 } });
     try {
