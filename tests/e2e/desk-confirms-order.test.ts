@@ -51,7 +51,7 @@ async function placeOrderAsEstimator(page: Page, date: string): Promise<Placed> 
 
 describe('the demo desk confirms the order the demo estimator placed', () => {
   // A long story with an accessibility check on every page it opens: each check takes seconds on a busy machine.
-  it('the estimator orders, the desk confirms it into a lorry slot, the estimator sees the slot; once delivered the desk invoices it and the estimator pays by card', { timeout: 300_000 }, async () => {
+  it('the estimator orders, the desk confirms it into a lorry slot, the estimator sees the slot; once delivered the desk invoices it and the estimator pays by card', { timeout: 480_000 }, async () => {
     const date = nextWorkingDay();
     const estimatorContext = await journey.browser.newContext({ viewport: { width: 1280, height: 900 } });
     const deskContext = await journey.browser.newContext({ viewport: { width: 1440, height: 900 } });
