@@ -50,10 +50,6 @@ function FormErrorArea() {
 export const inputClasses =
   'block w-full min-h-tap rounded-md border bg-white px-3 text-base text-ink-900 placeholder:text-ink-400 ' + 'aria-[invalid=true]:border-brick-600 aria-[invalid=true]:ring-1 aria-[invalid=true]:ring-brick-600';
 
-/** The phone's larger inputs (a driver with gloves on): a taller box, larger type, a heavier border. */
-export const largeInputClasses =
-  'block w-full min-h-tap-lg rounded-md border-2 bg-white px-3 text-xl text-ink-900 placeholder:text-ink-400 ' + 'aria-[invalid=true]:border-brick-600 aria-[invalid=true]:ring-1 aria-[invalid=true]:ring-brick-600';
-
 /** The ids of a field's input, hint and error, from the form's id and the field's path. */
 export function fieldIds(form: Pick<SchemaForm, 'id'>, name: string) {
   const base = `${form.id}-${name.replace(/\W/g, '-')}`;
@@ -96,26 +92,10 @@ function useRegistered<E>(name: string, handlers: { onChange?: (event: E) => voi
 }
 
 /** The frame every text-like field shares: its label, its hint, the control, then its error. */
-function FieldFrame({
-  ids,
-  label,
-  hint,
-  error,
-  className,
-  large = false,
-  children,
-}: {
-  ids: { input: string; hint: string; error: string };
-  label: string;
-  hint?: ReactNode;
-  error?: string;
-  className: string;
-  large?: boolean;
-  children: ReactNode;
-}) {
+function FieldFrame({ ids, label, hint, error, className, children }: { ids: { input: string; hint: string; error: string }; label: string; hint?: ReactNode; error?: string; className: string; children: ReactNode }) {
   return (
     <div className={className}>
-      <label htmlFor={ids.input} className={large ? 'mb-1 block text-xl font-semibold text-ink-900' : 'mb-1.5 block font-medium text-ink-900'}>
+      <label htmlFor={ids.input} className="mb-1.5 block font-medium text-ink-900">
         {label}
       </label>
       {hint ? <FieldHint id={ids.hint}>{hint}</FieldHint> : null}
@@ -129,20 +109,18 @@ interface TextFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'na
   name: string;
   label: string;
   hint?: ReactNode;
-  /** The phone's larger field (the driver's pages). */
-  large?: boolean;
 }
 
-export function TextField({ name, label, hint, type = 'text', className = '', large = false, onChange, onBlur, ...rest }: TextFieldProps) {
+export function TextField({ name, label, hint, type = 'text', className = '', onChange, onBlur, ...rest }: TextFieldProps) {
   const { registered, error, ids } = useRegistered(name, { onChange, onBlur });
   return (
-    <FieldFrame ids={ids} label={label} hint={hint} error={error} className={className} large={large}>
+    <FieldFrame ids={ids} label={label} hint={hint} error={error} className={className}>
       <input
         id={ids.input}
         type={type}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(ids, hint, error)}
-        className={`${large ? largeInputClasses : inputClasses} ${error ? 'border-brick-600' : 'border-ink-300'}`}
+        className={`${inputClasses} ${error ? 'border-brick-600' : 'border-ink-300'}`}
         {...rest}
         {...registered}
       />
@@ -154,20 +132,18 @@ interface TextAreaFieldProps extends Omit<TextareaHTMLAttributes<HTMLTextAreaEle
   name: string;
   label: string;
   hint?: ReactNode;
-  /** The phone's larger field (the driver's pages). */
-  large?: boolean;
 }
 
-export function TextAreaField({ name, label, hint, className = '', rows = 3, large = false, onChange, onBlur, ...rest }: TextAreaFieldProps) {
+export function TextAreaField({ name, label, hint, className = '', rows = 3, onChange, onBlur, ...rest }: TextAreaFieldProps) {
   const { registered, error, ids } = useRegistered(name, { onChange, onBlur });
   return (
-    <FieldFrame ids={ids} label={label} hint={hint} error={error} className={className} large={large}>
+    <FieldFrame ids={ids} label={label} hint={hint} error={error} className={className}>
       <textarea
         id={ids.input}
         rows={rows}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(ids, hint, error)}
-        className={`block w-full rounded-md bg-white px-3 py-2 text-ink-900 placeholder:text-ink-400 ${large ? 'border-2 text-xl' : 'border text-base'} ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`}
+        className={`block w-full rounded-md border bg-white px-3 py-2 text-base text-ink-900 placeholder:text-ink-400 ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`}
         {...rest}
         {...registered}
       />

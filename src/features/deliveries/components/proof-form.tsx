@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import type { DriverDrop } from '../../../../shared/schemas/run.schema';
-import { CheckboxField, FieldMessage, Form, TextAreaField, TextField, fieldIds, largeInputClasses, useSchemaFormContext } from '../../../components/form/fields';
+import { CheckboxField, FieldMessage, Form, describedBy, fieldIds, useSchemaFormContext } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
 import { useOutbox } from '../lib/phone-outbox';
@@ -45,6 +45,30 @@ function usePosition(): PositionState {
 }
 
 const time = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit' });
+
+/** The phone's inputs: taller, larger type and a heavier border than the desk's, for a driver with gloves on. */
+const largeInputClasses = 'block min-h-tap-lg w-full rounded-md border-2 bg-white px-3 text-xl aria-[invalid=true]:border-brick-600 aria-[invalid=true]:ring-1 aria-[invalid=true]:ring-brick-600';
+
+/** A text field of the proof form, on the form's own field paths, ids, error and `aria-describedby`. */
+function PhoneTextField({ name, label, multiline = false }: { name: string; label: string; multiline?: boolean }) {
+  const form = useSchemaFormContext();
+  const ids = fieldIds(form, name);
+  const error = form.fieldError(name);
+  const common = { id: ids.input, 'aria-invalid': error ? true : undefined, 'aria-describedby': describedBy(ids, null, error) };
+  return (
+    <div>
+      <label htmlFor={ids.input} className="mb-1 block text-xl font-semibold">
+        {label}
+      </label>
+      {multiline ? (
+        <textarea rows={3} className={`${largeInputClasses} border-ink-300 py-2`} {...common} {...form.register(name)} />
+      ) : (
+        <input autoComplete="off" className={`${largeInputClasses} border-ink-300`} {...common} {...form.register(name)} />
+      )}
+      {error ? <FieldMessage id={ids.error}>{error}</FieldMessage> : null}
+    </div>
+  );
+}
 
 /** Only the photos live outside the inputs (in React state); their error shows under the picker. */
 const isPhotosPath = (path: string) => path === 'photos';
@@ -158,7 +182,7 @@ export function ProofForm({ drop, onRecorded, now = () => new Date() }: ProofFor
         ))}
       </fieldset>
 
-      <TextField name="receiver_name" label="Taken by (name)" autoComplete="off" large />
+      <PhoneTextField name="receiver_name" label="Taken by (name)" />
 
       <fieldset className="space-y-3">
         <legend className="text-xl font-semibold">Signature</legend>
@@ -166,12 +190,12 @@ export function ProofForm({ drop, onRecorded, now = () => new Date() }: ProofFor
           {signed ? 'Signed. Clear it to sign again.' : 'The receiver signs in the box.'}
         </p>
         <SignatureBox ref={signature} describedBy={signatureHelpId} onChange={setSigned} />
-        <TextField name="typed_confirmation" label="Or, instead of signing: type the receiver’s name again to confirm" autoComplete="off" large />
+        <PhoneTextField name="typed_confirmation" label="Or, instead of signing: type the receiver’s name again to confirm" />
       </fieldset>
 
       <PhotoPicker photos={photos} errorId={fieldIds(form, 'photos').error} error={photosError} onChange={setPhotos} />
 
-      <TextAreaField name="note" label="Note (where it was left, anything wrong)" rows={3} large />
+      <PhoneTextField name="note" label="Note (where it was left, anything wrong)" multiline />
 
       <div className="rounded-md bg-mortar-100 p-3">
         <p>
