@@ -146,6 +146,13 @@ export const setDropOrderBodySchema = z.object({ order_ids: z.array(z.number().i
 
 export const sendOutBodySchema = z.object({ override_reason: z.string().trim().min(3).max(500).optional() }).strict();
 
+/** Sending a run out anyway (before its day, or not every pallet ticked): the body with its reason required. */
+export const sendOutOverrideBodySchema = z
+  .object({
+    override_reason: z.string({ error: 'Say why the lorry goes out anyway' }).trim().min(3, { error: 'Say why in a few words (at least 3 letters)' }).max(500, { error: 'Keep the reason to 500 characters' }),
+  })
+  .strict();
+
 /** One pallet, as its label's QR code opens it. */
 export const palletParamsSchema = z.object({ id: z.coerce.number().int().positive(), pallet: z.coerce.number().int().positive() });
 export const palletViewSchema = z.object({

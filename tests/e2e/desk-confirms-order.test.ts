@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { pageApi } from '../setup/e2e-pages';
-import { useJourney } from './harness';
+import { expectAccessible, useJourney } from './harness';
 
 const journey = useJourney();
 
@@ -50,7 +50,8 @@ async function placeOrderAsEstimator(page: Page, date: string): Promise<Placed> 
 }
 
 describe('the demo desk confirms the order the demo estimator placed', () => {
-  it('the estimator orders, the desk confirms it into a lorry slot, the estimator sees the slot; once delivered the desk invoices it and the estimator pays by card', async () => {
+  // A long story with an accessibility check on every page it opens: each check takes seconds on a busy machine.
+  it('the estimator orders, the desk confirms it into a lorry slot, the estimator sees the slot; once delivered the desk invoices it and the estimator pays by card', { timeout: 480_000 }, async () => {
     const date = nextWorkingDay();
     const estimatorContext = await journey.browser.newContext({ viewport: { width: 1280, height: 900 } });
     const deskContext = await journey.browser.newContext({ viewport: { width: 1440, height: 900 } });
@@ -71,6 +72,7 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       const row = desk.getByRole('table', { name: 'Order book' }).getByRole('row', { name: new RegExp(placed.reference) });
       await row.waitFor();
       expect(await row.innerText()).toContain('Hollin Brow');
+      await expectAccessible(desk);
       await row.getByRole('link', { name: placed.reference }).click();
       await desk.waitForURL(new RegExp(`/desk/orders/${placed.id}$`));
 
@@ -79,6 +81,7 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       await confirmForm.waitFor();
       const slots = confirmForm.getByRole('list', { name: /^Slots on / });
       await slots.waitFor();
+      await expectAccessible(desk);
       // A slot whose lorry has the demo driver, so the driver's own page can record the drop.
       const free = slots
         .getByRole('listitem')
@@ -94,6 +97,7 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       const booked = desk.getByRole('definition').filter({ hasText: window });
       await booked.first().waitFor();
       expect(await desk.getByLabel('Booked delivery').innerText()).toContain(registration);
+      await expectAccessible(desk);
 
       // What the desk confirmed is held from the branch's stock: every packed line reserved as sent.
       const confirmed = await desk.request.get(`${journey.server.url}/api/orders/${placed.id}`);
@@ -109,6 +113,7 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       await expect.poll(() => bookedSlot.innerText()).toContain(window);
       expect(await bookedSlot.innerText()).toContain(registration);
       expect(await estimator.getByText('Confirmed').count()).toBeGreaterThan(0);
+      await expectAccessible(estimator);
 
       // The yard sends it out; the driver records the drop on the phone.
       const yardContext = await journey.browser.newContext();
@@ -127,17 +132,24 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
           .getByRole('list', { name: /^Orders on / })
           .getByRole('listitem')
           .filter({ hasText: placed.reference });
+        await booking.waitFor();
+        await expectAccessible(yard);
         // The run is for the next working day: the dispatcher sends it out ahead of its day, with a reason.
         await booking.getByRole('link', { name: `${placed.reference}: open its run` }).click();
         await yard.waitForURL(/\/yard\/runs\/\d+$/);
+        await yard.getByRole('button', { name: 'Send out anyway…' }).waitFor();
+        await expectAccessible(yard);
         await yard.getByRole('button', { name: 'Send out anyway…' }).click();
         const override = yard.getByRole('form', { name: 'Send out anyway' });
+        await override.waitFor();
+        await expectAccessible(yard);
         await override.getByLabel('Reason for sending out anyway').fill('Site asked for it a day early');
         await override.getByRole('button', { name: 'Send out with this reason' }).click();
         await yard
           .getByTestId('send-out')
           .filter({ hasText: /^On the road/ })
           .waitFor();
+        await expectAccessible(yard);
         const sentOut = await pageApi<{ status: string; timeline: { summary: string }[] }>(yard, 'GET', `/api/orders/${placed.id}`);
         expect(sentOut.status).toBe('on_the_road');
         expect(sentOut.timeline.map((e) => e.summary).join(' ')).toContain('Site asked for it a day early');
@@ -149,16 +161,19 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
         const stop = driver.getByRole('article').filter({ hasText: placed.reference });
         await stop.waitFor();
         expect(await stop.getByTestId('pallet').count()).toBeGreaterThan(0);
+        await expectAccessible(driver);
         await stop.getByText('Record the delivery').click();
         await stop.getByLabel('Taken by (name)').fill('Gethin Marlow');
         // No finger signature in a headless browser: the receiver's name typed again confirms instead.
         await stop.getByLabel(/type the receiver.s name again to confirm/).fill('Gethin Marlow');
+        await expectAccessible(driver);
         const delivered = stop.getByRole('button', { name: 'Delivered' });
         // A gloved thumb: the button is at least 56 px tall.
         expect((await delivered.boundingBox())!.height).toBeGreaterThanOrEqual(56);
         await delivered.click();
         // The drop folds to its header line, marked delivered.
         await stop.getByText('Delivered', { exact: true }).waitFor();
+        await expectAccessible(driver);
       } finally {
         await yardContext.close();
         await driverContext.close();
@@ -171,6 +186,7 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       const stockTable = desk.getByRole('table', { name: 'Stock at Tollerbeck Yard' });
       await stockTable.waitFor();
       expect(await stockTable.getByRole('row').count()).toBeGreaterThan(1);
+      await expectAccessible(desk);
 
       // This firm has account terms with the merchant; the desk takes them off so this invoice is paid by card.
       const me = (await (await estimator.request.get(`${journey.server.url}/api/auth/me`)).json()) as { organisation: { id: number } };
@@ -180,10 +196,13 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
 
       // The desk invoices what was delivered.
       await desk.goto(`${journey.server.url}/desk/orders/${placed.id}`);
+      await desk.getByRole('button', { name: 'Issue the invoice for what was delivered' }).waitFor();
+      await expectAccessible(desk);
       await desk.getByRole('button', { name: 'Issue the invoice for what was delivered' }).click();
       await desk.waitForURL(/\/invoices\/\d+$/);
       const invoiceHeading = await desk.getByRole('heading', { level: 1, name: /^Invoice INV-\d{6}$/ }).innerText();
       const invoiceNumber = invoiceHeading.replace('Invoice ', '');
+      await expectAccessible(desk);
       expect(await desk.getByRole('link', { name: 'Printable invoice' }).getAttribute('href')).toMatch(/\/api\/invoices\/\d+\/print$/);
       const invoiceId = Number(new URL(desk.url()).pathname.split('/').pop());
       const invoice = (await (await desk.request.get(`${journey.server.url}/api/invoices/${invoiceId}`)).json()) as {
@@ -207,10 +226,13 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
 
       // The estimator finds it from the order and sees what is owed.
       await estimator.reload();
+      await estimator.getByRole('link', { name: `${invoiceNumber}: view and pay` }).waitFor();
+      await expectAccessible(estimator);
       await estimator.getByRole('link', { name: `${invoiceNumber}: view and pay` }).click();
       await estimator.waitForURL(new RegExp(`/invoices/${invoiceId}$`));
       await estimator.getByRole('heading', { level: 1, name: `Invoice ${invoiceNumber}` }).waitFor();
       expect(await estimator.getByTestId('invoice-balance').innerText()).toMatch(/^£[\d,]+\.\d{2}$/);
+      await expectAccessible(estimator);
 
       // …and pays it by card on the payment service's own page (the local fake): the card number never
       // reaches Ridgeload. 4242 4242 4242 4242 is the payment service's published always-succeeds test card.
@@ -222,6 +244,8 @@ describe('the demo desk confirms the order the demo estimator placed', () => {
       await estimator.getByRole('button', { name: /^Pay / }).click();
       await estimator.waitForURL(new RegExp(`/invoices/${invoiceId}\\?payment=done`));
       await estimator.getByText('Payment received').waitFor({ timeout: 20_000 });
+      // The card page between is the payment service's own (a local stand-in here), not Ridgeload's.
+      await expectAccessible(estimator);
       const paid = (await (await estimator.request.get(`${journey.server.url}/api/invoices/${invoiceId}`)).json()) as { balance: number; payments: { status: string; amount: number }[] };
       expect(paid.balance).toBe(0);
       expect(paid.payments.filter((pay) => pay.status === 'succeeded').map((pay) => pay.amount)).toEqual([invoice.total]);

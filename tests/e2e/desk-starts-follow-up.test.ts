@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { pageApi } from '../setup/e2e-pages';
-import { useJourney } from './harness';
+import { expectAccessible, useJourney } from './harness';
 
 const journey = useJourney();
 
@@ -18,7 +18,7 @@ interface Detail {
 }
 
 describe('the desk sends the back-ordered packs on later', () => {
-  it('starts the follow-up order from the part-confirmed demo order, lands on it, and the contractor sees both ends', { timeout: 90_000 }, async () => {
+  it('starts the follow-up order from the part-confirmed demo order, lands on it, and the contractor sees both ends', { timeout: 180_000 }, async () => {
     const desk = await (await journey.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
     await journey.signIn(desk, 'sales@demo.test', /\/desk$/);
     // The demo book holds one confirmed order with part of its hip tiles back-ordered (PO HB-P05).
@@ -31,9 +31,11 @@ describe('the desk sends the back-ordered packs on later', () => {
 
     await desk.goto(`${journey.server.url}/desk/orders/${first!.id}`);
     await desk.getByRole('heading', { name: 'Back-ordered packs' }).waitFor();
+    await expectAccessible(desk);
     await desk.getByRole('button', { name: 'Start the follow-up order' }).click();
     await desk.waitForURL((url) => /\/desk\/orders\/\d+$/.test(url.pathname) && !url.pathname.endsWith(`/${first!.id}`));
     await desk.getByRole('list', { name: 'Linked orders' }).getByText(`Carries the back-ordered packs of ${first!.reference}`).waitFor();
+    await expectAccessible(desk);
 
     const followId = Number(new URL(desk.url()).pathname.split('/').pop());
     const follow = await pageApi<Detail>(desk, 'GET', `/api/orders/${followId}`);
@@ -50,5 +52,6 @@ describe('the desk sends the back-ordered packs on later', () => {
     await journey.signIn(estimator, 'estimator@demo.test', /\/contractor$/);
     await estimator.goto(`${journey.server.url}/orders/${followId}`);
     await estimator.getByRole('list', { name: 'Back-ordered packs' }).getByText(`Carries the back-ordered packs of ${first!.reference}`).waitFor();
+    await expectAccessible(estimator);
   });
 });

@@ -27,7 +27,8 @@ async function sitePhoto(): Promise<Buffer> {
 }
 
 describe('the driver records a delivery without signal, and the contractor sees the proof', () => {
-  it('on a phone the driver reads the cautions, opens the drop, records it offline with a signature and a photo, sees it wait, and sees it sent when the signal returns', async () => {
+  // A long story with an accessibility check on every page it opens: each check takes seconds on a busy machine.
+  it('on a phone the driver reads the cautions, opens the drop, records it offline with a signature and a photo, sees it wait, and sees it sent when the signal returns', { timeout: 300_000 }, async () => {
     const photo = await sitePhoto();
     expect((await sharp(photo).metadata()).format).toBe('jpeg');
     const phone = await journey.browser.newContext({
@@ -115,6 +116,7 @@ describe('the driver records a delivery without signal, and the contractor sees 
       expect(await waiting.innerText()).toContain('No signal: kept on this phone and sent when the signal returns.');
       expect(await waiting.getByTestId('waiting-entry').innerText()).toContain(`Delivery of ${drop.reference} at ${drop.site.name}, taken by ${RECEIVER} (signature, 1 photo)`);
       await card.getByText('Recorded, waiting to send', { exact: true }).waitFor();
+      await expectAccessible(driver);
       // Nothing reached the server yet.
       const [{ count: before }] = await journey.server.db('delivery_proofs').where({ order_id: drop.order_id }).count({ count: '*' });
       expect(Number(before)).toBe(0);

@@ -36,6 +36,13 @@ describe('each demo person signs in and lands on their role’s home', () => {
         await home.waitFor();
         expect(await page.locator('body').innerText()).toContain(person!.firm);
         await expectAccessible(page);
+        // An owner also runs the firm's team: its members, their roles and the invitation form.
+        if (person!.role.endsWith('_owner')) {
+          await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Team' }).click();
+          await page.waitForURL(/\/team$/);
+          await page.getByRole('form', { name: 'Invite someone' }).waitFor();
+          await expectAccessible(page);
+        }
       } finally {
         await context.close();
       }

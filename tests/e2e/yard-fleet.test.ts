@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { pageApi } from '../setup/e2e-pages';
-import { useJourney } from './harness';
+import { expectAccessible, useJourney } from './harness';
 
 const journey = useJourney();
 
@@ -26,7 +26,8 @@ const LORRY_NAME = 'Two-axle rigid with crane';
 const WINDOWS = ['07:30-12:00', '12:30-16:30'];
 
 describe('the demo yard adds a lorry, gives it a week of slots and sends a booked order out with a driver', () => {
-  it('the dispatcher adds a crane lorry, makes its slots for a run of weekdays, sees them on the calendar, and puts the driver on a booked run before sending it out', async () => {
+  // A long story with an accessibility check on every page it opens: each check takes seconds on a busy machine.
+  it('the dispatcher adds a crane lorry, makes its slots for a run of weekdays, sees them on the calendar, and puts the driver on a booked run before sending it out', { timeout: 300_000 }, async () => {
     const monday = mondayAhead();
     const sunday = iso(Date.parse(`${monday}T00:00:00Z`) + 6 * DAY);
     const saturday = iso(Date.parse(`${monday}T00:00:00Z`) + 5 * DAY);
@@ -41,6 +42,8 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       await yard.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Lorries and slots' }).click();
       await yard.waitForURL(/\/fleet$/);
       await yard.getByLabel('Branch', { exact: true }).selectOption({ label: 'Tollerbeck Yard, Tollerbeck' });
+      await yard.getByRole('form', { name: 'Add a lorry' }).waitFor();
+      await expectAccessible(yard);
 
       // A two-axle rigid: 18,000 kg gross (Road Vehicles (Authorised Weight) Regulations 1998) less about
       // 9,000 kg of lorry and crane leaves 9,000 kg to carry; the crane limit is the demo's own figure.
@@ -80,6 +83,7 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       }
       await calendar.getByLabel('Day', { exact: true }).fill(saturday);
       await expect.poll(() => runOf(WINDOWS[0]).count()).toBe(0);
+      await expectAccessible(yard);
 
       // An order of the demo estimator, confirmed by the desk into the new lorry's Monday morning (through the API:
       // the desk journey covers confirming on screen).
@@ -131,6 +135,7 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
         .filter({ hasText: order.reference });
       await booking.waitFor();
       expect(await booking.innerText()).toContain('confirmed');
+      await expectAccessible(yard);
       // The booked load opens its run in one click; the calendar itself sends nothing out.
       expect(await booking.getByRole('link', { name: `${order.reference}: open its run` }).getAttribute('href')).toBe(`/yard/runs/${morning.id}`);
       expect(await booking.getByRole('button', { name: 'Send out' }).count()).toBe(0);
@@ -149,14 +154,18 @@ describe('the demo yard adds a lorry, gives it a week of slots and sends a booke
       await expect.poll(() => why.innerText()).toMatch(/Not before its day/);
       expect(await why.innerText()).toMatch(/not ticked loaded yet/);
       expect(await yard.getByRole('button', { name: `Send out ${REGISTRATION}` }).count()).toBe(0);
+      await expectAccessible(yard);
       await yard.getByRole('button', { name: 'Send out anyway…' }).click();
       const override = yard.getByRole('form', { name: 'Send out anyway' });
+      await override.waitFor();
+      await expectAccessible(yard);
       await override.getByLabel('Reason for sending out anyway').fill('Site manager asked for it ahead of the day');
       await override.getByRole('button', { name: 'Send out with this reason' }).click();
       await yard
         .getByTestId('send-out')
         .filter({ hasText: /^On the road/ })
         .waitFor();
+      await expectAccessible(yard);
 
       const after = await api<SlotDay>(yard, 'GET', `/api/branches/${branch.id}/slots?date=${monday}`);
       const sent = after.slots.find((s) => s.id === morning.id)!;

@@ -21,12 +21,14 @@ interface FormProps {
   label: string;
   children: ReactNode;
   className?: string;
+  /** `search` for a list's search bar (a search landmark rather than a form). */
+  role?: 'search';
 }
 
-export function Form({ form, label, children, className = 'space-y-5' }: FormProps) {
+export function Form({ form, label, children, className = 'space-y-5', role }: FormProps) {
   return (
     <FormContext.Provider value={form}>
-      <form noValidate aria-label={label} onSubmit={(event) => void form.submit(event)} className={className}>
+      <form noValidate role={role} aria-label={label} onSubmit={(event) => void form.submit(event)} className={className}>
         <FormErrorArea />
         {children}
       </form>

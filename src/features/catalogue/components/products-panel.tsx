@@ -1,7 +1,9 @@
-import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { CATEGORY_LABELS, PRODUCT_CATEGORIES } from '../../../../shared/schemas/catalogue.schema';
-import type { ProductCategory } from '../../../../shared/schemas/catalogue.schema';
+import { productFilterSchema } from '../../../../shared/schemas/list-search.schema';
 import type { Product } from '../../../../shared/schemas/price-list.schema';
+import { Form, SelectField } from '../../../components/form/fields';
+import { useLiveFilterForm } from '../../../components/form/use-list-search-form';
 import { ErrorAlert, errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -70,10 +72,13 @@ function ProductActions({ product, onEdit }: { product: Product; onEdit: (p: Pro
   );
 }
 
+const SHOWN_OPTIONS = (Object.keys(SHOWN_WORDS) as Shown[]).map((s) => ({ value: s, label: SHOWN_WORDS[s] }));
+const CATEGORY_OPTIONS = [{ value: '', label: 'Every category' }, ...PRODUCT_CATEGORIES.map((c) => ({ value: c, label: CATEGORY_LABELS[c] }))];
+
 /** The merchant's products, shared by every branch: filter, add, change, archive and restore. */
 export function ProductsPanel({ canManage }: { canManage: boolean }) {
-  const [archived, setArchived] = useState<Shown>('false');
-  const [category, setCategory] = useState<ProductCategory | ''>('');
+  const { form: filterForm, filters } = useLiveFilterForm(productFilterSchema, { archived: 'false', category: undefined });
+  const { archived, category } = filters;
   const [editing, setEditing] = useState<Product | null>(null);
   const [adding, setAdding] = useState(false);
   const products = useProducts({ archived, ...(category ? { category } : {}) });
@@ -83,8 +88,6 @@ export function ProductsPanel({ canManage }: { canManage: boolean }) {
     // The form opens above the table, often out of view of the row pressed: move focus (and the view) to it.
     if (openId !== null) formArea.current?.querySelector('input')?.focus();
   }, [openId]);
-  const shownId = useId();
-  const categoryId = useId();
   const columns = useMemo(
     () =>
       canManage
@@ -122,33 +125,10 @@ export function ProductsPanel({ canManage }: { canManage: boolean }) {
         ) : null}
       </div>
       <Card title="Products" actions={canManage && !adding && !editing ? <Button onClick={() => setAdding(true)}>Add a product</Button> : null}>
-        <div className="mb-4 flex flex-wrap gap-4">
-          <div>
-            <label htmlFor={shownId} className="mb-1 block font-medium">
-              Show
-            </label>
-            <select id={shownId} value={archived} onChange={(e) => setArchived(e.target.value as Shown)} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
-              {(Object.keys(SHOWN_WORDS) as Shown[]).map((s) => (
-                <option key={s} value={s}>
-                  {SHOWN_WORDS[s]}
-                </option>
-              ))}
-            </select>
-          </div>
-          <div>
-            <label htmlFor={categoryId} className="mb-1 block font-medium">
-              Category
-            </label>
-            <select id={categoryId} value={category} onChange={(e) => setCategory(e.target.value as ProductCategory | '')} className="block min-h-tap rounded-md border border-ink-300 bg-white px-2">
-              <option value="">Every category</option>
-              {PRODUCT_CATEGORIES.map((c) => (
-                <option key={c} value={c}>
-                  {CATEGORY_LABELS[c]}
-                </option>
-              ))}
-            </select>
-          </div>
-        </div>
+        <Form form={filterForm} label="Filter the products" role="search" className="mb-4 flex flex-wrap gap-4">
+          <SelectField name="archived" label="Show" options={SHOWN_OPTIONS} defaultValue="false" />
+          <SelectField name="category" label="Category" options={CATEGORY_OPTIONS} defaultValue="" />
+        </Form>
         {products.isPending ? (
           <SkeletonBlock label="Loading the products" lines={6} />
         ) : products.isError ? (

@@ -159,3 +159,18 @@ describe('StockTable price', () => {
     expect(fetchMock.mock.calls.filter(([, init]) => init?.method === 'PUT')).toHaveLength(0);
   });
 });
+
+describe('StockTable filter', () => {
+  it('shows only what is at or below its reorder level while the box is ticked', async () => {
+    const low = { ...item, product_id: 12, sku: 'TRS-BAT-3825', name: 'Batten 38 × 25', state: 'low', on_hand: 40, available: 40, reorder_level: 60 };
+    stubFetch({ 'GET /api/branches/3/stock': { status: 200, body: { branch: { id: 3, name: 'Quillsby yard', town: 'Quillsby' }, items: [item, low] } } });
+    renderWithProviders(<StockTable branchId={3} />);
+    const table = await screen.findByRole('table', { name: 'Stock at Quillsby yard' });
+    expect(within(table).getAllByRole('row')).toHaveLength(3);
+    fireEvent.click(screen.getByRole('checkbox', { name: 'Only what is at or below its reorder level (1)' }));
+    await waitFor(() => expect(within(table).getAllByRole('row')).toHaveLength(2));
+    expect(within(table).getByText('TRS-BAT-3825')).toBeTruthy();
+    fireEvent.click(screen.getByRole('checkbox', { name: 'Only what is at or below its reorder level (1)' }));
+    await waitFor(() => expect(within(table).getAllByRole('row')).toHaveLength(3));
+  });
+});

@@ -1,4 +1,7 @@
 import { useMemo, useState } from 'react';
+import { stockFilterSchema } from '../../../../shared/schemas/list-search.schema';
+import { CheckboxField, Form } from '../../../components/form/fields';
+import { useLiveFilterForm } from '../../../components/form/use-list-search-form';
 import { CATEGORY_LABELS } from '../../../../shared/schemas/catalogue.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
@@ -82,7 +85,8 @@ function stockColumns(kinds: readonly EditKind[], onEdit: (item: StockItem, kind
  */
 export function StockTable({ branchId, canEdit = false, canEditPrice = false }: { branchId: number; canEdit?: boolean; canEditPrice?: boolean }) {
   const stock = useStock(branchId);
-  const [lowOnly, setLowOnly] = useState(false);
+  const { form: filterForm, filters } = useLiveFilterForm(stockFilterSchema, { low_only: false });
+  const lowOnly = filters.low_only;
   const [editing, setEditing] = useState<Editing | null>(null);
   const columns = useMemo(() => {
     const kinds: EditKind[] = [...(canEdit ? (['stock'] as const) : []), ...(canEditPrice ? (['price'] as const) : [])];
@@ -98,10 +102,9 @@ export function StockTable({ branchId, canEdit = false, canEditPrice = false }: 
     <div className="space-y-3">
       {item && editing?.kind === 'stock' ? <StockEditForm key={`s${item.product_id}`} branchId={branchId} item={item} onDone={close} /> : null}
       {item && editing?.kind === 'price' ? <PriceEditForm key={`p${item.product_id}`} branchId={branchId} item={item} onDone={close} /> : null}
-      <label className="flex min-h-tap items-center gap-3">
-        <input type="checkbox" checked={lowOnly} onChange={(e) => setLowOnly(e.target.checked)} className="h-5 w-5" />
-        Only what is at or below its reorder level ({low})
-      </label>
+      <Form form={filterForm} label="Filter the stock" role="search" className="">
+        <CheckboxField name="low_only" label={`Only what is at or below its reorder level (${low})`} />
+      </Form>
       <DataTable
         caption={`Stock at ${stock.data.branch.name}`}
         captionHidden

@@ -77,6 +77,20 @@ describe('ProofForm', () => {
     expect(fetchMock).not.toHaveBeenCalled();
   });
 
+  it('names the receiver as required on its field, linked by aria-describedby, and records nothing', async () => {
+    const { onRecorded } = renderForm();
+    fireEvent.click(screen.getByRole('button', { name: 'Delivered' }));
+    const receiver = screen.getByLabelText('Taken by (name)');
+    await waitFor(() => expect(receiver.getAttribute('aria-invalid')).toBe('true'));
+    expect(document.getElementById(receiver.getAttribute('aria-describedby')!)?.textContent).toContain('name the person who took the delivery');
+    const typed = screen.getByLabelText(/type the receiver.s name again to confirm/);
+    expect(document.getElementById(typed.getAttribute('aria-describedby')!)?.textContent).toContain('have the receiver sign in the box');
+    // A signature after the try answers the typed name's error.
+    pad.current!.sign();
+    await waitFor(() => expect(typed.getAttribute('aria-invalid')).toBeNull());
+    expect(onRecorded).not.toHaveBeenCalled();
+  });
+
   it('refuses a typed confirmation that is not the receiver’s name', async () => {
     stubFetch({});
     renderForm();
@@ -183,8 +197,11 @@ describe('ProofForm', () => {
     fireEvent.change(screen.getByLabelText('Taken by (name)'), { target: { value: 'Gethin Marlow' } });
     fireEvent.change(screen.getByLabelText(/type the receiver.s name again to confirm/), { target: { value: 'Gethin Marlow' } });
     fireEvent.click(screen.getByRole('button', { name: 'Delivered' }));
-    expect(await screen.findByText('more than went out')).toBeTruthy();
-    expect(screen.getByText('Some fields are not valid')).toBeTruthy();
+    // The server's field error lands on the field its path names, linked to it.
+    const short = screen.getByLabelText('Short: Interlocking tile, slate grey');
+    await waitFor(() => expect(short.getAttribute('aria-invalid')).toBe('true'));
+    expect(document.getElementById(short.getAttribute('aria-describedby')!)?.textContent).toContain('more than went out');
+    expect(screen.getByText('Check the fields marked below.')).toBeTruthy();
     expect((screen.getByLabelText('Taken by (name)') as HTMLInputElement).value).toBe('Gethin Marlow');
     expect(onRecorded).not.toHaveBeenCalled();
   });

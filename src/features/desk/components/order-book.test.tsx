@@ -108,3 +108,51 @@ describe('OrderBook sorting', () => {
     expect(header('Subtotal').getAttribute('aria-sort')).toBe('ascending');
   });
 });
+
+describe('OrderBook search bar', () => {
+  const branches = [
+    { id: 3, name: 'Tollerbeck Yard', address: '1 Quay Road', town: 'Tollerbeck', phone: null },
+    { id: 7, name: 'Caddonmere Wharf', address: 'Wharf Lane', town: 'Caddonmere', phone: null },
+  ];
+  const stubWithBranches = () => stubOrderListApi(serverPage, 25, { '/api/organisation': { id: 2, name: 'Tollerbeck Roofing Supplies', kind: 'merchant', branches } });
+  const addressOf = (router: { state: { location: { search: string } } }) => Object.fromEntries(new URLSearchParams(router.state.location.search));
+
+  it('asks at once for a chosen stage from page 1, and shows the branch the address holds once the branches have loaded', async () => {
+    const queries = stubWithBranches();
+    const { router } = renderWithProviders(<OrderBook />, { path: '/desk/orders?branch_id=7&page=2' });
+    await screen.findByRole('table', { name: 'Order book' });
+    await waitFor(() => expect((screen.getByLabelText('Branch') as HTMLSelectElement).value).toBe('7'));
+
+    fireEvent.change(screen.getByLabelText('Stage'), { target: { value: 'sent,agreed' } });
+    await waitFor(() => expect(queries.at(-1)!.get('statuses')).toBe('sent,agreed'));
+    expect(queries.at(-1)!.get('branch_id')).toBe('7');
+    expect(addressOf(router)).toEqual({ statuses: 'sent,agreed', branch_id: '7' });
+  });
+
+  it('sends the words and the dates on Search, keeping the defaults out of the address', async () => {
+    const queries = stubWithBranches();
+    const { router } = renderWithProviders(<OrderBook />, { path: '/desk/orders' });
+    await screen.findByRole('table', { name: 'Order book' });
+    fireEvent.change(screen.getByLabelText('Search orders'), { target: { value: '  HB-P05 ' } });
+    fireEvent.change(screen.getByLabelText('From'), { target: { value: '2027-03-01' } });
+    fireEvent.change(screen.getByLabelText('To'), { target: { value: '2027-03-31' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Search' }));
+    await waitFor(() => expect(addressOf(router)).toEqual({ q: 'HB-P05', date_from: '2027-03-01', date_to: '2027-03-31' }));
+    await waitFor(() => expect(queries.at(-1)!.get('q')).toBe('HB-P05'));
+  });
+
+  it('refuses a To day before the From day on the To box, linked by aria-describedby, and asks nothing new', async () => {
+    const queries = stubWithBranches();
+    const { router } = renderWithProviders(<OrderBook />, { path: '/desk/orders' });
+    await screen.findByRole('table', { name: 'Order book' });
+    const asks = queries.length;
+    fireEvent.change(screen.getByLabelText('From'), { target: { value: '2027-03-31' } });
+    const to = screen.getByLabelText('To');
+    fireEvent.change(to, { target: { value: '2027-03-01' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Search' }));
+    await waitFor(() => expect(to.getAttribute('aria-invalid')).toBe('true'));
+    expect(document.getElementById(to.getAttribute('aria-describedby')!)?.textContent).toContain('on or after the From day');
+    expect(queries.length).toBe(asks);
+    expect(addressOf(router)).toEqual({});
+  });
+});

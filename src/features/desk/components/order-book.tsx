@@ -1,8 +1,8 @@
 import { useId } from 'react';
-import type { FormEvent } from 'react';
 import { Link } from 'react-router-dom';
-import { ORDER_DATE_FIELDS, ORDER_SORTS, ORDER_STATUSES, ORDER_STATUS_LABELS, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
+import { ORDER_SORTS, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import type { OrderSummary } from '../../../../shared/schemas/order.schema';
+import type { OrderBookSearch as OrderBookSearchValues } from '../../../../shared/schemas/list-search.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { ListPager, PhoneSortSelect, keepListOrder, sortChoices, useListAddress } from '../../../components/ui/server-list';
@@ -14,13 +14,7 @@ import { useDeskBranches } from '../api/get-desk-branches';
 import { useOrderBook } from '../api/get-order-book';
 import type { OrderBookFilters } from '../api/keys';
 import { DeskStatusBadge } from './desk-status-badge';
-
-/** Stage choices of the filter: the desk's to-do first, then each stage alone. */
-const STAGE_CHOICES: { value: string; label: string }[] = [
-  { value: 'sent,agreed', label: 'Waiting for the desk' },
-  { value: 'confirmed,on_the_road', label: 'Confirmed, not yet delivered' },
-  ...ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] })),
-];
+import { OrderBookSearch } from './order-book-search';
 
 type OrderSort = (typeof ORDER_SORTS)[number];
 type SortDir = OrderBookFilters['dir'];
@@ -36,8 +30,6 @@ const SORT_WORDS: Record<OrderSort, Record<SortDir, string>> = {
 };
 
 const SORT_CHOICES = sortChoices(ORDER_SORTS, SORT_WORDS);
-
-const PAGE_SIZES = [25, 50, 100];
 
 const h = dataTableColumns<OrderSummary>();
 // Sorting is the server's (over every matching order, not one page): column ids that match an
@@ -92,9 +84,6 @@ export function filtersFromSearch(search: URLSearchParams): OrderBookFilters {
   };
 }
 
-const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
-const inputClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-3';
-
 /** The merchant's order book: every order to its branches, filtered, sorted and paged by the server. */
 export function OrderBook() {
   const { search, setSearch, set } = useListAddress();
@@ -108,11 +97,17 @@ export function OrderBook() {
    */
   // Another order puts a different set of orders on page 2, so a new sort starts again at page 1.
   const sortBy = (sort: OrderSort, dir: SortDir) => set({ sort, dir }, { step: true });
-  const onSearch = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    const data = new FormData(event.currentTarget);
-    set({ q: String(data.get('q') ?? '').trim(), date_from: String(data.get('date_from') ?? ''), date_to: String(data.get('date_to') ?? '') });
-  };
+  // The defaults (25 a page, dates of the day wanted) stay out of the address.
+  const onSearch = (values: OrderBookSearchValues) =>
+    set({
+      statuses: values.statuses,
+      branch_id: values.branch_id,
+      page_size: values.page_size === '25' ? undefined : values.page_size,
+      q: values.q,
+      date_field: values.date_field === 'requested_date' ? undefined : values.date_field,
+      date_from: values.date_from,
+      date_to: values.date_to,
+    });
   const pageSize = filters.page_size;
   const page = filters.page;
   const total = orders.data?.total ?? 0;
@@ -120,88 +115,28 @@ export function OrderBook() {
   const filtered = Boolean(filters.statuses || filters.branch_id || filters.q || filters.date_from || filters.date_to);
   return (
     <section aria-label="Order book" className="space-y-4">
-      <div className="flex flex-wrap items-end gap-3">
-        <div>
-          <label htmlFor={`${id}-stage`} className="mb-1 block text-sm font-medium">
-            Stage
-          </label>
-          <select id={`${id}-stage`} value={filters.statuses ?? ''} onChange={(e) => set({ statuses: e.target.value })} className={selectClass}>
-            <option value="">Every stage</option>
-            {STAGE_CHOICES.map((c) => (
-              <option key={c.value} value={c.value}>
-                {c.label}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor={`${id}-branch`} className="mb-1 block text-sm font-medium">
-            Branch
-          </label>
-          <select id={`${id}-branch`} value={filters.branch_id ?? ''} onChange={(e) => set({ branch_id: e.target.value })} className={selectClass}>
-            <option value="">Every branch</option>
-            {(branches.data ?? []).map((b) => (
-              <option key={b.id} value={b.id}>
-                {b.name}
-              </option>
-            ))}
-          </select>
-        </div>
-        {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
-        <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />
-        <div>
-          <label htmlFor={`${id}-size`} className="mb-1 block text-sm font-medium">
-            Per page
-          </label>
-          <select id={`${id}-size`} value={pageSize} onChange={(e) => set({ page_size: e.target.value })} className={selectClass}>
-            {PAGE_SIZES.map((s) => (
-              <option key={s} value={s}>
-                {s}
-              </option>
-            ))}
-          </select>
-        </div>
-      </div>
-      <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={[filters.q, filters.date_from, filters.date_to].join('|')}>
-        <div className="min-w-56 flex-1">
-          <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">
-            Search orders
-          </label>
-          <input id={`${id}-q`} name="q" type="search" defaultValue={filters.q ?? ''} placeholder="RL-000123, PO, site or contractor" className={`${inputClass} w-full`} />
-        </div>
-        <div>
-          <label htmlFor={`${id}-field`} className="mb-1 block text-sm font-medium">
-            Dates of
-          </label>
-          <select id={`${id}-field`} value={filters.date_field} onChange={(e) => set({ date_field: e.target.value })} className={selectClass}>
-            {ORDER_DATE_FIELDS.map((f) => (
-              <option key={f} value={f}>
-                {f === 'requested_date' ? 'Day wanted' : 'Day placed'}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor={`${id}-from`} className="mb-1 block text-sm font-medium">
-            From
-          </label>
-          <input id={`${id}-from`} name="date_from" type="date" defaultValue={filters.date_from ?? ''} className={inputClass} />
-        </div>
-        <div>
-          <label htmlFor={`${id}-to`} className="mb-1 block text-sm font-medium">
-            To
-          </label>
-          <input id={`${id}-to`} name="date_to" type="date" defaultValue={filters.date_to ?? ''} className={inputClass} />
-        </div>
-        <Button type="submit" variant="secondary">
-          Search
-        </Button>
-        {filtered ? (
-          <Button variant="ghost" onClick={() => setSearch(keepListOrder(search), { replace: true })}>
-            Clear the filters
-          </Button>
-        ) : null}
-      </form>
+      <OrderBookSearch
+        address={{
+          statuses: filters.statuses ?? '',
+          branch_id: filters.branch_id ? String(filters.branch_id) : '',
+          page_size: String(pageSize),
+          q: filters.q ?? '',
+          date_field: filters.date_field,
+          date_from: filters.date_from ?? '',
+          date_to: filters.date_to ?? '',
+        }}
+        branches={branches.data ?? []}
+        onSearch={onSearch}
+        // On a phone most headers are off to the side of the scrolling table, so the sort is offered here too.
+        sortPicker={<PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />}
+        clear={
+          filtered ? (
+            <Button variant="ghost" onClick={() => setSearch(keepListOrder(search), { replace: true })}>
+              Clear the filters
+            </Button>
+          ) : null
+        }
+      />
       {orders.isPending ? (
         <SkeletonBlock label="Loading the order book" lines={8} />
       ) : orders.isError ? (

@@ -2,6 +2,9 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { INVOICE_STATUSES, INVOICE_STATUS_LABELS } from '../../../../shared/schemas/invoice.schema';
 import type { InvoiceSummary } from '../../../../shared/schemas/invoice.schema';
+import { invoiceFilterSchema } from '../../../../shared/schemas/list-search.schema';
+import { Form, SelectField } from '../../../components/form/fields';
+import { useLiveFilterForm } from '../../../components/form/use-list-search-form';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
@@ -40,34 +43,18 @@ const columns = h.columns([
   h.accessor('balance', { header: 'Balance', enableSorting: false, cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
 ]);
 
+const STATE_OPTIONS = [{ value: '', label: 'Every invoice' }, ...INVOICE_STATUSES.map((s) => ({ value: s, label: INVOICE_STATUS_LABELS[s] }))];
+
 export function InvoicesList() {
-  const [status, setStatus] = useState('');
+  const { form, filters } = useLiveFilterForm(invoiceFilterSchema, { status: undefined });
   const [page, setPage] = useState(1);
-  const invoices = useInvoices({ status: status || undefined, page });
+  const invoices = useInvoices({ status: filters.status, page });
   const pages = invoices.data ? Math.max(1, Math.ceil(invoices.data.total / invoices.data.page_size)) : 1;
   return (
     <section aria-label="Invoices" className="space-y-4">
-      <div>
-        <label htmlFor="invoice-status" className="mb-1 block text-sm font-medium">
-          State
-        </label>
-        <select
-          id="invoice-status"
-          value={status}
-          onChange={(e) => {
-            setStatus(e.target.value);
-            setPage(1);
-          }}
-          className="block min-h-tap rounded-md border border-ink-300 bg-white px-2"
-        >
-          <option value="">Every invoice</option>
-          {INVOICE_STATUSES.map((s) => (
-            <option key={s} value={s}>
-              {INVOICE_STATUS_LABELS[s]}
-            </option>
-          ))}
-        </select>
-      </div>
+      <Form form={form} label="Filter the invoices" role="search" className="flex flex-wrap items-end gap-3">
+        <SelectField name="status" label="State" options={STATE_OPTIONS} defaultValue="" onChange={() => setPage(1)} />
+      </Form>
       {invoices.isPending ? (
         <SkeletonBlock label="Loading the invoices" lines={5} />
       ) : invoices.isError ? (

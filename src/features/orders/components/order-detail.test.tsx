@@ -1,4 +1,4 @@
-import { screen, within } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { OrderDetail as OrderDetailData } from '../../../../shared/schemas/order.schema';
 import { fixtureLine, orderFixture } from '../../../test-utils/order-fixture';
@@ -116,5 +116,52 @@ describe('OrderDetail (contractor) and a substitute tile offered by the desk', (
     expect(within(table).getByText(/5,120 tile · 5,120 packs · £3,788.80/)).toBeTruthy();
     expect(within(table).getByTestId('price-difference').textContent).toBe('(+£3,292.80)');
     expect(screen.getByRole('button', { name: 'Accept the changes' })).toBeTruthy();
+  });
+});
+
+describe('OrderDetail (contractor) forms', () => {
+  const openProposal = {
+    id: 3,
+    status: 'open' as const,
+    order_revision: 1,
+    message: 'Two packs short this week.',
+    proposed_date: null,
+    proposed_time_window: null,
+    proposed_slot_id: null,
+    proposed_at: '2027-02-21 09:00:00',
+    proposed_by: { id: 2, name: 'Nia Corrow' },
+    answered_at: null,
+    answered_by: null,
+    lines: [],
+  };
+  const invalid = (path: string, message: string) => ({ status: 422, body: { error: { code: 'validation_failed', message: 'Some fields are not valid', details: [{ path, message }] } } });
+  const posted = (fetchMock: ReturnType<typeof stubFetch>, path: string) =>
+    fetchMock.mock.calls.filter(([url, init]) => String(url) === path && init?.method === 'POST').map(([, init]) => JSON.parse(String(init!.body)) as unknown);
+
+  it('declines the offered changes with the note, and puts a 422 about the note on the note box, linked by aria-describedby', async () => {
+    const fetchMock = stubFetch({ 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/proposals/3/decline': invalid('note', 'must be at most 500 characters') });
+    const order = contractorOrder({ status: 'changes_offered', status_label: 'Changes offered', proposals: [openProposal], allowed_actions: ['accept_changes', 'decline_changes'] });
+    renderWithProviders(<OrderDetail order={order} />);
+    const note = screen.getByLabelText('A note with your answer (optional)');
+    fireEvent.change(note, { target: { value: '  Please send the rest next week ' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Decline' }));
+    await waitFor(() => expect(note.getAttribute('aria-invalid')).toBe('true'));
+    expect(posted(fetchMock, `/api/orders/${order.id}/proposals/3/decline`)).toEqual([{ note: 'Please send the rest next week' }]);
+    expect(document.getElementById(note.getAttribute('aria-describedby')!)?.textContent).toContain('must be at most 500 characters');
+  });
+
+  it('asks before cancelling, with the reason box focused, and puts a 422 about the reason on that box', async () => {
+    const order = contractorOrder({ status: 'sent', status_label: 'Sent', allowed_actions: ['cancel'] });
+    const fetchMock = stubFetch({ 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, [`POST /api/orders/${order.id}/cancel`]: invalid('reason', 'must not hold a control character') });
+    renderWithProviders(<OrderDetail order={order} />);
+    fireEvent.click(screen.getByRole('button', { name: 'Cancel the order' }));
+    const form = screen.getByRole('form', { name: 'Cancel the order?' });
+    const reason = within(form).getByLabelText('Why (the merchant sees this; optional)');
+    await waitFor(() => expect(document.activeElement).toBe(reason));
+    fireEvent.change(reason, { target: { value: 'Site postponed' } });
+    fireEvent.click(within(form).getByRole('button', { name: `Yes, cancel ${order.reference}` }));
+    await waitFor(() => expect(reason.getAttribute('aria-invalid')).toBe('true'));
+    expect(posted(fetchMock, `/api/orders/${order.id}/cancel`)).toEqual([{ reason: 'Site postponed' }]);
+    expect(document.getElementById(reason.getAttribute('aria-describedby')!)?.textContent).toContain('must not hold a control character');
   });
 });

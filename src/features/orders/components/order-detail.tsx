@@ -1,8 +1,8 @@
-import { useId, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { DELIVERY_METHOD_LABELS, ORDER_LINE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
+import { DELIVERY_METHOD_LABELS, ORDER_LINE_STATUS_LABELS, answerProposalBodySchema, cancelOrderBodySchema } from '../../../../shared/schemas/order.schema';
 import type { Order, OrderDetail as OrderDetailData, Proposal } from '../../../../shared/schemas/order.schema';
-import { Alert, errorMessage } from '../../../components/ui/alert';
+import { Alert } from '../../../components/ui/alert';
 import { BackOrderLinks } from '../../../components/orders/back-order-links';
 import { OrderSiteDetails } from '../../../components/orders/order-site-details';
 import { Button, buttonClasses } from '../../../components/ui/button';
@@ -11,12 +11,14 @@ import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { useToast } from '../../../components/ui/toast';
 import { formatDate, formatDateTime } from '../../../lib/format';
 import { useAnswerProposal } from '../api/answer-proposal';
+import type { ProposalAnswer } from '../api/answer-proposal';
+import { Form, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useCancelOrder } from '../api/cancel-order';
 import { formatCount, formatMoney } from '../../../lib/format';
 import { OrderAmounts } from '../../../components/orders/order-amounts';
 import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { OrderStages, OrderStatusBadge } from './order-status';
-import { focusOnShow } from '../../../lib/focus-on-show';
 import { OrderTimeline } from '../../../components/orders/order-timeline';
 
 const lineHelper = dataTableColumns<OrderDetailData['lines'][number]>();
@@ -49,21 +51,38 @@ const lineColumns = lineHelper.columns([
   lineHelper.accessor('to_follow_total', { header: 'To follow (£)', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatMoney(info.getValue()) : '—'}</span> }),
 ]);
 
-function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal }) {
+/** The contractor's answer to offered changes: a note (optional), then accept or decline, each its own submit button. */
+function ProposalAnswerForm({ order, proposal }: { order: Order; proposal: Proposal }) {
   const answer = useAnswerProposal(order.id);
   const toast = useToast();
-  const noteId = useId();
-  const [note, setNote] = useState('');
+  const choice = useRef<ProposalAnswer>('accept');
+  const form = useSchemaForm({
+    schema: answerProposalBodySchema,
+    onSubmit: async (values) => {
+      const kind = choice.current;
+      await answer.mutateAsync({ proposalId: proposal.id, answer: kind, note: values.note || undefined });
+      toast.show(kind === 'accept' ? 'Changes accepted; the merchant can now confirm the order.' : 'Changes declined; the order stands as you sent it.', 'success');
+    },
+  });
+  const pending = form.submitting;
+  return (
+    <Form form={form} label="Answer the changes" className="space-y-3">
+      <TextField name="note" label="A note with your answer (optional)" maxLength={500} />
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" busy={answer.isPending && answer.variables?.answer === 'accept'} disabled={pending} onClick={() => (choice.current = 'accept')}>
+          Accept the changes
+        </Button>
+        <Button type="submit" variant="secondary" busy={answer.isPending && answer.variables?.answer === 'decline'} disabled={pending} onClick={() => (choice.current = 'decline')}>
+          Decline
+        </Button>
+      </div>
+    </Form>
+  );
+}
+
+function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal }) {
   const open = proposal.status === 'open';
   const canAnswer = open && order.allowed_actions.includes('accept_changes');
-  const respond = (kind: 'accept' | 'decline') =>
-    answer.mutate(
-      { proposalId: proposal.id, answer: kind, note: note.trim() || undefined },
-      {
-        onSuccess: () => toast.show(kind === 'accept' ? 'Changes accepted; the merchant can now confirm the order.' : 'Changes declined; the order stands as you sent it.', 'success'),
-        onError: (error) => toast.show(errorMessage(error), 'danger'),
-      },
-    );
   const changed = proposal.lines.filter((l) => l.confirmed_quantity !== l.quantity || l.back_order_quantity > 0 || l.substitute);
   return (
     <article className={`space-y-3 rounded-md border p-4 ${open ? 'border-ochre-500 bg-ochre-50' : 'border-mortar-300 bg-white'}`}>
@@ -105,34 +124,43 @@ function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal })
           ))}
         </ul>
       ) : null}
-      {canAnswer ? (
-        <div className="space-y-3">
-          <div>
-            <label htmlFor={noteId} className="mb-1.5 block font-medium">
-              A note with your answer (optional)
-            </label>
-            <input id={noteId} value={note} maxLength={500} onChange={(event) => setNote(event.target.value)} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" />
-          </div>
-          <div className="flex flex-wrap gap-2">
-            <Button busy={answer.isPending && answer.variables?.answer === 'accept'} disabled={answer.isPending} onClick={() => respond('accept')}>
-              Accept the changes
-            </Button>
-            <Button variant="secondary" busy={answer.isPending && answer.variables?.answer === 'decline'} disabled={answer.isPending} onClick={() => respond('decline')}>
-              Decline
-            </Button>
-          </div>
-        </div>
-      ) : null}
+      {canAnswer ? <ProposalAnswerForm order={order} proposal={proposal} /> : null}
     </article>
   );
 }
 
-function CancelOrder({ order }: { order: Order }) {
+/** The "are you sure?" of cancelling, with the reason the merchant sees (optional). */
+function CancelOrderForm({ order, onDone }: { order: Order; onDone: () => void }) {
   const cancel = useCancelOrder(order.id);
   const toast = useToast();
-  const reasonId = useId();
+  const form = useSchemaForm({
+    schema: cancelOrderBodySchema,
+    onSubmit: async (values) => {
+      await cancel.mutateAsync(values.reason || undefined);
+      onDone();
+      toast.show(`${order.reference} is cancelled.`, 'success');
+    },
+  });
+  // The reason box takes focus as the question appears.
+  const { setFocus } = form.methods;
+  useEffect(() => setFocus('reason'), [setFocus]);
+  return (
+    <Form form={form} label="Cancel the order?" className="w-full space-y-2 rounded-md border border-brick-600 bg-brick-50 p-3">
+      <TextField name="reason" label="Why (the merchant sees this; optional)" maxLength={500} />
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" variant="danger" busy={form.submitting}>
+          Yes, cancel {order.reference}
+        </Button>
+        <Button variant="secondary" onClick={onDone}>
+          Keep the order
+        </Button>
+      </div>
+    </Form>
+  );
+}
+
+function CancelOrder({ order }: { order: Order }) {
   const [confirming, setConfirming] = useState(false);
-  const [reason, setReason] = useState('');
   if (!confirming) {
     return (
       <Button variant="ghost" onClick={() => setConfirming(true)}>
@@ -140,34 +168,7 @@ function CancelOrder({ order }: { order: Order }) {
       </Button>
     );
   }
-  return (
-    <div role="group" aria-label="Cancel the order?" className="w-full space-y-2 rounded-md border border-brick-600 bg-brick-50 p-3">
-      <label htmlFor={reasonId} className="block font-medium">
-        Why (the merchant sees this; optional)
-      </label>
-      <input id={reasonId} value={reason} maxLength={500} onChange={(event) => setReason(event.target.value)} className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" ref={focusOnShow} />
-      <div className="flex flex-wrap gap-2">
-        <Button
-          variant="danger"
-          busy={cancel.isPending}
-          onClick={() =>
-            cancel.mutate(reason.trim() || undefined, {
-              onSuccess: () => {
-                setConfirming(false);
-                toast.show(`${order.reference} is cancelled.`, 'success');
-              },
-              onError: (error) => toast.show(errorMessage(error), 'danger'),
-            })
-          }
-        >
-          Yes, cancel {order.reference}
-        </Button>
-        <Button variant="secondary" onClick={() => setConfirming(false)}>
-          Keep the order
-        </Button>
-      </div>
-    </div>
-  );
+  return <CancelOrderForm order={order} onDone={() => setConfirming(false)} />;
 }
 
 /**

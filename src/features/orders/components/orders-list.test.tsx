@@ -155,6 +155,36 @@ describe('OrdersList sorting and paging through the server', () => {
     expect(header('Wanted').getAttribute('aria-sort')).toBe('ascending');
   });
 
+  it('refuses search words over 100 characters on the box itself, linked by aria-describedby, and asks nothing new', async () => {
+    const queries = stubOrderApi();
+    const { router } = renderWithProviders(<OrdersList />, { path: '/orders' });
+    await tableShown();
+    const asks = queries.length;
+    const box = screen.getByLabelText('Search orders');
+    fireEvent.change(box, { target: { value: 'x'.repeat(101) } });
+    fireEvent.click(screen.getByRole('button', { name: 'Search' }));
+    await waitFor(() => expect(box.getAttribute('aria-invalid')).toBe('true'));
+    const message = document.getElementById(box.getAttribute('aria-describedby')!);
+    expect(message?.textContent).toContain('at most 100 characters');
+    expect(queries.length).toBe(asks);
+    expect(addressOf(router)).toEqual({});
+  });
+
+  it('puts the words of each step back in the box when the address moves, on Back too', async () => {
+    stubOrderApi();
+    const { router } = renderWithProviders(<OrdersList />, { path: '/orders' });
+    await tableShown();
+    const box = screen.getByLabelText('Search orders') as HTMLInputElement;
+    fireEvent.change(box, { target: { value: 'Hollin' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Search' }));
+    await waitFor(() => expect(addressOf(router)).toEqual({ q: 'Hollin' }));
+    await router.navigate('/orders?q=Quarry');
+    await waitFor(() => expect(box.value).toBe('Quarry'));
+    await router.navigate(-1);
+    await waitFor(() => expect(box.value).toBe('Hollin'));
+    expect((screen.getByLabelText('Stage') as HTMLSelectElement).value).toBe('');
+  });
+
   it('keeps each row linking to its order and its site', async () => {
     stubOrderApi();
     renderWithProviders(<OrdersList />, { path: '/orders' });

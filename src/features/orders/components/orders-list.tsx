@@ -1,14 +1,13 @@
 import { useId } from 'react';
-import type { FormEvent } from 'react';
 import type { z } from 'zod';
-import { ORDER_STATUSES, ORDER_STATUS_LABELS, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
+import { orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
 import { ListPager, PhoneSortSelect, sortChoices, useListAddress } from '../../../components/ui/server-list';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useOrders } from '../api/get-orders';
 import type { OrderStatus } from '../../../../shared/schemas/order.schema';
+import { OrderSearch } from './order-search';
 import { ORDERS_TABLE_SORTS, OrdersTable } from './orders-table';
 import type { OrderSort } from './orders-table';
 
@@ -61,8 +60,6 @@ export function listStateFromSearch(search: URLSearchParams): OrdersListState {
   };
 }
 
-const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
-
 /** Every order of the firm, filtered by stage or searched by reference, PO, site or merchant; the server sorts and pages. */
 export function OrdersList() {
   const id = useId();
@@ -75,10 +72,6 @@ export function OrdersList() {
    */
   // Another order puts different orders on page 2, so a new sort starts again at page 1.
   const sortBy = (sort: OrderSort, dir: SortDir) => set({ sort, dir }, { step: true });
-  const onSearch = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    set({ q: String(new FormData(event.currentTarget).get('q') ?? '').trim() });
-  };
   const filtered = Boolean(state.status || state.q);
   const total = orders.data?.total ?? 0;
   const capped = orders.data?.total_capped ?? false;
@@ -86,33 +79,10 @@ export function OrdersList() {
   const page = state.page;
   return (
     <section aria-label="Orders" className="space-y-4">
-      {/* Keyed on the address, so Back and Forward put the search words back in the box. */}
-      <form role="search" className="flex flex-wrap items-end gap-4" onSubmit={onSearch} key={state.q ?? ''}>
-        <div>
-          <label htmlFor={`${id}-stage`} className="mb-1.5 block font-medium">
-            Stage
-          </label>
-          <select id={`${id}-stage`} value={state.status ?? ''} onChange={(event) => set({ status: event.target.value })} className={selectClass}>
-            <option value="">Every stage</option>
-            {ORDER_STATUSES.map((s) => (
-              <option key={s} value={s}>
-                {ORDER_STATUS_LABELS[s]}
-              </option>
-            ))}
-          </select>
-        </div>
+      <OrderSearch status={state.status} q={state.q} onSearch={(values) => set({ status: values.status, q: values.q })}>
         {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
         <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={state.sort} dir={state.dir} onChoose={sortBy} labelClass="mb-1.5 block font-medium" />
-        <div className="min-w-56 flex-1">
-          <label htmlFor={`${id}-q`} className="mb-1.5 block font-medium">
-            Search orders
-          </label>
-          <input id={`${id}-q`} name="q" type="search" defaultValue={state.q ?? ''} placeholder="RL-000123, PO, site or merchant" className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3" />
-        </div>
-        <Button type="submit" variant="secondary">
-          Search
-        </Button>
-      </form>
+      </OrderSearch>
       {orders.isPending ? (
         <SkeletonBlock label="Loading the orders" lines={5} />
       ) : orders.isError ? (

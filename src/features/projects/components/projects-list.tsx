@@ -1,6 +1,10 @@
-import { useId, useMemo, useState } from 'react';
+import { useMemo, useState } from 'react';
+import { useWatch } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import type { ProjectSummary } from '../../../../shared/schemas/project.schema';
+import { projectSearchSchema } from '../../../../shared/schemas/list-search.schema';
+import { CheckboxField, Form, TextField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
@@ -73,48 +77,33 @@ const columns = helper.columns([
 
 /** Every site of the firm: searched on the server, sorted by any column in the browser. */
 export function ProjectsList() {
-  const searchId = useId();
-  const [search, setSearch] = useState('');
-  const [showArchived, setShowArchived] = useState(false);
   const [page, setPage] = useState(1);
-  const q = useDebouncedValue(search.trim());
-  const filters = useMemo(() => ({ q: q || undefined, archived: showArchived ? ('all' as const) : ('false' as const), page, page_size: PAGE_SIZE }), [q, showArchived, page]);
+  /**
+   * The list follows the search as it is typed (one request per pause in typing) and the tick box at
+   * once, both read through the search schema; Enter only checks the words, which are already applied.
+   */
+  const form = useSchemaForm({ schema: projectSearchSchema, onSubmit: () => undefined });
+  const { control, trigger } = form.methods;
+  const typed = useWatch({ control, name: 'q' }) as string | undefined;
+  const ticked = useWatch({ control, name: 'archived' }) as boolean | undefined;
+  const read = projectSearchSchema.safeParse({ q: typed ?? '', archived: ticked ? 'on' : undefined });
+  const search = read.success ? read.data : { q: undefined, archived: ticked ? ('all' as const) : ('false' as const) };
+  const q = useDebouncedValue(search.q ?? '');
+  const onFilterChange = () => {
+    setPage(1);
+    void trigger('q');
+  };
+  const filters = useMemo(() => ({ q: q || undefined, archived: search.archived, page, page_size: PAGE_SIZE }), [q, search.archived, page]);
   const projects = useProjects(filters);
   const pages = projects.data ? Math.max(1, Math.ceil(projects.data.total / PAGE_SIZE)) : 1;
 
   return (
     <section aria-label="Sites" className="space-y-4">
-      <div className="flex flex-wrap items-end gap-4">
-        <div className="min-w-60 flex-1">
-          <label htmlFor={searchId} className="mb-1.5 block font-medium">
-            Search sites
-          </label>
-          <input
-            id={searchId}
-            type="search"
-            value={search}
-            placeholder="Name, reference, address or contact"
-            onChange={(event) => {
-              setSearch(event.target.value);
-              setPage(1);
-            }}
-            className="block min-h-tap w-full rounded-md border border-ink-300 bg-white px-3"
-          />
-        </div>
-        <label className="inline-flex min-h-tap items-center gap-2 font-medium">
-          <input
-            type="checkbox"
-            checked={showArchived}
-            onChange={(event) => {
-              setShowArchived(event.target.checked);
-              setPage(1);
-            }}
-            className="h-5 w-5 accent-clay-600"
-          />
-          Include archived sites
-        </label>
+      <Form form={form} label="Find sites" role="search" className="flex flex-wrap items-end gap-4">
+        <TextField name="q" label="Search sites" type="search" maxLength={100} placeholder="Name, reference, address or contact" className="min-w-60 flex-1" onChange={onFilterChange} />
+        <CheckboxField name="archived" label="Include archived sites" onChange={onFilterChange} />
         {projects.isFetching && !projects.isPending ? <Spinner label="Updating the list" /> : null}
-      </div>
+      </Form>
 
       {projects.isPending ? (
         <SkeletonBlock label="Loading the sites" lines={5} />

@@ -1,9 +1,9 @@
 import { useId } from 'react';
-import type { FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import type { z } from 'zod';
-import { QUOTE_REQUEST_SORTS, QUOTE_REQUEST_STATUSES, QUOTE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
+import { QUOTE_REQUEST_SORTS, type QUOTE_REQUEST_STATUSES, QUOTE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
 import type { quoteRequestListSchema } from '../../../../shared/schemas/order.schema';
+import { QuoteRequestSearch } from '../../../components/quotes/quote-request-search';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { ListPager, PhoneSortSelect, keepListOrder, sortChoices, useListAddress } from '../../../components/ui/server-list';
@@ -67,9 +67,6 @@ function filterWords(filters: DeskQuoteRequestFilters): string[] {
   return [filters.status ? `stage ${STAGE_WORDS[filters.status]}` : '', filters.waiting ? 'only those waiting for our price' : '', filters.q ? `search “${filters.q}”` : ''].filter(Boolean);
 }
 
-const selectClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-2';
-const inputClass = 'block min-h-tap rounded-md border border-ink-300 bg-white px-3';
-
 /** Quote requests sent to the merchant's branches, with how each branch has answered: filtered, sorted and paged by the server. */
 export function DeskQuoteRequests() {
   const { search, setSearch, set: setAddress } = useListAddress();
@@ -84,10 +81,6 @@ export function DeskQuoteRequests() {
   const set = (changes: Record<string, string | undefined>, { resetPage = true } = {}) => setAddress(changes, { resetPage, step: true });
   const sortBy = (sort: RequestSort, dir: SortDir) => set({ sort, dir });
   const goToPage = (page: number) => set({ page: page > 1 ? String(page) : undefined }, { resetPage: false });
-  const onSearch = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
-    set({ q: String(new FormData(event.currentTarget).get('q') ?? '').trim() });
-  };
 
   const words = filterWords(filters);
   const filtered = words.length > 0;
@@ -100,44 +93,22 @@ export function DeskQuoteRequests() {
 
   return (
     <section aria-label="Quote requests" className="space-y-4">
-      <div className="flex flex-wrap items-end gap-3">
-        <div>
-          <label htmlFor={`${id}-stage`} className="mb-1 block text-sm font-medium">
-            Stage
-          </label>
-          <select id={`${id}-stage`} value={filters.status ?? ''} onChange={(e) => set({ status: e.target.value })} className={selectClass}>
-            <option value="">Every stage</option>
-            {QUOTE_REQUEST_STATUSES.map((s) => (
-              <option key={s} value={s}>
-                {STAGE_WORDS[s]}
-              </option>
-            ))}
-          </select>
-        </div>
-        <label className="inline-flex min-h-tap items-center gap-2">
-          <input type="checkbox" checked={filters.waiting === true} onChange={(e) => set({ waiting: e.target.checked ? 'true' : undefined })} className="h-5 w-5" />
-          Only those waiting for our price
-        </label>
-        {/* On a phone the Asked header is off to the side of the scrolling table, so the sort is offered here too. */}
-        <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />
-      </div>
-      {/* Keyed on the search so Back and Forward put the words of that step back in the box. */}
-      <form role="search" onSubmit={onSearch} className="flex flex-wrap items-end gap-3" key={filters.q ?? ''}>
-        <div className="min-w-56 flex-1">
-          <label htmlFor={`${id}-q`} className="mb-1 block text-sm font-medium">
-            Search quote requests
-          </label>
-          <input id={`${id}-q`} name="q" type="search" maxLength={100} defaultValue={filters.q ?? ''} placeholder="12 or Q-12, site, contractor or PO" className={`${inputClass} w-full`} />
-        </div>
-        <Button type="submit" variant="secondary">
-          Search
-        </Button>
-        {filtered ? (
-          <Button variant="ghost" onClick={() => setSearch(keepListOrder(search))}>
-            Clear the filters
-          </Button>
-        ) : null}
-      </form>
+      <QuoteRequestSearch
+        status={filters.status}
+        q={filters.q}
+        waiting={filters.waiting === true}
+        placeholder="12 or Q-12, site, contractor or PO"
+        onSearch={(values) => set({ status: values.status, waiting: values.waiting, q: values.q })}
+        // On a phone the Asked header is off to the side of the scrolling table, so the sort is offered here too.
+        sortPicker={<PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />}
+        clear={
+          filtered ? (
+            <Button variant="ghost" onClick={() => setSearch(keepListOrder(search))}>
+              Clear the filters
+            </Button>
+          ) : null
+        }
+      />
       {requests.isPending ? (
         <SkeletonBlock label="Loading the quote requests" lines={4} />
       ) : requests.isError ? (

@@ -83,6 +83,7 @@ describe('SendOutPanel', () => {
     fireEvent.click(within(form).getByRole('button', { name: 'Send out with this reason' }));
     expect(await within(form).findByText('Say why in a few words (at least 3 letters)')).toBeTruthy();
     expect(reason.getAttribute('aria-invalid')).toBe('true');
+    expect(document.getElementById(reason.getAttribute('aria-describedby')!)?.textContent).toContain('Say why in a few words');
     fireEvent.input(reason, { target: { value: '  ok ' } });
     fireEvent.click(within(form).getByRole('button', { name: 'Send out with this reason' }));
     expect(await within(form).findByText('Say why in a few words (at least 3 letters)')).toBeTruthy();
@@ -94,6 +95,27 @@ describe('SendOutPanel', () => {
     fireEvent.click(within(form).getByRole('button', { name: 'Send out with this reason' }));
     await waitFor(() => expect(posts(fetchMock)).toEqual([{ override_reason: 'Site asked for it a day early' }]));
     expect(await within(form).findByText('This run is for 1 March 2027; today is 26 February 2027')).toBeTruthy();
+  });
+
+  it('puts a 422 about the reason on the reason box, linked by aria-describedby and focused', async () => {
+    stubFetch({
+      ...csrf,
+      'POST /api/runs/7/send-out': {
+        status: 422,
+        body: { error: { code: 'validation_failed', message: 'Some fields are not valid', details: [{ path: 'override_reason', message: 'must not name a customer’s card' }] } },
+      },
+      'GET /api/runs/7': { status: 200, body: runFixture() },
+    });
+    todayIs('2027-02-26');
+    renderWithProviders(<SendOutPanel run={runFixture()} canSendOut canOverride />);
+    fireEvent.click(screen.getByRole('button', { name: 'Send out anyway…' }));
+    const form = screen.getByRole('form', { name: 'Send out anyway' });
+    const reason = within(form).getByLabelText('Reason for sending out anyway');
+    fireEvent.input(reason, { target: { value: 'Site asked for it a day early' } });
+    fireEvent.click(within(form).getByRole('button', { name: 'Send out with this reason' }));
+    await waitFor(() => expect(reason.getAttribute('aria-invalid')).toBe('true'));
+    expect(document.getElementById(reason.getAttribute('aria-describedby')!)?.textContent).toContain('must not name a customer’s card');
+    expect(document.activeElement).toBe(reason);
   });
 
   it('offers no override to someone who may not give one, and none once the lorry has gone', () => {

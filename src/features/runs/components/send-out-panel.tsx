@@ -1,9 +1,8 @@
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useId, useState } from 'react';
-import { useForm } from 'react-hook-form';
-import type { z } from 'zod';
-import { sendOutBodySchema } from '../../../../shared/schemas/run.schema';
+import { useState } from 'react';
+import { sendOutOverrideBodySchema } from '../../../../shared/schemas/run.schema';
 import type { Run } from '../../../../shared/schemas/run.schema';
+import { Form, TextAreaField } from '../../../components/form/fields';
+import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert, errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
@@ -12,73 +11,28 @@ import { formatDateTime } from '../../../lib/format';
 import { useSendOut } from '../api/send-out';
 import { sendOutState } from '../lib/send-out-rule';
 
-/** The override needs its reason: the shared body with the reason required. */
-const overrideSchema = sendOutBodySchema.required({ override_reason: true });
-type OverrideValues = z.input<typeof overrideSchema>;
-
-const reasonMessage = (issue: z.core.$ZodRawIssue): string | undefined => {
-  if (issue.code === 'invalid_type') return 'Say why the lorry goes out anyway';
-  if (issue.code === 'too_small') return 'Say why in a few words (at least 3 letters)';
-  if (issue.code === 'too_big') return 'Keep the reason to 500 characters';
-  return undefined;
-};
-
 function OverrideForm({ run, blocks, onSent, onCancel }: { run: Run; blocks: string[]; onSent: () => void; onCancel: () => void }) {
   const send = useSendOut(run.id);
-  const ids = useId();
-  const {
-    register,
-    handleSubmit,
-    setError,
-    formState: { errors, isSubmitting },
-  } = useForm<OverrideValues, unknown, z.output<typeof overrideSchema>>({
-    resolver: zodResolver(overrideSchema, { error: reasonMessage }),
-    defaultValues: { override_reason: '' },
-  });
-  const onSubmit = handleSubmit(async (values) => {
-    try {
+  const form = useSchemaForm({
+    schema: sendOutOverrideBodySchema,
+    onSubmit: async (values) => {
       await send.mutateAsync(values);
       onSent();
-    } catch (error) {
-      setError('root.server', { message: errorMessage(error) });
-    }
+    },
   });
-  const fieldError = errors.override_reason?.message;
   return (
-    <form noValidate aria-label="Send out anyway" onSubmit={(e) => void onSubmit(e)} className="space-y-3 rounded-md border border-ochre-500 bg-ochre-50 p-3">
-      {errors.root?.server ? (
-        <Alert tone="danger" title="The lorry was not sent out">
-          {errors.root.server.message}
-        </Alert>
-      ) : null}
+    <Form form={form} label="Send out anyway" className="space-y-3 rounded-md border border-ochre-500 bg-ochre-50 p-3">
       <p className="text-sm text-ochre-800">Sending out anyway ({blocks.join(' and ')}) is recorded on each drop&apos;s order with your name and the reason.</p>
-      <div>
-        <label htmlFor={`${ids}-reason`} className="mb-1.5 block font-medium">
-          Reason for sending out anyway
-        </label>
-        <textarea
-          id={`${ids}-reason`}
-          rows={2}
-          className={`block w-full rounded-md border bg-white px-3 py-2 ${fieldError ? 'border-brick-600' : 'border-ink-300'}`}
-          aria-invalid={fieldError ? true : undefined}
-          aria-describedby={fieldError ? `${ids}-reason-error` : undefined}
-          {...register('override_reason')}
-        />
-        {fieldError ? (
-          <p id={`${ids}-reason-error`} className="mt-1.5 text-sm font-medium text-brick-700">
-            {fieldError}
-          </p>
-        ) : null}
-      </div>
+      <TextAreaField name="override_reason" label="Reason for sending out anyway" rows={2} />
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" variant="danger" busy={isSubmitting}>
+        <Button type="submit" variant="danger" busy={form.submitting}>
           Send out with this reason
         </Button>
         <Button variant="ghost" onClick={onCancel}>
           Keep it in the yard
         </Button>
       </div>
-    </form>
+    </Form>
   );
 }
 
