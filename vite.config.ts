@@ -111,7 +111,9 @@ const pwa = VitePWA({
         },
       },
       {
-        urlPattern: /\/api\/(driver\/runs|auth\/me)(\?.*)?$/,
+        // The driver's day and who is signed in (every page asks /api/auth/session first), so the
+        // phone opens the day again without signal.
+        urlPattern: /\/api\/(driver\/runs|auth\/session)(\?.*)?$/,
         method: 'GET',
         handler: 'NetworkFirst',
         options: {

@@ -1,13 +1,15 @@
 import type { Request } from 'express';
 import type { SessionBody } from '../../shared/schemas/auth.schema';
-import type { BusinessCalendar } from '../../shared/domain/business-calendar';
+import type { Config } from '../config/env';
 import type { AuthUser } from './auth-user';
 
-export function sessionBody(user: AuthUser, calendar: BusinessCalendar): SessionBody {
+/** Who is signed in, and the firm-wide settings every page works in: the calendar and the currency. */
+export function sessionBody(user: AuthUser, { calendar, currency }: Pick<Config, 'calendar' | 'currency'>): SessionBody {
   return {
     user: { id: user.id, email: user.email, name: user.name, role: user.role },
     organisation: user.organisation,
     calendar: { time_zone: calendar.timeZone, today: calendar.today() },
+    currency,
   };
 }
 

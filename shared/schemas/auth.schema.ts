@@ -61,6 +61,8 @@ export const sessionBodySchema = z.object({
   user: sessionUserSchema,
   organisation: sessionOrganisationSchema,
   calendar: sessionCalendarSchema,
+  /** ISO 4217 code of the currency every amount is kept in (minor units) and shown in: the server's CURRENCY. */
+  currency: z.string().regex(/^[A-Z]{3}$/),
 });
 
 /** Who is signed in: the session, or null when nobody is. */

@@ -7,48 +7,6 @@ import { roofSystemSchema } from './roof-system.schema';
  * kg (nails and clips in grams each), money in integer minor units, stock in packs.
  */
 
-export const PRODUCT_CATEGORIES = [
-  'tile',
-  'eaves_tile',
-  'top_tile',
-  'tile_and_half',
-  'ridge',
-  'hip',
-  'batten',
-  'batten_nail',
-  'tile_nail',
-  'clip',
-  'underlay',
-  'valley',
-  'valley_trough',
-  'dry_verge',
-  'ridge_end_cap',
-  'hip_iron',
-  'accessory',
-] as const;
-export type ProductCategory = (typeof PRODUCT_CATEGORIES)[number];
-
-/** Words shown for each category, in the order a bill of materials lists them. */
-export const CATEGORY_LABELS: Record<ProductCategory, string> = {
-  tile: 'Tiles',
-  eaves_tile: 'Eaves tiles',
-  top_tile: 'Top tiles',
-  tile_and_half: 'Tile-and-a-half',
-  ridge: 'Ridge',
-  hip: 'Hip',
-  batten: 'Battens',
-  batten_nail: 'Batten nails',
-  tile_nail: 'Tile nails',
-  clip: 'Clips',
-  underlay: 'Underlay',
-  valley: 'Valley lining',
-  valley_trough: 'Valley troughs',
-  dry_verge: 'Dry verge units',
-  ridge_end_cap: 'Ridge end caps',
-  hip_iron: 'Hip irons',
-  accessory: 'Accessories',
-};
-
 /**
  * The parts of a roof system; every role but hip, clip, valley and the fittings is needed for a whole
  * roof. A system with a dry verge product has dry verges; one with a valley trough has trough valleys;
@@ -73,6 +31,32 @@ export const SYSTEM_ROLES = [
   'hip_iron',
 ] as const;
 export type SystemRole = (typeof SYSTEM_ROLES)[number];
+
+/** What a product can be: any part of a roof system, or an accessory sold beside it. */
+export const PRODUCT_CATEGORIES = [...SYSTEM_ROLES, 'accessory'] as const;
+export type ProductCategory = (typeof PRODUCT_CATEGORIES)[number];
+
+/** Words shown for each category, in the order a bill of materials lists them. */
+export const CATEGORY_LABELS: Record<ProductCategory, string> = {
+  tile: 'Tiles',
+  eaves_tile: 'Eaves tiles',
+  top_tile: 'Top tiles',
+  tile_and_half: 'Tile-and-a-half',
+  ridge: 'Ridge',
+  hip: 'Hip',
+  batten: 'Battens',
+  batten_nail: 'Batten nails',
+  tile_nail: 'Tile nails',
+  clip: 'Clips',
+  underlay: 'Underlay',
+  valley: 'Valley lining',
+  valley_trough: 'Valley troughs',
+  dry_verge: 'Dry verge units',
+  ridge_end_cap: 'Ridge end caps',
+  hip_iron: 'Hip irons',
+  accessory: 'Accessories',
+};
+
 export const REQUIRED_SYSTEM_ROLES: readonly SystemRole[] = ['tile', 'ridge', 'batten', 'batten_nail', 'tile_nail', 'underlay'];
 
 const positive = () => z.number({ error: 'must be a number' }).positive({ error: 'must be more than 0' });

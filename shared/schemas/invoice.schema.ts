@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { branchRefSchema } from './catalogue.schema';
+import { documentTotalsShape, pricedLineShape } from './money.schema';
 import { orgRefSchema } from './order.schema';
 
 /**
@@ -40,12 +41,7 @@ export const invoiceLineSchema = z.object({
   description: z.string(),
   unit: z.string(),
   pack_size: z.number().int(),
-  quantity: z.number().int(),
-  unit_price: z.number().int(),
-  tax_rate_bp: z.number().int(),
-  net: z.number().int(),
-  tax: z.number().int(),
-  total: z.number().int(),
+  ...pricedLineShape,
   /** Packs already credited on this line. */
   credited_quantity: z.number().int(),
 });
@@ -69,22 +65,8 @@ export const creditNoteSchema = z.object({
   invoice_id: z.number().int(),
   reason: z.enum(CREDIT_REASONS),
   notes: z.string(),
-  subtotal: z.number().int(),
-  tax_total: z.number().int(),
-  total: z.number().int(),
-  lines: z.array(
-    z.object({
-      invoice_line_id: z.number().int(),
-      sku: z.string(),
-      description: z.string(),
-      quantity: z.number().int(),
-      unit_price: z.number().int(),
-      tax_rate_bp: z.number().int(),
-      net: z.number().int(),
-      tax: z.number().int(),
-      total: z.number().int(),
-    }),
-  ),
+  ...documentTotalsShape,
+  lines: z.array(z.object({ invoice_line_id: z.number().int(), sku: z.string(), description: z.string(), ...pricedLineShape })),
   refund: z.object({ status: z.enum(REFUND_STATUSES), amount: z.number().int(), last_error: z.string().nullable() }).nullable(),
   created_at: z.string(),
 });
@@ -102,9 +84,7 @@ export const invoiceSummarySchema = z.object({
   issue_date: z.string(),
   due_date: z.string().nullable(),
   pay_by: z.enum(PAY_BY),
-  subtotal: z.number().int(),
-  tax_total: z.number().int(),
-  total: z.number().int(),
+  ...documentTotalsShape,
   credited: z.number().int(),
   paid: z.number().int(),
   /** total − credited − paid, never below 0. */

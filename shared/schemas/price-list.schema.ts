@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { PRODUCT_CATEGORIES, SYSTEM_ROLES, TECHNICAL_SCHEMAS, branchRefSchema, systemSettingsSchema } from './catalogue.schema';
+import { PRODUCT_CATEGORIES, SYSTEM_ROLES, TECHNICAL_SCHEMAS, branchRefSchema, productSummarySchema, systemSettingsSchema } from './catalogue.schema';
 
 /**
  * A merchant's own catalogue: products (SKU, unit, pack size, pack weight, category, tax rate and the
@@ -84,14 +84,8 @@ export const productBranchSchema = z.object({
   reorder_level: z.number().int(),
 });
 
-export const productSchema = z.object({
-  id: z.number().int(),
-  sku: z.string(),
-  name: z.string(),
-  category: z.enum(PRODUCT_CATEGORIES),
-  unit: z.string(),
-  pack_size: z.number().int(),
-  pack_weight_kg: z.number(),
+/** A product as its merchant edits it: the summary everyone sees, with its tax, technical figures, pallet and branches. */
+export const productSchema = productSummarySchema.extend({
   tax_rate_bp: z.number().int(),
   technical: z.record(z.string(), z.unknown()),
   /** The pallet it travels on, mm. */

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { FaceResult } from '../engine/result';
+import { documentTotalsShape, pricedLineShape } from './money.schema';
 import { OPENING_KINDS } from './openings.schema';
 import { DELIVERY_METHODS, isoDateSchema, orderSiteSchema, orgRefSchema } from './order.schema';
 import { roofSystemSchema } from './roof-system.schema';
@@ -332,24 +333,8 @@ export const creditNoteDraftSchema = z.object({
   order_id: z.number().int(),
   status: z.enum(['draft', 'issued', 'dismissed']),
   currency: z.string(),
-  subtotal: z.number().int(),
-  tax_total: z.number().int(),
-  total: z.number().int(),
-  lines: z.array(
-    z.object({
-      order_line_id: z.number().int(),
-      sku: z.string(),
-      description: z.string(),
-      short: z.number().int(),
-      damaged: z.number().int(),
-      quantity: z.number().int(),
-      unit_price: z.number().int(),
-      tax_rate_bp: z.number().int(),
-      net: z.number().int(),
-      tax: z.number().int(),
-      total: z.number().int(),
-    }),
-  ),
+  ...documentTotalsShape,
+  lines: z.array(z.object({ order_line_id: z.number().int(), sku: z.string(), description: z.string(), short: z.number().int(), damaged: z.number().int(), ...pricedLineShape })),
   notes: z.string(),
   /** The credit note issued from it, once the desk has. */
   credit_note_id: z.number().int().nullable(),

@@ -25,6 +25,7 @@ function sessionFor(role: Role) {
     user: { id: 11, email: 'sam@carnbrea-tiles.test', name: 'Sam Tregear', role },
     organisation: { id: 5, name: merchant ? 'Carnbrea Tile Supplies' : 'Polwith Roofing', kind: merchant ? 'merchant' : 'contractor' },
     calendar: { time_zone: 'Europe/London', today: '2026-12-07' },
+    currency: 'GBP',
   };
 }
 

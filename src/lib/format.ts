@@ -1,4 +1,4 @@
-import { formatMoney as formatMoneyIn } from '../../shared/domain/money';
+import { currencySymbol, DEFAULT_CURRENCY, formatMoney as formatMoneyIn } from '../../shared/domain/money';
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
@@ -31,13 +31,36 @@ export function firstName(name: string): string {
   return name.trim().split(/\s+/)[0] ?? name;
 }
 
-/** The currency the app's prices are kept in (the server's CURRENCY; a screen shows no other). */
-export const APP_CURRENCY = 'GBP';
+/**
+ * The currency every amount is kept and shown in: the server's CURRENCY, named by the session
+ * (`setAppCurrency`, before any signed-in page shows). Until then, the server's default.
+ */
+let appCurrency = DEFAULT_CURRENCY;
 
-/** Minor units (pence) as the screen shows them, through the one money formatter; a dash for none. */
-export function formatMoney(minor: number | null | undefined, currency: string = APP_CURRENCY): string {
+/** Called with the session: the currency the server keeps money in. A code this browser cannot format is ignored. */
+export function setAppCurrency(currency: string): void {
+  try {
+    formatMoneyIn(0, currency);
+    appCurrency = currency.toUpperCase();
+  } catch {
+    // keep the one we have
+  }
+}
+
+/** The configured currency (ISO 4217 code). */
+export function currentCurrency(): string {
+  return appCurrency;
+}
+
+/** The configured currency's sign (£, €), for labels of amounts typed or listed without one. */
+export function moneySign(): string {
+  return currencySymbol(appCurrency);
+}
+
+/** Minor units as the screen shows them, in the configured currency, through the one money formatter; a dash for none. */
+export function formatMoney(minor: number | null | undefined): string {
   if (minor === null || minor === undefined) return '—';
-  return formatMoneyIn(minor, currency);
+  return formatMoneyIn(minor, appCurrency);
 }
 
 const counts = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 2 });

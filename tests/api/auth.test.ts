@@ -77,6 +77,7 @@ describe('sign-in and sign-out', () => {
       user: { id: u.userId, email: u.email, name: expect.any(String), role: 'merchant_sales' },
       organisation: { id: u.organisationId, name: expect.any(String), kind: 'merchant' },
       calendar: { time_zone: 'Europe/London', today: t.config.calendar.today() },
+      currency: 'GBP',
     });
     const cookieAfter = String(res.headers['set-cookie']);
     expect(cookieAfter).toMatch(/ridgeload\.sid=/);

@@ -23,16 +23,16 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
     const user = await auth.verifyCredentials(body.email, body.password);
     if (!user) throw new AppError(401, 'invalid_credentials', 'E-mail or password is wrong');
     await logIn(req, user);
-    res.json(sessionBody(user, deps.config.calendar));
+    res.json(sessionBody(user, deps.config));
   });
 
   // "Nobody is signed in" is an answer, not a failure: signed-out pages ask this and get a 200 either way.
   r.get('/auth/session', { access: { public: 'says whether anyone is signed in, and who' } }, (req, res) => {
-    res.json({ session: req.user ? sessionBody(currentUser(req), deps.config.calendar) : null });
+    res.json({ session: req.user ? sessionBody(currentUser(req), deps.config) : null });
   });
 
   r.get('/auth/me', { access: { signedIn: true } }, (req, res) => {
-    res.json(sessionBody(currentUser(req), deps.config.calendar));
+    res.json(sessionBody(currentUser(req), deps.config));
   });
 
   r.post('/auth/logout', { access: { public: 'signing out is harmless when signed out' } }, async (req, res) => {
@@ -43,7 +43,7 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
   r.post('/auth/signup', { access: { public: 'creating a firm and its owner' }, body: signupBodySchema }, async (req, res, { body }) => {
     const user = await auth.signup(body);
     await logIn(req, user);
-    res.status(201).json(sessionBody(user, deps.config.calendar));
+    res.status(201).json(sessionBody(user, deps.config));
   });
 
   r.post('/auth/password/forgot', { access: { public: 'asking for a reset link' }, before: [resetLimit], body: forgotPasswordBodySchema }, async (_req, res, { body }) => {
@@ -65,7 +65,7 @@ export function authRoutes(deps: AppDeps, auth: AuthService, members: MembersSer
   r.post('/invitations/:token/accept', { access: { public: 'joining a firm through an invitation' }, params: tokenParamsSchema, body: acceptInvitationBodySchema }, async (req, res, { params, body }) => {
     const user = await members.acceptInvitation(params.token, body);
     await logIn(req, user);
-    res.status(201).json(sessionBody(user, deps.config.calendar));
+    res.status(201).json(sessionBody(user, deps.config));
   });
 
   return r.router;

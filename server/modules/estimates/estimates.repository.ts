@@ -28,25 +28,8 @@ export interface EstimateRow {
   created_by: { id: number; name: string } | null;
 }
 
-export interface NewEstimate {
-  organisation_id: number;
-  project_id: number;
-  schedule_id: number;
-  roof_system_id: number | null;
-  branch_id: number | null;
-  system_name: string;
-  system_input: RoofSystem;
-  waste_pct: WastePct;
-  engine_version: string;
-  result: EngineResult;
-  not_counted: unknown[];
-  subtotal: number | null;
-  weight_kg: number;
-  pallets: number;
-  loads: number;
-  recomputed_from: number | null;
-  created_by: number;
-}
+/** An estimate as it is written: the row less what the database gives it (id, schedule version, time) and the author by id. */
+export type NewEstimate = Omit<EstimateRow, 'id' | 'schedule_version' | 'created_at' | 'created_by'> & { created_by: number };
 
 const SUMMARY_COLUMNS = [
   'e.id',

@@ -1,3 +1,4 @@
+import { formatMoney } from '../../../shared/domain/money';
 import { DELIVERY_METHOD_LABELS, orderReference } from '../../../shared/schemas/order.schema';
 import type { AppDeps } from '../../app-deps';
 import type { Db } from '../../db/knex';
@@ -21,13 +22,13 @@ interface Letter {
   paragraphs: string[];
 }
 
-const money = (minor: number) => `£${(minor / 100).toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 })}`;
 /** A comment quoted in the letter, cut short if long (the whole of it is on the order). */
 const quote = (text = '') => `“${text.length > 600 ? `${text.slice(0, 597)}…` : text}”`;
 const when = (o: OrderRow) => `${o.requested_date}${o.time_window ? `, ${o.time_window}` : ''}`;
 
 /** What each side is told at each step; the desk hears of what the contractor does and the other way round. */
-function letters(event: OrderMailEvent, o: OrderRow, note?: string, slot?: MailSlot, actor?: 'contractor' | 'merchant'): { contractor?: Letter; desk?: Letter } {
+function letters(event: OrderMailEvent, o: OrderRow, currency: string, note?: string, slot?: MailSlot, actor?: 'contractor' | 'merchant'): { contractor?: Letter; desk?: Letter } {
+  const money = (minor: number) => formatMoney(minor, currency);
   const ref = orderReference(o.id);
   const place = `${o.branch_name} (${o.merchant_name})`;
   const delivery = `${DELIVERY_METHOD_LABELS[o.delivery_method]} at ${o.site_name} on ${when(o)}.`;
@@ -143,7 +144,7 @@ export async function sendOrderMail(
   /** Who took the step, where the letter depends on it (a comment goes to the other side). */
   actor?: 'contractor' | 'merchant',
 ): Promise<void> {
-  const content = letters(event, order, note, slot, actor);
+  const content = letters(event, order, config.currency, note, slot, actor);
   const url = `${config.appUrl}/orders/${order.id}`;
   for (const [side, letter] of [
     ['contractor', content.contractor],

@@ -23,15 +23,9 @@ export interface BranchRow {
   town: string;
 }
 
-export interface PriceListRow {
+/** A product on a branch's price list: its values as written, with its id and the branch's pack price. */
+export interface PriceListRow extends Pick<ProductValues, 'sku' | 'name' | 'category' | 'unit' | 'pack_size' | 'pack_weight_kg' | 'tax_rate_bp'> {
   product_id: number;
-  sku: string;
-  name: string;
-  category: ProductCategory;
-  unit: string;
-  pack_size: number;
-  pack_weight_kg: number;
-  tax_rate_bp: number;
   pack_price: number;
 }
 

@@ -2,7 +2,7 @@ import { DELIVERY_METHOD_LABELS, orderReference } from '../../../shared/schemas/
 import { CRANE_LIFT_LABELS, OVERHEAD_LINES_LABELS, VEHICLE_ACCESS_LABELS } from '../../../shared/schemas/project.schema';
 import { createPdf, FONT_BOLD, FONT_REGULAR, PT_PER_MM, type PdfKitDocument } from '../../documents/pdf';
 import { orderCautions } from '../estimates/cautions';
-import { palletItems, type RunDetail } from './runs.service';
+import { palletItems, type RunDetail } from './run-assembly';
 
 const kg = (v: number) => `${(Math.round(v * 10) / 10).toLocaleString('en-GB')} kg`;
 const mm = (v: number) => `${Math.round(v).toLocaleString('en-GB')} mm`;

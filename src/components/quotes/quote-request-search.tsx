@@ -9,7 +9,7 @@ import { Button } from '../ui/button';
 type RequestStatus = (typeof QUOTE_REQUEST_STATUSES)[number];
 
 /** A quote request's stage in words, on either side's list. */
-const REQUEST_STAGE_WORDS: Record<RequestStatus, string> = { open: 'Open', accepted: 'Accepted', withdrawn: 'Withdrawn' };
+export const REQUEST_STAGE_WORDS: Record<RequestStatus, string> = { open: 'Open', accepted: 'Accepted', withdrawn: 'Withdrawn' };
 
 const STAGE_OPTIONS = [{ value: '', label: 'Every stage' }, ...QUOTE_REQUEST_STATUSES.map((s) => ({ value: s, label: REQUEST_STAGE_WORDS[s] }))];
 
@@ -18,6 +18,8 @@ interface QuoteRequestSearchProps {
   q: string | undefined;
   /** The desk's "only those waiting for our price"; left out, the box is not offered (the contractor's list). */
   waiting?: boolean;
+  /** The waiting box's words (the side that prices gives them). */
+  waitingLabel?: string;
   placeholder: string;
   onSearch: (values: QuoteRequestSearchValues) => void;
   /** Put after the stage (the phone's sort picker). */
@@ -30,7 +32,7 @@ interface QuoteRequestSearchProps {
  * The quote-request lists' search bar, for the contractor's list and the desk's alike: the stage and
  * the desk's tick box search at once, the words on Enter or Search.
  */
-export function QuoteRequestSearch({ status, q, waiting, placeholder, onSearch, sortPicker, clear }: QuoteRequestSearchProps) {
+export function QuoteRequestSearch({ status, q, waiting, waitingLabel = 'Only those waiting for our price', placeholder, onSearch, sortPicker, clear }: QuoteRequestSearchProps) {
   const offersWaiting = waiting !== undefined;
   const address: Record<string, string | boolean> = { status: status ?? '', q: q ?? '' };
   if (offersWaiting) address.waiting = waiting;
@@ -39,7 +41,7 @@ export function QuoteRequestSearch({ status, q, waiting, placeholder, onSearch, 
     <Form form={form} label="Find quote requests" role="search" className="space-y-3">
       <div className="flex flex-wrap items-end gap-3">
         <SelectField name="status" label="Stage" options={STAGE_OPTIONS} defaultValue={status ?? ''} onChange={searchNow} />
-        {offersWaiting ? <CheckboxField name="waiting" label="Only those waiting for our price" defaultChecked={waiting} onChange={searchNow} /> : null}
+        {offersWaiting ? <CheckboxField name="waiting" label={waitingLabel} defaultChecked={waiting} onChange={searchNow} /> : null}
         {sortPicker}
       </div>
       <div className="flex flex-wrap items-end gap-3">

@@ -3,7 +3,7 @@ import type { z } from 'zod';
 import { sessionBodySchema } from '../../../../shared/schemas/auth.schema';
 import type { acceptInvitationBodySchema, SessionBody } from '../../../../shared/schemas/auth.schema';
 import { apiClient } from '../../../lib/api-client';
-import { authKeys } from './keys';
+import { startSession } from './adopt-session';
 
 export type AcceptInvitationBody = z.infer<typeof acceptInvitationBodySchema>;
 
@@ -20,9 +20,6 @@ export function useAcceptInvitation(token: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: AcceptInvitationBody) => acceptInvitation(token, body),
-    onSuccess: (session) => {
-      queryClient.removeQueries();
-      queryClient.setQueryData(authKeys.session(), session);
-    },
+    onSuccess: (session) => startSession(queryClient, session),
   });
 }

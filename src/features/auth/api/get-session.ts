@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { sessionAnswerSchema } from '../../../../shared/schemas/auth.schema';
 import type { SessionBody } from '../../../../shared/schemas/auth.schema';
 import { apiClient } from '../../../lib/api-client';
-import { setBusinessTimeZone } from '../../../lib/business-calendar';
+import { adoptSessionSettings } from './adopt-session';
 import { authKeys } from './keys';
 
 /**
@@ -11,7 +11,7 @@ import { authKeys } from './keys';
  */
 export async function fetchSession(signal?: AbortSignal): Promise<SessionBody | null> {
   const answer = await apiClient.get('/api/auth/session', { schema: sessionAnswerSchema, signal, redirectOnUnauthenticated: false });
-  if (answer.session) setBusinessTimeZone(answer.session.calendar.time_zone);
+  adoptSessionSettings(answer.session);
   return answer.session;
 }
 

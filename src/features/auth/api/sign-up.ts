@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { sessionBodySchema } from '../../../../shared/schemas/auth.schema';
 import type { SessionBody, SignupBody } from '../../../../shared/schemas/auth.schema';
 import { apiClient } from '../../../lib/api-client';
-import { authKeys } from './keys';
+import { startSession } from './adopt-session';
 
 export function signUp(body: SignupBody): Promise<SessionBody> {
   return apiClient.post('/api/auth/signup', {
@@ -17,9 +17,6 @@ export function useSignUp() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signUp,
-    onSuccess: (session) => {
-      queryClient.removeQueries();
-      queryClient.setQueryData(authKeys.session(), session);
-    },
+    onSuccess: (session) => startSession(queryClient, session),
   });
 }

@@ -4,7 +4,7 @@ import { Form, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
-import { formatMoney } from '../../../lib/format';
+import { formatMoney, moneySign } from '../../../lib/format';
 import { useSetBranchPrice } from '../api/set-branch-price';
 import { withFieldDetails } from '../lib/form-values';
 import { penceText, priceFormSchema } from '../lib/price-form';
@@ -36,7 +36,14 @@ export function PriceEditForm({ branchId, item, onDone }: { branchId: number; it
       </p>
       <Form form={form} label={`Change the price of ${item.sku}`} className="space-y-4">
         <div ref={field} className="max-w-xs">
-          <TextField name="pack_price" label={`Pack price in £ (${item.pack_size} ${item.unit})`} hint="Before tax, e.g. 12.80." inputMode="decimal" autoComplete="off" defaultValue={penceText(item.pack_price)} />
+          <TextField
+            name="pack_price"
+            label={`Pack price in ${moneySign()} (${item.pack_size} ${item.unit})`}
+            hint="Before tax, e.g. 12.80."
+            inputMode="decimal"
+            autoComplete="off"
+            defaultValue={penceText(item.pack_price)}
+          />
         </div>
         <div className="flex flex-wrap gap-2">
           <SubmitButton>Save the price</SubmitButton>

@@ -10,7 +10,7 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
-import { formatCount, formatDate, formatDateTime, formatMoney } from '../../../lib/format';
+import { formatCount, formatDate, formatDateTime, formatMoney, moneySign } from '../../../lib/format';
 import { OrderAmounts } from '../../../components/orders/order-amounts';
 import { useBranchStock } from '../api/get-branch-stock';
 import { ConfirmOrderForm } from './confirm-order-form';
@@ -66,8 +66,8 @@ const lineColumns = h.columns([
   }),
   h.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{ORDER_LINE_STATUS_LABELS[info.getValue()]}</span> }),
   h.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
-  h.accessor('now_total', { header: 'This delivery (£)', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
-  h.accessor('to_follow_total', { header: 'To follow (£)', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatMoney(info.getValue()) : '—'}</span> }),
+  h.accessor('now_total', { header: () => `This delivery (${moneySign()})`, sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
+  h.accessor('to_follow_total', { header: () => `To follow (${moneySign()})`, sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatMoney(info.getValue()) : '—'}</span> }),
 ]);
 
 /** The booked delivery, as both sides see it. */

@@ -15,7 +15,7 @@ import type { ProposalAnswer } from '../api/answer-proposal';
 import { Form, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useCancelOrder } from '../api/cancel-order';
-import { formatCount, formatMoney } from '../../../lib/format';
+import { formatCount, formatMoney, moneySign } from '../../../lib/format';
 import { OrderAmounts } from '../../../components/orders/order-amounts';
 import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { OrderStages, OrderStatusBadge } from './order-status';
@@ -47,8 +47,12 @@ const lineColumns = lineHelper.columns([
   lineHelper.accessor('dropped_quantity', { header: 'Dropped', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatCount(info.getValue()) : '—'}</span> }),
   lineHelper.accessor('status', { header: 'State', sortFn: 'text', cell: (info) => <span className="whitespace-nowrap">{ORDER_LINE_STATUS_LABELS[info.getValue()]}</span> }),
   lineHelper.accessor('unit_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
-  lineHelper.accessor('now_total', { header: 'This delivery (£)', sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
-  lineHelper.accessor('to_follow_total', { header: 'To follow (£)', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() ? formatMoney(info.getValue()) : '—'}</span> }),
+  lineHelper.accessor('now_total', { header: () => `This delivery (${moneySign()})`, sortFn: 'alphanumeric', cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
+  lineHelper.accessor('to_follow_total', {
+    header: () => `To follow (${moneySign()})`,
+    sortFn: 'alphanumeric',
+    cell: (info) => <span className="tabular-nums">{info.getValue() ? formatMoney(info.getValue()) : '—'}</span>,
+  }),
 ]);
 
 /** The contractor's answer to offered changes: a note (optional), then accept or decline, each its own submit button. */

@@ -1,16 +1,7 @@
-import type { QUOTE_REQUEST_SORTS, QUOTE_REQUEST_STATUSES } from '../../../../shared/schemas/order.schema';
+import type { QuoteRequestListFilters } from '../../../components/quotes/list-filters';
 
 /** The desk's quote-request list query as the page sends it (see quoteRequestListQuerySchema). */
-export interface DeskQuoteRequestFilters {
-  status?: (typeof QUOTE_REQUEST_STATUSES)[number];
-  /** Only the requests some branch of ours has still to price. */
-  waiting?: boolean;
-  q?: string;
-  sort: (typeof QUOTE_REQUEST_SORTS)[number];
-  dir: 'asc' | 'desc';
-  page: number;
-  page_size: number;
-}
+export type DeskQuoteRequestFilters = QuoteRequestListFilters;
 
 /** Query keys of the desk's quote requests: the requests sent to the merchant's branches, and a branch's stock to price from. */
 export const quoteDeskKeys = {

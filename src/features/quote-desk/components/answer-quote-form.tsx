@@ -4,7 +4,7 @@ import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useToast } from '../../../components/ui/toast';
-import { formatMoney } from '../../../lib/format';
+import { formatMoney, moneySign } from '../../../lib/format';
 import { useAnswerQuote } from '../api/answer-quote';
 import { answerField, answerFormSchema, onAnswerForm } from '../lib/answer-form';
 
@@ -55,7 +55,7 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
                 Packs
               </th>
               <th scope="col" className="px-3 py-2">
-                Pack price (£)
+                Pack price ({moneySign()})
               </th>
               <th scope="col" className="px-3 py-2">
                 Note

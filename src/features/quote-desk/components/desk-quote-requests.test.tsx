@@ -55,6 +55,12 @@ describe('DeskQuoteRequests', () => {
     expect(header('Wanted').getAttribute('aria-sort')).toBe('none');
     expect(requestLinks()).toEqual(['Request 12', 'Request 4', 'Request 31']);
     expect(screen.getByRole('link', { name: 'Request 12' }).getAttribute('href')).toBe('/desk/quotes/12');
+    // This side's columns, laid out on the one quote-request list.
+    expect(
+      within(screen.getByRole('table', { name: 'Quote requests' }))
+        .getAllByRole('columnheader')
+        .map((h) => h.textContent),
+    ).toEqual(['Request', 'Contractor', 'Site', 'Wanted', 'Your answer', 'Asked']);
     expect(screen.getByText('Page 1 of 2')).toBeTruthy();
   });
 

@@ -1,13 +1,12 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { quoteRequestListSchema } from '../../../../shared/schemas/order.schema';
+import { quoteRequestListParams } from '../../../components/quotes/list-filters';
 import { apiClient } from '../../../lib/api-client';
 import { quoteKeys } from './keys';
 import type { QuoteRequestFilters } from './keys';
 
 export function fetchQuoteRequests(filters: QuoteRequestFilters, signal?: AbortSignal) {
-  const params = new URLSearchParams();
-  for (const [key, value] of Object.entries(filters)) if (value !== undefined && value !== '') params.set(key, String(value));
-  return apiClient.get(`/api/quote-requests?${params.toString()}`, { schema: quoteRequestListSchema, signal });
+  return apiClient.get(`/api/quote-requests?${quoteRequestListParams(filters).toString()}`, { schema: quoteRequestListSchema, signal });
 }
 
 export function quoteRequestsQueryOptions(filters: QuoteRequestFilters) {

@@ -1,14 +1,7 @@
-import type { QUOTE_REQUEST_SORTS, QUOTE_REQUEST_STATUSES } from '../../../../shared/schemas/order.schema';
+import type { QuoteRequestListFilters } from '../../../components/quotes/list-filters';
 
-/** The firm's quote-request list query as the page sends it (see quoteRequestListQuerySchema). */
-export interface QuoteRequestFilters {
-  status?: (typeof QUOTE_REQUEST_STATUSES)[number];
-  q?: string;
-  sort: (typeof QUOTE_REQUEST_SORTS)[number];
-  dir: 'asc' | 'desc';
-  page: number;
-  page_size: number;
-}
+/** The firm's quote-request list query as the page sends it (see quoteRequestListQuerySchema): never the merchant's `waiting`. */
+export type QuoteRequestFilters = Omit<QuoteRequestListFilters, 'waiting'>;
 
 /** Query keys of the quotes feature: quote requests, and the merchant branches they can go to. */
 export const quoteKeys = {

@@ -45,6 +45,12 @@ describe('QuoteRequestsList', () => {
     expect(header('Asked').getAttribute('aria-sort')).toBe('descending');
     expect(requestLinks()).toEqual(['Request 12', 'Request 4', 'Request 31']);
     expect(screen.getByRole('link', { name: 'Request 31' }).getAttribute('href')).toBe('/quotes/31');
+    // This side's columns, laid out on the one quote-request list.
+    expect(
+      within(screen.getByRole('table', { name: 'Quote requests' }))
+        .getAllByRole('columnheader')
+        .map((h) => h.textContent),
+    ).toEqual(['Request', 'Site', 'Wanted', 'Stage', 'Answers', 'Asked']);
     // One page only: nothing to turn.
     expect(screen.queryByRole('navigation', { name: 'Pages of the quote requests' })).toBeNull();
   });

@@ -1,0 +1,22 @@
+import { z } from 'zod';
+
+/**
+ * The money of one priced line, in integer minor units of the configured currency: packs at a pack
+ * price, its tax rate in basis points (2000 = 20 %), and net + tax = total with the tax rounded to the
+ * minor unit per line. Invoice lines, credit-note lines and credit-note drafts all carry it.
+ */
+export const pricedLineShape = {
+  quantity: z.number().int(),
+  unit_price: z.number().int(),
+  tax_rate_bp: z.number().int(),
+  net: z.number().int(),
+  tax: z.number().int(),
+  total: z.number().int(),
+};
+
+/** A document's sums in minor units: before tax, the tax, and with tax. */
+export const documentTotalsShape = {
+  subtotal: z.number().int(),
+  tax_total: z.number().int(),
+  total: z.number().int(),
+};
