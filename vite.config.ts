@@ -145,6 +145,10 @@ export default defineConfig({
   },
   server: { proxy: { '/api': `http://localhost:${apiPort}` } },
   test: {
+    // Vitest's default on two cores is one worker (cores − 1), which leaves a core idle whenever a test
+    // waits on PostgreSQL, a server process or the mail fake. The unit, ui, api and api-pg projects
+    // share these workers (the browser journeys run after them, one file at a time).
+    maxWorkers: Number(process.env.VITEST_MAX_WORKERS ?? 3),
     projects: [
       {
         extends: true,
@@ -164,6 +168,7 @@ export default defineConfig({
           name: 'api',
           include: ['tests/api/**/*.test.ts', 'tests/cli/**/*.test.ts'],
           environment: 'node',
+          globalSetup: ['tests/setup/sqlite-global.ts'],
           testTimeout: 20_000,
           hookTimeout: 30_000,
         },
@@ -186,6 +191,7 @@ export default defineConfig({
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
+          globalSetup: ['tests/setup/e2e-global.ts'],
           fileParallelism: false,
           testTimeout: 90_000,
           hookTimeout: 240_000,
