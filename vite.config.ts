@@ -147,8 +147,10 @@ export default defineConfig({
   test: {
     // Vitest's default on two cores is one worker (cores − 1), which leaves a core idle whenever a test
     // waits on PostgreSQL, a server process or the mail fake. The unit, ui, api and api-pg projects
-    // share these workers (the browser journeys run after them, one file at a time).
-    maxWorkers: Number(process.env.VITEST_MAX_WORKERS ?? 3),
+    // share these workers (the browser journeys run after them, one file at a time). Two keeps both
+    // cores busy (PostgreSQL and the servers tests start work while a worker waits on them) without
+    // pushing slow API tests towards their time-outs.
+    maxWorkers: Number(process.env.VITEST_MAX_WORKERS ?? 2),
     projects: [
       {
         extends: true,
