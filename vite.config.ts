@@ -147,6 +147,12 @@ export default defineConfig({
   },
   server: { proxy: { '/api': `http://localhost:${apiPort}` } },
   test: {
+    // Vitest's default on two cores is one worker (cores − 1), which leaves a core idle whenever a test
+    // waits on PostgreSQL, a server process or the mail fake. The unit, ui, api and api-pg projects
+    // share these workers (the browser journeys run after them, one file at a time). Two keeps both
+    // cores busy (PostgreSQL and the servers tests start work while a worker waits on them) without
+    // pushing slow API tests towards their time-outs.
+    maxWorkers: Number(process.env.VITEST_MAX_WORKERS ?? 2),
     projects: [
       {
         extends: true,
@@ -166,6 +172,10 @@ export default defineConfig({
           name: 'api',
           include: ['tests/api/**/*.test.ts', 'tests/cli/**/*.test.ts'],
           environment: 'node',
+          // Each file makes its own app on its own database (createTestApp), so the server's modules are
+          // loaded once per worker rather than once per file (about 2 s of CPU each).
+          isolate: false,
+          globalSetup: ['tests/setup/sqlite-global.ts'],
           testTimeout: 20_000,
           hookTimeout: 30_000,
         },
@@ -178,6 +188,7 @@ export default defineConfig({
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
           env: { TEST_DB: 'postgres' },
+          isolate: false,
           globalSetup: ['tests/setup/pg-global.ts'],
           testTimeout: 20_000,
           hookTimeout: 30_000,
@@ -188,6 +199,7 @@ export default defineConfig({
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
+          globalSetup: ['tests/setup/e2e-global.ts'],
           fileParallelism: false,
           testTimeout: 90_000,
           hookTimeout: 240_000,

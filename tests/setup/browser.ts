@@ -1,27 +1,51 @@
 import { existsSync } from 'node:fs';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type BrowserServer, type LaunchOptions } from 'playwright-core';
+import { inject } from 'vitest';
 
 const SYSTEM_NSS = ['/usr/lib/x86_64-linux-gnu/libnss3.so', '/usr/lib/aarch64-linux-gnu/libnss3.so', '/usr/lib64/libnss3.so'];
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    /** The run's one headless Chromium (tests/setup/e2e-global.ts), which each journey file connects to. */
+    browserWsEndpoint?: string;
+  }
+}
 
 /**
  * Headless Chromium for the browser journeys: CHROMIUM_PATH when set (e.g. Debian's
  * /usr/bin/chromium), otherwise the build that npm ci brings in @sparticuz/chromium.
  */
-export async function launchBrowser(): Promise<Browser> {
+async function launchOptions(): Promise<LaunchOptions> {
   const override = process.env.CHROMIUM_PATH;
   if (override) {
-    return chromium.launch({
+    return {
       executablePath: override,
       headless: true,
       args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-    });
+    };
   }
   // Without the system's NSS libraries, the package uses the copies it ships for serverless hosts.
   if (!SYSTEM_NSS.some(existsSync)) process.env.AWS_EXECUTION_ENV ??= 'AWS_Lambda_nodejs20.x';
   const { default: packaged } = await import('@sparticuz/chromium');
   // Its serverless flags include --single-process, where closing one context ends the browser.
   const args = packaged.args.filter((a) => a !== '--single-process' && a !== '--no-zygote');
-  return chromium.launch({ executablePath: await packaged.executablePath(), args, headless: true });
+  return { executablePath: await packaged.executablePath(), args, headless: true };
+}
+
+/**
+ * The browser a journey file uses: a connection to the run's one Chromium where the project's global
+ * set-up started it (closing the connection closes the file's contexts and leaves the browser to the
+ * next file), or a Chromium of its own otherwise.
+ */
+export async function launchBrowser(): Promise<Browser> {
+  const shared = inject('browserWsEndpoint');
+  if (shared) return chromium.connect(shared);
+  return chromium.launch(await launchOptions());
+}
+
+/** One Chromium for a whole run, started by a global set-up; files reach it through launchBrowser(). */
+export async function launchBrowserServer(): Promise<BrowserServer> {
+  return chromium.launchServer(await launchOptions());
 }
 
 /** A console error or uncaught exception on a page of a journey, with the address it happened at. */

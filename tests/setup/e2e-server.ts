@@ -12,6 +12,7 @@ import { startDevSmtp } from '../../server/mail/dev-smtp';
 import { createSmtpMailer } from '../../server/mail/mailer';
 import { createAppMailWorker } from '../../server/mail-worker';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
+import { copySqliteTemplate } from './db-template';
 
 export interface E2eServer {
   url: string;
@@ -23,7 +24,8 @@ export interface E2eServer {
 
 /**
  * The real product as `npm start` runs it: built client, migrated and seeded database, the local
- * mail fake, on a free port of loopback.
+ * mail fake, on a free port of loopback. The database is a copy of the run's seeded template
+ * (tests/setup/e2e-global.ts) where there is one, so the demo is seeded once per run, not per journey.
  */
 export async function startE2eServer(): Promise<E2eServer> {
   if (!existsSync(new URL('../../dist/client/index.html', import.meta.url))) {
@@ -32,9 +34,10 @@ export async function startE2eServer(): Promise<E2eServer> {
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-e2e-'));
   const payments = await startDevPayments(loadConfig({ NODE_ENV: 'test', DATA_DIR: dir, LOGIN_RATE_LIMIT: '100', RESET_RATE_LIMIT: '100' }), 0);
   const config = payments.config;
+  const copied = copySqliteTemplate(config.databaseFile);
   const db = createDb(config.database);
   await migrateLatest(db);
-  await runSeeds(db);
+  if (!copied) await runSeeds(db);
   const smtp = await startDevSmtp(db, 0);
   const mailer = createSmtpMailer(`smtp://127.0.0.1:${smtp.port}`, config.mailFrom);
   const deps = { config, db, mailer, logger: pino({ level: 'silent' }) };

@@ -1,11 +1,18 @@
 import type { OrganisationKind, Role } from '../../shared/domain/roles';
-import { hashPassword } from '../../server/auth/passwords';
+import { hash } from '@node-rs/argon2';
 import type { Db } from '../../server/db/knex';
 
 let counter = 0;
 const unique = () => `${Date.now().toString(36)}${(counter++).toString(36)}`;
 let cachedHash: Promise<string> | undefined;
 export const TEST_PASSWORD = 'correct-horse-battery';
+
+/**
+ * The people tests make get an argon2id hash at the smallest cost (1 MiB, one pass): signing in
+ * verifies at the cost the hash names, and the suite signs in hundreds of times. The app's own
+ * hashes (sign-up, invitations, resets, the demo seeds) keep the library's defaults.
+ */
+const TEST_HASH_COST = { memoryCost: 1024, timeCost: 1, parallelism: 1 };
 
 /** An organisation (with one branch when it is a merchant) and one person in the given role. */
 export async function makeOrgWithUser(db: Db, kind: OrganisationKind, role: Role, name = `Test ${kind} ${unique()}`) {
@@ -24,7 +31,7 @@ export async function makeOrgWithUser(db: Db, kind: OrganisationKind, role: Role
 }
 
 export async function makeUser(db: Db, organisationId: number, role: Role) {
-  cachedHash ??= hashPassword(TEST_PASSWORD);
+  cachedHash ??= hash(TEST_PASSWORD, TEST_HASH_COST);
   const email = `${role}.${unique()}@example.test`;
   const [u] = await db('users')
     .insert({ organisation_id: organisationId, email, name: `Person ${unique()}`, role, password_hash: await cachedHash, created_at: new Date().toISOString() })

@@ -15,6 +15,7 @@ import { outboxSignal } from '../../server/mail/outbox';
 import type { MailWorker } from '../../server/mail/outbox-worker';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from '../../server/payments/dev-payments';
 import type { StripeFake } from '../../server/payments/stripe-fake';
+import { copySqliteTemplate } from './db-template';
 import { startMailCapture } from './mail-capture';
 import { createTestPgDatabase } from './pg-database';
 
@@ -39,12 +40,13 @@ const TEST_SESSION_SECRET = 'a-test-session-secret-of-forty-characters!';
 /**
  * A fresh app on its own migrated database with mail captured in-process: a SQLite file in a temp
  * folder, or (in the PostgreSQL pass of the suite, TEST_DB=postgres) a new database in the
- * throw-away cluster.
+ * throw-away cluster. Either is a copy of the run's migrated template (tests/setup/sqlite-global.ts,
+ * pg-global.ts) where the project made one; migrateLatest then finds nothing to run.
  */
 export async function createTestApp(env: Record<string, string> = {}, options: { sameDatabaseAs?: TestApp } = {}): Promise<TestApp> {
   const dir = mkdtempSync(join(tmpdir(), 'ridgeload-test-'));
   const other = options.sameDatabaseAs;
-  const pgDb = !other && process.env.TEST_DB === 'postgres' ? await createTestPgDatabase() : undefined;
+  const pgDb = !other && process.env.TEST_DB === 'postgres' ? await createTestPgDatabase({ migrated: true }) : undefined;
   const dbEnv: Record<string, string> = other
     ? { ...(other.config.databaseUrl ? { DATABASE_URL: other.config.databaseUrl } : {}), SESSION_SECRET: other.config.sessionSecret }
     : pgDb
@@ -54,6 +56,7 @@ export async function createTestApp(env: Record<string, string> = {}, options: {
   const config = dev.config;
   // A second server on the same database: the other app's SQLite file, or its PostgreSQL database.
   if (other && !other.config.databaseUrl) Object.assign(config, { databaseFile: other.config.databaseFile, database: other.config.databaseFile });
+  if (!other && !pgDb) copySqliteTemplate(config.databaseFile);
   const db = createDb(config.database);
   if (!other) await migrateLatest(db);
   // Servers on one database share one mail server, as they would in production: any of them may send a message.
