@@ -2,7 +2,6 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import type { Root } from 'react-dom/client';
 import type { SessionBody } from '../../shared/schemas/auth.schema';
-import { rememberSession } from '../features/auth/api/get-session';
 import { App, createAppRuntime, whenSignedInAndSettled } from './app';
 
 interface StartOptions {
@@ -15,8 +14,7 @@ interface StartOptions {
  * The sign-in page hands over its root and the session when someone signs in or follows a link.
  */
 export function startApp(root: Root, { session }: StartOptions = {}): void {
-  const runtime = createAppRuntime();
-  if (session !== undefined) rememberSession(runtime.queryClient, session);
+  const runtime = createAppRuntime({ session });
   root.render(
     <StrictMode>
       <App runtime={runtime} />
