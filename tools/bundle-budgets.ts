@@ -33,10 +33,15 @@ export interface Budgets {
 export const TARGETS: Budgets = { signInKb: 120, routeKb: 180, chunkKb: 120 };
 
 /**
- * The ceilings `npm test` enforces: the targets themselves, so that growth past them fails the build
- * and is a decision, not a drift. Never raise one without saying why in DEVELOPERS.md.
+ * The ceilings `npm test` enforces, so that growth fails the build and is a decision, not a drift. The
+ * sign-in page and the largest file are held to their targets. Pages opened first are held to today's
+ * largest (the desk's order, 214.6 kB): React, React Router, TanStack Query, zod (its classic API comes
+ * with any page that reads an API answer) and the signed-in frame are about 158 kB before a page's own
+ * code, and a page with a form adds react-hook-form and the form pieces (17 kB), so most pages are still
+ * over 180 kB (DEVELOPERS.md, decision 30). Lower it as pages come down; never raise one without saying
+ * why in DEVELOPERS.md.
  */
-export const DEFAULT_BUDGETS: Budgets = { ...TARGETS };
+export const DEFAULT_BUDGETS: Budgets = { signInKb: TARGETS.signInKb, routeKb: 215, chunkKb: TARGETS.chunkKb };
 
 export interface RouteCost {
   /** The page's source module (src/app/routes/x-route.tsx), or "sign-in". */
