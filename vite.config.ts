@@ -1,4 +1,5 @@
 import { defineConfig } from 'vitest/config';
+import type { Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { compression } from 'vite-plugin-compression2';
@@ -10,26 +11,99 @@ import { fileURLToPath } from 'node:url';
 const apiPort = process.env.PORT ?? '3000';
 const CLIENT_OUT_DIR = fileURLToPath(new URL('./dist/client', import.meta.url));
 
+/** The two ways in (src/main.tsx picks one by the address): the sign-in page alone, and the whole app. */
+const SIGN_IN_START = 'src/app/sign-in-start.tsx';
+const APP_START = 'src/app/app-start.tsx';
+
+/** The app's own modules each way in needs at once (static imports), filled in when the module graph is known. */
+const firstNeeds = { signIn: new Set<string>(), app: new Set<string>() };
+/** The app's own modules, less the two first scripts themselves (each keeps a file of its own, named in the build manifest). */
+const isOwnCode = (id: string) => /[\\/](src|shared)[\\/]/.test(id) && !id.includes('node_modules') && !id.endsWith(SIGN_IN_START) && !id.endsWith(APP_START);
+
+/**
+ * Records which of the app's own modules the sign-in page and the whole app load before they show,
+ * so the chunk groups below can put each set in one file (one request each rather than many small
+ * shared pieces; HTTP/1.1 opens six connections, and each extra round trip is 150 ms on 3G).
+ */
+function firstNeedsPlugin(): Plugin {
+  return {
+    name: 'ridgeload:first-needs',
+    apply: 'build',
+    buildEnd() {
+      const staticClosure = (start: string, into: Set<string>) => {
+        const stack = [start];
+        while (stack.length > 0) {
+          const id = stack.pop()!;
+          if (into.has(id)) continue;
+          into.add(id);
+          for (const next of this.getModuleInfo(id)?.importedIds ?? []) stack.push(next);
+        }
+      };
+      const ids = [...this.getModuleIds()];
+      const find = (suffix: string) => {
+        const id = ids.find((candidate) => candidate.replace(/\\/g, '/').endsWith(suffix));
+        if (!id) throw new Error(`The build has no module ${suffix}`);
+        return id;
+      };
+      firstNeeds.signIn.clear();
+      firstNeeds.app.clear();
+      staticClosure(find(SIGN_IN_START), firstNeeds.signIn);
+      staticClosure(find(APP_START), firstNeeds.app);
+    },
+  };
+}
+
 /**
  * Libraries in chunks of their own, named and grouped by what they are, so that a change to the app's
  * code leaves their files (and every browser's copy) as they were. A library used by one kind of page
  * only (tables, drag and drop, the signature pad, CSV parsing) is loaded with the pages that use it.
+ * zod's core and mini API (the sign-in page's schemas) are apart from its classic API and the JSON
+ * Schema code that comes with it, which only the app's other pages need.
  * Higher priority wins where a library's dependency is matched by more than one group.
  */
 const VENDOR_CHUNKS = [
+  // The bundler's and Vite's few helpers (the dynamic import's preloading) that every file uses.
+  { name: 'runtime', test: /preload-helper|rolldown[\\/:]runtime/, priority: 100 },
   { name: 'react', test: /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]/, priority: 90 },
   { name: 'router', test: /[\\/]node_modules[\\/](react-router|react-router-dom|cookie|set-cookie-parser)[\\/]/, priority: 80 },
   { name: 'query', test: /[\\/]node_modules[\\/](@tanstack[\\/](query-core|react-query|query-persist-client-core|query-async-storage-persister|react-query-persist-client)|idb-keyval)[\\/]/, priority: 70 },
+  { name: 'zod-core', test: (id: string) => /[\\/]node_modules[\\/]zod[\\/](v4[\\/](core|mini)|mini)[\\/]/.test(id) && !/json-schema|to-json-schema/.test(id), priority: 65 },
   { name: 'zod', test: /[\\/]node_modules[\\/]zod[\\/]/, priority: 60 },
   { name: 'forms', test: /[\\/]node_modules[\\/](react-hook-form|@hookform[\\/]resolvers)[\\/]/, priority: 50 },
   { name: 'table', test: /[\\/]node_modules[\\/]@tanstack[\\/](table-core|react-table|virtual-core|react-virtual|store|react-store)[\\/]/, priority: 40 },
   { name: 'dnd', test: /[\\/]node_modules[\\/]@dnd-kit[\\/]/, priority: 40 },
   { name: 'signature', test: /[\\/]node_modules[\\/]signature_pad[\\/]/, priority: 40 },
   { name: 'csv', test: /[\\/]node_modules[\\/]papaparse[\\/]/, priority: 40 },
-  // The app's own code that the first page needs, in one file with the entry rather than a handful of
-  // small shared pieces, each another request before the sign-in form can show.
-  { name: 'shell', tags: ['$initial' as const], test: /[\\/](src|shared)[\\/]/, priority: 10 },
+  // The app's own code: the sign-in form, the rest the sign-in page needs (most of it the app needs too),
+  // and what only the app's frame needs. Pages loaded later import from these files rather than making
+  // more small ones.
+  // The form pieces (and the sign-in page's own few lines) apart, since pages without a form use the rest.
+  { name: 'sign-in', test: (id: string) => isOwnCode(id) && firstNeeds.signIn.has(id) && !firstNeeds.app.has(id) && /[\\/](components[\\/]form|sign-in)/.test(id), priority: 12, includeDependenciesRecursively: false },
+  { name: 'first', test: (id: string) => isOwnCode(id) && firstNeeds.signIn.has(id), priority: 11 },
+  { name: 'shell', test: (id: string) => isOwnCode(id) && firstNeeds.app.has(id), priority: 10 },
 ];
+
+/**
+ * index.html preloads the libraries both ways in need (React, zod's core), so they arrive alongside
+ * the first script rather than after it has run; the rest each way needs is preloaded by the first
+ * script's own import.
+ */
+function preloadSharedLibraries(): Plugin {
+  return {
+    name: 'ridgeload:preload-shared-libraries',
+    apply: 'build',
+    transformIndexHtml: {
+      order: 'post',
+      handler(_html, context) {
+        const files = Object.values(context.bundle ?? {})
+          .filter((output) => output.type === 'chunk' && ['react', 'zod-core'].includes(output.name))
+          .map((output) => output.fileName);
+        if (files.length !== 2) throw new Error(`Expected the react and zod-core chunks in the build, found ${files.join(', ') || 'none'}`);
+        return files.map((file) => ({ tag: 'link', attrs: { rel: 'modulepreload', crossorigin: true, href: `/${file}` }, injectTo: 'head' as const }));
+      },
+    },
+  };
+}
 
 /** The pages a driver opens without signal: their code is kept on the phone ahead of need. */
 const OFFLINE_PAGES = ['src/app/routes/driver-home-route.tsx', 'src/app/routes/branches-route.tsx'];
@@ -43,7 +117,7 @@ interface ManifestChunk {
 
 /**
  * Keeps in the service worker's precache only the scripts the signed-in frame and the driver's pages
- * need: the first script with its static imports, and each offline page with everything it imports,
+ * need: the first script, the app's and the sign-in page's first scripts with their static imports, and each offline page with everything it imports,
  * at once or later (the signature pad, the face drawing). Other files (styles, fonts, index.html)
  * pass through. Read from the build's manifest, written before the service worker is generated.
  */
@@ -59,6 +133,8 @@ export function offlineScriptsOnly(entries: { url: string; size: number; revisio
     if (dynamic) for (const next of chunk.dynamicImports ?? []) walk(next, dynamic);
   };
   for (const [key, chunk] of Object.entries(manifest)) if (chunk.isEntry) walk(key, false);
+  walk(APP_START, false);
+  walk(SIGN_IN_START, false);
   for (const key of OFFLINE_PAGES) walk(key, true);
   walk('src/lib/register-service-worker.ts', true);
   const manifestOut = entries.filter((entry) => !entry.url.endsWith('.js') || !entry.url.startsWith('assets/') || keep.has(entry.url));
@@ -129,6 +205,8 @@ const pwa = VitePWA({
 
 export default defineConfig({
   plugins: [
+    firstNeedsPlugin(),
+    preloadSharedLibraries(),
     react(),
     tailwindcss(),
     ...(process.env.VITEST ? [] : [pwa]),

@@ -53,6 +53,39 @@ describe('bundle budgets from the build manifest', () => {
     expect(formatReport(report, { signInKb: 100, routeKb: 126, chunkKb: 80 }).filter((line) => line.endsWith('OVER'))).toHaveLength(3);
   });
 
+  it('counts the sign-in page and the app apart when the first script loads one or the other, and what index.html preloads with both', () => {
+    // The first script imports nothing; it loads the sign-in page or the app, each with what it needs.
+    const split: Manifest = {
+      'index.html': { file: 'assets/index.js', isEntry: true, dynamicImports: ['src/app/sign-in-start.tsx', 'src/app/app-start.tsx'] },
+      '_react.js': { file: 'assets/react.js' },
+      '_router.js': { file: 'assets/router.js', imports: ['_react.js'] },
+      '_forms.js': { file: 'assets/forms.js', imports: ['_react.js'] },
+      'src/app/sign-in-start.tsx': { file: 'assets/sign-in-start.js', isDynamicEntry: true, imports: ['_react.js', '_forms.js'] },
+      'src/app/app-start.tsx': { file: 'assets/app-start.js', isDynamicEntry: true, imports: ['_react.js', '_router.js'], dynamicImports: ['src/app/routes/orders-route.tsx'] },
+      'src/app/routes/orders-route.tsx': { file: 'assets/orders-route.js', isDynamicEntry: true, imports: ['_router.js'] },
+      '_extra.js': { file: 'assets/extra.js' },
+    };
+    const splitSizes: Record<string, number> = {
+      'assets/index.js': 1 * KB,
+      'assets/react.js': 60 * KB,
+      'assets/router.js': 30 * KB,
+      'assets/forms.js': 12 * KB,
+      'assets/sign-in-start.js': 4 * KB,
+      'assets/app-start.js': 15 * KB,
+      'assets/orders-route.js': 5 * KB,
+      'assets/extra.js': 3 * KB,
+    };
+    const report = checkBudgets({
+      manifest: split,
+      gzipSize: (file) => splitSizes[file] ?? 0,
+      signInKey: 'src/app/sign-in-start.tsx',
+      appKey: 'src/app/app-start.tsx',
+      preloaded: ['assets/extra.js'],
+    });
+    expect(report.signIn.gzipBytes).toBe((1 + 3 + 60 + 12 + 4) * KB); // no router, no app frame
+    expect(report.routes.map((r) => [r.route, r.gzipBytes / KB])).toEqual([['src/app/routes/orders-route.tsx', 1 + 3 + 60 + 30 + 15 + 5]]); // no sign-in form
+  });
+
   it('refuses a manifest that lacks a module it is asked about', () => {
     expect(() => checkBudgets({ manifest, gzipSize, routeCompanions: { 'src/app/routes/face-route.tsx': ['src/app/routes/missing.tsx'] } })).toThrow(/missing\.tsx/);
   });

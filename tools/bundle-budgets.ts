@@ -16,6 +16,10 @@ export interface ManifestChunk {
 
 export type Manifest = Record<string, ManifestChunk>;
 
+/** The two modules src/main.tsx starts from: the sign-in page on its own, and the whole app. */
+export const SIGN_IN_KEY = 'src/app/sign-in-start.tsx';
+export const APP_KEY = 'src/app/app-start.tsx';
+
 export interface Budgets {
   /** The sign-in page: the first script, everything it imports, and the sign-in page's own code. */
   signInKb: number;
@@ -25,19 +29,19 @@ export interface Budgets {
   chunkKb: number;
 }
 
-/**
- * What the client should keep to open in about 2 s on a site phone on 3G. The first page cannot meet
- * its target with this stack: React, React Router and zod (which the sign-in form and every API answer
- * use) are about 122 kB gzipped before any of the app's own code (see DEVELOPERS.md, decision 27).
- */
+/** What the client should keep to open in under 2 s on a site phone on 3G (DEVELOPERS.md, decision 34). */
 export const TARGETS: Budgets = { signInKb: 120, routeKb: 180, chunkKb: 120 };
 
 /**
- * The ceilings `npm test` enforces: today's figures with room for the sign-in form's react-hook-form
- * (about 13 kB), so that growth fails the build and is a decision, not a drift. Lower them as the
- * figures come down; never raise one without saying why in DEVELOPERS.md.
+ * The ceilings `npm test` enforces, so that growth fails the build and is a decision, not a drift. The
+ * sign-in page and the largest file are held to their targets. Pages opened first are held to today's
+ * largest (the desk's order, 214.6 kB): React, React Router, TanStack Query, zod (its classic API comes
+ * with any page that reads an API answer) and the signed-in frame are about 158 kB before a page's own
+ * code, and a page with a form adds react-hook-form and the form pieces (17 kB), so most pages are still
+ * over 180 kB (DEVELOPERS.md, decision 34). Lower it as pages come down; never raise one without saying
+ * why in DEVELOPERS.md.
  */
-export const DEFAULT_BUDGETS: Budgets = { signInKb: 170, routeKb: 230, chunkKb: 120 };
+export const DEFAULT_BUDGETS: Budgets = { signInKb: TARGETS.signInKb, routeKb: 215, chunkKb: TARGETS.chunkKb };
 
 export interface RouteCost {
   /** The page's source module (src/app/routes/x-route.tsx), or "sign-in". */
@@ -75,16 +79,22 @@ export function entryKey(manifest: Manifest): string {
 const kb = (bytes: number) => bytes / 1024;
 
 /**
- * Measures the sign-in page, every lazily loaded page (with the extra modules its loader fetches
- * alongside, such as the cautions) and the largest file, and lists every budget broken.
+ * Measures the sign-in page (the first script, what index.html preloads, and the sign-in page's own
+ * first script), every lazily loaded page opened first (the first script, the app's first script, the
+ * page and the extra modules its loader fetches alongside, such as the cautions) and the largest file,
+ * and lists every budget broken.
  */
 export function checkBudgets(options: {
   manifest: Manifest;
   gzipSize: (file: string) => number;
   /** Route modules (manifest keys) and the other modules each one's loader fetches with it. */
   routeCompanions?: Record<string, string[]>;
-  /** The module of the sign-in page, when the first script does not already import it. */
+  /** The module the first script loads for the sign-in page, when the first script does not already import it. */
   signInKey?: string;
+  /** The module the first script loads for every other address (the router and the signed-in frame), counted with every page. */
+  appKey?: string;
+  /** Files index.html preloads whatever the address (they load with the first script on every page). */
+  preloaded?: string[];
   budgets?: Budgets;
 }): BudgetReport {
   const { manifest, gzipSize, routeCompanions = {}, budgets = DEFAULT_BUDGETS } = options;
@@ -103,15 +113,17 @@ export function checkBudgets(options: {
   };
 
   const entry = entryKey(manifest);
-  const first = staticClosure(manifest, entry);
+  const first = staticClosure(manifest, entry, new Set(options.preloaded ?? []));
   const signInFiles = new Set(first);
   if (options.signInKey) staticClosure(manifest, options.signInKey, signInFiles);
   const signIn = costOf('sign-in', signInFiles);
+  const appFirst = new Set(first);
+  if (options.appKey) staticClosure(manifest, options.appKey, appFirst);
 
   const routes = Object.entries(manifest)
     .filter(([key, chunk]) => chunk.isDynamicEntry && /(^|\/)src\/app\/routes\/[^/]+-route\.tsx$/.test(key))
     .map(([key]) => {
-      const files = new Set(first);
+      const files = new Set(appFirst);
       staticClosure(manifest, key, files);
       for (const companion of routeCompanions[key] ?? []) staticClosure(manifest, companion, files);
       return costOf(key, files);

@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { gzipSync } from 'node:zlib';
-import { checkBudgets, DEFAULT_BUDGETS, formatReport, TARGETS } from './bundle-budgets';
+import { APP_KEY, checkBudgets, DEFAULT_BUDGETS, formatReport, SIGN_IN_KEY, TARGETS } from './bundle-budgets';
 import type { Budgets, Manifest } from './bundle-budgets';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
@@ -48,8 +48,17 @@ const budgets: Budgets = {
   routeKb: budgetFromEnv('BUDGET_ROUTE_KB', DEFAULT_BUDGETS.routeKb),
   chunkKb: budgetFromEnv('BUDGET_CHUNK_KB', DEFAULT_BUDGETS.chunkKb),
 };
+/** The scripts index.html preloads for every address (vite.config.ts adds React and zod's core). */
+function preloadedByIndexHtml(): string[] {
+  const html = readFileSync(join(clientDir, 'index.html'), 'utf8');
+  return [...html.matchAll(/<link rel="modulepreload"[^>]*href="\/([^"]+)"/g)].map((match) => match[1]);
+}
+
 const report = checkBudgets({
   manifest,
+  signInKey: SIGN_IN_KEY,
+  appKey: APP_KEY,
+  preloaded: preloadedByIndexHtml(),
   gzipSize: (file) => gzipSync(readFileSync(join(clientDir, file)), { level: 9 }).length,
   routeCompanions: companionsFromLazyPages(manifest),
   budgets,

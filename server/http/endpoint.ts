@@ -1,11 +1,11 @@
 import { Router, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
-import type { z } from 'zod';
+import { z } from 'zod';
 import { accessGuard, type Access } from '../auth/policy';
 import { AppError } from './app-error';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
-export interface EndpointSpec<P extends z.ZodType, Q extends z.ZodType, B extends z.ZodType> {
+export interface EndpointSpec<P extends z.core.$ZodType, Q extends z.core.$ZodType, B extends z.core.$ZodType> {
   access: Access;
   params?: P;
   query?: Q;
@@ -20,7 +20,7 @@ export interface Valid<P, Q, B> {
   body: B;
 }
 
-type Out<S> = S extends z.ZodType ? z.output<S> : undefined;
+type Out<S> = S extends z.core.$ZodType ? z.output<S> : undefined;
 
 export type EndpointHandler<P, Q, B> = (req: Request, res: Response, valid: Valid<P, Q, B>) => Promise<unknown> | unknown;
 
@@ -127,14 +127,18 @@ export function apiRouter() {
   );
   const add =
     (method: Method) =>
-    <P extends z.ZodType = z.ZodType, Q extends z.ZodType = z.ZodType, B extends z.ZodType = z.ZodType>(path: string, spec: EndpointSpec<P, Q, B>, handler: EndpointHandler<Out<P>, Out<Q>, Out<B>>) => {
+    <P extends z.core.$ZodType = z.core.$ZodType, Q extends z.core.$ZodType = z.core.$ZodType, B extends z.core.$ZodType = z.core.$ZodType>(
+      path: string,
+      spec: EndpointSpec<P, Q, B>,
+      handler: EndpointHandler<Out<P>, Out<Q>, Out<B>>,
+    ) => {
       const run = async (req: Request, res: Response, next: NextFunction) => {
         try {
           checkRequestShape(req);
           const valid = {
-            params: spec.params ? spec.params.parse(req.params) : undefined,
-            query: spec.query ? spec.query.parse(req.query) : undefined,
-            body: spec.body ? spec.body.parse(req.body ?? {}) : undefined,
+            params: spec.params ? z.parse(spec.params, req.params) : undefined,
+            query: spec.query ? z.parse(spec.query, req.query) : undefined,
+            body: spec.body ? z.parse(spec.body, req.body ?? {}) : undefined,
           } as Valid<Out<P>, Out<Q>, Out<B>>;
           await handler(req, res, valid);
         } catch (err) {

@@ -1,20 +1,22 @@
-import { z } from 'zod';
+// zod/mini, like auth.schema.ts: the one fetch client reads every error with it, the sign-in page included.
+import * as z from 'zod/mini';
 
 /** Every error the API sends has this body. `details` carries field-level problems. */
-export const errorDetailSchema = z
-  .object({
-    path: z.string().optional(),
-    row: z.number().int().optional(),
-    column: z.string().optional(),
+export const errorDetailSchema = z.catchall(
+  z.object({
+    path: z.optional(z.string()),
+    row: z.optional(z.int()),
+    column: z.optional(z.string()),
     message: z.string(),
-  })
-  .catchall(z.unknown());
+  }),
+  z.unknown(),
+);
 
 export const errorBodySchema = z.object({
   error: z.object({
     code: z.string(),
     message: z.string(),
-    details: z.array(errorDetailSchema).optional(),
+    details: z.optional(z.array(errorDetailSchema)),
   }),
 });
 

@@ -1,6 +1,8 @@
 import { hashKey } from '@tanstack/react-query';
 import { RouterProvider } from 'react-router-dom';
 import { UpdateBanner } from '../components/layout/update-banner';
+import type { SessionBody } from '../../shared/schemas/auth.schema';
+import { rememberSession } from '../features/auth/api/get-session';
 import { authKeys } from '../features/auth/api/keys';
 import { apiClient, signInPathWithNext } from '../lib/api-client';
 import { clearPersistedQueries, persistOptions } from '../lib/persisted-queries';
@@ -11,9 +13,13 @@ import { createAppRouter } from './router';
 /** The service worker's network-first copies of API answers (see vite.config.ts). */
 const API_CACHE = 'ridgeload-api';
 
-/** One query client and one router for the life of the tab. */
-export function createAppRuntime() {
+/**
+ * One query client and one router for the life of the tab. A session already known (the sign-in page
+ * asked, or someone just signed in there) is kept before the router starts its first page's loaders.
+ */
+export function createAppRuntime({ session }: { session?: SessionBody | null } = {}) {
   const queryClient = createQueryClient();
+  if (session !== undefined) rememberSession(queryClient, session);
   const router = createAppRouter(queryClient);
   // A 401 anywhere means the session ended: forget it and ask to sign in, coming back here after.
   apiClient.setOnUnauthenticated((nextPath) => {

@@ -1,5 +1,5 @@
-import { Link } from 'react-router-dom';
-import { useOutboxAvailable } from '../features/outbox/api/get-outbox';
+import { InAppLink } from '../components/ui/in-app-link';
+import { useOutboxAvailable } from '../features/outbox/api/outbox-available';
 
 /**
  * The outbox link, outside production only. A development build always shows it; a built
@@ -9,8 +9,8 @@ export function DevFooterLinks() {
   const available = useOutboxAvailable();
   if (import.meta.env.PROD && !available) return null;
   return (
-    <Link to="/outbox" className="inline-flex min-h-tap items-center font-medium text-ink-700 underline underline-offset-2">
+    <InAppLink to="/outbox" className="inline-flex min-h-tap items-center font-medium text-ink-700 underline underline-offset-2">
       Outbox (mail sent by this server)
-    </Link>
+    </InAppLink>
   );
 }

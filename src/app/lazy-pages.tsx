@@ -28,11 +28,16 @@ function plain<M>(load: () => Promise<M>, pick: (m: M) => ComponentType): PageLo
 }
 
 /**
- * Every page except sign-in and the signed-in frame, each fetched the first time it is visited (or
- * when its navigation link is pointed at): a change to one feature leaves the others' files, and the
- * browser's copies of them, as they were. The sign-in page and the shell are in the first script.
+ * Every page, each fetched the first time it is visited (or when its navigation link is pointed at):
+ * a change to one feature leaves the others' files, and the browser's copies of them, as they were.
+ * The signed-in frame is in the app's first script; the sign-in page is also shown on its own before
+ * the app loads (src/app/sign-in-start.tsx).
  */
 export const PAGES = {
+  signIn: plain(
+    () => import('./routes/sign-in-route'),
+    (m) => m.SignInRoute,
+  ),
   signUp: plain(
     () => import('./routes/sign-up-route'),
     (m) => m.SignUpRoute,

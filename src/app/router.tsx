@@ -11,7 +11,6 @@ import { guardedRoute } from './routes/route-loaders';
 import { AppLayoutRoute } from './routes/app-layout-route';
 import { PublicFrame } from './routes/public-frame';
 import { RootLayout } from './routes/root-layout';
-import { SignInRoute } from './routes/sign-in-route';
 
 const pageError = <RouteErrorPage />;
 
@@ -73,8 +72,9 @@ function guardedPage(queryClient: QueryClient) {
 
 /**
  * Every route of the client. Loaders only guard; pages fetch their own data and show its states. The
- * sign-in page and the signed-in frame come with the first script; every other page is fetched as it is
- * needed, at the same time as its guard runs (src/app/lazy-pages.tsx).
+ * signed-in frame comes with the app's first script (src/app/app-start.tsx); every page is fetched as
+ * it is needed, at the same time as its guard runs (src/app/lazy-pages.tsx). The sign-in page opened
+ * first shows without the router (src/app/sign-in-start.tsx).
  */
 export function appRoutes(queryClient: QueryClient): RouteObject[] {
   return [
@@ -92,7 +92,7 @@ export function appRoutes(queryClient: QueryClient): RouteObject[] {
               loader: redirectIfSignedIn(queryClient),
               errorElement: pageError,
               children: [
-                { path: 'sign-in', element: <SignInRoute />, errorElement: pageError },
+                { path: 'sign-in', lazy: PAGES.signIn, errorElement: pageError },
                 { path: 'sign-up', lazy: PAGES.signUp, errorElement: pageError },
                 { path: 'forgot-password', lazy: PAGES.forgotPassword, errorElement: pageError },
               ],

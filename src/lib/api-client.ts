@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { safeParse } from 'zod/mini';
 import { errorBodySchema } from '../../shared/schemas/error.schema';
 import type { ErrorDetail } from '../../shared/schemas/error.schema';
 import { csrfBodySchema } from '../../shared/schemas/auth.schema';
@@ -24,7 +25,7 @@ export function isApiError(error: unknown): error is ApiError {
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
-export interface RequestOptions<TSchema extends z.ZodType | undefined> {
+export interface RequestOptions<TSchema extends z.core.$ZodType | undefined> {
   /** Sent as JSON, or as multipart when it is a FormData (file uploads). */
   body?: unknown;
   /** Parses the response body; without it the body is ignored (e.g. 204). */
@@ -41,7 +42,7 @@ export interface RequestOptions<TSchema extends z.ZodType | undefined> {
   headers?: Record<string, string>;
 }
 
-type Result<TSchema> = TSchema extends z.ZodType ? z.output<TSchema> : undefined;
+type Result<TSchema> = TSchema extends z.core.$ZodType ? z.output<TSchema> : undefined;
 
 export interface ApiClientOptions {
   /** Called with the path to come back to after signing in. */
@@ -77,7 +78,7 @@ async function readJson(response: Response): Promise<unknown> {
 }
 
 function toApiError(status: number, body: unknown): ApiError {
-  const parsed = errorBodySchema.safeParse(body);
+  const parsed = safeParse(errorBodySchema, body);
   if (parsed.success) {
     const { code, message, details } = parsed.data.error;
     return new ApiError(status, code, message, details ?? []);
@@ -119,7 +120,7 @@ export function createApiClient(options: ApiClientOptions = {}) {
     const response = await send('GET', '/api/auth/csrf', undefined, undefined, null);
     const body = await readJson(response);
     if (!response.ok) throw toApiError(response.status, body);
-    const parsed = csrfBodySchema.safeParse(body);
+    const parsed = safeParse(csrfBodySchema, body);
     if (!parsed.success) throw new ApiError(response.status, 'invalid_response', 'The server sent an unexpected answer.');
     return parsed.data.token;
   }
@@ -142,7 +143,7 @@ export function createApiClient(options: ApiClientOptions = {}) {
     csrfToken = null;
   }
 
-  async function request<TSchema extends z.ZodType | undefined = undefined>(method: Method, path: string, opts: RequestOptions<TSchema> = {}): Promise<Result<TSchema>> {
+  async function request<TSchema extends z.core.$ZodType | undefined = undefined>(method: Method, path: string, opts: RequestOptions<TSchema> = {}): Promise<Result<TSchema>> {
     const needsToken = STATE_CHANGING.has(method);
     let token = needsToken ? await getCsrfToken() : null;
     let response = await send(method, path, opts.body, opts.signal, token, opts.headers);
@@ -166,7 +167,7 @@ export function createApiClient(options: ApiClientOptions = {}) {
 
     if (opts.rotatesSession) forgetCsrfToken();
     if (!opts.schema) return undefined as Result<TSchema>;
-    const parsed = opts.schema.safeParse(body);
+    const parsed = safeParse(opts.schema, body);
     if (!parsed.success) {
       throw new ApiError(response.status, 'invalid_response', 'The server sent an answer Ridgeload could not read.');
     }
@@ -175,11 +176,11 @@ export function createApiClient(options: ApiClientOptions = {}) {
 
   return {
     request,
-    get: <S extends z.ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('GET', path, opts),
-    post: <S extends z.ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('POST', path, opts),
-    patch: <S extends z.ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('PATCH', path, opts),
-    put: <S extends z.ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('PUT', path, opts),
-    delete: <S extends z.ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('DELETE', path, opts),
+    get: <S extends z.core.$ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('GET', path, opts),
+    post: <S extends z.core.$ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('POST', path, opts),
+    patch: <S extends z.core.$ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('PATCH', path, opts),
+    put: <S extends z.core.$ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('PUT', path, opts),
+    delete: <S extends z.core.$ZodType | undefined = undefined>(path: string, opts?: RequestOptions<S>) => request('DELETE', path, opts),
     forgetCsrfToken,
     setOnUnauthenticated(handler: (nextPath: string) => void) {
       onUnauthenticated = handler;

@@ -6,7 +6,7 @@ import type { FieldError, FieldErrors, FieldValues, Resolver, ResolverResult, Us
 import type { z } from 'zod';
 import { FORM_ERROR, applyServerErrors, flattenFieldValues, friendlyIssueMessage } from './server-errors';
 
-export interface SchemaFormOptions<TSchema extends z.ZodType> {
+export interface SchemaFormOptions<TSchema extends z.core.$ZodType> {
   /**
    * The shared body schema from shared/schemas, or a feature's form schema that reads the typed text
    * (by field path) into that body and pipes it into the shared schema.
@@ -57,12 +57,12 @@ function leafErrors(errors: FieldErrors, prefix = '', into: [string, FieldError]
  * uncontrolled inputs registered by their field path, and the server's 422 field errors put back on
  * the same fields with setError. Errors about no field on the form show in the form's error area.
  */
-export function useSchemaForm<TSchema extends z.ZodType>({ schema, extraValues, onSubmit, serverPath, statePaths }: SchemaFormOptions<TSchema>): SchemaForm {
+export function useSchemaForm<TSchema extends z.core.$ZodType>({ schema, extraValues, onSubmit, serverPath, statePaths }: SchemaFormOptions<TSchema>): SchemaForm {
   const id = useId();
   const groups = useRef(new Set<string>());
 
   const resolver = useMemo<Resolver<FieldValues>>(() => {
-    const parse = zodResolver(schema as unknown as z.ZodType<unknown, FieldValues>, { error: friendlyIssueMessage });
+    const parse = zodResolver(schema as unknown as z.core.$ZodType<unknown, FieldValues>, { error: friendlyIssueMessage });
     return async (values, context, options) => {
       const input = { ...flattenFieldValues(values), ...extraValues };
       const result = (await parse(input, context, options)) as ResolverResult<FieldValues>;

@@ -1,34 +1,35 @@
 import type { ReactNode } from 'react';
-import { Link, useLocation } from 'react-router-dom';
-import { ToastOutlet } from '../ui/toast';
+import { InAppLink } from '../ui/in-app-link';
 import { Wordmark } from '../ui/logo';
-import { CautionSlot } from './caution-slot';
 import { SiteFooter } from './site-footer';
 import { SkipLink } from './skip-link';
 
 interface PublicLayoutProps {
   children: ReactNode;
   footerLinks?: ReactNode;
+  /** What the router shows above the page (cautions, notes carried over); the sign-in page has none before it loads. */
+  notices?: ReactNode;
   /** Wide pages (the outbox) drop the narrow card column. */
   wide?: boolean;
 }
 
-/** The frame of pages used before signing in: the mark, one column, a footer. */
-export function PublicLayout({ children, footerLinks, wide = false }: PublicLayoutProps) {
-  const location = useLocation();
+/**
+ * The frame of pages used before signing in: the mark, one column, a footer. It needs no router, so
+ * the sign-in page shows in it before the router's code has arrived.
+ */
+export function PublicLayout({ children, footerLinks, notices, wide = false }: PublicLayoutProps) {
   return (
     <div className="flex min-h-dvh flex-col">
       <SkipLink />
       <header className="surface-dark bg-ink-900 text-white">
         <div className={`mx-auto flex min-h-tap-lg items-center px-4 ${wide ? 'max-w-page' : 'max-w-xl'}`}>
-          <Link to="/" className="inline-flex min-h-tap items-center rounded-md">
+          <InAppLink to="/" className="inline-flex min-h-tap items-center rounded-md">
             <Wordmark markClassName="h-8 w-8" />
-          </Link>
+          </InAppLink>
         </div>
       </header>
       <main id="main" tabIndex={-1} className={`mx-auto w-full flex-1 px-4 py-8 outline-none sm:py-12 ${wide ? 'max-w-page' : 'max-w-xl'}`}>
-        <CautionSlot />
-        <ToastOutlet pageKey={location.pathname} />
+        {notices}
         {children}
       </main>
       <div className={`mx-auto w-full px-4 ${wide ? 'max-w-page' : 'max-w-xl'}`}>

@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
+import { TEXT_LINK_CLASS } from './in-app-link';
 
 interface TextLinkProps {
   to: string;
@@ -10,7 +11,7 @@ interface TextLinkProps {
 /** An in-app link that reads as a link: underlined, clay, with a comfortable target. */
 export function TextLink({ to, children, className = '' }: TextLinkProps) {
   return (
-    <Link to={to} className={`inline-flex min-h-tap items-center font-medium text-clay-700 underline underline-offset-2 hover:text-clay-800 ${className}`}>
+    <Link to={to} className={`${TEXT_LINK_CLASS} ${className}`}>
       {children}
     </Link>
   );

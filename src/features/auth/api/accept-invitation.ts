@@ -3,7 +3,7 @@ import type { z } from 'zod';
 import { sessionBodySchema } from '../../../../shared/schemas/auth.schema';
 import type { acceptInvitationBodySchema, SessionBody } from '../../../../shared/schemas/auth.schema';
 import { apiClient } from '../../../lib/api-client';
-import { startSession } from './adopt-session';
+import { rememberSession } from './get-session';
 
 export type AcceptInvitationBody = z.infer<typeof acceptInvitationBodySchema>;
 
@@ -20,6 +20,6 @@ export function useAcceptInvitation(token: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: AcceptInvitationBody) => acceptInvitation(token, body),
-    onSuccess: (session) => startSession(queryClient, session),
+    onSuccess: (session) => rememberSession(queryClient, session),
   });
 }

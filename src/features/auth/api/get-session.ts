@@ -1,19 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { sessionAnswerSchema } from '../../../../shared/schemas/auth.schema';
+import type { QueryClient } from '@tanstack/react-query';
 import type { SessionBody } from '../../../../shared/schemas/auth.schema';
-import { apiClient } from '../../../lib/api-client';
 import { adoptSessionSettings } from './adopt-session';
+import { fetchSession } from './fetch-session';
 import { authKeys } from './keys';
-
-/**
- * Who is signed in, or null when nobody is. The server answers 200 either way, so a signed-out page
- * makes no failed request (and the browser logs no error) just to learn that nobody is signed in.
- */
-export async function fetchSession(signal?: AbortSignal): Promise<SessionBody | null> {
-  const answer = await apiClient.get('/api/auth/session', { schema: sessionAnswerSchema, signal, redirectOnUnauthenticated: false });
-  adoptSessionSettings(answer.session);
-  return answer.session;
-}
 
 export function sessionQueryOptions() {
   return queryOptions({
@@ -25,4 +15,14 @@ export function sessionQueryOptions() {
 
 export function useSession() {
   return useQuery(sessionQueryOptions());
+}
+
+/**
+ * Keeps a session learned outside the query (signing in, signing up, joining a firm, or the sign-in page's own question) as the
+ * answer of the session query. Nothing cached for a previous person may leak into this one's pages.
+ */
+export function rememberSession(queryClient: QueryClient, session: SessionBody | null): void {
+  queryClient.removeQueries();
+  adoptSessionSettings(session);
+  queryClient.setQueryData(authKeys.session(), session);
 }

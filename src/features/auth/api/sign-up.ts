@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { sessionBodySchema } from '../../../../shared/schemas/auth.schema';
 import type { SessionBody, SignupBody } from '../../../../shared/schemas/auth.schema';
 import { apiClient } from '../../../lib/api-client';
-import { startSession } from './adopt-session';
+import { rememberSession } from './get-session';
 
 export function signUp(body: SignupBody): Promise<SessionBody> {
   return apiClient.post('/api/auth/signup', {
@@ -17,6 +17,6 @@ export function useSignUp() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signUp,
-    onSuccess: (session) => startSession(queryClient, session),
+    onSuccess: (session) => rememberSession(queryClient, session),
   });
 }

@@ -3,19 +3,19 @@ import { loginBodySchema } from '../../../../shared/schemas/auth.schema';
 import type { SessionBody } from '../../../../shared/schemas/auth.schema';
 import { Form, ShowPasswordToggle, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
-import { useSignIn } from '../api/sign-in';
+import { signIn } from '../api/sign-in';
 
 interface SignInFormProps {
-  onSignedIn: (session: SessionBody) => void;
+  /** Takes the new session on to the next page; the button stays busy until it settles. */
+  onSignedIn: (session: SessionBody) => Promise<unknown> | unknown;
   defaultEmail?: string;
 }
 
 export function SignInForm({ onSignedIn, defaultEmail }: SignInFormProps) {
-  const signIn = useSignIn();
   const [showPassword, setShowPassword] = useState(false);
   const form = useSchemaForm({
     schema: loginBodySchema,
-    onSubmit: async (values) => onSignedIn(await signIn.mutateAsync(values)),
+    onSubmit: async (values) => onSignedIn(await signIn(values)),
   });
 
   return (

@@ -1,4 +1,4 @@
-import { useCallback, useDeferredValue, useEffect, useId, useMemo, useRef, useState } from 'react';
+import { Suspense, lazy, useCallback, useDeferredValue, useEffect, useId, useMemo, useRef, useState } from 'react';
 import type { FormEvent } from 'react';
 import { DEFAULT_TILE, SYSTEM_DEFAULTS } from '../../../../shared/engine/defaults';
 import type { Estimate } from '../../../../shared/schemas/estimate.schema';
@@ -6,17 +6,17 @@ import type { Opening } from '../../../../shared/schemas/openings.schema';
 import type { Face } from '../../../../shared/schemas/schedule.schema';
 import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
-import { Alert, ErrorAlert } from '../../../components/ui/alert';
+import { ErrorAlert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useCreateEstimate } from '../api/create-estimate';
 import { useSystems } from '../api/get-systems';
-import { HEADLAP_ROWS, WASTE_FIELDS, estimateFormSchema, headlapField, previewEstimate, tileField } from '../lib/estimate-form';
-import type { PreviewOutcome } from '../lib/estimate-form';
-import { placeWarnings } from '../lib/warnings';
-import { FaceBreakdownTable } from './face-breakdown-table';
+import { HEADLAP_ROWS, WASTE_FIELDS, estimateFormSchema, headlapField, tileField } from '../lib/estimate-form';
 import { SystemPicker } from './system-picker';
+
+/** The engine and the face table arrive after the form: the preview says it is loading meanwhile. */
+const EstimatePreview = lazy(() => import('./estimate-preview').then((m) => ({ default: m.EstimatePreview })));
 
 const WASTE_LABELS: Record<(typeof WASTE_FIELDS)[number], string> = {
   tiles: 'Tiles',
@@ -30,67 +30,6 @@ function readValues(form: HTMLFormElement | null): Record<string, string> {
   if (!form) return values;
   for (const [key, value] of new FormData(form).entries()) if (typeof value === 'string') values[key] = value;
   return values;
-}
-
-const n = (v: number, digits = 0) => v.toLocaleString('en-GB', { maximumFractionDigits: digits });
-
-function Preview({ outcome }: { outcome: PreviewOutcome }) {
-  const placed = useMemo(() => (outcome.state === 'ready' ? placeWarnings(outcome.result) : null), [outcome]);
-  if (outcome.state === 'empty') return <EmptyState title="Choose a roof system">The figures appear here as soon as the system is complete.</EmptyState>;
-  if (outcome.state === 'problems') {
-    return (
-      <Alert tone="danger" title="These faces and this system do not go together yet" live={false}>
-        <ul className="list-disc space-y-1 pl-5">
-          {outcome.problems.map((p) => (
-            <li key={p}>{p}</li>
-          ))}
-        </ul>
-      </Alert>
-    );
-  }
-  const { totals } = outcome.result;
-  const figures: [string, string][] = [
-    ['Tiles to order', n(totals.tiles_order)],
-    ['Ridge tiles', n(totals.ridge_tiles)],
-    ['Hip tiles', n(totals.hip_tiles)],
-    ['Batten lengths', n(totals.batten_lengths)],
-    ['Batten nails', n(totals.batten_nails)],
-    ['Tile nails', n(totals.tile_nails)],
-    ['Underlay rolls', n(totals.underlay_rolls)],
-    ['Tile pallets', n(totals.pallets)],
-    ['Weight', `${n(totals.weight_kg / 1000, 1)} t`],
-  ];
-  return (
-    <div className="space-y-4">
-      <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3" data-testid="estimate-preview">
-        {figures.map(([label, value]) => (
-          <div key={label} className="rounded-md bg-mortar-50 px-3 py-2">
-            <dt className="text-sm text-ink-600">{label}</dt>
-            <dd className="text-lg font-bold tabular-nums">{value}</dd>
-          </div>
-        ))}
-      </dl>
-      {outcome.result.warnings.length > 0 ? (
-        <Alert tone="caution" title={`${outcome.result.warnings.length} ${outcome.result.warnings.length === 1 ? 'thing' : 'things'} to check`} live={false}>
-          <ul className="list-disc space-y-1 pl-5">
-            {outcome.result.warnings.map((w, i) => (
-              <li key={`${w.code}-${i}`}>
-                {w.face ? (
-                  <span className="font-semibold">
-                    {w.building} · {w.face}:{' '}
-                  </span>
-                ) : w.building ? (
-                  <span className="font-semibold">{w.building}: </span>
-                ) : null}
-                {w.message}
-              </li>
-            ))}
-          </ul>
-        </Alert>
-      ) : null}
-      {placed ? <FaceBreakdownTable faces={outcome.result.faces} warningsByFace={placed.byFace} compact /> : null}
-    </div>
-  );
 }
 
 function GenericSystemFields() {
@@ -211,17 +150,6 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
     refresh();
   }
 
-  const outcome = useMemo<PreviewOutcome>(() => {
-    const parsed = estimateFormSchema.safeParse(deferredValues);
-    if (!parsed.success) {
-      const issues = parsed.error.issues.filter((issue) => issue.path[0] !== 'system_id');
-      // Nothing chosen yet is not a problem to list; a half-typed figure is.
-      if (issues.length === 0) return { state: 'empty' };
-      return { state: 'problems', problems: issues.map((issue) => `${String(issue.path[0] ?? 'system').replace(/^system\.|^waste_pct\./, '')}: ${issue.message}`) };
-    }
-    return previewEstimate(faces, parsed.data, offers, openings);
-  }, [deferredValues, faces, offers, openings]);
-
   return (
     <Form form={form} label="New estimate" className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
       <div ref={wrapper} onChange={onChange} onInput={onChange} className="space-y-6">
@@ -293,7 +221,9 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
           <p className="mb-3 text-sm text-ink-600" aria-live="polite">
             Worked out in your browser by the same rules the saved estimate uses, for schedule version {scheduleVersion} ({faces.length} {faces.length === 1 ? 'face' : 'faces'}). Prices come when you save.
           </p>
-          <Preview outcome={outcome} />
+          <Suspense fallback={<SkeletonBlock label="Loading the preview" lines={4} />}>
+            <EstimatePreview values={deferredValues} faces={faces} offers={offers} openings={openings} />
+          </Suspense>
         </Card>
       </div>
     </Form>

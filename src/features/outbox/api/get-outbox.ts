@@ -22,9 +22,3 @@ export function outboxQueryOptions() {
 export function useOutbox() {
   return useQuery(outboxQueryOptions());
 }
-
-/** Whether the outbox exists on this server; asked once, to decide on the footer link. */
-export function useOutboxAvailable(): boolean {
-  const probe = useQuery({ ...outboxQueryOptions(), refetchInterval: false, staleTime: Infinity });
-  return probe.isSuccess;
-}
