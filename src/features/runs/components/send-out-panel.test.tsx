@@ -77,7 +77,7 @@ describe('SendOutPanel', () => {
     todayIs('2027-02-26');
     renderWithProviders(<SendOutPanel run={runFixture()} canSendOut canOverride />);
     fireEvent.click(screen.getByRole('button', { name: 'Send out anyway…' }));
-    const form = screen.getByRole('form', { name: 'Send out anyway' });
+    const form = await screen.findByRole('form', { name: 'Send out anyway' });
     expect(form.textContent).toContain('not its day and not every pallet ticked');
     const reason = within(form).getByLabelText('Reason for sending out anyway');
     fireEvent.click(within(form).getByRole('button', { name: 'Send out with this reason' }));
@@ -109,7 +109,7 @@ describe('SendOutPanel', () => {
     todayIs('2027-02-26');
     renderWithProviders(<SendOutPanel run={runFixture()} canSendOut canOverride />);
     fireEvent.click(screen.getByRole('button', { name: 'Send out anyway…' }));
-    const form = screen.getByRole('form', { name: 'Send out anyway' });
+    const form = await screen.findByRole('form', { name: 'Send out anyway' });
     const reason = within(form).getByLabelText('Reason for sending out anyway');
     fireEvent.input(reason, { target: { value: 'Site asked for it a day early' } });
     fireEvent.click(within(form).getByRole('button', { name: 'Send out with this reason' }));

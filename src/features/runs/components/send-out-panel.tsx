@@ -1,8 +1,5 @@
-import { useState } from 'react';
-import { sendOutOverrideBodySchema } from '../../../../shared/schemas/run.schema';
+import { lazy, Suspense, useState } from 'react';
 import type { Run } from '../../../../shared/schemas/run.schema';
-import { Form, TextAreaField } from '../../../components/form/fields';
-import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert, errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
@@ -11,30 +8,7 @@ import { formatDateTime } from '../../../lib/format';
 import { useSendOut } from '../api/send-out';
 import { sendOutState } from '../lib/send-out-rule';
 
-function OverrideForm({ run, blocks, onSent, onCancel }: { run: Run; blocks: string[]; onSent: () => void; onCancel: () => void }) {
-  const send = useSendOut(run.id);
-  const form = useSchemaForm({
-    schema: sendOutOverrideBodySchema,
-    onSubmit: async (values) => {
-      await send.mutateAsync(values);
-      onSent();
-    },
-  });
-  return (
-    <Form form={form} label="Send out anyway" className="space-y-3 rounded-md border border-ochre-500 bg-ochre-50 p-3">
-      <p className="text-sm text-ochre-800">Sending out anyway ({blocks.join(' and ')}) is recorded on each drop&apos;s order with your name and the reason.</p>
-      <TextAreaField name="override_reason" label="Reason for sending out anyway" rows={2} />
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" variant="danger" busy={form.submitting}>
-          Send out with this reason
-        </Button>
-        <Button variant="ghost" onClick={onCancel}>
-          Keep it in the yard
-        </Button>
-      </div>
-    </Form>
-  );
-}
+const OverrideForm = lazy(() => import('./send-out-override-form'));
 
 interface SendOutPanelProps {
   run: Run;
@@ -96,7 +70,9 @@ export function SendOutPanel({ run, canSendOut, canOverride }: SendOutPanelProps
       )}
       {!state.ready && state.overridable && canOverride ? (
         overriding ? (
-          <OverrideForm run={run} blocks={gaps} onSent={sent} onCancel={() => setOverriding(false)} />
+          <Suspense fallback={<p role="status">Opening the form…</p>}>
+            <OverrideForm run={run} blocks={gaps} onSent={sent} onCancel={() => setOverriding(false)} />
+          </Suspense>
         ) : (
           <Button variant="secondary" aria-expanded={false} onClick={() => setOverriding(true)}>
             Send out anyway…
