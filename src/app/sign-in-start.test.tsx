@@ -12,6 +12,7 @@ const session = {
   user: { id: 4, email: 'ada@ridge-roofing.test', name: 'Ada Penhallow', role: 'contractor_owner' },
   organisation: { id: 2, name: 'Penhallow Roofing', kind: 'contractor' },
   calendar: { time_zone: 'Europe/London', today: '2026-12-07' },
+  currency: 'GBP',
 };
 
 let container: HTMLElement;
