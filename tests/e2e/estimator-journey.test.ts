@@ -1,4 +1,6 @@
-import { readFile } from 'node:fs/promises';
+import { mkdtemp, readFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import ExcelJS from 'exceljs';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
@@ -101,7 +103,10 @@ describe('an estimator goes from a CSV of roof faces to a placed order', () => {
       const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download .xlsx' }).click()]);
       expect(download.suggestedFilename()).toBe(`estimate-${estimateId}.xlsx`);
       const workbook = new ExcelJS.Workbook();
-      await workbook.xlsx.load((await readFile(await download.path())) as unknown as ArrayBuffer);
+      // The browser is shared by the run's journeys and reached over a connection, so the file is saved here first.
+      const saved = join(await mkdtemp(join(tmpdir(), 'ridgeload-export-')), download.suggestedFilename());
+      await download.saveAs(saved);
+      await workbook.xlsx.load((await readFile(saved)) as unknown as ArrayBuffer);
       const bill = workbook.getWorksheet('Bill of materials');
       expect(bill?.getRow(1).getCell(4).value).toBe('Quantity');
       expect(bill?.getRow(2).getCell(4).value).toBe(previewTiles);
