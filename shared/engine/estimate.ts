@@ -12,9 +12,9 @@ import { insets, isRaking, planAreaM2, rakingEdgeLength, slopeAreaM2, widthAt, t
 import { loadingRowIndices, namedRidge, pairRidgeFaces, planFaceLoading, type FaceLoading, type RidgeBalance, type RidgeSide } from './loading';
 import { BuildingEdgeTally } from './ridge-hip';
 import type { EngineResult, EngineWarning, FaceResult, Flashings, InputProblem } from './result';
-import { parseOpeningsCsv } from './openings-parse';
+import { readOpeningsCsv } from './openings-parse';
 import { parseRoofSystem } from './roof-system';
-import { parseScheduleCsv, type ScheduleWarning } from './schedule-parse';
+import { readScheduleCsv, type ScheduleWarning } from './schedule-parse';
 import { settingOutMarks, settingOutReference, type SettingOutFrom } from './setting-out';
 import { fitBetweenVerges, tilesToSpan, type VergeFit } from './tiles-per-course';
 import { ENGINE_VERSION } from './version';
@@ -526,15 +526,29 @@ function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings
   return result;
 }
 
-/** Groups openings by the face they sit in (building and face compared without case). */
-function openingsByFace(openings: readonly Opening[]): FaceLookup<Opening[]> {
+/**
+ * The openings of each face by its index in the schedule, in the order given (undefined for a face
+ * with none): through `faceOf` when the reader found each opening's face, else by building and face
+ * name compared without case, every face of that name getting them.
+ */
+function openingsByFace(openings: readonly Opening[], schedule: Schedule, faceOf: readonly number[] | null): Array<Opening[] | undefined> {
+  const byFace = new Array<Opening[] | undefined>(schedule.length);
+  if (faceOf !== null) {
+    for (let k = 0; k < openings.length; k++) {
+      const list = byFace[faceOf[k]];
+      if (list) list.push(openings[k]);
+      else byFace[faceOf[k]] = [openings[k]];
+    }
+    return byFace;
+  }
   const lookup = new FaceLookup<Opening[]>();
   for (const o of openings) {
     const list = lookup.get(o.building, o.face);
     if (list) list.push(o);
     else lookup.set(o.building, o.face, [o]);
   }
-  return lookup;
+  for (let i = 0; i < schedule.length; i++) byFace[i] = lookup.get(schedule[i].building, schedule[i].face);
+  return byFace;
 }
 
 /**
@@ -840,9 +854,12 @@ function finishBuilding(b: BuildingFaces, schedule: Schedule, faces: readonly Fa
   }
 }
 
-/** estimate() for a schedule and openings already checked (the CSV pipeline checks them as it reads them). */
-function estimateChecked(schedule: Schedule, system: RoofSystem, openings: readonly Opening[]): EngineResult {
-  const openingsOf = openings.length > 0 ? openingsByFace(openings) : null;
+/**
+ * estimate() for a schedule and openings already checked (the CSV pipeline checks them as it reads
+ * them, and gives the index of each opening's face in `faceOf`).
+ */
+function estimateChecked(schedule: Schedule, system: RoofSystem, openings: readonly Opening[], faceOf: readonly number[] | null = null): EngineResult {
+  const openingsOf = openings.length > 0 ? openingsByFace(openings, schedule, faceOf) : null;
 
   const warnings: EngineWarning[] = [];
   const tally = new PieceTally(system.batten.stock_length_mm);
@@ -878,7 +895,7 @@ function estimateChecked(schedule: Schedule, system: RoofSystem, openings: reado
   const job = new JobTally(system);
   for (let i = 0; i < schedule.length; i++) {
     const face = schedule[i];
-    const f = computeFace(face, system, tally, warnings, scratch, openingsOf?.get(face.building, face.face));
+    const f = computeFace(face, system, tally, warnings, scratch, openingsOf === null ? undefined : openingsOf[i]);
     faces[i] = f;
     job.add(face, f, scratch, i);
   }
@@ -1049,23 +1066,27 @@ function withParseWarnings(result: EngineResult, parseWarnings: readonly Schedul
  */
 export function runEstimateFromCsv(csvText: string, systemInput?: RoofSystemInput | unknown, openingsCsv?: string): RunOutcome {
   const sys = parseRoofSystem(systemInput ?? {});
-  const parsed = parseScheduleCsv(csvText, sys.ok ? sys.system : undefined);
+  const read = readScheduleCsv(csvText, sys.ok ? sys.system : undefined);
+  const parsed = read.parsed;
   const errors: InputProblem[] = [];
   if (!sys.ok) errors.push(...sys.errors);
   if (!parsed.ok) errors.push(...parsed.errors);
   let openings: Opening[] = [];
+  let faceOf: readonly number[] | null = null;
   const openingWarnings: ScheduleWarning[] = [];
   if (openingsCsv !== undefined) {
-    const o = parseOpeningsCsv(openingsCsv, parsed.ok ? parsed.faces : undefined);
+    const read2 = readOpeningsCsv(openingsCsv, parsed.ok ? parsed.faces : undefined, read.index);
+    const o = read2.parsed;
     if (!o.ok) errors.push(...o.errors.map((p) => ({ ...p, file: 'openings' as const })));
     else {
       openings = o.openings;
+      faceOf = read2.faceOf;
       openingWarnings.push(...o.warnings);
     }
   }
   if (errors.length > 0 || !sys.ok || !parsed.ok) return { ok: false, errors };
-  // The reader checked every pitch against the system and every opening against its face.
-  return { ok: true, result: withParseWarnings(estimateChecked(parsed.faces, sys.system, openings), [...parsed.warnings, ...openingWarnings]) };
+  // The reader checked every pitch against the system and every opening against its face (and found its face's index).
+  return { ok: true, result: withParseWarnings(estimateChecked(parsed.faces, sys.system, openings, faceOf), [...parsed.warnings, ...openingWarnings]) };
 }
 
 /**

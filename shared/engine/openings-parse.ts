@@ -1,26 +1,11 @@
-import Papa from 'papaparse';
-import { OPENING_COLUMNS, checkOpeningsAgainstFaces, normaliseOpeningKind, openingKindProblem, type Opening, type OpeningColumn, type OpeningKind } from '../schemas/openings.schema';
+import type Papa from 'papaparse';
+import { OPENING_COLUMNS, checkOpeningInFace, checkOpeningsAgainstFaces, normaliseOpeningKind, openingKindProblem, type Opening, type OpeningColumn, type OpeningKind, type OpeningProblem } from '../schemas/openings.schema';
 import { SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from '../schemas/schedule.schema';
+import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, readNumber } from './csv-read';
 import type { InputProblem } from './result';
-import { detectDelimiter, papaConfig, type ChunkedParseConfig } from './schedule-parse';
+import type { ScheduleFaceIndex } from './schedule-parse';
 
 export type OpeningsParse = { ok: true; openings: Opening[]; warnings: Array<{ code: 'unknown_column'; building: null; face: null; message: string }> } | { ok: false; errors: InputProblem[] };
-
-function normaliseHeader(raw: string): string {
-  return raw
-    .replace(/^\uFEFF/, '')
-    .trim()
-    .toLowerCase()
-    .replace(/[\s-]+/g, '_');
-}
-
-function readNumber(raw: string, decimalComma: boolean): number | null {
-  const s = raw.trim();
-  if (s === '') return null;
-  if (/^[+-]?(\d+\.?\d*|\.\d+)$/.test(s)) return Number(s);
-  if (decimalComma && /^[+-]?(\d+,?\d*|,\d+)$/.test(s)) return Number(s.replace(',', '.'));
-  return NaN;
-}
 
 /**
  * Reads the openings file (CSV, the schedule's rules: UTF-8 with or without a BOM, comma, semicolon or
@@ -30,17 +15,28 @@ function readNumber(raw: string, decimalComma: boolean): number | null {
  * is given with its spreadsheet row (header = 1) and column; nothing is kept when any is found.
  */
 export function parseOpeningsCsv(text: string, faces?: readonly Face[]): OpeningsParse {
+  return readOpeningsCsv(text, faces, null).parsed;
+}
+
+/** An openings file read, and the index of the face each opening sits in (when read against an indexed schedule). */
+export interface OpeningsRead {
+  parsed: OpeningsParse;
+  faceOf: readonly number[] | null;
+}
+
+/**
+ * parseOpeningsCsv; with the schedule reader's index of its faces, each opening's face is found through
+ * it (no second lookup of the faces by name) and given back by its index.
+ */
+export function readOpeningsCsv(text: string, faces: readonly Face[] | undefined, index: ScheduleFaceIndex | null): OpeningsRead {
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  if (body.trim() === '') return { ok: false, errors: [{ message: 'the openings file is empty: it needs a header row' }] };
+  if (body.trim() === '') return { parsed: { ok: false, errors: [{ message: 'the openings file is empty: it needs a header row' }] }, faceOf: null };
   const delimiter = detectDelimiter(body);
   // Read chunk by chunk, like the schedule: a whole-file parse keeps every row of the file reachable
   // from papaparse until the next full collection.
-  let reader: OpeningsReader | null = new OpeningsReader(delimiter !== ',');
-  Papa.parse<string[]>(body, papaConfig(delimiter, (results) => reader?.chunk(results), body.length) as ChunkedParseConfig & Papa.ParseLocalConfig<string[], Papa.LocalFile>);
-  const parsed = reader.finish(faces);
-  // The callback is kept by papaparse's call site until the next full collection: cut it off from the rows.
-  reader = null;
-  return parsed;
+  const reader = new OpeningsReader(delimiter !== ',');
+  readCsvChunks(body, delimiter, reader);
+  return reader.finish(faces, index);
 }
 
 /** An opening read from the file, built by a constructor rather than an object literal (see ResolvedFace in schedule.schema.ts). */
@@ -82,10 +78,7 @@ class OpeningsReader {
   constructor(private readonly decimalComma: boolean) {}
 
   chunk(results: Papa.ParseResult<string[]>) {
-    for (const e of results.errors) {
-      if (e.code === 'UndetectableDelimiter') continue;
-      this.fileErrors.push({ ...(e.row !== undefined && e.row !== null ? { row: this.rowsBefore + e.row + 1 } : {}), message: e.message });
-    }
+    addPapaProblems(results, this.rowsBefore, this.fileErrors);
     const rows = results.data;
     let start = 0;
     if (!this.headerDone) {
@@ -154,14 +147,7 @@ class OpeningsReader {
   }
 
   private readRow(cells: readonly string[], row: number) {
-    let blank = true;
-    for (let i = 0; i < cells.length; i++) {
-      if (cells[i].trim() !== '') {
-        blank = false;
-        break;
-      }
-    }
-    if (blank) return;
+    if (isBlankRow(cells)) return;
     this.cells = cells;
     this.row = row;
     this.bad = false;
@@ -184,17 +170,29 @@ class OpeningsReader {
     this.rowOf.push(row);
   }
 
-  finish(faces: readonly Face[] | undefined): OpeningsParse {
+  finish(faces: readonly Face[] | undefined, index: ScheduleFaceIndex | null): OpeningsRead {
     this.cells = [];
-    if (this.fileErrors.length > 0 || this.headerErrors.length > 0) return { ok: false, errors: [...this.fileErrors, ...this.headerErrors] };
+    if (this.fileErrors.length > 0 || this.headerErrors.length > 0) return { parsed: { ok: false, errors: [...this.fileErrors, ...this.headerErrors] }, faceOf: null };
     const errors = this.rowErrors;
+    let faceOf: number[] | null = null;
     if (faces) {
-      for (const p of checkOpeningsAgainstFaces(this.openings, faces)) errors.push({ row: this.rowOf[p.index], column: p.column, message: p.message });
+      let problems: OpeningProblem[];
+      if (index) {
+        problems = [];
+        faceOf = new Array<number>(this.openings.length);
+        for (let k = 0; k < this.openings.length; k++) {
+          const o = this.openings[k];
+          const at = index.find(o.building, o.face);
+          faceOf[k] = at;
+          checkOpeningInFace(o, k, at < 0 ? undefined : faces[at], problems);
+        }
+      } else problems = checkOpeningsAgainstFaces(this.openings, faces);
+      for (const p of problems) errors.push({ row: this.rowOf[p.index], column: p.column, message: p.message });
     }
     if (errors.length > 0) {
       errors.sort((a, b) => (a.row ?? 0) - (b.row ?? 0));
-      return { ok: false, errors };
+      return { parsed: { ok: false, errors }, faceOf: null };
     }
-    return { ok: true, openings: this.openings, warnings: this.warnings };
+    return { parsed: { ok: true, openings: this.openings, warnings: this.warnings }, faceOf };
   }
 }

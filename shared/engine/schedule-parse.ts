@@ -1,25 +1,13 @@
-import Papa from 'papaparse';
+import type Papa from 'papaparse';
 import type { RoofSystem } from '../schemas/roof-system.schema';
-import {
-  SCHEDULE_COLUMNS,
-  SCHEDULE_LIMITS,
-  SCHEDULE_MESSAGES,
-  crossCheckFace,
-  edgeProblem,
-  millimetreProblem,
-  normaliseEdgeWord,
-  pitchProblem,
-  quantityProblem,
-  resolveFace,
-  topProblem,
-  type EdgeKind,
-  type Face,
-  type FaceCandidate,
-  type ScheduleColumn,
-  type TopKind,
-} from '../schemas/schedule.schema';
+import { SCHEDULE_COLUMNS, SCHEDULE_MESSAGES, crossCheckFace, resolveFace, type Face, type FaceCandidate, type ScheduleColumn } from '../schemas/schedule.schema';
 import { lowestPitch } from './courses';
+import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks } from './csv-read';
 import type { InputProblem } from './result';
+import { CHECK_MM, CHECK_MM_OR_ZERO, CHECK_PITCH, CHECK_QUANTITY, RowReader, type ColumnIndex } from './schedule-row';
+
+// The browser's file reader and the benchmark take the CSV settings from here.
+export { CSV_CHUNK_CHARS, detectDelimiter, papaConfig, type ChunkedParseConfig } from './csv-read';
 
 export interface ScheduleWarning {
   code: 'unknown_column' | 'ridge_grouping_guessed';
@@ -33,210 +21,6 @@ export type ScheduleParse = { ok: true; faces: Face[]; warnings: ScheduleWarning
 const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
 
 /**
- * The delimiter a spreadsheet used, from the header line: the most frequent of comma, semicolon and
- * tab outside quotes (comma when none).
- */
-export function detectDelimiter(text: string): string {
-  let commas = 0;
-  let semis = 0;
-  let tabs = 0;
-  let quoted = false;
-  for (let i = 0; i < text.length; i++) {
-    const ch = text.charCodeAt(i);
-    if (ch === 34) quoted = !quoted;
-    else if (!quoted) {
-      if (ch === 10 || ch === 13) break;
-      if (ch === 44) commas++;
-      else if (ch === 59) semis++;
-      else if (ch === 9) tabs++;
-    }
-  }
-  if (semis > commas && semis >= tabs) return ';';
-  if (tabs > commas && tabs > semis) return '\t';
-  return ',';
-}
-
-/**
- * Characters handed to papaparse at a time: rows are checked chunk by chunk, so the raw cells of a big
- * file are never all held at once (small chunks keep the peak memory of a 10,000-face file down).
- */
-export const CSV_CHUNK_CHARS = 16 * 1024;
-
-/** papaparse reads a string chunk after chunk by recursion: at most this many chunks keeps the stack safe. */
-const MAX_CHUNKS = 1_000;
-
-export type ChunkedParseConfig = Papa.ParseConfig<string[]> & {
-  chunkSize: number;
-  chunk: (results: Papa.ParseResult<string[]>) => void;
-  complete: () => void;
-  download?: false;
-  worker?: false;
-};
-
-/** The papaparse settings the schedule reader uses (the benchmark times the bare parse with these). */
-export function papaConfig(delimiter: string, chunk: (results: Papa.ParseResult<string[]>) => void, textLength = 0): ChunkedParseConfig {
-  // A string is read synchronously, chunk by chunk, before Papa.parse returns.
-  return {
-    delimiter,
-    header: false,
-    skipEmptyLines: false,
-    chunkSize: Math.max(CSV_CHUNK_CHARS, Math.ceil(textLength / MAX_CHUNKS)),
-    chunk,
-    complete: noop,
-  };
-}
-
-function noop() {}
-
-/** Header names are read without case, outer spaces, or the difference between "pitch deg" and pitch_deg. */
-function normaliseHeader(raw: string): string {
-  return raw
-    .replace(/^\uFEFF/, '')
-    .trim()
-    .toLowerCase()
-    .replace(/[\s-]+/g, '_');
-}
-
-function isBlankRow(cells: readonly string[]): boolean {
-  for (const c of cells) if (c.trim() !== '') return false;
-  return true;
-}
-
-/** True when s is a plain decimal: an optional sign, digits, at most one point, at least one digit. */
-function isPlainDecimal(s: string, point: number): boolean {
-  let digits = 0;
-  let points = 0;
-  for (let i = 0; i < s.length; i++) {
-    const ch = s.charCodeAt(i);
-    if (ch >= 48 && ch <= 57) digits++;
-    else if (ch === point) {
-      if (++points > 1) return false;
-    } else if ((ch === 43 || ch === 45) && i === 0) continue;
-    else return false;
-  }
-  return digits > 0;
-}
-
-/**
- * Reads a number cell: null when blank, NaN when it is not a plain number. A decimal comma is read
- * only when the delimiter is not a comma (a semicolon-delimited export from a comma-decimal locale).
- */
-function readNumber(raw: string, decimalComma: boolean): number | null {
-  const s = raw.trim();
-  if (s === '') return null;
-  if (isPlainDecimal(s, 46)) return Number(s);
-  if (decimalComma && isPlainDecimal(s, 44)) return Number(s.replace(',', '.'));
-  return NaN;
-}
-
-const CHECK_QUANTITY = 0;
-const CHECK_PITCH = 1;
-const CHECK_MM = 2;
-const CHECK_MM_OR_ZERO = 3;
-type Check = typeof CHECK_QUANTITY | typeof CHECK_PITCH | typeof CHECK_MM | typeof CHECK_MM_OR_ZERO;
-
-function runCheck(check: Check, v: number): string | null {
-  switch (check) {
-    case CHECK_QUANTITY:
-      return quantityProblem(v);
-    case CHECK_PITCH:
-      return pitchProblem(v);
-    case CHECK_MM:
-      return millimetreProblem(v, false);
-    default:
-      return millimetreProblem(v, true);
-  }
-}
-
-/** Column positions in the file, -1 when a column is absent. */
-type ColumnIndex = Record<ScheduleColumn, number>;
-
-/** Reads the cells of one row at a time and records their problems (one instance for the whole file). */
-class RowReader {
-  row = 0;
-  cells: readonly string[] = [];
-  rowBad = false;
-  constructor(
-    private readonly col: ColumnIndex,
-    private readonly decimalComma: boolean,
-    private readonly errors: InputProblem[],
-  ) {}
-
-  start(row: number, cells: readonly string[]) {
-    this.row = row;
-    this.cells = cells;
-    this.rowBad = false;
-  }
-
-  bad(column: ScheduleColumn, message: string) {
-    this.errors.push({ row: this.row, column, message });
-    this.rowBad = true;
-  }
-
-  present(c: ScheduleColumn): boolean {
-    return this.col[c] >= 0;
-  }
-
-  at(i: number): string {
-    return i < 0 ? '' : (this.cells[i] ?? '');
-  }
-
-  text(c: 'face' | 'building' | 'ridge', i: number, fallback: string | null): string {
-    const v = this.at(i).trim();
-    if (v === '') {
-      if (fallback === null && i >= 0) this.bad(c, SCHEDULE_MESSAGES.required);
-      return fallback ?? '';
-    }
-    if (v.length > SCHEDULE_LIMITS.maxTextLength) this.bad(c, SCHEDULE_MESSAGES.textTooLong);
-    return v;
-  }
-
-  number(c: ScheduleColumn, i: number, required: boolean, check: Check): number | undefined {
-    const raw = this.at(i);
-    const v = readNumber(raw, this.decimalComma);
-    if (v === null) {
-      if (required && i >= 0) this.bad(c, SCHEDULE_MESSAGES.required);
-      return undefined;
-    }
-    if (Number.isNaN(v)) {
-      const hint = !this.decimalComma && raw.indexOf(',') >= 0 ? '; with a comma delimiter, write decimals with a point' : '';
-      this.bad(c, `must be a number, not '${raw.trim()}'${hint}`);
-      return undefined;
-    }
-    const problem = runCheck(check, v);
-    if (problem) {
-      this.bad(c, problem);
-      return undefined;
-    }
-    return v;
-  }
-
-  edge(c: 'left' | 'right', i: number): EdgeKind {
-    const raw = this.at(i);
-    const w = readWord(raw);
-    if (w === '') return 'verge';
-    if (w === 'verge' || w === 'hip' || w === 'valley' || w === 'abutment') return w;
-    this.bad(c, (edgeProblem(w) as string).replace(`'${w}'`, `'${raw.trim()}'`));
-    return 'verge';
-  }
-
-  topEdge(i: number): TopKind {
-    const raw = this.at(i);
-    const w = readWord(raw);
-    if (w === '') return 'ridge';
-    if (w === 'ridge' || w === 'mono_ridge' || w === 'abutment') return w;
-    this.bad('top', (topProblem(w) as string).replace(`'${w}'`, `'${raw.trim()}'`));
-    return 'ridge';
-  }
-}
-
-/** An edge word as written, in the schedule's spelling; plain lower-case words skip the regex. */
-function readWord(raw: string): string {
-  if (raw === 'verge' || raw === 'hip' || raw === 'ridge' || raw === 'valley') return raw;
-  return raw.trim() === '' ? '' : normaliseEdgeWord(raw);
-}
-
-/**
  * Reads a roof schedule from CSV text as spreadsheets export it: UTF-8 with or without a BOM, comma,
  * semicolon or tab delimited (decimal comma with a semicolon), quoted fields, CRLF, blank lines. The
  * header names the columns in any order (case ignored); unknown columns give a warning. Every problem
@@ -244,23 +28,66 @@ function readWord(raw: string): string {
  * lowest band is a problem too.
  */
 export function parseScheduleCsv(text: string, system?: RoofSystem): ScheduleParse {
+  return readScheduleCsv(text, system).parsed;
+}
+
+/** A schedule read from CSV, and its faces found by building and name when it was accepted. */
+export interface ScheduleRead {
+  parsed: ScheduleParse;
+  index: ScheduleFaceIndex | null;
+}
+
+/** parseScheduleCsv, with the index of the faces the reader filed by name (the openings are checked through it). */
+export function readScheduleCsv(text: string, system?: RoofSystem): ScheduleRead {
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   if (body.trim() === '') {
     return {
-      ok: false,
-      errors: [{ message: 'the schedule is empty: it needs a header row and at least one face' }],
-      warnings: [],
+      parsed: {
+        ok: false,
+        errors: [{ message: 'the schedule is empty: it needs a header row and at least one face' }],
+        warnings: [],
+      },
+      index: null,
     };
   }
   const delimiter = detectDelimiter(body);
-  let reader: ScheduleReader | null = new ScheduleReader(delimiter, system ? lowestPitch(system.tile.headlap_mm) : -Infinity);
-  Papa.parse<string[]>(body, papaConfig(delimiter, (results) => reader?.chunk(results), body.length) as ChunkedParseConfig & Papa.ParseLocalConfig<string[], Papa.LocalFile>);
+  const reader = new ScheduleReader(delimiter, system ? lowestPitch(system.tile.headlap_mm) : -Infinity);
+  readCsvChunks(body, delimiter, reader);
   const parsed = reader.finish();
-  // papaparse's call sites keep a reference to the last callback they called until the next full
-  // collection, and young-generation collections count it: cut the callback off from the faces, so
-  // they die young once the caller is done with them.
-  reader = null;
-  return parsed;
+  return { parsed, index: parsed.ok ? new ScheduleFaceIndex(reader.seen, reader.rowOfFace) : null };
+}
+
+/**
+ * The faces of an accepted schedule by building and face name, both without case or outer spaces (as
+ * faceKey compares them): the names the reader filed to find duplicates, so nothing is filed twice.
+ */
+export class ScheduleFaceIndex {
+  private lastBuilding: string | null = null;
+  private lastFaces: Map<string, number> | undefined;
+  constructor(
+    private readonly seen: ReadonlyMap<string, Map<string, number>>,
+    private readonly rowOfFace: readonly number[],
+  ) {}
+
+  /** The face's index in the schedule's faces, or -1 when the schedule has no such face. */
+  find(building: string, face: string): number {
+    if (building !== this.lastBuilding) {
+      this.lastBuilding = building;
+      this.lastFaces = this.seen.get(building.trim().toLowerCase());
+    }
+    const row = this.lastFaces?.get(face.trim().toLowerCase());
+    if (row === undefined) return -1;
+    // Faces are kept in row order: the face of a row is found by halving.
+    const rows = this.rowOfFace;
+    let lo = 0;
+    let hi = rows.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (rows[mid] < row) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo < rows.length && rows[lo] === row ? lo : -1;
+  }
 }
 
 /** The state of one schedule being read, fed by papaparse a chunk of rows at a time. */
@@ -271,7 +98,9 @@ class ScheduleReader {
   private readonly col = Object.fromEntries(SCHEDULE_COLUMNS.map((c) => [c, -1])) as ColumnIndex;
   private readonly cells: RowReader;
   // Face names by building, both without case, to the row that first gave them.
-  private readonly seen = new Map<string, Map<string, number>>();
+  readonly seen = new Map<string, Map<string, number>>();
+  /** The row each face was read from. */
+  readonly rowOfFace: number[] = [];
   private readonly candidate: FaceCandidate = {
     building: '',
     face: '',
@@ -301,13 +130,7 @@ class ScheduleReader {
   }
 
   chunk(results: Papa.ParseResult<string[]>) {
-    for (const e of results.errors) {
-      if (e.code === 'UndetectableDelimiter') continue;
-      this.errors.push({
-        ...(e.row !== undefined && e.row !== null ? { row: this.rowsBefore + e.row + 1 } : {}),
-        message: e.message,
-      });
-    }
+    addPapaProblems(results, this.rowsBefore, this.errors);
     const data = results.data;
     let start = 0;
     if (!this.headerDone && data.length > 0) {
@@ -435,6 +258,7 @@ class ScheduleReader {
       return;
     }
     this.faces.push(resolveFace(candidate));
+    this.rowOfFace.push(row);
   }
 
   finish(): ScheduleParse {

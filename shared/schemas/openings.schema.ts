@@ -83,19 +83,21 @@ export function checkOpeningsAgainstFaces(openings: readonly Opening[], faces: r
   const byKey = new FaceLookup<Face>();
   for (const f of faces) byKey.set(f.building, f.face, f);
   const problems: OpeningProblem[] = [];
-  openings.forEach((o, index) => {
-    const face = byKey.get(o.building, o.face);
-    if (!face) {
-      problems.push({ index, column: 'face', message: `no face '${o.face}' in building '${o.building}' in the schedule` });
-      return;
-    }
-    const widest = Math.max(face.eaves_mm, face.top_mm);
-    if (o.width_mm > widest) {
-      problems.push({ index, column: 'width_mm', message: `${o.width_mm} mm is wider than face '${face.face}' (${Math.round(widest)} mm at its widest)` });
-    }
-    if (o.height_mm > face.rafter_mm) {
-      problems.push({ index, column: 'height_mm', message: `${o.height_mm} mm is taller than face '${face.face}' (rafter ${Math.round(face.rafter_mm)} mm)` });
-    }
-  });
+  openings.forEach((o, index) => checkOpeningInFace(o, index, byKey.get(o.building, o.face), problems));
   return problems;
+}
+
+/** The problems of one opening (at `index` in its list) in the face it names (undefined when the schedule has none), into `problems`. */
+export function checkOpeningInFace(o: Opening, index: number, face: Face | undefined, problems: OpeningProblem[]) {
+  if (!face) {
+    problems.push({ index, column: 'face', message: `no face '${o.face}' in building '${o.building}' in the schedule` });
+    return;
+  }
+  const widest = Math.max(face.eaves_mm, face.top_mm);
+  if (o.width_mm > widest) {
+    problems.push({ index, column: 'width_mm', message: `${o.width_mm} mm is wider than face '${face.face}' (${Math.round(widest)} mm at its widest)` });
+  }
+  if (o.height_mm > face.rafter_mm) {
+    problems.push({ index, column: 'height_mm', message: `${o.height_mm} mm is taller than face '${face.face}' (rafter ${Math.round(face.rafter_mm)} mm)` });
+  }
 }
