@@ -107,6 +107,6 @@ export class RowReader {
 
 /** An edge word as written, in the schedule's spelling; plain lower-case words skip the regex. */
 function readWord(raw: string): string {
-  if (raw === 'verge' || raw === 'hip' || raw === 'ridge' || raw === 'valley') return raw;
+  if (raw === 'verge' || raw === 'hip' || raw === 'ridge' || raw === 'valley' || raw === 'abutment' || raw === 'mono_ridge') return raw;
   return raw.trim() === '' ? '' : normaliseEdgeWord(raw);
 }
