@@ -127,6 +127,17 @@ function isPlainDecimal(s: string, point: number): boolean {
 export function readNumber(raw: string, decimalComma: boolean): number | null {
   const s = raw.trim();
   if (s === '') return null;
+  // Whole millimetres and degrees, the usual cell, are added up digit by digit (exact below 2^53).
+  if (s.length <= 15) {
+    let v = 0;
+    let i = 0;
+    for (; i < s.length; i++) {
+      const ch = s.charCodeAt(i);
+      if (ch < 48 || ch > 57) break;
+      v = v * 10 + (ch - 48);
+    }
+    if (i === s.length) return v;
+  }
   if (isPlainDecimal(s, 46)) return Number(s);
   if (decimalComma && isPlainDecimal(s, 44)) return Number(s.replace(',', '.'));
   return NaN;

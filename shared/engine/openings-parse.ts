@@ -1,5 +1,15 @@
 import type Papa from 'papaparse';
-import { OPENING_COLUMNS, checkOpeningInFace, checkOpeningsAgainstFaces, normaliseOpeningKind, openingKindProblem, type Opening, type OpeningColumn, type OpeningKind, type OpeningProblem } from '../schemas/openings.schema';
+import {
+  OPENING_COLUMNS,
+  checkOpeningInFace,
+  checkOpeningsAgainstFaces,
+  normaliseOpeningKind,
+  openingKindProblem,
+  type Opening,
+  type OpeningColumn,
+  type OpeningKind,
+  type OpeningProblem,
+} from '../schemas/openings.schema';
 import { SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from '../schemas/schedule.schema';
 import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, readNumber } from './csv-read';
 import type { InputProblem } from './result';

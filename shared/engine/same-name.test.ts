@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { estimate, sameNameWithoutCase } from './estimate';
+import { estimate } from './estimate';
+import { sameNameWithoutCase } from './ridge-groups';
 import { parseRoofSystem } from './roof-system';
 import { resolveFace } from '../schemas/schedule.schema';
 

@@ -101,6 +101,8 @@ class ScheduleReader {
   readonly seen = new Map<string, Map<string, number>>();
   /** The row each face was read from. */
   readonly rowOfFace: number[] = [];
+  private lastBuilding = '';
+  private lastNames: Map<string, number> | null = null;
   private readonly candidate: FaceCandidate = {
     building: '',
     face: '',
@@ -220,11 +222,17 @@ class ScheduleReader {
     const ridgeName = col.ridge >= 0 ? reader.text('ridge', col.ridge, '') : '';
 
     if (faceName !== '') {
-      const bKey = building.toLowerCase();
-      let names = this.seen.get(bKey);
-      if (!names) {
-        names = new Map();
-        this.seen.set(bKey, names);
+      // Faces of one building usually follow each other: its names are looked up once for them all.
+      let names = this.lastNames;
+      if (names === null || building !== this.lastBuilding) {
+        const bKey = building.toLowerCase();
+        names = this.seen.get(bKey) ?? null;
+        if (names === null) {
+          names = new Map();
+          this.seen.set(bKey, names);
+        }
+        this.lastBuilding = building;
+        this.lastNames = names;
       }
       const fKey = faceName.toLowerCase();
       const first = names.get(fKey);

@@ -1,4 +1,16 @@
-import { SCHEDULE_LIMITS, SCHEDULE_MESSAGES, edgeProblem, millimetreProblem, normaliseEdgeWord, pitchProblem, quantityProblem, topProblem, type EdgeKind, type ScheduleColumn, type TopKind } from '../schemas/schedule.schema';
+import {
+  SCHEDULE_LIMITS,
+  SCHEDULE_MESSAGES,
+  edgeProblem,
+  millimetreProblem,
+  normaliseEdgeWord,
+  pitchProblem,
+  quantityProblem,
+  topProblem,
+  type EdgeKind,
+  type ScheduleColumn,
+  type TopKind,
+} from '../schemas/schedule.schema';
 import { readNumber } from './csv-read';
 import type { InputProblem } from './result';
 
