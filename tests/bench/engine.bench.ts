@@ -5,7 +5,9 @@
  * half are in single-lap tiles, so the job is two schedules, each with its openings file and its own
  * roof system. In the same run papaparse reads the same CSVs alone: as a header-row CSV usually is (the
  * ratio the target applies to), and with the schedule reader's own chunked settings (printed too); the
- * three are warmed up alike and timed interleaved, their order turned from round to round.
+ * three are warmed up alike and timed interleaved, their order turned from round to round, and each
+ * timed run ends with a young-generation collection of its own garbage (see collectOwnGarbage); the
+ * collection time inside each side's runs is printed.
  * Prints faces per second, both ratios and peak memory, and ends with one JSON line.
  * Peak memory is measured in processes of their own, each running the same warm-up and timed runs:
  * one runs only the pipeline (the target's figure), one only the bare header-row parse (for
@@ -17,6 +19,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
+import { PerformanceObserver, type PerformanceEntry } from 'node:perf_hooks';
 import Papa from 'papaparse';
 import { runEstimateFromCsv } from '../../shared/engine/estimate';
 import { detectDelimiter, papaConfig } from '../../shared/engine/schedule-parse';
@@ -57,13 +60,35 @@ function headerParse(csv: string): number {
   return Papa.parse<Record<string, string>>(csv, { header: true, skipEmptyLines: true }).data.length;
 }
 
-/** One timed bare parse, in ms. */
-function timeParse(parse: (csv: string) => number, csv: string, faces: number): number {
+/** Start and end (performance.now(), ms) of each timed run of one side. */
+type Windows = Array<[number, number]>;
+
+/**
+ * A young-generation collection, ending every timed run of every side inside its time: each side pays
+ * for collecting the garbage it made and what it left alive, and the next run, of whichever side,
+ * starts with an empty young generation. Without it a side pays for the collections that happen to fall
+ * in its runs, whoever made the garbage: the bare header-row parse leaves about 4.7 MB of rows that a
+ * young collection finds alive (papaparse holds them until the next full collection), and the
+ * pipeline, which allocates the most, set off most of the collections that copied them. Measured on
+ * the timing process: the pipeline's runs held about twice the collection time of the same runs
+ * ended this way. (A full collection is not used: it shrinks the young generation, DEVELOPERS.md
+ * decision 31.) Needs node --expose-gc, which `npm run bench:engine` gives.
+ */
+function collectOwnGarbage() {
+  const gc = (globalThis as { gc?: (options: { type: 'minor' }) => void }).gc;
+  if (!gc) throw new Error('run the benchmark with node --expose-gc (npm run bench:engine does)');
+  gc({ type: 'minor' });
+}
+
+/** One timed bare parse, and the collection of its garbage, in ms. */
+function timeParse(parse: (csv: string) => number, csv: string, faces: number, windows?: Windows): number {
   const t = performance.now();
   const rows = parse(csv);
-  const ms = performance.now() - t;
+  collectOwnGarbage();
+  const end = performance.now();
   if (rows < faces) throw new Error('bare parse lost rows');
-  return ms;
+  windows?.push([t, end]);
+  return end - t;
 }
 
 /**
@@ -83,11 +108,29 @@ function timePart(part: Part): number {
   return ms;
 }
 
-/** One timed run of the whole pipeline over every schedule of the job, in ms. */
-function timePipeline(parts: readonly Part[]): number {
+/** One timed run of the whole pipeline over every schedule of the job, and the collection of its garbage, in ms. */
+function timePipeline(parts: readonly Part[], windows?: Windows): number {
+  const t = performance.now();
   let ms = 0;
   for (const part of parts) ms += timePart(part);
-  return ms;
+  const collecting = performance.now();
+  collectOwnGarbage();
+  const end = performance.now();
+  windows?.push([t, end]);
+  return ms + (end - collecting);
+}
+
+/** Garbage-collection pauses of the main thread, ms, inside each window (the closing collection included). */
+function collectionsInside(entries: readonly PerformanceEntry[], windows: Windows): number[] {
+  return windows.map(([from, to]) => {
+    let ms = 0;
+    for (const e of entries) {
+      const start = Math.max(from, e.startTime);
+      const end = Math.min(to, e.startTime + e.duration);
+      if (end > start) ms += end - start;
+    }
+    return ms;
+  });
 }
 
 /** A bare parse of every CSV of the job (schedules and openings files), rows seen. */
@@ -95,6 +138,10 @@ function parseAll(parse: (csv: string) => number, parts: readonly Part[]): numbe
   let rows = 0;
   for (const part of parts) rows += parse(part.schedule) + parse(part.openings);
   return rows;
+}
+
+function sum(values: number[]): number {
+  return values.reduce((a, b) => a + b, 0);
 }
 
 function median(values: number[]): number {
@@ -133,13 +180,13 @@ function memoryRun(mode: string) {
 
 /** Peak RSS in MB of this benchmark run again in one memory mode. */
 function measureApart(mode: string): number {
-  const out = spawnSync(process.execPath, [fileURLToPath(import.meta.url), mode], { encoding: 'utf8' });
+  const out = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), mode], { encoding: 'utf8' });
   if (out.status !== 0) throw new Error(`memory run ${mode} failed: ${out.stderr}`);
   const lines = out.stdout.trim().split('\n');
   return (JSON.parse(lines[lines.length - 1]) as { peak_rss_mb: number }).peak_rss_mb;
 }
 
-function main() {
+async function main() {
   const { tiled, slated, half, parts } = makeJob();
   const faces = HOUSES * FACES_PER_HOUSE;
   const openings = tiled.count + slated.count;
@@ -164,14 +211,26 @@ function main() {
   const headerMs: number[] = [];
   const sameMs: number[] = [];
   const pipelineMs: number[] = [];
+  const headerRuns: Windows = [];
+  const pipelineRuns: Windows = [];
+  const entries: PerformanceEntry[] = [];
+  const observer = new PerformanceObserver((list) => {
+    entries.push(...list.getEntries());
+  });
+  observer.observe({ entryTypes: ['gc'] });
   for (let i = 0; i < RUNS; i++) {
     for (let k = 0; k < 3; k++) {
       const which = (i + k) % 3;
-      if (which === 0) headerMs.push(timeParse(headerAll, csv, faces));
+      if (which === 0) headerMs.push(timeParse(headerAll, csv, faces, headerRuns));
       else if (which === 1) sameMs.push(timeParse(sameAll, csv, faces));
-      else pipelineMs.push(timePipeline(parts));
+      else pipelineMs.push(timePipeline(parts, pipelineRuns));
     }
   }
+  // The observer is told of the collections once the event loop turns.
+  await new Promise((resolve) => setTimeout(resolve, 50));
+  observer.disconnect();
+  const headerGc = collectionsInside(entries, headerRuns);
+  const pipelineGc = collectionsInside(entries, pipelineRuns);
 
   const header = median(headerMs);
   const same = median(sameMs);
@@ -190,6 +249,9 @@ function main() {
   console.log(`papaparse alone, the reader's settings: ${ms(sameMs)} (chunked, no header objects)`);
   console.log(`parse + check + estimate:              ${ms(pipelineMs)}`);
   console.log(`faces per second:                      ${facesPerS}`);
+  console.log(
+    `collections inside the timed runs:     header row median ${median(headerGc).toFixed(1)} ms (${sum(headerGc).toFixed(0)} ms in all), pipeline median ${median(pipelineGc).toFixed(1)} ms (${sum(pipelineGc).toFixed(0)} ms in all)`,
+  );
   console.log(`ratio to bare parse (header row):      ${ratio} (target ≤ ${TARGET_RATIO})`);
   console.log(`ratio to the reader's own bare parse:  ${ratioSame}`);
   console.log(`peak RSS, the pipeline's runs alone:   ${pipelineRssMb} MB (target ≤ ${TARGET_RSS_MB} MB)`);
@@ -208,6 +270,8 @@ function main() {
       ratio_to_same_settings_parse: ratioSame,
       peak_rss_bare_parse_mb: parseRssMb,
       peak_rss_timing_process_mb: timingRssMb,
+      gc_ms_median_pipeline: round2(median(pipelineGc)),
+      gc_ms_median_parse: round2(median(headerGc)),
     }),
   );
   if (!met && process.argv.includes('--check')) process.exitCode = 1;
@@ -215,4 +279,4 @@ function main() {
 
 const mode = process.argv[2];
 if (mode === MEMORY_MODES.pipeline || mode === MEMORY_MODES.parse) memoryRun(mode);
-else main();
+else await main();
