@@ -163,15 +163,17 @@ export function runEstimateFromCsv(csvText: string, systemInput?: RoofSystemInpu
   let faceOf: readonly number[] | null = null;
   const openingWarnings: ScheduleWarning[] = [];
   if (openingsCsv !== undefined) {
-    const read2 = readOpeningsCsv(openingsCsv, parsed.ok ? parsed.faces : undefined, read.index);
-    const o = read2.parsed;
+    const readOpenings = readOpeningsCsv(openingsCsv, parsed.ok ? parsed.faces : undefined, read.index);
+    const o = readOpenings.parsed;
     if (!o.ok) errors.push(...o.errors.map((p) => ({ ...p, file: 'openings' as const })));
     else {
       openings = o.openings;
-      faceOf = read2.faceOf;
+      faceOf = readOpenings.faceOf;
       openingWarnings.push(...o.warnings);
     }
   }
+  // The faces' names the reader filed serve the openings only: let go of them, so they die young.
+  read.index = null;
   if (errors.length > 0 || !sys.ok || !parsed.ok) return { ok: false, errors };
   // The reader checked every pitch against the system and every opening against its face (and found its face's index).
   return { ok: true, result: withParseWarnings(estimateChecked(parsed.faces, sys.system, openings, faceOf), [...parsed.warnings, ...openingWarnings]) };
