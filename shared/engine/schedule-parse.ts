@@ -204,7 +204,9 @@ class ScheduleReader {
       }
     }
 
-    const building = reader.text('building', col.building, '1');
+    let building = reader.text('building', col.building, '1');
+    // The faces of a building share one copy of its name.
+    if (building === this.lastBuilding) building = this.lastBuilding;
     const faceName = reader.text('face', col.face, null);
     const quantity = reader.number('quantity', col.quantity, false, CHECK_QUANTITY) ?? 1;
     let pitch = reader.number('pitch_deg', col.pitch_deg, true, CHECK_PITCH);

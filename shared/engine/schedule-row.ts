@@ -117,8 +117,26 @@ export class RowReader {
   }
 }
 
-/** An edge word as written, in the schedule's spelling; plain lower-case words skip the regex. */
+/**
+ * An edge word as written, in the schedule's spelling; plain lower-case words skip the regex. A known
+ * word is given back as the program's own string, not the cell's copy: a face keeps three of them, and
+ * ten thousand copies of "verge" would otherwise live as long as the faces.
+ */
 function readWord(raw: string): string {
-  if (raw === 'verge' || raw === 'hip' || raw === 'ridge' || raw === 'valley' || raw === 'abutment' || raw === 'mono_ridge') return raw;
-  return raw.trim() === '' ? '' : normaliseEdgeWord(raw);
+  switch (raw) {
+    case 'verge':
+      return 'verge';
+    case 'hip':
+      return 'hip';
+    case 'valley':
+      return 'valley';
+    case 'abutment':
+      return 'abutment';
+    case 'ridge':
+      return 'ridge';
+    case 'mono_ridge':
+      return 'mono_ridge';
+    default:
+      return raw.trim() === '' ? '' : normaliseEdgeWord(raw);
+  }
 }
