@@ -64,6 +64,15 @@ function headerParse(csv: string): number {
 type Windows = Array<[number, number]>;
 
 /**
+ * The process's CPU time (every thread: the collector's helpers too), ms, since `from`. Less moved than
+ * wall time by other work on a shared machine, which takes the cores away but not the work.
+ */
+function cpuMsSince(from: NodeJS.CpuUsage): number {
+  const used = process.cpuUsage(from);
+  return (used.user + used.system) / 1000;
+}
+
+/**
  * A young-generation collection, ending every timed run of every side inside its time: each side pays
  * for collecting the garbage it made and what it left alive, and the next run, of whichever side,
  * starts with an empty young generation. Without it a side pays for the collections that happen to fall
@@ -81,11 +90,13 @@ function collectOwnGarbage() {
 }
 
 /** One timed bare parse, and the collection of its garbage, in ms. */
-function timeParse(parse: (csv: string) => number, csv: string, faces: number, windows?: Windows): number {
+function timeParse(parse: (csv: string) => number, csv: string, faces: number, windows?: Windows, cpu?: number[]): number {
+  const c = process.cpuUsage();
   const t = performance.now();
   const rows = parse(csv);
   collectOwnGarbage();
   const end = performance.now();
+  cpu?.push(cpuMsSince(c));
   if (rows < faces) throw new Error('bare parse lost rows');
   windows?.push([t, end]);
   return end - t;
@@ -109,13 +120,15 @@ function timePart(part: Part): number {
 }
 
 /** One timed run of the whole pipeline over every schedule of the job, and the collection of its garbage, in ms. */
-function timePipeline(parts: readonly Part[], windows?: Windows): number {
+function timePipeline(parts: readonly Part[], windows?: Windows, cpu?: number[]): number {
+  const c = process.cpuUsage();
   const t = performance.now();
   let ms = 0;
   for (const part of parts) ms += timePart(part);
   const collecting = performance.now();
   collectOwnGarbage();
   const end = performance.now();
+  cpu?.push(cpuMsSince(c));
   windows?.push([t, end]);
   return ms + (end - collecting);
 }
@@ -211,6 +224,8 @@ async function main() {
   const headerMs: number[] = [];
   const sameMs: number[] = [];
   const pipelineMs: number[] = [];
+  const headerCpu: number[] = [];
+  const pipelineCpu: number[] = [];
   const headerRuns: Windows = [];
   const pipelineRuns: Windows = [];
   const entries: PerformanceEntry[] = [];
@@ -221,9 +236,9 @@ async function main() {
   for (let i = 0; i < RUNS; i++) {
     for (let k = 0; k < 3; k++) {
       const which = (i + k) % 3;
-      if (which === 0) headerMs.push(timeParse(headerAll, csv, faces, headerRuns));
+      if (which === 0) headerMs.push(timeParse(headerAll, csv, faces, headerRuns, headerCpu));
       else if (which === 1) sameMs.push(timeParse(sameAll, csv, faces));
-      else pipelineMs.push(timePipeline(parts, pipelineRuns));
+      else pipelineMs.push(timePipeline(parts, pipelineRuns, pipelineCpu));
     }
   }
   // The observer is told of the collections once the event loop turns.
@@ -239,6 +254,7 @@ async function main() {
   const facesPerS = Math.round(faces / (pipeline / 1000));
   const ratio = round2(pipeline / header);
   const ratioSame = round2(pipeline / same);
+  const cpuRatio = round2(median(pipelineCpu) / median(headerCpu));
   const timingRssMb = peakRssMb();
   const pipelineRssMb = measureApart(MEMORY_MODES.pipeline);
   const parseRssMb = measureApart(MEMORY_MODES.parse);
@@ -252,6 +268,7 @@ async function main() {
   console.log(
     `collections inside the timed runs:     header row median ${median(headerGc).toFixed(1)} ms (${sum(headerGc).toFixed(0)} ms in all), pipeline median ${median(pipelineGc).toFixed(1)} ms (${sum(pipelineGc).toFixed(0)} ms in all)`,
   );
+  console.log(`CPU time per run (all threads):        header row median ${median(headerCpu).toFixed(1)} ms, pipeline median ${median(pipelineCpu).toFixed(1)} ms, ratio ${cpuRatio}`);
   console.log(`ratio to bare parse (header row):      ${ratio} (target ≤ ${TARGET_RATIO})`);
   console.log(`ratio to the reader's own bare parse:  ${ratioSame}`);
   console.log(`peak RSS, the pipeline's runs alone:   ${pipelineRssMb} MB (target ≤ ${TARGET_RSS_MB} MB)`);
@@ -272,6 +289,7 @@ async function main() {
       peak_rss_timing_process_mb: timingRssMb,
       gc_ms_median_pipeline: round2(median(pipelineGc)),
       gc_ms_median_parse: round2(median(headerGc)),
+      cpu_ratio_to_parse: cpuRatio,
     }),
   );
   if (!met && process.argv.includes('--check')) process.exitCode = 1;
