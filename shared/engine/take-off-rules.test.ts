@@ -267,6 +267,18 @@ describe('openings (the rule is common practice, no source: positions are not gi
     const good = parseOpeningsCsv('face,kind,width_mm,height_mm\r\nMain,Roof window,780,1180\r\n', faces);
     expect(good.ok && good.openings).toEqual([{ building: '1', face: 'Main', kind: 'roof_window', width_mm: 780, height_mm: 1_180, quantity: 1 }]);
   });
+
+  it("finds an opening's face by building and name without case or outer spaces when read with its schedule, and names the row of one whose face is missing", () => {
+    const schedule = 'building,face,pitch_deg,rafter_mm,eaves_mm\r\nAsh,Main front,35,3860,5940\r\nAsh,Main back,35,3860,5940\r\nBirch,Main front,35,3860,5940\r\n';
+    const exact = ok(runEstimateFromCsv(schedule, {}, 'building,face,kind,width_mm,height_mm\r\nAsh,Main back,roof_window,780,1180\r\nBirch,Main front,hatch,600,900\r\n'));
+    const loose = ok(runEstimateFromCsv(schedule, {}, 'building,face,kind,width_mm,height_mm\r\n ash ,MAIN BACK,roof_window,780,1180\r\nBIRCH,  main Front ,hatch,600,900\r\n'));
+    expect(JSON.stringify(loose)).toBe(JSON.stringify(exact));
+    // Each opening is in the face it names, and only there.
+    expect(exact.faces.map((f) => f.openings_area_m2)).toEqual([0, 0.92, 0.54]);
+    const missing = runEstimateFromCsv(schedule, {}, 'building,face,kind,width_mm,height_mm\r\nAsh,Main front,hatch,600,900\r\nBirch,Main back,hatch,600,900\r\n');
+    expect(missing.ok).toBe(false);
+    if (!missing.ok) expect(missing.errors.map(formatProblem)).toEqual(["openings file, row 3, column face: no face 'Main back' in building 'Birch' in the schedule"]);
+  });
 });
 
 // ---- fittings --------------------------------------------------------------------------------
