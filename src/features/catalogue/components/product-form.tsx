@@ -12,7 +12,7 @@ import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateProduct } from '../api/create-product';
 import { useUpdateProduct } from '../api/update-product';
-import { withFieldDetails } from '../lib/form-values';
+import { showingFieldDetails } from '../lib/form-values';
 import { TECHNICAL_FIELDS, headlapBandsText, productFormSchema, taxPercentText, technicalField, technicalText } from '../lib/product-form';
 import type { HeadlapBandText } from '../lib/product-form';
 
@@ -113,19 +113,15 @@ export function ProductForm({ product = null, onDone }: { product?: Product | nu
   const schema = useMemo(() => productFormSchema(product), [product]);
   const form = useSchemaForm({
     schema,
-    onSubmit: async (body, { reset }) => {
-      try {
-        const saved = product ? await update.mutateAsync(body) : await create.mutateAsync(body);
-        toast.show(product ? `${saved.sku} is saved.` : `${saved.sku} is added to the catalogue.`, 'success');
-        if (!product) {
-          reset();
-          setCategory('');
-        }
-        onDone?.();
-      } catch (error) {
-        throw withFieldDetails(error);
+    onSubmit: showingFieldDetails(async (body, { reset }) => {
+      const saved = product ? await update.mutateAsync(body) : await create.mutateAsync(body);
+      toast.show(product ? `${saved.sku} is saved.` : `${saved.sku} is added to the catalogue.`, 'success');
+      if (!product) {
+        reset();
+        setCategory('');
       }
-    },
+      onDone?.();
+    }),
   });
   return (
     <Form form={form} label={product ? `Change ${product.sku}` : 'Add a product'}>

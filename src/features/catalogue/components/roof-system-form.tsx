@@ -7,7 +7,7 @@ import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateRoofSystem } from '../api/create-roof-system';
 import { useUpdateRoofSystem } from '../api/update-roof-system';
-import { withFieldDetails } from '../lib/form-values';
+import { showingFieldDetails } from '../lib/form-values';
 import { ROLE_WORDS, componentField, createRoofSystemFormSchema, updateRoofSystemFormSchema } from '../lib/roof-system-form';
 
 /**
@@ -23,18 +23,14 @@ export function RoofSystemForm({ branchId, products, system = null, onDone }: { 
   const form = useSchemaForm({
     schema: system ? updateRoofSystemFormSchema : createRoofSystemFormSchema,
     extraValues,
-    onSubmit: async (body, { reset }) => {
-      try {
-        // Only the new-system schema reads branch_id, so its presence says which body this is.
-        const saved = 'branch_id' in body ? await create.mutateAsync(body) : await update.mutateAsync(body);
-        const state = saved.offerable ? 'contractors can estimate with it.' : `it is not offered yet: ${saved.problems.join('; ')}.`;
-        toast.show(`${saved.name} is ${system ? 'saved' : 'added'}; ${state}`, saved.offerable ? 'success' : 'info');
-        if (!system) reset();
-        onDone?.();
-      } catch (error) {
-        throw withFieldDetails(error);
-      }
-    },
+    onSubmit: showingFieldDetails(async (body, { reset }) => {
+      // Only the new-system schema reads branch_id, so its presence says which body this is.
+      const saved = 'branch_id' in body ? await create.mutateAsync(body) : await update.mutateAsync(body);
+      const state = saved.offerable ? 'contractors can estimate with it.' : `it is not offered yet: ${saved.problems.join('; ')}.`;
+      toast.show(`${saved.name} is ${system ? 'saved' : 'added'}; ${state}`, saved.offerable ? 'success' : 'info');
+      if (!system) reset();
+      onDone?.();
+    }),
   });
   return (
     <Form form={form} label={system ? `Change ${system.name}` : 'Add a roof system'}>

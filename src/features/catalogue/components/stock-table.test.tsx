@@ -1,5 +1,6 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
+import { setAppCurrency } from '../../../lib/format';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { StockTable } from './stock-table';
 
@@ -149,14 +150,60 @@ describe('StockTable price', () => {
     expect(call && JSON.parse(String(call[1]?.body))).toEqual({ pack_price: 130 });
   });
 
-  it('refuses a price that is not pounds and pence, naming the field, and sends nothing', async () => {
+  it('refuses a price with more decimals than pence, naming the field, and sends nothing', async () => {
     const fetchMock = stubFetch({ 'GET /api/branches/3/stock': list() });
     renderWithProviders(<StockTable branchId={3} canEditPrice />);
     fireEvent.click(await screen.findByRole('button', { name: 'Change the price of TRS-FL420-SG' }));
     fireEvent.change(screen.getByLabelText('Pack price in £ (1 tile)'), { target: { value: '1.305' } });
     fireEvent.click(screen.getByRole('button', { name: 'Save the price' }));
-    expect(await screen.findByText('give the pack price in pounds and pence, e.g. 12.80')).toBeTruthy();
+    expect(await screen.findByText('the pack price must be an amount in £ with at most 2 decimals, e.g. 12.80')).toBeTruthy();
     expect(fetchMock.mock.calls.filter(([, init]) => init?.method === 'PUT')).toHaveLength(0);
+  });
+});
+
+// Minor units per ISO 4217: the yen has none, the Bahraini dinar three (1,000 fils).
+describe('StockTable price in another configured currency', () => {
+  afterEach(() => setAppCurrency('GBP'));
+
+  it('takes whole yen, with or without the sign, and refuses decimals', async () => {
+    setAppCurrency('JPY');
+    const fetchMock = stubFetch({
+      'GET /api/branches/3/stock': list(),
+      'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
+      'PUT /api/branches/3/products/11': { status: 422, body: { error: { code: 'x', message: 'stop here' } } },
+    });
+    renderWithProviders(<StockTable branchId={3} canEditPrice />);
+    fireEvent.click(await screen.findByRole('button', { name: 'Change the price of TRS-FL420-SG' }));
+    const price = screen.getByLabelText('Pack price in JP¥ (1 tile)');
+    expect((price as HTMLInputElement).value).toBe('128');
+    fireEvent.change(price, { target: { value: '1.5' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save the price' }));
+    expect(await screen.findByText('the pack price must be an amount in JP¥ with no decimals, e.g. 1280')).toBeTruthy();
+    fireEvent.change(price, { target: { value: '¥1,500' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save the price' }));
+    await waitFor(() => {
+      const call = fetchMock.mock.calls.find(([, init]) => init?.method === 'PUT');
+      expect(call && JSON.parse(String(call[1]?.body))).toEqual({ pack_price: 1_500 });
+    });
+  });
+
+  it('takes three decimals of the dinar and sends fils', async () => {
+    setAppCurrency('BHD');
+    const fetchMock = stubFetch({
+      'GET /api/branches/3/stock': list(),
+      'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
+      'PUT /api/branches/3/products/11': { status: 422, body: { error: { code: 'x', message: 'stop here' } } },
+    });
+    renderWithProviders(<StockTable branchId={3} canEditPrice />);
+    fireEvent.click(await screen.findByRole('button', { name: 'Change the price of TRS-FL420-SG' }));
+    const price = screen.getByLabelText('Pack price in BHD (1 tile)');
+    expect((price as HTMLInputElement).value).toBe('0.128');
+    fireEvent.change(price, { target: { value: '12.345' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save the price' }));
+    await waitFor(() => {
+      const call = fetchMock.mock.calls.find(([, init]) => init?.method === 'PUT');
+      expect(call && JSON.parse(String(call[1]?.body))).toEqual({ pack_price: 12_345 });
+    });
   });
 });
 
