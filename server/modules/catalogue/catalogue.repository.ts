@@ -1,9 +1,8 @@
 import type { ProductCategory, SystemRole } from '../../../shared/schemas/catalogue.schema';
 import type { Db } from '../../db/knex';
 
-export interface ProductRow {
-  id: number;
-  organisation_id: number;
+/** What a product is and how it packs: the fields a merchant (or the demo seed) writes and the engine reads. */
+export interface ProductFigures {
   sku: string;
   name: string;
   category: ProductCategory;
@@ -11,6 +10,11 @@ export interface ProductRow {
   pack_size: number;
   pack_weight_kg: number;
   technical: Record<string, unknown>;
+}
+
+export interface ProductRow extends ProductFigures {
+  id: number;
+  organisation_id: number;
 }
 
 /** A product as one branch sells it: price per pack and stock in packs. */

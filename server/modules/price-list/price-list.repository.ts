@@ -1,17 +1,11 @@
 import type { ProductCategory, SystemRole } from '../../../shared/schemas/catalogue.schema';
 import type { Product } from '../../../shared/schemas/price-list.schema';
 import type { Db } from '../../db/knex';
+import type { ProductFigures } from '../catalogue/catalogue.repository';
 import { nowIso } from '../../db/time';
 
-export interface ProductValues {
-  sku: string;
-  name: string;
-  category: ProductCategory;
-  unit: string;
-  pack_size: number;
-  pack_weight_kg: number;
+export interface ProductValues extends ProductFigures {
   tax_rate_bp: number;
-  technical: Record<string, unknown>;
   /** The pallet's footprint; the column's default (1200 × 1000) when left out. */
   pallet_length_mm?: number;
   pallet_width_mm?: number;

@@ -14,6 +14,7 @@ import { orderCautions } from '../estimates/cautions';
 import { estimatesRepository } from '../estimates/estimates.repository';
 import { ordersRepository } from '../orders/orders.repository';
 import { partyOf, type OrdersService } from '../orders/orders.service';
+import { orderSiteOf } from '../projects/order-site';
 import { projectsService } from '../projects/projects.service';
 import { quotesRepository, type QuoteRequestRow, type QuoteRow, type RequestLineRow } from './quotes.repository';
 
@@ -146,18 +147,7 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       }
       const lines = (await estimates.lines(estimate.id)).map((l) => ({ category: l.category, description: l.description, quantity: l.quantity, unit: l.unit }));
       if (lines.length === 0) throw invalid('estimate_id', 'this estimate has nothing to price');
-      const site = {
-        name: p.name,
-        site_address: p.site_address,
-        site_postcode: p.site_postcode,
-        contact_name: p.contact_name,
-        contact_phone: p.contact_phone,
-        vehicle_access: p.vehicle_access,
-        crane_lift: p.crane_lift,
-        overhead_lines: p.overhead_lines,
-        set_down_place: p.set_down_place,
-        access_notes: p.access_notes,
-      };
+      const site = orderSiteOf(p);
       const id = await db.transaction(async (trx) => {
         const requestId = await quotes.insertRequest(
           trx,

@@ -5,6 +5,7 @@ import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import type { SchemaForm } from '../../../components/form/use-schema-form';
+import { LinesTable } from '../../../components/ui/lines-table';
 import { useToast } from '../../../components/ui/toast';
 import { formatCount, formatMoney } from '../../../lib/format';
 import { useOfferChanges } from '../api/offer-changes';
@@ -30,38 +31,15 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
   });
   return (
     <Form form={form} label="Offer changes">
-      <div className="overflow-x-auto rounded-md border border-mortar-300 bg-white" role="region" aria-label="Changes per line" tabIndex={0}>
-        <table className="w-full min-w-[56rem] border-collapse text-left text-sm">
-          <caption className="sr-only">Changes per line</caption>
-          <thead className="bg-mortar-100">
-            <tr>
-              <th scope="col" className="px-3 py-2">
-                Item
-              </th>
-              <th scope="col" className="px-3 py-2 text-right">
-                Open
-              </th>
-              <th scope="col" className="px-3 py-2">
-                Now
-              </th>
-              <th scope="col" className="px-3 py-2">
-                To follow
-              </th>
-              <th scope="col" className="px-3 py-2">
-                Offer instead
-              </th>
-              <th scope="col" className="px-3 py-2">
-                Packs
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {lines.map((line, i) => (
-              <OfferLineRow key={line.id} order={order} line={line} index={i} stock={stock} form={form} />
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <LinesTable
+        caption="Changes per line"
+        minWidthClass="min-w-[56rem]"
+        columns={[{ heading: 'Item' }, { heading: 'Open', numeric: true }, { heading: 'Now' }, { heading: 'To follow' }, { heading: 'Offer instead' }, { heading: 'Packs' }]}
+      >
+        {lines.map((line, i) => (
+          <OfferLineRow key={line.id} order={order} line={line} index={i} stock={stock} form={form} />
+        ))}
+      </LinesTable>
       <TextField name="proposed_date" type="date" label="Another delivery day (optional)" />
       <TextField name="message" label="Message to the contractor" maxLength={2000} />
       <SubmitButton>Send the offer</SubmitButton>

@@ -2,7 +2,7 @@ import { fireEvent, screen, waitFor } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { setAppCurrency } from '../../../lib/format';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
-import { quoteRequestFixture, quoteStockFixture } from '../lib/quote-fixture';
+import { quoteRequestFixture, quoteStockFixture } from '../../../test-utils/quote-fixture';
 import { AnswerQuoteForm } from './answer-quote-form';
 
 const stock = [quoteStockFixture(11, 'TRS-FL420-SG', 'tile', 30_720), quoteStockFixture(12, 'TRS-RHR-SG', 'ridge', 1_850)];
