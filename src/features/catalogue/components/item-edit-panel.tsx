@@ -1,9 +1,9 @@
 import { useEffect, useRef } from 'react';
 import type { ReactNode } from 'react';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
-import { Form, SubmitButton } from '../../../components/form/fields';
+import { Form } from '../../../components/form/fields';
 import type { SchemaForm } from '../../../components/form/use-schema-form';
-import { Button } from '../../../components/ui/button';
+import { SaveOrCancel } from './save-or-cancel';
 
 /**
  * The frame of a form that changes one row of the branch's stock table: the product it is about, its
@@ -40,12 +40,7 @@ export function ItemEditPanel({
         <div ref={fields} className={fieldsClassName}>
           {children}
         </div>
-        <div className="flex flex-wrap gap-2">
-          <SubmitButton>{submitLabel}</SubmitButton>
-          <Button variant="secondary" onClick={onDone}>
-            Cancel
-          </Button>
-        </div>
+        <SaveOrCancel submitLabel={submitLabel} onCancel={onDone} />
       </Form>
     </div>
   );

@@ -4,7 +4,7 @@ import type { ProductCategory } from '../../../../shared/schemas/catalogue.schem
 import { DEFAULT_PALLET_MM } from '../../../../shared/schemas/price-list.schema';
 import type { Product } from '../../../../shared/schemas/price-list.schema';
 import { BONDS, TILE_KINDS } from '../../../../shared/schemas/roof-system.schema';
-import { FieldGroup, Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { FieldGroup, Form, SelectField, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import type { SchemaForm } from '../../../components/form/use-schema-form';
 import { Alert } from '../../../components/ui/alert';
@@ -13,6 +13,7 @@ import { useToast } from '../../../components/ui/toast';
 import { useCreateProduct } from '../api/create-product';
 import { useUpdateProduct } from '../api/update-product';
 import { showingFieldDetails } from '../lib/form-values';
+import { SaveOrCancel } from './save-or-cancel';
 import { TECHNICAL_FIELDS, headlapBandsText, productFormSchema, taxPercentText, technicalField, technicalText } from '../lib/product-form';
 import type { HeadlapBandText } from '../lib/product-form';
 
@@ -148,14 +149,7 @@ export function ProductForm({ product = null, onDone }: { product?: Product | nu
           <TechnicalFields key={category} form={form} category={category} product={product} />
         </section>
       ) : null}
-      <div className="flex flex-wrap gap-2">
-        <SubmitButton>{product ? 'Save the product' : 'Add the product'}</SubmitButton>
-        {onDone ? (
-          <Button variant="secondary" onClick={onDone}>
-            Cancel
-          </Button>
-        ) : null}
-      </div>
+      <SaveOrCancel submitLabel={product ? 'Save the product' : 'Add the product'} onCancel={onDone} />
     </Form>
   );
 }

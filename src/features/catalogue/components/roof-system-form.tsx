@@ -1,13 +1,13 @@
 import { useMemo } from 'react';
 import { CATEGORY_LABELS, REQUIRED_SYSTEM_ROLES, SYSTEM_ROLES } from '../../../../shared/schemas/catalogue.schema';
 import type { MerchantRoofSystem, Product } from '../../../../shared/schemas/price-list.schema';
-import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { Form, SelectField, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
-import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateRoofSystem } from '../api/create-roof-system';
 import { useUpdateRoofSystem } from '../api/update-roof-system';
 import { showingFieldDetails } from '../lib/form-values';
+import { SaveOrCancel } from './save-or-cancel';
 import { ROLE_WORDS, componentField, createRoofSystemFormSchema, updateRoofSystemFormSchema } from '../lib/roof-system-form';
 
 /**
@@ -61,14 +61,7 @@ export function RoofSystemForm({ branchId, products, system = null, onDone }: { 
           })}
         </div>
       </fieldset>
-      <div className="flex flex-wrap gap-2">
-        <SubmitButton>{system ? 'Save the roof system' : 'Add the roof system'}</SubmitButton>
-        {onDone ? (
-          <Button variant="secondary" onClick={onDone}>
-            Cancel
-          </Button>
-        ) : null}
-      </div>
+      <SaveOrCancel submitLabel={system ? 'Save the roof system' : 'Add the roof system'} onCancel={onDone} />
     </Form>
   );
 }
