@@ -47,6 +47,19 @@ export function compareQuotes(lines: RequestLineRow[], quotes: QuoteRow[]): NonN
   };
 }
 
+/** What a quote request is headed by, alike in the list and on its own page: who asked, for which site, for when. */
+function requestHeading(r: QuoteRequestRow) {
+  return {
+    id: r.id,
+    status: r.status,
+    contractor: { id: r.contractor_organisation_id, name: r.contractor_name },
+    project: { id: r.project_id, name: r.site.name },
+    requested_date: r.requested_date,
+    created_at: r.created_at,
+    updated_at: r.updated_at,
+  };
+}
+
 export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, orders: OrdersService) {
   const { db, config } = deps;
   const quotes = quotesRepository(db);
@@ -73,13 +86,9 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     if (!r) throw AppError.notFound('Quote request');
     const [lines, qs] = await Promise.all([quotes.requestLines(id), quotes.quotesOf([id], party)]);
     return {
-      id: r.id,
-      status: r.status,
-      contractor: { id: r.contractor_organisation_id, name: r.contractor_name },
-      project: { id: r.project_id, name: r.site.name },
+      ...requestHeading(r),
       site: r.site,
       estimate_id: r.estimate_id,
-      requested_date: r.requested_date,
       time_window: r.time_window,
       delivery_method: r.delivery_method,
       po_reference: r.po_reference,
@@ -88,8 +97,6 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       quotes: qs.map(({ quote_request_id: _r, merchant_organisation_id: _m, ...q }) => ({ ...q, status_label: QUOTE_STATUS_LABELS[q.status] })),
       comparison: party.kind === 'contractor' ? compareQuotes(lines, qs) : null,
       cautions: orderCautions(r.delivery_method, r.site),
-      created_at: r.created_at,
-      updated_at: r.updated_at,
     };
   }
 
@@ -116,13 +123,7 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       );
       return {
         quote_requests: requests.map((r) => ({
-          id: r.id,
-          status: r.status,
-          contractor: { id: r.contractor_organisation_id, name: r.contractor_name },
-          project: { id: r.project_id, name: r.site.name },
-          requested_date: r.requested_date,
-          created_at: r.created_at,
-          updated_at: r.updated_at,
+          ...requestHeading(r),
           quotes: all.filter((q) => q.quote_request_id === r.id).map((q) => ({ id: q.id, status: q.status, branch: q.branch, total: q.total })),
         })),
         total,
