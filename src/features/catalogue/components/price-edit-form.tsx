@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { moneyEntryExample, moneyEntryText } from '../../../../shared/domain/money';
+import { moneyEntryExample, moneyEntryText } from '../../../../shared/domain/money-entry';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';

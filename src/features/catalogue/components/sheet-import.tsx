@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { moneyEntryExample } from '../../../../shared/domain/money';
+import { moneyEntryExample } from '../../../../shared/domain/money-entry';
 import { MAX_SHEET_BYTES } from '../../../../shared/schemas/price-list.schema';
 import { FieldMessage, Form, describedBy, fieldIds } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { readMoneyEntry } from '../../../../shared/domain/money';
+import { readMoneyEntry } from '../../../../shared/domain/money-entry';
 import { branchPriceBodySchema } from '../../../../shared/schemas/price-list.schema';
 
 /** The price form read into the branch price body: one pack, typed in the configured currency, sent in its minor units. */

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { answerQuoteBodySchema } from '../../../../shared/schemas/order.schema';
 import type { AnswerQuoteBody, QuoteRequest } from '../../../../shared/schemas/order.schema';
-import { readMoneyEntry } from '../../../../shared/domain/money';
+import { readMoneyEntry } from '../../../../shared/domain/money-entry';
 import { ApiError, isApiError } from '../../../lib/api-client';
 
 type RequestLine = QuoteRequest['lines'][number];
