@@ -1,6 +1,11 @@
-import { currencySymbol, minorDigits } from './money';
+import { currencySymbol } from './money';
 
 // Kept apart from the formatter (money.ts), which every page loads: only the pages with a money field load the parser.
+
+/** How many decimals the currency's minor unit has (ISO 4217's exponent, as the formatter reads it): GBP and EUR 2, JPY 0, BHD 3. */
+export function minorDigits(currency: string): number {
+  return new Intl.NumberFormat('en-GB', { style: 'currency', currency: currency.toUpperCase() }).resolvedOptions().maximumFractionDigits ?? 2;
+}
 
 /** The signs an amount typed in the currency may start with: its sign as shown (£, JP¥), its narrow sign (¥) and its code. */
 function entrySigns(currency: string): string[] {

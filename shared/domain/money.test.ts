@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { currencySymbol, formatMoney, minorDigits } from './money';
-import { moneyEntryText, readMoneyEntry } from './money-entry';
+import { currencySymbol, formatMoney } from './money';
+import { minorDigits, moneyEntryText, readMoneyEntry } from './money-entry';
 
 // Minor units and symbols per ISO 4217 (the currencies' exponents: GBP 2, EUR 2, JPY 0).
 describe('formatMoney', () => {

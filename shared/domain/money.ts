@@ -1,7 +1,7 @@
 /** The currency money is kept in when nothing configures another (the server's CURRENCY default). */
 export const DEFAULT_CURRENCY = 'GBP';
 
-const formats = new Map<string, { format: Intl.NumberFormat; digits: number; perMajor: number }>();
+const formats = new Map<string, { format: Intl.NumberFormat; perMajor: number }>();
 
 function currencyFormat(currency: string) {
   const code = currency.toUpperCase();
@@ -9,8 +9,7 @@ function currencyFormat(currency: string) {
   if (!entry) {
     const format = new Intl.NumberFormat('en-GB', { style: 'currency', currency: code });
     // Minor units per major unit from the currency's own decimals: 100 pence to the pound, 1 yen to the yen.
-    const digits = format.resolvedOptions().maximumFractionDigits ?? 2;
-    entry = { format, digits, perMajor: 10 ** digits };
+    entry = { format, perMajor: 10 ** (format.resolvedOptions().maximumFractionDigits ?? 2) };
     formats.set(code, entry);
   }
   return entry;
@@ -34,9 +33,4 @@ export function currencySymbol(currency: string): string {
       .format.formatToParts(0)
       .find((p) => p.type === 'currency')?.value ?? currency.toUpperCase()
   );
-}
-
-/** How many decimals the currency's minor unit has (ISO 4217's exponent): GBP and EUR 2, JPY 0, BHD 3. */
-export function minorDigits(currency: string): number {
-  return currencyFormat(currency).digits;
 }

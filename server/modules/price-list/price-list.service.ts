@@ -1,6 +1,5 @@
 import type { z } from 'zod';
-import { minorDigits } from '../../../shared/domain/money';
-import { moneyEntryExample, moneyEntryText } from '../../../shared/domain/money-entry';
+import { minorDigits, moneyEntryExample, moneyEntryText } from '../../../shared/domain/money-entry';
 import { TECHNICAL_SCHEMAS, type ProductCategory, type SystemRole } from '../../../shared/schemas/catalogue.schema';
 import {
   PRICE_LIST_REQUIRED,

@@ -286,18 +286,6 @@ export function SubmitButton({ children, size = 'md', className = '' }: SubmitBu
   );
 }
 
-/** The Search button that ends a list's search bar (typed words search on it or on Enter), with the bar's "clear the filters" link, if any, after it. */
-export function SearchButton({ clear }: { clear?: ReactNode }) {
-  return (
-    <>
-      <Button type="submit" variant="secondary">
-        Search
-      </Button>
-      {clear}
-    </>
-  );
-}
-
 /** A "show password" switch, because typing a long password on a phone with gloves goes wrong. */
 export function ShowPasswordToggle({ shown, onChange }: { shown: boolean; onChange: (shown: boolean) => void }) {
   return (

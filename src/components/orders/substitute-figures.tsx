@@ -1,6 +1,5 @@
 import type { SubstituteFigures as Figures } from '../../../shared/schemas/order.schema';
 import { formatCount, formatMoney } from '../../lib/format';
-import { LinesTable } from '../ui/lines-table';
 
 type Item = Figures['rows'][number]['before'];
 
@@ -36,37 +35,51 @@ export function SubstituteFigures({ figures, caption }: { figures: Figures; capt
           </ul>
         </div>
       ) : null}
-      <LinesTable
-        caption={caption}
-        minWidthClass="min-w-[36rem]"
-        columns={[{ heading: 'Item' }, { heading: 'As ordered' }, { heading: `With ${figures.tile.sku}` }]}
-        foot={
-          <tr className="border-t-2 border-mortar-300 font-semibold">
-            <th scope="row" className="px-3 py-2">
-              Bill
-            </th>
-            <td className="px-3 py-2 tabular-nums">{formatMoney(figures.before_total)}</td>
-            <td className="px-3 py-2 tabular-nums">
-              {formatMoney(figures.after_total)}{' '}
-              <span data-testid="price-difference">
-                ({difference >= 0 ? '+' : '−'}
-                {formatMoney(Math.abs(difference))})
-              </span>
-            </td>
-          </tr>
-        }
-      >
-        {figures.rows.map((r) => (
-          <tr key={r.role} className={`border-t border-mortar-200 align-top ${r.changes ? 'bg-ochre-50' : ''}`}>
-            <th scope="row" className="px-3 py-2 font-medium">
-              {r.label}
-              {r.changes ? <span className="block text-xs font-normal text-ochre-800">changes</span> : null}
-            </th>
-            <td className="px-3 py-2">{cell(r.before)}</td>
-            <td className="px-3 py-2">{cell(r.after)}</td>
-          </tr>
-        ))}
-      </LinesTable>
+      <div className="overflow-x-auto rounded-md border border-mortar-300 bg-white" role="region" aria-label={caption} tabIndex={0}>
+        <table className="w-full min-w-[36rem] border-collapse text-left text-sm">
+          <caption className="sr-only">{caption}</caption>
+          <thead className="bg-mortar-100">
+            <tr>
+              <th scope="col" className="px-3 py-2">
+                Item
+              </th>
+              <th scope="col" className="px-3 py-2">
+                As ordered
+              </th>
+              <th scope="col" className="px-3 py-2">
+                With {figures.tile.sku}
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {figures.rows.map((r) => (
+              <tr key={r.role} className={`border-t border-mortar-200 align-top ${r.changes ? 'bg-ochre-50' : ''}`}>
+                <th scope="row" className="px-3 py-2 font-medium">
+                  {r.label}
+                  {r.changes ? <span className="block text-xs font-normal text-ochre-800">changes</span> : null}
+                </th>
+                <td className="px-3 py-2">{cell(r.before)}</td>
+                <td className="px-3 py-2">{cell(r.after)}</td>
+              </tr>
+            ))}
+          </tbody>
+          <tfoot>
+            <tr className="border-t-2 border-mortar-300 font-semibold">
+              <th scope="row" className="px-3 py-2">
+                Bill
+              </th>
+              <td className="px-3 py-2 tabular-nums">{formatMoney(figures.before_total)}</td>
+              <td className="px-3 py-2 tabular-nums">
+                {formatMoney(figures.after_total)}{' '}
+                <span data-testid="price-difference">
+                  ({difference >= 0 ? '+' : '−'}
+                  {formatMoney(Math.abs(difference))})
+                </span>
+              </td>
+            </tr>
+          </tfoot>
+        </table>
+      </div>
       {figures.not_counted.length > 0 ? (
         <ul className="text-sm text-ink-700">
           {figures.not_counted.map((n) => (

@@ -2,7 +2,8 @@ import type { ReactNode } from 'react';
 import { QUOTE_REQUEST_STATUSES } from '../../../shared/schemas/order.schema';
 import { quoteRequestSearchSchema } from '../../../shared/schemas/list-search.schema';
 import type { QuoteRequestSearch as QuoteRequestSearchValues } from '../../../shared/schemas/list-search.schema';
-import { CheckboxField, Form, SearchButton, SelectField, TextField } from '../form/fields';
+import { CheckboxField, Form, SelectField, TextField } from '../form/fields';
+import { SearchButton } from '../form/search-button';
 import { useListSearchForm } from '../form/use-list-search-form';
 
 type RequestStatus = (typeof QUOTE_REQUEST_STATUSES)[number];

@@ -5,12 +5,12 @@ import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { FieldMessage, Form, SubmitButton } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
-import { LinesTable } from '../../../components/ui/lines-table';
 import { useToast } from '../../../components/ui/toast';
 import { useConfirmOrder } from '../api/confirm-order';
 import { confirmFormSchema, confirmableLines, openPacks, sendField, suggestedSend } from '../lib/confirm-form';
 import { ConflictDetails, isDeskConflict } from './conflict-details';
 import { SlotChoices } from './slot-choices';
+import { LinesTable } from './lines-table';
 
 interface ConfirmOrderFormProps {
   order: OrderDetail;
@@ -50,7 +50,6 @@ export function ConfirmOrderForm({ order, stock }: ConfirmOrderFormProps) {
       {conflict ? <ConflictDetails error={conflict} descriptions={descriptions} /> : null}
       <LinesTable
         caption="Packs to send now per line"
-        regionLabel="Packs to send"
         minWidthClass="min-w-[44rem]"
         columns={[{ heading: 'Item' }, { heading: 'Open', numeric: true }, { heading: 'Free at branch', numeric: true }, { heading: 'Send now' }, { heading: 'Back-order', numeric: true }]}
       >

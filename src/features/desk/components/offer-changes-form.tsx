@@ -5,7 +5,6 @@ import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import type { SchemaForm } from '../../../components/form/use-schema-form';
-import { LinesTable } from '../../../components/ui/lines-table';
 import { useToast } from '../../../components/ui/toast';
 import { formatCount, formatMoney } from '../../../lib/format';
 import { useOfferChanges } from '../api/offer-changes';
@@ -13,6 +12,7 @@ import { confirmableLines, openPacks } from '../lib/confirm-form';
 import { offerField, offerFormSchema } from '../lib/offer-form';
 import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { useSubstitutes } from '../api/get-substitutes';
+import { LinesTable } from './lines-table';
 
 const cell = 'block min-h-tap w-20 rounded-md border border-ink-300 bg-white px-2 text-right tabular-nums aria-[invalid=true]:border-brick-600';
 

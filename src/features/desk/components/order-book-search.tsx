@@ -3,7 +3,8 @@ import type { ReactNode } from 'react';
 import { ORDER_DATE_FIELDS, ORDER_STATUSES, ORDER_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
 import { ORDER_BOOK_PAGE_SIZES, orderBookSearchSchema } from '../../../../shared/schemas/list-search.schema';
 import type { OrderBookSearch as OrderBookSearchValues } from '../../../../shared/schemas/list-search.schema';
-import { Form, SearchButton, SelectField, TextField } from '../../../components/form/fields';
+import { Form, SelectField, TextField } from '../../../components/form/fields';
+import { SearchButton } from '../../../components/form/search-button';
 import { useListSearchForm } from '../../../components/form/use-list-search-form';
 
 /** Stage choices of the filter: the desk's to-do first, then each stage alone. */

@@ -2,7 +2,8 @@ import type { ReactNode } from 'react';
 import { ORDER_STATUSES, ORDER_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
 import { orderSearchSchema } from '../../../../shared/schemas/list-search.schema';
 import type { OrderSearch as OrderSearchValues } from '../../../../shared/schemas/list-search.schema';
-import { Form, SearchButton, SelectField, TextField } from '../../../components/form/fields';
+import { Form, SelectField, TextField } from '../../../components/form/fields';
+import { SearchButton } from '../../../components/form/search-button';
 import { useListSearchForm } from '../../../components/form/use-list-search-form';
 
 const STAGE_OPTIONS = [{ value: '', label: 'Every stage' }, ...ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))];
