@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import type { ProductCategory, SystemRole, SystemSettings } from '../shared/schemas/catalogue.schema';
+import type { ProductFigures } from '../server/modules/catalogue/catalogue.repository';
+import type { SystemRole, SystemSettings } from '../shared/schemas/catalogue.schema';
 
 /**
  * The demo merchants' catalogues: invented products (no maker's names or figures), each branch's
@@ -8,15 +9,7 @@ import type { ProductCategory, SystemRole, SystemSettings } from '../shared/sche
  * typical of their kind and meant for the demo only; a real job follows the tile maker's data.
  */
 
-interface DemoProduct {
-  sku: string;
-  name: string;
-  category: ProductCategory;
-  unit: string;
-  pack_size: number;
-  pack_weight_kg: number;
-  technical: Record<string, unknown>;
-}
+type DemoProduct = ProductFigures;
 
 interface DemoSystem {
   name: string;

@@ -1,5 +1,6 @@
 import { BusinessCalendar, DEFAULT_BUSINESS_TIME_ZONE, addDays, isWorkingDay } from '../shared/domain/business-calendar';
 import type { Knex } from 'knex';
+import type { LorryValues } from '../server/modules/fleet/fleet.repository';
 
 /**
  * The demo merchants' lorries (invented registrations), a calendar of delivery slots for the coming
@@ -9,14 +10,7 @@ import type { Knex } from 'knex';
  * for the demo only: a real lift follows the crane's own load chart and a lift plan.
  */
 
-interface DemoLorry {
-  registration: string;
-  name: string;
-  payload_kg: number;
-  pallet_slots: number;
-  has_crane: boolean;
-  crane_max_kg: number | null;
-}
+type DemoLorry = LorryValues;
 
 export const DEMO_FLEET: { organisation: string; driver: string; branches: { name: string; lorries: DemoLorry[] }[] }[] = [
   {

@@ -1,6 +1,6 @@
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config/env';
-import { createLogger, sourceMappedStack } from './logger';
+import { createLogger } from './logger';
 import { createDb, migrateLatest } from './db/knex';
 import { seedDemoIfEmpty } from './db/seed-runner';
 import { startDevSmtp } from './mail/dev-smtp';
@@ -8,6 +8,7 @@ import { createAppMailWorker } from './mail-worker';
 import { createSmtpMailer } from './mail/mailer';
 import { PAYMENT_WEBHOOK_PATH, startDevPayments } from './payments/dev-payments';
 import type { StripeFake } from './payments/stripe-fake';
+import { exitOnSignal, runMain } from './process-main';
 
 async function main() {
   let config = loadConfig();
@@ -51,20 +52,14 @@ async function main() {
     console.log(`\n  Ridgeload: ${url}\n  Demo sign-in: contractor@demo.test / ridgeload-demo (see README)\n`);
   });
 
-  const stop = async () => {
+  exitOnSignal(async () => {
     server.close();
     await worker?.stop();
     mailer.close();
     await devSmtp?.close();
     await payments?.close();
     await db.destroy();
-    process.exit(0);
-  };
-  process.on('SIGINT', stop);
-  process.on('SIGTERM', stop);
+  });
 }
 
-main().catch((err: unknown) => {
-  console.error(err instanceof ConfigError ? err.message : err instanceof Error && err.stack ? sourceMappedStack(err.stack) : err);
-  process.exit(1);
-});
+runMain(main);

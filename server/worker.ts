@@ -1,8 +1,9 @@
 import { ConfigError, loadConfig } from './config/env';
-import { createLogger, sourceMappedStack } from './logger';
+import { createLogger } from './logger';
 import { createDb } from './db/knex';
 import { createAppMailWorker } from './mail-worker';
 import { createSmtpMailer } from './mail/mailer';
+import { exitOnSignal, runMain } from './process-main';
 
 /**
  * `npm run worker`: sends the mail outbox apart from the web servers (start those with
@@ -24,18 +25,12 @@ async function main() {
   logger.info({ worker: worker.id }, 'mail outbox worker started');
   // The process stays up on the poll; a signal lets the sends in flight finish first.
   const keepAlive = setInterval(() => {}, 60_000);
-  const stop = async () => {
+  exitOnSignal(async () => {
     clearInterval(keepAlive);
     await worker.stop();
     mailer.close();
     await db.destroy();
-    process.exit(0);
-  };
-  process.on('SIGINT', stop);
-  process.on('SIGTERM', stop);
+  });
 }
 
-main().catch((err: unknown) => {
-  console.error(err instanceof ConfigError ? err.message : err instanceof Error && err.stack ? sourceMappedStack(err.stack) : err);
-  process.exit(1);
-});
+runMain(main);

@@ -1,33 +1,12 @@
-import { QueryClientProvider } from '@tanstack/react-query';
-import { render, screen, within } from '@testing-library/react';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it } from 'vitest';
-import type { InvoiceSummary } from '../../shared/schemas/invoice.schema';
-import { ToastProvider } from '../components/ui/toast';
 import { setAppCurrency } from '../lib/format';
-import { createTestQueryClient, stubFetch } from '../test-utils/render-with-providers';
+import { invoiceFixture } from '../test-utils/invoice-fixture';
+import { renderRoutes, stubFetch } from '../test-utils/render-with-providers';
 import { appRoutes } from './router';
 
-const invoice: InvoiceSummary = {
-  id: 41,
-  number: 'INV-000041',
-  status: 'unpaid',
-  status_label: 'Unpaid',
-  order: { id: 7, reference: 'RL-000007' },
-  contractor: { id: 5, name: 'Polwith Roofing' },
-  branch: { id: 1, name: 'Carnbrea Yard', town: 'Carnbrea', merchant: { id: 2, name: 'Carnbrea Tile Supplies' } },
-  currency: 'EUR',
-  issue_date: '2026-12-04',
-  due_date: null,
-  pay_by: 'card',
-  subtotal: 100_000,
-  tax_total: 20_000,
-  total: 120_000,
-  credited: 0,
-  paid: 20_050,
-  balance: 99_950,
-  overdue: false,
-};
+/** An unpaid invoice of 1,200.00 with 200.50 paid, in the currency the server keeps (the list shows it in the session's). */
+const invoice = invoiceFixture({ id: 41, number: 'INV-000041', currency: 'EUR', subtotal: 100_000, tax_total: 20_000, total: 120_000, paid: 20_050, balance: 99_950 });
 
 /** The invoices page of a contractor's estimator, signed in on a server whose CURRENCY is `currency`. */
 function openInvoices(currency: string) {
@@ -46,15 +25,7 @@ function openInvoices(currency: string) {
     'GET /api/dev/outbox': { status: 200, body: { messages: [] } },
     'GET /api/invoices?page=1&page_size=50': { status: 200, body: { invoices: [invoice], total: 1, page: 1, page_size: 50 } },
   });
-  const queryClient = createTestQueryClient();
-  const router = createMemoryRouter(appRoutes(queryClient), { initialEntries: ['/invoices'] });
-  render(
-    <QueryClientProvider client={queryClient}>
-      <ToastProvider>
-        <RouterProvider router={router} />
-      </ToastProvider>
-    </QueryClientProvider>,
-  );
+  renderRoutes(appRoutes, { path: '/invoices' });
 }
 
 const amounts = async () => {

@@ -1,10 +1,7 @@
-import { QueryClientProvider } from '@tanstack/react-query';
-import { fireEvent, render, screen, waitFor } from '@testing-library/react';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { fireEvent, screen, waitFor } from '@testing-library/react';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '../../shared/domain/roles';
-import { ToastProvider } from '../components/ui/toast';
-import { createTestQueryClient, stubFetch } from '../test-utils/render-with-providers';
+import { renderRoutes, stubFetch } from '../test-utils/render-with-providers';
 import type { MockResponse } from '../test-utils/render-with-providers';
 import { orderFixture, stockFixture } from '../test-utils/order-fixture';
 import { PAGES } from './lazy-pages';
@@ -44,15 +41,7 @@ function renderApp(path: string, extra: Record<string, MockResponse | MockRespon
     'GET /api/invitations': { status: 200, body: { invitations: [] } },
     ...extra,
   });
-  const queryClient = createTestQueryClient();
-  const router = createMemoryRouter(appRoutes(queryClient), { initialEntries: [path] });
-  render(
-    <QueryClientProvider client={queryClient}>
-      <ToastProvider>
-        <RouterProvider router={router} />
-      </ToastProvider>
-    </QueryClientProvider>,
-  );
+  const { router } = renderRoutes(appRoutes, { path });
   return { router, fetchMock };
 }
 

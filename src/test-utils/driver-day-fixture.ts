@@ -11,20 +11,25 @@ export function landingSystem(): RoofSystem {
   return parsed.system;
 }
 
-/** Two gable slopes of one house, 9 m of eaves and a 5,091 mm rafter at 40°, between verges under a ridge. */
-const ALDER: Face[] = ['Front', 'Rear'].map((face) => ({
-  building: 'Alder',
-  face,
-  quantity: 1,
-  pitch_deg: 40,
-  rafter_mm: 5091,
-  run_mm: 5091 * Math.cos((40 * Math.PI) / 180),
-  eaves_mm: 9000,
-  top_mm: 9000,
-  left: 'verge',
-  right: 'verge',
-  top: 'ridge',
-}));
+/** A gable slope between verges under a ridge: 9 m of eaves and a 5,091 mm rafter at 40°. */
+export function gableFace(building: string, face: string): Face {
+  return {
+    building,
+    face,
+    quantity: 1,
+    pitch_deg: 40,
+    rafter_mm: 5091,
+    run_mm: 5091 * Math.cos((40 * Math.PI) / 180),
+    eaves_mm: 9000,
+    top_mm: 9000,
+    left: 'verge',
+    right: 'verge',
+    top: 'ridge',
+  };
+}
+
+/** Two gable slopes of one house. */
+const ALDER: Face[] = ['Front', 'Rear'].map((face) => gableFace('Alder', face));
 
 /** Each Alder face as the driver's day carries it: its shape and the engine's own figures for it. */
 export function landingDrawings(system = landingSystem()): LandingFaceDrawing[] {

@@ -1,4 +1,4 @@
-import type { OrderDetail } from '../../shared/schemas/order.schema';
+import type { OrderDetail, OrderSite } from '../../shared/schemas/order.schema';
 import type { StockItem } from '../../shared/schemas/stock.schema';
 import { lineAmounts, orderAmounts } from '../../shared/domain/order-amounts';
 
@@ -25,6 +25,20 @@ export const fixtureLine = (id: number, product_id: number, sku: string, descrip
   ...lineAmounts({ quantity, confirmed_quantity: null, back_order_quantity: 0, delivered_quantity: null, unit_price: 30_720 }, 'sent'),
 });
 
+/** The invented site the order and quote fixtures go to. */
+export const fixtureSite: OrderSite = {
+  name: 'Hollin Brow, plots 1–20',
+  site_address: 'Hollin Brow, Tollerbeck',
+  site_postcode: '',
+  contact_name: 'Gethin Marlow',
+  contact_phone: '07700 900 001',
+  vehicle_access: 'rigid_only',
+  crane_lift: 'allowed',
+  overhead_lines: 'none',
+  set_down_place: 'Hardstanding by the cabin',
+  access_notes: '',
+};
+
 /** An invented order for component tests: two lines at Tollerbeck Yard, waiting for the desk. */
 export function orderFixture(overrides: Partial<OrderDetail> = {}): OrderDetail {
   const line = fixtureLine;
@@ -48,18 +62,7 @@ export function orderFixture(overrides: Partial<OrderDetail> = {}): OrderDetail 
     estimate_id: 4,
     quote_id: null,
     notes: '',
-    site: {
-      name: 'Hollin Brow, plots 1–20',
-      site_address: 'Hollin Brow, Tollerbeck',
-      site_postcode: '',
-      contact_name: 'Gethin Marlow',
-      contact_phone: '07700 900 001',
-      vehicle_access: 'rigid_only',
-      crane_lift: 'allowed',
-      overhead_lines: 'none',
-      set_down_place: 'Hardstanding by the cabin',
-      access_notes: '',
-    },
+    site: fixtureSite,
     lines: [line(101, 11, 'TRS-FL420-SG', 'Interlocking tile, slate grey', 10), line(102, 12, 'TRS-RHR-SG', 'Half-round ridge', 5)],
     proposals: [],
     timeline: [],

@@ -1,3 +1,4 @@
+import { screen, within } from '@testing-library/react';
 import { vi } from 'vitest';
 import type { QuoteRequestList } from '../../shared/schemas/order.schema';
 
@@ -37,3 +38,29 @@ export function stubQuoteRequestListApi(rows: QuoteRequestRow[], total: number):
   );
   return queries;
 }
+
+/** What either side's quote-request list shows and asks for, read off the screen the same way on both. */
+export const quoteRequestListScreen = {
+  /** A query string sent to the server, as an object. */
+  sent: (q: URLSearchParams | undefined) => Object.fromEntries(q?.entries() ?? []),
+  /** The column header whose name starts with `name`. */
+  header: (name: string) => screen.getByRole('columnheader', { name: new RegExp(`^${name}`) }),
+  /** The list's address (its filters), as an object. */
+  addressOf: (router: { state: { location: { search: string } } }) => Object.fromEntries(new URLSearchParams(router.state.location.search).entries()),
+  /** The first cell of each row, in the order shown. */
+  requestLinks: () =>
+    within(screen.getByRole('table', { name: 'Quote requests' }))
+      .getAllByRole('row')
+      .slice(1)
+      .map((r) => within(r).getAllByRole('cell')[0].textContent),
+  /** The table's column headers, in order. */
+  headers: () =>
+    within(screen.getByRole('table', { name: 'Quote requests' }))
+      .getAllByRole('columnheader')
+      .map((h) => h.textContent),
+  /** The headers that sort (a button each), in order. */
+  sortButtons: () =>
+    within(screen.getByRole('table', { name: 'Quote requests' }))
+      .getAllByRole('button')
+      .map((b) => b.textContent),
+};

@@ -19,9 +19,12 @@ interface RenderOptions {
   queryClient?: QueryClient;
 }
 
-/** Renders `ui` at `path` inside the app's providers and a memory router. */
-export function renderWithProviders(ui: ReactElement, { path = '/', routes = [], queryClient = createTestQueryClient() }: RenderOptions = {}) {
-  const router = createMemoryRouter([{ path: '*', element: ui }, ...routes], { initialEntries: [path] });
+/**
+ * Renders a memory router at `path` inside the app's providers. `routes` may be a function of the
+ * query client, as the app's own route table is (`appRoutes`), so its loaders share the test's client.
+ */
+export function renderRoutes(routes: RouteObject[] | ((queryClient: QueryClient) => RouteObject[]), { path = '/', queryClient = createTestQueryClient() }: { path?: string; queryClient?: QueryClient } = {}) {
+  const router = createMemoryRouter(typeof routes === 'function' ? routes(queryClient) : routes, { initialEntries: [path] });
   const result = render(
     <QueryClientProvider client={queryClient}>
       <ToastProvider>
@@ -30,6 +33,11 @@ export function renderWithProviders(ui: ReactElement, { path = '/', routes = [],
     </QueryClientProvider>,
   );
   return { ...result, router, queryClient };
+}
+
+/** Renders `ui` at `path` inside the app's providers and a memory router. */
+export function renderWithProviders(ui: ReactElement, { path = '/', routes = [], queryClient }: RenderOptions = {}) {
+  return renderRoutes([{ path: '*', element: ui }, ...routes], { path, queryClient });
 }
 
 export interface MockResponse {

@@ -1,17 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD } from '../../seeds/01-demo';
+import { homePathForRole } from '../../src/app/home-path';
 import { expectAccessible, useJourney } from './harness';
 
 const journey = useJourney();
-
-const HOMES: Record<string, string> = {
-  contractor_owner: '/contractor',
-  contractor_estimator: '/contractor',
-  merchant_owner: '/desk',
-  merchant_sales: '/desk',
-  merchant_dispatcher: '/yard',
-  driver: '/driver',
-};
 
 const README_ACCOUNTS = ['contractor@demo.test', 'estimator@demo.test', 'contractor2@demo.test', 'merchant@demo.test', 'sales@demo.test', 'dispatch@demo.test', 'driver@demo.test', 'merchant2@demo.test'];
 
@@ -31,7 +23,7 @@ describe('each demo person signs in and lands on their role’s home', () => {
         await page.getByLabel('E-mail', { exact: true }).fill(email);
         await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
         await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-        await page.waitForURL(new RegExp(`${HOMES[person!.role]}$`));
+        await page.waitForURL(new RegExp(`${homePathForRole(person!.role)}$`));
         const home = page.getByTestId(`role-home-${person!.role}`);
         await home.waitFor();
         expect(await page.locator('body').innerText()).toContain(person!.firm);

@@ -1,9 +1,8 @@
 import type { ProductCategory, SystemRole } from '../../../shared/schemas/catalogue.schema';
 import type { Db } from '../../db/knex';
 
-export interface ProductRow {
-  id: number;
-  organisation_id: number;
+/** What a product is and how it packs: the fields a merchant (or the demo seed) writes and the engine reads. */
+export interface ProductFigures {
   sku: string;
   name: string;
   category: ProductCategory;
@@ -11,6 +10,11 @@ export interface ProductRow {
   pack_size: number;
   pack_weight_kg: number;
   technical: Record<string, unknown>;
+}
+
+export interface ProductRow extends ProductFigures {
+  id: number;
+  organisation_id: number;
 }
 
 /** A product as one branch sells it: price per pack and stock in packs. */
@@ -50,10 +54,9 @@ export interface CatalogueViewer {
 
 const PRODUCT_COLUMNS = ['p.id', 'p.organisation_id', 'p.sku', 'p.name', 'p.category', 'p.unit', 'p.pack_size', 'p.pack_weight_kg', 'p.technical'];
 
-function toProduct(r: Record<string, unknown>): ProductRow {
+/** A `products` row's figures, whichever database read it: the weight as a number, the technical fields parsed from their JSON text. */
+export function productFigures(r: Record<string, unknown>): ProductFigures {
   return {
-    id: r.id as number,
-    organisation_id: r.organisation_id as number,
     sku: r.sku as string,
     name: r.name as string,
     category: r.category as ProductCategory,
@@ -62,6 +65,10 @@ function toProduct(r: Record<string, unknown>): ProductRow {
     pack_weight_kg: Number(r.pack_weight_kg),
     technical: JSON.parse(r.technical as string) as Record<string, unknown>,
   };
+}
+
+function toProduct(r: Record<string, unknown>): ProductRow {
+  return { id: r.id as number, organisation_id: r.organisation_id as number, ...productFigures(r) };
 }
 
 export function catalogueRepository(db: Db) {

@@ -1,6 +1,7 @@
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 import type { ProofFile } from './proof-files';
+import type { TaxedLineFigures } from '../invoices/invoices.repository';
 
 export interface ProofRow {
   id: number;
@@ -25,18 +26,12 @@ export interface ProofLineRow {
   damaged: number;
 }
 
-export interface DraftLine {
+export interface DraftLine extends TaxedLineFigures {
   order_line_id: number;
   sku: string;
   description: string;
   short: number;
   damaged: number;
-  quantity: number;
-  unit_price: number;
-  tax_rate_bp: number;
-  net: number;
-  tax: number;
-  total: number;
 }
 
 export interface DraftRow {

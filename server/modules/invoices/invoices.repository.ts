@@ -34,7 +34,17 @@ export interface InvoiceRow {
   created_at: string;
 }
 
-export interface InvoiceLineRow {
+/** The money of a line charged or credited: packs at the pack price, and the tax on them (minor units). */
+export interface TaxedLineFigures {
+  quantity: number;
+  unit_price: number;
+  tax_rate_bp: number;
+  net: number;
+  tax: number;
+  total: number;
+}
+
+export interface InvoiceLineRow extends TaxedLineFigures {
   id: number;
   invoice_id: number;
   position: number;
@@ -43,12 +53,6 @@ export interface InvoiceLineRow {
   description: string;
   unit: string;
   pack_size: number;
-  quantity: number;
-  unit_price: number;
-  tax_rate_bp: number;
-  net: number;
-  tax: number;
-  total: number;
 }
 
 export type NewInvoiceLine = Omit<InvoiceLineRow, 'id' | 'invoice_id'>;

@@ -8,7 +8,8 @@ import type { Db } from '../../db/knex';
 import type { BranchProductRow } from '../catalogue/catalogue.repository';
 import { billOfMaterials, packsFor, type BillLine, type PricedComponent } from '../estimates/bill-of-materials';
 import { estimatesRepository } from '../estimates/estimates.repository';
-import { engineFace, schedulesRepository } from '../schedules/schedules.repository';
+import { engineFace } from '../../../shared/domain/stored-schedule';
+import { schedulesRepository } from '../schedules/schedules.repository';
 import type { OrderRow, StoredOrderLine } from './orders.repository';
 
 const isRole = (c: string): c is SystemRole => (SYSTEM_ROLES as readonly string[]).includes(c);

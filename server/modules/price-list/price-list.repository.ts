@@ -1,17 +1,11 @@
 import type { ProductCategory, SystemRole } from '../../../shared/schemas/catalogue.schema';
 import type { Product } from '../../../shared/schemas/price-list.schema';
 import type { Db } from '../../db/knex';
+import { productFigures, type ProductFigures } from '../catalogue/catalogue.repository';
 import { nowIso } from '../../db/time';
 
-export interface ProductValues {
-  sku: string;
-  name: string;
-  category: ProductCategory;
-  unit: string;
-  pack_size: number;
-  pack_weight_kg: number;
+export interface ProductValues extends ProductFigures {
   tax_rate_bp: number;
-  technical: Record<string, unknown>;
   /** The pallet's footprint; the column's default (1200 × 1000) when left out. */
   pallet_length_mm?: number;
   pallet_width_mm?: number;
@@ -46,14 +40,8 @@ export function priceListRepository(db: Db) {
       .orderBy(['b.name', 'b.id']);
     return rows.map((r) => ({
       id: r.id as number,
-      sku: r.sku as string,
-      name: r.name as string,
-      category: r.category as ProductCategory,
-      unit: r.unit as string,
-      pack_size: r.pack_size as number,
-      pack_weight_kg: Number(r.pack_weight_kg),
+      ...productFigures(r),
       tax_rate_bp: r.tax_rate_bp as number,
-      technical: JSON.parse(r.technical as string) as Record<string, unknown>,
       pallet_length_mm: Number(r.pallet_length_mm),
       pallet_width_mm: Number(r.pallet_width_mm),
       branches: prices

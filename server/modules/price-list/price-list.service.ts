@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { minorDigits, moneyEntryExample, moneyEntryText } from '../../../shared/domain/money-entry';
 import { TECHNICAL_SCHEMAS, type ProductCategory, type SystemRole } from '../../../shared/schemas/catalogue.schema';
 import {
   PRICE_LIST_REQUIRED,
@@ -24,27 +25,36 @@ type UpdateSystemBody = z.output<typeof updateRoofSystemBodySchema>;
 
 const invalid = (details: { path: string; message: string }[]) => AppError.unprocessable('validation_failed', 'Some fields are not valid', details);
 
-/** Minor units as the file shows them: 1280 → "12.80". */
-export const majorText = (minor: number) => (minor / 100).toFixed(2);
 /** Basis points as a percentage: 2000 → 20, 500 → 5, 1750 → 17.5. */
 const percent = (bp: number) => bp / 100;
 
-export const PRICE_LIST_FILE_COLUMNS: SheetColumn<PriceListRow>[] = [
-  { header: 'sku', width: 18, value: (r) => r.sku },
-  { header: 'name', width: 50, value: (r) => r.name },
-  { header: 'category', width: 12, value: (r) => r.category },
-  { header: 'unit', width: 8, value: (r) => r.unit },
-  { header: 'pack_size', width: 10, numFmt: '0', value: (r) => r.pack_size },
-  { header: 'pack_weight_kg', width: 14, numFmt: '0.00', value: (r) => r.pack_weight_kg },
-  { header: 'tax_rate', width: 9, numFmt: '0.##', value: (r) => percent(r.tax_rate_bp) },
-  { header: 'price', width: 10, numFmt: '0.00', value: (r) => r.pack_price / 100 },
-];
+/**
+ * A price list file's columns, the price of one pack in major units of the configured currency with its
+ * decimals (12.80 in pounds, 1280 in yen, 12.800 in dinars). The CSV keeps the decimals as text, the
+ * workbook a number formatted with them.
+ */
+export function priceListFileColumns(currency: string): { xlsx: SheetColumn<PriceListRow>[]; csv: SheetColumn<PriceListRow>[] } {
+  const digits = minorDigits(currency);
+  const common: SheetColumn<PriceListRow>[] = [
+    { header: 'sku', width: 18, value: (r) => r.sku },
+    { header: 'name', width: 50, value: (r) => r.name },
+    { header: 'category', width: 12, value: (r) => r.category },
+    { header: 'unit', width: 8, value: (r) => r.unit },
+    { header: 'pack_size', width: 10, numFmt: '0', value: (r) => r.pack_size },
+    { header: 'pack_weight_kg', width: 14, numFmt: '0.00', value: (r) => r.pack_weight_kg },
+    { header: 'tax_rate', width: 9, numFmt: '0.##', value: (r) => percent(r.tax_rate_bp) },
+  ];
+  const numFmt = digits === 0 ? '0' : `0.${'0'.repeat(digits)}`;
+  return {
+    xlsx: [...common, { header: 'price', width: 10, numFmt, value: (r) => r.pack_price / 10 ** digits }],
+    csv: [...common, { header: 'price', width: 10, value: (r) => moneyEntryText(r.pack_price, currency) }],
+  };
+}
 
-/** The CSV keeps two decimals as text (12.80), the workbook a number formatted 0.00. */
-const CSV_COLUMNS: SheetColumn<PriceListRow>[] = PRICE_LIST_FILE_COLUMNS.map((c) => (c.header === 'price' ? { ...c, value: (r: PriceListRow) => majorText(r.pack_price) } : c));
-
-export function priceListService({ db }: Pick<AppDeps, 'db'>) {
+export function priceListService({ db, config }: Pick<AppDeps, 'db' | 'config'>) {
   const repo = priceListRepository(db);
+  const fileColumns = priceListFileColumns(config.currency);
+  const priceDigits = minorDigits(config.currency);
   const catalogue = catalogueRepository(db);
 
   async function branchOf(user: AuthUser, branchId: number) {
@@ -165,7 +175,7 @@ export function priceListService({ db }: Pick<AppDeps, 'db'>) {
       const branch = await branchOf(user, branchId);
       const rows = await repo.priceList(user.organisation.id, branchId);
       const name = `price-list-${branch.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}`;
-      return format === 'xlsx' ? { filename: `${name}.xlsx`, body: await toXlsx('Price list', PRICE_LIST_FILE_COLUMNS, rows) } : { filename: `${name}.csv`, body: toCsv(CSV_COLUMNS, rows) };
+      return format === 'xlsx' ? { filename: `${name}.xlsx`, body: await toXlsx('Price list', fileColumns.xlsx, rows) } : { filename: `${name}.csv`, body: toCsv(fileColumns.csv, rows) };
     },
 
     /**
@@ -187,7 +197,7 @@ export function priceListService({ db }: Pick<AppDeps, 'db'>) {
       for (const r of sheet.rows) {
         const before = problems.length;
         const sku = textCell(r, 'sku', problems);
-        const price = numberCell(r, 'price', problems, { decimals: 2, max: 1_000_000 });
+        const price = numberCell(r, 'price', problems, { decimals: priceDigits, max: 1_000_000, example: moneyEntryExample(config.currency) });
         const tax = hasTax ? numberCell(r, 'tax_rate', problems, { decimals: 2, required: false, max: 100 }) : null;
         let productId: number | undefined;
         if (sku !== null) {
@@ -200,7 +210,7 @@ export function priceListService({ db }: Pick<AppDeps, 'db'>) {
           else seen.set(sku.toLowerCase(), r.row);
         }
         if (problems.length === before && productId !== undefined && price !== null) {
-          changes.push({ productId, price: Math.round(price * 100), taxBp: tax === null ? null : Math.round(tax * 100) });
+          changes.push({ productId, price: Math.round(price * 10 ** priceDigits), taxBp: tax === null ? null : Math.round(tax * 100) });
         }
       }
       if (problems.length > 0) throw invalidSheet(problems);

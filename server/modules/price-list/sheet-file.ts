@@ -147,7 +147,12 @@ export function textCell(r: SheetRow, column: string, problems: SheetProblem[], 
  * A number cell with at most `decimals` decimal places, never negative: numbers as spreadsheets
  * write them (12.8, "12.80", "1,234.50"). Text, formulas and negative values are refused by name.
  */
-export function numberCell(r: SheetRow, column: string, problems: SheetProblem[], opts: { decimals: number; required?: boolean; max?: number }): number | null {
+export function numberCell(
+  r: SheetRow,
+  column: string,
+  problems: SheetProblem[],
+  opts: { decimals: number; required?: boolean; max?: number; /** How the number is written, for the message when it is not one. */ example?: string },
+): number | null {
   const v = r.cells[column];
   if (r.formulas.has(column)) {
     problems.push({ row: r.row, column, message: 'holds a spreadsheet formula: paste the value itself' });
@@ -164,7 +169,7 @@ export function numberCell(r: SheetRow, column: string, problems: SheetProblem[]
     const s = v.trim();
     if (!/^-?(\d+|\d{1,3}(,\d{3})+)(\.\d+)?$/.test(s)) {
       const what = FORMULA_LIKE.test(s) ? 'is a formula, not a number' : 'is not a number';
-      problems.push({ row: r.row, column, message: `"${s.slice(0, 40)}" ${what}${opts.decimals === 2 ? ' (write it like 12.80)' : ''}` });
+      problems.push({ row: r.row, column, message: `"${s.slice(0, 40)}" ${what}${opts.example ? ` (write it like ${opts.example})` : opts.decimals === 2 ? ' (write it like 12.80)' : ''}` });
       return null;
     }
     n = Number(s.replace(/,/g, ''));

@@ -7,6 +7,13 @@ import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
 import type { OrderParty } from '../orders/orders.repository';
 
+type QuoteLineFigures = Omit<Quote['lines'][number], 'request_line_id'>;
+
+/** A quote line's product, packs and price: the same columns in the `quote_lines` row as in the API's line, read or written. */
+function quoteLineFigures(l: QuoteLineFigures): QuoteLineFigures {
+  return { product_id: l.product_id, sku: l.sku, description: l.description, unit: l.unit, pack_size: l.pack_size, packs: l.packs, unit_price: l.unit_price, total: l.total, note: l.note };
+}
+
 type RequestListFilter = z.output<typeof quoteRequestListQuerySchema>;
 
 type RequestStatus = (typeof QUOTE_REQUEST_STATUSES)[number];
@@ -107,15 +114,7 @@ export function quotesRepository(db: Db) {
         .filter((l) => l.quote_id === r.id)
         .map((l) => ({
           request_line_id: l.quote_request_line_id,
-          product_id: l.product_id,
-          sku: l.sku,
-          description: l.description,
-          unit: l.unit,
-          pack_size: l.pack_size,
-          packs: l.packs,
-          unit_price: l.unit_price,
-          total: l.total,
-          note: l.note,
+          ...quoteLineFigures(l),
         })),
     }));
   }
@@ -204,15 +203,7 @@ export function quotesRepository(db: Db) {
         lines.map((l) => ({
           quote_id: quoteId,
           quote_request_line_id: l.request_line_id,
-          product_id: l.product_id,
-          sku: l.sku,
-          description: l.description,
-          unit: l.unit,
-          pack_size: l.pack_size,
-          packs: l.packs,
-          unit_price: l.unit_price,
-          total: l.total,
-          note: l.note,
+          ...quoteLineFigures(l),
         })),
       );
       return true;

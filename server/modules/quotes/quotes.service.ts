@@ -14,6 +14,7 @@ import { orderCautions } from '../estimates/cautions';
 import { estimatesRepository } from '../estimates/estimates.repository';
 import { ordersRepository } from '../orders/orders.repository';
 import { partyOf, type OrdersService } from '../orders/orders.service';
+import { orderSiteOf } from '../projects/order-site';
 import { projectsService } from '../projects/projects.service';
 import { quotesRepository, type QuoteRequestRow, type QuoteRow, type RequestLineRow } from './quotes.repository';
 
@@ -46,6 +47,19 @@ export function compareQuotes(lines: RequestLineRow[], quotes: QuoteRow[]): NonN
   };
 }
 
+/** What a quote request is headed by, alike in the list and on its own page: who asked, for which site, for when. */
+function requestHeading(r: QuoteRequestRow) {
+  return {
+    id: r.id,
+    status: r.status,
+    contractor: { id: r.contractor_organisation_id, name: r.contractor_name },
+    project: { id: r.project_id, name: r.site.name },
+    requested_date: r.requested_date,
+    created_at: r.created_at,
+    updated_at: r.updated_at,
+  };
+}
+
 export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | 'config'>, orders: OrdersService) {
   const { db, config } = deps;
   const quotes = quotesRepository(db);
@@ -72,13 +86,9 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
     if (!r) throw AppError.notFound('Quote request');
     const [lines, qs] = await Promise.all([quotes.requestLines(id), quotes.quotesOf([id], party)]);
     return {
-      id: r.id,
-      status: r.status,
-      contractor: { id: r.contractor_organisation_id, name: r.contractor_name },
-      project: { id: r.project_id, name: r.site.name },
+      ...requestHeading(r),
       site: r.site,
       estimate_id: r.estimate_id,
-      requested_date: r.requested_date,
       time_window: r.time_window,
       delivery_method: r.delivery_method,
       po_reference: r.po_reference,
@@ -87,8 +97,6 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       quotes: qs.map(({ quote_request_id: _r, merchant_organisation_id: _m, ...q }) => ({ ...q, status_label: QUOTE_STATUS_LABELS[q.status] })),
       comparison: party.kind === 'contractor' ? compareQuotes(lines, qs) : null,
       cautions: orderCautions(r.delivery_method, r.site),
-      created_at: r.created_at,
-      updated_at: r.updated_at,
     };
   }
 
@@ -115,13 +123,7 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       );
       return {
         quote_requests: requests.map((r) => ({
-          id: r.id,
-          status: r.status,
-          contractor: { id: r.contractor_organisation_id, name: r.contractor_name },
-          project: { id: r.project_id, name: r.site.name },
-          requested_date: r.requested_date,
-          created_at: r.created_at,
-          updated_at: r.updated_at,
+          ...requestHeading(r),
           quotes: all.filter((q) => q.quote_request_id === r.id).map((q) => ({ id: q.id, status: q.status, branch: q.branch, total: q.total })),
         })),
         total,
@@ -146,18 +148,7 @@ export function quotesService(deps: Pick<AppDeps, 'db' | 'mailer' | 'logger' | '
       }
       const lines = (await estimates.lines(estimate.id)).map((l) => ({ category: l.category, description: l.description, quantity: l.quantity, unit: l.unit }));
       if (lines.length === 0) throw invalid('estimate_id', 'this estimate has nothing to price');
-      const site = {
-        name: p.name,
-        site_address: p.site_address,
-        site_postcode: p.site_postcode,
-        contact_name: p.contact_name,
-        contact_phone: p.contact_phone,
-        vehicle_access: p.vehicle_access,
-        crane_lift: p.crane_lift,
-        overhead_lines: p.overhead_lines,
-        set_down_place: p.set_down_place,
-        access_notes: p.access_notes,
-      };
+      const site = orderSiteOf(p);
       const id = await db.transaction(async (trx) => {
         const requestId = await quotes.insertRequest(
           trx,

@@ -2,7 +2,7 @@ import type { Pallet } from '../../../shared/engine/delivery';
 import type { OrderSite, OrderStatus } from '../../../shared/schemas/order.schema';
 import type { Db } from '../../db/knex';
 import { nowIso } from '../../db/time';
-import type { SlotRow } from '../slots/slots.repository';
+import { SLOT_WITH_LORRY_COLUMNS, slotFigures, slotsWithLorry, type SlotRow } from '../slots/slots.repository';
 
 /** A delivery slot read as a run: the slot, its lorry (with its deck) and driver, and whether it has been sent out. */
 export interface RunRow extends Omit<SlotRow, 'lorry_archived_at'> {
@@ -41,34 +41,13 @@ export interface PickRow {
   category: string;
 }
 
-const RUN_COLUMNS = [
-  's.id',
-  's.organisation_id',
-  's.branch_id',
-  's.lorry_id',
-  's.date',
-  's.time_window',
-  's.driver_user_id',
-  'u.name as driver_name',
-  's.booked_kg',
-  's.booked_pallets',
-  's.sent_out_at',
-  's.send_out_override',
-  'l.registration',
-  'l.name as lorry_name',
-  'l.payload_kg',
-  'l.pallet_slots',
-  'l.has_crane',
-  'l.crane_max_kg',
-  'l.deck_length_mm',
-  'l.deck_width_mm',
-];
+const RUN_COLUMNS = [...SLOT_WITH_LORRY_COLUMNS, 's.sent_out_at', 's.send_out_override', 'l.deck_length_mm', 'l.deck_width_mm'];
 
-const toRun = (r: Record<string, unknown>): RunRow => ({ ...(r as unknown as RunRow), booked_kg: Number(r.booked_kg), has_crane: Boolean(r.has_crane) });
+const toRun = (r: Record<string, unknown>): RunRow => slotFigures<RunRow>(r);
 
 /** Runs of a merchant: every query is scoped to the merchant's organisation. */
 export function runsRepository(db: Db) {
-  const runs = (trx: Db, orgId: number) => trx('delivery_slots as s').join('lorries as l', 'l.id', 's.lorry_id').leftJoin('users as u', 'u.id', 's.driver_user_id').where('s.organisation_id', orgId).select(RUN_COLUMNS);
+  const runs = (trx: Db, orgId: number) => slotsWithLorry(trx, orgId, RUN_COLUMNS);
 
   return {
     async find(orgId: number, id: number, trx: Db = db): Promise<RunRow | undefined> {

@@ -57,32 +57,6 @@ function toOpening(r: Record<string, unknown>): StoredOpening {
   };
 }
 
-/** A stored face as the engine reads it. */
-export function engineFace(f: StoredFace): Face {
-  const { building, face, quantity, pitch_deg, rafter_mm, run_mm, eaves_mm, top_mm, left, right, top } = f;
-  return {
-    building,
-    face,
-    quantity,
-    pitch_deg,
-    rafter_mm,
-    run_mm,
-    eaves_mm,
-    top_mm,
-    left,
-    right,
-    top,
-    ...(f.ridge === null ? {} : { ridge: f.ridge }),
-    ...(f.top_assumed ? { top_assumed: true } : {}),
-  };
-}
-
-/** A stored opening as the engine reads it. */
-export function engineOpening(o: StoredOpening): Opening {
-  const { building, face, kind, width_mm, height_mm, quantity } = o;
-  return { building, face, kind, width_mm, height_mm, quantity };
-}
-
 export function schedulesRepository(db: Db) {
   const versions = (trx: Db) => trx('schedules as s').leftJoin('users as u', 'u.id', 's.created_by');
 

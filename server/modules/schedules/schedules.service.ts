@@ -9,7 +9,8 @@ import type { AuthUser } from '../../auth/auth-user';
 import { CONTROL_CHARACTER_MESSAGE, linesWithControlCharacters } from '../../http/control-text';
 import { AppError } from '../../http/app-error';
 import { projectsService } from '../projects/projects.service';
-import { engineFace, engineOpening, schedulesRepository } from './schedules.repository';
+import { engineFace, engineOpening } from '../../../shared/domain/stored-schedule';
+import { schedulesRepository } from './schedules.repository';
 
 /** The one error a rejected schedule gives, whether it came as a file or as JSON. */
 export function invalidSchedule(problems: ScheduleProblem[]): AppError {

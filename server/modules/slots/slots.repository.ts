@@ -45,7 +45,8 @@ export interface BookingRow {
   recorded_by_name: string | null;
 }
 
-const SLOT_COLUMNS = [
+/** A slot with its lorry and driver: the columns the delivery calendar and the runs both read. */
+export const SLOT_WITH_LORRY_COLUMNS = [
   's.id',
   's.organisation_id',
   's.branch_id',
@@ -61,11 +62,22 @@ const SLOT_COLUMNS = [
   'l.pallet_slots',
   'l.has_crane',
   'l.crane_max_kg',
-  'l.archived_at as lorry_archived_at',
   'u.name as driver_name',
 ];
 
-const toSlotRow = (r: Record<string, unknown>): SlotRow => ({ ...(r as unknown as SlotRow), booked_kg: Number(r.booked_kg), has_crane: Boolean(r.has_crane) });
+const SLOT_COLUMNS = [...SLOT_WITH_LORRY_COLUMNS, 'l.archived_at as lorry_archived_at'];
+
+/** One merchant's slots joined to their lorry and driver, reading the columns given. */
+export function slotsWithLorry(trx: Db, orgId: number, columns: readonly string[]) {
+  return trx('delivery_slots as s').join('lorries as l', 'l.id', 's.lorry_id').leftJoin('users as u', 'u.id', 's.driver_user_id').where('s.organisation_id', orgId).select(columns);
+}
+
+/** A slot row with its weight as a number and the crane as a flag, whichever database handed it back. */
+export function slotFigures<T extends Pick<SlotRow, 'booked_kg' | 'has_crane'>>(r: Record<string, unknown>): T {
+  return { ...(r as unknown as T), booked_kg: Number(r.booked_kg), has_crane: Boolean(r.has_crane) };
+}
+
+const toSlotRow = (r: Record<string, unknown>): SlotRow => slotFigures<SlotRow>(r);
 
 const toBooking = (r: Record<string, unknown>): BookingRow => ({
   ...(r as unknown as BookingRow),
@@ -76,7 +88,7 @@ const toBooking = (r: Record<string, unknown>): BookingRow => ({
 
 /** The delivery calendar of a merchant; every query is scoped to the merchant. */
 export function slotsRepository(db: Db) {
-  const slots = (trx: Db, orgId: number) => trx('delivery_slots as s').join('lorries as l', 'l.id', 's.lorry_id').leftJoin('users as u', 'u.id', 's.driver_user_id').where('s.organisation_id', orgId).select(SLOT_COLUMNS);
+  const slots = (trx: Db, orgId: number) => slotsWithLorry(trx, orgId, SLOT_COLUMNS);
 
   return {
     async find(orgId: number, id: number, trx: Db = db): Promise<SlotRow | undefined> {

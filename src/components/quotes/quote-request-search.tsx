@@ -3,8 +3,8 @@ import { QUOTE_REQUEST_STATUSES } from '../../../shared/schemas/order.schema';
 import { quoteRequestSearchSchema } from '../../../shared/schemas/list-search.schema';
 import type { QuoteRequestSearch as QuoteRequestSearchValues } from '../../../shared/schemas/list-search.schema';
 import { CheckboxField, Form, SelectField, TextField } from '../form/fields';
+import { SearchButton } from '../form/search-button';
 import { useListSearchForm } from '../form/use-list-search-form';
-import { Button } from '../ui/button';
 
 type RequestStatus = (typeof QUOTE_REQUEST_STATUSES)[number];
 
@@ -46,10 +46,7 @@ export function QuoteRequestSearch({ status, q, waiting, waitingLabel = 'Only th
       </div>
       <div className="flex flex-wrap items-end gap-3">
         <TextField name="q" label="Search quote requests" type="search" maxLength={100} defaultValue={q ?? ''} placeholder={placeholder} className="min-w-56 flex-1" />
-        <Button type="submit" variant="secondary">
-          Search
-        </Button>
-        {clear}
+        <SearchButton clear={clear} />
       </div>
     </Form>
   );

@@ -1,7 +1,7 @@
 import type { OrderLine, OrderLineStatus } from '../../../../shared/schemas/order.schema';
 import type { Db } from '../../../db/knex';
 import type { NewOrderLine, StoredOrderLine } from '../orders.repository';
-import { toLine } from './order-row';
+import { lineProduct, toLine } from './order-row';
 
 /** An order's lines: written with the order, changed by the desk's answers, read in position order. */
 export function orderLinesRepository(db: Db) {
@@ -12,13 +12,7 @@ export function orderLinesRepository(db: Db) {
         .insert({
           order_id: orderId,
           position: firstPosition + i,
-          product_id: l.product_id,
-          sku: l.sku,
-          description: l.description,
-          category: l.category,
-          unit: l.unit,
-          pack_size: l.pack_size,
-          pack_weight_kg: l.pack_weight_kg,
+          ...lineProduct(l),
           quantity: l.quantity,
           confirmed_quantity: l.confirmed_quantity ?? null,
           back_order_quantity: l.back_order_quantity ?? 0,

@@ -1,6 +1,14 @@
 import type { OrderLine, OrderLineStatus, OrderSite } from '../../../../shared/schemas/order.schema';
 import type { Db } from '../../../db/knex';
-import type { OrderParty, OrderRow, StoredOrderLine } from '../orders.repository';
+import type { NewOrderLine, OrderParty, OrderRow, StoredOrderLine } from '../orders.repository';
+
+/** The product a line is for, as the line keeps it: a copy, so a later change to the catalogue leaves the order as sent. */
+export type LineProduct = Pick<NewOrderLine, 'product_id' | 'sku' | 'description' | 'category' | 'unit' | 'pack_size' | 'pack_weight_kg'>;
+
+/** The product fields of a line, copied from another line (a follow-up's, or the row written for one). */
+export function lineProduct(l: LineProduct): LineProduct {
+  return { product_id: l.product_id, sku: l.sku, description: l.description, category: l.category, unit: l.unit, pack_size: l.pack_size, pack_weight_kg: l.pack_weight_kg };
+}
 
 /** The columns of an order row with its firms' and branch's names (the joins of `scoped`). */
 export const ORDER_COLUMNS = [

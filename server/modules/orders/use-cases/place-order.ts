@@ -1,31 +1,15 @@
 import type { z } from 'zod';
-import type { OrderSite, placeOrderBodySchema } from '../../../../shared/schemas/order.schema';
+import type { placeOrderBodySchema } from '../../../../shared/schemas/order.schema';
 import type { AuthUser } from '../../../auth/auth-user';
 import type { Db } from '../../../db/knex';
 import { nowIso } from '../../../db/time';
 import { AppError } from '../../../http/app-error';
 import type { NewOrderLine } from '../orders.repository';
 import { actorOf, assertCraneAllowed, assertNotPast, invalid, newLine, partyOf, type OrderContext } from './order-context';
+import { orderSiteOf } from '../../projects/order-site';
 import { readOrder } from './read-order';
 
 type PlaceBody = z.output<typeof placeOrderBodySchema>;
-
-/** Where the order goes, copied from the project as it stands when the order is sent. */
-async function siteSnapshot(ctx: OrderContext, user: AuthUser, projectId: number): Promise<OrderSite> {
-  const p = await ctx.projects.get(user, projectId);
-  return {
-    name: p.name,
-    site_address: p.site_address,
-    site_postcode: p.site_postcode,
-    contact_name: p.contact_name,
-    contact_phone: p.contact_phone,
-    vehicle_access: p.vehicle_access,
-    crane_lift: p.crane_lift,
-    overhead_lines: p.overhead_lines,
-    set_down_place: p.set_down_place,
-    access_notes: p.access_notes,
-  };
-}
 
 /**
  * Sends an order to one branch, from an estimate: its lines as they are, or lines adjusted before
@@ -44,7 +28,7 @@ export async function placeOrder(
   const branch = (await catalogue.branchesByIds([body.branch_id])).get(body.branch_id);
   if (!branch) throw invalid('branch_id', 'is not a merchant branch');
   assertNotPast(deps.config.calendar, body.requested_date, 'requested_date');
-  const site = await siteSnapshot(ctx, user, estimate.project_id);
+  const site = orderSiteOf(await projects.get(user, estimate.project_id));
   assertCraneAllowed(body.delivery_method, site, 'delivery_method');
 
   let lines: NewOrderLine[];

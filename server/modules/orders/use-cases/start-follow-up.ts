@@ -5,6 +5,7 @@ import { nowIso } from '../../../db/time';
 import { AppError } from '../../../http/app-error';
 import { assertTakesStep } from '../order-steps';
 import type { NewOrderLine } from '../orders.repository';
+import { lineProduct } from '../repository/order-row';
 import { actorOf, assertNotPast, partyOf, type OrderContext } from './order-context';
 import { readOrder } from './read-order';
 
@@ -30,13 +31,7 @@ export async function startFollowUp(ctx: OrderContext, user: AuthUser, id: numbe
     const owed = (await orders.lines(id, trx)).filter((l) => l.back_order_quantity > 0);
     if (owed.length === 0) throw AppError.conflict('nothing_back_ordered', `${orderReference(id)} has no back-ordered packs to send`);
     const lines: NewOrderLine[] = owed.map((l) => ({
-      product_id: l.product_id,
-      sku: l.sku,
-      description: l.description,
-      category: l.category,
-      unit: l.unit,
-      pack_size: l.pack_size,
-      pack_weight_kg: l.pack_weight_kg,
+      ...lineProduct(l),
       quantity: l.back_order_quantity,
       unit_price: l.unit_price,
       total: l.unit_price * l.back_order_quantity,

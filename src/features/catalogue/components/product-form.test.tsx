@@ -1,6 +1,7 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { productSchema } from '../../../../shared/schemas/price-list.schema';
+import { productFixture, TILE_VALUES } from '../../../test-utils/product-fixture';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { ProductForm } from './product-form';
 
@@ -10,25 +11,6 @@ const sentBody = (fetchMock: ReturnType<typeof stubFetch>, method: string, path:
   const call = fetchMock.mock.calls.find(([url, init]) => String(url).endsWith(path) && init?.method === method);
   return call ? (JSON.parse(String(call[1]?.body)) as unknown) : undefined;
 };
-const saved = (over: Record<string, unknown>) => ({
-  id: 21,
-  sku: 'TRS-FL420-BR',
-  name: 'Stanmoor flat interlocking tile, brindle',
-  category: 'tile',
-  unit: 'tile',
-  pack_size: 1,
-  pack_weight_kg: 4.4,
-  tax_rate_bp: 2000,
-  technical: {},
-  pallet_length_mm: 1200,
-  pallet_width_mm: 1000,
-  branches: [],
-  archived_at: null,
-  created_at: '2026-12-01T09:00:00.000Z',
-  updated_at: '2026-12-01T09:00:00.000Z',
-  ...over,
-});
-
 function fillCommon(sku: string, name: string, category: string, unit: string) {
   type('SKU', sku);
   type('Name', name);
@@ -68,7 +50,7 @@ describe('ProductForm', () => {
   });
 
   it('adds a single-lap tile with its sizes in mm, cover, two headlap bands and the tax rate in basis points', async () => {
-    const fetchMock = stubFetch({ ...csrf, 'POST /api/products': { status: 201, body: saved({}) } });
+    const fetchMock = stubFetch({ ...csrf, 'POST /api/products': { status: 201, body: productFixture() } });
     renderWithProviders(<ProductForm />);
     fillCommon('TRS-FL420-BR', 'Stanmoor flat interlocking tile, brindle', 'tile', 'tile');
     type('Pack weight (kg)', '4.4');
@@ -93,15 +75,7 @@ describe('ProductForm', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Add the product' }));
     await waitFor(() =>
       expect(sentBody(fetchMock, 'POST', '/api/products')).toEqual({
-        sku: 'TRS-FL420-BR',
-        name: 'Stanmoor flat interlocking tile, brindle',
-        category: 'tile',
-        unit: 'tile',
-        pack_size: 1,
-        pack_weight_kg: 4.4,
-        tax_rate_bp: 2000,
-        pallet_length_mm: 1200,
-        pallet_width_mm: 1000,
+        ...TILE_VALUES,
         technical: {
           kind: 'single_lap',
           length_mm: 420,
@@ -139,7 +113,7 @@ describe('ProductForm', () => {
   });
 
   it('adds tile nails with only the nail fields in technical', async () => {
-    const fetchMock = stubFetch({ ...csrf, 'POST /api/products': { status: 201, body: saved({ sku: 'TRS-NT38-1K', category: 'tile_nail' }) } });
+    const fetchMock = stubFetch({ ...csrf, 'POST /api/products': { status: 201, body: productFixture({ sku: 'TRS-NT38-1K', category: 'tile_nail' }) } });
     renderWithProviders(<ProductForm />);
     fillCommon('TRS-NT38-1K', 'Aluminium tile nails 38 × 3.35 mm, 1 kg', 'tile_nail', 'box');
     type('Pack weight (kg)', '1');
@@ -192,7 +166,7 @@ describe('ProductForm', () => {
       ...csrf,
       'POST /api/products': [
         { status: 422, body: { error: { code: 'validation_failed', message: 'The request has 1 problem', details: [{ path: 'pallet_width_mm', message: 'is wider than any lorry deck of the branch' }] } } },
-        { status: 201, body: saved({ sku: 'TRS-RDG-03', category: 'ridge', pallet_width_mm: 800 }) },
+        { status: 201, body: productFixture({ sku: 'TRS-RDG-03', category: 'ridge', pallet_width_mm: 800 }) },
       ],
     });
     renderWithProviders(<ProductForm />);
@@ -224,7 +198,7 @@ describe('ProductForm', () => {
   it('changes a stored tile with PATCH, keeping its fields and the engine label not on the form', async () => {
     // 1.1 kg a plain tile, 1000 a pallet: from memory.
     const tile = productSchema.parse(
-      saved({
+      productFixture({
         sku: 'TRS-PT265-RD',
         name: 'Stanmoor plain tile, red',
         pack_weight_kg: 1.1,

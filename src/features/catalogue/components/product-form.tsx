@@ -4,7 +4,7 @@ import type { ProductCategory } from '../../../../shared/schemas/catalogue.schem
 import { DEFAULT_PALLET_MM } from '../../../../shared/schemas/price-list.schema';
 import type { Product } from '../../../../shared/schemas/price-list.schema';
 import { BONDS, TILE_KINDS } from '../../../../shared/schemas/roof-system.schema';
-import { FieldGroup, Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { FieldGroup, Form, SelectField, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import type { SchemaForm } from '../../../components/form/use-schema-form';
 import { Alert } from '../../../components/ui/alert';
@@ -12,7 +12,8 @@ import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateProduct } from '../api/create-product';
 import { useUpdateProduct } from '../api/update-product';
-import { withFieldDetails } from '../lib/form-values';
+import { showingFieldDetails } from '../lib/form-values';
+import { SaveOrCancel } from './save-or-cancel';
 import { TECHNICAL_FIELDS, headlapBandsText, productFormSchema, taxPercentText, technicalField, technicalText } from '../lib/product-form';
 import type { HeadlapBandText } from '../lib/product-form';
 
@@ -113,19 +114,15 @@ export function ProductForm({ product = null, onDone }: { product?: Product | nu
   const schema = useMemo(() => productFormSchema(product), [product]);
   const form = useSchemaForm({
     schema,
-    onSubmit: async (body, { reset }) => {
-      try {
-        const saved = product ? await update.mutateAsync(body) : await create.mutateAsync(body);
-        toast.show(product ? `${saved.sku} is saved.` : `${saved.sku} is added to the catalogue.`, 'success');
-        if (!product) {
-          reset();
-          setCategory('');
-        }
-        onDone?.();
-      } catch (error) {
-        throw withFieldDetails(error);
+    onSubmit: showingFieldDetails(async (body, { reset }) => {
+      const saved = product ? await update.mutateAsync(body) : await create.mutateAsync(body);
+      toast.show(product ? `${saved.sku} is saved.` : `${saved.sku} is added to the catalogue.`, 'success');
+      if (!product) {
+        reset();
+        setCategory('');
       }
-    },
+      onDone?.();
+    }),
   });
   return (
     <Form form={form} label={product ? `Change ${product.sku}` : 'Add a product'}>
@@ -152,14 +149,7 @@ export function ProductForm({ product = null, onDone }: { product?: Product | nu
           <TechnicalFields key={category} form={form} category={category} product={product} />
         </section>
       ) : null}
-      <div className="flex flex-wrap gap-2">
-        <SubmitButton>{product ? 'Save the product' : 'Add the product'}</SubmitButton>
-        {onDone ? (
-          <Button variant="secondary" onClick={onDone}>
-            Cancel
-          </Button>
-        ) : null}
-      </div>
+      <SaveOrCancel submitLabel={product ? 'Save the product' : 'Add the product'} onCancel={onDone} />
     </Form>
   );
 }

@@ -15,6 +15,7 @@ import { useArchiveProduct } from '../api/archive-product';
 import { useProducts } from '../api/get-products';
 import { useRestoreProduct } from '../api/restore-product';
 import type { ProductFilters } from '../api/keys';
+import { productColumns } from './product-columns';
 import { ProductForm } from './product-form';
 
 type Shown = NonNullable<ProductFilters['archived']>;
@@ -22,18 +23,7 @@ const SHOWN_WORDS: Record<Shown, string> = { false: 'In the catalogue', true: 'A
 
 const h = dataTableColumns<Product>();
 const figureColumns = [
-  h.accessor('sku', { header: 'SKU', sortFn: 'text', cell: (info) => <span className="font-mono text-sm whitespace-nowrap">{info.getValue()}</span> }),
-  h.accessor('name', { header: 'Product', sortFn: 'text', cell: (info) => <span className="block min-w-48 text-sm">{info.getValue()}</span> }),
-  h.accessor('category', { header: 'Kind', sortFn: 'text', cell: (info) => CATEGORY_LABELS[info.getValue()] }),
-  h.accessor('pack_size', {
-    header: 'Pack',
-    sortFn: 'alphanumeric',
-    cell: (info) => (
-      <span className="whitespace-nowrap tabular-nums">
-        {info.getValue()} {info.row.original.unit}
-      </span>
-    ),
-  }),
+  ...productColumns<Product>('min-w-48'),
   h.accessor('pack_weight_kg', { header: 'Pack weight', sortFn: 'alphanumeric', cell: (info) => <span className="whitespace-nowrap tabular-nums">{info.getValue().toLocaleString('en-GB')} kg</span> }),
   h.accessor('tax_rate_bp', { header: 'Tax', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue() / 100} %</span> }),
   h.accessor((p) => p.branches.length, { id: 'branches', header: 'Sold at', sortFn: 'alphanumeric', cell: (info) => `${info.getValue()} ${info.getValue() === 1 ? 'branch' : 'branches'}` }),

@@ -1,13 +1,13 @@
 import { useMemo } from 'react';
 import { CATEGORY_LABELS, REQUIRED_SYSTEM_ROLES, SYSTEM_ROLES } from '../../../../shared/schemas/catalogue.schema';
 import type { MerchantRoofSystem, Product } from '../../../../shared/schemas/price-list.schema';
-import { Form, SelectField, SubmitButton, TextField } from '../../../components/form/fields';
+import { Form, SelectField, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
-import { Button } from '../../../components/ui/button';
 import { useToast } from '../../../components/ui/toast';
 import { useCreateRoofSystem } from '../api/create-roof-system';
 import { useUpdateRoofSystem } from '../api/update-roof-system';
-import { withFieldDetails } from '../lib/form-values';
+import { showingFieldDetails } from '../lib/form-values';
+import { SaveOrCancel } from './save-or-cancel';
 import { ROLE_WORDS, componentField, createRoofSystemFormSchema, updateRoofSystemFormSchema } from '../lib/roof-system-form';
 
 /**
@@ -23,18 +23,14 @@ export function RoofSystemForm({ branchId, products, system = null, onDone }: { 
   const form = useSchemaForm({
     schema: system ? updateRoofSystemFormSchema : createRoofSystemFormSchema,
     extraValues,
-    onSubmit: async (body, { reset }) => {
-      try {
-        // Only the new-system schema reads branch_id, so its presence says which body this is.
-        const saved = 'branch_id' in body ? await create.mutateAsync(body) : await update.mutateAsync(body);
-        const state = saved.offerable ? 'contractors can estimate with it.' : `it is not offered yet: ${saved.problems.join('; ')}.`;
-        toast.show(`${saved.name} is ${system ? 'saved' : 'added'}; ${state}`, saved.offerable ? 'success' : 'info');
-        if (!system) reset();
-        onDone?.();
-      } catch (error) {
-        throw withFieldDetails(error);
-      }
-    },
+    onSubmit: showingFieldDetails(async (body, { reset }) => {
+      // Only the new-system schema reads branch_id, so its presence says which body this is.
+      const saved = 'branch_id' in body ? await create.mutateAsync(body) : await update.mutateAsync(body);
+      const state = saved.offerable ? 'contractors can estimate with it.' : `it is not offered yet: ${saved.problems.join('; ')}.`;
+      toast.show(`${saved.name} is ${system ? 'saved' : 'added'}; ${state}`, saved.offerable ? 'success' : 'info');
+      if (!system) reset();
+      onDone?.();
+    }),
   });
   return (
     <Form form={form} label={system ? `Change ${system.name}` : 'Add a roof system'}>
@@ -65,14 +61,7 @@ export function RoofSystemForm({ branchId, products, system = null, onDone }: { 
           })}
         </div>
       </fieldset>
-      <div className="flex flex-wrap gap-2">
-        <SubmitButton>{system ? 'Save the roof system' : 'Add the roof system'}</SubmitButton>
-        {onDone ? (
-          <Button variant="secondary" onClick={onDone}>
-            Cancel
-          </Button>
-        ) : null}
-      </div>
+      <SaveOrCancel submitLabel={system ? 'Save the roof system' : 'Add the roof system'} onCancel={onDone} />
     </Form>
   );
 }

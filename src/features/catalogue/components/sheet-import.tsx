@@ -1,16 +1,18 @@
 import { z } from 'zod';
+import { moneyEntryExample } from '../../../../shared/domain/money-entry';
 import { MAX_SHEET_BYTES } from '../../../../shared/schemas/price-list.schema';
 import { FieldMessage, Form, describedBy, fieldIds } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { Alert, errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { isApiError } from '../../../lib/api-client';
+import { currentCurrency, moneySign } from '../../../lib/format';
 import { useImportSheet } from '../api/import-sheet';
 import type { SheetKind } from '../api/keys';
 
-const LABELS: Record<SheetKind, { title: string; columns: string }> = {
-  'price-list': { title: 'Import a price list', columns: 'Columns read: sku, price (one pack, e.g. 12.80), tax_rate (percent, optional).' },
-  'stock-counts': { title: 'Import stock counts', columns: 'Columns read: sku, on_hand (whole packs), reorder_level (optional).' },
+const LABELS: Record<SheetKind, { title: string; columns: () => string }> = {
+  'price-list': { title: 'Import a price list', columns: () => `Columns read: sku, price (one pack in ${moneySign()}, e.g. ${moneyEntryExample(currentCurrency())}), tax_rate (percent, optional).` },
+  'stock-counts': { title: 'Import stock counts', columns: () => 'Columns read: sku, on_hand (whole packs), reorder_level (optional).' },
 };
 
 /** One upload form for a branch's price list or stock counts; a refused file shows each problem by row and column. */
@@ -37,7 +39,7 @@ export function SheetImport({ branchId, kind }: { branchId: number; kind: SheetK
           {LABELS[kind].title} (CSV or .xlsx)
         </label>
         <p id={ids.hint} className="mb-1.5 text-sm text-ink-600">
-          {LABELS[kind].columns} The whole file is applied, or none of it.
+          {LABELS[kind].columns()} The whole file is applied, or none of it.
         </p>
         <input
           id={ids.input}

@@ -1,5 +1,7 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
+import { setAppCurrency } from '../../../lib/format';
+import { productFixture } from '../../../test-utils/product-fixture';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { StockTable } from './stock-table';
 
@@ -111,52 +113,74 @@ describe('StockTable editing', () => {
   });
 });
 
+/** Opens the price form of the one row as a role with catalogue:manage; the field's label names the configured currency's sign. */
+async function openPriceForm(sign: string) {
+  renderWithProviders(<StockTable branchId={3} canEditPrice />);
+  fireEvent.click(await screen.findByRole('button', { name: 'Change the price of TRS-FL420-SG' }));
+  const price = screen.getByLabelText(`Pack price in ${sign} (1 tile)`) as HTMLInputElement;
+  const save = (typed: string) => {
+    fireEvent.change(price, { target: { value: typed } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save the price' }));
+  };
+  const sentPrice = (fetchMock: ReturnType<typeof stubFetch>) => {
+    const call = fetchMock.mock.calls.find(([, init]) => init?.method === 'PUT');
+    return call ? (JSON.parse(String(call[1]?.body)) as unknown) : undefined;
+  };
+  return { price, save, sentPrice };
+}
+
 describe('StockTable price', () => {
   it('sets the pack price at the branch in pence from pounds typed, to a role with catalogue:manage', async () => {
     const fetchMock = stubFetch({
       'GET /api/branches/3/stock': list(),
       'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
-      'PUT /api/branches/3/products/11': {
-        status: 200,
-        body: {
-          id: 11,
-          sku: item.sku,
-          name: item.name,
-          category: 'tile',
-          unit: 'tile',
-          pack_size: 1,
-          pack_weight_kg: 4.4,
-          tax_rate_bp: 2000,
-          technical: {},
-          pallet_length_mm: 1200,
-          pallet_width_mm: 1000,
-          branches: [],
-          archived_at: null,
-          created_at: item.updated_at,
-          updated_at: item.updated_at,
-        },
-      },
+      'PUT /api/branches/3/products/11': { status: 200, body: productFixture({ id: 11, sku: item.sku, name: item.name }) },
     });
-    renderWithProviders(<StockTable branchId={3} canEditPrice />);
+    const { price, save, sentPrice } = await openPriceForm('£');
     expect(screen.queryByRole('button', { name: 'Edit stock of TRS-FL420-SG' })).toBeNull();
-    fireEvent.click(await screen.findByRole('button', { name: 'Change the price of TRS-FL420-SG' }));
-    const price = screen.getByLabelText('Pack price in £ (1 tile)');
-    expect((price as HTMLInputElement).value).toBe('1.28');
-    fireEvent.change(price, { target: { value: '1.3' } });
-    fireEvent.click(screen.getByRole('button', { name: 'Save the price' }));
+    expect(price.value).toBe('1.28');
+    save('1.3');
     expect(await screen.findByText('TRS-FL420-SG now costs £1.30 a pack here.')).toBeTruthy();
-    const call = fetchMock.mock.calls.find(([, init]) => init?.method === 'PUT');
-    expect(call && JSON.parse(String(call[1]?.body))).toEqual({ pack_price: 130 });
+    expect(sentPrice(fetchMock)).toEqual({ pack_price: 130 });
   });
 
-  it('refuses a price that is not pounds and pence, naming the field, and sends nothing', async () => {
+  it('refuses a price with more decimals than pence, naming the field, and sends nothing', async () => {
     const fetchMock = stubFetch({ 'GET /api/branches/3/stock': list() });
-    renderWithProviders(<StockTable branchId={3} canEditPrice />);
-    fireEvent.click(await screen.findByRole('button', { name: 'Change the price of TRS-FL420-SG' }));
-    fireEvent.change(screen.getByLabelText('Pack price in £ (1 tile)'), { target: { value: '1.305' } });
-    fireEvent.click(screen.getByRole('button', { name: 'Save the price' }));
-    expect(await screen.findByText('give the pack price in pounds and pence, e.g. 12.80')).toBeTruthy();
-    expect(fetchMock.mock.calls.filter(([, init]) => init?.method === 'PUT')).toHaveLength(0);
+    const { save, sentPrice } = await openPriceForm('£');
+    save('1.305');
+    expect(await screen.findByText('the pack price must be an amount in £ with at most 2 decimals, e.g. 12.80')).toBeTruthy();
+    expect(sentPrice(fetchMock)).toBeUndefined();
+  });
+});
+
+// Minor units per ISO 4217: the yen has none, the Bahraini dinar three (1,000 fils).
+describe('StockTable price in another configured currency', () => {
+  afterEach(() => setAppCurrency('GBP'));
+  const answerNothing = () =>
+    stubFetch({
+      'GET /api/branches/3/stock': list(),
+      'GET /api/auth/csrf': { status: 200, body: { token: 't' } },
+      'PUT /api/branches/3/products/11': { status: 422, body: { error: { code: 'x', message: 'not looked at' } } },
+    });
+
+  it('takes whole yen, with or without the sign, and refuses decimals', async () => {
+    setAppCurrency('JPY');
+    const fetchMock = answerNothing();
+    const { price, save, sentPrice } = await openPriceForm('JP¥');
+    expect(price.value).toBe('128');
+    save('1.5');
+    expect(await screen.findByText('the pack price must be an amount in JP¥ with no decimals, e.g. 1280')).toBeTruthy();
+    save('¥1,500');
+    await waitFor(() => expect(sentPrice(fetchMock)).toEqual({ pack_price: 1_500 }));
+  });
+
+  it('takes three decimals of the dinar and sends fils', async () => {
+    setAppCurrency('BHD');
+    const fetchMock = answerNothing();
+    const { price, save, sentPrice } = await openPriceForm('BHD');
+    expect(price.value).toBe('0.128');
+    save('12.345');
+    await waitFor(() => expect(sentPrice(fetchMock)).toEqual({ pack_price: 12_345 }));
   });
 });
 

@@ -2,7 +2,6 @@ import { useMemo, useState } from 'react';
 import { stockFilterSchema } from '../../../../shared/schemas/list-search.schema';
 import { CheckboxField, Form } from '../../../components/form/fields';
 import { useLiveFilterForm } from '../../../components/form/use-list-search-form';
-import { CATEGORY_LABELS } from '../../../../shared/schemas/catalogue.schema';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -11,24 +10,14 @@ import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { formatMoney } from '../../../lib/format';
 import { useStock } from '../api/get-stock';
 import { PriceEditForm } from './price-edit-form';
+import { productColumns } from './product-columns';
 import { StockEditForm } from './stock-edit-form';
 
 const STATE_WORDS: Record<StockItem['state'], string> = { in_stock: 'In stock', low: 'At or below reorder level', out_of_stock: 'None free' };
 
 const h = dataTableColumns<StockItem>();
 const figureColumns = [
-  h.accessor('sku', { header: 'SKU', sortFn: 'text', cell: (info) => <span className="font-mono text-sm whitespace-nowrap">{info.getValue()}</span> }),
-  h.accessor('name', { header: 'Product', sortFn: 'text', cell: (info) => <span className="block min-w-56 text-sm">{info.getValue()}</span> }),
-  h.accessor('category', { header: 'Kind', sortFn: 'text', cell: (info) => CATEGORY_LABELS[info.getValue()] }),
-  h.accessor('pack_size', {
-    header: 'Pack',
-    sortFn: 'alphanumeric',
-    cell: (info) => (
-      <span className="whitespace-nowrap tabular-nums">
-        {info.getValue()} {info.row.original.unit}
-      </span>
-    ),
-  }),
+  ...productColumns<StockItem>('min-w-56'),
   h.accessor('pack_price', { header: 'Pack price', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{formatMoney(info.getValue())}</span> }),
   h.accessor('on_hand', { header: 'On hand', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue().toLocaleString('en-GB')}</span> }),
   h.accessor('reserved', { header: 'Reserved', sortFn: 'alphanumeric', cell: (info) => <span className="tabular-nums">{info.getValue().toLocaleString('en-GB')}</span> }),

@@ -29,3 +29,14 @@ export function withFieldDetails(error: unknown): unknown {
   }
   return error;
 }
+
+/** A form's submit whose 409 naming fields is shown at those fields (see `withFieldDetails`). */
+export function showingFieldDetails<A extends unknown[]>(submit: (...args: A) => Promise<void>): (...args: A) => Promise<void> {
+  return async (...args) => {
+    try {
+      await submit(...args);
+    } catch (error) {
+      throw withFieldDetails(error);
+    }
+  };
+}

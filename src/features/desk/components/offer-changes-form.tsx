@@ -12,6 +12,7 @@ import { confirmableLines, openPacks } from '../lib/confirm-form';
 import { offerField, offerFormSchema } from '../lib/offer-form';
 import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { useSubstitutes } from '../api/get-substitutes';
+import { LinesTable } from './lines-table';
 
 const cell = 'block min-h-tap w-20 rounded-md border border-ink-300 bg-white px-2 text-right tabular-nums aria-[invalid=true]:border-brick-600';
 
@@ -30,38 +31,15 @@ export function OfferChangesForm({ order, stock, onDone }: { order: OrderDetail;
   });
   return (
     <Form form={form} label="Offer changes">
-      <div className="overflow-x-auto rounded-md border border-mortar-300 bg-white" role="region" aria-label="Changes per line" tabIndex={0}>
-        <table className="w-full min-w-[56rem] border-collapse text-left text-sm">
-          <caption className="sr-only">Changes per line</caption>
-          <thead className="bg-mortar-100">
-            <tr>
-              <th scope="col" className="px-3 py-2">
-                Item
-              </th>
-              <th scope="col" className="px-3 py-2 text-right">
-                Open
-              </th>
-              <th scope="col" className="px-3 py-2">
-                Now
-              </th>
-              <th scope="col" className="px-3 py-2">
-                To follow
-              </th>
-              <th scope="col" className="px-3 py-2">
-                Offer instead
-              </th>
-              <th scope="col" className="px-3 py-2">
-                Packs
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {lines.map((line, i) => (
-              <OfferLineRow key={line.id} order={order} line={line} index={i} stock={stock} form={form} />
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <LinesTable
+        caption="Changes per line"
+        minWidthClass="min-w-[56rem]"
+        columns={[{ heading: 'Item' }, { heading: 'Open', numeric: true }, { heading: 'Now' }, { heading: 'To follow' }, { heading: 'Offer instead' }, { heading: 'Packs' }]}
+      >
+        {lines.map((line, i) => (
+          <OfferLineRow key={line.id} order={order} line={line} index={i} stock={stock} form={form} />
+        ))}
+      </LinesTable>
       <TextField name="proposed_date" type="date" label="Another delivery day (optional)" />
       <TextField name="message" label="Message to the contractor" maxLength={2000} />
       <SubmitButton>Send the offer</SubmitButton>

@@ -4,8 +4,8 @@ import { ORDER_DATE_FIELDS, ORDER_STATUSES, ORDER_STATUS_LABELS } from '../../..
 import { ORDER_BOOK_PAGE_SIZES, orderBookSearchSchema } from '../../../../shared/schemas/list-search.schema';
 import type { OrderBookSearch as OrderBookSearchValues } from '../../../../shared/schemas/list-search.schema';
 import { Form, SelectField, TextField } from '../../../components/form/fields';
+import { SearchButton } from '../../../components/form/search-button';
 import { useListSearchForm } from '../../../components/form/use-list-search-form';
-import { Button } from '../../../components/ui/button';
 
 /** Stage choices of the filter: the desk's to-do first, then each stage alone. */
 const STAGE_OPTIONS = [
@@ -65,10 +65,7 @@ export function OrderBookSearch({ address, branches, onSearch, sortPicker, clear
         <SelectField name="date_field" label="Dates of" options={DATE_FIELD_OPTIONS} defaultValue={address.date_field} onChange={searchNow} />
         <TextField name="date_from" label="From" type="date" defaultValue={address.date_from} />
         <TextField name="date_to" label="To" type="date" defaultValue={address.date_to} />
-        <Button type="submit" variant="secondary">
-          Search
-        </Button>
-        {clear}
+        <SearchButton clear={clear} />
       </div>
     </Form>
   );

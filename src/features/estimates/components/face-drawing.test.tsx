@@ -2,36 +2,18 @@ import { render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { estimate } from '../../../../shared/engine/estimate';
 import { parseRoofSystem } from '../../../../shared/engine/roof-system';
-import type { RoofSystem } from '../../../../shared/schemas/roof-system.schema';
 import type { Face } from '../../../../shared/schemas/schedule.schema';
+import { gableFace, landingSystem } from '../../../test-utils/driver-day-fixture';
 import { FaceDrawing } from './face-drawing';
 
-function defaultSystem(): RoofSystem {
-  const parsed = parseRoofSystem({});
-  if (!parsed.ok) throw new Error('the default roof system does not parse');
-  return parsed.system;
-}
-
 /** A gable slope between two verges: 9 m of eaves, 5,091 mm rafter at 40° (the example schedule's Birch Front). */
-const gable: Face = {
-  building: 'Birch',
-  face: 'Front',
-  quantity: 1,
-  pitch_deg: 40,
-  rafter_mm: 5091,
-  run_mm: 5091 * Math.cos((40 * Math.PI) / 180),
-  eaves_mm: 9000,
-  top_mm: 9000,
-  left: 'verge',
-  right: 'verge',
-  top: 'ridge',
-};
+const gable = gableFace('Birch', 'Front');
 
 /** A triangular hip end: 8.4 m of eaves rising to a point. */
 const hipEnd: Face = { ...gable, face: 'East hip end', eaves_mm: 8400, top_mm: 0, left: 'hip', right: 'hip', pitch_deg: 35, rafter_mm: 5127.3, run_mm: 4200 };
 
 describe('FaceDrawing', () => {
-  const system = defaultSystem();
+  const system = landingSystem();
 
   it('draws a batten for every course at the gauge worked out by hand, and the loading battens every 2nd from the top', () => {
     // Default tile: 420 mm long, 75 mm headlap from 30°. Single-lap gauge = length − headlap = 345 mm at most
@@ -118,7 +100,7 @@ describe('FaceDrawing', () => {
 
 describe('FaceDrawing with openings and double-lap courses', () => {
   it('draws each opening to scale with the tiles it leaves out and a cut tile each side of each course it crosses', () => {
-    const system = defaultSystem();
+    const system = landingSystem();
     const opening = { building: 'Birch', face: 'Front', kind: 'roof_window' as const, width_mm: 780, height_mm: 1180, quantity: 2 };
     const [result] = estimate([gable], system, [opening]).faces;
     render(<FaceDrawing face={gable} result={result} system={system} openings={[opening]} />);

@@ -1,41 +1,12 @@
 import { screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { Invoice } from '../../../../shared/schemas/invoice.schema';
+import { invoiceFixture } from '../../../test-utils/invoice-fixture';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { InvoiceDetail } from './invoice-detail';
 
 /** An invented account invoice, due in 30 days, nothing paid. */
-function accountInvoice(overrides: Partial<Invoice> = {}): Invoice {
-  return {
-    id: 3,
-    number: 'INV-000003',
-    status: 'unpaid',
-    status_label: 'Not paid yet',
-    order: { id: 1, reference: 'RL-000001' },
-    contractor: { id: 5, name: 'Brackenfold Roofworks' },
-    branch: { id: 3, name: 'Tollerbeck Yard', town: 'Tollerbeck', merchant: { id: 2, name: 'Tollerbeck Roofing Supplies' } },
-    currency: 'GBP',
-    issue_date: '2027-03-02',
-    due_date: '2027-04-01',
-    pay_by: 'account',
-    subtotal: 61_440,
-    tax_total: 12_288,
-    total: 73_728,
-    credited: 0,
-    paid: 0,
-    balance: 73_728,
-    overdue: false,
-    basis: 'confirmed',
-    site_name: 'Hollin Brow',
-    po_reference: '',
-    lines: [],
-    credit_notes: [],
-    payments: [],
-    card_payment: true,
-    created_at: '2027-03-02 09:00:00',
-    ...overrides,
-  };
-}
+const accountInvoice = (overrides: Partial<Invoice> = {}) => invoiceFixture({ due_date: '2027-04-01', pay_by: 'account', basis: 'confirmed', ...overrides });
 
 describe('InvoiceDetail for a contractor on account', () => {
   it('offers card payment of an open account invoice beside the due date', () => {

@@ -1,6 +1,6 @@
 import { fireEvent, screen, waitFor } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import type { Invoice } from '../../../../shared/schemas/invoice.schema';
+import { invoiceFixture } from '../../../test-utils/invoice-fixture';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
 import { PayByCard } from './pay-by-card';
 
@@ -17,37 +17,7 @@ const payment = (status: 'open' | 'succeeded', last_error: string | null = null)
 });
 
 /** An invented card-paying invoice; only the fields the payment panel reads matter here. */
-function invoice(overrides: Partial<Invoice> = {}): Invoice {
-  return {
-    id: 3,
-    number: 'INV-000003',
-    status: 'unpaid',
-    status_label: 'Not paid yet',
-    order: { id: 1, reference: 'RL-000001' },
-    contractor: { id: 5, name: 'Brackenfold Roofworks' },
-    branch: { id: 3, name: 'Tollerbeck Yard', town: 'Tollerbeck', merchant: { id: 2, name: 'Tollerbeck Roofing Supplies' } },
-    currency: 'GBP',
-    issue_date: '2027-03-02',
-    due_date: null,
-    pay_by: 'card',
-    subtotal: 61_440,
-    tax_total: 12_288,
-    total: 73_728,
-    credited: 0,
-    paid: 0,
-    balance: 73_728,
-    overdue: false,
-    basis: 'delivered',
-    site_name: 'Hollin Brow',
-    po_reference: '',
-    lines: [],
-    credit_notes: [],
-    payments: [],
-    card_payment: true,
-    created_at: '2027-03-02 09:00:00',
-    ...overrides,
-  } as Invoice;
-}
+const invoice = invoiceFixture;
 
 afterEach(() => vi.unstubAllGlobals());
 

@@ -1,7 +1,7 @@
 import { createContext, useCallback, useContext, useEffect, useMemo, useRef, useState } from 'react';
 import { DELIVERY_METHODS, DELIVERY_METHOD_LABELS } from '../../../../shared/schemas/order.schema';
 import type { Order } from '../../../../shared/schemas/order.schema';
-import { Form, RadioGroupField, SubmitButton, TextField } from '../../../components/form/fields';
+import { FieldMessage, Form, RadioGroupField, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import type { SchemaForm } from '../../../components/form/use-schema-form';
 import { Alert } from '../../../components/ui/alert';
@@ -109,11 +109,7 @@ function PacksCell({ index, option }: LineRow) {
         aria-describedby={error ? `${id}-error` : undefined}
         className={`block min-h-tap w-full rounded-md border bg-white px-2 tabular-nums ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`}
       />
-      {error ? (
-        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-brick-700">
-          {error}
-        </p>
-      ) : null}
+      {error ? <FieldMessage id={`${id}-error`}>{error}</FieldMessage> : null}
     </div>
   );
 }

@@ -3,7 +3,7 @@ import { ORDER_STATUSES, ORDER_STATUS_LABELS } from '../../../../shared/schemas/
 import { orderSearchSchema } from '../../../../shared/schemas/list-search.schema';
 import type { OrderSearch as OrderSearchValues } from '../../../../shared/schemas/list-search.schema';
 import { Form, SelectField, TextField } from '../../../components/form/fields';
-import { Button } from '../../../components/ui/button';
+import { SearchButton } from '../../../components/form/search-button';
 import { useListSearchForm } from '../../../components/form/use-list-search-form';
 
 const STAGE_OPTIONS = [{ value: '', label: 'Every stage' }, ...ORDER_STATUSES.map((s) => ({ value: s, label: ORDER_STATUS_LABELS[s] }))];
@@ -24,9 +24,7 @@ export function OrderSearch({ status, q, onSearch, children }: OrderSearchProps)
       <SelectField name="status" label="Stage" options={STAGE_OPTIONS} defaultValue={status ?? ''} onChange={searchNow} />
       {children}
       <TextField name="q" label="Search orders" type="search" maxLength={100} defaultValue={q ?? ''} placeholder="RL-000123, PO, site or merchant" className="min-w-56 flex-1" />
-      <Button type="submit" variant="secondary">
-        Search
-      </Button>
+      <SearchButton />
     </Form>
   );
 }

@@ -4,7 +4,7 @@ import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { useToast } from '../../../components/ui/toast';
-import { formatMoney, moneySign } from '../../../lib/format';
+import { currentCurrency, formatMoney, moneySign } from '../../../lib/format';
 import { useAnswerQuote } from '../api/answer-quote';
 import { answerField, answerFormSchema, onAnswerForm } from '../lib/answer-form';
 
@@ -17,7 +17,7 @@ function formatQuantity(quantity: number, unit: string) {
 /** Pricing a quote request line by line from the branch's own products; a line left without a product is not offered. */
 export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: QuoteRequest; quote: Quote; stock: readonly StockItem[]; onDone?: () => void }) {
   const lines = request.lines;
-  const schema = useMemo(() => answerFormSchema(lines), [lines]);
+  const schema = useMemo(() => answerFormSchema(lines, currentCurrency()), [lines]);
   const answer = useAnswerQuote(quote.id);
   const toast = useToast();
   const previous = new Map(quote.lines.map((l) => [l.request_line_id, l]));
@@ -36,7 +36,7 @@ export function AnswerQuoteForm({ request, quote, stock, onDone }: { request: Qu
   const err = (name: string) => form.fieldError(name);
   return (
     <Form form={form} label="Price the quote">
-      <p className="text-sm text-ink-600">Leave packs empty for enough packs to cover the quantity asked, and the price empty for the branch&rsquo;s pack price. Prices are per pack, in pounds.</p>
+      <p className="text-sm text-ink-600">Leave packs empty for enough packs to cover the quantity asked, and the price empty for the branch&rsquo;s pack price. Prices are per pack, in {moneySign()}.</p>
       <div className="overflow-x-auto rounded-md border border-mortar-300 bg-white" role="region" aria-label="Prices per line" tabIndex={0}>
         <table className="w-full min-w-[60rem] border-collapse text-left text-sm">
           <caption className="sr-only">Prices per line</caption>

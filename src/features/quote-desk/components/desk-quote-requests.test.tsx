@@ -1,6 +1,6 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { quoteRequestRowFixture, stubQuoteRequestListApi } from '../../../test-utils/quote-request-fixture';
+import { quoteRequestListScreen, quoteRequestRowFixture, stubQuoteRequestListApi } from '../../../test-utils/quote-request-fixture';
 import { renderWithProviders } from '../../../test-utils/render-with-providers';
 import { deskFiltersFromSearch } from '../lib/list-filters';
 import { DeskQuoteRequests } from './desk-quote-requests';
@@ -9,14 +9,7 @@ const row = quoteRequestRowFixture;
 // Deliberately in no order a browser sort would give: the screen must keep the server's order.
 const serverPage = [row(12, { requested_date: '2027-04-02' }), row(4, { requested_date: '2027-03-01' }), row(31, { requested_date: '2027-05-20' })];
 
-const sent = (q: URLSearchParams | undefined) => Object.fromEntries(q?.entries() ?? []);
-const header = (name: string) => screen.getByRole('columnheader', { name: new RegExp(`^${name}`) });
-const addressOf = (router: { state: { location: { search: string } } }) => Object.fromEntries(new URLSearchParams(router.state.location.search).entries());
-const requestLinks = () =>
-  within(screen.getByRole('table', { name: 'Quote requests' }))
-    .getAllByRole('row')
-    .slice(1)
-    .map((r) => within(r).getAllByRole('cell')[0].textContent);
+const { sent, header, addressOf, requestLinks, headers, sortButtons } = quoteRequestListScreen;
 
 describe('deskFiltersFromSearch', () => {
   it('reads the filters from the address as the server will read them', () => {
@@ -56,11 +49,7 @@ describe('DeskQuoteRequests', () => {
     expect(requestLinks()).toEqual(['Request 12', 'Request 4', 'Request 31']);
     expect(screen.getByRole('link', { name: 'Request 12' }).getAttribute('href')).toBe('/desk/quotes/12');
     // This side's columns, laid out on the one quote-request list.
-    expect(
-      within(screen.getByRole('table', { name: 'Quote requests' }))
-        .getAllByRole('columnheader')
-        .map((h) => h.textContent),
-    ).toEqual(['Request', 'Contractor', 'Site', 'Wanted', 'Your answer', 'Asked']);
+    expect(headers()).toEqual(['Request', 'Contractor', 'Site', 'Wanted', 'Your answer', 'Asked']);
     expect(screen.getByText('Page 1 of 2')).toBeTruthy();
   });
 
@@ -70,11 +59,7 @@ describe('DeskQuoteRequests', () => {
     await screen.findByRole('table', { name: 'Quote requests' });
     expect(sent(queries.at(-1))).toMatchObject({ page: '3', sort: 'created_at', dir: 'desc' });
     // Only the columns the server can sort by have a header button.
-    expect(
-      within(screen.getByRole('table', { name: 'Quote requests' }))
-        .getAllByRole('button')
-        .map((b) => b.textContent),
-    ).toEqual(['Wanted', 'Asked']);
+    expect(sortButtons()).toEqual(['Wanted', 'Asked']);
 
     fireEvent.click(within(header('Wanted')).getByRole('button'));
     await waitFor(() => expect(sent(queries.at(-1))).toMatchObject({ page: '1', sort: 'requested_date', dir: 'asc' }));

@@ -1,26 +1,19 @@
 import { z } from 'zod';
 import { answerQuoteBodySchema } from '../../../../shared/schemas/order.schema';
 import type { AnswerQuoteBody, QuoteRequest } from '../../../../shared/schemas/order.schema';
+import { readMoneyEntry } from '../../../../shared/domain/money-entry';
 import { ApiError, isApiError } from '../../../lib/api-client';
 
 type RequestLine = QuoteRequest['lines'][number];
 
 export const answerField = (i: number, name: 'product' | 'packs' | 'price' | 'note') => `answer.${i}.${name}`;
 
-/** Pounds and pence as typed at the counter ("307.2", "307.20", "£1,250") into whole pence; null when it is not money. */
-export function poundsToPence(text: string): number | null {
-  const t = text.trim().replace(/^£/, '').replace(/,/g, '');
-  if (!/^\d+(\.\d{1,2})?$/.test(t)) return null;
-  const [whole, fraction = ''] = t.split('.');
-  return Number(whole) * 100 + Number(fraction.padEnd(2, '0'));
-}
-
 /**
  * The desk's answer read into the answer body: each request line the branch offers names a product,
- * and may override the packs (else enough packs for the quantity asked) and the pack price in pounds
- * (else the branch's price). Lines without a product are not offered.
+ * and may override the packs (else enough packs for the quantity asked) and the pack price in the
+ * configured currency (else the branch's price). Lines without a product are not offered.
  */
-export function answerFormSchema(lines: readonly Pick<RequestLine, 'id'>[]) {
+export function answerFormSchema(lines: readonly Pick<RequestLine, 'id'>[], currency: string) {
   return z
     .record(z.string(), z.string())
     .transform((values, ctx): AnswerQuoteBody => {
@@ -44,12 +37,12 @@ export function answerFormSchema(lines: readonly Pick<RequestLine, 'id'>[]) {
         }
         let unitPrice: number | undefined;
         if (priceText) {
-          const pence = poundsToPence(priceText);
-          if (pence === null) {
-            ctx.addIssue({ code: 'custom', path: [answerField(i, 'price')], message: 'give the pack price in pounds and pence, e.g. 307.20' });
+          const price = readMoneyEntry(priceText, currency, `the pack price of line ${i + 1}`);
+          if (!price.ok) {
+            ctx.addIssue({ code: 'custom', path: [answerField(i, 'price')], message: price.message });
             return;
           }
-          unitPrice = pence;
+          unitPrice = price.minor;
         }
         offered.push({
           request_line_id: line.id,

@@ -1,6 +1,6 @@
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { quoteRequestRowFixture, stubQuoteRequestListApi } from '../../../test-utils/quote-request-fixture';
+import { quoteRequestListScreen, quoteRequestRowFixture, stubQuoteRequestListApi } from '../../../test-utils/quote-request-fixture';
 import { renderWithProviders } from '../../../test-utils/render-with-providers';
 import { quoteFiltersFromSearch } from '../lib/list-filters';
 import { QuoteRequestsList } from './quote-requests-list';
@@ -9,14 +9,7 @@ const row = quoteRequestRowFixture;
 // Deliberately in no order a browser sort would give: the screen must keep the server's order.
 const serverPage = [row(12, { status: 'accepted' }), row(4), row(31, { status: 'withdrawn' })];
 
-const sent = (q: URLSearchParams | undefined) => Object.fromEntries(q?.entries() ?? []);
-const header = (name: string) => screen.getByRole('columnheader', { name: new RegExp(`^${name}`) });
-const addressOf = (router: { state: { location: { search: string } } }) => Object.fromEntries(new URLSearchParams(router.state.location.search).entries());
-const requestLinks = () =>
-  within(screen.getByRole('table', { name: 'Quote requests' }))
-    .getAllByRole('row')
-    .slice(1)
-    .map((r) => within(r).getAllByRole('cell')[0].textContent);
+const { sent, header, addressOf, requestLinks, headers, sortButtons } = quoteRequestListScreen;
 
 describe('quoteFiltersFromSearch', () => {
   it("reads the firm's filters from the address and never the merchant's waiting filter", () => {
@@ -46,11 +39,7 @@ describe('QuoteRequestsList', () => {
     expect(requestLinks()).toEqual(['Request 12', 'Request 4', 'Request 31']);
     expect(screen.getByRole('link', { name: 'Request 31' }).getAttribute('href')).toBe('/quotes/31');
     // This side's columns, laid out on the one quote-request list.
-    expect(
-      within(screen.getByRole('table', { name: 'Quote requests' }))
-        .getAllByRole('columnheader')
-        .map((h) => h.textContent),
-    ).toEqual(['Request', 'Site', 'Wanted', 'Stage', 'Answers', 'Asked']);
+    expect(headers()).toEqual(['Request', 'Site', 'Wanted', 'Stage', 'Answers', 'Asked']);
     // One page only: nothing to turn.
     expect(screen.queryByRole('navigation', { name: 'Pages of the quote requests' })).toBeNull();
   });
@@ -59,11 +48,7 @@ describe('QuoteRequestsList', () => {
     const queries = stubQuoteRequestListApi(serverPage, 120);
     const { router } = renderWithProviders(<QuoteRequestsList />, { path: '/quotes?page=2' });
     await screen.findByRole('table', { name: 'Quote requests' });
-    expect(
-      within(screen.getByRole('table', { name: 'Quote requests' }))
-        .getAllByRole('button')
-        .map((b) => b.textContent),
-    ).toEqual(['Wanted', 'Asked']);
+    expect(sortButtons()).toEqual(['Wanted', 'Asked']);
 
     // The list starts newest asked first, so pressing Asked asks for the oldest first.
     fireEvent.click(within(header('Asked')).getByRole('button'));

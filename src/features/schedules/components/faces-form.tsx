@@ -6,7 +6,7 @@ import { MAX_SCHEDULE_FACES } from '../../../../shared/schemas/schedule-upload.s
 import type { ScheduleResponse, StoredFace, StoredOpening } from '../../../../shared/schemas/schedule-upload.schema';
 import { EDGE_KINDS, TOP_KINDS, faceKey, scheduleSchema } from '../../../../shared/schemas/schedule.schema';
 import type { ScheduleRowInput } from '../../../../shared/schemas/schedule.schema';
-import { Form, SubmitButton } from '../../../components/form/fields';
+import { FieldMessage, Form, SubmitButton } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
 import type { SchemaForm } from '../../../components/form/use-schema-form';
 import { Button } from '../../../components/ui/button';
@@ -186,11 +186,7 @@ function OpeningsFields({
             }}
           />
         )}
-        {error ? (
-          <p id={`${id}-error`} className="mt-1 text-sm font-medium text-brick-700">
-            {error}
-          </p>
-        ) : null}
+        {error ? <FieldMessage id={`${id}-error`}>{error}</FieldMessage> : null}
       </div>
     );
   };
@@ -287,11 +283,7 @@ function FaceFields({
           {LABELS[column]}
         </label>
         {control}
-        {error ? (
-          <p id={`${id}-error`} className="mt-1 text-sm font-medium text-brick-700">
-            {error}
-          </p>
-        ) : null}
+        {error ? <FieldMessage id={`${id}-error`}>{error}</FieldMessage> : null}
       </div>
     );
   };

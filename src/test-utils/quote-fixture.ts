@@ -1,5 +1,6 @@
-import type { QuoteRequest } from '../../../../shared/schemas/order.schema';
-import type { StockItem } from '../../../../shared/schemas/stock.schema';
+import type { QuoteRequest } from '../../shared/schemas/order.schema';
+import type { StockItem } from '../../shared/schemas/stock.schema';
+import { fixtureSite } from './order-fixture';
 
 /** An invented quote request for component tests: two lines asked of Tollerbeck Yard, not yet priced. */
 export function quoteRequestFixture(overrides: Partial<QuoteRequest> = {}): QuoteRequest {
@@ -8,18 +9,7 @@ export function quoteRequestFixture(overrides: Partial<QuoteRequest> = {}): Quot
     status: 'open',
     contractor: { id: 5, name: 'Brackenfold Roofworks' },
     project: { id: 9, name: 'Hollin Brow, plots 1–20' },
-    site: {
-      name: 'Hollin Brow, plots 1–20',
-      site_address: 'Hollin Brow, Tollerbeck',
-      site_postcode: '',
-      contact_name: 'Gethin Marlow',
-      contact_phone: '07700 900 001',
-      vehicle_access: 'rigid_only',
-      crane_lift: 'allowed',
-      overhead_lines: 'none',
-      set_down_place: 'Hardstanding by the cabin',
-      access_notes: '',
-    },
+    site: fixtureSite,
     estimate_id: 4,
     requested_date: '2027-03-01',
     time_window: null,
