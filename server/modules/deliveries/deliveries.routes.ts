@@ -1,5 +1,5 @@
 import type { Request, RequestHandler } from 'express';
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { orderParamsSchema, recordDeliveryBodySchema } from '../../../shared/schemas/order.schema';
 import { driverDayQuerySchema, recordProofBodySchema, runParamsSchema } from '../../../shared/schemas/run.schema';
 import { currentUser } from '../../auth/policy';
@@ -7,9 +7,9 @@ import { apiRouter } from '../../http/endpoint';
 import type { DeliveriesService, DeliveryRecord } from './deliveries.service';
 import { checkProofFiles, formFields, proofUpload } from './proof-files';
 
-const photoParamsSchema = z.object({ id: z.coerce.number().int().positive(), photoId: z.coerce.number().int().positive() });
-const draftParamsSchema = z.object({ id: z.coerce.number().int().positive() });
-const driverRunsQuerySchema = driverDayQuerySchema.extend({ driver_id: z.coerce.number().int().positive().optional() });
+const photoParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()), photoId: z.coerce.number().check(z.int(), z.positive()) });
+const draftParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });
+const driverRunsQuerySchema = z.extend(driverDayQuerySchema, { driver_id: z.optional(z.coerce.number().check(z.int(), z.positive())) });
 
 /** The body as a delivery record: the phone's fields, or the older JSON body (received_by, notes, delivered_quantity). */
 function readRecord(req: Request): DeliveryRecord {

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import type { z } from 'zod';
+import * as z from 'zod/mini';
 import { orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { ListPager, PhoneSortSelect, sortChoices, useListAddress } from '../../../components/ui/server-list';
@@ -45,8 +45,8 @@ const isListSort = (sort: OrderSort): sort is ListSort => (ORDERS_TABLE_SORTS as
  * page number does not throw away the stage and the sort.
  */
 export function listStateFromSearch(search: URLSearchParams): OrdersListState {
-  const read = <S extends z.ZodType>(schema: S, key: string, fallback: z.output<S>): z.output<S> => {
-    const parsed = schema.safeParse(search.get(key) ?? undefined);
+  const read = <S extends z.core.$ZodType>(schema: S, key: string, fallback: z.output<S>): z.output<S> => {
+    const parsed = z.safeParse(schema, search.get(key) ?? undefined);
     return parsed.success ? parsed.data : fallback;
   };
   const sort = read(shape.sort, 'sort', 'placed_at');
