@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import type { EngineResult } from '../engine/result';
 import { PRODUCT_CATEGORIES, branchRefSchema } from './catalogue.schema';

@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { branchRefSchema } from './catalogue.schema';
 import { documentTotalsShape, pricedLineShape } from './money.schema';

@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { PRODUCT_CATEGORIES } from './catalogue.schema';
 import { INVOICE_STATUSES } from './invoice.schema';

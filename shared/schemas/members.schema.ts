@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { ROLES } from '../domain/roles';
 import { emailSchema } from './auth.schema';

@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { FaceLookup, SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from './schedule.schema';
 

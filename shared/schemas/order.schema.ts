@@ -1,4 +1,5 @@
 import { isIsoDate } from '../domain/business-calendar';
+import './zod-messages';
 import * as z from 'zod/mini';
 import { can, type Action } from '../domain/policy';
 import type { Role } from '../domain/roles';

@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { PAYMENT_STATUSES, paymentSchema } from './invoice.schema';
 

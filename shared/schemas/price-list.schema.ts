@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { PRODUCT_CATEGORIES, SYSTEM_ROLES, TECHNICAL_SCHEMAS, branchRefSchema, productSummarySchema, systemSettingsSchema } from './catalogue.schema';
 

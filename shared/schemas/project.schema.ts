@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 
 /** A contractor's site: where the roofs are, who to ring, and what a lorry finds when it arrives. */

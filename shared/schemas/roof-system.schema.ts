@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { DEFAULT_TILE, SYSTEM_DEFAULTS, DOUBLE_LAP_TILE_DEFAULTS, SINGLE_LAP_TILE_DEFAULTS } from '../engine/defaults';
 

@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import type { FaceResult } from '../engine/result';
 import { documentTotalsShape, pricedLineShape } from './money.schema';

@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { OPENING_KINDS } from './openings.schema';
 import { EDGE_KINDS, SCHEDULE_LIMITS, TOP_KINDS } from './schedule.schema';

@@ -1,3 +1,4 @@
+import './zod-messages';
 import * as z from 'zod/mini';
 import { DELIVERY_METHODS, isoDateSchema, orderSiteSchema, orgRefSchema, timeWindowSchema } from './order.schema';
 
