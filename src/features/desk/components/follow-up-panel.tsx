@@ -7,7 +7,6 @@ import { followUpBodySchema } from '../../../../shared/schemas/order.schema';
 import type { FollowUpBody, OrderDetail } from '../../../../shared/schemas/order.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
-import { BackOrderLinks } from '../../../components/orders/back-order-links';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { useToast } from '../../../components/ui/toast';
@@ -173,9 +172,4 @@ export function FollowUpPanel({ order }: { order: OrderDetail }) {
       </Form>
     </Card>
   );
-}
-
-/** The linked orders on the desk's order page, pointing at the desk's own order pages. */
-export function FollowUpLinks({ order }: { order: Pick<OrderDetail, 'follows' | 'followed_by'> }) {
-  return <BackOrderLinks order={order} orderPath={(id) => `/desk/orders/${id}`} label="Linked orders" />;
 }
