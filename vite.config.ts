@@ -57,8 +57,8 @@ function firstNeedsPlugin(): Plugin {
  * Libraries in chunks of their own, named and grouped by what they are, so that a change to the app's
  * code leaves their files (and every browser's copy) as they were. A library used by one kind of page
  * only (tables, drag and drop, the signature pad, CSV parsing) is loaded with the pages that use it.
- * zod's core and mini API (the sign-in page's schemas) are apart from its classic API and the JSON
- * Schema code that comes with it, which only the app's other pages need.
+ * zod's core and mini API (every shared schema is written with zod/mini) are apart from its classic
+ * API and the JSON Schema code that comes with it, which no page loads any more (DEVELOPERS.md, decision 35).
  * Higher priority wins where a library's dependency is matched by more than one group.
  */
 const VENDOR_CHUNKS = [
@@ -67,7 +67,12 @@ const VENDOR_CHUNKS = [
   { name: 'react', test: /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]/, priority: 90 },
   { name: 'router', test: /[\\/]node_modules[\\/](react-router|react-router-dom|cookie|set-cookie-parser)[\\/]/, priority: 80 },
   { name: 'query', test: /[\\/]node_modules[\\/](@tanstack[\\/](query-core|react-query|query-persist-client-core|query-async-storage-persister|react-query-persist-client)|idb-keyval)[\\/]/, priority: 70 },
-  { name: 'zod-core', test: (id: string) => /[\\/]node_modules[\\/]zod[\\/](v4[\\/](core|mini)|mini)[\\/]/.test(id) && !/json-schema|to-json-schema/.test(id), priority: 65 },
+  // zod's core, its mini API and the English messages every schema module asks for (shared/schemas/zod-messages.ts).
+  {
+    name: 'zod-core',
+    test: (id: string) => /[\\/]node_modules[\\/]zod[\\/](v4[\\/](core|mini)|mini)[\\/]|[\\/]node_modules[\\/]zod[\\/]v4[\\/]locales[\\/]en\.js$/.test(id) && !/json-schema|to-json-schema/.test(id),
+    priority: 65,
+  },
   { name: 'zod', test: /[\\/]node_modules[\\/]zod[\\/]/, priority: 60 },
   { name: 'forms', test: /[\\/]node_modules[\\/](react-hook-form|@hookform[\\/]resolvers)[\\/]/, priority: 50 },
   { name: 'table', test: /[\\/]node_modules[\\/]@tanstack[\\/](table-core|react-table|virtual-core|react-virtual|store|react-store)[\\/]/, priority: 40 },

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkBudgets, formatReport, staticClosure } from './bundle-budgets';
+import { checkBudgets, formatReport, staticClosure, TARGETS } from './bundle-budgets';
 import type { Manifest } from './bundle-budgets';
 
 // A small build: the first script with two libraries, two pages sharing a table chunk, one page with a
@@ -33,7 +33,7 @@ describe('bundle budgets from the build manifest', () => {
   });
 
   it('measures the sign-in page as the first script and its imports, and each page opened first on top of it', () => {
-    const report = checkBudgets({ manifest, gzipSize, routeCompanions: { 'src/app/routes/face-route.tsx': ['src/app/routes/cautions.tsx'] } });
+    const report = checkBudgets({ manifest, gzipSize, budgets: TARGETS, routeCompanions: { 'src/app/routes/face-route.tsx': ['src/app/routes/cautions.tsx'] } });
     expect(report.signIn.gzipBytes).toBe(110 * KB);
     expect(report.routes.map((r) => [r.route, r.gzipBytes / KB])).toEqual([
       ['src/app/routes/face-route.tsx', 130], // 110 + table 10 + page 8 + cautions 2; the drawing loads later
@@ -51,6 +51,18 @@ describe('bundle budgets from the build manifest', () => {
       'assets/drawing.js is 90.0 kB gzipped, over the 80 kB budget for one file',
     ]);
     expect(formatReport(report, { signInKb: 100, routeKb: 126, chunkKb: 80 }).filter((line) => line.endsWith('OVER'))).toHaveLength(3);
+  });
+
+  it('holds a page named in the exceptions to its own ceiling and every other page to the route budget', () => {
+    const budgets = { signInKb: 120, routeKb: 126, chunkKb: 100, routeExceptions: { 'src/app/routes/face-route.tsx': 129 } };
+    const report = checkBudgets({ manifest, gzipSize, budgets });
+    expect(report.failures).toEqual([]);
+    expect(formatReport(report, budgets).find((line) => line.startsWith('face-route.tsx'))).toContain('budget 129 kB');
+    const tighter = checkBudgets({ manifest, gzipSize, budgets: { ...budgets, routeExceptions: { 'src/app/routes/face-route.tsx': 127, 'src/app/routes/gone-route.tsx': 150 } } });
+    expect(tighter.failures).toEqual([
+      'src/app/routes/face-route.tsx loads 128.0 kB gzipped when opened first, over the 127 kB budget',
+      'src/app/routes/gone-route.tsx has a budget of its own but the build has no such page',
+    ]);
   });
 
   it('counts the sign-in page and the app apart when the first script loads one or the other, and what index.html preloads with both', () => {

@@ -27,21 +27,37 @@ export interface Budgets {
   routeKb: number;
   /** Any one script file. */
   chunkKb: number;
+  /** Pages held to a ceiling of their own above `routeKb` (route module → kB) until they come down. */
+  routeExceptions?: Record<string, number>;
 }
 
 /** What the client should keep to open in under 2 s on a site phone on 3G (DEVELOPERS.md, decision 34). */
 export const TARGETS: Budgets = { signInKb: 120, routeKb: 180, chunkKb: 120 };
 
 /**
- * The ceilings `npm test` enforces, so that growth fails the build and is a decision, not a drift. The
- * sign-in page and the largest file are held to their targets. Pages opened first are held to today's
- * largest (the desk's order, 214.6 kB): React, React Router, TanStack Query, zod (its classic API comes
- * with any page that reads an API answer) and the signed-in frame are about 158 kB before a page's own
- * code, and a page with a form adds react-hook-form and the form pieces (17 kB), so most pages are still
- * over 180 kB (DEVELOPERS.md, decision 34). Lower it as pages come down; never raise one without saying
- * why in DEVELOPERS.md.
+ * The pages still over the 180 kB target, each held to today's figure (rounded up) so that growth fails
+ * the build: the catalogue (198.0 kB: its filter bars, product, price and stock forms and tables all
+ * load with it) and the two order forms (place 189.7, amend 187.6: the form with its lines table is the
+ * page). DEVELOPERS.md, decision 35. Lower or remove one as it comes down; never raise one without
+ * saying why in DEVELOPERS.md.
  */
-export const DEFAULT_BUDGETS: Budgets = { signInKb: TARGETS.signInKb, routeKb: 215, chunkKb: TARGETS.chunkKb };
+export const ROUTE_EXCEPTIONS: Record<string, number> = {
+  'src/app/routes/catalogue-route.tsx': 199,
+  'src/app/routes/place-order-route.tsx': 190,
+  'src/app/routes/amend-order-route.tsx': 188,
+};
+
+/**
+ * The ceilings `npm test` enforces, so that growth fails the build and is a decision, not a drift: the
+ * sign-in page, every page opened first and the largest file are held to their targets, but for the
+ * pages named in ROUTE_EXCEPTIONS (DEVELOPERS.md, decisions 34 and 35).
+ */
+export const DEFAULT_BUDGETS: Budgets = { signInKb: TARGETS.signInKb, routeKb: TARGETS.routeKb, chunkKb: TARGETS.chunkKb, routeExceptions: ROUTE_EXCEPTIONS };
+
+/** The ceiling one page is held to. */
+export function routeBudget(budgets: Budgets, route: string): number {
+  return budgets.routeExceptions?.[route] ?? budgets.routeKb;
+}
 
 export interface RouteCost {
   /** The page's source module (src/app/routes/x-route.tsx), or "sign-in". */
@@ -136,7 +152,11 @@ export function checkBudgets(options: {
   const failures: string[] = [];
   if (kb(signIn.gzipBytes) > budgets.signInKb) failures.push(`sign-in loads ${kb(signIn.gzipBytes).toFixed(1)} kB gzipped, over its ${budgets.signInKb} kB budget`);
   for (const route of routes) {
-    if (kb(route.gzipBytes) > budgets.routeKb) failures.push(`${route.route} loads ${kb(route.gzipBytes).toFixed(1)} kB gzipped when opened first, over the ${budgets.routeKb} kB budget`);
+    const budget = routeBudget(budgets, route.route);
+    if (kb(route.gzipBytes) > budget) failures.push(`${route.route} loads ${kb(route.gzipBytes).toFixed(1)} kB gzipped when opened first, over the ${budget} kB budget`);
+  }
+  for (const route of Object.keys(budgets.routeExceptions ?? {})) {
+    if (!routes.some((r) => r.route === route)) failures.push(`${route} has a budget of its own but the build has no such page`);
   }
   if (kb(largestChunk.gzipBytes) > budgets.chunkKb) failures.push(`${largestChunk.file} is ${kb(largestChunk.gzipBytes).toFixed(1)} kB gzipped, over the ${budgets.chunkKb} kB budget for one file`);
   return { signIn, routes, largestChunk, failures };
@@ -157,7 +177,7 @@ export function formatReport(report: BudgetReport, budgets: Budgets = DEFAULT_BU
   return [
     'JavaScript a page needs before it shows (gzipped; * over target)',
     row('sign-in (first script + sign-in page)', report.signIn.gzipBytes, budgets.signInKb, targets.signInKb, report.signIn.files.length),
-    ...report.routes.map((route) => row(route.route.replace(/^src\/app\/routes\//, ''), route.gzipBytes, budgets.routeKb, targets.routeKb, route.files.length)),
+    ...report.routes.map((route) => row(route.route.replace(/^src\/app\/routes\//, ''), route.gzipBytes, routeBudget(budgets, route.route), targets.routeKb, route.files.length)),
     row(`largest file: ${report.largestChunk.file.replace(/^assets\//, '')}`, report.largestChunk.gzipBytes, budgets.chunkKb, targets.chunkKb),
   ];
 }

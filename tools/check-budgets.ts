@@ -47,6 +47,7 @@ const budgets: Budgets = {
   signInKb: budgetFromEnv('BUDGET_SIGN_IN_KB', DEFAULT_BUDGETS.signInKb),
   routeKb: budgetFromEnv('BUDGET_ROUTE_KB', DEFAULT_BUDGETS.routeKb),
   chunkKb: budgetFromEnv('BUDGET_CHUNK_KB', DEFAULT_BUDGETS.chunkKb),
+  routeExceptions: DEFAULT_BUDGETS.routeExceptions,
 };
 /** The scripts index.html preloads for every address (vite.config.ts adds React and zod's core). */
 function preloadedByIndexHtml(): string[] {

@@ -1,5 +1,6 @@
 // zod/mini: the sign-in page checks its form with these schemas before the rest of the app (and zod's
 // classic API) has loaded, so they stay out of the classic API's code (DEVELOPERS.md, decision 34).
+import './zod-messages';
 import * as z from 'zod/mini';
 import { ORGANISATION_KINDS, ROLES } from '../domain/roles';
 

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import { roofSystemSchema } from './roof-system.schema';
 
 /**
@@ -59,15 +60,11 @@ export const CATEGORY_LABELS: Record<ProductCategory, string> = {
 
 export const REQUIRED_SYSTEM_ROLES: readonly SystemRole[] = ['tile', 'ridge', 'batten', 'batten_nail', 'tile_nail', 'underlay'];
 
-const positive = () => z.number({ error: 'must be a number' }).positive({ error: 'must be more than 0' });
-const whole = (min: number) =>
-  z
-    .number({ error: 'must be a number' })
-    .int({ error: 'must be a whole number' })
-    .min(min, { error: `must be at least ${min}` });
+const positive = () => z.number({ error: 'must be a number' }).check(z.positive({ error: 'must be more than 0' }));
+const whole = (min: number) => z.number({ error: 'must be a number' }).check(z.int({ error: 'must be a whole number' }), z.gte(min, { error: `must be at least ${min}` }));
 
 /** A tile's technical fields are the engine's own tile input. */
-export const tileTechnicalSchema = roofSystemSchema.shape.tile.unwrap();
+export const tileTechnicalSchema = roofSystemSchema.shape.tile.def.innerType;
 export const ridgeTechnicalSchema = z.object({ cover_mm: positive(), weight_kg: positive() });
 export const battenTechnicalSchema = z.object({
   stock_length_mm: positive(),
@@ -83,7 +80,7 @@ export const valleyTechnicalSchema = z.object({ weight_kg: positive() });
 /** A piece sold by the count whose weight the engine needs (special tiles, fittings). */
 export const pieceTechnicalSchema = z.object({ weight_kg: positive() });
 /** A preformed valley trough unit: its length and the lap onto the next. */
-export const valleyTroughTechnicalSchema = z.object({ unit_length_mm: positive(), lap_mm: z.number().min(0), weight_kg: positive() });
+export const valleyTroughTechnicalSchema = z.object({ unit_length_mm: positive(), lap_mm: z.number().check(z.gte(0)), weight_kg: positive() });
 
 export const TECHNICAL_SCHEMAS = {
   tile: tileTechnicalSchema,
@@ -102,8 +99,8 @@ export const TECHNICAL_SCHEMAS = {
   dry_verge: pieceTechnicalSchema,
   ridge_end_cap: pieceTechnicalSchema,
   hip_iron: pieceTechnicalSchema,
-  accessory: z.object({}).catchall(z.unknown()),
-} satisfies Record<ProductCategory, z.ZodType>;
+  accessory: z.catchall(z.object({}), z.unknown()),
+} satisfies Record<ProductCategory, z.ZodMiniType>;
 
 export type TileTechnical = z.input<typeof tileTechnicalSchema>;
 export type RidgeTechnical = z.infer<typeof ridgeTechnicalSchema>;
@@ -115,23 +112,23 @@ export type UnderlayTechnical = z.infer<typeof underlayTechnicalSchema>;
  * What a roof system sets beyond its products: how it is set out, battened, fixed, wasted, loaded and
  * carried. Any part may be left out and takes the engine's default.
  */
-export const systemSettingsSchema = z
-  .object({
-    setting_out: roofSystemSchema.shape.setting_out.unwrap().partial(),
+export const systemSettingsSchema = z.partial(
+  z.object({
+    setting_out: z.partial(roofSystemSchema.shape.setting_out.def.innerType),
     rafter_spacing_mm: positive(),
-    batten: z.object({ min_supports: whole(2), min_length_mm: z.number().min(0) }).partial(),
-    underlay: z.object({ head_lap_mm: z.number().min(0) }).partial(),
-    fixing: z
-      .object({
+    batten: z.partial(z.object({ min_supports: whole(2), min_length_mm: z.number().check(z.gte(0)) })),
+    underlay: z.partial(z.object({ head_lap_mm: z.number().check(z.gte(0)) })),
+    fixing: z.partial(
+      z.object({
         rule: z.enum(['every_tile', 'perimeter_and_alternate_courses']),
-        clips: z.object({ eaves: z.boolean(), verges: z.boolean(), every_tile_from_pitch_deg: z.number().gt(0).max(90).nullable() }).partial(),
-      })
-      .partial(),
-    waste_pct: z.object({ tiles: z.number(), battens: z.number(), underlay: z.number(), ridge_hip: z.number() }).partial(),
-    roof_loading: z.object({ stack_size: whole(1), every_nth_batten: whole(1) }).partial(),
-    truck: z.object({ payload_kg: positive(), pallet_slots: whole(1), pallet_tare_kg: z.number().min(0), max_pallet_kg: positive() }).partial(),
-  })
-  .partial();
+        clips: z.partial(z.object({ eaves: z.boolean(), verges: z.boolean(), every_tile_from_pitch_deg: z.nullable(z.number().check(z.gt(0), z.lte(90))) })),
+      }),
+    ),
+    waste_pct: z.partial(z.object({ tiles: z.number(), battens: z.number(), underlay: z.number(), ridge_hip: z.number() })),
+    roof_loading: z.partial(z.object({ stack_size: whole(1), every_nth_batten: whole(1) })),
+    truck: z.partial(z.object({ payload_kg: positive(), pallet_slots: whole(1), pallet_tare_kg: z.number().check(z.gte(0)), max_pallet_kg: positive() })),
+  }),
+);
 export type SystemSettings = z.infer<typeof systemSettingsSchema>;
 
 /** How much of a product a branch can send, as the contractor sees it (stock figures stay with the merchant). */
@@ -139,21 +136,21 @@ export const STOCK_STATES = ['in_stock', 'low', 'out_of_stock'] as const;
 export type StockState = (typeof STOCK_STATES)[number];
 
 export const productSummarySchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   sku: z.string(),
   name: z.string(),
   category: z.enum(PRODUCT_CATEGORIES),
   unit: z.string(),
-  pack_size: z.number().int(),
+  pack_size: z.number().check(z.int()),
   pack_weight_kg: z.number(),
 });
 export type ProductSummary = z.infer<typeof productSummarySchema>;
 
 export const branchRefSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   name: z.string(),
   town: z.string(),
-  merchant: z.object({ id: z.number().int(), name: z.string() }),
+  merchant: z.object({ id: z.number().check(z.int()), name: z.string() }),
 });
 export type BranchRef = z.infer<typeof branchRefSchema>;
 
@@ -164,26 +161,26 @@ export const systemComponentSchema = z.object({
   role: z.enum(SYSTEM_ROLES),
   product: productSummarySchema,
   /** Price of one pack at this branch, minor units. */
-  unit_price: z.number().int(),
+  unit_price: z.number().check(z.int()),
   stock: z.enum(STOCK_STATES),
 });
 
 /** A roof system as a branch offers it. `system` is the engine's input built from the products. */
 export const roofSystemOfferSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   name: z.string(),
   description: z.string(),
   branch: branchRefSchema,
   tile: tileTechnicalSchema,
   system: roofSystemSchema,
   components: z.array(systemComponentSchema),
-  prices: z.record(z.string(), z.number().int()),
+  prices: z.record(z.string(), z.number().check(z.int())),
 });
 export type RoofSystemOffer = z.infer<typeof roofSystemOfferSchema>;
 
 export const systemsListQuerySchema = z.object({
-  branch_id: z.coerce.number().int().positive().optional(),
-  merchant_id: z.coerce.number().int().positive().optional(),
-  kind: z.enum(['single_lap', 'double_lap']).optional(),
+  branch_id: z.optional(z.coerce.number().check(z.int(), z.positive())),
+  merchant_id: z.optional(z.coerce.number().check(z.int(), z.positive())),
+  kind: z.optional(z.enum(['single_lap', 'double_lap'])),
 });
 export const systemsListSchema = z.object({ systems: z.array(roofSystemOfferSchema) });

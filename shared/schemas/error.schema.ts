@@ -1,4 +1,5 @@
 // zod/mini, like auth.schema.ts: the one fetch client reads every error with it, the sign-in page included.
+import './zod-messages';
 import * as z from 'zod/mini';
 
 /** Every error the API sends has this body. `details` carries field-level problems. */

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import type { EngineResult } from '../engine/result';
 import { PRODUCT_CATEGORIES, branchRefSchema } from './catalogue.schema';
 import { roofSystemSchema } from './roof-system.schema';
@@ -9,28 +10,29 @@ import { roofSystemSchema } from './roof-system.schema';
  * whole packs and multiplies by the branch's pack price. Money in integer minor units.
  */
 
-const percent = z.number({ error: 'must be a number' }).min(0, { error: 'must be 0 or more' }).max(100, { error: 'must be at most 100' });
+const percent = z.number({ error: 'must be a number' }).check(z.gte(0, { error: 'must be 0 or more' }), z.lte(100, { error: 'must be at most 100' }));
 
 /** Waste allowances in per cent, over the system's own; any may be left out. */
-export const wastePctSchema = z.object({ tiles: percent, battens: percent, underlay: percent, ridge_hip: percent }).partial().strict();
+export const wastePctSchema = z.strictObject(z.partial(z.object({ tiles: percent, battens: percent, underlay: percent, ridge_hip: percent })).shape);
 export type WastePct = z.infer<typeof wastePctSchema>;
 
 export const createEstimateBodySchema = z
-  .object({
+  .strictObject({
     /** A roof system from GET /api/systems. */
-    system_id: z.number().int().positive().optional(),
+    system_id: z.optional(z.number().check(z.int(), z.positive())),
     /** Or a generic system typed in: the engine's roof-system input, any part left out takes its default. */
-    system: z.record(z.string(), z.unknown()).optional(),
-    waste_pct: wastePctSchema.optional(),
+    system: z.optional(z.record(z.string(), z.unknown())),
+    waste_pct: z.optional(wastePctSchema),
     /** The schedule version to estimate; the newest when left out. */
-    schedule_version: z.number().int().positive().optional(),
+    schedule_version: z.optional(z.number().check(z.int(), z.positive())),
   })
-  .strict()
-  .superRefine((b, ctx) => {
-    if ((b.system_id === undefined) === (b.system === undefined)) {
-      ctx.addIssue({ code: 'custom', path: ['system_id'], message: 'give either system_id (a merchant’s roof system) or system (a generic one), not both' });
-    }
-  });
+  .check(
+    z.superRefine((b, ctx) => {
+      if ((b.system_id === undefined) === (b.system === undefined)) {
+        ctx.addIssue({ code: 'custom', path: ['system_id'], message: 'give either system_id (a merchant’s roof system) or system (a generic one), not both' });
+      }
+    }),
+  );
 export type CreateEstimateBody = z.input<typeof createEstimateBodySchema>;
 
 /** Which engine total a line's quantity is, so the screen can say where each figure comes from. */
@@ -56,23 +58,23 @@ export const ENGINE_FIGURES = [
 export type EngineFigure = (typeof ENGINE_FIGURES)[number];
 
 export const estimateLineSchema = z.object({
-  id: z.number().int(),
-  position: z.number().int(),
+  id: z.number().check(z.int()),
+  position: z.number().check(z.int()),
   category: z.enum(PRODUCT_CATEGORIES),
-  product_id: z.number().int().nullable(),
-  sku: z.string().nullable(),
+  product_id: z.nullable(z.number().check(z.int())),
+  sku: z.nullable(z.string()),
   description: z.string(),
   /** What the engine says is needed, in `unit` (tiles, pieces, lengths, nails, rolls, metres). */
   quantity: z.number(),
   unit: z.string(),
   /** Units in one pack as the merchant sells it. */
-  pack_size: z.number().int(),
+  pack_size: z.number().check(z.int()),
   /** Whole packs to buy: quantity ÷ pack_size, rounded up. */
-  packs: z.number().int(),
+  packs: z.number().check(z.int()),
   /** Price of one pack, minor units; null for a generic system. */
-  unit_price: z.number().int().nullable(),
+  unit_price: z.nullable(z.number().check(z.int())),
   /** packs × unit_price, minor units; null for a generic system. */
-  total: z.number().int().nullable(),
+  total: z.nullable(z.number().check(z.int())),
   figure: z.enum(ENGINE_FIGURES),
 });
 export type EstimateLine = z.infer<typeof estimateLineSchema>;
@@ -80,34 +82,34 @@ export type EstimateLine = z.infer<typeof estimateLineSchema>;
 /** A part of the system the engine gives no quantity for: left for the estimator to add by hand. */
 export const notCountedSchema = z.object({
   category: z.enum(PRODUCT_CATEGORIES),
-  sku: z.string().nullable(),
+  sku: z.nullable(z.string()),
   description: z.string(),
   message: z.string(),
 });
 
 export const estimateSystemRefSchema = z.object({
   source: z.enum(['catalogue', 'generic']),
-  id: z.number().int().nullable(),
+  id: z.nullable(z.number().check(z.int())),
   name: z.string(),
-  branch: branchRefSchema.nullable(),
+  branch: z.nullable(branchRefSchema),
 });
 
 export const estimateTotalsSchema = z.object({
   /** Sum of the line totals, minor units; null for a generic system. */
-  subtotal: z.number().int().nullable(),
+  subtotal: z.nullable(z.number().check(z.int())),
   /** The engine's delivery weight, pallets included, kg. */
   weight_kg: z.number(),
-  pallets: z.number().int(),
-  loads: z.number().int(),
+  pallets: z.number().check(z.int()),
+  loads: z.number().check(z.int()),
 });
 
 /** The engine's output as stored with the estimate (shared/engine/result.ts describes every field). */
 export const engineResultSchema = z.custom<EngineResult>((v) => typeof v === 'object' && v !== null && 'totals' in v && 'faces' in v && 'engine_version' in v, { error: 'is not an engine result' });
 
 export const estimateSchema = z.object({
-  id: z.number().int(),
-  project_id: z.number().int(),
-  schedule: z.object({ id: z.number().int(), version: z.number().int() }),
+  id: z.number().check(z.int()),
+  project_id: z.number().check(z.int()),
+  schedule: z.object({ id: z.number().check(z.int()), version: z.number().check(z.int()) }),
   system: estimateSystemRefSchema,
   /** The whole roof system the engine worked from, after defaults and the waste asked for. */
   system_input: roofSystemSchema,
@@ -120,13 +122,13 @@ export const estimateSchema = z.object({
   not_counted: z.array(notCountedSchema),
   totals: estimateTotalsSchema,
   cautions: z.array(z.string()),
-  recomputed_from: z.number().int().nullable(),
+  recomputed_from: z.nullable(z.number().check(z.int())),
   created_at: z.string(),
-  created_by: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+  created_by: z.nullable(z.object({ id: z.number().check(z.int()), name: z.string() })),
 });
 export type Estimate = z.infer<typeof estimateSchema>;
 
-export const estimateSummarySchema = estimateSchema.pick({
+export const estimateSummarySchema = z.pick(estimateSchema, {
   id: true,
   project_id: true,
   schedule: true,
@@ -139,27 +141,27 @@ export const estimateSummarySchema = estimateSchema.pick({
 export const estimateListSchema = z.object({ estimates: z.array(estimateSummarySchema) });
 
 export const compareQuerySchema = z.object({
-  a: z.coerce.number().int().positive(),
-  b: z.coerce.number().int().positive(),
+  a: z.coerce.number().check(z.int(), z.positive()),
+  b: z.coerce.number().check(z.int(), z.positive()),
 });
 
 const compareSide = z.object({
-  sku: z.string().nullable(),
+  sku: z.nullable(z.string()),
   description: z.string(),
   quantity: z.number(),
   unit: z.string(),
-  packs: z.number().int(),
-  total: z.number().int().nullable(),
+  packs: z.number().check(z.int()),
+  total: z.nullable(z.number().check(z.int())),
 });
 
 export const estimateComparisonSchema = z.object({
-  schedule: z.object({ id: z.number().int(), version: z.number().int() }),
+  schedule: z.object({ id: z.number().check(z.int()), version: z.number().check(z.int()) }),
   estimates: z.tuple([estimateSummarySchema, estimateSummarySchema]),
   /** One row per category, in bill order; a side is null when that estimate has no such line. */
-  rows: z.array(z.object({ category: z.enum(PRODUCT_CATEGORIES), label: z.string(), a: compareSide.nullable(), b: compareSide.nullable() })),
+  rows: z.array(z.object({ category: z.enum(PRODUCT_CATEGORIES), label: z.string(), a: z.nullable(compareSide), b: z.nullable(compareSide) })),
   /** b − a for the figures both sides have. */
-  difference: z.object({ subtotal: z.number().int().nullable(), weight_kg: z.number(), pallets: z.number().int() }),
+  difference: z.object({ subtotal: z.nullable(z.number().check(z.int())), weight_kg: z.number(), pallets: z.number().check(z.int()) }),
 });
 export type EstimateComparison = z.infer<typeof estimateComparisonSchema>;
 
-export const estimateParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+export const estimateParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import { branchRefSchema } from './catalogue.schema';
 import { documentTotalsShape, pricedLineShape } from './money.schema';
 import { orgRefSchema } from './order.schema';
@@ -34,66 +35,66 @@ export const invoiceNumber = (n: number) => `INV-${String(n).padStart(6, '0')}`;
 export const creditNoteNumber = (n: number) => `CN-${String(n).padStart(6, '0')}`;
 
 export const invoiceLineSchema = z.object({
-  id: z.number().int(),
-  position: z.number().int(),
-  order_line_id: z.number().int().nullable(),
+  id: z.number().check(z.int()),
+  position: z.number().check(z.int()),
+  order_line_id: z.nullable(z.number().check(z.int())),
   sku: z.string(),
   description: z.string(),
   unit: z.string(),
-  pack_size: z.number().int(),
+  pack_size: z.number().check(z.int()),
   ...pricedLineShape,
   /** Packs already credited on this line. */
-  credited_quantity: z.number().int(),
+  credited_quantity: z.number().check(z.int()),
 });
 
 export const paymentSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   method: z.literal('card'),
   status: z.enum(PAYMENT_STATUSES),
-  amount: z.number().int(),
+  amount: z.number().check(z.int()),
   currency: z.string(),
-  checkout_url: z.string().nullable(),
-  last_error: z.string().nullable(),
-  paid_at: z.string().nullable(),
+  checkout_url: z.nullable(z.string()),
+  last_error: z.nullable(z.string()),
+  paid_at: z.nullable(z.string()),
   created_at: z.string(),
 });
 export type Payment = z.infer<typeof paymentSchema>;
 
 export const creditNoteSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   number: z.string(),
-  invoice_id: z.number().int(),
+  invoice_id: z.number().check(z.int()),
   reason: z.enum(CREDIT_REASONS),
   notes: z.string(),
   ...documentTotalsShape,
-  lines: z.array(z.object({ invoice_line_id: z.number().int(), sku: z.string(), description: z.string(), ...pricedLineShape })),
-  refund: z.object({ status: z.enum(REFUND_STATUSES), amount: z.number().int(), last_error: z.string().nullable() }).nullable(),
+  lines: z.array(z.object({ invoice_line_id: z.number().check(z.int()), sku: z.string(), description: z.string(), ...pricedLineShape })),
+  refund: z.nullable(z.object({ status: z.enum(REFUND_STATUSES), amount: z.number().check(z.int()), last_error: z.nullable(z.string()) })),
   created_at: z.string(),
 });
 export type CreditNote = z.infer<typeof creditNoteSchema>;
 
 export const invoiceSummarySchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   number: z.string(),
   status: z.enum(INVOICE_STATUSES),
   status_label: z.string(),
-  order: z.object({ id: z.number().int(), reference: z.string() }),
+  order: z.object({ id: z.number().check(z.int()), reference: z.string() }),
   contractor: orgRefSchema,
   branch: branchRefSchema,
   currency: z.string(),
   issue_date: z.string(),
-  due_date: z.string().nullable(),
+  due_date: z.nullable(z.string()),
   pay_by: z.enum(PAY_BY),
   ...documentTotalsShape,
-  credited: z.number().int(),
-  paid: z.number().int(),
+  credited: z.number().check(z.int()),
+  paid: z.number().check(z.int()),
   /** total − credited − paid, never below 0. */
-  balance: z.number().int(),
+  balance: z.number().check(z.int()),
   overdue: z.boolean(),
 });
 export type InvoiceSummary = z.infer<typeof invoiceSummarySchema>;
 
-export const invoiceSchema = invoiceSummarySchema.extend({
+export const invoiceSchema = z.extend(invoiceSummarySchema, {
   basis: z.enum(INVOICE_BASES),
   site_name: z.string(),
   po_reference: z.string(),
@@ -107,31 +108,29 @@ export const invoiceSchema = invoiceSummarySchema.extend({
 export type Invoice = z.infer<typeof invoiceSchema>;
 
 export const invoiceListQuerySchema = z.object({
-  status: z.enum(INVOICE_STATUSES).optional(),
-  contractor_id: z.coerce.number().int().positive().optional(),
-  page: z.coerce.number().int().min(1).default(1),
-  page_size: z.coerce.number().int().min(1).max(100).default(25),
+  status: z.optional(z.enum(INVOICE_STATUSES)),
+  contractor_id: z.optional(z.coerce.number().check(z.int(), z.positive())),
+  page: z._default(z.coerce.number().check(z.int(), z.gte(1)), 1),
+  page_size: z._default(z.coerce.number().check(z.int(), z.gte(1), z.lte(100)), 25),
 });
-export const invoiceListSchema = z.object({ invoices: z.array(invoiceSummarySchema), total: z.number().int(), page: z.number().int(), page_size: z.number().int() });
-export const invoiceParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+export const invoiceListSchema = z.object({ invoices: z.array(invoiceSummarySchema), total: z.number().check(z.int()), page: z.number().check(z.int()), page_size: z.number().check(z.int()) });
+export const invoiceParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });
 
-export const creditNoteBodySchema = z
-  .object({
-    reason: z.enum(CREDIT_REASONS, { error: `must be one of ${CREDIT_REASONS.join(', ')}` }),
-    notes: z.string().trim().max(2000).optional(),
-    lines: z
-      .array(z.object({ invoice_line_id: z.number().int().positive(), quantity: z.number().int().min(1, { error: 'must be at least 1' }) }))
-      .min(1, { error: 'credit at least one line' })
-      .max(200)
-      .superRefine((lines, ctx) => {
-        const seen = new Set<number>();
-        lines.forEach((l, i) => {
-          if (seen.has(l.invoice_line_id)) ctx.addIssue({ code: 'custom', path: [i, 'invoice_line_id'], message: 'this line is listed twice' });
-          seen.add(l.invoice_line_id);
-        });
-      }),
-  })
-  .strict();
+export const creditNoteBodySchema = z.strictObject({
+  reason: z.enum(CREDIT_REASONS, { error: `must be one of ${CREDIT_REASONS.join(', ')}` }),
+  notes: z.optional(z.string().check(z.trim(), z.maxLength(2000))),
+  lines: z.array(z.object({ invoice_line_id: z.number().check(z.int(), z.positive()), quantity: z.number().check(z.int(), z.gte(1, { error: 'must be at least 1' })) })).check(
+    z.minLength(1, { error: 'credit at least one line' }),
+    z.maxLength(200),
+    z.superRefine((lines, ctx) => {
+      const seen = new Set<number>();
+      lines.forEach((l, i) => {
+        if (seen.has(l.invoice_line_id)) ctx.addIssue({ code: 'custom', path: [i, 'invoice_line_id'], message: 'this line is listed twice' });
+        seen.add(l.invoice_line_id);
+      });
+    }),
+  ),
+});
 export type CreditNoteBody = z.input<typeof creditNoteBodySchema>;
 
 // Account customers: a contractor the merchant lets pay by a due date.
@@ -139,17 +138,15 @@ export type CreditNoteBody = z.input<typeof creditNoteBodySchema>;
 export const accountSchema = z.object({
   contractor: orgRefSchema,
   /** Days from the invoice date to the due date; null = no account (pays by card). */
-  terms_days: z.number().int().nullable(),
+  terms_days: z.nullable(z.number().check(z.int())),
   /** Whether the contractor may pay its account invoices by card too (always, without an account). */
   card_payments: z.boolean(),
-  orders: z.number().int(),
+  orders: z.number().check(z.int()),
 });
 export const accountListSchema = z.object({ accounts: z.array(accountSchema) });
-export const accountParamsSchema = z.object({ contractorId: z.coerce.number().int().positive() });
-export const putAccountBodySchema = z
-  .object({
-    terms_days: z.number({ error: 'must be a number' }).int({ error: 'must be whole days' }).min(0, { error: 'must not be negative' }).max(120, { error: 'must be at most 120 days' }),
-    /** Let the contractor pay account invoices by card as well; left out keeps the account's setting (on for a new account). */
-    card_payments: z.boolean({ error: 'must be true or false' }).optional(),
-  })
-  .strict();
+export const accountParamsSchema = z.object({ contractorId: z.coerce.number().check(z.int(), z.positive()) });
+export const putAccountBodySchema = z.strictObject({
+  terms_days: z.number({ error: 'must be a number' }).check(z.int({ error: 'must be whole days' }), z.gte(0, { error: 'must not be negative' }), z.lte(120, { error: 'must be at most 120 days' })),
+  /** Let the contractor pay account invoices by card as well; left out keeps the account's setting (on for a new account). */
+  card_payments: z.optional(z.boolean({ error: 'must be true or false' })),
+});

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import { PRODUCT_CATEGORIES } from './catalogue.schema';
 import { INVOICE_STATUSES } from './invoice.schema';
 import { ORDER_DATE_FIELDS, ORDER_STATUSES, QUOTE_REQUEST_STATUSES, isoDateSchema } from './order.schema';
@@ -10,26 +11,24 @@ import { ORDER_DATE_FIELDS, ORDER_STATUSES, QUOTE_REQUEST_STATUSES, isoDateSchem
  */
 
 /** The words typed into a list's search box: trimmed, at most 100 characters as the list queries allow. */
-export const searchWordsSchema = z
-  .string()
-  .trim()
-  .max(100, { error: 'must be at most 100 characters' })
-  .optional()
-  .transform((words) => words || undefined);
+export const searchWordsSchema = z.pipe(
+  z.optional(z.string().check(z.trim(), z.maxLength(100, { error: 'must be at most 100 characters' }))),
+  z.transform((words) => words || undefined),
+);
 
 /** One of `values`, or the empty "every …" choice (no filter). */
 function choiceOrEvery<const T extends readonly [string, ...string[]]>(values: T) {
-  return z
-    .union([z.literal(''), z.enum(values)])
-    .optional()
-    .transform((value) => (value ? value : undefined));
+  return z.pipe(
+    z.optional(z.union([z.literal(''), z.enum(values)])),
+    z.transform((value) => (value ? value : undefined)),
+  );
 }
 
 /** A day typed in a date box, or nothing. */
-const optionalDay = z
-  .union([z.literal(''), isoDateSchema])
-  .optional()
-  .transform((day) => day || undefined);
+const optionalDay = z.pipe(
+  z.optional(z.union([z.literal(''), isoDateSchema])),
+  z.transform((day) => day || undefined),
+);
 
 /** The contractor's orders: a stage and the search words. */
 export const orderSearchSchema = z.object({
@@ -46,27 +45,26 @@ export const ORDER_BOOK_PAGE_SIZES = ['25', '50', '100'] as const;
 export const orderBookSearchSchema = z
   .object({
     statuses: choiceOrEvery([...ORDER_BOOK_STAGE_GROUPS, ...ORDER_STATUSES]),
-    branch_id: z
-      .string()
-      .regex(/^\d*$/, { error: 'Choose one of the options' })
-      .optional()
-      .transform((id) => id || undefined),
-    page_size: z.enum(ORDER_BOOK_PAGE_SIZES).optional(),
+    branch_id: z.pipe(
+      z.optional(z.string().check(z.regex(/^\d*$/, { error: 'Choose one of the options' }))),
+      z.transform((id) => id || undefined),
+    ),
+    page_size: z.optional(z.enum(ORDER_BOOK_PAGE_SIZES)),
     q: searchWordsSchema,
-    date_field: z.enum(ORDER_DATE_FIELDS).optional(),
+    date_field: z.optional(z.enum(ORDER_DATE_FIELDS)),
     date_from: optionalDay,
     date_to: optionalDay,
   })
-  .refine((s) => !s.date_from || !s.date_to || s.date_from <= s.date_to, { path: ['date_to'], error: 'must be on or after the From day' });
+  .check(z.refine((s) => !s.date_from || !s.date_to || s.date_from <= s.date_to, { path: ['date_to'], error: 'must be on or after the From day' }));
 export type OrderBookSearch = z.output<typeof orderBookSearchSchema>;
 
 /** Either side's quote requests: a stage, the desk's "only those waiting for our price" (a tick box), the search words. */
 export const quoteRequestSearchSchema = z.object({
   status: choiceOrEvery(QUOTE_REQUEST_STATUSES),
-  waiting: z
-    .literal('on')
-    .optional()
-    .transform((ticked) => (ticked ? ('true' as const) : undefined)),
+  waiting: z.pipe(
+    z.optional(z.literal('on')),
+    z.transform((ticked) => (ticked ? ('true' as const) : undefined)),
+  ),
   q: searchWordsSchema,
 });
 export type QuoteRequestSearch = z.output<typeof quoteRequestSearchSchema>;
@@ -74,10 +72,10 @@ export type QuoteRequestSearch = z.output<typeof quoteRequestSearchSchema>;
 /** The firm's sites: the search words (the list follows them as they are typed) and whether archived sites are included. */
 export const projectSearchSchema = z.object({
   q: searchWordsSchema,
-  archived: z
-    .literal('on')
-    .optional()
-    .transform((ticked) => (ticked ? ('all' as const) : ('false' as const))),
+  archived: z.pipe(
+    z.optional(z.literal('on')),
+    z.transform((ticked) => (ticked ? ('all' as const) : ('false' as const))),
+  ),
 });
 export type ProjectSearch = z.output<typeof projectSearchSchema>;
 
@@ -86,14 +84,14 @@ export const invoiceFilterSchema = z.object({ status: choiceOrEvery(INVOICE_STAT
 
 /** The merchant's products: in use, archived or both, and one category or every one. */
 export const productFilterSchema = z.object({
-  archived: z.enum(['false', 'true', 'all']).default('false'),
+  archived: z._default(z.enum(['false', 'true', 'all']), 'false'),
   category: choiceOrEvery(PRODUCT_CATEGORIES),
 });
 
 /** A branch's stock: only what is at or below its reorder level (a tick box), or everything. */
 export const stockFilterSchema = z.object({
-  low_only: z
-    .literal('on')
-    .optional()
-    .transform((ticked) => ticked === 'on'),
+  low_only: z.pipe(
+    z.optional(z.literal('on')),
+    z.transform((ticked) => ticked === 'on'),
+  ),
 });

@@ -1,12 +1,13 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import { ROLES } from '../domain/roles';
 import { emailSchema } from './auth.schema';
 
-export const idParamsSchema = z.object({ id: z.coerce.number().int().positive() });
-export const tokenParamsSchema = z.object({ token: z.string().min(20).max(200) });
+export const idParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });
+export const tokenParamsSchema = z.object({ token: z.string().check(z.minLength(20), z.maxLength(200)) });
 
 export const memberSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   email: z.string(),
   name: z.string(),
   role: z.enum(ROLES),
@@ -22,7 +23,7 @@ export const createInvitationBodySchema = z.object({
 });
 
 export const invitationSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   email: z.string(),
   role: z.enum(ROLES),
   expires_at: z.string(),
@@ -38,27 +39,27 @@ export const invitationPreviewSchema = z.object({
 });
 
 export const branchSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   name: z.string(),
   address: z.string(),
   town: z.string(),
-  phone: z.string().nullable(),
+  phone: z.nullable(z.string()),
 });
 
 export const organisationSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   name: z.string(),
   kind: z.enum(['contractor', 'merchant']),
   branches: z.array(branchSchema),
 });
 
 export const outboxMessageSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   from: z.string(),
   to: z.string(),
   subject: z.string(),
   text: z.string(),
-  html: z.string().nullable(),
+  html: z.nullable(z.string()),
   created_at: z.string(),
 });
 export const outboxListSchema = z.object({ messages: z.array(outboxMessageSchema) });

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 
 /**
  * The money of one priced line, in integer minor units of the configured currency: packs at a pack
@@ -6,17 +7,17 @@ import { z } from 'zod';
  * minor unit per line. Invoice lines, credit-note lines and credit-note drafts all carry it.
  */
 export const pricedLineShape = {
-  quantity: z.number().int(),
-  unit_price: z.number().int(),
-  tax_rate_bp: z.number().int(),
-  net: z.number().int(),
-  tax: z.number().int(),
-  total: z.number().int(),
+  quantity: z.number().check(z.int()),
+  unit_price: z.number().check(z.int()),
+  tax_rate_bp: z.number().check(z.int()),
+  net: z.number().check(z.int()),
+  tax: z.number().check(z.int()),
+  total: z.number().check(z.int()),
 };
 
 /** A document's sums in minor units: before tax, the tax, and with tax. */
 export const documentTotalsShape = {
-  subtotal: z.number().int(),
-  tax_total: z.number().int(),
-  total: z.number().int(),
+  subtotal: z.number().check(z.int()),
+  tax_total: z.number().check(z.int()),
+  total: z.number().check(z.int()),
 };

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import { FaceLookup, SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from './schedule.schema';
 
 /**
@@ -26,42 +27,46 @@ export function normaliseOpeningKind(raw: string): string {
     .replace(/[\s-]+/g, '_');
 }
 
-const textField = z.string({ error: SCHEDULE_MESSAGES.required }).trim().min(1, { error: SCHEDULE_MESSAGES.required }).max(SCHEDULE_LIMITS.maxTextLength, { error: SCHEDULE_MESSAGES.textTooLong });
+const textField = z
+  .string({ error: SCHEDULE_MESSAGES.required })
+  .check(z.trim(), z.minLength(1, { error: SCHEDULE_MESSAGES.required }), z.maxLength(SCHEDULE_LIMITS.maxTextLength, { error: SCHEDULE_MESSAGES.textTooLong }));
 
-const mmField = z.number({ error: SCHEDULE_MESSAGES.notNumber }).superRefine((v, ctx) => {
-  const problem = millimetreProblem(v, false);
-  if (problem) ctx.addIssue({ code: 'custom', message: problem });
-});
+const mmField = z.number({ error: SCHEDULE_MESSAGES.notNumber }).check(
+  z.superRefine((v, ctx) => {
+    const problem = millimetreProblem(v, false);
+    if (problem) ctx.addIssue({ code: 'custom', message: problem });
+  }),
+);
 
 /** One opening row as a person or a client sends it (JSON). */
 export const openingRowSchema = z.object({
-  building: textField.optional().default('1'),
+  building: z._default(z.optional(textField), '1'),
   face: textField,
-  kind: z
-    .string({ error: SCHEDULE_MESSAGES.required })
-    .transform(normaliseOpeningKind)
-    .pipe(z.enum(OPENING_KINDS, { error: (iss) => openingKindProblem(String(iss.input)) ?? 'unknown kind' })),
+  kind: z.pipe(z.pipe(z.string({ error: SCHEDULE_MESSAGES.required }), z.transform(normaliseOpeningKind)), z.enum(OPENING_KINDS, { error: (iss) => openingKindProblem(String(iss.input)) ?? 'unknown kind' })),
   width_mm: mmField,
   height_mm: mmField,
-  quantity: z
-    .number({ error: SCHEDULE_MESSAGES.quantity })
-    .superRefine((v, ctx) => {
-      const problem = quantityProblem(v);
-      if (problem) ctx.addIssue({ code: 'custom', message: problem });
-    })
-    .optional()
-    .default(1),
+  quantity: z._default(
+    z.optional(
+      z.number({ error: SCHEDULE_MESSAGES.quantity }).check(
+        z.superRefine((v, ctx) => {
+          const problem = quantityProblem(v);
+          if (problem) ctx.addIssue({ code: 'custom', message: problem });
+        }),
+      ),
+    ),
+    1,
+  ),
 });
 export type OpeningRowInput = z.input<typeof openingRowSchema>;
 
 /** A checked opening: what the engine works from. */
 export const openingSchema = z.object({
-  building: z.string().min(1),
-  face: z.string().min(1),
+  building: z.string().check(z.minLength(1)),
+  face: z.string().check(z.minLength(1)),
   kind: z.enum(OPENING_KINDS),
-  width_mm: z.number().positive(),
-  height_mm: z.number().positive(),
-  quantity: z.number().int().min(1),
+  width_mm: z.number().check(z.positive()),
+  height_mm: z.number().check(z.positive()),
+  quantity: z.number().check(z.int(), z.gte(1)),
 });
 export type Opening = z.infer<typeof openingSchema>;
 

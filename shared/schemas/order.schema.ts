@@ -1,5 +1,6 @@
 import { isIsoDate } from '../domain/business-calendar';
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import { can, type Action } from '../domain/policy';
 import type { Role } from '../domain/roles';
 import { PRODUCT_CATEGORIES, branchRefSchema } from './catalogue.schema';
@@ -96,124 +97,117 @@ export const PROPOSAL_STATUSES = ['open', 'accepted', 'declined', 'superseded'] 
 
 const isRealDate = isIsoDate;
 
-export const isoDateSchema = z
-  .string({ error: 'must be a date YYYY-MM-DD' })
-  .regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'must be a date YYYY-MM-DD' })
-  .refine(isRealDate, { error: 'is not a real date' });
+export const isoDateSchema = z.string({ error: 'must be a date YYYY-MM-DD' }).check(z.regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'must be a date YYYY-MM-DD' }), z.refine(isRealDate, { error: 'is not a real date' }));
 
 const minutes = (hhmm: string) => Number(hhmm.slice(0, 2)) * 60 + Number(hhmm.slice(3, 5));
 
-export const timeWindowSchema = z
-  .string({ error: 'must be a time window HH:MM-HH:MM' })
-  .regex(/^([01]\d|2[0-3]):[0-5]\d-([01]\d|2[0-3]):[0-5]\d$/, { error: 'must be a time window HH:MM-HH:MM, e.g. 07:30-12:00' })
-  .refine((w) => minutes(w.slice(0, 5)) < minutes(w.slice(6, 11)), { error: 'must end after it starts' });
+export const timeWindowSchema = z.string({ error: 'must be a time window HH:MM-HH:MM' }).check(
+  z.regex(/^([01]\d|2[0-3]):[0-5]\d-([01]\d|2[0-3]):[0-5]\d$/, { error: 'must be a time window HH:MM-HH:MM, e.g. 07:30-12:00' }),
+  z.refine((w) => minutes(w.slice(0, 5)) < minutes(w.slice(6, 11)), { error: 'must end after it starts' }),
+);
 
-const text = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, { error: `must be at most ${max} characters` });
-const packs = () => z.number({ error: 'must be a whole number of packs' }).int({ error: 'must be a whole number of packs' }).min(1, { error: 'must be at least 1' }).max(1_000_000, { error: 'must be at most 1,000,000' });
+const text = (max: number) => z.string().check(z.trim(), z.maxLength(max, { error: `must be at most ${max} characters` }));
+const packs = () =>
+  z.number({ error: 'must be a whole number of packs' }).check(z.int({ error: 'must be a whole number of packs' }), z.gte(1, { error: 'must be at least 1' }), z.lte(1_000_000, { error: 'must be at most 1,000,000' }));
 
 export const orderLineInputSchema = z.object({
-  product_id: z.number().int().positive(),
+  product_id: z.number().check(z.int(), z.positive()),
   quantity: packs(),
 });
 
-const linesInput = z
-  .array(orderLineInputSchema)
-  .min(1, { error: 'an order needs at least one line' })
-  .max(200, { error: 'at most 200 lines' })
-  .superRefine((lines, ctx) => {
+const linesInput = z.array(orderLineInputSchema).check(
+  z.minLength(1, { error: 'an order needs at least one line' }),
+  z.maxLength(200, { error: 'at most 200 lines' }),
+  z.superRefine((lines, ctx) => {
     const seen = new Set<number>();
     lines.forEach((l, i) => {
       if (seen.has(l.product_id)) ctx.addIssue({ code: 'custom', path: [i, 'product_id'], message: 'this product is already on the order' });
       seen.add(l.product_id);
     });
-  });
+  }),
+);
 
-export const placeOrderBodySchema = z
-  .object({
-    estimate_id: z.number().int().positive(),
-    branch_id: z.number().int().positive(),
-    requested_date: isoDateSchema,
-    time_window: timeWindowSchema.nullable().optional(),
-    delivery_method: z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' }),
-    notes: text(2000).optional(),
-    po_reference: text(60).optional(),
-    /** Packs of each product; left out, the estimate's lines are ordered as they are. */
-    lines: linesInput.optional(),
-  })
-  .strict();
+export const placeOrderBodySchema = z.strictObject({
+  estimate_id: z.number().check(z.int(), z.positive()),
+  branch_id: z.number().check(z.int(), z.positive()),
+  requested_date: isoDateSchema,
+  time_window: z.optional(z.nullable(timeWindowSchema)),
+  delivery_method: z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' }),
+  notes: z.optional(text(2000)),
+  po_reference: z.optional(text(60)),
+  /** Packs of each product; left out, the estimate's lines are ordered as they are. */
+  lines: z.optional(linesInput),
+});
 export type PlaceOrderBody = z.input<typeof placeOrderBodySchema>;
 
 /** An amendment names the revision it was made on, so it never overwrites a change it has not seen. */
 export const amendOrderBodySchema = z
-  .object({
-    revision: z.number().int().positive(),
-    requested_date: isoDateSchema.optional(),
-    time_window: timeWindowSchema.nullable().optional(),
-    delivery_method: z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' }).optional(),
-    notes: text(2000).optional(),
-    po_reference: text(60).optional(),
-    lines: linesInput.optional(),
+  .strictObject({
+    revision: z.number().check(z.int(), z.positive()),
+    requested_date: z.optional(isoDateSchema),
+    time_window: z.optional(z.nullable(timeWindowSchema)),
+    delivery_method: z.optional(z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' })),
+    notes: z.optional(text(2000)),
+    po_reference: z.optional(text(60)),
+    lines: z.optional(linesInput),
   })
-  .strict()
-  .refine((b) => Object.keys(b).some((k) => k !== 'revision'), { error: 'send at least one field to change' });
+  .check(z.refine((b) => Object.keys(b).some((k) => k !== 'revision'), { error: 'send at least one field to change' }));
 export type AmendOrderBody = z.input<typeof amendOrderBodySchema>;
 
-export const cancelOrderBodySchema = z.object({ reason: text(500).optional() }).strict();
-export const answerProposalBodySchema = z.object({ note: text(500).optional() }).strict();
+export const cancelOrderBodySchema = z.strictObject({ reason: z.optional(text(500)) });
+export const answerProposalBodySchema = z.strictObject({ note: z.optional(text(500)) });
 
 /** The desk's answer to an order: what it can send now, what follows later, what it offers instead, and when. */
 export const proposalBodySchema = z
-  .object({
-    revision: z.number().int().positive(),
-    message: text(2000).optional(),
-    lines: z
-      .array(
-        z.object({
-          line_id: z.number().int().positive(),
-          confirmed_quantity: z.number().int().min(0),
-          back_order_quantity: z.number().int().min(0).default(0),
-          substitute: z
-            .object({
-              product_id: z.number().int().positive(),
-              quantity: packs(),
-              /** Price of one pack; the branch's price when left out. */
-              unit_price: z.number().int().min(0).optional(),
-            })
-            .optional(),
-          note: text(500).optional(),
-        }),
-      )
-      .max(200)
-      .optional(),
-    proposed_date: isoDateSchema.optional(),
-    proposed_time_window: timeWindowSchema.optional(),
-    proposed_slot_id: z.number().int().positive().optional(),
+  .strictObject({
+    revision: z.number().check(z.int(), z.positive()),
+    message: z.optional(text(2000)),
+    lines: z.optional(
+      z
+        .array(
+          z.object({
+            line_id: z.number().check(z.int(), z.positive()),
+            confirmed_quantity: z.number().check(z.int(), z.gte(0)),
+            back_order_quantity: z._default(z.number().check(z.int(), z.gte(0)), 0),
+            substitute: z.optional(
+              z.object({
+                product_id: z.number().check(z.int(), z.positive()),
+                quantity: packs(),
+                /** Price of one pack; the branch's price when left out. */
+                unit_price: z.optional(z.number().check(z.int(), z.gte(0))),
+              }),
+            ),
+            note: z.optional(text(500)),
+          }),
+        )
+        .check(z.maxLength(200)),
+    ),
+    proposed_date: z.optional(isoDateSchema),
+    proposed_time_window: z.optional(timeWindowSchema),
+    proposed_slot_id: z.optional(z.number().check(z.int(), z.positive())),
   })
-  .strict()
-  .refine((b) => (b.lines?.length ?? 0) > 0 || b.proposed_date || b.proposed_slot_id, {
-    error: 'propose at least one line change, a date or a slot',
-  });
+  .check(
+    z.refine((b) => (b.lines?.length ?? 0) > 0 || b.proposed_date || b.proposed_slot_id, {
+      error: 'propose at least one line change, a date or a slot',
+    }),
+  );
 export type ProposalBody = z.input<typeof proposalBodySchema>;
 
 export const ORDER_SORTS = ['placed_at', 'requested_date', 'status', 'subtotal', 'updated_at'] as const;
 
 export const orderListQuerySchema = z.object({
-  status: z.enum(ORDER_STATUSES).optional(),
-  branch_id: z.coerce.number().int().positive().optional(),
-  project_id: z.coerce.number().int().positive().optional(),
-  q: z.string().trim().max(100).optional(),
-  sort: z.enum(ORDER_SORTS).default('placed_at'),
-  dir: z.enum(['asc', 'desc']).default('desc'),
-  page: z.coerce.number().int().min(1).default(1),
-  page_size: z.coerce.number().int().min(1).max(100).default(25),
+  status: z.optional(z.enum(ORDER_STATUSES)),
+  branch_id: z.optional(z.coerce.number().check(z.int(), z.positive())),
+  project_id: z.optional(z.coerce.number().check(z.int(), z.positive())),
+  q: z.optional(z.string().check(z.trim(), z.maxLength(100))),
+  sort: z._default(z.enum(ORDER_SORTS), 'placed_at'),
+  dir: z._default(z.enum(['asc', 'desc']), 'desc'),
+  page: z._default(z.coerce.number().check(z.int(), z.gte(1)), 1),
+  page_size: z._default(z.coerce.number().check(z.int(), z.gte(1), z.lte(100)), 25),
 });
 export type OrderListQuery = z.input<typeof orderListQuerySchema>;
 
-export const orgRefSchema = z.object({ id: z.number().int(), name: z.string() });
+export const orgRefSchema = z.object({ id: z.number().check(z.int()), name: z.string() });
 
 export const orderSiteSchema = z.object({
   name: z.string(),
@@ -230,40 +224,40 @@ export const orderSiteSchema = z.object({
 export type OrderSite = z.infer<typeof orderSiteSchema>;
 
 export const orderLineSchema = z.object({
-  id: z.number().int(),
-  position: z.number().int(),
-  product_id: z.number().int(),
+  id: z.number().check(z.int()),
+  position: z.number().check(z.int()),
+  product_id: z.number().check(z.int()),
   sku: z.string(),
   description: z.string(),
   category: z.enum(PRODUCT_CATEGORIES),
   unit: z.string(),
-  pack_size: z.number().int(),
+  pack_size: z.number().check(z.int()),
   pack_weight_kg: z.number(),
   /** Packs asked for. */
-  quantity: z.number().int(),
+  quantity: z.number().check(z.int()),
   /** Packs the merchant agreed to send; null until it answers. */
-  confirmed_quantity: z.number().int().nullable(),
-  back_order_quantity: z.number().int(),
-  reserved_quantity: z.number().int(),
-  unit_price: z.number().int(),
+  confirmed_quantity: z.nullable(z.number().check(z.int())),
+  back_order_quantity: z.number().check(z.int()),
+  reserved_quantity: z.number().check(z.int()),
+  unit_price: z.number().check(z.int()),
   /** unit_price × (agreed, or asked, packs + back-ordered packs). */
-  total: z.number().int(),
+  total: z.number().check(z.int()),
   status: z.enum(ORDER_LINE_STATUSES),
-  replaces_line_id: z.number().int().nullable(),
+  replaces_line_id: z.nullable(z.number().check(z.int())),
 });
 export type OrderLine = z.infer<typeof orderLineSchema>;
 
 /** One item of a bill as it was and as the engine works it out again with another tile. */
 const billItemSchema = z.object({
-  product_id: z.number().int().nullable(),
-  sku: z.string().nullable(),
+  product_id: z.nullable(z.number().check(z.int())),
+  sku: z.nullable(z.string()),
   description: z.string(),
   /** The engine's count in the product's unit (tiles, lengths, nails, rolls). */
   quantity: z.number(),
   unit: z.string(),
-  packs: z.number().int(),
-  unit_price: z.number().int().nullable(),
-  total: z.number().int().nullable(),
+  packs: z.number().check(z.int()),
+  unit_price: z.nullable(z.number().check(z.int())),
+  total: z.nullable(z.number().check(z.int())),
 });
 
 /**
@@ -275,110 +269,110 @@ export const substituteFiguresSchema = z.object({
   engine_version: z.string(),
   tile: z.object({ sku: z.string(), description: z.string(), kind: z.string(), lowest_pitch_deg: z.number() }),
   refused_faces: z.array(z.object({ building: z.string(), face: z.string(), pitch_deg: z.number(), message: z.string() })),
-  rows: z.array(z.object({ role: z.string(), label: z.string(), before: billItemSchema.nullable(), after: billItemSchema.nullable(), changes: z.boolean() })),
+  rows: z.array(z.object({ role: z.string(), label: z.string(), before: z.nullable(billItemSchema), after: z.nullable(billItemSchema), changes: z.boolean() })),
   /** Counted items with no product on the order to meet them (add them by hand). */
   not_counted: z.array(z.string()),
-  before_total: z.number().int(),
-  after_total: z.number().int(),
-  price_difference_minor: z.number().int(),
+  before_total: z.number().check(z.int()),
+  after_total: z.number().check(z.int()),
+  price_difference_minor: z.number().check(z.int()),
 });
 export type SubstituteFigures = z.infer<typeof substituteFiguresSchema>;
 
 /** A product the desk may offer instead of a line, with the figures that go with it. */
 export const substituteOptionSchema = z.object({
-  product_id: z.number().int(),
+  product_id: z.number().check(z.int()),
   sku: z.string(),
   name: z.string(),
   unit: z.string(),
-  pack_size: z.number().int(),
-  pack_price: z.number().int(),
-  available: z.number().int(),
+  pack_size: z.number().check(z.int()),
+  pack_price: z.number().check(z.int()),
+  available: z.number().check(z.int()),
   /** Packs to offer: the engine's count for a tile, the same quantity in the new pack size otherwise. */
-  quantity: z.number().int(),
+  quantity: z.number().check(z.int()),
   /** False when the tile does not suit every face of the order's roof; the desk cannot offer it. */
   suitable: z.boolean(),
-  reason: z.string().nullable(),
-  figures: substituteFiguresSchema.nullable(),
+  reason: z.nullable(z.string()),
+  figures: z.nullable(substituteFiguresSchema),
 });
 export type SubstituteOption = z.infer<typeof substituteOptionSchema>;
-export const substituteOptionsSchema = z.object({ line_id: z.number().int(), options: z.array(substituteOptionSchema) });
+export const substituteOptionsSchema = z.object({ line_id: z.number().check(z.int()), options: z.array(substituteOptionSchema) });
 export type SubstituteOptions = z.infer<typeof substituteOptionsSchema>;
 
 export const proposalLineSchema = z.object({
-  order_line_id: z.number().int(),
+  order_line_id: z.number().check(z.int()),
   sku: z.string(),
   description: z.string(),
-  quantity: z.number().int(),
-  confirmed_quantity: z.number().int(),
-  back_order_quantity: z.number().int(),
-  substitute: z
-    .object({
-      product_id: z.number().int(),
+  quantity: z.number().check(z.int()),
+  confirmed_quantity: z.number().check(z.int()),
+  back_order_quantity: z.number().check(z.int()),
+  substitute: z.nullable(
+    z.object({
+      product_id: z.number().check(z.int()),
       sku: z.string(),
       description: z.string(),
       unit: z.string(),
-      pack_size: z.number().int(),
-      quantity: z.number().int(),
-      unit_price: z.number().int(),
-      total: z.number().int(),
+      pack_size: z.number().check(z.int()),
+      quantity: z.number().check(z.int()),
+      unit_price: z.number().check(z.int()),
+      total: z.number().check(z.int()),
       /** The engine's figures for a substitute tile on the order's roof; null for other products. */
-      figures: substituteFiguresSchema.nullable(),
-    })
-    .nullable(),
+      figures: z.nullable(substituteFiguresSchema),
+    }),
+  ),
   note: z.string(),
 });
 
-const personRef = z.object({ id: z.number().int(), name: z.string() }).nullable();
+const personRef = z.nullable(z.object({ id: z.number().check(z.int()), name: z.string() }));
 
 export const proposalSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   status: z.enum(PROPOSAL_STATUSES),
-  order_revision: z.number().int(),
+  order_revision: z.number().check(z.int()),
   message: z.string(),
-  proposed_date: z.string().nullable(),
-  proposed_time_window: z.string().nullable(),
-  proposed_slot_id: z.number().int().nullable(),
+  proposed_date: z.nullable(z.string()),
+  proposed_time_window: z.nullable(z.string()),
+  proposed_slot_id: z.nullable(z.number().check(z.int())),
   proposed_at: z.string(),
   proposed_by: personRef,
-  answered_at: z.string().nullable(),
+  answered_at: z.nullable(z.string()),
   answered_by: personRef,
   lines: z.array(proposalLineSchema),
 });
 export type Proposal = z.infer<typeof proposalSchema>;
 
 export const orderEventSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   kind: z.string(),
   at: z.string(),
-  actor: z.object({ name: z.string(), organisation: orgRefSchema.nullable() }),
+  actor: z.object({ name: z.string(), organisation: z.nullable(orgRefSchema) }),
   summary: z.string(),
   data: z.record(z.string(), z.unknown()),
 });
 export type OrderEvent = z.infer<typeof orderEventSchema>;
 
 export const orderSummarySchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   reference: z.string(),
   status: z.enum(ORDER_STATUSES),
   status_label: z.string(),
-  revision: z.number().int(),
+  revision: z.number().check(z.int()),
   contractor: orgRefSchema,
   branch: branchRefSchema,
-  project: z.object({ id: z.number().int(), name: z.string() }),
+  project: z.object({ id: z.number().check(z.int()), name: z.string() }),
   requested_date: z.string(),
-  time_window: z.string().nullable(),
+  time_window: z.nullable(z.string()),
   delivery_method: z.enum(DELIVERY_METHODS),
   po_reference: z.string(),
-  subtotal: z.number().int(),
-  line_count: z.number().int(),
+  subtotal: z.number().check(z.int()),
+  line_count: z.number().check(z.int()),
   placed_at: z.string(),
   updated_at: z.string(),
 });
 export type OrderSummary = z.infer<typeof orderSummarySchema>;
 
-export const orderSchema = orderSummarySchema.extend({
-  estimate_id: z.number().int().nullable(),
-  quote_id: z.number().int().nullable(),
+export const orderSchema = z.extend(orderSummarySchema, {
+  estimate_id: z.nullable(z.number().check(z.int())),
+  quote_id: z.nullable(z.number().check(z.int())),
   notes: z.string(),
   site: orderSiteSchema,
   lines: z.array(orderLineSchema),
@@ -387,8 +381,8 @@ export const orderSchema = orderSummarySchema.extend({
   /** What the caller's side may do now (see ORDER_TRANSITIONS). */
   allowed_actions: z.array(z.string()),
   cautions: z.array(z.string()),
-  confirmed_at: z.string().nullable(),
-  cancelled_at: z.string().nullable(),
+  confirmed_at: z.nullable(z.string()),
+  cancelled_at: z.nullable(z.string()),
 });
 export type Order = z.infer<typeof orderSchema>;
 
@@ -397,16 +391,16 @@ export const ORDER_COUNT_CAP = 10_000;
 
 export const orderListSchema = z.object({
   orders: z.array(orderSummarySchema),
-  total: z.number().int(),
+  total: z.number().check(z.int()),
   /** True when more orders match than ORDER_COUNT_CAP: total is then a floor, not the count. */
-  total_capped: z.boolean().default(false),
-  page: z.number().int(),
-  page_size: z.number().int(),
+  total_capped: z._default(z.boolean(), false),
+  page: z.number().check(z.int()),
+  page_size: z.number().check(z.int()),
 });
 
-export const orderParamsSchema = z.object({ id: z.coerce.number().int().positive() });
-export const orderLineParamsSchema = z.object({ id: z.coerce.number().int().positive(), lineId: z.coerce.number().int().positive() });
-export const proposalParamsSchema = z.object({ id: z.coerce.number().int().positive(), proposalId: z.coerce.number().int().positive() });
+export const orderParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });
+export const orderLineParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()), lineId: z.coerce.number().check(z.int(), z.positive()) });
+export const proposalParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()), proposalId: z.coerce.number().check(z.int(), z.positive()) });
 
 /** The reference both sides quote on the phone. */
 export function orderReference(id: number): string {
@@ -427,49 +421,44 @@ export const QUOTE_STATUS_LABELS: Record<(typeof QUOTE_STATUSES)[number], string
 };
 export const MAX_QUOTE_BRANCHES = 3;
 
-export const createQuoteRequestBodySchema = z
-  .object({
-    estimate_id: z.number().int().positive(),
-    branch_ids: z
-      .array(z.number().int().positive())
-      .min(1, { error: 'choose at least one merchant branch' })
-      .max(MAX_QUOTE_BRANCHES, { error: `a quote request goes to at most ${MAX_QUOTE_BRANCHES} branches` })
-      .refine((ids) => new Set(ids).size === ids.length, { error: 'a branch is chosen twice' }),
-    requested_date: isoDateSchema,
-    time_window: timeWindowSchema.nullable().optional(),
-    delivery_method: z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' }),
-    notes: text(2000).optional(),
-    po_reference: text(60).optional(),
-  })
-  .strict();
+export const createQuoteRequestBodySchema = z.strictObject({
+  estimate_id: z.number().check(z.int(), z.positive()),
+  branch_ids: z.array(z.number().check(z.int(), z.positive())).check(
+    z.minLength(1, { error: 'choose at least one merchant branch' }),
+    z.maxLength(MAX_QUOTE_BRANCHES, { error: `a quote request goes to at most ${MAX_QUOTE_BRANCHES} branches` }),
+    z.refine((ids) => new Set(ids).size === ids.length, { error: 'a branch is chosen twice' }),
+  ),
+  requested_date: isoDateSchema,
+  time_window: z.optional(z.nullable(timeWindowSchema)),
+  delivery_method: z.enum(DELIVERY_METHODS, { error: 'must be ground or roof' }),
+  notes: z.optional(text(2000)),
+  po_reference: z.optional(text(60)),
+});
 export type CreateQuoteRequestBody = z.input<typeof createQuoteRequestBodySchema>;
 
-export const answerQuoteBodySchema = z
-  .object({
-    lines: z
-      .array(
-        z.object({
-          request_line_id: z.number().int().positive(),
-          product_id: z.number().int().positive(),
-          /** Packs offered; enough packs for the quantity asked when left out. */
-          packs: packs().optional(),
-          /** Price of one pack; the branch's price when left out. */
-          unit_price: z.number().int().min(0).optional(),
-          note: text(500).optional(),
-        }),
-      )
-      .min(1, { error: 'price at least one line, or decline the request' })
-      .max(200),
-    valid_until: isoDateSchema.optional(),
-    message: text(2000).optional(),
-  })
-  .strict();
+export const answerQuoteBodySchema = z.strictObject({
+  lines: z
+    .array(
+      z.object({
+        request_line_id: z.number().check(z.int(), z.positive()),
+        product_id: z.number().check(z.int(), z.positive()),
+        /** Packs offered; enough packs for the quantity asked when left out. */
+        packs: z.optional(packs()),
+        /** Price of one pack; the branch's price when left out. */
+        unit_price: z.optional(z.number().check(z.int(), z.gte(0))),
+        note: z.optional(text(500)),
+      }),
+    )
+    .check(z.minLength(1, { error: 'price at least one line, or decline the request' }), z.maxLength(200)),
+  valid_until: z.optional(isoDateSchema),
+  message: z.optional(text(2000)),
+});
 export type AnswerQuoteBody = z.input<typeof answerQuoteBodySchema>;
-export const declineQuoteBodySchema = z.object({ message: text(2000).optional() }).strict();
+export const declineQuoteBodySchema = z.strictObject({ message: z.optional(text(2000)) });
 
 export const quoteRequestLineSchema = z.object({
-  id: z.number().int(),
-  position: z.number().int(),
+  id: z.number().check(z.int()),
+  position: z.number().check(z.int()),
   category: z.enum(PRODUCT_CATEGORIES),
   description: z.string(),
   /** The engine's quantity from the estimate, in `unit`. */
@@ -478,57 +467,57 @@ export const quoteRequestLineSchema = z.object({
 });
 
 export const quoteLineSchema = z.object({
-  request_line_id: z.number().int(),
-  product_id: z.number().int().nullable(),
-  sku: z.string().nullable(),
+  request_line_id: z.number().check(z.int()),
+  product_id: z.nullable(z.number().check(z.int())),
+  sku: z.nullable(z.string()),
   description: z.string(),
   unit: z.string(),
-  pack_size: z.number().int(),
-  packs: z.number().int(),
-  unit_price: z.number().int(),
-  total: z.number().int(),
+  pack_size: z.number().check(z.int()),
+  packs: z.number().check(z.int()),
+  unit_price: z.number().check(z.int()),
+  total: z.number().check(z.int()),
   note: z.string(),
 });
 
 export const quoteSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   status: z.enum(QUOTE_STATUSES),
   status_label: z.string(),
   branch: branchRefSchema,
   message: z.string(),
-  valid_until: z.string().nullable(),
-  total: z.number().int().nullable(),
-  answered_at: z.string().nullable(),
-  order_id: z.number().int().nullable(),
+  valid_until: z.nullable(z.string()),
+  total: z.nullable(z.number().check(z.int())),
+  answered_at: z.nullable(z.string()),
+  order_id: z.nullable(z.number().check(z.int())),
   lines: z.array(quoteLineSchema),
 });
 export type Quote = z.infer<typeof quoteSchema>;
 
 export const quoteComparisonSchema = z.object({
-  quote_ids: z.array(z.number().int()),
+  quote_ids: z.array(z.number().check(z.int())),
   rows: z.array(
     z.object({
-      request_line_id: z.number().int(),
+      request_line_id: z.number().check(z.int()),
       category: z.enum(PRODUCT_CATEGORIES),
       description: z.string(),
       quantity: z.number(),
       unit: z.string(),
       /** One entry per quote, in quote_ids order; null where that merchant offers nothing for the line. */
-      offers: z.array(z.object({ sku: z.string().nullable(), description: z.string(), packs: z.number().int(), unit_price: z.number().int(), total: z.number().int() }).nullable()),
+      offers: z.array(z.nullable(z.object({ sku: z.nullable(z.string()), description: z.string(), packs: z.number().check(z.int()), unit_price: z.number().check(z.int()), total: z.number().check(z.int()) }))),
     }),
   ),
-  totals: z.array(z.object({ quote_id: z.number().int(), total: z.number().int().nullable(), lines_offered: z.number().int(), lines_missing: z.number().int() })),
+  totals: z.array(z.object({ quote_id: z.number().check(z.int()), total: z.nullable(z.number().check(z.int())), lines_offered: z.number().check(z.int()), lines_missing: z.number().check(z.int()) })),
 });
 
 export const quoteRequestSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   status: z.enum(QUOTE_REQUEST_STATUSES),
   contractor: orgRefSchema,
-  project: z.object({ id: z.number().int(), name: z.string() }),
+  project: z.object({ id: z.number().check(z.int()), name: z.string() }),
   site: orderSiteSchema,
-  estimate_id: z.number().int(),
+  estimate_id: z.number().check(z.int()),
   requested_date: z.string(),
-  time_window: z.string().nullable(),
+  time_window: z.nullable(z.string()),
   delivery_method: z.enum(DELIVERY_METHODS),
   po_reference: z.string(),
   notes: z.string(),
@@ -536,7 +525,7 @@ export const quoteRequestSchema = z.object({
   /** The contractor sees every branch's quote; a merchant only its own. */
   quotes: z.array(quoteSchema),
   /** Side by side, for the contractor only (null for a merchant). */
-  comparison: quoteComparisonSchema.nullable(),
+  comparison: z.nullable(quoteComparisonSchema),
   cautions: z.array(z.string()),
   created_at: z.string(),
   updated_at: z.string(),
@@ -544,20 +533,20 @@ export const quoteRequestSchema = z.object({
 
 /** POST /api/quotes/:id/accept: the order the quote became, and the request with its other quotes closed. */
 export const acceptQuoteResponseSchema = z.object({
-  order: z.object({ id: z.number().int(), status: z.enum(ORDER_STATUSES), reference: z.string() }),
+  order: z.object({ id: z.number().check(z.int()), status: z.enum(ORDER_STATUSES), reference: z.string() }),
   quote_request: quoteRequestSchema,
 });
 export type QuoteRequest = z.infer<typeof quoteRequestSchema>;
 
 export const quoteRequestListSchema = z.object({
   quote_requests: z.array(
-    quoteRequestSchema.pick({ id: true, status: true, contractor: true, project: true, requested_date: true, created_at: true, updated_at: true }).extend({
-      quotes: z.array(quoteSchema.pick({ id: true, status: true, branch: true, total: true })),
+    z.extend(z.pick(quoteRequestSchema, { id: true, status: true, contractor: true, project: true, requested_date: true, created_at: true, updated_at: true }), {
+      quotes: z.array(z.pick(quoteSchema, { id: true, status: true, branch: true, total: true })),
     }),
   ),
-  total: z.number().int(),
-  page: z.number().int(),
-  page_size: z.number().int(),
+  total: z.number().check(z.int()),
+  page: z.number().check(z.int()),
+  page_size: z.number().check(z.int()),
 });
 export type QuoteRequestList = z.infer<typeof quoteRequestListSchema>;
 
@@ -569,43 +558,42 @@ export const QUOTE_REQUEST_SORTS = ['created_at', 'requested_date'] as const;
  * the caller's own price (a merchant's desk), a search over the request number, site, contractor and
  * PO reference, a sort and a page.
  */
-export const quoteRequestListQuerySchema = z
-  .object({
-    status: z.enum(QUOTE_REQUEST_STATUSES).optional(),
-    waiting: z
-      .enum(['true', 'false'])
-      .transform((v) => v === 'true')
-      .optional(),
-    q: z.string().trim().max(100, { error: 'must be at most 100 characters' }).optional(),
-    sort: z.enum(QUOTE_REQUEST_SORTS).default('created_at'),
-    dir: z.enum(['asc', 'desc']).default('desc'),
-    page: z.coerce.number().int().min(1).max(10_000).default(1),
-    page_size: z.coerce.number().int().min(1).max(100).default(25),
-  })
-  .strict();
+export const quoteRequestListQuerySchema = z.strictObject({
+  status: z.optional(z.enum(QUOTE_REQUEST_STATUSES)),
+  waiting: z.optional(
+    z.pipe(
+      z.enum(['true', 'false']),
+      z.transform((v) => v === 'true'),
+    ),
+  ),
+  q: z.optional(z.string().check(z.trim(), z.maxLength(100, { error: 'must be at most 100 characters' }))),
+  sort: z._default(z.enum(QUOTE_REQUEST_SORTS), 'created_at'),
+  dir: z._default(z.enum(['asc', 'desc']), 'desc'),
+  page: z._default(z.coerce.number().check(z.int(), z.gte(1), z.lte(10_000)), 1),
+  page_size: z._default(z.coerce.number().check(z.int(), z.gte(1), z.lte(100)), 25),
+});
 export type QuoteRequestListQuery = z.input<typeof quoteRequestListQuerySchema>;
-export const quoteParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+export const quoteParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });
 
 // The merchant's desk: confirming against stock, turning down, the delivery, comments, the order book's filters.
 
 /** Several stages at once for the order book, as a comma list: `sent,agreed`. */
-const statusList = z
-  .string()
-  .trim()
-  .max(200)
-  .transform((s, ctx) => {
-    const parts = s
-      .split(',')
-      .map((p) => p.trim())
-      .filter(Boolean);
-    for (const p of parts) {
-      if (!(ORDER_STATUSES as readonly string[]).includes(p)) {
-        ctx.addIssue({ code: 'custom', message: `"${p}" is not a stage; use ${ORDER_STATUSES.join(', ')}` });
-        return z.NEVER;
-      }
-    }
-    return parts as OrderStatus[];
-  });
+const statusParts = (s: string) =>
+  s
+    .split(',')
+    .map((p) => p.trim())
+    .filter(Boolean);
+const statusList = z.pipe(
+  z.string().check(
+    z.trim(),
+    z.maxLength(200),
+    z.superRefine((s, ctx) => {
+      const wrong = statusParts(s).find((p) => !(ORDER_STATUSES as readonly string[]).includes(p));
+      if (wrong !== undefined) ctx.addIssue({ code: 'custom', message: `"${wrong}" is not a stage; use ${ORDER_STATUSES.join(', ')}` });
+    }),
+  ),
+  z.transform((s) => statusParts(s) as OrderStatus[]),
+);
 
 /** The dates the order book filters on: the delivery day asked for, or the day the order was sent. */
 export const ORDER_DATE_FIELDS = ['requested_date', 'placed_at'] as const;
@@ -614,89 +602,81 @@ export const ORDER_DATE_FIELDS = ['requested_date', 'placed_at'] as const;
  * The order book's query: the contractor's filters plus the desk's (several stages, a contractor,
  * a date range). Dates are inclusive YYYY-MM-DD; `date_field` says which date they filter.
  */
-export const orderBookQuerySchema = orderListQuerySchema
-  .extend({
-    statuses: statusList.optional(),
-    contractor_id: z.coerce.number().int().positive().optional(),
-    date_from: isoDateSchema.optional(),
-    date_to: isoDateSchema.optional(),
-    date_field: z.enum(ORDER_DATE_FIELDS).default('requested_date'),
+export const orderBookQuerySchema = z
+  .extend(orderListQuerySchema, {
+    statuses: z.optional(statusList),
+    contractor_id: z.optional(z.coerce.number().check(z.int(), z.positive())),
+    date_from: z.optional(isoDateSchema),
+    date_to: z.optional(isoDateSchema),
+    date_field: z._default(z.enum(ORDER_DATE_FIELDS), 'requested_date'),
   })
-  .refine((q) => !q.date_from || !q.date_to || q.date_from <= q.date_to, { path: ['date_to'], error: 'must be on or after date_from' });
+  .check(z.refine((q) => !q.date_from || !q.date_to || q.date_from <= q.date_to, { path: ['date_to'], error: 'must be on or after date_from' }));
 export type OrderBookQuery = z.input<typeof orderBookQuerySchema>;
 
 /** Confirming: packs to send now per line (the rest is back-ordered), and optionally the slot to book. */
-export const confirmOrderBodySchema = z
-  .object({
-    lines: z
-      .array(z.object({ line_id: z.number().int().positive(), quantity: z.number().int().min(0).max(1_000_000) }))
-      .max(200)
-      .superRefine((lines, ctx) => {
+export const confirmOrderBodySchema = z.strictObject({
+  lines: z.optional(
+    z.array(z.object({ line_id: z.number().check(z.int(), z.positive()), quantity: z.number().check(z.int(), z.gte(0), z.lte(1_000_000)) })).check(
+      z.maxLength(200),
+      z.superRefine((lines, ctx) => {
         const seen = new Set<number>();
         lines.forEach((l, i) => {
           if (seen.has(l.line_id)) ctx.addIssue({ code: 'custom', path: [i, 'line_id'], message: 'this line is listed twice' });
           seen.add(l.line_id);
         });
-      })
-      .optional(),
-    slot_id: z.number().int().positive().optional(),
-  })
-  .strict();
+      }),
+    ),
+  ),
+  slot_id: z.optional(z.number().check(z.int(), z.positive())),
+});
 export type ConfirmOrderBody = z.input<typeof confirmOrderBodySchema>;
 
 /** One line short of stock in a refused confirmation: packs free at the branch and packs asked for. */
-export const stockShortfallSchema = z.object({ sku: z.string(), line_id: z.number().int(), available: z.number().int(), requested: z.number().int(), message: z.string() });
+export const stockShortfallSchema = z.object({ sku: z.string(), line_id: z.number().check(z.int()), available: z.number().check(z.int()), requested: z.number().check(z.int()), message: z.string() });
 
-export const turnDownBodySchema = z.object({ reason: text(500).min(1, { error: 'say why, so the contractor can order elsewhere' }) }).strict();
+export const turnDownBodySchema = z.strictObject({ reason: text(500).check(z.minLength(1, { error: 'say why, so the contractor can order elsewhere' })) });
 
 /** Starting the delivery of an order's back-ordered packs: the day (and window) it is now wanted. */
-export const followUpBodySchema = z
-  .object({
-    requested_date: isoDateSchema,
-    time_window: timeWindowSchema.nullable().optional(),
-    note: text(500).optional(),
-  })
-  .strict();
+export const followUpBodySchema = z.strictObject({
+  requested_date: isoDateSchema,
+  time_window: z.optional(z.nullable(timeWindowSchema)),
+  note: z.optional(text(500)),
+});
 export type FollowUpBody = z.input<typeof followUpBodySchema>;
 
-export const bookSlotBodySchema = z.object({ slot_id: z.number().int().positive() }).strict();
+export const bookSlotBodySchema = z.strictObject({ slot_id: z.number().check(z.int(), z.positive()) });
 
-export const commentBodySchema = z.object({ body: text(2000).min(1, { error: 'write a comment' }) }).strict();
+export const commentBodySchema = z.strictObject({ body: text(2000).check(z.minLength(1, { error: 'write a comment' })) });
 
 export const orderCommentSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   body: z.string(),
   at: z.string(),
-  author: z.object({ id: z.number().int().nullable(), name: z.string(), organisation: orgRefSchema }),
+  author: z.object({ id: z.nullable(z.number().check(z.int())), name: z.string(), organisation: orgRefSchema }),
   /** Which side wrote it, so each side can tell its own comments from the other's. */
   side: z.enum(['contractor', 'merchant']),
 });
 export type OrderComment = z.infer<typeof orderCommentSchema>;
 
 /** What the driver records at the site: packs handed over per line (others as sent), who took them, notes. */
-export const recordDeliveryBodySchema = z
-  .object({
-    lines: z
-      .array(z.object({ line_id: z.number().int().positive(), delivered_quantity: z.number().int().min(0).max(1_000_000) }))
-      .max(200)
-      .optional(),
-    received_by: text(120).min(1, { error: 'name the person who took the delivery' }),
-    notes: text(2000).optional(),
-    /** When it was handed over; now when left out. */
-    delivered_at: z.iso.datetime({ error: 'must be an ISO date and time' }).optional(),
-  })
-  .strict();
+export const recordDeliveryBodySchema = z.strictObject({
+  lines: z.optional(z.array(z.object({ line_id: z.number().check(z.int(), z.positive()), delivered_quantity: z.number().check(z.int(), z.gte(0), z.lte(1_000_000)) })).check(z.maxLength(200))),
+  received_by: text(120).check(z.minLength(1, { error: 'name the person who took the delivery' })),
+  notes: z.optional(text(2000)),
+  /** When it was handed over; now when left out. */
+  delivered_at: z.optional(z.iso.datetime({ error: 'must be an ISO date and time' })),
+});
 export type RecordDeliveryBody = z.input<typeof recordDeliveryBodySchema>;
 
 /** The booked delivery as both sides see it on the order. */
 export const orderSlotSchema = z.object({
-  slot_id: z.number().int(),
+  slot_id: z.number().check(z.int()),
   date: z.string(),
   time_window: z.string(),
-  lorry: z.object({ id: z.number().int(), registration: z.string(), has_crane: z.boolean() }),
-  driver: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+  lorry: z.object({ id: z.number().check(z.int()), registration: z.string(), has_crane: z.boolean() }),
+  driver: z.nullable(z.object({ id: z.number().check(z.int()), name: z.string() })),
   weight_kg: z.number(),
-  pallets: z.number().int(),
+  pallets: z.number().check(z.int()),
   booked_at: z.string(),
 });
 
@@ -704,7 +684,7 @@ export const orderDeliverySchema = z.object({
   delivered_at: z.string(),
   received_by: z.string(),
   notes: z.string(),
-  recorded_by: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+  recorded_by: z.nullable(z.object({ id: z.number().check(z.int()), name: z.string() })),
 });
 
 /**
@@ -714,38 +694,38 @@ export const orderDeliverySchema = z.object({
  * or the whole order cancelled or turned down).
  */
 export const lineAmountsShape = {
-  now_quantity: z.number().int(),
-  now_total: z.number().int(),
-  to_follow_total: z.number().int(),
-  dropped_quantity: z.number().int(),
-  dropped_total: z.number().int(),
+  now_quantity: z.number().check(z.int()),
+  now_total: z.number().check(z.int()),
+  to_follow_total: z.number().check(z.int()),
+  dropped_quantity: z.number().check(z.int()),
+  dropped_total: z.number().check(z.int()),
 };
 
 export const orderAmountsSchema = z.object({
-  agreed_now_minor: z.number().int(),
-  to_follow_minor: z.number().int(),
-  dropped_minor: z.number().int(),
+  agreed_now_minor: z.number().check(z.int()),
+  to_follow_minor: z.number().check(z.int()),
+  dropped_minor: z.number().check(z.int()),
 });
 export type OrderAmounts = z.infer<typeof orderAmountsSchema>;
 
-export const orderLinkSchema = z.object({ id: z.number().int(), reference: z.string(), status: z.enum(ORDER_STATUSES), status_label: z.string() });
+export const orderLinkSchema = z.object({ id: z.number().check(z.int()), reference: z.string(), status: z.enum(ORDER_STATUSES), status_label: z.string() });
 
 /**
  * An order as the detail page shows it: the shared order, the packs delivered per line, the booked
  * slot, the delivery record, the comments and the invoice once there is one.
  */
-export const orderDetailSchema = orderSchema.extend({
-  lines: z.array(orderLineSchema.extend({ delivered_quantity: z.number().int().nullable() }).extend(lineAmountsShape)),
-  slot: orderSlotSchema.nullable(),
-  delivery: orderDeliverySchema.nullable(),
+export const orderDetailSchema = z.extend(orderSchema, {
+  lines: z.array(z.extend(z.extend(orderLineSchema, { delivered_quantity: z.nullable(z.number().check(z.int())) }), lineAmountsShape)),
+  slot: z.nullable(orderSlotSchema),
+  delivery: z.nullable(orderDeliverySchema),
   comments: z.array(orderCommentSchema),
-  invoice: z.object({ id: z.number().int(), number: z.string() }).nullable(),
+  invoice: z.nullable(z.object({ id: z.number().check(z.int()), number: z.string() })),
   /** The order whose back-ordered packs this one carries. */
-  follows: orderLinkSchema.nullable(),
+  follows: z.nullable(orderLinkSchema),
   /** The order that carries this one's back-ordered packs, once started. */
-  followed_by: orderLinkSchema.nullable(),
+  followed_by: z.nullable(orderLinkSchema),
   /** Packs promised on this order that travel later (its lines' back-ordered packs). */
-  back_ordered_packs: z.number().int(),
+  back_ordered_packs: z.number().check(z.int()),
   /**
    * The order's money in three parts that add up to what was asked: what comes on this order's
    * delivery (the invoice for it has this net), what follows on the follow-up order, what was dropped.

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import { PAYMENT_STATUSES, paymentSchema } from './invoice.schema';
 
 /**
@@ -9,14 +10,14 @@ import { PAYMENT_STATUSES, paymentSchema } from './invoice.schema';
 
 export const PAYMENT_METHODS = ['card'] as const;
 
-export const startPaymentBodySchema = z.object({ method: z.enum(PAYMENT_METHODS, { error: 'must be card' }) }).strict();
+export const startPaymentBodySchema = z.strictObject({ method: z.enum(PAYMENT_METHODS, { error: 'must be card' }) });
 
 /** The answer to starting (or pressing again) a card payment: one open checkout per invoice balance. */
 export const startPaymentResultSchema = z.object({
   status: z.enum(PAYMENT_STATUSES),
-  checkout_url: z.string().nullable(),
+  checkout_url: z.nullable(z.string()),
   payment: paymentSchema,
 });
 export type StartPaymentResult = z.infer<typeof startPaymentResultSchema>;
 
-export const paymentParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+export const paymentParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 
 /** A contractor's site: where the roofs are, who to ring, and what a lorry finds when it arrives. */
 
@@ -24,34 +25,32 @@ export const OVERHEAD_LINES_LABELS: Record<(typeof OVERHEAD_LINES)[number], stri
 };
 export const BUILDING_KINDS = ['building', 'plot'] as const;
 
-const text = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, { error: `must be at most ${max} characters` });
-const required = (max: number) => text(max).min(1, { error: 'is required' });
+const text = (max: number) => z.string().check(z.trim(), z.maxLength(max, { error: `must be at most ${max} characters` }));
+const required = (max: number) => text(max).check(z.minLength(1, { error: 'is required' }));
 
 export const buildingInputSchema = z.object({
   name: required(100),
-  kind: z.enum(BUILDING_KINDS, { error: 'must be building or plot' }).default('building'),
-  notes: text(500).default(''),
+  kind: z._default(z.enum(BUILDING_KINDS, { error: 'must be building or plot' }), 'building'),
+  notes: z._default(text(500), ''),
 });
 
-const phone = text(40).refine((v) => v === '' || /^[0-9+()\s-]{6,40}$/.test(v), {
-  error: 'must be a phone number (digits, spaces, + ( ) -)',
-});
+const phone = text(40).check(
+  z.refine((v) => v === '' || /^[0-9+()\s-]{6,40}$/.test(v), {
+    error: 'must be a phone number (digits, spaces, + ( ) -)',
+  }),
+);
 
-const buildingsSchema = z
-  .array(buildingInputSchema)
-  .max(500, { error: 'at most 500 buildings or plots' })
-  .superRefine((list, ctx) => {
+const buildingsSchema = z.array(buildingInputSchema).check(
+  z.maxLength(500, { error: 'at most 500 buildings or plots' }),
+  z.superRefine((list, ctx) => {
     const seen = new Set<string>();
     list.forEach((b, i) => {
       const key = b.name.toLowerCase();
       if (seen.has(key)) ctx.addIssue({ code: 'custom', path: [i, 'name'], message: `'${b.name}' is given twice` });
       seen.add(key);
     });
-  });
+  }),
+);
 
 const editableFields = {
   name: required(160),
@@ -70,16 +69,16 @@ const editableFields = {
 
 export const createProjectBodySchema = z.object({
   ...editableFields,
-  reference: editableFields.reference.default(''),
-  site_postcode: editableFields.site_postcode.default(''),
-  contact_name: editableFields.contact_name.default(''),
-  contact_phone: editableFields.contact_phone.default(''),
-  vehicle_access: editableFields.vehicle_access.default('any'),
-  crane_lift: editableFields.crane_lift.default('unknown'),
-  overhead_lines: editableFields.overhead_lines.default('unknown'),
-  set_down_place: editableFields.set_down_place.default(''),
-  access_notes: editableFields.access_notes.default(''),
-  buildings: editableFields.buildings.default([]),
+  reference: z._default(editableFields.reference, ''),
+  site_postcode: z._default(editableFields.site_postcode, ''),
+  contact_name: z._default(editableFields.contact_name, ''),
+  contact_phone: z._default(editableFields.contact_phone, ''),
+  vehicle_access: z._default(editableFields.vehicle_access, 'any'),
+  crane_lift: z._default(editableFields.crane_lift, 'unknown'),
+  overhead_lines: z._default(editableFields.overhead_lines, 'unknown'),
+  set_down_place: z._default(editableFields.set_down_place, ''),
+  access_notes: z._default(editableFields.access_notes, ''),
+  buildings: z._default(editableFields.buildings, []),
 });
 export type CreateProjectBody = z.input<typeof createProjectBodySchema>;
 
@@ -88,51 +87,49 @@ export type CreateProjectBody = z.input<typeof createProjectBodySchema>;
  * it was made on: someone else's save in between makes it stale (409).
  */
 export const updateProjectBodySchema = z
-  .object(editableFields)
-  .partial()
-  .extend({ revision: z.number({ error: 'is required: the revision of the site you edited' }).int().positive() })
-  .refine((b) => Object.keys(b).some((k) => k !== 'revision'), { error: 'send at least one field to change' });
+  .extend(z.partial(z.object(editableFields)), { revision: z.number({ error: 'is required: the revision of the site you edited' }).check(z.int(), z.positive()) })
+  .check(z.refine((b) => Object.keys(b).some((k) => k !== 'revision'), { error: 'send at least one field to change' }));
 export type UpdateProjectBody = z.input<typeof updateProjectBodySchema>;
 
 export const PROJECT_SORTS = ['name', 'created_at', 'updated_at', 'site_address'] as const;
 
 export const projectListQuerySchema = z.object({
-  q: z.string().trim().max(100).optional(),
-  sort: z.enum(PROJECT_SORTS).default('updated_at'),
-  dir: z.enum(['asc', 'desc']).default('desc'),
-  page: z.coerce.number().int().min(1).default(1),
-  page_size: z.coerce.number().int().min(1).max(100).default(25),
-  archived: z.enum(['false', 'true', 'all']).default('false'),
+  q: z.optional(z.string().check(z.trim(), z.maxLength(100))),
+  sort: z._default(z.enum(PROJECT_SORTS), 'updated_at'),
+  dir: z._default(z.enum(['asc', 'desc']), 'desc'),
+  page: z._default(z.coerce.number().check(z.int(), z.gte(1)), 1),
+  page_size: z._default(z.coerce.number().check(z.int(), z.gte(1), z.lte(100)), 25),
+  archived: z._default(z.enum(['false', 'true', 'all']), 'false'),
 });
 export type ProjectListQuery = z.input<typeof projectListQuerySchema>;
 
 export const buildingSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   name: z.string(),
   kind: z.enum(BUILDING_KINDS),
   notes: z.string(),
 });
 
 export const projectSummarySchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   name: z.string(),
   reference: z.string(),
   site_address: z.string(),
   site_postcode: z.string(),
   contact_name: z.string(),
   contact_phone: z.string(),
-  building_count: z.number().int(),
+  building_count: z.number().check(z.int()),
   /** The schedule in use: the newest version, or null before the first import. */
-  schedule: z.object({ id: z.number().int(), version: z.number().int(), face_count: z.number().int() }).nullable(),
-  estimate_count: z.number().int(),
-  archived_at: z.string().nullable(),
+  schedule: z.nullable(z.object({ id: z.number().check(z.int()), version: z.number().check(z.int()), face_count: z.number().check(z.int()) })),
+  estimate_count: z.number().check(z.int()),
+  archived_at: z.nullable(z.string()),
   created_at: z.string(),
   updated_at: z.string(),
 });
 
-export const projectSchema = projectSummarySchema.extend({
+export const projectSchema = z.extend(projectSummarySchema, {
   /** Raised by every edit; an edit names the revision it was made on. */
-  revision: z.number().int(),
+  revision: z.number().check(z.int()),
   vehicle_access: z.enum(VEHICLE_ACCESS),
   crane_lift: z.enum(CRANE_LIFT),
   overhead_lines: z.enum(OVERHEAD_LINES),
@@ -145,10 +142,10 @@ export type ProjectSummary = z.infer<typeof projectSummarySchema>;
 
 export const projectListSchema = z.object({
   projects: z.array(projectSummarySchema),
-  total: z.number().int(),
-  page: z.number().int(),
-  page_size: z.number().int(),
+  total: z.number().check(z.int()),
+  page: z.number().check(z.int()),
+  page_size: z.number().check(z.int()),
 });
 export type ProjectList = z.infer<typeof projectListSchema>;
 
-export const projectParamsSchema = z.object({ id: z.coerce.number().int().positive() });
+export const projectParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 import { OPENING_KINDS } from './openings.schema';
 import { EDGE_KINDS, SCHEDULE_LIMITS, TOP_KINDS } from './schedule.schema';
 
@@ -25,23 +26,17 @@ export const MAX_SCHEDULE_OPENINGS = 5000;
  * openings in them, each as openingRowSchema reads it (left out: none).
  */
 export const putFacesBodySchema = z.object({
-  faces: z
-    .array(z.unknown())
-    .min(1, { error: 'the schedule has no faces' })
-    .max(MAX_SCHEDULE_FACES, { error: `at most ${MAX_SCHEDULE_FACES} faces` }),
-  openings: z
-    .array(z.unknown())
-    .max(MAX_SCHEDULE_OPENINGS, { error: `at most ${MAX_SCHEDULE_OPENINGS} openings` })
-    .optional(),
+  faces: z.array(z.unknown()).check(z.minLength(1, { error: 'the schedule has no faces' }), z.maxLength(MAX_SCHEDULE_FACES, { error: `at most ${MAX_SCHEDULE_FACES} faces` })),
+  openings: z.optional(z.array(z.unknown()).check(z.maxLength(MAX_SCHEDULE_OPENINGS, { error: `at most ${MAX_SCHEDULE_OPENINGS} openings` }))),
 });
 
 export const storedFaceSchema = z.object({
-  id: z.number().int(),
+  id: z.number().check(z.int()),
   /** Order in the schedule, from 1. */
-  position: z.number().int(),
+  position: z.number().check(z.int()),
   building: z.string(),
   face: z.string(),
-  quantity: z.number().int().min(1).max(SCHEDULE_LIMITS.maxQuantity),
+  quantity: z.number().check(z.int(), z.gte(1), z.lte(SCHEDULE_LIMITS.maxQuantity)),
   pitch_deg: z.number(),
   rafter_mm: z.number(),
   run_mm: z.number(),
@@ -51,33 +46,33 @@ export const storedFaceSchema = z.object({
   right: z.enum(EDGE_KINDS),
   top: z.enum(TOP_KINDS),
   /** The ridge line the top edge meets; null when not named. */
-  ridge: z.string().nullable(),
+  ridge: z.nullable(z.string()),
   /** True for a face saved before top_mm was required beside a hip or valley: its top was taken as the eaves. */
   top_assumed: z.boolean(),
 });
 export type StoredFace = z.infer<typeof storedFaceSchema>;
 
 export const storedOpeningSchema = z.object({
-  id: z.number().int(),
-  position: z.number().int(),
+  id: z.number().check(z.int()),
+  position: z.number().check(z.int()),
   building: z.string(),
   face: z.string(),
   kind: z.enum(OPENING_KINDS),
   width_mm: z.number(),
   height_mm: z.number(),
-  quantity: z.number().int(),
+  quantity: z.number().check(z.int()),
 });
 export type StoredOpening = z.infer<typeof storedOpeningSchema>;
 
 export const scheduleVersionSchema = z.object({
-  id: z.number().int(),
-  project_id: z.number().int(),
-  version: z.number().int(),
+  id: z.number().check(z.int()),
+  project_id: z.number().check(z.int()),
+  version: z.number().check(z.int()),
   source: z.enum(SCHEDULE_SOURCES),
-  filename: z.string().nullable(),
-  face_count: z.number().int(),
+  filename: z.nullable(z.string()),
+  face_count: z.number().check(z.int()),
   created_at: z.string(),
-  created_by: z.object({ id: z.number().int(), name: z.string() }).nullable(),
+  created_by: z.nullable(z.object({ id: z.number().check(z.int()), name: z.string() })),
 });
 export type ScheduleVersion = z.infer<typeof scheduleVersionSchema>;
 
@@ -85,13 +80,13 @@ export const scheduleWarningSchema = z.object({ code: z.string(), message: z.str
 
 /** Reading a site's schedule: `optional=1` answers null (200) for a site without one, instead of 404. */
 export const currentScheduleQuerySchema = z.object({
-  optional: z
-    .enum(['0', '1'])
-    .optional()
-    .transform((v) => v === '1'),
+  optional: z.pipe(
+    z.optional(z.enum(['0', '1'])),
+    z.transform((v) => v === '1'),
+  ),
 });
 
-export const scheduleResponseSchema = scheduleVersionSchema.extend({
+export const scheduleResponseSchema = z.extend(scheduleVersionSchema, {
   faces: z.array(storedFaceSchema),
   openings: z.array(storedOpeningSchema),
   warnings: z.array(scheduleWarningSchema),
@@ -101,15 +96,15 @@ export type ScheduleResponse = z.infer<typeof scheduleResponseSchema>;
 export const scheduleHistorySchema = z.object({ schedules: z.array(scheduleVersionSchema) });
 
 export const scheduleVersionParamsSchema = z.object({
-  id: z.coerce.number().int().positive(),
-  version: z.coerce.number().int().positive(),
+  id: z.coerce.number().check(z.int(), z.positive()),
+  version: z.coerce.number().check(z.int(), z.positive()),
 });
 
 /** One rejected cell: spreadsheet row (header = 1; entry number from 1 for JSON) and column. */
 export const scheduleProblemSchema = z.object({
-  row: z.number().int().optional(),
-  column: z.string().optional(),
-  path: z.string().optional(),
+  row: z.optional(z.number().check(z.int())),
+  column: z.optional(z.string()),
+  path: z.optional(z.string()),
   message: z.string(),
 });
 export type ScheduleProblem = z.infer<typeof scheduleProblemSchema>;

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import './zod-messages';
+import * as z from 'zod/mini';
 
 /**
  * The roof schedule: one row per roof face. Lengths in millimetres, pitch in degrees.
@@ -248,73 +249,77 @@ export class FaceLookup<T> {
 }
 
 function mmField(allowZero: boolean) {
-  return z.number({ error: SCHEDULE_MESSAGES.notNumber }).superRefine((v, ctx) => {
-    const problem = millimetreProblem(v, allowZero);
-    if (problem) ctx.addIssue({ code: 'custom', message: problem });
-  });
+  return z.number({ error: SCHEDULE_MESSAGES.notNumber }).check(
+    z.superRefine((v, ctx) => {
+      const problem = millimetreProblem(v, allowZero);
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
+    }),
+  );
 }
 
-const textField = z.string({ error: SCHEDULE_MESSAGES.required }).trim().min(1, { error: SCHEDULE_MESSAGES.required }).max(SCHEDULE_LIMITS.maxTextLength, { error: SCHEDULE_MESSAGES.textTooLong });
+const textField = z
+  .string({ error: SCHEDULE_MESSAGES.required })
+  .check(z.trim(), z.minLength(1, { error: SCHEDULE_MESSAGES.required }), z.maxLength(SCHEDULE_LIMITS.maxTextLength, { error: SCHEDULE_MESSAGES.textTooLong }));
 
-const edgeField = z
-  .string()
-  .transform(normaliseEdgeWord)
-  .pipe(z.enum(EDGE_KINDS, { error: (iss) => edgeProblem(String(iss.input)) ?? 'unknown edge' }));
+const edgeField = z.pipe(z.pipe(z.string(), z.transform(normaliseEdgeWord)), z.enum(EDGE_KINDS, { error: (iss) => edgeProblem(String(iss.input)) ?? 'unknown edge' }));
 
-const topField = z
-  .string()
-  .transform(normaliseEdgeWord)
-  .pipe(z.enum(TOP_KINDS, { error: (iss) => topProblem(String(iss.input)) ?? 'unknown top edge' }));
+const topField = z.pipe(z.pipe(z.string(), z.transform(normaliseEdgeWord)), z.enum(TOP_KINDS, { error: (iss) => topProblem(String(iss.input)) ?? 'unknown top edge' }));
 
 /** One schedule row as a person or a client sends it (JSON): optional fields may be left out. */
 export const scheduleRowSchema = z
   .object({
-    building: textField.optional().default('1'),
+    building: z._default(z.optional(textField), '1'),
     face: textField,
-    quantity: z
-      .number({ error: SCHEDULE_MESSAGES.quantity })
-      .int({ error: SCHEDULE_MESSAGES.quantity })
-      .min(1, { error: SCHEDULE_MESSAGES.quantity })
-      .max(SCHEDULE_LIMITS.maxQuantity, { error: SCHEDULE_MESSAGES.quantity })
-      .optional()
-      .default(1),
-    pitch_deg: z.number({ error: SCHEDULE_MESSAGES.pitchRange }).gt(0, { error: SCHEDULE_MESSAGES.pitchRange }).lt(90, {
-      error: SCHEDULE_MESSAGES.pitchRange,
-    }),
-    rafter_mm: mmField(false).optional(),
-    run_mm: mmField(false).optional(),
+    quantity: z._default(
+      z.optional(
+        z
+          .number({ error: SCHEDULE_MESSAGES.quantity })
+          .check(z.int({ error: SCHEDULE_MESSAGES.quantity }), z.gte(1, { error: SCHEDULE_MESSAGES.quantity }), z.lte(SCHEDULE_LIMITS.maxQuantity, { error: SCHEDULE_MESSAGES.quantity })),
+      ),
+      1,
+    ),
+    pitch_deg: z.number({ error: SCHEDULE_MESSAGES.pitchRange }).check(
+      z.gt(0, { error: SCHEDULE_MESSAGES.pitchRange }),
+      z.lt(90, {
+        error: SCHEDULE_MESSAGES.pitchRange,
+      }),
+    ),
+    rafter_mm: z.optional(mmField(false)),
+    run_mm: z.optional(mmField(false)),
     eaves_mm: mmField(false),
-    top_mm: mmField(true).optional(),
-    left: edgeField.optional().default('verge'),
-    right: edgeField.optional().default('verge'),
-    top: topField.optional().default('ridge'),
-    ridge: textField.optional(),
+    top_mm: z.optional(mmField(true)),
+    left: z._default(z.optional(edgeField), 'verge'),
+    right: z._default(z.optional(edgeField), 'verge'),
+    top: z._default(z.optional(topField), 'ridge'),
+    ridge: z.optional(textField),
   })
-  .superRefine((row, ctx) => {
-    for (const p of crossCheckFace(row as FaceCandidate)) {
-      ctx.addIssue({ code: 'custom', path: [p.column], message: p.message });
-    }
-  });
+  .check(
+    z.superRefine((row, ctx) => {
+      for (const p of crossCheckFace(row as FaceCandidate)) {
+        ctx.addIssue({ code: 'custom', path: [p.column], message: p.message });
+      }
+    }),
+  );
 
 export type ScheduleRowInput = z.input<typeof scheduleRowSchema>;
 
 /** A checked face with every field resolved: what the engine works from. */
 export const faceSchema = z.object({
-  building: z.string().min(1),
-  face: z.string().min(1),
-  quantity: z.number().int().min(1).max(SCHEDULE_LIMITS.maxQuantity),
-  pitch_deg: z.number().gt(0).lt(90),
-  rafter_mm: z.number().positive(),
-  run_mm: z.number().positive(),
-  eaves_mm: z.number().positive(),
-  top_mm: z.number().min(0),
+  building: z.string().check(z.minLength(1)),
+  face: z.string().check(z.minLength(1)),
+  quantity: z.number().check(z.int(), z.gte(1), z.lte(SCHEDULE_LIMITS.maxQuantity)),
+  pitch_deg: z.number().check(z.gt(0), z.lt(90)),
+  rafter_mm: z.number().check(z.positive()),
+  run_mm: z.number().check(z.positive()),
+  eaves_mm: z.number().check(z.positive()),
+  top_mm: z.number().check(z.gte(0)),
   left: z.enum(EDGE_KINDS),
   right: z.enum(EDGE_KINDS),
   top: z.enum(TOP_KINDS),
   /** The ridge line the top edge meets; faces of a building with the same name are one ridge. */
-  ridge: z.string().min(1).optional(),
+  ridge: z.optional(z.string().check(z.minLength(1))),
   /** Set on a stored face that has a hip or valley edge and no top_mm: top was taken as the eaves. */
-  top_assumed: z.boolean().optional(),
+  top_assumed: z.optional(z.boolean()),
 });
 export type Face = z.infer<typeof faceSchema>;
 
@@ -322,25 +327,27 @@ export type Face = z.infer<typeof faceSchema>;
  * A whole schedule sent as JSON: at least one face, no face twice in a building; the result is the
  * resolved faces. Issue paths are [index, column].
  */
-export const scheduleSchema = z
-  .array(scheduleRowSchema)
-  .min(1, { error: 'the schedule has no faces' })
-  .superRefine((rows, ctx) => {
-    const seen = new Map<string, number>();
-    rows.forEach((row, i) => {
-      const key = faceKey(row.building, row.face);
-      const first = seen.get(key);
-      if (first === undefined) seen.set(key, i);
-      else {
-        ctx.addIssue({
-          code: 'custom',
-          path: [i, 'face'],
-          message: `duplicate face '${row.face}' in building '${row.building}' (first given at entry ${first + 1})`,
-        });
-      }
-    });
-  })
-  .transform((rows) => rows.map((row) => resolveFace(row as FaceCandidate)));
+export const scheduleSchema = z.pipe(
+  z.array(scheduleRowSchema).check(
+    z.minLength(1, { error: 'the schedule has no faces' }),
+    z.superRefine((rows, ctx) => {
+      const seen = new Map<string, number>();
+      rows.forEach((row, i) => {
+        const key = faceKey(row.building, row.face);
+        const first = seen.get(key);
+        if (first === undefined) seen.set(key, i);
+        else {
+          ctx.addIssue({
+            code: 'custom',
+            path: [i, 'face'],
+            message: `duplicate face '${row.face}' in building '${row.building}' (first given at entry ${first + 1})`,
+          });
+        }
+      });
+    }),
+  ),
+  z.transform((rows) => rows.map((row) => resolveFace(row as FaceCandidate))),
+);
 
 export type ScheduleInput = z.input<typeof scheduleSchema>;
 export type Schedule = Face[];

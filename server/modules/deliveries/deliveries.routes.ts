@@ -1,5 +1,6 @@
 import type { Request, RequestHandler } from 'express';
-import { z } from 'zod';
+import { parse } from 'zod';
+import * as z from 'zod/mini';
 import { orderParamsSchema, recordDeliveryBodySchema } from '../../../shared/schemas/order.schema';
 import { driverDayQuerySchema, recordProofBodySchema, runParamsSchema } from '../../../shared/schemas/run.schema';
 import { currentUser } from '../../auth/policy';
@@ -7,16 +8,18 @@ import { apiRouter } from '../../http/endpoint';
 import type { DeliveriesService, DeliveryRecord } from './deliveries.service';
 import { checkProofFiles, formFields, proofUpload } from './proof-files';
 
-const photoParamsSchema = z.object({ id: z.coerce.number().int().positive(), photoId: z.coerce.number().int().positive() });
-const draftParamsSchema = z.object({ id: z.coerce.number().int().positive() });
-const driverRunsQuerySchema = driverDayQuerySchema.extend({ driver_id: z.coerce.number().int().positive().optional() });
+const photoParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()), photoId: z.coerce.number().check(z.int(), z.positive()) });
+const draftParamsSchema = z.object({ id: z.coerce.number().check(z.int(), z.positive()) });
+const driverRunsQuerySchema = z.extend(driverDayQuerySchema, { driver_id: z.optional(z.coerce.number().check(z.int(), z.positive())) });
 
 /** The body as a delivery record: the phone's fields, or the older JSON body (received_by, notes, delivered_quantity). */
+// zod's classic `parse` throws the ZodError the error handler answers with 422 (a zod/mini schema's own
+// `.parse` throws zod's core error, which it does not recognise).
 function readRecord(req: Request): DeliveryRecord {
   const raw = (req.is('multipart/form-data') ? formFields(req.body as Record<string, unknown>) : (req.body ?? {})) as Record<string, unknown>;
   const older = 'received_by' in raw || 'notes' in raw || (Array.isArray(raw.lines) && raw.lines.some((l) => l && typeof l === 'object' && 'delivered_quantity' in l));
   if (older) {
-    const b = recordDeliveryBodySchema.parse(raw);
+    const b = parse(recordDeliveryBodySchema, raw);
     return {
       receiver_name: b.received_by,
       note: b.notes ?? '',
@@ -24,7 +27,7 @@ function readRecord(req: Request): DeliveryRecord {
       lines: b.lines?.map((l) => ({ line_id: l.line_id, handed_over: l.delivered_quantity, short: null, damaged: 0 })),
     };
   }
-  const b = recordProofBodySchema.parse(raw);
+  const b = parse(recordProofBodySchema, raw);
   return { receiver_name: b.receiver_name, note: b.note ?? '', delivered_at: b.delivered_at, lines: b.lines, position: b.position };
 }
 

@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { lazy, Suspense, useMemo } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { SectionBoundary } from '../../components/errors/section-boundary';
 import { buttonClasses } from '../../components/ui/button';
@@ -12,7 +12,6 @@ import { BillOfMaterials } from '../../features/estimates/components/bill-of-mat
 import { EstimateExports } from '../../features/estimates/components/estimate-exports';
 import { EstimateSummary } from '../../features/estimates/components/estimate-summary';
 import { FaceBreakdownTable } from '../../features/estimates/components/face-breakdown-table';
-import { FaceDrawings } from '../../features/estimates/components/face-drawings';
 import { JobWarnings } from '../../features/estimates/components/job-warnings';
 import { RidgeLoads, TakeOffExtras } from '../../features/estimates/components/ridges-and-fittings';
 import { placeWarnings } from '../../features/estimates/lib/warnings';
@@ -22,6 +21,9 @@ import { usePageTitle } from '../../lib/use-page-title';
 import { engineFaces, openingsByFace } from './engine-faces';
 import { PageQuery } from './page-query';
 import { idParam } from './route-loaders';
+
+/** The face drawings (below the bill): their drawing and loading code comes while the faces are asked for. */
+const FaceDrawings = lazy(() => import('../../features/estimates/components/face-drawings').then((m) => ({ default: m.FaceDrawings })));
 
 export function EstimateRoute() {
   const estimateId = idParam(useParams(), 'estimateId');
@@ -85,7 +87,9 @@ export function EstimateRoute() {
                     ) : schedule.isError ? (
                       <ErrorAlert error={schedule.error} title="The faces could not be loaded" onRetry={() => void schedule.refetch()} />
                     ) : (
-                      <FaceDrawings estimateId={saved.id} faces={faces} results={saved.result.faces} system={saved.system_input} warningsByFace={placed?.byFace ?? new Map()} openings={openings} />
+                      <Suspense fallback={<SkeletonBlock label="Loading the face drawings" lines={4} />}>
+                        <FaceDrawings estimateId={saved.id} faces={faces} results={saved.result.faces} system={saved.system_input} warningsByFace={placed?.byFace ?? new Map()} openings={openings} />
+                      </Suspense>
                     )}
                   </SectionBoundary>
                 </section>

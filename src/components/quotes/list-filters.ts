@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { quoteRequestListQuerySchema } from '../../../shared/schemas/order.schema';
 import type { QUOTE_REQUEST_SORTS, QUOTE_REQUEST_STATUSES } from '../../../shared/schemas/order.schema';
 
@@ -22,13 +22,13 @@ const defaults = quoteRequestListQuerySchema.parse({});
  * hand-edited link) falls back to its default without losing the others, and unknown keys are dropped.
  */
 const addressQuery = z.object({
-  status: fields.status.catch(undefined),
-  waiting: fields.waiting.catch(undefined),
-  q: fields.q.catch(undefined),
-  sort: fields.sort.catch(defaults.sort),
-  dir: fields.dir.catch(defaults.dir),
-  page: fields.page.catch(defaults.page),
-  page_size: fields.page_size.catch(defaults.page_size),
+  status: z.catch(fields.status, undefined),
+  waiting: z.catch(fields.waiting, undefined),
+  q: z.catch(fields.q, undefined),
+  sort: z.catch(fields.sort, defaults.sort),
+  dir: z.catch(fields.dir, defaults.dir),
+  page: z.catch(fields.page, defaults.page),
+  page_size: z.catch(fields.page_size, defaults.page_size),
 });
 
 /**

@@ -76,7 +76,7 @@ describe('QuoteRequestList', () => {
     // The money goes through the one formatter, in the configured currency (GBP in tests).
     expect(cells('Request 8')[4]).toMatch(/^Tollerbeck Yard: .+ · £1,234\.56Cindermoor Depot: .+$/);
     expect(screen.getByRole('link', { name: 'Request 8' }).getAttribute('href')).toBe('/desk/quotes/8');
-    expect(screen.getByRole('checkbox', { name: 'Only those waiting for our price' })).toBeTruthy();
+    expect(await screen.findByRole('checkbox', { name: 'Only those waiting for our price' })).toBeTruthy();
   });
 
   it("lays out the firm's side: the request's stage and every merchant's answer named with its firm, no waiting box", async () => {
@@ -95,7 +95,7 @@ describe('QuoteRequestList', () => {
     await screen.findByText('No quote request matches');
     expect(deskAsked.at(-1)?.get('waiting')).toBe('true');
     expect(screen.getByText(/^Showing/).textContent).toBe('Showing only those waiting for our price, search “Kelder”.');
-    fireEvent.click(screen.getByRole('checkbox', { name: 'Only those waiting for our price' }));
+    fireEvent.click(await screen.findByRole('checkbox', { name: 'Only those waiting for our price' }));
     await waitFor(() => expect(deskAsked.at(-1)?.has('waiting')).toBe(false));
     first.unmount();
 

@@ -1,4 +1,4 @@
-import { useId } from 'react';
+import { lazy, Suspense, useId } from 'react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { UseQueryResult } from '@tanstack/react-query';
@@ -13,7 +13,11 @@ import { EmptyState } from '../ui/empty-state';
 import { SkeletonBlock } from '../ui/skeleton';
 import { formatDate, formatMoney } from '../../lib/format';
 import type { QuoteRequestListFilters } from './list-filters';
-import { QuoteRequestSearch, REQUEST_STAGE_WORDS } from './quote-request-search';
+import { REQUEST_STAGE_WORDS } from './request-stage-words';
+import { SearchBarLoading } from '../form/search-bar-loading';
+
+/** The search bar (the form library with it) loads after the list's own code, while the requests are asked for. */
+const QuoteRequestSearch = lazy(() => import('./quote-request-search').then((m) => ({ default: m.QuoteRequestSearch })));
 
 export type QuoteRequestRow = QuoteRequestListPage['quote_requests'][number];
 type RequestSort = (typeof QUOTE_REQUEST_SORTS)[number];
@@ -120,23 +124,25 @@ export function QuoteRequestList({ side, filters, requests }: { side: QuoteReque
 
   return (
     <section aria-label="Quote requests" className="space-y-4">
-      <QuoteRequestSearch
-        status={filters.status}
-        q={filters.q}
-        waiting={side.waitingLabel ? filters.waiting === true : undefined}
-        waitingLabel={side.waitingLabel}
-        placeholder={side.searchPlaceholder}
-        onSearch={(values) => set({ status: values.status, waiting: values.waiting, q: values.q })}
-        // On a phone the Asked header is off to the side of the scrolling table, so the sort is offered here too.
-        sortPicker={<PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />}
-        clear={
-          filtered ? (
-            <Button variant="ghost" onClick={() => setSearch(keepListOrder(search))}>
-              Clear the filters
-            </Button>
-          ) : null
-        }
-      />
+      <Suspense fallback={<SearchBarLoading label="Loading the search…" />}>
+        <QuoteRequestSearch
+          status={filters.status}
+          q={filters.q}
+          waiting={side.waitingLabel ? filters.waiting === true : undefined}
+          waitingLabel={side.waitingLabel}
+          placeholder={side.searchPlaceholder}
+          onSearch={(values) => set({ status: values.status, waiting: values.waiting, q: values.q })}
+          // On a phone the Asked header is off to the side of the scrolling table, so the sort is offered here too.
+          sortPicker={<PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />}
+          clear={
+            filtered ? (
+              <Button variant="ghost" onClick={() => setSearch(keepListOrder(search))}>
+                Clear the filters
+              </Button>
+            ) : null
+          }
+        />
+      </Suspense>
       {requests.isPending ? (
         <SkeletonBlock label="Loading the quote requests" lines={4} />
       ) : requests.isError ? (

@@ -6,10 +6,9 @@ import { CheckboxField, Form, SelectField, TextField } from '../form/fields';
 import { SearchButton } from '../form/search-button';
 import { useListSearchForm } from '../form/use-list-search-form';
 
-type RequestStatus = (typeof QUOTE_REQUEST_STATUSES)[number];
+import { REQUEST_STAGE_WORDS } from './request-stage-words';
 
-/** A quote request's stage in words, on either side's list. */
-export const REQUEST_STAGE_WORDS: Record<RequestStatus, string> = { open: 'Open', accepted: 'Accepted', withdrawn: 'Withdrawn' };
+export { REQUEST_STAGE_WORDS };
 
 const STAGE_OPTIONS = [{ value: '', label: 'Every stage' }, ...QUOTE_REQUEST_STATUSES.map((s) => ({ value: s, label: REQUEST_STAGE_WORDS[s] }))];
 

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { moneyEntryExample } from '../../../../shared/domain/money-entry';
 import { MAX_SHEET_BYTES } from '../../../../shared/schemas/price-list.schema';
 import { FieldMessage, Form, describedBy, fieldIds } from '../../../components/form/fields';
@@ -19,10 +19,11 @@ const LABELS: Record<SheetKind, { title: string; columns: () => string }> = {
 /** The chosen file, at most MAX_SHEET_BYTES; the server reads and checks its cells. */
 const sheetFormSchema = z.object({
   file: z
-    .array(z.instanceof(Blob), { error: 'Choose a CSV or .xlsx file first' })
-    .min(1, { error: 'Choose a CSV or .xlsx file first' })
-    .transform((files) => files[0]!)
-    .refine((file) => file.size <= MAX_SHEET_BYTES, { error: 'The file is too large: a sheet may be at most 5 MiB.' }),
+    .pipe(
+      z.array(z.instanceof(Blob), { error: 'Choose a CSV or .xlsx file first' }).check(z.minLength(1, { error: 'Choose a CSV or .xlsx file first' })),
+      z.transform((files) => files[0]!),
+    )
+    .check(z.refine((file) => file.size <= MAX_SHEET_BYTES, { error: 'The file is too large: a sheet may be at most 5 MiB.' })),
 });
 
 /** One upload form for a branch's price list or stock counts; a refused file shows each problem by row and column. */

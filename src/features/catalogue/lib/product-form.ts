@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import type { ProductCategory } from '../../../../shared/schemas/catalogue.schema';
 import { createProductBodySchema } from '../../../../shared/schemas/price-list.schema';
 import type { Product } from '../../../../shared/schemas/price-list.schema';
@@ -110,21 +110,24 @@ function taxRateBp(text: string | undefined): number | string | undefined {
  * fields included. A changed product sends every field, so the same check applies to it.
  */
 export function productFormSchema(existing: Product | null) {
-  return z
-    .record(z.string(), z.string())
-    .transform((values): unknown => ({
-      sku: textOf(values.sku) ?? '',
-      name: textOf(values.name) ?? '',
-      category: values.category || undefined,
-      unit: textOf(values.unit) ?? '',
-      pack_size: numberOrText(values.pack_size),
-      pack_weight_kg: numberOrText(values.pack_weight_kg),
-      tax_rate_bp: taxRateBp(values.tax_rate_bp),
-      pallet_length_mm: numberOrText(values.pallet_length_mm),
-      pallet_width_mm: numberOrText(values.pallet_width_mm),
-      technical: readTechnical(values.category, values, existing),
-    }))
-    .pipe(createProductBodySchema);
+  return z.pipe(
+    z.pipe(
+      z.record(z.string(), z.string()),
+      z.transform((values): unknown => ({
+        sku: textOf(values.sku) ?? '',
+        name: textOf(values.name) ?? '',
+        category: values.category || undefined,
+        unit: textOf(values.unit) ?? '',
+        pack_size: numberOrText(values.pack_size),
+        pack_weight_kg: numberOrText(values.pack_weight_kg),
+        tax_rate_bp: taxRateBp(values.tax_rate_bp),
+        pallet_length_mm: numberOrText(values.pallet_length_mm),
+        pallet_width_mm: numberOrText(values.pallet_width_mm),
+        technical: readTechnical(values.category, values, existing),
+      })),
+    ),
+    createProductBodySchema,
+  );
 }
 
 export interface HeadlapBandText {

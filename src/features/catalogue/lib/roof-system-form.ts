@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { SYSTEM_ROLES } from '../../../../shared/schemas/catalogue.schema';
 import type { SystemRole } from '../../../../shared/schemas/catalogue.schema';
 import { roofSystemBodySchema, updateRoofSystemBodySchema } from '../../../../shared/schemas/price-list.schema';
@@ -37,16 +37,22 @@ function readSystem(values: Record<string, unknown>): Record<string, unknown> {
 }
 
 /** A new roof system: name, description and one product per role, at the branch given as `branch_id`. */
-export const createRoofSystemFormSchema = z
-  .record(z.string(), z.unknown())
-  .transform((values): unknown => ({ branch_id: values.branch_id, ...readSystem(values) }))
-  .pipe(roofSystemBodySchema);
+export const createRoofSystemFormSchema = z.pipe(
+  z.pipe(
+    z.record(z.string(), z.unknown()),
+    z.transform((values): unknown => ({ branch_id: values.branch_id, ...readSystem(values) })),
+  ),
+  roofSystemBodySchema,
+);
 
 /**
  * A changed roof system: every role is sent, so a role left on "none" is taken off. The settings are
  * not on this form and are left out of the change, so the stored ones stand.
  */
-export const updateRoofSystemFormSchema = z
-  .record(z.string(), z.unknown())
-  .transform((values): unknown => readSystem(values))
-  .pipe(updateRoofSystemBodySchema);
+export const updateRoofSystemFormSchema = z.pipe(
+  z.pipe(
+    z.record(z.string(), z.unknown()),
+    z.transform((values): unknown => readSystem(values)),
+  ),
+  updateRoofSystemBodySchema,
+);

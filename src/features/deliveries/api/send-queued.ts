@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { apiClient, isApiError } from '../../../lib/api-client';
 import type { QueuedCautionsRead, QueuedDelivery } from '../lib/outbox-types';
 
@@ -28,7 +28,7 @@ export async function sendCautionsRead(entry: QueuedCautionsRead): Promise<void>
 /** True when the order already has a proof of delivery on the server (a 404 says it has none). */
 export async function deliveryIsRecorded(orderId: number): Promise<boolean> {
   try {
-    await apiClient.get(`/api/orders/${orderId}/delivery`, { schema: z.object({ order_id: z.number() }).loose(), redirectOnUnauthenticated: false });
+    await apiClient.get(`/api/orders/${orderId}/delivery`, { schema: z.looseObject({ order_id: z.number() }), redirectOnUnauthenticated: false });
     return true;
   } catch (error) {
     if (isApiError(error) && error.status === 404) return false;

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { lazy, Suspense, useEffect, useMemo, useState } from 'react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { DELIVERY_METHOD_LABELS, ORDER_LINE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
@@ -13,14 +13,23 @@ import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { formatCount, formatDate, formatDateTime, formatMoney, moneySign } from '../../../lib/format';
 import { OrderAmounts } from '../../../components/orders/order-amounts';
 import { useBranchStock } from '../api/get-branch-stock';
-import { ConfirmOrderForm } from './confirm-order-form';
 import { DeskStatusBadge } from './desk-status-badge';
-import { FollowUpLinks, FollowUpPanel } from './follow-up-panel';
-import { OfferChangesForm } from './offer-changes-form';
+import { FollowUpLinks } from './follow-up-links';
 import { OrderComments } from './order-comments';
 import { OrderTimeline } from '../../../components/orders/order-timeline';
-import { SlotBooking } from './slot-booking';
-import { TurnDownForm } from './turn-down-form';
+
+// The desk's forms come after the order itself (the form library with them): their code is asked for
+// as the page shows, alongside the branch's stock the answer forms wait for anyway.
+const loadConfirmOrderForm = () => import('./confirm-order-form');
+const loadOfferChangesForm = () => import('./offer-changes-form');
+const loadTurnDownForm = () => import('./turn-down-form');
+const loadFollowUpPanel = () => import('./follow-up-panel');
+const loadSlotBooking = () => import('./slot-booking');
+const ConfirmOrderForm = lazy(() => loadConfirmOrderForm().then((m) => ({ default: m.ConfirmOrderForm })));
+const OfferChangesForm = lazy(() => loadOfferChangesForm().then((m) => ({ default: m.OfferChangesForm })));
+const TurnDownForm = lazy(() => loadTurnDownForm().then((m) => ({ default: m.TurnDownForm })));
+const FollowUpPanel = lazy(() => loadFollowUpPanel().then((m) => ({ default: m.FollowUpPanel })));
+const SlotBooking = lazy(() => loadSlotBooking().then((m) => ({ default: m.SlotBooking })));
 
 type DeskLine = OrderDetail['lines'][number] & { available: number | null; reorder_level: number | null };
 
@@ -112,6 +121,12 @@ export function DeskOrderDetail({ order, invoiceAction, readOnly = false }: { or
   const shown = panel && panels.includes(panel) ? panel : (panels[0] ?? null);
   const openProposal = order.proposals.find((p) => p.status === 'open');
   const bookable = order.status === 'confirmed' && !readOnly;
+  const firstPanel = panels[0];
+  useEffect(() => {
+    if (firstPanel === 'confirm') void loadConfirmOrderForm();
+    else if (firstPanel === 'offer') void loadOfferChangesForm();
+    else if (firstPanel === 'turn_down') void loadTurnDownForm();
+  }, [firstPanel]);
   return (
     <div className="space-y-6">
       <Card>
@@ -144,17 +159,25 @@ export function DeskOrderDetail({ order, invoiceAction, readOnly = false }: { or
             <SkeletonBlock label="Loading the branch's stock" lines={3} />
           ) : stock.isError ? (
             <ErrorAlert error={stock.error} title="The branch's stock could not be loaded" onRetry={() => void stock.refetch()} />
-          ) : shown === 'confirm' ? (
-            <ConfirmOrderForm key={order.revision} order={order} stock={stockByProduct} />
-          ) : shown === 'offer' ? (
-            <OfferChangesForm key={order.revision} order={order} stock={stock.data.items} onDone={() => setPanel(null)} />
-          ) : shown === 'turn_down' ? (
-            <TurnDownForm orderId={order.id} reference={order.reference} />
-          ) : null}
+          ) : (
+            <Suspense fallback={<SkeletonBlock label="Loading the form" lines={3} />}>
+              {shown === 'confirm' ? (
+                <ConfirmOrderForm key={order.revision} order={order} stock={stockByProduct} />
+              ) : shown === 'offer' ? (
+                <OfferChangesForm key={order.revision} order={order} stock={stock.data.items} onDone={() => setPanel(null)} />
+              ) : shown === 'turn_down' ? (
+                <TurnDownForm orderId={order.id} reference={order.reference} />
+              ) : null}
+            </Suspense>
+          )}
         </Card>
       ) : null}
 
-      {can('start_follow_up') && !readOnly ? <FollowUpPanel key={order.id} order={order} /> : null}
+      {can('start_follow_up') && !readOnly ? (
+        <Suspense fallback={<SkeletonBlock label="Loading the follow-up" lines={2} />}>
+          <FollowUpPanel key={order.id} order={order} />
+        </Suspense>
+      ) : null}
 
       <div className="grid items-start gap-6 lg:grid-cols-2">
         <Card title="Delivery">
@@ -180,7 +203,9 @@ export function DeskOrderDetail({ order, invoiceAction, readOnly = false }: { or
           ) : null}
           {bookable ? (
             <div className="mt-4 border-t border-mortar-200 pt-4">
-              <SlotBooking order={order} />
+              <Suspense fallback={<SkeletonBlock label="Loading the delivery slots" lines={2} />}>
+                <SlotBooking order={order} />
+              </Suspense>
             </div>
           ) : null}
         </Card>

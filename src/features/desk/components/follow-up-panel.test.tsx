@@ -170,10 +170,10 @@ describe('FollowUpPanel', () => {
 describe('DeskOrderDetail and follow-ups', () => {
   const stock = { 'GET /api/branches/3/stock': { status: 200, body: { branch: { id: 3, name: 'Tollerbeck Yard', town: 'Tollerbeck' }, items: [stockFixture(11, 'TRS-FL420-SG', 0)] } } };
 
-  it('offers the follow-up only when the server lists start_follow_up', () => {
+  it('offers the follow-up only when the server lists start_follow_up', async () => {
     stubFetch(stock);
     const { unmount } = renderWithProviders(<DeskOrderDetail order={confirmedWithBackOrder({ status: 'delivered', status_label: 'Delivered' })} />);
-    expect(screen.getByRole('heading', { name: 'Back-ordered packs' })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'Back-ordered packs' })).toBeTruthy();
     unmount();
     renderWithProviders(<DeskOrderDetail order={confirmedWithBackOrder({ status: 'delivered', status_label: 'Delivered', allowed_actions: [] })} />);
     expect(screen.queryByRole('heading', { name: 'Back-ordered packs' })).toBeNull();

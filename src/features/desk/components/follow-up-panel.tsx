@@ -1,12 +1,12 @@
 import { businessCalendar } from '../../../lib/business-calendar';
 import { useMemo, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { z } from 'zod';
+import * as z from 'zod/mini';
+import { transformWithIssues } from '../../../lib/transform-with-issues';
 import { followUpBodySchema } from '../../../../shared/schemas/order.schema';
 import type { FollowUpBody, OrderDetail } from '../../../../shared/schemas/order.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/fields';
 import { useSchemaForm } from '../../../components/form/use-schema-form';
-import { BackOrderLinks } from '../../../components/orders/back-order-links';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { useToast } from '../../../components/ui/toast';
@@ -27,26 +27,29 @@ const DEFAULT_DAYS_AHEAD = 7;
  * order form), blank window and note left out, and no day before today.
  */
 export function followUpFormSchema(today: string) {
-  return z
-    .record(z.string(), z.string())
-    .transform((values, ctx): FollowUpBody => {
-      const requested_date = (values.requested_date ?? '').trim();
-      const from = (values.time_window ?? '').trim();
-      const to = (values.time_window_to ?? '').trim();
-      const note = (values.note ?? '').trim();
-      if (Boolean(from) !== Boolean(to)) {
-        ctx.addIssue({ code: 'custom', path: ['time_window'], message: 'give the start and the end of the window, or neither' });
-      }
-      if (/^\d{4}-\d{2}-\d{2}$/.test(requested_date) && requested_date < today) {
-        ctx.addIssue({ code: 'custom', path: ['requested_date'], message: `is already past: choose ${formatDate(today)} or later` });
-      }
-      return {
-        requested_date,
-        ...(from && to ? { time_window: `${from}-${to}` } : {}),
-        ...(note ? { note } : {}),
-      };
-    })
-    .pipe(followUpBodySchema);
+  return z.pipe(
+    z.pipe(
+      z.record(z.string(), z.string()),
+      transformWithIssues((values, ctx): FollowUpBody => {
+        const requested_date = (values.requested_date ?? '').trim();
+        const from = (values.time_window ?? '').trim();
+        const to = (values.time_window_to ?? '').trim();
+        const note = (values.note ?? '').trim();
+        if (Boolean(from) !== Boolean(to)) {
+          ctx.addIssue({ code: 'custom', path: ['time_window'], message: 'give the start and the end of the window, or neither' });
+        }
+        if (/^\d{4}-\d{2}-\d{2}$/.test(requested_date) && requested_date < today) {
+          ctx.addIssue({ code: 'custom', path: ['requested_date'], message: `is already past: choose ${formatDate(today)} or later` });
+        }
+        return {
+          requested_date,
+          ...(from && to ? { time_window: `${from}-${to}` } : {}),
+          ...(note ? { note } : {}),
+        };
+      }),
+    ),
+    followUpBodySchema,
+  );
 }
 
 /** Lines with packs still owed to the contractor. */
@@ -57,7 +60,7 @@ export function owedLines(order: Pick<OrderDetail, 'lines'>) {
 /** The server's sentence, ending once with a full stop. */
 const sentence = (message: string) => (message.endsWith('.') ? message : `${message}.`);
 
-const existingFollowUpSchema = z.object({ order_id: z.number().int(), reference: z.string() });
+const existingFollowUpSchema = z.object({ order_id: z.number().check(z.int()), reference: z.string() });
 
 /** A refusal worded for the desk; follow_up_exists links to the order that already carries the packs. */
 function FollowUpRefusal({ error }: { error: unknown }) {
@@ -169,9 +172,4 @@ export function FollowUpPanel({ order }: { order: OrderDetail }) {
       </Form>
     </Card>
   );
-}
-
-/** The linked orders on the desk's order page, pointing at the desk's own order pages. */
-export function FollowUpLinks({ order }: { order: Pick<OrderDetail, 'follows' | 'followed_by'> }) {
-  return <BackOrderLinks order={order} orderPath={(id) => `/desk/orders/${id}`} label="Linked orders" />;
 }

@@ -103,7 +103,7 @@ describe('OrderBook sorting', () => {
     const queries = stubOrderApi();
     renderWithProviders(<OrderBook />, { path: '/desk/orders?page=2' });
     await screen.findByRole('table', { name: 'Order book' });
-    fireEvent.change(screen.getByLabelText('Sort'), { target: { value: 'subtotal:asc' } });
+    fireEvent.change(await screen.findByLabelText('Sort'), { target: { value: 'subtotal:asc' } });
     await waitFor(() => expect(sortOf(queries.at(-1)!)).toEqual({ sort: 'subtotal', dir: 'asc', page: '1' }));
     expect(header('Subtotal').getAttribute('aria-sort')).toBe('ascending');
   });
@@ -123,7 +123,7 @@ describe('OrderBook search bar', () => {
     await screen.findByRole('table', { name: 'Order book' });
     await waitFor(() => expect((screen.getByLabelText('Branch') as HTMLSelectElement).value).toBe('7'));
 
-    fireEvent.change(screen.getByLabelText('Stage'), { target: { value: 'sent,agreed' } });
+    fireEvent.change(await screen.findByLabelText('Stage'), { target: { value: 'sent,agreed' } });
     await waitFor(() => expect(queries.at(-1)!.get('statuses')).toBe('sent,agreed'));
     expect(queries.at(-1)!.get('branch_id')).toBe('7');
     expect(addressOf(router)).toEqual({ statuses: 'sent,agreed', branch_id: '7' });

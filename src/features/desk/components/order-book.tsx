@@ -1,4 +1,4 @@
-import { useId } from 'react';
+import { lazy, Suspense, useId } from 'react';
 import { Link } from 'react-router-dom';
 import { ORDER_SORTS, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import type { OrderSummary } from '../../../../shared/schemas/order.schema';
@@ -14,7 +14,10 @@ import { useDeskBranches } from '../api/get-desk-branches';
 import { useOrderBook } from '../api/get-order-book';
 import type { OrderBookFilters } from '../api/keys';
 import { DeskStatusBadge } from './desk-status-badge';
-import { OrderBookSearch } from './order-book-search';
+import { SearchBarLoading } from '../../../components/form/search-bar-loading';
+
+/** The search bar (the form library with it) loads after the order book's own code, while the orders are asked for. */
+const OrderBookSearch = lazy(() => import('./order-book-search').then((m) => ({ default: m.OrderBookSearch })));
 
 type OrderSort = (typeof ORDER_SORTS)[number];
 type SortDir = OrderBookFilters['dir'];
@@ -115,28 +118,30 @@ export function OrderBook() {
   const filtered = Boolean(filters.statuses || filters.branch_id || filters.q || filters.date_from || filters.date_to);
   return (
     <section aria-label="Order book" className="space-y-4">
-      <OrderBookSearch
-        address={{
-          statuses: filters.statuses ?? '',
-          branch_id: filters.branch_id ? String(filters.branch_id) : '',
-          page_size: String(pageSize),
-          q: filters.q ?? '',
-          date_field: filters.date_field,
-          date_from: filters.date_from ?? '',
-          date_to: filters.date_to ?? '',
-        }}
-        branches={branches.data ?? []}
-        onSearch={onSearch}
-        // On a phone most headers are off to the side of the scrolling table, so the sort is offered here too.
-        sortPicker={<PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />}
-        clear={
-          filtered ? (
-            <Button variant="ghost" onClick={() => setSearch(keepListOrder(search), { replace: true })}>
-              Clear the filters
-            </Button>
-          ) : null
-        }
-      />
+      <Suspense fallback={<SearchBarLoading label="Loading the search…" />}>
+        <OrderBookSearch
+          address={{
+            statuses: filters.statuses ?? '',
+            branch_id: filters.branch_id ? String(filters.branch_id) : '',
+            page_size: String(pageSize),
+            q: filters.q ?? '',
+            date_field: filters.date_field,
+            date_from: filters.date_from ?? '',
+            date_to: filters.date_to ?? '',
+          }}
+          branches={branches.data ?? []}
+          onSearch={onSearch}
+          // On a phone most headers are off to the side of the scrolling table, so the sort is offered here too.
+          sortPicker={<PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={filters.sort} dir={filters.dir} onChoose={sortBy} />}
+          clear={
+            filtered ? (
+              <Button variant="ghost" onClick={() => setSearch(keepListOrder(search), { replace: true })}>
+                Clear the filters
+              </Button>
+            ) : null
+          }
+        />
+      </Suspense>
       {orders.isPending ? (
         <SkeletonBlock label="Loading the order book" lines={8} />
       ) : orders.isError ? (

@@ -1,20 +1,11 @@
-import { commentBodySchema } from '../../../../shared/schemas/order.schema';
+import { lazy, Suspense } from 'react';
 import type { OrderComment } from '../../../../shared/schemas/order.schema';
-import { Form, SubmitButton, TextField } from '../../../components/form/fields';
-import { useSchemaForm } from '../../../components/form/use-schema-form';
 import { formatDateTime } from '../../../lib/format';
-import { useAddComment } from '../api/add-comment';
+
+const OrderCommentForm = lazy(() => import('./order-comment-form').then((m) => ({ default: m.OrderCommentForm })));
 
 /** Comments between the desk and the contractor, oldest first; the other side's are set apart. `readOnly`: no form. */
 export function OrderComments({ orderId, comments, readOnly = false }: { orderId: number; comments: readonly OrderComment[]; readOnly?: boolean }) {
-  const add = useAddComment(orderId);
-  const form = useSchemaForm({
-    schema: commentBodySchema,
-    onSubmit: async ({ body }, { reset }) => {
-      await add.mutateAsync(body);
-      reset();
-    },
-  });
   return (
     <div className="space-y-4">
       {comments.length === 0 ? (
@@ -32,10 +23,9 @@ export function OrderComments({ orderId, comments, readOnly = false }: { orderId
         </ol>
       )}
       {readOnly ? null : (
-        <Form form={form} label="Add a comment" className="space-y-3">
-          <TextField name="body" label="Comment" maxLength={2000} />
-          <SubmitButton>Add the comment</SubmitButton>
-        </Form>
+        <Suspense fallback={<p className="text-sm text-ink-600">Loading the comment box…</p>}>
+          <OrderCommentForm orderId={orderId} />
+        </Suspense>
       )}
     </div>
   );

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { bookSlotBodySchema } from '../../../../shared/schemas/order.schema';
 import type { OrderDetail } from '../../../../shared/schemas/order.schema';
 import { Form, SubmitButton } from '../../../components/form/fields';
@@ -11,10 +11,13 @@ import { ConflictDetails, isDeskConflict } from './conflict-details';
 import { SlotChoices } from './slot-choices';
 
 /** The slot chosen, read into the booking body; "book later" is no choice here. */
-const slotFormSchema = z
-  .record(z.string(), z.string())
-  .transform((values) => ({ slot_id: values.slot_id ? Number(values.slot_id) : undefined }))
-  .pipe(bookSlotBodySchema.extend({ slot_id: z.number({ error: 'Choose a slot first.' }).int().positive() }));
+const slotFormSchema = z.pipe(
+  z.pipe(
+    z.record(z.string(), z.string()),
+    z.transform((values) => ({ slot_id: values.slot_id ? Number(values.slot_id) : undefined })),
+  ),
+  z.extend(bookSlotBodySchema, { slot_id: z.number({ error: 'Choose a slot first.' }).check(z.int(), z.positive()) }),
+);
 
 /** Booking (or moving) a confirmed order into a lorry's slot; an overbooking is refused with the lorry's figures. */
 export function SlotBooking({ order }: { order: OrderDetail }) {

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
+import { transformWithIssues } from '../../../lib/transform-with-issues';
 import { confirmOrderBodySchema } from '../../../../shared/schemas/order.schema';
 import type { ConfirmOrderBody, OrderDetail } from '../../../../shared/schemas/order.schema';
 
@@ -28,22 +29,25 @@ export function confirmableLines(order: Pick<OrderDetail, 'lines'>): DeskLine[] 
  * place in the body, so the server's `lines.<i>.quantity` errors land on the same input.
  */
 export function confirmFormSchema(lines: readonly Pick<DeskLine, 'id' | 'quantity' | 'confirmed_quantity'>[]) {
-  return z
-    .record(z.string(), z.string())
-    .transform((values, ctx): ConfirmOrderBody => {
-      const body = lines.map((line, i) => {
-        const text = (values[sendField(i)] ?? '').trim();
-        const open = openPacks(line);
-        if (!/^\d+$/.test(text)) {
-          ctx.addIssue({ code: 'custom', path: [sendField(i)], message: 'give a whole number of packs (0 to back-order it all)' });
-          return { line_id: line.id, quantity: 0 };
-        }
-        const quantity = Number(text);
-        if (quantity > open) ctx.addIssue({ code: 'custom', path: [sendField(i)], message: `at most the ${open} packs open on this line` });
-        return { line_id: line.id, quantity };
-      });
-      const slot = (values.slot_id ?? '').trim();
-      return slot ? { lines: body, slot_id: Number(slot) } : { lines: body };
-    })
-    .pipe(confirmOrderBodySchema);
+  return z.pipe(
+    z.pipe(
+      z.record(z.string(), z.string()),
+      transformWithIssues((values, ctx): ConfirmOrderBody => {
+        const body = lines.map((line, i) => {
+          const text = (values[sendField(i)] ?? '').trim();
+          const open = openPacks(line);
+          if (!/^\d+$/.test(text)) {
+            ctx.addIssue({ code: 'custom', path: [sendField(i)], message: 'give a whole number of packs (0 to back-order it all)' });
+            return { line_id: line.id, quantity: 0 };
+          }
+          const quantity = Number(text);
+          if (quantity > open) ctx.addIssue({ code: 'custom', path: [sendField(i)], message: `at most the ${open} packs open on this line` });
+          return { line_id: line.id, quantity };
+        });
+        const slot = (values.slot_id ?? '').trim();
+        return slot ? { lines: body, slot_id: Number(slot) } : { lines: body };
+      }),
+    ),
+    confirmOrderBodySchema,
+  );
 }

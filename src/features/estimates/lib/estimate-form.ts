@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
+import { transformWithIssues } from '../../../lib/transform-with-issues';
 import type { InputProblem } from '../../../../shared/engine/result';
 import { parseRoofSystem } from '../../../../shared/engine/roof-system';
 import { wastePctSchema } from '../../../../shared/schemas/estimate.schema';
@@ -89,19 +90,22 @@ export function systemProblemsToFields(problems: readonly InputProblem[]): { pat
  * Reads the form into the API body: a merchant's system by id, or a generic system typed in, and
  * the waste allowances. The generic system is checked with the engine's own roof-system reader.
  */
-export const estimateFormSchema = z.record(z.string(), z.string()).transform((values, ctx): CreateEstimateBody => {
-  const waste = readWaste(values, ctx);
-  const waste_pct = Object.keys(waste).length > 0 ? waste : undefined;
-  if (values.source === 'generic') {
-    const system = readGenericSystem(values, ctx);
-    const parsed = parseRoofSystem({ ...system, ...(waste_pct ? { waste_pct } : {}) });
-    if (!parsed.ok) for (const p of systemProblemsToFields(parsed.errors)) ctx.addIssue({ code: 'custom', path: [p.path], message: p.message });
-    return { system, ...(waste_pct ? { waste_pct } : {}) };
-  }
-  const id = Number(values.system_id);
-  if (!values.system_id || !Number.isInteger(id) || id <= 0) {
-    ctx.addIssue({ code: 'custom', path: ['system_id'], message: 'choose a roof system, or type in a generic one' });
-    return z.NEVER;
-  }
-  return { system_id: id, ...(waste_pct ? { waste_pct } : {}) };
-});
+export const estimateFormSchema = z.pipe(
+  z.record(z.string(), z.string()),
+  transformWithIssues((values, ctx): CreateEstimateBody => {
+    const waste = readWaste(values, ctx);
+    const waste_pct = Object.keys(waste).length > 0 ? waste : undefined;
+    if (values.source === 'generic') {
+      const system = readGenericSystem(values, ctx);
+      const parsed = parseRoofSystem({ ...system, ...(waste_pct ? { waste_pct } : {}) });
+      if (!parsed.ok) for (const p of systemProblemsToFields(parsed.errors)) ctx.addIssue({ code: 'custom', path: [p.path], message: p.message });
+      return { system, ...(waste_pct ? { waste_pct } : {}) };
+    }
+    const id = Number(values.system_id);
+    if (!values.system_id || !Number.isInteger(id) || id <= 0) {
+      ctx.addIssue({ code: 'custom', path: ['system_id'], message: 'choose a roof system, or type in a generic one' });
+      return z.NEVER;
+    }
+    return { system_id: id, ...(waste_pct ? { waste_pct } : {}) };
+  }),
+);

@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
+import { transformWithIssues } from '../../../lib/transform-with-issues';
 import { updateSlotBodySchema } from '../../../../shared/schemas/slot.schema';
 
 /** What a slot holds now that the change form may alter. */
@@ -15,16 +16,19 @@ export const normaliseWindow = (text: string | undefined) => (text ?? '').trim()
  * an untouched window is never re-sent (the server would check it against the lorry's other slots).
  */
 export function slotChangeFormSchema(now: SlotNow) {
-  return z
-    .record(z.string(), z.string())
-    .transform((values, ctx): unknown => {
-      const body: { time_window?: string; driver_id?: number | null } = {};
-      const window = normaliseWindow(values.time_window);
-      if (window !== now.time_window) body.time_window = window;
-      const driver = values.driver_id ? Number(values.driver_id) : null;
-      if (driver !== now.driver_id) body.driver_id = driver;
-      if (Object.keys(body).length === 0) ctx.addIssue({ code: 'custom', path: [], message: 'Nothing is changed yet: give a new time window or choose another driver.' });
-      return body;
-    })
-    .pipe(updateSlotBodySchema);
+  return z.pipe(
+    z.pipe(
+      z.record(z.string(), z.string()),
+      transformWithIssues((values, ctx): unknown => {
+        const body: { time_window?: string; driver_id?: number | null } = {};
+        const window = normaliseWindow(values.time_window);
+        if (window !== now.time_window) body.time_window = window;
+        const driver = values.driver_id ? Number(values.driver_id) : null;
+        if (driver !== now.driver_id) body.driver_id = driver;
+        if (Object.keys(body).length === 0) ctx.addIssue({ code: 'custom', path: [], message: 'Nothing is changed yet: give a new time window or choose another driver.' });
+        return body;
+      }),
+    ),
+    updateSlotBodySchema,
+  );
 }

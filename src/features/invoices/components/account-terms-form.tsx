@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { putAccountBodySchema } from '../../../../shared/schemas/invoice.schema';
 import type { accountSchema } from '../../../../shared/schemas/invoice.schema';
 import { Form, SubmitButton, TextField } from '../../../components/form/fields';
@@ -9,13 +9,16 @@ import { useSetAccountTerms } from '../api/set-account-terms';
 
 type Account = z.infer<typeof accountSchema>;
 
-const termsFormSchema = z
-  .record(z.string(), z.string())
-  .transform((values): unknown => {
-    const t = (values.terms_days ?? '').trim();
-    return { terms_days: /^-?\d+$/.test(t) ? Number(t) : t === '' ? undefined : t, card_payments: values.card_payments === 'on' };
-  })
-  .pipe(putAccountBodySchema);
+const termsFormSchema = z.pipe(
+  z.pipe(
+    z.record(z.string(), z.string()),
+    z.transform((values): unknown => {
+      const t = (values.terms_days ?? '').trim();
+      return { terms_days: /^-?\d+$/.test(t) ? Number(t) : t === '' ? undefined : t, card_payments: values.card_payments === 'on' };
+    }),
+  ),
+  putAccountBodySchema,
+);
 
 /** Setting a contractor's payment terms (days to the due date), or removing the account so it pays by card. */
 export function AccountTermsForm({ account }: { account: Account }) {

@@ -1,3 +1,4 @@
+import { lazy, Suspense } from 'react';
 import type { z } from 'zod';
 import type { accountSchema } from '../../../../shared/schemas/invoice.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
@@ -5,7 +6,9 @@ import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useAccounts } from '../api/get-accounts';
-import { AccountTermsForm } from './account-terms-form';
+
+/** Each account's terms box (the form library with it) loads after the table shows. */
+const AccountTermsForm = lazy(() => import('./account-terms-form').then((m) => ({ default: m.AccountTermsForm })));
 
 type Account = z.infer<typeof accountSchema>;
 
@@ -19,7 +22,15 @@ const columns = h.columns([
     sortFn: 'alphanumeric',
     cell: (info) => (info.row.original.terms_days === null ? 'By card' : `On account, ${info.row.original.terms_days} days`),
   }),
-  h.display({ id: 'change', header: 'Terms (0 to 120 days)', cell: (info) => <AccountTermsForm key={`${info.row.original.contractor.id}-${info.row.original.terms_days}`} account={info.row.original} /> }),
+  h.display({
+    id: 'change',
+    header: 'Terms (0 to 120 days)',
+    cell: (info) => (
+      <Suspense fallback={<span className="text-sm text-ink-600">Loading…</span>}>
+        <AccountTermsForm key={`${info.row.original.contractor.id}-${info.row.original.terms_days}`} account={info.row.original} />
+      </Suspense>
+    ),
+  }),
 ]);
 
 /** The merchant's contractors and their payment terms: on account with days to pay, or by card. */

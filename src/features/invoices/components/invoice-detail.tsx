@@ -1,3 +1,4 @@
+import { lazy, Suspense } from 'react';
 import { CREDIT_REASON_LABELS, PAY_BY_LABELS } from '../../../../shared/schemas/invoice.schema';
 import type { Invoice } from '../../../../shared/schemas/invoice.schema';
 import { Link } from 'react-router-dom';
@@ -7,9 +8,11 @@ import { Card } from '../../../components/ui/card';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { formatCount, formatDate, formatDateTime, formatMoney } from '../../../lib/format';
 import { invoicePrintUrl, invoiceXlsxUrl } from '../api/keys';
-import { CreditNoteForm } from './credit-note-form';
 import { PayByCard } from './pay-by-card';
 import type { PaymentReturn } from './pay-by-card';
+
+/** Crediting an invoice (the desk, at the foot of the page): its form and the form library load when it shows. */
+const CreditNoteForm = lazy(() => import('./credit-note-form').then((m) => ({ default: m.CreditNoteForm })));
 
 type Line = Invoice['lines'][number];
 const h = dataTableColumns<Line>();
@@ -147,7 +150,9 @@ export function InvoiceDetail({ invoice, canCredit, canPay, returned, orderPath 
         )}
         {canCredit && invoice.status !== 'credited' ? (
           <div className="mt-4 border-t border-mortar-200 pt-4">
-            <CreditNoteForm invoice={invoice} />
+            <Suspense fallback={<p className="text-sm text-ink-600">Loading the credit note form…</p>}>
+              <CreditNoteForm invoice={invoice} />
+            </Suspense>
           </div>
         ) : null}
       </Card>

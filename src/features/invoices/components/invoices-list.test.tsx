@@ -23,7 +23,7 @@ describe('InvoicesList filter', () => {
     renderWithProviders(<InvoicesList />);
     await waitFor(() => expect(queries.length).toBeGreaterThan(0));
     expect(queries.at(-1)?.has('status')).toBe(false);
-    fireEvent.change(screen.getByRole('combobox', { name: 'State' }), { target: { value: 'part_paid' } });
+    fireEvent.change(await screen.findByRole('combobox', { name: 'State' }), { target: { value: 'part_paid' } });
     await waitFor(() => expect(queries.at(-1)?.get('status')).toBe('part_paid'));
     fireEvent.change(screen.getByRole('combobox', { name: 'State' }), { target: { value: '' } });
     await waitFor(() => expect(queries.at(-1)?.has('status')).toBe(false));

@@ -1,10 +1,7 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { INVOICE_STATUSES, INVOICE_STATUS_LABELS } from '../../../../shared/schemas/invoice.schema';
-import type { InvoiceSummary } from '../../../../shared/schemas/invoice.schema';
-import { invoiceFilterSchema } from '../../../../shared/schemas/list-search.schema';
-import { Form, SelectField } from '../../../components/form/fields';
-import { useLiveFilterForm } from '../../../components/form/use-list-search-form';
+import type { InvoiceStatus, InvoiceSummary } from '../../../../shared/schemas/invoice.schema';
+import { SearchBarLoading } from '../../../components/form/search-bar-loading';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
@@ -12,6 +9,9 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { formatDate, formatMoney } from '../../../lib/format';
 import { useInvoices } from '../api/get-invoices';
+
+/** The filter bar (the form library with it) loads after the list's own code, while the invoices are asked for. */
+const InvoiceFilters = lazy(() => import('./invoice-filters').then((m) => ({ default: m.InvoiceFilters })));
 
 const h = dataTableColumns<InvoiceSummary>();
 const columns = h.columns([
@@ -43,18 +43,16 @@ const columns = h.columns([
   h.accessor('balance', { header: 'Balance', enableSorting: false, cell: (info) => <span className="font-semibold tabular-nums">{formatMoney(info.getValue())}</span> }),
 ]);
 
-const STATE_OPTIONS = [{ value: '', label: 'Every invoice' }, ...INVOICE_STATUSES.map((s) => ({ value: s, label: INVOICE_STATUS_LABELS[s] }))];
-
 export function InvoicesList() {
-  const { form, filters } = useLiveFilterForm(invoiceFilterSchema, { status: undefined });
+  const [status, setStatus] = useState<InvoiceStatus | undefined>(undefined);
   const [page, setPage] = useState(1);
-  const invoices = useInvoices({ status: filters.status, page });
+  const invoices = useInvoices({ status, page });
   const pages = invoices.data ? Math.max(1, Math.ceil(invoices.data.total / invoices.data.page_size)) : 1;
   return (
     <section aria-label="Invoices" className="space-y-4">
-      <Form form={form} label="Filter the invoices" role="search" className="flex flex-wrap items-end gap-3">
-        <SelectField name="status" label="State" options={STATE_OPTIONS} defaultValue="" onChange={() => setPage(1)} />
-      </Form>
+      <Suspense fallback={<SearchBarLoading label="Loading the filter…" />}>
+        <InvoiceFilters onStatus={setStatus} onPick={() => setPage(1)} />
+      </Suspense>
       {invoices.isPending ? (
         <SkeletonBlock label="Loading the invoices" lines={5} />
       ) : invoices.isError ? (

@@ -58,7 +58,7 @@ describe('OrderDetail (contractor) and back-ordered packs', () => {
 });
 
 describe('OrderDetail (contractor) and a substitute tile offered by the desk', () => {
-  it('shows the engine’s bill side by side, with the price difference, before the contractor accepts', () => {
+  it('shows the engine’s bill side by side, with the price difference, before the contractor accepts', async () => {
     stubFetch({});
     const figures = {
       engine_version: '1.4.0',
@@ -115,7 +115,7 @@ describe('OrderDetail (contractor) and a substitute tile offered by the desk', (
     expect(within(table).getByText('Battens')).toBeTruthy();
     expect(within(table).getByText(/5,120 tile · 5,120 packs · £3,788.80/)).toBeTruthy();
     expect(within(table).getByTestId('price-difference').textContent).toBe('(+£3,292.80)');
-    expect(screen.getByRole('button', { name: 'Accept the changes' })).toBeTruthy();
+    expect(await screen.findByRole('button', { name: 'Accept the changes' })).toBeTruthy();
   });
 });
 
@@ -142,7 +142,7 @@ describe('OrderDetail (contractor) forms', () => {
     const fetchMock = stubFetch({ 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, 'POST /api/orders/1/proposals/3/decline': invalid('note', 'must be at most 500 characters') });
     const order = contractorOrder({ status: 'changes_offered', status_label: 'Changes offered', proposals: [openProposal], allowed_actions: ['accept_changes', 'decline_changes'] });
     renderWithProviders(<OrderDetail order={order} />);
-    const note = screen.getByLabelText('A note with your answer (optional)');
+    const note = await screen.findByLabelText('A note with your answer (optional)');
     fireEvent.change(note, { target: { value: '  Please send the rest next week ' } });
     fireEvent.click(screen.getByRole('button', { name: 'Decline' }));
     await waitFor(() => expect(note.getAttribute('aria-invalid')).toBe('true'));
@@ -155,7 +155,7 @@ describe('OrderDetail (contractor) forms', () => {
     const fetchMock = stubFetch({ 'GET /api/auth/csrf': { status: 200, body: { token: 't' } }, [`POST /api/orders/${order.id}/cancel`]: invalid('reason', 'must not hold a control character') });
     renderWithProviders(<OrderDetail order={order} />);
     fireEvent.click(screen.getByRole('button', { name: 'Cancel the order' }));
-    const form = screen.getByRole('form', { name: 'Cancel the order?' });
+    const form = await screen.findByRole('form', { name: 'Cancel the order?' });
     const reason = within(form).getByLabelText('Why (the merchant sees this; optional)');
     await waitFor(() => expect(document.activeElement).toBe(reason));
     fireEvent.change(reason, { target: { value: 'Site postponed' } });

@@ -1,6 +1,6 @@
-import { useEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { DELIVERY_METHOD_LABELS, ORDER_LINE_STATUS_LABELS, answerProposalBodySchema, cancelOrderBodySchema } from '../../../../shared/schemas/order.schema';
+import { DELIVERY_METHOD_LABELS, ORDER_LINE_STATUS_LABELS } from '../../../../shared/schemas/order.schema';
 import type { Order, OrderDetail as OrderDetailData, Proposal } from '../../../../shared/schemas/order.schema';
 import { Alert } from '../../../components/ui/alert';
 import { BackOrderLinks } from '../../../components/orders/back-order-links';
@@ -8,18 +8,15 @@ import { OrderSiteDetails } from '../../../components/orders/order-site-details'
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
-import { useToast } from '../../../components/ui/toast';
 import { formatDate, formatDateTime } from '../../../lib/format';
-import { useAnswerProposal } from '../api/answer-proposal';
-import type { ProposalAnswer } from '../api/answer-proposal';
-import { Form, TextField } from '../../../components/form/fields';
-import { useSchemaForm } from '../../../components/form/use-schema-form';
-import { useCancelOrder } from '../api/cancel-order';
 import { formatCount, formatMoney, moneySign } from '../../../lib/format';
 import { OrderAmounts } from '../../../components/orders/order-amounts';
 import { SubstituteFigures } from '../../../components/orders/substitute-figures';
 import { OrderStages, OrderStatusBadge } from './order-status';
 import { OrderTimeline } from '../../../components/orders/order-timeline';
+
+const ProposalAnswerForm = lazy(() => import('./order-detail-forms').then((m) => ({ default: m.ProposalAnswerForm })));
+const CancelOrderForm = lazy(() => import('./order-detail-forms').then((m) => ({ default: m.CancelOrderForm })));
 
 const lineHelper = dataTableColumns<OrderDetailData['lines'][number]>();
 const lineColumns = lineHelper.columns([
@@ -54,35 +51,6 @@ const lineColumns = lineHelper.columns([
     cell: (info) => <span className="tabular-nums">{info.getValue() ? formatMoney(info.getValue()) : '—'}</span>,
   }),
 ]);
-
-/** The contractor's answer to offered changes: a note (optional), then accept or decline, each its own submit button. */
-function ProposalAnswerForm({ order, proposal }: { order: Order; proposal: Proposal }) {
-  const answer = useAnswerProposal(order.id);
-  const toast = useToast();
-  const choice = useRef<ProposalAnswer>('accept');
-  const form = useSchemaForm({
-    schema: answerProposalBodySchema,
-    onSubmit: async (values) => {
-      const kind = choice.current;
-      await answer.mutateAsync({ proposalId: proposal.id, answer: kind, note: values.note || undefined });
-      toast.show(kind === 'accept' ? 'Changes accepted; the merchant can now confirm the order.' : 'Changes declined; the order stands as you sent it.', 'success');
-    },
-  });
-  const pending = form.submitting;
-  return (
-    <Form form={form} label="Answer the changes" className="space-y-3">
-      <TextField name="note" label="A note with your answer (optional)" maxLength={500} />
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={answer.isPending && answer.variables?.answer === 'accept'} disabled={pending} onClick={() => (choice.current = 'accept')}>
-          Accept the changes
-        </Button>
-        <Button type="submit" variant="secondary" busy={answer.isPending && answer.variables?.answer === 'decline'} disabled={pending} onClick={() => (choice.current = 'decline')}>
-          Decline
-        </Button>
-      </div>
-    </Form>
-  );
-}
 
 function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal }) {
   const open = proposal.status === 'open';
@@ -128,38 +96,12 @@ function ProposalCard({ order, proposal }: { order: Order; proposal: Proposal })
           ))}
         </ul>
       ) : null}
-      {canAnswer ? <ProposalAnswerForm order={order} proposal={proposal} /> : null}
+      {canAnswer ? (
+        <Suspense fallback={<p className="text-sm text-ink-600">Loading the answer form…</p>}>
+          <ProposalAnswerForm order={order} proposal={proposal} />
+        </Suspense>
+      ) : null}
     </article>
-  );
-}
-
-/** The "are you sure?" of cancelling, with the reason the merchant sees (optional). */
-function CancelOrderForm({ order, onDone }: { order: Order; onDone: () => void }) {
-  const cancel = useCancelOrder(order.id);
-  const toast = useToast();
-  const form = useSchemaForm({
-    schema: cancelOrderBodySchema,
-    onSubmit: async (values) => {
-      await cancel.mutateAsync(values.reason || undefined);
-      onDone();
-      toast.show(`${order.reference} is cancelled.`, 'success');
-    },
-  });
-  // The reason box takes focus as the question appears.
-  const { setFocus } = form.methods;
-  useEffect(() => setFocus('reason'), [setFocus]);
-  return (
-    <Form form={form} label="Cancel the order?" className="w-full space-y-2 rounded-md border border-brick-600 bg-brick-50 p-3">
-      <TextField name="reason" label="Why (the merchant sees this; optional)" maxLength={500} />
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" variant="danger" busy={form.submitting}>
-          Yes, cancel {order.reference}
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Keep the order
-        </Button>
-      </div>
-    </Form>
   );
 }
 
@@ -172,7 +114,11 @@ function CancelOrder({ order }: { order: Order }) {
       </Button>
     );
   }
-  return <CancelOrderForm order={order} onDone={() => setConfirming(false)} />;
+  return (
+    <Suspense fallback={<p className="text-sm text-ink-600">Loading…</p>}>
+      <CancelOrderForm order={order} onDone={() => setConfirming(false)} />
+    </Suspense>
+  );
 }
 
 /**

@@ -97,7 +97,7 @@ describe('OrdersList sorting and paging through the server', () => {
     const { router } = renderWithProviders(<OrdersList />, { path: '/orders?sort=subtotal&dir=asc&page=2' });
     await tableShown();
 
-    fireEvent.change(screen.getByLabelText('Stage'), { target: { value: 'delivered' } });
+    fireEvent.change(await screen.findByLabelText('Stage'), { target: { value: 'delivered' } });
     await waitFor(() => expect(asked(queries.at(-1))).toEqual({ sort: 'subtotal', dir: 'asc', page: '1', status: 'delivered', q: null }));
     expect(addressOf(router)).toEqual({ sort: 'subtotal', dir: 'asc', status: 'delivered' });
 
@@ -113,7 +113,7 @@ describe('OrdersList sorting and paging through the server', () => {
     renderWithProviders(<OrdersList />, { path: '/orders?status=confirmed&q=QB-7&sort=requested_date&dir=desc' });
     await tableShown();
     expect(asked(queries.at(-1))).toEqual({ sort: 'requested_date', dir: 'desc', page: '1', status: 'confirmed', q: 'QB-7' });
-    expect((screen.getByLabelText('Stage') as HTMLSelectElement).value).toBe('confirmed');
+    expect(((await screen.findByLabelText('Stage')) as HTMLSelectElement).value).toBe('confirmed');
     expect((screen.getByLabelText('Search orders') as HTMLInputElement).value).toBe('QB-7');
   });
 
@@ -149,7 +149,7 @@ describe('OrdersList sorting and paging through the server', () => {
     const queries = stubOrderApi();
     const { router } = renderWithProviders(<OrdersList />, { path: '/orders?page=2&status=sent' });
     await tableShown();
-    fireEvent.change(screen.getByLabelText('Sort'), { target: { value: 'requested_date:asc' } });
+    fireEvent.change(await screen.findByLabelText('Sort'), { target: { value: 'requested_date:asc' } });
     await waitFor(() => expect(asked(queries.at(-1))).toEqual({ sort: 'requested_date', dir: 'asc', page: '1', status: 'sent', q: null }));
     expect(addressOf(router)).toEqual({ sort: 'requested_date', dir: 'asc', status: 'sent' });
     expect(header('Wanted').getAttribute('aria-sort')).toBe('ascending');
@@ -182,7 +182,7 @@ describe('OrdersList sorting and paging through the server', () => {
     await waitFor(() => expect(box.value).toBe('Quarry'));
     await router.navigate(-1);
     await waitFor(() => expect(box.value).toBe('Hollin'));
-    expect((screen.getByLabelText('Stage') as HTMLSelectElement).value).toBe('');
+    expect(((await screen.findByLabelText('Stage')) as HTMLSelectElement).value).toBe('');
   });
 
   it('keeps each row linking to its order and its site', async () => {

@@ -1,5 +1,5 @@
-import { useId } from 'react';
-import type { z } from 'zod';
+import { lazy, Suspense, useId } from 'react';
+import * as z from 'zod/mini';
 import { orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { ListPager, PhoneSortSelect, sortChoices, useListAddress } from '../../../components/ui/server-list';
@@ -7,7 +7,10 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useOrders } from '../api/get-orders';
 import type { OrderStatus } from '../../../../shared/schemas/order.schema';
-import { OrderSearch } from './order-search';
+import { SearchBarLoading } from '../../../components/form/search-bar-loading';
+
+/** The search bar (the form library with it) loads after the list's own code, while the orders are asked for. */
+const OrderSearch = lazy(() => import('./order-search').then((m) => ({ default: m.OrderSearch })));
 import { ORDERS_TABLE_SORTS, OrdersTable } from './orders-table';
 import type { OrderSort } from './orders-table';
 
@@ -45,8 +48,8 @@ const isListSort = (sort: OrderSort): sort is ListSort => (ORDERS_TABLE_SORTS as
  * page number does not throw away the stage and the sort.
  */
 export function listStateFromSearch(search: URLSearchParams): OrdersListState {
-  const read = <S extends z.ZodType>(schema: S, key: string, fallback: z.output<S>): z.output<S> => {
-    const parsed = schema.safeParse(search.get(key) ?? undefined);
+  const read = <S extends z.core.$ZodType>(schema: S, key: string, fallback: z.output<S>): z.output<S> => {
+    const parsed = z.safeParse(schema, search.get(key) ?? undefined);
     return parsed.success ? parsed.data : fallback;
   };
   const sort = read(shape.sort, 'sort', 'placed_at');
@@ -79,10 +82,12 @@ export function OrdersList() {
   const page = state.page;
   return (
     <section aria-label="Orders" className="space-y-4">
-      <OrderSearch status={state.status} q={state.q} onSearch={(values) => set({ status: values.status, q: values.q })}>
-        {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
-        <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={state.sort} dir={state.dir} onChoose={sortBy} labelClass="mb-1.5 block font-medium" />
-      </OrderSearch>
+      <Suspense fallback={<SearchBarLoading label="Loading the search…" />}>
+        <OrderSearch status={state.status} q={state.q} onSearch={(values) => set({ status: values.status, q: values.q })}>
+          {/* On a phone most headers are off to the side of the scrolling table, so the sort is offered here too. */}
+          <PhoneSortSelect id={`${id}-sort`} choices={SORT_CHOICES} sort={state.sort} dir={state.dir} onChoose={sortBy} labelClass="mb-1.5 block font-medium" />
+        </OrderSearch>
+      </Suspense>
       {orders.isPending ? (
         <SkeletonBlock label="Loading the orders" lines={5} />
       ) : orders.isError ? (

@@ -38,10 +38,10 @@ describe('ProjectsList search', () => {
     const queries = stubProjects();
     renderWithProviders(<ProjectsList />, { path: '/sites' });
     await screen.findByRole('table', { name: 'Sites' });
-    fireEvent.change(screen.getByLabelText('Search sites'), { target: { value: '  Hollin ' } });
+    fireEvent.change(await screen.findByLabelText('Search sites'), { target: { value: '  Hollin ' } });
     await waitFor(() => expect(queries.at(-1)?.get('q')).toBe('Hollin'));
     expect(queries.at(-1)?.get('archived')).toBe('false');
-    fireEvent.click(screen.getByRole('checkbox', { name: 'Include archived sites' }));
+    fireEvent.click(await screen.findByRole('checkbox', { name: 'Include archived sites' }));
     await waitFor(() => expect(queries.at(-1)?.get('archived')).toBe('all'));
     expect(queries.at(-1)?.get('q')).toBe('Hollin');
   });
@@ -50,7 +50,7 @@ describe('ProjectsList search', () => {
     const queries = stubProjects();
     renderWithProviders(<ProjectsList />, { path: '/sites' });
     await screen.findByRole('table', { name: 'Sites' });
-    const box = screen.getByLabelText('Search sites');
+    const box = await screen.findByLabelText('Search sites');
     fireEvent.change(box, { target: { value: 'H'.repeat(101) } });
     await waitFor(() => expect(box.getAttribute('aria-invalid')).toBe('true'));
     expect(document.getElementById(box.getAttribute('aria-describedby')!)?.textContent).toContain('at most 100 characters');

@@ -1,19 +1,19 @@
-import { useMemo, useState } from 'react';
-import { useWatch } from 'react-hook-form';
+import { lazy, Suspense, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { ProjectSummary } from '../../../../shared/schemas/project.schema';
-import { projectSearchSchema } from '../../../../shared/schemas/list-search.schema';
-import { CheckboxField, Form, TextField } from '../../../components/form/fields';
-import { useSchemaForm } from '../../../components/form/use-schema-form';
+import type { ProjectSearch } from '../../../../shared/schemas/list-search.schema';
+import { SearchBarLoading } from '../../../components/form/search-bar-loading';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
-import { Spinner } from '../../../components/ui/spinner';
 import { formatDate } from '../../../lib/format';
 import { useProjects } from '../api/get-projects';
 import { useDebouncedValue } from '../lib/use-debounced-value';
+
+/** The search bar (the form library with it) loads after the list's own code, while the sites are asked for. */
+const SiteSearch = lazy(() => import('./site-search').then((m) => ({ default: m.SiteSearch })));
 
 const PAGE_SIZE = 50;
 const helper = dataTableColumns<ProjectSummary>();
@@ -78,32 +78,17 @@ const columns = helper.columns([
 /** Every site of the firm: searched on the server, sorted by any column in the browser. */
 export function ProjectsList() {
   const [page, setPage] = useState(1);
-  /**
-   * The list follows the search as it is typed (one request per pause in typing) and the tick box at
-   * once, both read through the search schema; Enter only checks the words, which are already applied.
-   */
-  const form = useSchemaForm({ schema: projectSearchSchema, onSubmit: () => undefined });
-  const { control, trigger } = form.methods;
-  const typed = useWatch({ control, name: 'q' }) as string | undefined;
-  const ticked = useWatch({ control, name: 'archived' }) as boolean | undefined;
-  const read = projectSearchSchema.safeParse({ q: typed ?? '', archived: ticked ? 'on' : undefined });
-  const search = read.success ? read.data : { q: undefined, archived: ticked ? ('all' as const) : ('false' as const) };
+  const [search, setSearch] = useState<ProjectSearch>({ q: undefined, archived: 'false' });
   const q = useDebouncedValue(search.q ?? '');
-  const onFilterChange = () => {
-    setPage(1);
-    void trigger('q');
-  };
   const filters = useMemo(() => ({ q: q || undefined, archived: search.archived, page, page_size: PAGE_SIZE }), [q, search.archived, page]);
   const projects = useProjects(filters);
   const pages = projects.data ? Math.max(1, Math.ceil(projects.data.total / PAGE_SIZE)) : 1;
 
   return (
     <section aria-label="Sites" className="space-y-4">
-      <Form form={form} label="Find sites" role="search" className="flex flex-wrap items-end gap-4">
-        <TextField name="q" label="Search sites" type="search" maxLength={100} placeholder="Name, reference, address or contact" className="min-w-60 flex-1" onChange={onFilterChange} />
-        <CheckboxField name="archived" label="Include archived sites" onChange={onFilterChange} />
-        {projects.isFetching && !projects.isPending ? <Spinner label="Updating the list" /> : null}
-      </Form>
+      <Suspense fallback={<SearchBarLoading label="Loading the search…" />}>
+        <SiteSearch onSearch={setSearch} onFilterChange={() => setPage(1)} updating={projects.isFetching && !projects.isPending} />
+      </Suspense>
 
       {projects.isPending ? (
         <SkeletonBlock label="Loading the sites" lines={5} />

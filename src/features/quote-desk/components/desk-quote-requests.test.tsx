@@ -83,11 +83,11 @@ describe('DeskQuoteRequests', () => {
     await screen.findByRole('table', { name: 'Quote requests' });
     expect(queries.at(-1)?.has('waiting')).toBe(false);
 
-    fireEvent.click(screen.getByRole('checkbox', { name: 'Only those waiting for our price' }));
+    fireEvent.click(await screen.findByRole('checkbox', { name: 'Only those waiting for our price' }));
     await waitFor(() => expect(sent(queries.at(-1))).toMatchObject({ waiting: 'true', page: '1' }));
     expect(addressOf(router)).toEqual({ waiting: 'true' });
 
-    fireEvent.click(screen.getByRole('checkbox', { name: 'Only those waiting for our price' }));
+    fireEvent.click(await screen.findByRole('checkbox', { name: 'Only those waiting for our price' }));
     await waitFor(() => expect(queries.at(-1)?.has('waiting')).toBe(false));
     expect(addressOf(router)).toEqual({});
   });
@@ -97,7 +97,7 @@ describe('DeskQuoteRequests', () => {
     const { router } = renderWithProviders(<DeskQuoteRequests />, { path: '/desk/quotes?page=4' });
     await screen.findByRole('table', { name: 'Quote requests' });
 
-    fireEvent.change(screen.getByRole('combobox', { name: 'Stage' }), { target: { value: 'open' } });
+    fireEvent.change(await screen.findByRole('combobox', { name: 'Stage' }), { target: { value: 'open' } });
     await waitFor(() => expect(sent(queries.at(-1))).toMatchObject({ status: 'open', page: '1' }));
 
     fireEvent.change(screen.getByRole('searchbox', { name: 'Search quote requests' }), { target: { value: '  Q-12 ' } });

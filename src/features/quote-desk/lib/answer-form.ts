@@ -1,4 +1,5 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
+import { transformWithIssues } from '../../../lib/transform-with-issues';
 import { answerQuoteBodySchema } from '../../../../shared/schemas/order.schema';
 import type { AnswerQuoteBody, QuoteRequest } from '../../../../shared/schemas/order.schema';
 import { readMoneyEntry } from '../../../../shared/domain/money-entry';
@@ -14,49 +15,52 @@ export const answerField = (i: number, name: 'product' | 'packs' | 'price' | 'no
  * configured currency (else the branch's price). Lines without a product are not offered.
  */
 export function answerFormSchema(lines: readonly Pick<RequestLine, 'id'>[], currency: string) {
-  return z
-    .record(z.string(), z.string())
-    .transform((values, ctx): AnswerQuoteBody => {
-      const offered: AnswerQuoteBody['lines'] = [];
-      lines.forEach((line, i) => {
-        const product = (values[answerField(i, 'product')] ?? '').trim();
-        const packsText = (values[answerField(i, 'packs')] ?? '').trim();
-        const priceText = (values[answerField(i, 'price')] ?? '').trim();
-        const note = (values[answerField(i, 'note')] ?? '').trim();
-        if (!product) {
-          if (packsText || priceText) ctx.addIssue({ code: 'custom', path: [answerField(i, 'product')], message: 'choose the product this price is for' });
-          return;
-        }
-        let packs: number | undefined;
-        if (packsText) {
-          if (!/^\d+$/.test(packsText) || Number(packsText) < 1) {
-            ctx.addIssue({ code: 'custom', path: [answerField(i, 'packs')], message: 'give a whole number of packs (at least 1)' });
+  return z.pipe(
+    z.pipe(
+      z.record(z.string(), z.string()),
+      transformWithIssues((values, ctx): AnswerQuoteBody => {
+        const offered: AnswerQuoteBody['lines'] = [];
+        lines.forEach((line, i) => {
+          const product = (values[answerField(i, 'product')] ?? '').trim();
+          const packsText = (values[answerField(i, 'packs')] ?? '').trim();
+          const priceText = (values[answerField(i, 'price')] ?? '').trim();
+          const note = (values[answerField(i, 'note')] ?? '').trim();
+          if (!product) {
+            if (packsText || priceText) ctx.addIssue({ code: 'custom', path: [answerField(i, 'product')], message: 'choose the product this price is for' });
             return;
           }
-          packs = Number(packsText);
-        }
-        let unitPrice: number | undefined;
-        if (priceText) {
-          const price = readMoneyEntry(priceText, currency, `the pack price of line ${i + 1}`);
-          if (!price.ok) {
-            ctx.addIssue({ code: 'custom', path: [answerField(i, 'price')], message: price.message });
-            return;
+          let packs: number | undefined;
+          if (packsText) {
+            if (!/^\d+$/.test(packsText) || Number(packsText) < 1) {
+              ctx.addIssue({ code: 'custom', path: [answerField(i, 'packs')], message: 'give a whole number of packs (at least 1)' });
+              return;
+            }
+            packs = Number(packsText);
           }
-          unitPrice = price.minor;
-        }
-        offered.push({
-          request_line_id: line.id,
-          product_id: Number(product),
-          ...(packs !== undefined ? { packs } : {}),
-          ...(unitPrice !== undefined ? { unit_price: unitPrice } : {}),
-          ...(note ? { note } : {}),
+          let unitPrice: number | undefined;
+          if (priceText) {
+            const price = readMoneyEntry(priceText, currency, `the pack price of line ${i + 1}`);
+            if (!price.ok) {
+              ctx.addIssue({ code: 'custom', path: [answerField(i, 'price')], message: price.message });
+              return;
+            }
+            unitPrice = price.minor;
+          }
+          offered.push({
+            request_line_id: line.id,
+            product_id: Number(product),
+            ...(packs !== undefined ? { packs } : {}),
+            ...(unitPrice !== undefined ? { unit_price: unitPrice } : {}),
+            ...(note ? { note } : {}),
+          });
         });
-      });
-      const message = (values.message ?? '').trim();
-      const validUntil = (values.valid_until ?? '').trim();
-      return { lines: offered, ...(validUntil ? { valid_until: validUntil } : {}), ...(message ? { message } : {}) };
-    })
-    .pipe(answerQuoteBodySchema);
+        const message = (values.message ?? '').trim();
+        const validUntil = (values.valid_until ?? '').trim();
+        return { lines: offered, ...(validUntil ? { valid_until: validUntil } : {}), ...(message ? { message } : {}) };
+      }),
+    ),
+    answerQuoteBodySchema,
+  );
 }
 
 const FIELD_OF: Record<string, 'product' | 'packs' | 'price' | 'note'> = { product_id: 'product', packs: 'packs', unit_price: 'price', note: 'note' };

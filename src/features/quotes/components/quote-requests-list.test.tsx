@@ -67,7 +67,7 @@ describe('QuoteRequestsList', () => {
     await screen.findByRole('table', { name: 'Quote requests' });
     expect(screen.queryByRole('checkbox')).toBeNull();
 
-    fireEvent.change(screen.getByRole('combobox', { name: 'Stage' }), { target: { value: 'withdrawn' } });
+    fireEvent.change(await screen.findByRole('combobox', { name: 'Stage' }), { target: { value: 'withdrawn' } });
     await waitFor(() => expect(sent(queries.at(-1))).toMatchObject({ status: 'withdrawn', page: '1' }));
 
     fireEvent.change(screen.getByRole('searchbox', { name: 'Search quote requests' }), { target: { value: 'HB-1' } });

@@ -1,13 +1,17 @@
+import { lazy, Suspense } from 'react';
 import type { Run } from '../../../../shared/schemas/run.schema';
 import { Card } from '../../../components/ui/card';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { kg } from '../lib/run-format';
 import { DeckPanel } from './deck-panel';
-import { DropOrder } from './drop-order';
 import { LoadBars } from './load-bars';
 import { PickList } from './pick-list';
 import { PrintLinks } from './print-links';
 import { RunStatusBadge } from './run-status';
 import { SendOutPanel } from './send-out-panel';
+
+/** The drops with their drag-and-drop reordering: the drag library loads after the run's figures show. */
+const DropOrder = lazy(() => import('./drop-order').then((m) => ({ default: m.DropOrder })));
 
 export interface RunAbilities {
   /** Change the drop order. */
@@ -50,7 +54,9 @@ export function RunDetail({ run, can, orderHref }: RunDetailProps) {
       {/* On a phone: drops, deck, pick list; on a desk the deck stands beside the other two. */}
       <div className="grid grid-cols-[minmax(0,1fr)] items-start gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)] lg:grid-rows-[auto_1fr]">
         <Card title="Drops in order">
-          <DropOrder run={run} canReorder={can.plan} orderHref={orderHref} />
+          <Suspense fallback={<SkeletonBlock label="Loading the drops" lines={Math.max(1, run.drops.length)} />}>
+            <DropOrder run={run} canReorder={can.plan} orderHref={orderHref} />
+          </Suspense>
         </Card>
         <Card title="Deck" className="lg:col-start-2 lg:row-span-2 lg:row-start-1">
           {run.drops.length > 0 ? <DeckPanel run={run} canBuild={can.load} /> : <p className="text-ink-700">No pallets to place yet.</p>}

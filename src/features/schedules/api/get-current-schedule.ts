@@ -1,4 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import * as z from 'zod/mini';
 import { scheduleResponseSchema } from '../../../../shared/schemas/schedule-upload.schema';
 import type { ScheduleResponse } from '../../../../shared/schemas/schedule-upload.schema';
 import { apiClient } from '../../../lib/api-client';
@@ -9,7 +10,7 @@ import { scheduleKeys } from './keys';
  * answers null rather than 404 and the page logs no failed request.
  */
 export async function fetchCurrentSchedule(projectId: number, signal?: AbortSignal): Promise<ScheduleResponse | null> {
-  return apiClient.get(`/api/projects/${projectId}/schedule?optional=1`, { schema: scheduleResponseSchema.nullable(), signal });
+  return apiClient.get(`/api/projects/${projectId}/schedule?optional=1`, { schema: z.nullable(scheduleResponseSchema), signal });
 }
 
 export function currentScheduleQueryOptions(projectId: number) {

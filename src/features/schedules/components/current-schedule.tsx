@@ -1,3 +1,4 @@
+import { lazy, Suspense } from 'react';
 import { Link } from 'react-router-dom';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { buttonClasses } from '../../../components/ui/button';
@@ -6,9 +7,11 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { formatDateTime } from '../../../lib/format';
 import { useCurrentSchedule } from '../api/get-current-schedule';
-import { OpeningsImport } from './openings-import';
 import { ScheduleFacesTable, ScheduleOpeningsTable } from './schedule-faces-table';
 import { ScheduleHistory, sourceWords } from './schedule-history';
+
+/** Adding openings from a file: the file readers (CSV, the schedule's checks) load when it shows, after the schedule. */
+const OpeningsImport = lazy(() => import('./openings-import').then((m) => ({ default: m.OpeningsImport })));
 
 interface CurrentScheduleProps {
   projectId: number;
@@ -49,7 +52,11 @@ export function CurrentSchedule({ projectId, readOnly }: CurrentScheduleProps) {
           <section aria-label="Openings" className="space-y-2">
             <h3 className="font-semibold">Openings {schedule.data.openings.length > 0 ? `(${schedule.data.openings.length})` : ''}</h3>
             {schedule.data.openings.length > 0 ? <ScheduleOpeningsTable openings={schedule.data.openings} /> : <p className="text-sm text-ink-700">No roof windows, chimneys, dormers or hatches recorded.</p>}
-            {readOnly ? null : <OpeningsImport projectId={projectId} />}
+            {readOnly ? null : (
+              <Suspense fallback={<p className="text-sm text-ink-600">Loading the openings import…</p>}>
+                <OpeningsImport projectId={projectId} />
+              </Suspense>
+            )}
           </section>
           <details className="rounded-md border border-mortar-300 px-4 py-2">
             <summary className="min-h-tap cursor-pointer content-center font-semibold">Earlier versions</summary>

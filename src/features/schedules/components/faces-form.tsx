@@ -1,5 +1,5 @@
 import { useMemo, useRef, useState } from 'react';
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { OPENING_KINDS, openingsSchema } from '../../../../shared/schemas/openings.schema';
 import type { OpeningRowInput } from '../../../../shared/schemas/openings.schema';
 import { MAX_SCHEDULE_FACES } from '../../../../shared/schemas/schedule-upload.schema';
