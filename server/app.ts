@@ -1,3 +1,4 @@
+import { createHmac } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import express, { type Express } from 'express';
@@ -9,7 +10,10 @@ import { clientAssets } from './http/client-assets';
 import { CLIENT_DIR } from './paths';
 import type { AppDeps } from './app-deps';
 import { csrfProtection } from './auth/csrf';
-import { SessionStore, userReadWithSession } from './auth/session-store';
+import { rollingSession, SESSION_COOKIE } from './auth/session-cookie';
+import { SessionStore } from './auth/session-store';
+import { loadSignedIn } from './auth/signed-in';
+import { fixedHeaders } from './http/fixed-headers';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { fromLoopback } from './http/loopback';
 import { idempotency } from './http/idempotency';
@@ -62,20 +66,23 @@ export function createApp(deps: AppDeps): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', config.isProduction ? 1 : false);
 
+  // helmet's headers have no per-request part here: worked out once (fixed-headers.ts).
   app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          'default-src': ["'self'"],
-          'img-src': ["'self'", 'data:', 'blob:'],
-          'style-src': ["'self'", "'unsafe-inline'"],
-          'font-src': ["'self'", 'data:'],
-          'worker-src': ["'self'", 'blob:'],
-          'frame-src': ["'self'"],
-          'upgrade-insecure-requests': config.isProduction ? [] : null,
+    fixedHeaders(
+      helmet({
+        contentSecurityPolicy: {
+          directives: {
+            'default-src': ["'self'"],
+            'img-src': ["'self'", 'data:', 'blob:'],
+            'style-src': ["'self'", "'unsafe-inline'"],
+            'font-src': ["'self'", 'data:'],
+            'worker-src': ["'self'", 'blob:'],
+            'frame-src': ["'self'"],
+            'upgrade-insecure-requests': config.isProduction ? [] : null,
+          },
         },
-      },
-    }),
+      }),
+    ),
   );
   app.use(requestLog(logger, (url) => url === '/api/health'));
 
@@ -89,13 +96,8 @@ export function createApp(deps: AppDeps): Express {
       auth.verifyCredentials(email, password).then((u) => done(null, u ?? false), done);
     }),
   );
+  // Passport signs people in and out (req.logIn, req.logOut); loadSignedIn reads who is signed in.
   passport.serializeUser((user, done) => done(null, user.id));
-  passport.deserializeUser((req: express.Request, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
-    // Usually read in the same query as the session (session-store.ts); otherwise read here.
-    const read = userReadWithSession(req, id);
-    if (read !== undefined) return done(null, read ?? false);
-    users.findAuthUser(id).then((u) => done(null, u ?? false), done);
-  });
 
   const sessionStore = new SessionStore(db);
   const payments = paymentsService(deps, createStripeClient(config.stripe));
@@ -103,25 +105,26 @@ export function createApp(deps: AppDeps): Express {
   // The payment provider's signed events need the raw body and carry no session or CSRF token.
   api.use(paymentWebhookRoutes(payments));
   api.use(express.json({ limit: '1mb' }));
+  const cookie = { httpOnly: true, sameSite: 'lax' as const, secure: config.isProduction };
+  const maxAgeMs = SESSION_DAYS * 24 * 3_600_000;
   api.use(
     session({
-      name: 'ridgeload.sid',
+      name: SESSION_COOKIE,
       secret: config.sessionSecret,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      // Rolling, but the cookie goes out again only when the expiry moves (rollingSession, at most once a minute).
+      rolling: false,
       store: sessionStore,
-      cookie: {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure: config.isProduction,
-        maxAge: SESSION_DAYS * 24 * 3_600_000,
-      },
+      cookie: { ...cookie, maxAge: maxAgeMs },
     }),
   );
+  // The signed value express-session reads back: 's:' + id + '.' + HMAC-SHA256 (base64, no padding).
+  const sign = (sid: string) => `s:${sid}.${createHmac('sha256', config.sessionSecret).update(sid).digest('base64').replace(/=+$/, '')}`;
+  api.use(rollingSession(sessionStore, { maxAgeMs, sign, cookie }));
   // No compatibility object for passport 0.4 strategies on every request: none is installed.
   api.use(passport.initialize({ compat: false }));
-  api.use(passport.session());
+  api.use(loadSignedIn((id) => users.findAuthUser(id)));
   api.use(csrfProtection);
 
   api.use(healthRoutes(db));

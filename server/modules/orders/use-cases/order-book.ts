@@ -2,7 +2,6 @@ import { createHash } from 'node:crypto';
 import type { z } from 'zod';
 import type { OrderSummary, orderBookQuerySchema } from '../../../../shared/schemas/order.schema';
 import type { AuthUser } from '../../../auth/auth-user';
-import { bookVersionReadWith } from '../../../auth/session-store';
 import { orderBookCache } from '../order-book-cache';
 import type { OrderParty } from '../orders.repository';
 import { partyOf, type OrderContext } from './order-context';
@@ -32,8 +31,9 @@ export function orderBook(ctx: OrderContext) {
     },
   });
 
-  return async function listPage(user: AuthUser, query: ListQuery): Promise<{ body: string; etag?: string }> {
-    const { page, total, capped } = await book.read(partyOf(user), query, bookVersionReadWith(user));
+  /** `bookVersion`: the organisation's order-book version when it was read with the request's session. */
+  return async function listPage(user: AuthUser, query: ListQuery, bookVersion?: number): Promise<{ body: string; etag?: string }> {
+    const { page, total, capped } = await book.read(partyOf(user), query, bookVersion);
     return page ?? { body: bookBody(query, { total, capped }, []) };
   };
 }
