@@ -1,6 +1,6 @@
 import type { Request } from 'express';
 import type { SessionData } from 'express-session';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createDb, migrateLatest, type Db } from '../db/knex';
 import { SessionStore } from './session-store';
 
@@ -75,6 +75,33 @@ describe('the session store', () => {
     await store.moveExpiry('g2', new Date(Date.now() + DAY));
     await new Promise((r) => setTimeout(r, 80));
     expect((await get('g2'))?.passport).toEqual({ user: 18 });
+  });
+
+  it('starts no timer of its own, so nothing of it runs after its database is closed', async () => {
+    const own = createDb(':memory:');
+    const setTimeoutSpy = vi.spyOn(globalThis, 'setTimeout');
+    try {
+      const fresh = new SessionStore(own);
+      await new Promise<void>((resolve) => void fresh.length(() => resolve()));
+      await fresh.set('t1', session(30));
+      await fresh.moveExpiry('t1', new Date(Date.now() + DAY));
+      // knex's own pool timers are short (and end with the pool); a cleanup of the store's own would wait a minute.
+      expect(setTimeoutSpy.mock.calls.filter(([, ms]) => (ms ?? 0) >= 60_000)).toEqual([]);
+    } finally {
+      setTimeoutSpy.mockRestore();
+      await own.destroy();
+    }
+  });
+
+  it('sweeps expired sessions out of the table on its own writes, at most once a minute', async () => {
+    const fresh = new SessionStore(db);
+    await db('sessions').insert({ sid: 'old1', sess: JSON.stringify(session(31)), expired: new Date(Date.now() - DAY).toISOString() });
+    await fresh.set('s1', session(32));
+    expect(await stored('old1')).toBeUndefined();
+    await db('sessions').insert({ sid: 'old2', sess: JSON.stringify(session(33)), expired: new Date(Date.now() - DAY).toISOString() });
+    await fresh.set('s2', session(34));
+    expect(await stored('old2')).toBeDefined();
+    expect(await get('old2')).toBeNull();
   });
 
   it('never puts back a signed-out session when moving its expiry', async () => {

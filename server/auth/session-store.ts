@@ -6,6 +6,9 @@ import type { AuthUser, SignedInRead } from './auth-user';
 import { dialectOf, jsonTextSql } from '../db/dialect';
 import { peekRow, type Db } from '../db/knex';
 
+/** How often a server sweeps expired sessions out of the table, on its own writes. */
+const SWEEP_EVERY_MS = 60_000;
+
 const USER_COLUMNS = 'u.id as user_id, u.email, u.name, u.role, o.id as org_id, o.name as org_name, o.kind as org_kind, v.version as book_version';
 /**
  * The session and the person it signs in, in one read (the user id sits in the session's JSON),
@@ -57,8 +60,17 @@ const READ_WITH_SESSION = Symbol('readWithSession');
  * the cookie re-sent then.
  */
 export class SessionStore extends ConnectSessionKnexStore {
+  private lastSweep = 0;
+
   constructor(private readonly db: Db) {
-    super({ knex: db, tableName: 'sessions', createTable: true });
+    // No timer of the store's own (it would outlive the app and its database): expired sessions are
+    // swept by this server's own writes, at most once a minute (sweep()).
+    super({ knex: db, tableName: 'sessions', createTable: true, cleanupInterval: 0 });
+  }
+
+  override async set(sid: string, session: SessionData, callback?: (err?: unknown) => void): Promise<void> {
+    await super.set(sid, session, callback);
+    await this.sweep();
   }
 
   override async get(sid: string, callback: (err: unknown, session?: SessionData | null) => void): Promise<SessionData | null> {
@@ -105,6 +117,20 @@ export class SessionStore extends ConnectSessionKnexStore {
    */
   async moveExpiry(sid: string, expires: Date): Promise<void> {
     await super.touch(sid, { cookie: { expires } } as SessionData);
+    await this.sweep();
+  }
+
+  /** Deletes sessions past their expiry (reads already ignore them), at most once every SWEEP_EVERY_MS per server. */
+  private async sweep(): Promise<void> {
+    const now = Date.now();
+    if (now - this.lastSweep < SWEEP_EVERY_MS) return;
+    this.lastSweep = now;
+    const expired = dialectOf(this.db) === 'sqlite' ? 'datetime(expired) < datetime(?)' : 'expired < cast(? as timestamp with time zone)';
+    try {
+      await this.db('sessions').whereRaw(expired, [new Date(now).toISOString()]).delete();
+    } catch {
+      // The write itself is done; expired rows are ignored by every read and swept a minute later.
+    }
   }
 
   /**
