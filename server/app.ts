@@ -1,8 +1,6 @@
-import { createHmac } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import express, { type Express } from 'express';
-import session from 'express-session';
 import helmet from 'helmet';
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
@@ -10,7 +8,7 @@ import { clientAssets } from './http/client-assets';
 import { CLIENT_DIR } from './paths';
 import type { AppDeps } from './app-deps';
 import { csrfProtection } from './auth/csrf';
-import { rollingSession, SESSION_COOKIE } from './auth/session-cookie';
+import { sessions } from './auth/sessions';
 import { SessionStore } from './auth/session-store';
 import { loadSignedIn } from './auth/signed-in';
 import { fixedHeaders } from './http/fixed-headers';
@@ -105,23 +103,8 @@ export function createApp(deps: AppDeps): Express {
   // The payment provider's signed events need the raw body and carry no session or CSRF token.
   api.use(paymentWebhookRoutes(payments));
   api.use(express.json({ limit: '1mb' }));
-  const cookie = { httpOnly: true, sameSite: 'lax' as const, secure: config.isProduction };
-  const maxAgeMs = SESSION_DAYS * 24 * 3_600_000;
-  api.use(
-    session({
-      name: SESSION_COOKIE,
-      secret: config.sessionSecret,
-      resave: false,
-      saveUninitialized: false,
-      // Rolling, but the cookie goes out again only when the expiry moves (rollingSession, at most once a minute).
-      rolling: false,
-      store: sessionStore,
-      cookie: { ...cookie, maxAge: maxAgeMs },
-    }),
-  );
-  // The signed value express-session reads back: 's:' + id + '.' + HMAC-SHA256 (base64, no padding).
-  const sign = (sid: string) => `s:${sid}.${createHmac('sha256', config.sessionSecret).update(sid).digest('base64').replace(/=+$/, '')}`;
-  api.use(rollingSession(sessionStore, { maxAgeMs, sign, cookie }));
+  // Sessions in the database behind a signed cookie whose expiry rolls (sessions.ts).
+  api.use(sessions(sessionStore, { secret: config.sessionSecret, maxAgeMs: SESSION_DAYS * 24 * 3_600_000, cookie: { httpOnly: true, sameSite: 'lax', secure: config.isProduction } }));
   // No compatibility object for passport 0.4 strategies on every request: none is installed.
   api.use(passport.initialize({ compat: false }));
   api.use(loadSignedIn((id) => users.findAuthUser(id)));

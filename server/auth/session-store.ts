@@ -61,6 +61,10 @@ const READ_WITH_SESSION = Symbol('readWithSession');
  */
 export class SessionStore extends ConnectSessionKnexStore {
   private lastSweep = 0;
+  /** Makes a new session on the request (Store.regenerate() calls it); set by sessions() with the cookie's settings. */
+  generate: (req: Express.Request) => void = () => {
+    throw new Error('new sessions are made by the sessions() middleware');
+  };
 
   constructor(private readonly db: Db) {
     // No timer of the store's own (it would outlive the app and its database): expired sessions are
@@ -127,7 +131,9 @@ export class SessionStore extends ConnectSessionKnexStore {
     this.lastSweep = now;
     const expired = dialectOf(this.db) === 'sqlite' ? 'datetime(expired) < datetime(?)' : 'expired < cast(? as timestamp with time zone)';
     try {
-      await this.db('sessions').whereRaw(expired, [new Date(now).toISOString()]).delete();
+      await this.db('sessions')
+        .whereRaw(expired, [new Date(now).toISOString()])
+        .delete();
     } catch {
       // The write itself is done; expired rows are ignored by every read and swept a minute later.
     }
