@@ -12,6 +12,7 @@ import { sessions } from './auth/sessions';
 import { SessionStore } from './auth/session-store';
 import { loadSignedIn } from './auth/signed-in';
 import { fixedHeaders } from './http/fixed-headers';
+import { apiModules } from './http/endpoint';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { fromLoopback } from './http/loopback';
 import { idempotency } from './http/idempotency';
@@ -111,37 +112,40 @@ export function createApp(deps: AppDeps): Express {
   api.use(csrfProtection);
 
   api.use(healthRoutes(db));
-  api.use(authRoutes(deps, auth, members, sessionStore));
-  api.use(organisationsRoutes(db));
-  api.use(membersRoutes(members));
   const projects = projectsService(deps);
   const estimates = estimatesService(deps);
   const orders = ordersService(deps);
   /** One Idempotency-Key mechanism for every write a client may retry. */
   const idempotent = idempotency(db);
-  api.use(catalogueRoutes(catalogueService(deps)));
-  api.use(projectsRoutes(projects));
-  api.use(schedulesRoutes(schedulesService(deps), idempotent));
-  api.use(estimatesRoutes(estimates));
-  api.use(exportsRoutes(estimates, projects));
-  // Before the orders' routes: it answers POST /orders/:id/delivery (JSON or multipart, with proof).
   const invoices = invoicesService(deps, payments);
+  // The modules behind one gate that sends a request only to those with routes under its first path segment.
   api.use(
-    deliveriesRoutes(
-      deliveriesService(deps, (user, invoiceId, body) => invoices.credit(user, invoiceId, body)),
-      idempotent,
-    ),
+    apiModules([
+      authRoutes(deps, auth, members, sessionStore),
+      organisationsRoutes(db),
+      membersRoutes(members),
+      catalogueRoutes(catalogueService(deps)),
+      projectsRoutes(projects),
+      schedulesRoutes(schedulesService(deps), idempotent),
+      estimatesRoutes(estimates),
+      exportsRoutes(estimates, projects),
+      // Before the orders' routes: it answers POST /orders/:id/delivery (JSON or multipart, with proof).
+      deliveriesRoutes(
+        deliveriesService(deps, (user, invoiceId, body) => invoices.credit(user, invoiceId, body)),
+        idempotent,
+      ),
+      ordersRoutes(orders, idempotent),
+      quotesRoutes(quotesService(deps, orders)),
+      priceListRoutes(priceListService(deps)),
+      stockRoutes(stockService(deps)),
+      fleetRoutes(fleetService(deps)),
+      slotsRoutes(slotsService(deps), orders.linesOf),
+      runsRoutes(runsService(deps), () => config.appUrl),
+      invoicesRoutes(invoices),
+      paymentsRoutes(payments, config, idempotent),
+      ...(config.isProduction ? [] : [outboxRoutes(db)]),
+    ]),
   );
-  api.use(ordersRoutes(orders, idempotent));
-  api.use(quotesRoutes(quotesService(deps, orders)));
-  api.use(priceListRoutes(priceListService(deps)));
-  api.use(stockRoutes(stockService(deps)));
-  api.use(fleetRoutes(fleetService(deps)));
-  api.use(slotsRoutes(slotsService(deps), orders.linesOf));
-  api.use(runsRoutes(runsService(deps), () => config.appUrl));
-  api.use(invoicesRoutes(invoices));
-  api.use(paymentsRoutes(payments, config, idempotent));
-  if (!config.isProduction) api.use(outboxRoutes(db));
   api.use(apiNotFound);
 
   app.use('/api', api);

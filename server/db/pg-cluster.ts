@@ -69,7 +69,7 @@ export async function startPgCluster(): Promise<PgCluster> {
       // it was not running
     }
     rmSync(dir, { recursive: true, force: true });
-    throw new Error(`${(err as Error).message}\nserver log:\n${log}`);
+    throw new Error(`${(err as Error).message}\nserver log:\n${log}`, { cause: err });
   }
   let stopped = false;
   return {
