@@ -106,8 +106,9 @@ export function createApp(deps: AppDeps): Express {
   api.use(express.json({ limit: '1mb' }));
   // Sessions in the database behind a signed cookie whose expiry rolls (sessions.ts).
   api.use(sessions(sessionStore, { secret: config.sessionSecret, maxAgeMs: SESSION_DAYS * 24 * 3_600_000, cookie: { httpOnly: true, sameSite: 'lax', secure: config.isProduction } }));
-  // No compatibility object for passport 0.4 strategies on every request: none is installed.
-  api.use(passport.initialize({ compat: false }));
+  // Passport's req.logIn / req.logOut through this app's request prototype, set up once:
+  // passport.initialize() as a middleware adds them to every request, a cost each request carries.
+  passport.initialize({ compat: false })(app.request, undefined as never, () => {});
   api.use(loadSignedIn((id) => users.findAuthUser(id)));
   api.use(csrfProtection);
 
