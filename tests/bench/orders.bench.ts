@@ -233,7 +233,17 @@ async function openDatabase(dir: string): Promise<{ env: Record<string, string>;
   const cluster = await startPgCluster();
   const admin = createDb(cluster.adminUrl);
   try {
-    await admin.raw('CREATE DATABASE ridgeload_bench');
+    // The first connection to a new cluster can take longer than the pool's 10 s on a loaded machine
+    // (a new server process, its caches cold): it is tried again for up to two minutes.
+    for (let attempt = 1; ; attempt++) {
+      try {
+        await admin.raw('CREATE DATABASE ridgeload_bench');
+        break;
+      } catch (err) {
+        if (attempt >= 12 || !/timeout acquiring a connection/i.test(String(err))) throw err;
+        console.log(`no connection to the new cluster yet (attempt ${attempt}); trying again`);
+      }
+    }
   } catch (err) {
     cluster.stop(); // nothing else would stop it: the run ends here
     throw err;
