@@ -31,8 +31,9 @@ export function ordersRoutes(orders: OrdersService, idempotent: RequestHandler =
   r.get('/orders', { access: { action: 'orders:read' }, query: orderBookQuerySchema }, async (req, res, { query }) => {
     const page = await orders.listPage(currentUser(req), query, bookVersionReadWith(req));
     // A kept page carries its ETag, so Express does not hash the body again on every read.
-    if (page.etag) res.set('ETag', page.etag);
-    res.type('application/json').send(page.body);
+    if (page.etag) res.setHeader('ETag', page.etag);
+    res.setHeader('Content-Type', 'application/json; charset=utf-8');
+    res.send(page.body);
   });
 
   r.get('/orders/:id', { access: { action: 'orders:read' }, params: orderParamsSchema }, async (req, res, { params }) => {
