@@ -4,7 +4,7 @@ import type { Session, SessionData } from 'express-session';
 import type { OrganisationKind, Role } from '../../shared/domain/roles';
 import type { AuthUser, SignedInRead } from './auth-user';
 import { dialectOf, jsonTextSql } from '../db/dialect';
-import { peekRow, type Db } from '../db/knex';
+import { peekRow, pgRow, type Db } from '../db/knex';
 
 /** How often a server sweeps expired sessions out of the table, on its own writes. */
 const SWEEP_EVERY_MS = 60_000;
@@ -24,7 +24,7 @@ const SESSION_WITH_USER_SQL = {
     left join users u on u.id = case when (s.sess #>> '{passport,user}') ~ '^[0-9]{1,15}$' then (s.sess #>> '{passport,user}')::bigint end
     left join organisations o on o.id = u.organisation_id
     left join order_book_versions v on v.organisation_id = u.organisation_id
-    where s.sid = ? and cast(? as timestamp with time zone) <= s.expired`,
+    where s.sid = $1 and cast($2 as timestamp with time zone) <= s.expired`,
 };
 
 interface SessionWithUserRow {
@@ -92,8 +92,7 @@ export class SessionStore extends ConnectSessionKnexStore {
     } else {
       try {
         await this.ready;
-        const result = (await this.db.raw(SESSION_WITH_USER_SQL.postgres, [sid, new Date().toISOString()])) as { rows: SessionWithUserRow[] };
-        row = result.rows[0];
+        row = await pgRow<SessionWithUserRow>(this.db, SESSION_WITH_USER_SQL.postgres, sid, new Date().toISOString());
       } catch (err) {
         callback(err);
         throw err;
