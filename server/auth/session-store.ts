@@ -92,7 +92,7 @@ export class SessionStore extends ConnectSessionKnexStore {
     } else {
       try {
         await this.ready;
-        row = await pgRow<SessionWithUserRow>(this.db, SESSION_WITH_USER_SQL.postgres, sid, new Date().toISOString());
+        row = await pgRow<SessionWithUserRow>(this.db, 'ridgeload_session_with_user', SESSION_WITH_USER_SQL.postgres, sid, new Date().toISOString());
       } catch (err) {
         callback(err);
         throw err;
