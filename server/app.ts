@@ -1,7 +1,6 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import express, { type Express } from 'express';
-import session from 'express-session';
 import helmet from 'helmet';
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
@@ -9,7 +8,11 @@ import { clientAssets } from './http/client-assets';
 import { CLIENT_DIR } from './paths';
 import type { AppDeps } from './app-deps';
 import { csrfProtection } from './auth/csrf';
-import { SessionStore, userReadWithSession } from './auth/session-store';
+import { sessions } from './auth/sessions';
+import { SessionStore } from './auth/session-store';
+import { loadSignedIn } from './auth/signed-in';
+import { fixedHeaders } from './http/fixed-headers';
+import { apiModules } from './http/endpoint';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { fromLoopback } from './http/loopback';
 import { idempotency } from './http/idempotency';
@@ -62,20 +65,23 @@ export function createApp(deps: AppDeps): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', config.isProduction ? 1 : false);
 
+  // helmet's headers have no per-request part here: worked out once (fixed-headers.ts).
   app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          'default-src': ["'self'"],
-          'img-src': ["'self'", 'data:', 'blob:'],
-          'style-src': ["'self'", "'unsafe-inline'"],
-          'font-src': ["'self'", 'data:'],
-          'worker-src': ["'self'", 'blob:'],
-          'frame-src': ["'self'"],
-          'upgrade-insecure-requests': config.isProduction ? [] : null,
+    fixedHeaders(
+      helmet({
+        contentSecurityPolicy: {
+          directives: {
+            'default-src': ["'self'"],
+            'img-src': ["'self'", 'data:', 'blob:'],
+            'style-src': ["'self'", "'unsafe-inline'"],
+            'font-src': ["'self'", 'data:'],
+            'worker-src': ["'self'", 'blob:'],
+            'frame-src': ["'self'"],
+            'upgrade-insecure-requests': config.isProduction ? [] : null,
+          },
         },
-      },
-    }),
+      }),
+    ),
   );
   app.use(requestLog(logger, (url) => url === '/api/health'));
 
@@ -89,13 +95,8 @@ export function createApp(deps: AppDeps): Express {
       auth.verifyCredentials(email, password).then((u) => done(null, u ?? false), done);
     }),
   );
+  // Passport signs people in and out (req.logIn, req.logOut); loadSignedIn reads who is signed in.
   passport.serializeUser((user, done) => done(null, user.id));
-  passport.deserializeUser((req: express.Request, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
-    // Usually read in the same query as the session (session-store.ts); otherwise read here.
-    const read = userReadWithSession(req, id);
-    if (read !== undefined) return done(null, read ?? false);
-    users.findAuthUser(id).then((u) => done(null, u ?? false), done);
-  });
 
   const sessionStore = new SessionStore(db);
   const payments = paymentsService(deps, createStripeClient(config.stripe));
@@ -103,59 +104,49 @@ export function createApp(deps: AppDeps): Express {
   // The payment provider's signed events need the raw body and carry no session or CSRF token.
   api.use(paymentWebhookRoutes(payments));
   api.use(express.json({ limit: '1mb' }));
-  api.use(
-    session({
-      name: 'ridgeload.sid',
-      secret: config.sessionSecret,
-      resave: false,
-      saveUninitialized: false,
-      rolling: true,
-      store: sessionStore,
-      cookie: {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure: config.isProduction,
-        maxAge: SESSION_DAYS * 24 * 3_600_000,
-      },
-    }),
-  );
-  // No compatibility object for passport 0.4 strategies on every request: none is installed.
-  api.use(passport.initialize({ compat: false }));
-  api.use(passport.session());
+  // Sessions in the database behind a signed cookie whose expiry rolls (sessions.ts).
+  api.use(sessions(sessionStore, { secret: config.sessionSecret, maxAgeMs: SESSION_DAYS * 24 * 3_600_000, cookie: { httpOnly: true, sameSite: 'lax', secure: config.isProduction } }));
+  // Passport's req.logIn / req.logOut through this app's request prototype, set up once:
+  // passport.initialize() as a middleware adds them to every request, a cost each request carries.
+  passport.initialize({ compat: false })(app.request, undefined as never, () => {});
+  api.use(loadSignedIn((id) => users.findAuthUser(id)));
   api.use(csrfProtection);
 
   api.use(healthRoutes(db));
-  api.use(authRoutes(deps, auth, members, sessionStore));
-  api.use(organisationsRoutes(db));
-  api.use(membersRoutes(members));
   const projects = projectsService(deps);
   const estimates = estimatesService(deps);
   const orders = ordersService(deps);
   /** One Idempotency-Key mechanism for every write a client may retry. */
   const idempotent = idempotency(db);
-  api.use(catalogueRoutes(catalogueService(deps)));
-  api.use(projectsRoutes(projects));
-  api.use(schedulesRoutes(schedulesService(deps), idempotent));
-  api.use(estimatesRoutes(estimates));
-  api.use(exportsRoutes(estimates, projects));
-  // Before the orders' routes: it answers POST /orders/:id/delivery (JSON or multipart, with proof).
   const invoices = invoicesService(deps, payments);
+  // The modules behind one gate that sends a request only to those with routes under its first path segment.
   api.use(
-    deliveriesRoutes(
-      deliveriesService(deps, (user, invoiceId, body) => invoices.credit(user, invoiceId, body)),
-      idempotent,
-    ),
+    apiModules([
+      authRoutes(deps, auth, members, sessionStore),
+      organisationsRoutes(db),
+      membersRoutes(members),
+      catalogueRoutes(catalogueService(deps)),
+      projectsRoutes(projects),
+      schedulesRoutes(schedulesService(deps), idempotent),
+      estimatesRoutes(estimates),
+      exportsRoutes(estimates, projects),
+      // Before the orders' routes: it answers POST /orders/:id/delivery (JSON or multipart, with proof).
+      deliveriesRoutes(
+        deliveriesService(deps, (user, invoiceId, body) => invoices.credit(user, invoiceId, body)),
+        idempotent,
+      ),
+      ordersRoutes(orders, idempotent),
+      quotesRoutes(quotesService(deps, orders)),
+      priceListRoutes(priceListService(deps)),
+      stockRoutes(stockService(deps)),
+      fleetRoutes(fleetService(deps)),
+      slotsRoutes(slotsService(deps), orders.linesOf),
+      runsRoutes(runsService(deps), () => config.appUrl),
+      invoicesRoutes(invoices),
+      paymentsRoutes(payments, config, idempotent),
+      ...(config.isProduction ? [] : [outboxRoutes(db)]),
+    ]),
   );
-  api.use(ordersRoutes(orders, idempotent));
-  api.use(quotesRoutes(quotesService(deps, orders)));
-  api.use(priceListRoutes(priceListService(deps)));
-  api.use(stockRoutes(stockService(deps)));
-  api.use(fleetRoutes(fleetService(deps)));
-  api.use(slotsRoutes(slotsService(deps), orders.linesOf));
-  api.use(runsRoutes(runsService(deps), () => config.appUrl));
-  api.use(invoicesRoutes(invoices));
-  api.use(paymentsRoutes(payments, config, idempotent));
-  if (!config.isProduction) api.use(outboxRoutes(db));
   api.use(apiNotFound);
 
   app.use('/api', api);

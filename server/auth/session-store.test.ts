@@ -1,8 +1,8 @@
 import type { Request } from 'express';
 import type { SessionData } from 'express-session';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createDb, migrateLatest, type Db } from '../db/knex';
-import { SessionStore, bookVersionReadWith, userReadWithSession } from './session-store';
+import { SessionStore } from './session-store';
 
 let db: Db;
 let store: SessionStore;
@@ -62,15 +62,53 @@ describe('the session store', () => {
     expect(await get('f')).toBeNull();
   });
 
-  it('moves a far-off stored expiry at most every few minutes, and a near one at once', async () => {
+  it('gives the session the expiry the table holds, and moves it only through moveExpiry', async () => {
     await store.set('g', session(17, 7 * DAY));
     const firstExpiry = (await stored('g'))!.expired;
-    await store.touch('g', session(17, 7 * DAY + 1000));
+    // express-session touches every session it does not save: that writes nothing.
+    await store.touch('g', session(17, 7 * DAY + 60_000));
     expect((await stored('g'))!.expired).toBe(firstExpiry);
+    const later = new Date(Date.now() + 7 * DAY + 120_000);
+    await store.moveExpiry('g', later);
+    expect(new Date((await stored('g'))!.expired).getTime()).toBe(later.getTime());
     await store.set('g2', session(18, 40));
-    await store.touch('g2', session(18, DAY));
+    await store.moveExpiry('g2', new Date(Date.now() + DAY));
     await new Promise((r) => setTimeout(r, 80));
     expect((await get('g2'))?.passport).toEqual({ user: 18 });
+  });
+
+  it('starts no timer of its own, so nothing of it runs after its database is closed', async () => {
+    const own = createDb(':memory:');
+    const setTimeoutSpy = vi.spyOn(globalThis, 'setTimeout');
+    try {
+      const fresh = new SessionStore(own);
+      await new Promise<void>((resolve) => void fresh.length(() => resolve()));
+      await fresh.set('t1', session(30));
+      await fresh.moveExpiry('t1', new Date(Date.now() + DAY));
+      // knex's own pool timers are short (and end with the pool); a cleanup of the store's own would wait a minute.
+      expect(setTimeoutSpy.mock.calls.filter(([, ms]) => (ms ?? 0) >= 60_000)).toEqual([]);
+    } finally {
+      setTimeoutSpy.mockRestore();
+      await own.destroy();
+    }
+  });
+
+  it('sweeps expired sessions out of the table on its own writes, at most once a minute', async () => {
+    const fresh = new SessionStore(db);
+    await db('sessions').insert({ sid: 'old1', sess: JSON.stringify(session(31)), expired: new Date(Date.now() - DAY).toISOString() });
+    await fresh.set('s1', session(32));
+    expect(await stored('old1')).toBeUndefined();
+    await db('sessions').insert({ sid: 'old2', sess: JSON.stringify(session(33)), expired: new Date(Date.now() - DAY).toISOString() });
+    await fresh.set('s2', session(34));
+    expect(await stored('old2')).toBeDefined();
+    expect(await get('old2')).toBeNull();
+  });
+
+  it('never puts back a signed-out session when moving its expiry', async () => {
+    await store.set('g3', session(19));
+    await store.destroy('g3');
+    await store.moveExpiry('g3', new Date(Date.now() + DAY));
+    expect(await stored('g3')).toBeUndefined();
   });
 
   it('never puts back a session signed out while another request was still reading it', async () => {
@@ -113,7 +151,8 @@ describe('the person read with the session', () => {
   it('comes from the same read as the session, with the organisation, and is never stored in it', async () => {
     await appStore.set('p1', session(userId));
     const { req, data } = await request('p1');
-    expect(userReadWithSession(req, userId)).toEqual({
+    expect(req.signedIn?.id).toBe(userId);
+    expect(req.signedIn?.user).toEqual({
       id: userId,
       email: 'desk@harlowvale.test',
       name: 'Ada Brook',
@@ -128,28 +167,33 @@ describe('the person read with the session', () => {
   it('comes with the organisation’s order-book version as it is at that read', async () => {
     await appStore.set('p5', session(userId));
     const orgId = (await app('users').where({ id: userId }).first('organisation_id')).organisation_id as number;
-    const first = userReadWithSession((await request('p5')).req, userId)!;
-    expect(bookVersionReadWith(first)).toBe(0);
+    const first = (await request('p5')).req.signedIn!;
+    expect(first.bookVersion).toBe(0);
     await app('order_book_versions').insert({ organisation_id: orgId, version: 7 });
-    const second = userReadWithSession((await request('p5')).req, userId)!;
-    expect(bookVersionReadWith(second)).toBe(7);
-    expect(bookVersionReadWith(first)).toBe(0);
-    expect(bookVersionReadWith({ ...second })).toBeUndefined();
+    const second = (await request('p5')).req.signedIn!;
+    expect(second.bookVersion).toBe(7);
+    expect(first.bookVersion).toBe(0);
   });
 
   it('sees a role change and a removal at the next request', async () => {
     await appStore.set('p2', session(userId));
     await app('users').where({ id: userId }).update({ role: 'merchant_owner' });
-    expect(userReadWithSession((await request('p2')).req, userId)?.role).toBe('merchant_owner');
+    expect((await request('p2')).req.signedIn?.user?.role).toBe('merchant_owner');
     await app('users').where({ id: userId }).delete();
-    expect(userReadWithSession((await request('p2')).req, userId)).toBeNull();
+    expect((await request('p2')).req.signedIn).toEqual({ id: userId, user: null, bookVersion: 0 });
   });
 
-  it('is not there for a request whose session signs nobody in, or for another id', async () => {
+  it('carries the expiry the table holds, however long ago the session itself was saved', async () => {
+    await appStore.set('p6', session(userId, DAY));
+    const later = new Date(Date.now() + 7 * DAY);
+    await appStore.moveExpiry('p6', later);
+    const { req, data } = await request('p6');
+    expect((data!.cookie.expires as Date).getTime()).toBe(later.getTime());
+    expect(req.session!.cookie.expires!.getTime()).toBe(later.getTime());
+  });
+
+  it('is not there for a request whose session signs nobody in', async () => {
     await appStore.set('p3', { cookie: session(1).cookie } as SessionData);
-    expect(userReadWithSession((await request('p3')).req, userId)).toBeUndefined();
-    await appStore.set('p4', session(userId));
-    expect(userReadWithSession((await request('p4')).req, userId + 1)).toBeUndefined();
-    expect(userReadWithSession({} as Request, userId)).toBeUndefined();
+    expect((await request('p3')).req.signedIn).toBeUndefined();
   });
 });

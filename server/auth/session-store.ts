@@ -1,15 +1,13 @@
 import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { Request } from 'express';
 import type { Session, SessionData } from 'express-session';
-import { LRUCache } from 'lru-cache';
 import type { OrganisationKind, Role } from '../../shared/domain/roles';
-import type { AuthUser } from './auth-user';
+import type { AuthUser, SignedInRead } from './auth-user';
 import { dialectOf, jsonTextSql } from '../db/dialect';
-import { peekRow, type Db } from '../db/knex';
+import { peekRow, pgRow, type Db } from '../db/knex';
 
-const TOUCH_EVERY_MS = 5 * 60_000;
-const WRITTEN_AT_ENTRIES = 10_000;
-const STORED_EXPIRY_MARGIN_MS = 60 * 60_000;
+/** How often a server sweeps expired sessions out of the table, on its own writes. */
+const SWEEP_EVERY_MS = 60_000;
 
 const USER_COLUMNS = 'u.id as user_id, u.email, u.name, u.role, o.id as org_id, o.name as org_name, o.kind as org_kind, v.version as book_version';
 /**
@@ -18,19 +16,20 @@ const USER_COLUMNS = 'u.id as user_id, u.email, u.name, u.role, o.id as org_id, 
  * and it may as well come with the session's row than in a query of its own.
  */
 const SESSION_WITH_USER_SQL = {
-  sqlite: `select s.sess, json_extract(s.sess, '$.passport.user') as signed_in, ${USER_COLUMNS} from sessions s
+  sqlite: `select s.sess, s.expired, json_extract(s.sess, '$.passport.user') as signed_in, ${USER_COLUMNS} from sessions s
     left join users u on u.id = json_extract(s.sess, '$.passport.user') left join organisations o on o.id = u.organisation_id
     left join order_book_versions v on v.organisation_id = u.organisation_id
     where s.sid = ? and datetime(?) <= datetime(s.expired)`,
-  postgres: `select s.sess, s.sess #>> '{passport,user}' as signed_in, ${USER_COLUMNS} from sessions s
+  postgres: `select s.sess, s.expired, s.sess #>> '{passport,user}' as signed_in, ${USER_COLUMNS} from sessions s
     left join users u on u.id = case when (s.sess #>> '{passport,user}') ~ '^[0-9]{1,15}$' then (s.sess #>> '{passport,user}')::bigint end
     left join organisations o on o.id = u.organisation_id
     left join order_book_versions v on v.organisation_id = u.organisation_id
-    where s.sid = ? and cast(? as timestamp with time zone) <= s.expired`,
+    where s.sid = $1 and cast($2 as timestamp with time zone) <= s.expired`,
 };
 
 interface SessionWithUserRow {
   sess: string | SessionData;
+  expired: string | Date;
   signed_in: number | string | null;
   user_id: number | null;
   email: string;
@@ -42,31 +41,8 @@ interface SessionWithUserRow {
   book_version: number | string | null;
 }
 
-/** The user read with a session, carried from the store's read to passport's on the same request. */
-const USER_READ_WITH_SESSION = Symbol('userReadWithSession');
-type UserReadWithSession = { id: number; user: AuthUser | null };
-const usersReadWithSessions = new WeakMap<Request, UserReadWithSession>();
-
-/** Each request's person (a new object per read) to their organisation's order-book version, read at the same moment. */
-const bookVersionsReadWithUsers = new WeakMap<AuthUser, number>();
-
-/**
- * The order-book version of the person's organisation, read in the same query as the session on
- * this request (so before anything of the order book is read), or undefined when it was not.
- */
-export function bookVersionReadWith(user: AuthUser): number | undefined {
-  return bookVersionsReadWithUsers.get(user);
-}
-
-/**
- * The signed-in person as read in the same query as this request's session, or undefined when it
- * was not read that way (then the caller reads it itself). Null: the session names someone who is
- * no longer there.
- */
-export function userReadWithSession(req: Request, id: number): AuthUser | null | undefined {
-  const read = usersReadWithSessions.get(req);
-  return read !== undefined && read.id === Number(id) ? read.user : undefined;
-}
+/** The read carried from the store's get() to createSession() on the same request (never stored: not enumerable). */
+const READ_WITH_SESSION = Symbol('readWithSession');
 
 /**
  * Sessions in the database, read from it on every request: no copy lives in one process, so a
@@ -74,20 +50,31 @@ export function userReadWithSession(req: Request, id: number): AuthUser | null |
  *
  * The read is the commonest query there is, so on SQLite it goes straight to the open connection
  * (peekRow: a prepared statement, no query building) whenever no transaction is open there. The
- * same query reads the person the session signs in and their organisation, which passport would
- * otherwise read again (see userReadWithSession): one read per request on either database.
+ * same query reads the person the session signs in, their organisation and its order-book version:
+ * createSession() puts that read on the request as `req.signedIn`, and loadSignedIn (signed-in.ts)
+ * makes it the request's user. One read per request on either database.
  *
- * express-session also touches the stored expiry on every response, which would make every
- * signed-in read a database write; with a 7-day rolling session, moving the stored expiry at most
- * every few minutes keeps the same behaviour for a fraction of the writes. The note of when each
- * session was last written is only a way to skip writes: a server that has none writes.
+ * The session's expiry is the one in the table (`expired`), put on the session's cookie when it is
+ * read. express-session's touch on every response does nothing here: the expiry is moved by
+ * rollingSession (session-cookie.ts) with moveExpiry(), at most once a minute per session, with
+ * the cookie re-sent then.
  */
 export class SessionStore extends ConnectSessionKnexStore {
-  /** When this server last wrote each session, and the expiry it wrote then. */
-  private readonly writtenAt = new LRUCache<string, { at: number; expires: number }>({ max: WRITTEN_AT_ENTRIES });
+  private lastSweep = 0;
+  /** Makes a new session on the request (Store.regenerate() calls it); set by sessions() with the cookie's settings. */
+  generate: (req: Express.Request) => void = () => {
+    throw new Error('new sessions are made by the sessions() middleware');
+  };
 
   constructor(private readonly db: Db) {
-    super({ knex: db, tableName: 'sessions', createTable: true });
+    // No timer of the store's own (it would outlive the app and its database): expired sessions are
+    // swept by this server's own writes, at most once a minute (sweep()).
+    super({ knex: db, tableName: 'sessions', createTable: true, cleanupInterval: 0 });
+  }
+
+  override async set(sid: string, session: SessionData, callback?: (err?: unknown) => void): Promise<void> {
+    await super.set(sid, session, callback);
+    await this.sweep();
   }
 
   override async get(sid: string, callback: (err: unknown, session?: SessionData | null) => void): Promise<SessionData | null> {
@@ -105,8 +92,7 @@ export class SessionStore extends ConnectSessionKnexStore {
     } else {
       try {
         await this.ready;
-        const result = (await this.db.raw(SESSION_WITH_USER_SQL.postgres, [sid, new Date().toISOString()])) as { rows: SessionWithUserRow[] };
-        row = result.rows[0];
+        row = await pgRow<SessionWithUserRow>(this.db, 'ridgeload_session_with_user', SESSION_WITH_USER_SQL.postgres, sid, new Date().toISOString());
       } catch (err) {
         callback(err);
         throw err;
@@ -117,34 +103,39 @@ export class SessionStore extends ConnectSessionKnexStore {
     return session;
   }
 
-  /** express-session makes the request's session from what get() answered: the user read with it goes to the request. */
+  /** express-session makes the request's session from what get() answered: what was read with it goes to the request. */
   override createSession(req: Request, data: SessionData): Session & SessionData {
-    const read = (data as { [USER_READ_WITH_SESSION]?: UserReadWithSession })[USER_READ_WITH_SESSION];
-    if (read) usersReadWithSessions.set(req, read);
-    else usersReadWithSessions.delete(req);
+    req.signedIn = (data as { [READ_WITH_SESSION]?: SignedInRead })[READ_WITH_SESSION];
     return super.createSession(req, data);
   }
 
-  override async set(sid: string, session: SessionData, callback?: (err?: unknown) => void): Promise<void> {
-    await super.set(sid, session, callback);
-    this.writtenAt.set(sid, { at: Date.now(), expires: expiryOf(session) });
+  /** express-session touches every session it did not save; the expiry moves only through moveExpiry(). */
+  override async touch(_sid: string, _session: SessionData, callback?: () => void): Promise<void> {
+    callback?.();
   }
 
-  override async touch(sid: string, session: SessionData, callback?: () => void): Promise<void> {
+  /**
+   * Moves a session's stored expiry. Only an update: a session signed out (deleted) meanwhile, on
+   * this server or another, is never put back.
+   */
+  async moveExpiry(sid: string, expires: Date): Promise<void> {
+    await super.touch(sid, { cookie: { expires } } as SessionData);
+    await this.sweep();
+  }
+
+  /** Deletes sessions past their expiry (reads already ignore them), at most once every SWEEP_EVERY_MS per server. */
+  private async sweep(): Promise<void> {
     const now = Date.now();
-    const last = this.writtenAt.get(sid);
-    // Skip the write while the stored expiry is recent and still far off (a rolling 7-day session).
-    if (last !== undefined && now - last.at < TOUCH_EVERY_MS && last.expires - now > STORED_EXPIRY_MARGIN_MS) {
-      callback?.();
-      return;
+    if (now - this.lastSweep < SWEEP_EVERY_MS) return;
+    this.lastSweep = now;
+    const expired = dialectOf(this.db) === 'sqlite' ? 'datetime(expired) < datetime(?)' : 'expired < cast(? as timestamp with time zone)';
+    try {
+      await this.db('sessions')
+        .whereRaw(expired, [new Date(now).toISOString()])
+        .delete();
+    } catch {
+      // The write itself is done; expired rows are ignored by every read and swept a minute later.
     }
-    await super.touch(sid, session, callback);
-    this.writtenAt.set(sid, { at: now, expires: expiryOf(session) });
-  }
-
-  override async destroy(sid: string, callback?: (err?: unknown) => void): Promise<number> {
-    this.writtenAt.delete(sid);
-    return super.destroy(sid, callback);
   }
 
   /**
@@ -158,31 +149,20 @@ export class SessionStore extends ConnectSessionKnexStore {
       .whereRaw(`${jsonTextSql(knex, ['passport', 'user'])} = ?`, ['sess', dialectOf(knex) === 'postgres' ? String(userId) : userId])
       .pluck('sid')) as string[];
     const ending = sids.filter((sid) => sid !== except);
-    for (const sid of ending) this.writtenAt.delete(sid);
     if (ending.length > 0) await knex('sessions').whereIn('sid', ending).delete();
     return ending.length;
   }
-
-  override async clear(callback?: (err?: unknown) => void): Promise<number> {
-    this.writtenAt.clear();
-    return super.clear(callback);
-  }
 }
 
-/** The cookie's expiry as the session carries it (a Date, or ISO text once read back from JSON). */
-function expiryOf(session: SessionData): number {
-  const e = session.cookie?.expires as Date | string | null | undefined;
-  const t = e ? new Date(e).getTime() : NaN;
-  return Number.isFinite(t) ? t : Date.now() + 86_400_000;
-}
-
-/** The stored session, carrying the user read with it under a symbol (never copied into the session, never saved). */
+/** The stored session with its expiry as the table holds it, carrying what was read with it under a symbol (never copied into the session, never saved). */
 function withUser(row: SessionWithUserRow): SessionData {
-  const session = (typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess) as SessionData & { [USER_READ_WITH_SESSION]?: UserReadWithSession };
+  const session = (typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess) as SessionData & { [READ_WITH_SESSION]?: SignedInRead };
+  const expired = new Date(row.expired);
+  if (session.cookie && Number.isFinite(expired.getTime())) session.cookie.expires = expired;
   if (row.signed_in !== null && row.signed_in !== undefined) {
     const user: AuthUser | null = row.user_id === null ? null : { id: row.user_id, email: row.email, name: row.name, role: row.role, organisation: { id: row.org_id, name: row.org_name, kind: row.org_kind } };
-    if (user) bookVersionsReadWithUsers.set(user, Number(row.book_version ?? 0));
-    Object.defineProperty(session, USER_READ_WITH_SESSION, { value: { id: Number(row.signed_in), user }, enumerable: false });
+    const read: SignedInRead = { id: Number(row.signed_in), user, bookVersion: Number(row.book_version ?? 0) };
+    Object.defineProperty(session, READ_WITH_SESSION, { value: read, enumerable: false });
   }
   return session;
 }

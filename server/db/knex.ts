@@ -135,6 +135,29 @@ export function peekRow<T>(db: Db, sql: string, ...params: unknown[]): { row: T 
   return { row: conn.prepare(sql).get(...params) as T | undefined };
 }
 
+/** The part of knex's client that hands out and takes back pooled connections (node-postgres clients on PostgreSQL). */
+interface PooledClient {
+  acquireConnection: () => Promise<{ query: (q: { name: string; text: string; values: unknown[] }) => Promise<{ rows: unknown[] }> }>;
+  releaseConnection: (conn: unknown) => Promise<unknown>;
+}
+
+/**
+ * One row read on PostgreSQL through a pooled connection, without knex's query building, bindings
+ * rewriting and query events (on the busiest path they cost more than the round trip's own work in
+ * this process). `sql` uses PostgreSQL's own placeholders ($1, $2…). It runs as a prepared statement
+ * named `name` (one name per SQL text): each connection parses and plans it once, then only binds
+ * and runs it. Rows are parsed as knex's are (the same node-postgres type parsers).
+ */
+export async function pgRow<T>(db: Db, name: string, sql: string, ...params: unknown[]): Promise<T | undefined> {
+  const client = db.client as unknown as PooledClient;
+  const conn = await client.acquireConnection();
+  try {
+    return (await conn.query({ name, text: sql, values: params })).rows[0] as T | undefined;
+  } finally {
+    await client.releaseConnection(conn);
+  }
+}
+
 const STATEMENT_CACHE_SIZE = 1000;
 
 /**

@@ -1,5 +1,5 @@
 import { execFileSync, spawnSync } from 'node:child_process';
-import { chmodSync, existsSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { chmodSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -16,6 +16,9 @@ export interface PgCluster {
   port: number;
   stop: () => void;
 }
+
+/** How long pg_ctl waits for the server to accept connections (its own default is 60 s). */
+const START_TIMEOUT_S = 300;
 
 function binDir(): string {
   if (process.env.PG_BIN && existsSync(join(process.env.PG_BIN, 'initdb'))) return process.env.PG_BIN;
@@ -53,7 +56,21 @@ export async function startPgCluster(): Promise<PgCluster> {
   run('initdb', ['-D', join(dir, 'data'), '--auth=trust', '-U', 'postgres', '-E', 'UTF8', '--no-sync', '--locale=C']);
   const port = await freePort();
   const options = [`-p ${port}`, `-k ${dir}`, '-c listen_addresses=127.0.0.1', '-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off', '-c max_connections=300'].join(' ');
-  run('pg_ctl', ['-D', join(dir, 'data'), '-l', join(dir, 'log'), '-w', '-o', options, 'start']);
+  // pg_ctl waits 60 s for the server by default; on a machine busy with other work, start-up (crash
+  // recovery checks, shared memory, the first checkpoint) can take longer than that, so it waits
+  // up to START_TIMEOUT_S, and a failure says what the server's own log said.
+  try {
+    run('pg_ctl', ['-D', join(dir, 'data'), '-l', join(dir, 'log'), '-w', '-t', String(START_TIMEOUT_S), '-o', options, 'start']);
+  } catch (err) {
+    const log = existsSync(join(dir, 'log')) ? readFileSync(join(dir, 'log'), 'utf8').slice(-2000) : '(no log)';
+    try {
+      run('pg_ctl', ['-D', join(dir, 'data'), '-m', 'immediate', 'stop']); // a server still starting is not left behind
+    } catch {
+      // it was not running
+    }
+    rmSync(dir, { recursive: true, force: true });
+    throw new Error(`${(err as Error).message}\nserver log:\n${log}`, { cause: err });
+  }
   let stopped = false;
   return {
     adminUrl: `postgres://postgres@127.0.0.1:${port}/postgres`,

@@ -103,6 +103,33 @@ const firstSegment = (path: string) => {
   return path.slice(1, end === -1 ? undefined : end).toLowerCase();
 };
 
+/** A module's router as apiRouter() makes it: a gate on the first path segment of its routes. */
+export type ModuleRouter = ((req: Request, res: Response, next: NextFunction) => void) & { stack: unknown[]; segments: ReadonlySet<string> };
+
+/**
+ * The API's modules behind one gate: a request goes straight to the modules with a route under its
+ * first path segment, in the order given (as if each were mounted in turn), instead of passing
+ * every other module's gate on the way. Keeps each module's router in its stack for the route
+ * inventory.
+ */
+export function apiModules(routers: ModuleRouter[]): RequestHandler & { stack: { handle: ModuleRouter }[] } {
+  const bySegment = new Map<string, ModuleRouter[]>();
+  for (const r of routers) for (const segment of r.segments) bySegment.set(segment, [...(bySegment.get(segment) ?? []), r]);
+  const handler: RequestHandler = (req, res, next) => {
+    const modules = bySegment.get(firstSegment(req.path));
+    if (!modules) return next();
+    let i = 0;
+    const step = (err?: unknown) => {
+      // 'router' leaves one module's router: the next module is tried, as when each is mounted on its own.
+      if (err && err !== 'router') return next(err);
+      if (i === modules.length) return next();
+      modules[i++](req, res, step);
+    };
+    step();
+  };
+  return Object.assign(handler, { stack: routers.map((handle) => ({ handle })) });
+}
+
 /**
  * A router whose every route must state its access rule and may state zod schemas for params,
  * query and body. Validation failures become 422 with field paths (see error-handler).
@@ -115,7 +142,7 @@ const firstSegment = (path: string) => {
 export function apiRouter() {
   const inner = Router();
   const segments = new Set<string>();
-  const router = Object.assign(
+  const router: ModuleRouter = Object.assign(
     (req: Request, res: Response, next: NextFunction) => {
       if (!segments.has(firstSegment(req.path))) {
         next();
@@ -123,7 +150,7 @@ export function apiRouter() {
       }
       inner(req, res, next);
     },
-    { stack: inner.stack },
+    { stack: inner.stack, segments },
   );
   const add =
     (method: Method) =>

@@ -16,6 +16,7 @@ import {
 } from '../../../shared/schemas/order.schema';
 import type { RequestHandler } from 'express';
 import { currentUser } from '../../auth/policy';
+import { bookVersionReadWith } from '../../auth/signed-in';
 import { apiRouter } from '../../http/endpoint';
 import type { OrdersService } from './orders.service';
 
@@ -28,10 +29,11 @@ export function ordersRoutes(orders: OrdersService, idempotent: RequestHandler =
   });
 
   r.get('/orders', { access: { action: 'orders:read' }, query: orderBookQuerySchema }, async (req, res, { query }) => {
-    const page = await orders.listPage(currentUser(req), query);
+    const page = await orders.listPage(currentUser(req), query, bookVersionReadWith(req));
     // A kept page carries its ETag, so Express does not hash the body again on every read.
-    if (page.etag) res.set('ETag', page.etag);
-    res.type('application/json').send(page.body);
+    if (page.etag) res.setHeader('ETag', page.etag);
+    res.setHeader('Content-Type', 'application/json; charset=utf-8');
+    res.send(page.body);
   });
 
   r.get('/orders/:id', { access: { action: 'orders:read' }, params: orderParamsSchema }, async (req, res, { params }) => {
