@@ -100,19 +100,25 @@ export function PalletList({ drop }: { drop: DriverDrop }) {
                 ))}
               </ul>
             ) : null}
-            {p.items.length > 0 ? (
-              <ul className="mt-1" aria-label={`Products on pallet ${p.n}`}>
-                {p.items.map((item) => (
-                  <li key={item.description}>
-                    {productWords(item.description)}: {quantityWords(item.quantity, item.unit)}
-                  </li>
-                ))}
-              </ul>
-            ) : null}
+            <PalletProducts pallet={p} />
           </li>
         ))}
       </ol>
     </section>
+  );
+}
+
+/** The products a pallet carries besides the tiles for its faces, one line each; nothing when it has none. */
+function PalletProducts({ pallet }: { pallet: DriverDrop['pallets'][number] }) {
+  if (pallet.items.length === 0) return null;
+  return (
+    <ul className="mt-1" aria-label={`Products on pallet ${pallet.n}`}>
+      {pallet.items.map((item) => (
+        <li key={item.description}>
+          {productWords(item.description)}: {quantityWords(item.quantity, item.unit)}
+        </li>
+      ))}
+    </ul>
   );
 }
 
