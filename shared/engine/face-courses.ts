@@ -48,6 +48,17 @@ export interface Scratch {
   clipped: number;
   tilesPerCourse: number;
   widest: number;
+  /**
+   * The shape and system the courses and battens in this scratch were last counted for (pitch, rafter,
+   * eaves, top, left and right edges): a face the same as the face before it takes its counts from here.
+   */
+  lastSystem: RoofSystem | null;
+  lastPitch: number;
+  lastRafter: number;
+  lastEaves: number;
+  lastTop: number;
+  lastLeft: string;
+  lastRight: string;
 }
 
 interface PieceCounts {
@@ -190,5 +201,12 @@ export function newScratch(system: RoofSystem): Scratch {
     clipped: 0,
     tilesPerCourse: 0,
     widest: 0,
+    lastSystem: null,
+    lastPitch: 0,
+    lastRafter: 0,
+    lastEaves: 0,
+    lastTop: 0,
+    lastLeft: '',
+    lastRight: '',
   };
 }

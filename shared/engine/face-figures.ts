@@ -1,7 +1,7 @@
 import type { Opening } from '../schemas/openings.schema';
 import type { RoofSystem } from '../schemas/roof-system.schema';
 import type { Face } from '../schemas/schedule.schema';
-import { planFaceBattens, type PieceTally } from './battens';
+import { addLastFacePieces, planFaceBattens, type FaceBattens, type PieceTally } from './battens';
 import { tilesForHalves } from './bond';
 import { clipsEveryTile } from './clips';
 import { lowestPitch, setOutCourses } from './courses';
@@ -147,12 +147,23 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   const rightVerge = !isRaking(face.right);
   const cover = tile.cover_width_mm;
   const pieces = scratch.pieces;
-  pieces.whole = 0;
-  pieces.halves = 0;
-  pieces.cut = 0;
-  pieces.eaves = 0;
-  pieces.top = 0;
-  pieces.tah = 0;
+  // A face of the same shape, pitch and system as the face before it has the same courses and battens.
+  const same =
+    scratch.lastSystem === system &&
+    scratch.lastPitch === face.pitch_deg &&
+    scratch.lastRafter === face.rafter_mm &&
+    scratch.lastEaves === face.eaves_mm &&
+    scratch.lastTop === face.top_mm &&
+    scratch.lastLeft === face.left &&
+    scratch.lastRight === face.right;
+  if (!same) {
+    pieces.whole = 0;
+    pieces.halves = 0;
+    pieces.cut = 0;
+    pieces.eaves = 0;
+    pieces.top = 0;
+    pieces.tah = 0;
+  }
   let nailed: number;
   let clips: number;
   const everyTileClipped = clipsEveryTile(scratch.clips, face.pitch_deg);
@@ -167,7 +178,7 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
     if (!fit.fits) {
       warnFace(warnings, face, 'no_whole_tile_fit', `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`);
     }
-    countVergeCourses(fit, C, system, everyTileClipped, scratch);
+    if (!same) countVergeCourses(fit, C, system, everyTileClipped, scratch);
     nailed = scratch.nailed;
     clips = scratch.clipped;
     tilesPerCourse = fit.tiles;
@@ -178,7 +189,7 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   } else {
     const oneVerge = leftVerge || rightVerge;
     const overhang = so.verge_overhang_mm.target;
-    countRakingCourses(shape, setOut, oneVerge, overhang, system, everyTileClipped, scratch);
+    if (!same) countRakingCourses(shape, setOut, oneVerge, overhang, system, everyTileClipped, scratch);
     nailed = scratch.nailed;
     clips = scratch.clipped;
     tilesPerCourse = scratch.tilesPerCourse;
@@ -236,7 +247,20 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
     );
   }
 
-  const battens = planFaceBattens(shape, inset, setOut, system, tally, face.quantity, false, scratch.joints, scratch.supportsByRow, scratch.battens);
+  let battens: FaceBattens;
+  if (same) {
+    addLastFacePieces(tally, face.quantity, scratch.joints);
+    battens = scratch.battens;
+  } else {
+    battens = planFaceBattens(shape, inset, setOut, system, tally, face.quantity, false, scratch.joints, scratch.supportsByRow, scratch.battens);
+    scratch.lastSystem = system;
+    scratch.lastPitch = face.pitch_deg;
+    scratch.lastRafter = face.rafter_mm;
+    scratch.lastEaves = face.eaves_mm;
+    scratch.lastTop = face.top_mm;
+    scratch.lastLeft = face.left;
+    scratch.lastRight = face.right;
+  }
   if (battens.stagger_relaxed > 0) {
     warnFace(warnings, face, 'batten_joints_not_staggered', `${battens.stagger_relaxed} batten joint(s) could not be staggered from the three rows below; check the cutting on site`);
   }
