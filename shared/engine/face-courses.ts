@@ -49,16 +49,19 @@ export interface Scratch {
   tilesPerCourse: number;
   widest: number;
   /**
-   * The shape and system the courses and battens in this scratch were last counted for (pitch, rafter,
-   * eaves, top, left and right edges): a face the same as the face before it takes its counts from here.
+   * What the courses and battens in this scratch were last counted for: system, pitch, rafter, eaves,
+   * and for the courses the top and how many verges (0, 1 or 2; a face and its mirror image count the
+   * same courses), for the battens the insets of the two raking edges. A face that matches the face
+   * before it takes those counts from here.
    */
   lastSystem: RoofSystem | null;
   lastPitch: number;
   lastRafter: number;
   lastEaves: number;
   lastTop: number;
-  lastLeft: string;
-  lastRight: string;
+  lastVerges: number;
+  lastInsetLeft: number;
+  lastInsetRight: number;
 }
 
 interface PieceCounts {
@@ -206,7 +209,8 @@ export function newScratch(system: RoofSystem): Scratch {
     lastRafter: 0,
     lastEaves: 0,
     lastTop: 0,
-    lastLeft: '',
-    lastRight: '',
+    lastVerges: -1,
+    lastInsetLeft: 0,
+    lastInsetRight: 0,
   };
 }

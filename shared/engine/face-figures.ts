@@ -147,16 +147,13 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   const rightVerge = !isRaking(face.right);
   const cover = tile.cover_width_mm;
   const pieces = scratch.pieces;
-  // A face of the same shape, pitch and system as the face before it has the same courses and battens.
-  const same =
-    scratch.lastSystem === system &&
-    scratch.lastPitch === face.pitch_deg &&
-    scratch.lastRafter === face.rafter_mm &&
-    scratch.lastEaves === face.eaves_mm &&
-    scratch.lastTop === face.top_mm &&
-    scratch.lastLeft === face.left &&
-    scratch.lastRight === face.right;
-  if (!same) {
+  // A face of the same size, pitch and system as the face before it has the same courses if it has as
+  // many verges (its mirror image too), and the same battens if its raking edges are set in as far.
+  const verges = leftVerge ? (rightVerge ? 2 : 1) : rightVerge ? 1 : 0;
+  const sameSize = scratch.lastSystem === system && scratch.lastPitch === face.pitch_deg && scratch.lastRafter === face.rafter_mm && scratch.lastEaves === face.eaves_mm;
+  const sameCourses = sameSize && scratch.lastTop === face.top_mm && scratch.lastVerges === verges;
+  const sameBattens = sameSize && scratch.lastInsetLeft === inset.left && scratch.lastInsetRight === inset.right;
+  if (!sameCourses) {
     pieces.whole = 0;
     pieces.halves = 0;
     pieces.cut = 0;
@@ -178,7 +175,7 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
     if (!fit.fits) {
       warnFace(warnings, face, 'no_whole_tile_fit', `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`);
     }
-    if (!same) countVergeCourses(fit, C, system, everyTileClipped, scratch);
+    if (!sameCourses) countVergeCourses(fit, C, system, everyTileClipped, scratch);
     nailed = scratch.nailed;
     clips = scratch.clipped;
     tilesPerCourse = fit.tiles;
@@ -189,7 +186,7 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   } else {
     const oneVerge = leftVerge || rightVerge;
     const overhang = so.verge_overhang_mm.target;
-    if (!same) countRakingCourses(shape, setOut, oneVerge, overhang, system, everyTileClipped, scratch);
+    if (!sameCourses) countRakingCourses(shape, setOut, oneVerge, overhang, system, everyTileClipped, scratch);
     nailed = scratch.nailed;
     clips = scratch.clipped;
     tilesPerCourse = scratch.tilesPerCourse;
@@ -248,19 +245,20 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   }
 
   let battens: FaceBattens;
-  if (same) {
+  if (sameBattens) {
     addLastFacePieces(tally, face.quantity, scratch.joints);
     battens = scratch.battens;
   } else {
     battens = planFaceBattens(shape, inset, setOut, system, tally, face.quantity, false, scratch.joints, scratch.supportsByRow, scratch.battens);
-    scratch.lastSystem = system;
-    scratch.lastPitch = face.pitch_deg;
-    scratch.lastRafter = face.rafter_mm;
-    scratch.lastEaves = face.eaves_mm;
-    scratch.lastTop = face.top_mm;
-    scratch.lastLeft = face.left;
-    scratch.lastRight = face.right;
   }
+  scratch.lastSystem = system;
+  scratch.lastPitch = face.pitch_deg;
+  scratch.lastRafter = face.rafter_mm;
+  scratch.lastEaves = face.eaves_mm;
+  scratch.lastTop = face.top_mm;
+  scratch.lastVerges = verges;
+  scratch.lastInsetLeft = inset.left;
+  scratch.lastInsetRight = inset.right;
   if (battens.stagger_relaxed > 0) {
     warnFace(warnings, face, 'batten_joints_not_staggered', `${battens.stagger_relaxed} batten joint(s) could not be staggered from the three rows below; check the cutting on site`);
   }
