@@ -30,14 +30,27 @@ export class PieceTally {
   }
 }
 
-/** Scratch space for the joint-stagger check, reused from face to face. */
+/**
+ * Scratch space for the joint-stagger check, reused from face to face, and the pieces (whole mm) the
+ * last face planned was cut into, so a face of the same shape can add them to the tally again.
+ */
 export class JointScratch {
   buffer = new Int32Array(64);
   readonly extent: Extent = { from: 0, to: 0 };
+  pieces = new Int32Array(256);
+  pieceCount = 0;
   take(size: number): Int32Array {
     if (this.buffer.length < size) this.buffer = new Int32Array(Math.max(size, this.buffer.length * 2));
     this.buffer.fill(-1000, 0, size);
     return this.buffer;
+  }
+  keep(mm: number) {
+    if (this.pieceCount === this.pieces.length) {
+      const grown = new Int32Array(this.pieces.length * 2);
+      grown.set(this.pieces);
+      this.pieces = grown;
+    }
+    this.pieces[this.pieceCount++] = mm;
   }
 }
 
@@ -74,10 +87,20 @@ function supportAt(idx: number, n: number, from: number, to: number, k0: number,
   return idx === 0 ? from : idx === n - 1 ? to : (k0 + idx - 1) * s;
 }
 
-function addPiece(tally: PieceTally | null, quantity: number, stock: number, len: number, row: BattenRow | undefined) {
+function addPiece(tally: PieceTally | null, quantity: number, stock: number, len: number, row: BattenRow | undefined, scratch: JointScratch) {
   const mm = Math.min(Math.floor(stock), Math.max(1, Math.ceil(len - 1e-3)));
   if (tally) tally.add(mm, quantity);
   if (row) row.pieces_mm.push(mm);
+  scratch.keep(mm);
+}
+
+/**
+ * Adds to `tally`, `quantity` times, the pieces of the face `planFaceBattens` last planned with
+ * `scratch`: the same as planning again a face of the same shape, set-out and system.
+ */
+export function addLastFacePieces(tally: PieceTally, quantity: number, scratch: JointScratch) {
+  const pieces = scratch.pieces;
+  for (let i = 0, n = scratch.pieceCount; i < n; i++) tally.add(pieces[i], quantity);
 }
 
 /**
@@ -114,6 +137,7 @@ export function planFaceBattens(
   const kLow = Math.floor(reachFrom / s) - 1;
   const kHigh = Math.ceil(reachTo / s) + 1;
   const lastJointRow = scratch.take(kHigh - kLow + 1);
+  scratch.pieceCount = 0;
   const extent = scratch.extent;
 
   const result: FaceBattens = out ?? { batten_mm: 0, crossings: 0, joints: 0, stagger_relaxed: 0, forced_short: 0 };
@@ -148,7 +172,7 @@ export function planFaceBattens(
     for (;;) {
       const start = supportAt(i, n, from, to, k0, s);
       if (to - start <= stock + TOL) {
-        addPiece(tally, quantity, stock, to - start, row);
+        addPiece(tally, quantity, stock, to - start, row, scratch);
         break;
       }
       const jMax = Math.min(interior, Math.floor((start + stock + TOL) / s) - k0 + 1);
@@ -173,7 +197,7 @@ export function planFaceBattens(
       const jointAt = supportAt(chosen, n, from, to, k0, s);
       lastJointRow[k0 + chosen - 1 - kLow] = r;
       result.joints++;
-      addPiece(tally, quantity, stock, jointAt - start, row);
+      addPiece(tally, quantity, stock, jointAt - start, row, scratch);
       if (row) row.joints_mm.push(jointAt);
       i = chosen;
     }

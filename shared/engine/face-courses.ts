@@ -48,6 +48,20 @@ export interface Scratch {
   clipped: number;
   tilesPerCourse: number;
   widest: number;
+  /**
+   * What the courses and battens in this scratch were last counted for: system, pitch, rafter, eaves,
+   * and for the courses the top and how many verges (0, 1 or 2; a face and its mirror image count the
+   * same courses), for the battens the insets of the two raking edges. A face that matches the face
+   * before it takes those counts from here.
+   */
+  lastSystem: RoofSystem | null;
+  lastPitch: number;
+  lastRafter: number;
+  lastEaves: number;
+  lastTop: number;
+  lastVerges: number;
+  lastInsetLeft: number;
+  lastInsetRight: number;
 }
 
 interface PieceCounts {
@@ -190,5 +204,13 @@ export function newScratch(system: RoofSystem): Scratch {
     clipped: 0,
     tilesPerCourse: 0,
     widest: 0,
+    lastSystem: null,
+    lastPitch: 0,
+    lastRafter: 0,
+    lastEaves: 0,
+    lastTop: 0,
+    lastVerges: -1,
+    lastInsetLeft: 0,
+    lastInsetRight: 0,
   };
 }

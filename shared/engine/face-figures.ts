@@ -1,7 +1,7 @@
 import type { Opening } from '../schemas/openings.schema';
 import type { RoofSystem } from '../schemas/roof-system.schema';
 import type { Face } from '../schemas/schedule.schema';
-import { planFaceBattens, type PieceTally } from './battens';
+import { addLastFacePieces, planFaceBattens, type FaceBattens, type PieceTally } from './battens';
 import { tilesForHalves } from './bond';
 import { clipsEveryTile } from './clips';
 import { lowestPitch, setOutCourses } from './courses';
@@ -55,68 +55,45 @@ class FaceFigures implements FaceResult {
   declare setting_out_from: SettingOutFrom;
   declare stacks_by_row: number[];
 
-  constructor(
-    building: string,
-    face: string,
-    quantity: number,
-    pitch_deg: number,
-    rafter_mm: number,
-    slope_area_m2: number,
-    headlap_mm: number,
-    gauge_mm: number,
-    courses: number,
-    tiles_per_course: number,
-    cover_width_mm: number,
-    verge_overhang_mm: number | null,
-    whole_tiles: number,
-    half_tiles: number,
-    cut_tiles: number,
-    tiles: number,
-    eaves_tiles: number,
-    top_tiles: number,
-    tile_and_half: number,
-    openings_area_m2: number,
-    ridge: string | null,
-    batten_m: number,
-    stacks: number,
-    stack_positions: number,
-    load_kg: number,
-    clips: number,
-    setting_out_marks_mm: number[],
-    setting_out_from: SettingOutFrom,
-    stacks_by_row: number[],
-  ) {
+  /**
+   * Every field in FaceResult's order, set to a placeholder and then written by computeFace: a decimal
+   * given as an argument would be boxed once to pass it and again to store it.
+   */
+  constructor(building: string, face: string) {
     this.building = building;
     this.face = face;
-    this.quantity = quantity;
-    this.pitch_deg = pitch_deg;
-    this.rafter_mm = rafter_mm;
-    this.slope_area_m2 = slope_area_m2;
-    this.headlap_mm = headlap_mm;
-    this.gauge_mm = gauge_mm;
-    this.courses = courses;
-    this.tiles_per_course = tiles_per_course;
-    this.cover_width_mm = cover_width_mm;
-    this.verge_overhang_mm = verge_overhang_mm;
-    this.whole_tiles = whole_tiles;
-    this.half_tiles = half_tiles;
-    this.cut_tiles = cut_tiles;
-    this.tiles = tiles;
-    this.eaves_tiles = eaves_tiles;
-    this.top_tiles = top_tiles;
-    this.tile_and_half = tile_and_half;
-    this.openings_area_m2 = openings_area_m2;
-    this.ridge = ridge;
-    this.batten_m = batten_m;
-    this.stacks = stacks;
-    this.stack_positions = stack_positions;
-    this.load_kg = load_kg;
-    this.clips = clips;
-    this.setting_out_marks_mm = setting_out_marks_mm;
-    this.setting_out_from = setting_out_from;
-    this.stacks_by_row = stacks_by_row;
+    this.quantity = 0;
+    this.pitch_deg = 0;
+    this.rafter_mm = 0;
+    this.slope_area_m2 = 0;
+    this.headlap_mm = 0;
+    this.gauge_mm = 0;
+    this.courses = 0;
+    this.tiles_per_course = 0;
+    this.cover_width_mm = 0;
+    this.verge_overhang_mm = null;
+    this.whole_tiles = 0;
+    this.half_tiles = 0;
+    this.cut_tiles = 0;
+    this.tiles = 0;
+    this.eaves_tiles = 0;
+    this.top_tiles = 0;
+    this.tile_and_half = 0;
+    this.openings_area_m2 = 0;
+    this.ridge = null;
+    this.batten_m = 0;
+    this.stacks = 0;
+    this.stack_positions = 0;
+    this.load_kg = 0;
+    this.clips = 0;
+    this.setting_out_marks_mm = NO_NUMBERS;
+    this.setting_out_from = 'right_end';
+    this.stacks_by_row = NO_NUMBERS;
   }
 }
+
+/** Placeholder for a face's arrays until computeFace writes them (never part of a result). */
+const NO_NUMBERS: number[] = [];
 
 export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, warnings: EngineWarning[], scratch: Scratch, openings?: readonly Opening[]): FaceResult {
   const { tile, setting_out: so } = system;
@@ -147,12 +124,20 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   const rightVerge = !isRaking(face.right);
   const cover = tile.cover_width_mm;
   const pieces = scratch.pieces;
-  pieces.whole = 0;
-  pieces.halves = 0;
-  pieces.cut = 0;
-  pieces.eaves = 0;
-  pieces.top = 0;
-  pieces.tah = 0;
+  // A face of the same size, pitch and system as the face before it has the same courses if it has as
+  // many verges (its mirror image too), and the same battens if its raking edges are set in as far.
+  const verges = leftVerge ? (rightVerge ? 2 : 1) : rightVerge ? 1 : 0;
+  const sameSize = scratch.lastSystem === system && scratch.lastPitch === face.pitch_deg && scratch.lastRafter === face.rafter_mm && scratch.lastEaves === face.eaves_mm;
+  const sameCourses = sameSize && scratch.lastTop === face.top_mm && scratch.lastVerges === verges;
+  const sameBattens = sameSize && scratch.lastInsetLeft === inset.left && scratch.lastInsetRight === inset.right;
+  if (!sameCourses) {
+    pieces.whole = 0;
+    pieces.halves = 0;
+    pieces.cut = 0;
+    pieces.eaves = 0;
+    pieces.top = 0;
+    pieces.tah = 0;
+  }
   let nailed: number;
   let clips: number;
   const everyTileClipped = clipsEveryTile(scratch.clips, face.pitch_deg);
@@ -167,7 +152,7 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
     if (!fit.fits) {
       warnFace(warnings, face, 'no_whole_tile_fit', `no whole number of tiles fits ${Math.round(face.eaves_mm)} mm between the verges within the side-lock play and the verge overhang; one tile a course is cut`);
     }
-    countVergeCourses(fit, C, system, everyTileClipped, scratch);
+    if (!sameCourses) countVergeCourses(fit, C, system, everyTileClipped, scratch);
     nailed = scratch.nailed;
     clips = scratch.clipped;
     tilesPerCourse = fit.tiles;
@@ -178,7 +163,7 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   } else {
     const oneVerge = leftVerge || rightVerge;
     const overhang = so.verge_overhang_mm.target;
-    countRakingCourses(shape, setOut, oneVerge, overhang, system, everyTileClipped, scratch);
+    if (!sameCourses) countRakingCourses(shape, setOut, oneVerge, overhang, system, everyTileClipped, scratch);
     nailed = scratch.nailed;
     clips = scratch.clipped;
     tilesPerCourse = scratch.tilesPerCourse;
@@ -236,7 +221,21 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
     );
   }
 
-  const battens = planFaceBattens(shape, inset, setOut, system, tally, face.quantity, false, scratch.joints, scratch.supportsByRow, scratch.battens);
+  let battens: FaceBattens;
+  if (sameBattens) {
+    addLastFacePieces(tally, face.quantity, scratch.joints);
+    battens = scratch.battens;
+  } else {
+    battens = planFaceBattens(shape, inset, setOut, system, tally, face.quantity, false, scratch.joints, scratch.supportsByRow, scratch.battens);
+  }
+  scratch.lastSystem = system;
+  scratch.lastPitch = face.pitch_deg;
+  scratch.lastRafter = face.rafter_mm;
+  scratch.lastEaves = face.eaves_mm;
+  scratch.lastTop = face.top_mm;
+  scratch.lastVerges = verges;
+  scratch.lastInsetLeft = inset.left;
+  scratch.lastInsetRight = inset.right;
   if (battens.stagger_relaxed > 0) {
     warnFace(warnings, face, 'batten_joints_not_staggered', `${battens.stagger_relaxed} batten joint(s) could not be staggered from the three rows below; check the cutting on site`);
   }
@@ -265,37 +264,34 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   const slope = Math.max(0, slopeAreaM2(shape) - counts.area_mm2 * 1e-6);
   const battenMm = Math.max(0, battens.batten_mm - counts.batten_mm);
   const reference = settingOutReference(face.left, face.right);
-  const result = new FaceFigures(
-    face.building,
-    face.face,
-    face.quantity,
-    face.pitch_deg,
-    r1(face.rafter_mm),
-    r2(slope),
-    setOut.headlap_mm,
-    down1(setOut.gauge_mm),
-    C,
-    tilesPerCourse,
-    r1(coverUsed),
-    overhangUsed === null ? null : r1(overhangUsed),
-    whole,
-    halves,
-    cut,
-    tiles,
-    eavesTiles,
-    topTiles,
-    tah,
-    r2(counts.area_mm2 * 1e-6),
-    face.ridge ?? null,
-    r2(battenMm / 1000),
-    loading.stacks,
-    loading.positions,
-    r1(tiles * tile.weight_kg + eavesTiles * tile.eaves_tile_kg + topTiles * tile.top_tile_kg + tah * tile.tile_and_half_kg),
-    clips,
-    settingOutMarks(marksTiles, coverUsed, marksOverhang),
-    reference,
-    loading.stacks_by_row,
-  );
+  const result = new FaceFigures(face.building, face.face);
+  result.quantity = face.quantity;
+  result.pitch_deg = face.pitch_deg;
+  result.rafter_mm = r1(face.rafter_mm);
+  result.slope_area_m2 = r2(slope);
+  result.headlap_mm = setOut.headlap_mm;
+  result.gauge_mm = down1(setOut.gauge_mm);
+  result.courses = C;
+  result.tiles_per_course = tilesPerCourse;
+  result.cover_width_mm = r1(coverUsed);
+  result.verge_overhang_mm = overhangUsed === null ? null : r1(overhangUsed);
+  result.whole_tiles = whole;
+  result.half_tiles = halves;
+  result.cut_tiles = cut;
+  result.tiles = tiles;
+  result.eaves_tiles = eavesTiles;
+  result.top_tiles = topTiles;
+  result.tile_and_half = tah;
+  result.openings_area_m2 = r2(counts.area_mm2 * 1e-6);
+  result.ridge = face.ridge ?? null;
+  result.batten_m = r2(battenMm / 1000);
+  result.stacks = loading.stacks;
+  result.stack_positions = loading.positions;
+  result.load_kg = r1(tiles * tile.weight_kg + eavesTiles * tile.eaves_tile_kg + topTiles * tile.top_tile_kg + tah * tile.tile_and_half_kg);
+  result.clips = clips;
+  result.setting_out_marks_mm = settingOutMarks(marksTiles, coverUsed, marksOverhang);
+  result.setting_out_from = reference;
+  result.stacks_by_row = loading.stacks_by_row;
   scratch.plan_m2 = planAreaM2(slope, face.pitch_deg);
   scratch.net_slope_m2 = slope;
   scratch.openings_m2 = counts.area_mm2 * 1e-6;

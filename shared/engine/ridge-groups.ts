@@ -33,11 +33,13 @@ export interface RidgeGroups {
   count: number[];
   groupOf: number[];
   names: string[];
+  /** Whether each group's name is plain ASCII (isPlainAscii), worked out once per group. */
+  plain: boolean[];
   guessed: number;
 }
 
 export function newRidgeGroups(): RidgeGroups {
-  return { members: [], start: [], count: [], groupOf: [], names: [], guessed: 0 };
+  return { members: [], start: [], count: [], groupOf: [], names: [], plain: [], guessed: 0 };
 }
 
 /** True for a name of ASCII characters with no space at either end: trim() keeps it and toLowerCase() keeps its length. */
@@ -50,8 +52,13 @@ function isPlainAscii(s: string): boolean {
 
 /** a.trim().toLowerCase() === b.trim().toLowerCase(), without building the strings for plain ASCII names. */
 export function sameNameWithoutCase(a: string, b: string): boolean {
+  return a === b || sameName(a, isPlainAscii(a), b, isPlainAscii(b));
+}
+
+/** sameNameWithoutCase, given whether each name is plain ASCII. */
+function sameName(a: string, aPlain: boolean, b: string, bPlain: boolean): boolean {
   if (a === b) return true;
-  if (!isPlainAscii(a) || !isPlainAscii(b)) return a.trim().toLowerCase() === b.trim().toLowerCase();
+  if (!aPlain || !bPlain) return a.trim().toLowerCase() === b.trim().toLowerCase();
   const n = a.length;
   if (n !== b.length) return false;
   for (let i = 0; i < n; i++) {
@@ -69,7 +76,7 @@ const RIDGE_GROUPS_SCANNED = 16;
 
 /** Groups a building's ridge faces by ridge name (without case) into `out`; returns the number of groups. */
 function groupRidgeFaces(ridgeFaces: readonly number[], schedule: Schedule, out: RidgeGroups): number {
-  const { groupOf, names, count, start, members } = out;
+  const { groupOf, names, plain, count, start, members } = out;
   let groups = 0;
   let guessed = 0;
   let byKey: Map<string, number> | null = null;
@@ -81,10 +88,11 @@ function groupRidgeFaces(ridgeFaces: readonly number[], schedule: Schedule, out:
       continue;
     }
     let g = -1;
+    const ridgePlain = isPlainAscii(ridge);
     if (byKey !== null) g = byKey.get(ridge.trim().toLowerCase()) ?? -1;
     else {
       for (let j = 0; j < groups; j++) {
-        if (sameNameWithoutCase(names[j], ridge)) {
+        if (sameName(names[j], plain[j], ridge, ridgePlain)) {
           g = j;
           break;
         }
@@ -93,6 +101,7 @@ function groupRidgeFaces(ridgeFaces: readonly number[], schedule: Schedule, out:
     if (g < 0) {
       g = groups++;
       names[g] = ridge;
+      plain[g] = ridgePlain;
       count[g] = 0;
       if (byKey !== null) byKey.set(ridge.trim().toLowerCase(), g);
       else if (groups > RIDGE_GROUPS_SCANNED) {
