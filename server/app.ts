@@ -108,7 +108,7 @@ export function createApp(deps: AppDeps): Express {
   const json = express.json({ limit: '1mb' });
   api.use((req, res, next) => {
     if (req.headers['transfer-encoding'] === undefined && req.headers['content-length'] === undefined) {
-      if (!('body' in req)) req.body = undefined;
+      if (!Object.hasOwn(req, 'body')) req.body = undefined;
       return next();
     }
     json(req, res, next);

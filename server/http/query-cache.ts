@@ -66,4 +66,3 @@ export function parsedQueryCache<T>(day: () => string, max = 256): ParsedQueryCa
     },
   };
 }
-
