@@ -16,6 +16,7 @@ import { apiModules } from './http/endpoint';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { fromLoopback } from './http/loopback';
 import { idempotency } from './http/idempotency';
+import { businessDay } from './http/query-cache';
 import { requestLog } from './http/request-log';
 import { authRoutes } from './modules/auth/auth.routes';
 import { authService } from './modules/auth/auth.service';
@@ -103,7 +104,15 @@ export function createApp(deps: AppDeps): Express {
   const api = express.Router();
   // The payment provider's signed events need the raw body and carry no session or CSRF token.
   api.use(paymentWebhookRoutes(payments));
-  api.use(express.json({ limit: '1mb' }));
+  // A request with no body (every GET) passes the JSON parser without its checks (no body: as type-is's hasBody).
+  const json = express.json({ limit: '1mb' });
+  api.use((req, res, next) => {
+    if (req.headers['transfer-encoding'] === undefined && req.headers['content-length'] === undefined) {
+      if (!Object.hasOwn(req, 'body')) req.body = undefined;
+      return next();
+    }
+    json(req, res, next);
+  });
   // Sessions in the database behind a signed cookie whose expiry rolls (sessions.ts).
   api.use(sessions(sessionStore, { secret: config.sessionSecret, maxAgeMs: SESSION_DAYS * 24 * 3_600_000, cookie: { httpOnly: true, sameSite: 'lax', secure: config.isProduction } }));
   // Passport's req.logIn / req.logOut through this app's request prototype, set up once:
@@ -135,7 +144,7 @@ export function createApp(deps: AppDeps): Express {
         deliveriesService(deps, (user, invoiceId, body) => invoices.credit(user, invoiceId, body)),
         idempotent,
       ),
-      ordersRoutes(orders, idempotent),
+      ordersRoutes(orders, idempotent, businessDay(config.calendar)),
       quotesRoutes(quotesService(deps, orders)),
       priceListRoutes(priceListService(deps)),
       stockRoutes(stockService(deps)),

@@ -2,6 +2,7 @@ import { Router, type NextFunction, type Request, type RequestHandler, type Resp
 import { z } from 'zod';
 import { accessGuard, type Access } from '../auth/policy';
 import { AppError } from './app-error';
+import { parsedQueryCache, rawQuery } from './query-cache';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
@@ -12,6 +13,11 @@ export interface EndpointSpec<P extends z.core.$ZodType, Q extends z.core.$ZodTy
   body?: B;
   /** Middleware that runs after the access check and before validation (rate limits, uploads). */
   before?: RequestHandler[];
+  /**
+   * Keep the parsed query per query text for the business day this gives (see query-cache.ts): for
+   * a read asked for with the same few queries over and over (the order book).
+   */
+  cacheQueryFor?: () => string;
 }
 
 export interface Valid<P, Q, B> {
@@ -64,18 +70,30 @@ function invalidField(path: string, message: string) {
  * prototype and bodies nested deeper than any the API takes are refused with 422 naming the field.
  */
 export function checkRequestShape(req: Request): void {
+  checkParams(req);
+  checkQuery(req.query);
+  checkBody(req);
+}
+
+function checkParams(req: Request): void {
   for (const [name, value] of Object.entries(req.params ?? {})) {
     if (TEXT_PARAMS.has(name)) continue;
     const plain = INDEX_PARAMS.has(name) ? PLAIN_INDEX : PLAIN_ID;
     if (typeof value !== 'string' || !plain.test(value)) throw AppError.notFound();
   }
-  for (const [name, raw] of Object.entries((req.query ?? {}) as Record<string, unknown>)) {
+}
+
+function checkQuery(query: unknown): void {
+  for (const [name, raw] of Object.entries((query ?? {}) as Record<string, unknown>)) {
     for (const value of Array.isArray(raw) ? raw : [raw]) {
       if (typeof value !== 'string') continue;
       if (hasQueryControl(value)) throw invalidField(name, 'must not contain control characters');
       if (name.endsWith('_id') && value !== '' && !PLAIN_ID.test(value)) throw invalidField(name, 'must be a whole number id');
     }
   }
+}
+
+function checkBody(req: Request): void {
   if (req.body && typeof req.body === 'object' && !Buffer.isBuffer(req.body)) walkBody(req.body, [], 0);
 }
 
@@ -104,7 +122,16 @@ const firstSegment = (path: string) => {
 };
 
 /** A module's router as apiRouter() makes it: a gate on the first path segment of its routes. */
-export type ModuleRouter = ((req: Request, res: Response, next: NextFunction) => void) & { stack: unknown[]; segments: ReadonlySet<string> };
+export type ModuleRouter = ((req: Request, res: Response, next: NextFunction) => void) & {
+  stack: unknown[];
+  segments: ReadonlySet<string>;
+  /** 'GET orders', 'POST orders': the methods its routes answer under each first segment. */
+  methodSegments: ReadonlySet<string>;
+};
+
+/** Methods an apiRouter's routes are declared with; Express answers HEAD with a GET route. Others (OPTIONS) reach every module under the segment. */
+const ROUTE_METHODS = new Set(['GET', 'POST', 'PUT', 'PATCH', 'DELETE']);
+const routeMethod = (method: string) => (method === 'HEAD' ? 'GET' : ROUTE_METHODS.has(method) ? method : undefined);
 
 /**
  * The API's modules behind one gate: a request goes straight to the modules with a route under its
@@ -115,8 +142,13 @@ export type ModuleRouter = ((req: Request, res: Response, next: NextFunction) =>
 export function apiModules(routers: ModuleRouter[]): RequestHandler & { stack: { handle: ModuleRouter }[] } {
   const bySegment = new Map<string, ModuleRouter[]>();
   for (const r of routers) for (const segment of r.segments) bySegment.set(segment, [...(bySegment.get(segment) ?? []), r]);
+  // By method too: a GET for /orders passes no module whose only route there is a POST.
+  const byMethod = new Map<string, ModuleRouter[]>();
+  for (const r of routers) for (const key of r.methodSegments) byMethod.set(key, [...(byMethod.get(key) ?? []), r]);
   const handler: RequestHandler = (req, res, next) => {
-    const modules = bySegment.get(firstSegment(req.path));
+    const segment = firstSegment(req.path);
+    const method = routeMethod(req.method);
+    const modules = method ? byMethod.get(`${method} ${segment}`) : bySegment.get(segment);
     if (!modules) return next();
     let i = 0;
     const step = (err?: unknown) => {
@@ -142,6 +174,7 @@ export function apiModules(routers: ModuleRouter[]): RequestHandler & { stack: {
 export function apiRouter() {
   const inner = Router();
   const segments = new Set<string>();
+  const methodSegments = new Set<string>();
   const router: ModuleRouter = Object.assign(
     (req: Request, res: Response, next: NextFunction) => {
       if (!segments.has(firstSegment(req.path))) {
@@ -150,7 +183,7 @@ export function apiRouter() {
       }
       inner(req, res, next);
     },
-    { stack: inner.stack, segments },
+    { stack: inner.stack, segments, methodSegments },
   );
   const add =
     (method: Method) =>
@@ -159,14 +192,22 @@ export function apiRouter() {
       spec: EndpointSpec<P, Q, B>,
       handler: EndpointHandler<Out<P>, Out<Q>, Out<B>>,
     ) => {
+      const queries = spec.query && spec.cacheQueryFor ? parsedQueryCache<unknown>(spec.cacheQueryFor) : undefined;
       const run = async (req: Request, res: Response, next: NextFunction) => {
         try {
-          checkRequestShape(req);
+          // A query text that passed today is not checked or parsed again (Express parses req.query anew on every read).
+          const raw = queries ? rawQuery(req.url) : '';
+          const kept = queries?.get(raw);
+          const query = kept === undefined ? req.query : undefined;
+          checkParams(req);
+          if (kept === undefined) checkQuery(query);
+          checkBody(req);
           const valid = {
             params: spec.params ? z.parse(spec.params, req.params) : undefined,
-            query: spec.query ? z.parse(spec.query, req.query) : undefined,
+            query: kept ?? (spec.query ? z.parse(spec.query, query) : undefined),
             body: spec.body ? z.parse(spec.body, req.body ?? {}) : undefined,
           } as Valid<Out<P>, Out<Q>, Out<B>>;
+          if (queries && kept === undefined) queries.set(raw, valid.query);
           await handler(req, res, valid);
         } catch (err) {
           next(err);
@@ -174,6 +215,7 @@ export function apiRouter() {
       };
       if (path.startsWith('/:')) throw new Error(`${path}: an API route starts with a fixed segment`);
       segments.add(firstSegment(path));
+      methodSegments.add(`${method.toUpperCase()} ${firstSegment(path)}`);
       inner[method](path, accessGuard(spec.access), ...(spec.before ?? []), run);
     };
   return {

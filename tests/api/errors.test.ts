@@ -33,6 +33,16 @@ describe('error bodies', () => {
     expect(res.body.error.code).toBe('payload_too_large');
   });
 
+  it('a method no route under that path answers → 404; OPTIONS still lists the methods there', async () => {
+    const c = new Client(t.app);
+    const res = await c.get('/api/auth/login');
+    expect(res.status).toBe(404);
+    expect(errorBodySchema.parse(res.body).error.code).toBe('route_not_found');
+    const options = await c.agent.options('/api/auth/login');
+    expect(options.status).toBe(200);
+    expect(options.headers.allow).toContain('POST');
+  });
+
   it('an unknown API route → 404 in the error shape', async () => {
     const res = await new Client(t.app).get('/api/no-such-thing');
     expect(res.status).toBe(404);

@@ -69,6 +69,40 @@ describe('the order book never shows a stale answer', () => {
     expect(changed.body.orders[0].status).toBe('confirmed');
   });
 
+  it('answers a query text asked before as the first time, and refuses a bad one every time', async () => {
+    const m = await merchantWithCatalogue(t);
+    const k = await contractorWithEstimate(t, m);
+    await k.c.post('/api/orders', orderBody(k, m, { po_reference: 'PO-KEPT' }));
+    const desk = await signIn(t.app, m.salesEmail);
+    const q = '/api/orders?statuses=sent&sort=placed_at&dir=desc&page_size=10';
+    const first = await desk.get(q);
+    const second = await desk.get(q);
+    expect(second.status).toBe(200);
+    expect(second.body).toEqual(first.body);
+    expect((second.body as { page_size: number }).page_size).toBe(10);
+    expect(second.headers['content-type']).toBe('application/json; charset=utf-8');
+    expect(Number(second.headers['content-length'])).toBe(Buffer.byteLength(JSON.stringify(first.body)));
+    expect(second.headers.etag).toBe(first.headers.etag);
+    // Another text is parsed on its own: another page size, another page.
+    expect(((await desk.get(q.replace('page_size=10', 'page_size=5'))).body as { page_size: number }).page_size).toBe(5);
+
+    const head = await desk.agent.head(q);
+    expect(head.status).toBe(200);
+    expect(head.headers.etag).toBe(first.headers.etag);
+    const notModified = await desk.agent.get(q).set('If-None-Match', first.headers.etag as string);
+    expect(notModified.status).toBe(304);
+    expect(notModified.headers['content-type']).toBeUndefined();
+    expect(notModified.text).toBe('');
+
+    for (const bad of ['page_size=500', 'q=%00', 'branch_id=0x1']) {
+      for (let i = 0; i < 2; i++) {
+        const refused = await desk.get(`/api/orders?${bad}`);
+        expect(refused.status, bad).toBe(422);
+        expect(JSON.stringify(refused.body), bad).toContain(bad.split('=')[0]);
+      }
+    }
+  });
+
   it("keeps one merchant's reads apart from another's", async () => {
     const a = await merchantWithCatalogue(t);
     const b = await merchantWithCatalogue(t);

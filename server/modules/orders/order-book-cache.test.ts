@@ -84,3 +84,20 @@ describe('order-book cache', () => {
     expect(empty.calls.page).toBe(0);
   });
 });
+
+describe('orderBookCache keys', () => {
+  it('keeps the keys of a frozen filter, and works out those of a filter that may change each time', async () => {
+    const { calls, cache } = fakeBook(100);
+    const party = desk;
+    const frozen = Object.freeze({ page: 1, page_size: 25, sort: 'placed_at', dir: 'desc', status: 'sent' });
+    await cache.read(party, frozen);
+    await cache.read(party, frozen);
+    expect(calls.page).toBe(1);
+    const open: Filter = { page: 1, page_size: 25, sort: 'placed_at', dir: 'desc', status: 'sent' };
+    expect((await cache.read(party, open)).page).toEqual(['a:sent:placed_at:desc:1']);
+    open.status = 'confirmed';
+    open.page = 2;
+    expect((await cache.read(party, open)).page).toEqual(['a:confirmed:placed_at:desc:2']);
+    expect(calls.page).toBe(2);
+  });
+});

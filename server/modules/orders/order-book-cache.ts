@@ -29,21 +29,33 @@ export function orderBookCache<Filter extends { page: number; page_size: number;
   const pages = new LRUCache<string, Page>({ max: MAX_ENTRIES, ttl: TTL_MS });
   let hits = 0;
   let misses = 0;
+  /**
+   * A filter's parts of the keys, worked out once per filter object when it cannot change (a frozen
+   * parsed query, shared by every request with the same query text: see http/query-cache.ts).
+   */
+  const filterKeys = new WeakMap<Filter, { filter: string; page: string }>();
+  const keysOf = (filter: Filter) => {
+    const { page, page_size, sort, dir, ...rest } = filter;
+    // zod gives the parsed query its keys in schema order, so equal filters stringify equally.
+    const keys = { filter: JSON.stringify(rest), page: `${sort}:${dir}:${page}:${page_size}` };
+    if (Object.isFrozen(filter)) filterKeys.set(filter, keys);
+    return keys;
+  };
 
   return {
     /** `knownVersion`: the organisation's version when the caller has already read it (with the session) for this request. */
     async read(party: OrderParty, filter: Filter, knownVersion?: number): Promise<{ total: number; capped: boolean; page: Page | null }> {
       const version = knownVersion ?? (await source.version(party.organisationId));
-      const { page, page_size, sort, dir, ...rest } = filter;
-      // zod gives the parsed query its keys in schema order, so equal filters stringify equally.
-      const countKey = `${party.kind}:${party.organisationId}:${version}:${JSON.stringify(rest)}`;
+      const { page, page_size } = filter;
+      const keys = filterKeys.get(filter) ?? keysOf(filter);
+      const countKey = `${party.kind}:${party.organisationId}:${version}:${keys.filter}`;
       let count = counts.get(countKey);
       if (!count) {
         count = await source.count(party, filter);
         counts.set(countKey, count);
       }
       if (count.total === 0 || (!count.capped && (page - 1) * page_size >= count.total)) return { ...count, page: null };
-      const pageKey = `${countKey}:${sort}:${dir}:${page}:${page_size}`;
+      const pageKey = `${countKey}:${keys.page}`;
       let rows = pages.get(pageKey);
       if (rows) hits++;
       else {

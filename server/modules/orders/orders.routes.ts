@@ -20,20 +20,34 @@ import { bookVersionReadWith } from '../../auth/signed-in';
 import { apiRouter } from '../../http/endpoint';
 import type { OrdersService } from './orders.service';
 
-/** `idempotent`: the shared Idempotency-Key middleware, on the writes a client may send twice (place, confirm). */
-export function ordersRoutes(orders: OrdersService, idempotent: RequestHandler = (_req, _res, next) => next()) {
+const JSON_TYPE = 'application/json; charset=utf-8';
+
+/**
+ * `idempotent`: the shared Idempotency-Key middleware, on the writes a client may send twice (place, confirm).
+ * `businessDay`: today from the business calendar (query-cache.ts businessDay), under which the order
+ * book's parsed queries are kept; without it every list query is parsed anew.
+ */
+export function ordersRoutes(orders: OrdersService, idempotent: RequestHandler = (_req, _res, next) => next(), businessDay?: () => string) {
   const r = apiRouter();
 
   r.post('/orders', { access: { action: 'orders:place' }, body: placeOrderBodySchema, before: [idempotent] }, async (req, res, { body }) => {
     res.status(201).json(await orders.place(currentUser(req), body));
   });
 
-  r.get('/orders', { access: { action: 'orders:read' }, query: orderBookQuerySchema }, async (req, res, { query }) => {
+  r.get('/orders', { access: { action: 'orders:read' }, query: orderBookQuerySchema, cacheQueryFor: businessDay }, async (req, res, { query }) => {
     const page = await orders.listPage(currentUser(req), query, bookVersionReadWith(req));
-    // A kept page carries its ETag, so Express does not hash the body again on every read.
-    if (page.etag) res.setHeader('ETag', page.etag);
-    res.setHeader('Content-Type', 'application/json; charset=utf-8');
-    res.send(page.body);
+    res.setHeader('Content-Type', JSON_TYPE);
+    // An empty page has no ETag: Express tags it as it tags any body.
+    if (!page.etag) return void res.send(page.body);
+    // A kept page carries its ETag and goes out as its bytes, without res.send's work on every read.
+    res.setHeader('ETag', page.etag);
+    if (req.headers['if-none-match'] !== undefined && req.fresh) {
+      res.removeHeader('Content-Type');
+      res.statusCode = 304;
+      return void res.end();
+    }
+    res.setHeader('Content-Length', page.length ?? String(page.body.length));
+    res.end(page.body);
   });
 
   r.get('/orders/:id', { access: { action: 'orders:read' }, params: orderParamsSchema }, async (req, res, { params }) => {

@@ -18,7 +18,7 @@ const bookBody = (f: ListQuery, count: { total: number; capped: boolean }, summa
 
 /**
  * The order book's pages as JSON bytes ({orders, total, total_capped, page, page_size}) with their
- * ETags: the book is read far more than it changes, so each page is read, serialised and tagged
+ * ETags and lengths (as the Content-Length header's text): the book is read far more than it changes, so each page is read, serialised and tagged
  * once per change (see order-book-cache) rather than once per reader.
  */
 export function orderBook(ctx: OrderContext) {
@@ -28,12 +28,12 @@ export function orderBook(ctx: OrderContext) {
     count: orders.count,
     page: async (party: OrderParty, f: ListQuery, count: { total: number; capped: boolean }) => {
       const body = bookBody(f, count, (await orders.page(party, f)).map(orderSummary));
-      return { body, etag: weakEtag(body) };
+      return { body, etag: weakEtag(body), length: String(body.length) };
     },
   });
 
   /** `bookVersion`: the organisation's order-book version when it was read with the request's session. */
-  return async function listPage(user: AuthUser, query: ListQuery, bookVersion?: number): Promise<{ body: Buffer; etag?: string }> {
+  return async function listPage(user: AuthUser, query: ListQuery, bookVersion?: number): Promise<{ body: Buffer; etag?: string; length?: string }> {
     const { page, total, capped } = await book.read(partyOf(user), query, bookVersion);
     return page ?? { body: bookBody(query, { total, capped }, []) };
   };
