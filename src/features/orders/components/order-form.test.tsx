@@ -20,10 +20,10 @@ const site = (crane: OrderSiteAccess['crane_lift'] = 'allowed'): OrderSiteAccess
   vehicle_access: 'rigid_only',
 });
 
-/** Renders the form and waits for its lines table, which loads after the form shows. */
+/** Renders the form and waits for its lines table, which loads after the form shows (the first time, on a busy machine, in more than a second). */
 async function renderForm(crane: OrderSiteAccess['crane_lift'] = 'allowed', onDone = vi.fn()) {
   renderWithProviders(<OrderForm target={{ mode: 'place', estimate_id: 7, branch_id: 1 }} branchName="Tollerbeck Yard" lines={lines} site={site(crane)} onDone={onDone} />);
-  await screen.findByRole('region', { name: 'Lines of the order' });
+  await screen.findByRole('region', { name: 'Lines of the order' }, { timeout: 5000 });
   return onDone;
 }
 
