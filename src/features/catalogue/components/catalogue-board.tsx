@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { BranchSelect } from '../../../components/ui/branch-select';
@@ -7,10 +7,13 @@ import { Card } from '../../../components/ui/card';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useCatalogueBranches } from '../api/get-catalogue-branches';
 import { sheetExportUrl } from '../api/keys';
-import { ProductsPanel } from './products-panel';
-import { RoofSystemsPanel } from './roof-systems-panel';
-import { SheetImport } from './sheet-import';
 import { StockTable } from './stock-table';
+
+// The stock section shows first; the other sections and the sheet imports (forms, with the form library)
+// load when they are shown (DEVELOPERS.md, decision 37).
+const ProductsPanel = lazy(() => import('./products-panel').then((m) => ({ default: m.ProductsPanel })));
+const RoofSystemsPanel = lazy(() => import('./roof-systems-panel').then((m) => ({ default: m.RoofSystemsPanel })));
+const SheetImport = lazy(() => import('./sheet-import').then((m) => ({ default: m.SheetImport })));
 
 const SECTIONS = [
   { id: 'stock', label: 'Stock and prices' },
@@ -54,12 +57,16 @@ export function CatalogueBoard({ canImportPrices, canImportStock }: { canImportP
     <div className="space-y-6">
       <SectionNav current={section} />
       {section === 'products' ? (
-        <ProductsPanel canManage={canImportPrices} />
+        <Suspense fallback={<SkeletonBlock label="Loading the products" lines={6} />}>
+          <ProductsPanel canManage={canImportPrices} />
+        </Suspense>
       ) : (
         <>
           <BranchSelect branches={branches.data} value={branchId} onChange={setChosen} />
           {section === 'roof-systems' ? (
-            <RoofSystemsPanel key={branchId} branchId={branchId} canManage={canImportPrices} />
+            <Suspense fallback={<SkeletonBlock label="Loading the roof systems" lines={4} />}>
+              <RoofSystemsPanel key={branchId} branchId={branchId} canManage={canImportPrices} />
+            </Suspense>
           ) : (
             <>
               <Card title="Products, prices and stock">
@@ -80,10 +87,12 @@ export function CatalogueBoard({ canImportPrices, canImportStock }: { canImportP
                     Stock counts .xlsx
                   </a>
                 </div>
-                <div className="mt-6 grid gap-6 lg:grid-cols-2">
-                  {canImportPrices ? <SheetImport key={`p${branchId}`} branchId={branchId} kind="price-list" /> : null}
-                  {canImportStock ? <SheetImport key={`s${branchId}`} branchId={branchId} kind="stock-counts" /> : null}
-                </div>
+                <Suspense fallback={<SkeletonBlock label="Loading the sheet imports" lines={2} className="mt-6" />}>
+                  <div className="mt-6 grid gap-6 lg:grid-cols-2">
+                    {canImportPrices ? <SheetImport key={`p${branchId}`} branchId={branchId} kind="price-list" /> : null}
+                    {canImportStock ? <SheetImport key={`s${branchId}`} branchId={branchId} kind="stock-counts" /> : null}
+                  </div>
+                </Suspense>
               </Card>
             </>
           )}

@@ -35,7 +35,7 @@ describe('StockTable editing', () => {
     });
     renderWithProviders(<StockTable branchId={3} canEdit />);
     fireEvent.click(await screen.findByRole('button', { name: 'Edit stock of TRS-FL420-SG' }));
-    const form = screen.getByRole('form', { name: 'Change the stock of TRS-FL420-SG' });
+    const form = await screen.findByRole('form', { name: 'Change the stock of TRS-FL420-SG' });
     fireEvent.change(within(form).getByLabelText('On hand (packs of 1 tile)'), { target: { value: '2,650' } });
     fireEvent.click(within(form).getByRole('button', { name: 'Save' }));
     expect(await screen.findByText('TRS-FL420-SG: 2,650 on hand, reorder at 600.')).toBeTruthy();
@@ -56,7 +56,7 @@ describe('StockTable editing', () => {
     });
     renderWithProviders(<StockTable branchId={3} canEdit />);
     fireEvent.click(await screen.findByRole('button', { name: 'Edit stock of TRS-FL420-SG' }));
-    const reorder = screen.getByLabelText('Reorder level (packs)');
+    const reorder = await screen.findByLabelText('Reorder level (packs)');
     fireEvent.change(reorder, { target: { value: '100000000' } });
     fireEvent.click(screen.getByRole('button', { name: 'Save' }));
     expect(await screen.findByText('must be at most 100,000,000')).toBeTruthy();
@@ -83,7 +83,7 @@ describe('StockTable editing', () => {
     renderWithProviders(<StockTable branchId={3} canEdit />);
     fireEvent.click(await screen.findByRole('button', { name: 'Edit stock of TRS-FL420-SG' }));
     // The page still says 300 reserved, but a confirmation elsewhere raised it to 400 meanwhile.
-    const onHand = screen.getByLabelText('On hand (packs of 1 tile)');
+    const onHand = await screen.findByLabelText('On hand (packs of 1 tile)');
     fireEvent.change(onHand, { target: { value: '350' } });
     fireEvent.click(screen.getByRole('button', { name: 'Save' }));
     expect(await screen.findByText('must be at least the 400 packs reserved')).toBeTruthy();
@@ -94,7 +94,7 @@ describe('StockTable editing', () => {
     const fetchMock = stubFetch({ 'GET /api/branches/3/stock': list() });
     renderWithProviders(<StockTable branchId={3} canEdit />);
     fireEvent.click(await screen.findByRole('button', { name: 'Edit stock of TRS-FL420-SG' }));
-    fireEvent.change(screen.getByLabelText('On hand (packs of 1 tile)'), { target: { value: '399' } });
+    fireEvent.change(await screen.findByLabelText('On hand (packs of 1 tile)'), { target: { value: '399' } });
     fireEvent.click(screen.getByRole('button', { name: 'Save' }));
     expect(await screen.findByText('must be at least the 400 packs reserved for confirmed orders')).toBeTruthy();
     expect(fetchMock.mock.calls.filter(([, init]) => init?.method === 'PATCH')).toHaveLength(0);
@@ -108,7 +108,7 @@ describe('StockTable editing', () => {
     unmount();
     renderWithProviders(<StockTable branchId={3} canEdit />);
     fireEvent.click(await screen.findByRole('button', { name: 'Edit stock of TRS-FL420-SG' }));
-    fireEvent.click(screen.getByRole('button', { name: 'Cancel' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Cancel' }));
     expect(screen.queryByRole('form', { name: 'Change the stock of TRS-FL420-SG' })).toBeNull();
   });
 });
@@ -117,7 +117,7 @@ describe('StockTable editing', () => {
 async function openPriceForm(sign: string) {
   renderWithProviders(<StockTable branchId={3} canEditPrice />);
   fireEvent.click(await screen.findByRole('button', { name: 'Change the price of TRS-FL420-SG' }));
-  const price = screen.getByLabelText(`Pack price in ${sign} (1 tile)`) as HTMLInputElement;
+  const price = (await screen.findByLabelText(`Pack price in ${sign} (1 tile)`)) as HTMLInputElement;
   const save = (typed: string) => {
     fireEvent.change(price, { target: { value: typed } });
     fireEvent.click(screen.getByRole('button', { name: 'Save the price' }));
@@ -191,7 +191,7 @@ describe('StockTable filter', () => {
     renderWithProviders(<StockTable branchId={3} />);
     const table = await screen.findByRole('table', { name: 'Stock at Quillsby yard' });
     expect(within(table).getAllByRole('row')).toHaveLength(3);
-    fireEvent.click(screen.getByRole('checkbox', { name: 'Only what is at or below its reorder level (1)' }));
+    fireEvent.click(await screen.findByRole('checkbox', { name: 'Only what is at or below its reorder level (1)' }));
     await waitFor(() => expect(within(table).getAllByRole('row')).toHaveLength(2));
     expect(within(table).getByText('TRS-BAT-3825')).toBeTruthy();
     fireEvent.click(screen.getByRole('checkbox', { name: 'Only what is at or below its reorder level (1)' }));

@@ -1,7 +1,5 @@
-import { useMemo, useState } from 'react';
-import { stockFilterSchema } from '../../../../shared/schemas/list-search.schema';
-import { CheckboxField, Form } from '../../../components/form/fields';
-import { useLiveFilterForm } from '../../../components/form/use-list-search-form';
+import { lazy, Suspense, useMemo, useState } from 'react';
+import { SearchBarLoading } from '../../../components/form/search-bar-loading';
 import type { StockItem } from '../../../../shared/schemas/stock.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -9,9 +7,12 @@ import { DataTable, dataTableColumns } from '../../../components/ui/data-table';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { formatMoney } from '../../../lib/format';
 import { useStock } from '../api/get-stock';
-import { PriceEditForm } from './price-edit-form';
 import { productColumns } from './product-columns';
-import { StockEditForm } from './stock-edit-form';
+
+// The filter and the two edit forms (with the form library) load after the table (DEVELOPERS.md, decision 37).
+const StockFilter = lazy(() => import('./stock-filter').then((m) => ({ default: m.StockFilter })));
+const StockEditForm = lazy(() => import('./stock-edit-form').then((m) => ({ default: m.StockEditForm })));
+const PriceEditForm = lazy(() => import('./price-edit-form').then((m) => ({ default: m.PriceEditForm })));
 
 const STATE_WORDS: Record<StockItem['state'], string> = { in_stock: 'In stock', low: 'At or below reorder level', out_of_stock: 'None free' };
 
@@ -74,8 +75,7 @@ function stockColumns(kinds: readonly EditKind[], onEdit: (item: StockItem, kind
  */
 export function StockTable({ branchId, canEdit = false, canEditPrice = false }: { branchId: number; canEdit?: boolean; canEditPrice?: boolean }) {
   const stock = useStock(branchId);
-  const { form: filterForm, filters } = useLiveFilterForm(stockFilterSchema, { low_only: false });
-  const lowOnly = filters.low_only;
+  const [lowOnly, setLowOnly] = useState(false);
   const [editing, setEditing] = useState<Editing | null>(null);
   const columns = useMemo(() => {
     const kinds: EditKind[] = [...(canEdit ? (['stock'] as const) : []), ...(canEditPrice ? (['price'] as const) : [])];
@@ -89,11 +89,18 @@ export function StockTable({ branchId, canEdit = false, canEditPrice = false }: 
   const close = () => setEditing(null);
   return (
     <div className="space-y-3">
-      {item && editing?.kind === 'stock' ? <StockEditForm key={`s${item.product_id}`} branchId={branchId} item={item} onDone={close} /> : null}
-      {item && editing?.kind === 'price' ? <PriceEditForm key={`p${item.product_id}`} branchId={branchId} item={item} onDone={close} /> : null}
-      <Form form={filterForm} label="Filter the stock" role="search" className="">
-        <CheckboxField name="low_only" label={`Only what is at or below its reorder level (${low})`} />
-      </Form>
+      {item && editing ? (
+        <Suspense fallback={<SkeletonBlock label="Opening the form" lines={2} />}>
+          {editing.kind === 'stock' ? (
+            <StockEditForm key={`s${item.product_id}`} branchId={branchId} item={item} onDone={close} />
+          ) : (
+            <PriceEditForm key={`p${item.product_id}`} branchId={branchId} item={item} onDone={close} />
+          )}
+        </Suspense>
+      ) : null}
+      <Suspense fallback={<SearchBarLoading label="Loading the filter…" />}>
+        <StockFilter low={low} onLowOnly={setLowOnly} />
+      </Suspense>
       <DataTable
         caption={`Stock at ${stock.data.branch.name}`}
         captionHidden

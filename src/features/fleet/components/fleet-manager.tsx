@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import type { Lorry } from '../../../../shared/schemas/fleet.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { BranchSelect } from '../../../components/ui/branch-select';
@@ -10,9 +10,14 @@ import { useLorries } from '../api/get-lorries';
 import { useYardBranches } from '../api/get-yard-branches';
 import { ArchiveLorry } from './archive-lorry';
 import { ArchivedLorries } from './archived-lorries';
-import { LorryForm } from './lorry-form';
 import { SlotCalendar } from './slot-calendar';
-import { CreateSlotForm, GenerateSlotsForm } from './slot-forms';
+
+// The forms (with the form library) load after the lorries and the calendar show (DEVELOPERS.md, decision 37).
+const LorryForm = lazy(() => import('./lorry-form').then((m) => ({ default: m.LorryForm })));
+const CreateSlotForm = lazy(() => import('./slot-forms').then((m) => ({ default: m.CreateSlotForm })));
+const GenerateSlotsForm = lazy(() => import('./slot-forms').then((m) => ({ default: m.GenerateSlotsForm })));
+
+const formLoading = <SkeletonBlock label="Loading the form" lines={3} />;
 
 function LorryRow({ branchId, lorry, canManage }: { branchId: number; lorry: Lorry; canManage: boolean }) {
   const [editing, setEditing] = useState(false);
@@ -37,7 +42,9 @@ function LorryRow({ branchId, lorry, canManage }: { branchId: number; lorry: Lor
       </div>
       {editing && canManage ? (
         <div className="mt-4">
-          <LorryForm branchId={branchId} lorry={lorry} onDone={() => setEditing(false)} />
+          <Suspense fallback={formLoading}>
+            <LorryForm branchId={branchId} lorry={lorry} onDone={() => setEditing(false)} />
+          </Suspense>
         </div>
       ) : null}
     </li>
@@ -70,16 +77,22 @@ function BranchFleet({ branchId, canManage }: { branchId: number; canManage: boo
       </Card>
       {canManage ? (
         <Card title="Add a lorry">
-          <LorryForm branchId={branchId} />
+          <Suspense fallback={formLoading}>
+            <LorryForm branchId={branchId} />
+          </Suspense>
         </Card>
       ) : null}
       {canManage && active.length ? (
         <>
           <Card title="Make slots for a run of days">
-            <GenerateSlotsForm branchId={branchId} lorries={active} />
+            <Suspense fallback={formLoading}>
+              <GenerateSlotsForm branchId={branchId} lorries={active} />
+            </Suspense>
           </Card>
           <Card title="Add one slot">
-            <CreateSlotForm branchId={branchId} lorries={active} />
+            <Suspense fallback={formLoading}>
+              <CreateSlotForm branchId={branchId} lorries={active} />
+            </Suspense>
           </Card>
         </>
       ) : null}

@@ -66,7 +66,7 @@ describe('SlotCalendar', () => {
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
     fireEvent.click(await screen.findByRole('button', { name: 'Change the time window or driver of 07:30-12:00 TY61 KRB' }));
     const item = await slotItem();
-    const form = within(item).getByRole('form', { name: 'Change the slot 07:30-12:00 of TY61 KRB' });
+    const form = await within(item).findByRole('form', { name: 'Change the slot 07:30-12:00 of TY61 KRB' });
     await within(form).findByRole('option', { name: 'Sol Brant' });
     fireEvent.change(within(form).getByLabelText('Time window'), { target: { value: '12:30 - 16:30' } });
     fireEvent.click(within(form).getByRole('button', { name: 'Save the slot' }));
@@ -84,7 +84,7 @@ describe('SlotCalendar', () => {
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
     fireEvent.click(await screen.findByRole('button', { name: 'Change the time window or driver of 07:30-12:00 TY61 KRB' }));
     const item = await slotItem();
-    const form = within(item).getByRole('form', { name: 'Change the slot 07:30-12:00 of TY61 KRB' });
+    const form = await within(item).findByRole('form', { name: 'Change the slot 07:30-12:00 of TY61 KRB' });
     fireEvent.change(within(form).getByLabelText('Driver'), { target: { value: '' } });
     fireEvent.click(within(form).getByRole('button', { name: 'Save the slot' }));
     await waitFor(() => expect(sent(fetchMock, 'PATCH', '/api/slots/21')).toEqual([{ driver_id: null }]));
@@ -97,7 +97,7 @@ describe('SlotCalendar', () => {
     renderWithProviders(<SlotCalendar branchId={3} canManage />);
     fireEvent.click(await screen.findByRole('button', { name: 'Change the time window or driver of 07:30-12:00 TY61 KRB' }));
     const item = await slotItem();
-    fireEvent.click(within(item).getByRole('button', { name: 'Save the slot' }));
+    fireEvent.click(await within(item).findByRole('button', { name: 'Save the slot' }));
     expect(await within(item).findByText(/Nothing is changed yet/)).toBeTruthy();
     expect(sent(fetchMock, 'PATCH', '/api/slots/21')).toHaveLength(0);
   });

@@ -1,6 +1,6 @@
 import { addDays } from '../../../../shared/domain/business-calendar';
 import { businessCalendar } from '../../../lib/business-calendar';
-import { useId, useState } from 'react';
+import { lazy, Suspense, useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { Slot } from '../../../../shared/schemas/slot.schema';
 import { Alert, ErrorAlert, errorMessage } from '../../../components/ui/alert';
@@ -14,8 +14,10 @@ import { useSlotDay } from '../api/get-slot-day';
 import { useRemoveSlot } from '../api/remove-slot';
 import { useUpdateSlot } from '../api/update-slot';
 import { ActionError } from './action-error';
-import { ChangeSlotForm } from './slot-forms';
 import { focusOnShow } from '../../../lib/focus-on-show';
+
+// The change form (with the form library) loads when it is opened (DEVELOPERS.md, decision 37).
+const ChangeSlotForm = lazy(() => import('./slot-forms').then((m) => ({ default: m.ChangeSlotForm })));
 
 /** A slot is a run; the yard builds and sends it out on the run's page. */
 const runPath = (slotId: number) => `/yard/runs/${slotId}`;
@@ -126,7 +128,11 @@ function SlotRow({ slot, drivers, canManage }: { slot: Slot; drivers: { id: numb
           <span className="text-sm">Driver: {slot.driver?.name ?? 'none yet'}</span>
         )}
       </div>
-      {canManage && panel === 'change' ? <ChangeSlotForm slot={slot} drivers={drivers} onDone={() => setPanel(null)} /> : null}
+      {canManage && panel === 'change' ? (
+        <Suspense fallback={<SkeletonBlock label="Opening the form" lines={2} />}>
+          <ChangeSlotForm slot={slot} drivers={drivers} onDone={() => setPanel(null)} />
+        </Suspense>
+      ) : null}
       {canManage && panel === 'remove' ? <RemoveSlot slot={slot} onDone={() => setPanel(null)} /> : null}
       <div className="grid gap-3 sm:grid-cols-2">
         <Capacity label="Payload" used={slot.booked_kg} of={slot.payload_kg} text={`${kg(slot.booked_kg)} of ${kg(slot.payload_kg)}`} />

@@ -20,8 +20,10 @@ const site = (crane: OrderSiteAccess['crane_lift'] = 'allowed'): OrderSiteAccess
   vehicle_access: 'rigid_only',
 });
 
-function renderForm(crane: OrderSiteAccess['crane_lift'] = 'allowed', onDone = vi.fn()) {
+/** Renders the form and waits for its lines table, which loads after the form shows (the first time, on a busy machine, in more than a second). */
+async function renderForm(crane: OrderSiteAccess['crane_lift'] = 'allowed', onDone = vi.fn()) {
   renderWithProviders(<OrderForm target={{ mode: 'place', estimate_id: 7, branch_id: 1 }} branchName="Tollerbeck Yard" lines={lines} site={site(crane)} onDone={onDone} />);
+  await screen.findByRole('region', { name: 'Lines of the order' }, { timeout: 5000 });
   return onDone;
 }
 
@@ -32,17 +34,24 @@ const fieldError = (label: string) => {
 };
 
 describe('OrderForm', () => {
-  it('starts with the delivery window blank (any time in the working day), so no window goes out that nobody chose', () => {
+  it('starts with the delivery window blank (any time in the working day), so no window goes out that nobody chose', async () => {
     stubFetch({});
-    renderForm();
+    await renderForm();
     expect((screen.getByLabelText('Window from') as HTMLInputElement).value).toBe('');
     expect((screen.getByLabelText('Window to') as HTMLInputElement).value).toBe('');
     expect(screen.getByText('Leave both window times blank for any time in the working day.')).toBeTruthy();
   });
 
+  it('shows the subtotal of the estimate’s packs once the lines table has loaded, before anything is typed', async () => {
+    stubFetch({});
+    await renderForm();
+    // 22,176 × £1.28 + 248 × £6.50 + 13 × £18.50.
+    await waitFor(() => expect(screen.getByTestId('order-subtotal').textContent).toBe('£30,237.78'));
+  });
+
   it('asks for the day before sending anything', async () => {
     const fetchMock = stubFetch({});
-    renderForm();
+    await renderForm();
     submit();
     await waitFor(() => expect(fieldError('Day wanted')).toBe('must be a date YYYY-MM-DD'));
     expect(fetchMock).not.toHaveBeenCalled();
@@ -50,7 +59,7 @@ describe('OrderForm', () => {
 
   it('refuses a window that ends before it starts, and a line of no packs, naming the line', async () => {
     stubFetch({});
-    renderForm();
+    await renderForm();
     fireEvent.change(screen.getByLabelText('Day wanted'), { target: { value: '2027-03-01' } });
     fireEvent.change(screen.getByLabelText('Window from'), { target: { value: '12:00' } });
     fireEvent.change(screen.getByLabelText('Window to'), { target: { value: '07:30' } });
@@ -63,7 +72,7 @@ describe('OrderForm', () => {
 
   it('will not ask for a crane lift on a site that allows none', async () => {
     stubFetch({});
-    renderForm('not_allowed');
+    await renderForm('not_allowed');
     fireEvent.click(screen.getByLabelText(/Lifted onto the roof by the lorry crane/));
     expect(await screen.findByText('This site says no crane lift')).toBeTruthy();
     fireEvent.change(screen.getByLabelText('Day wanted'), { target: { value: '2027-03-01' } });
@@ -81,7 +90,7 @@ describe('OrderForm', () => {
       // The answer is not what this test is about; a refusal keeps the form on screen without a full order body.
       'POST /api/orders': { status: 409, body: { error: { code: 'project_archived', message: `This site is archived; restore it first (${order.reference})` } } },
     });
-    renderForm();
+    await renderForm();
     fireEvent.change(screen.getByLabelText('Day wanted'), { target: { value: '2027-03-01' } });
     fireEvent.change(screen.getByLabelText('Window from'), { target: { value: '07:30' } });
     fireEvent.change(screen.getByLabelText('Window to'), { target: { value: '12:00' } });
@@ -111,7 +120,7 @@ describe('OrderForm', () => {
 
   it('says an order needs a line when every line is unticked', async () => {
     stubFetch({});
-    renderForm();
+    await renderForm();
     fireEvent.change(screen.getByLabelText('Day wanted'), { target: { value: '2027-03-01' } });
     for (const l of lines) fireEvent.click(screen.getByLabelText(`Order ${l.description}`));
     submit();

@@ -1,9 +1,13 @@
+import { lazy, Suspense } from 'react';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useOrders } from '../api/get-orders';
-import { OrdersTable } from './orders-table';
+
+// The site's orders sit at the foot of its page: their table's code is asked for while the orders are
+// (DEVELOPERS.md, decision 37).
+const OrdersTable = lazy(() => import('./orders-table').then((m) => ({ default: m.OrdersTable })));
 
 /** The orders of one site. */
 export function ProjectOrders({ projectId }: { projectId: number }) {
@@ -17,7 +21,9 @@ export function ProjectOrders({ projectId }: { projectId: number }) {
       ) : orders.data.orders.length === 0 ? (
         <EmptyState title="No orders for this site yet">Open an estimate to order its materials.</EmptyState>
       ) : (
-        <OrdersTable orders={orders.data.orders} caption="Orders of this site" empty={<EmptyState title="No orders for this site yet">Open an estimate to order its materials.</EmptyState>} />
+        <Suspense fallback={<SkeletonBlock label="Loading the site’s orders" lines={3} />}>
+          <OrdersTable orders={orders.data.orders} caption="Orders of this site" empty={<EmptyState title="No orders for this site yet">Open an estimate to order its materials.</EmptyState>} />
+        </Suspense>
       )}
     </Card>
   );

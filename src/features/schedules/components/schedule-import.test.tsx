@@ -38,7 +38,8 @@ describe('ScheduleImport', () => {
     renderWithProviders(<ScheduleImport projectId={4} onImported={vi.fn()} />);
     chooseFile(exampleWith(3, 6, '10.2'));
 
-    const cell = await screen.findByLabelText('Row 3, column G (eaves_mm)');
+    // The preview's code loads once the file is read; the first time, on a busy machine, that can take more than a second.
+    const cell = await screen.findByLabelText('Row 3, column G (eaves_mm)', {}, { timeout: 5000 });
     await waitFor(() => expect(cell.getAttribute('aria-invalid')).toBe('true'));
     const messageId = cell.getAttribute('aria-describedby')!;
     expect(document.getElementById(messageId)?.textContent).toBe('looks like metres (10.2); give millimetres, e.g. 10200');

@@ -1,15 +1,18 @@
-import { useCallback, useDeferredValue, useId, useMemo, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useDeferredValue, useId, useMemo, useRef, useState } from 'react';
 import type { DragEvent } from 'react';
 import type { ScheduleResponse } from '../../../../shared/schemas/schedule-upload.schema';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
+import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { isApiError } from '../../../lib/api-client';
 import { useUploadSchedule } from '../api/save-schedule';
 import { checkGrid, gridToCsv, headerIndex } from '../lib/csv-grid';
 import type { CsvGrid, GridCheck, LocatedProblem } from '../lib/csv-grid';
+
+// The preview's grid (with the table library) is only shown once a file is read, so it loads then (DEVELOPERS.md, decision 37).
+const SchedulePreview = lazy(() => import('./schedule-preview').then((m) => ({ default: m.SchedulePreview })));
 import { fileProblem, readScheduleFile } from '../lib/read-schedule-file';
-import { SchedulePreview } from './schedule-preview';
 
 export const EXAMPLE_SCHEDULE_URL = '/api/examples/roof-schedule.csv';
 
@@ -194,7 +197,9 @@ export function ScheduleImport({ projectId, onImported }: ScheduleImportProps) {
             </div>
           }
         >
-          <SchedulePreview grid={grid} check={shownCheck} checking={checking} onCellChange={onCellChange} />
+          <Suspense fallback={<SkeletonBlock label="Loading the preview" lines={6} />}>
+            <SchedulePreview grid={grid} check={shownCheck} checking={checking} onCellChange={onCellChange} />
+          </Suspense>
           <div className="mt-6 flex flex-wrap items-center gap-3 border-t border-mortar-200 pt-4">
             <Button size="lg" busy={save.isPending} disabled={!shownCheck.ok || checking} onClick={upload}>
               {shownCheck.ok ? `Import ${shownCheck.faces.length} ${shownCheck.faces.length === 1 ? 'face' : 'faces'}` : 'Fix the marked cells to import'}
