@@ -1,19 +1,15 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { TEST_PASSWORD, makeOrgWithUser } from '../setup/factories';
-import { Client, createTestApp, type TestApp } from '../setup/test-app';
+import { Client, twoServersOnOneDatabase, type TestApp } from '../setup/test-app';
 
 // The session cookie rolls (7 days from last use) without going out on every answer: it is sent
 // again only when its expiry moves, at most once a minute, and every server decides from the table.
 let a: TestApp;
 let b: TestApp;
-beforeAll(async () => {
-  a = await createTestApp({ LOGIN_RATE_LIMIT: '100' });
-  b = await createTestApp({ LOGIN_RATE_LIMIT: '100' }, { sameDatabaseAs: a });
-});
-afterAll(async () => {
-  await b.close();
-  await a.close();
+twoServersOnOneDatabase({ LOGIN_RATE_LIMIT: '100' }, (x, y) => {
+  a = x;
+  b = y;
 });
 
 const WEEK = 7 * 86_400_000;

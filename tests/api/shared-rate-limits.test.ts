@@ -1,18 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { TEST_PASSWORD, makeOrgWithUser } from '../setup/factories';
-import { Client, createTestApp, type TestApp } from '../setup/test-app';
+import { Client, twoServersOnOneDatabase, type TestApp } from '../setup/test-app';
 
 // Two servers on one database (two app objects, nothing in memory in common): the sign-in and
 // reset limits count every try on either server against one allowance.
 let a: TestApp;
 let b: TestApp;
-beforeAll(async () => {
-  a = await createTestApp({ LOGIN_RATE_LIMIT: '10', RESET_RATE_LIMIT: '5' });
-  b = await createTestApp({ LOGIN_RATE_LIMIT: '10', RESET_RATE_LIMIT: '5' }, { sameDatabaseAs: a });
-});
-afterAll(async () => {
-  await b.close();
-  await a.close();
+twoServersOnOneDatabase({ LOGIN_RATE_LIMIT: '10', RESET_RATE_LIMIT: '5' }, (x, y) => {
+  a = x;
+  b = y;
 });
 
 const tryLogin = (t: TestApp, email: string, password = 'not-the-password') => new Client(t.app).post('/api/auth/login', { email, password });

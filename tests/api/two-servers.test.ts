@@ -1,19 +1,15 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { TEST_PASSWORD, makeOrgWithUser, makeUser } from '../setup/factories';
-import { Client, createTestApp, type TestApp } from '../setup/test-app';
+import { Client, twoServersOnOneDatabase, type TestApp } from '../setup/test-app';
 
 // Two servers on one database (two app objects with no memory in common): whatever one of them
 // does to a sign-in, the other sees on the very next request.
 let a: TestApp;
 let b: TestApp;
-beforeAll(async () => {
-  a = await createTestApp({ LOGIN_RATE_LIMIT: '100' });
-  b = await createTestApp({ LOGIN_RATE_LIMIT: '100' }, { sameDatabaseAs: a });
-});
-afterAll(async () => {
-  await b.close();
-  await a.close();
+twoServersOnOneDatabase({ LOGIN_RATE_LIMIT: '100' }, (x, y) => {
+  a = x;
+  b = y;
 });
 
 /** Signs in on server A and returns the session cookie, to be carried to server B as a browser would behind a balancer. */

@@ -6,6 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import pino from 'pino';
 import request from 'supertest';
+import { afterAll, beforeAll } from 'vitest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config/env';
@@ -131,6 +132,24 @@ function answerAfterMailIsSent(app: Express, worker: MailWorker) {
 }
 
 /** A supertest agent that keeps cookies and sends the CSRF token on every state-changing call. */
+/**
+ * Two servers on one database (two app objects with nothing in memory in common, as two instances behind a
+ * balancer), started before a file's tests with the same settings, handed to `take`, and closed after them.
+ */
+export function twoServersOnOneDatabase(env: Record<string, string>, take: (a: TestApp, b: TestApp) => void): void {
+  let a: TestApp | undefined;
+  let b: TestApp | undefined;
+  beforeAll(async () => {
+    a = await createTestApp(env);
+    b = await createTestApp(env, { sameDatabaseAs: a });
+    take(a, b);
+  });
+  afterAll(async () => {
+    await b?.close();
+    await a?.close();
+  });
+}
+
 export class Client {
   readonly agent: ReturnType<typeof request.agent>;
   private token?: string;
