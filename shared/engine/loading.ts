@@ -28,21 +28,43 @@ export interface FaceLoading {
 export function planFaceLoading(tiles: number, rowPositions: readonly number[], stackSize: number, rows: number = rowPositions.length, out?: FaceLoading): FaceLoading {
   const stacks = Math.ceil(tiles / stackSize);
   let positions = 0;
-  for (let i = 0; i < rows; i++) positions += rowPositions[i];
+  let open = 0;
+  for (let i = 0; i < rows; i++) {
+    const p = rowPositions[i];
+    positions += p;
+    if (p > 0) open++;
+  }
   // Counted in a scratch row and copied out at its size: a job holds one of these per face, and a copy
   // comes from no literal (see FaceFigures in estimate.ts).
   // (Written over, never emptied: setting length to 0 would drop its storage.)
   const placed = PLACED;
-  for (let i = 0; i < rows; i++) placed[i] = 0;
-  if (positions === 0) return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > 0 ? tiles : null);
+  if (positions === 0) {
+    for (let i = 0; i < rows; i++) placed[i] = 0;
+    return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > 0 ? tiles : null);
+  }
   let left = Math.min(stacks, positions);
-  // Share out evenly in rounds so a full row passes its share on to the rows below it.
+  // Share out evenly in rounds so a full row passes its share on to the rows below it. The first round
+  // starts from empty rows, so it writes every row.
+  let share = Math.floor(left / open);
+  let extra = left - share * open;
+  for (let i = 0; i < rows; i++) {
+    const p = rowPositions[i];
+    if (p <= 0) {
+      placed[i] = 0;
+      continue;
+    }
+    const want = share + (extra > 0 ? 1 : 0);
+    if (extra > 0) extra--;
+    const take = want < p ? want : p;
+    placed[i] = take;
+    left -= take;
+  }
   while (left > 0) {
-    let open = 0;
+    open = 0;
     for (let i = 0; i < rows; i++) if (placed[i] < rowPositions[i]) open++;
     if (open === 0) break;
-    const share = Math.floor(left / open);
-    let extra = left - share * open;
+    share = Math.floor(left / open);
+    extra = left - share * open;
     for (let i = 0; i < rows; i++) {
       if (placed[i] >= rowPositions[i]) continue;
       const want = share + (extra > 0 ? 1 : 0);
