@@ -62,6 +62,15 @@ export interface Scratch {
   lastVerges: number;
   lastInsetLeft: number;
   lastInsetRight: number;
+  /**
+   * The setting-out marks of the face before and what they were worked out from (tiles counted, cover
+   * and overhang used): a face with the same three gets the same array (a result's arrays are read, never
+   * written to).
+   */
+  lastMarks: number[] | null;
+  lastMarksTiles: number;
+  lastMarksCover: number;
+  lastMarksOverhang: number;
 }
 
 interface PieceCounts {
@@ -212,5 +221,9 @@ export function newScratch(system: RoofSystem): Scratch {
     lastVerges: -1,
     lastInsetLeft: 0,
     lastInsetRight: 0,
+    lastMarks: null,
+    lastMarksTiles: 0,
+    lastMarksCover: 0,
+    lastMarksOverhang: 0,
   };
 }

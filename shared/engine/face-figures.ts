@@ -63,14 +63,14 @@ class FaceFigures implements FaceResult {
     this.building = building;
     this.face = face;
     this.quantity = 0;
-    this.pitch_deg = 0;
-    this.rafter_mm = 0;
-    this.slope_area_m2 = 0;
-    this.headlap_mm = 0;
-    this.gauge_mm = 0;
+    this.pitch_deg = DECIMAL;
+    this.rafter_mm = DECIMAL;
+    this.slope_area_m2 = DECIMAL;
+    this.headlap_mm = DECIMAL;
+    this.gauge_mm = DECIMAL;
     this.courses = 0;
     this.tiles_per_course = 0;
-    this.cover_width_mm = 0;
+    this.cover_width_mm = DECIMAL;
     this.verge_overhang_mm = null;
     this.whole_tiles = 0;
     this.half_tiles = 0;
@@ -79,18 +79,27 @@ class FaceFigures implements FaceResult {
     this.eaves_tiles = 0;
     this.top_tiles = 0;
     this.tile_and_half = 0;
-    this.openings_area_m2 = 0;
+    this.openings_area_m2 = DECIMAL;
     this.ridge = null;
-    this.batten_m = 0;
+    this.batten_m = DECIMAL;
     this.stacks = 0;
     this.stack_positions = 0;
-    this.load_kg = 0;
+    this.load_kg = DECIMAL;
     this.clips = 0;
     this.setting_out_marks_mm = NO_NUMBERS;
     this.setting_out_from = 'right_end';
     this.stacks_by_row = NO_NUMBERS;
   }
 }
+
+/**
+ * Placeholder of a field that may hold a decimal, until computeFace writes it (never part of a result).
+ * A field that starts as a whole number and is then given a decimal is kept by V8 as a decimal field:
+ * every face then holds its value in a box of its own (16 bytes), whole numbers too. A field that
+ * starts as null is kept as a tagged field, where whole numbers (most rafters, covers, openings areas)
+ * take no box: about 29,000 fewer boxes in the 10,000-face benchmark job.
+ */
+const DECIMAL = null as unknown as number;
 
 /** Placeholder for a face's arrays until computeFace writes them (never part of a result). */
 const NO_NUMBERS: number[] = [];
@@ -289,7 +298,15 @@ export function computeFace(face: Face, system: RoofSystem, tally: PieceTally, w
   result.stack_positions = loading.positions;
   result.load_kg = r1(tiles * tile.weight_kg + eavesTiles * tile.eaves_tile_kg + topTiles * tile.top_tile_kg + tah * tile.tile_and_half_kg);
   result.clips = clips;
-  result.setting_out_marks_mm = settingOutMarks(marksTiles, coverUsed, marksOverhang);
+  let marks = scratch.lastMarks;
+  if (marks === null || scratch.lastMarksTiles !== marksTiles || scratch.lastMarksCover !== coverUsed || scratch.lastMarksOverhang !== marksOverhang) {
+    marks = settingOutMarks(marksTiles, coverUsed, marksOverhang);
+    scratch.lastMarks = marks;
+    scratch.lastMarksTiles = marksTiles;
+    scratch.lastMarksCover = coverUsed;
+    scratch.lastMarksOverhang = marksOverhang;
+  }
+  result.setting_out_marks_mm = marks;
   result.setting_out_from = reference;
   result.stacks_by_row = loading.stacks_by_row;
   scratch.plan_m2 = planAreaM2(slope, face.pitch_deg);

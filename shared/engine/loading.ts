@@ -40,7 +40,7 @@ export function planFaceLoading(tiles: number, rowPositions: readonly number[], 
   const placed = PLACED;
   if (positions === 0) {
     for (let i = 0; i < rows; i++) placed[i] = 0;
-    return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > 0 ? tiles : null);
+    return loadingResult(out, positions, stacks, stacksRow(out, placed, rows), stacks > 0 ? tiles : null);
   }
   let left = Math.min(stacks, positions);
   // Share out evenly in rounds so a full row passes its share on to the rows below it. The first round
@@ -74,7 +74,22 @@ export function planFaceLoading(tiles: number, rowPositions: readonly number[], 
       left -= take;
     }
   }
-  return loadingResult(out, positions, stacks, placed.slice(0, rows), stacks > positions ? Math.ceil(tiles / positions) : null);
+  return loadingResult(out, positions, stacks, stacksRow(out, placed, rows), stacks > positions ? Math.ceil(tiles / positions) : null);
+}
+
+/**
+ * The stacks by row just counted in `placed`: the row of the face planned before with `out` when it is
+ * the same (like faces of one result share it: a result's arrays are read, never written to), else a
+ * copy at its size.
+ */
+function stacksRow(out: FaceLoading | undefined, placed: readonly number[], rows: number): number[] {
+  const last = out?.stacks_by_row;
+  if (last !== undefined && last.length === rows) {
+    let i = 0;
+    while (i < rows && last[i] === placed[i]) i++;
+    if (i === rows) return last;
+  }
+  return placed.slice(0, rows);
 }
 
 function loadingResult(out: FaceLoading | undefined, positions: number, stacks: number, placed: number[], neededStack: number | null): FaceLoading {

@@ -44,12 +44,14 @@ export interface FaceResult {
    * from the clip pitch a tail clip on every piece (fixing.clips; defaults by tile kind).
    */
   clips: number;
+  /** Chalk-line marks, mm from the reference edge. Like faces of one result may share one array: read it, never write to it. */
   setting_out_marks_mm: number[];
   /** Edge the marks are measured from. */
   setting_out_from: SettingOutFrom;
   /**
    * Stacks on each loading batten, the top one first; the loading battens are every nth batten from
    * the top (n = roof_loading.every_nth_batten), so entry i is batten row courses − i × n from the eaves.
+   * Like faces of one result may share one array: read it, never write to it.
    */
   stacks_by_row: number[];
 }
