@@ -11,7 +11,8 @@ const TOL = 0.5;
  */
 export class PieceTally {
   readonly stockMm: number;
-  private readonly counts: Float64Array;
+  /** Pieces of each length in whole mm, by length. */
+  readonly counts: Float64Array;
   constructor(stockMm: number) {
     this.stockMm = Math.floor(stockMm);
     this.counts = new Float64Array(this.stockMm + 1);
@@ -87,13 +88,6 @@ function supportAt(idx: number, n: number, from: number, to: number, k0: number,
   return idx === 0 ? from : idx === n - 1 ? to : (k0 + idx - 1) * s;
 }
 
-function addPiece(tally: PieceTally | null, quantity: number, stock: number, len: number, row: BattenRow | undefined, scratch: JointScratch) {
-  const mm = Math.min(Math.floor(stock), Math.max(1, Math.ceil(len - 1e-3)));
-  if (tally) tally.add(mm, quantity);
-  if (row) row.pieces_mm.push(mm);
-  scratch.keep(mm);
-}
-
 /**
  * Adds to `tally`, `quantity` times, the pieces of the face `planFaceBattens` last planned with
  * `scratch`: the same as planning again a face of the same shape, set-out and system.
@@ -148,6 +142,10 @@ export function planFaceBattens(
   result.forced_short = 0;
   const rows: BattenRow[] | undefined = detail ? [] : undefined;
 
+  // Whole mm a piece is counted in (never above the stock length), the tally's counts, and the pieces
+  // this face is cut into (kept so a like face can add them again): written here, not through a call a piece.
+  const stockMm = Math.floor(stock);
+  const counts = tally === null ? null : tally.counts;
   for (let r = 0; r < setOut.courses; r++) {
     const y = rowHeight(setOut, r);
     extentAt(shape, inset, y, extent);
@@ -169,37 +167,45 @@ export function planFaceBattens(
     const row: BattenRow | undefined = rows ? { y_mm: y, from_mm: from, to_mm: to, pieces_mm: [], joints_mm: [], supports: n } : undefined;
 
     let i = 0;
+    let start = from;
     for (;;) {
-      const start = supportAt(i, n, from, to, k0, s);
-      if (to - start <= stock + TOL) {
-        addPiece(tally, quantity, stock, to - start, row, scratch);
-        break;
-      }
-      const jMax = Math.min(interior, Math.floor((start + stock + TOL) / s) - k0 + 1);
+      let end: number;
       let chosen = -1;
-      // Pass 0 keeps every rule; pass 1 lets a joint repeat a rafter; pass 2 takes the longest piece.
-      for (let pass = 0; pass < 3 && chosen < 0; pass++) {
-        const jLow = pass < 2 ? Math.max(i + 1, i + minSupports - 1) : i + 1;
-        for (let j = jMax; j >= jLow; j--) {
-          const p = supportAt(j, n, from, to, k0, s);
-          if (pass < 2) {
-            if (p - start < minLength - TOL) break;
-            if (n - j < minSupports || to - p < minLength - TOL) continue;
-            if (pass === 0 && lastJointRow[k0 + j - 1 - kLow] >= r - 3) continue;
+      if (to - start <= stock + TOL) {
+        end = to;
+      } else {
+        const jMax = Math.min(interior, Math.floor((start + stock + TOL) / s) - k0 + 1);
+        // Pass 0 keeps every rule; pass 1 lets a joint repeat a rafter; pass 2 takes the longest piece.
+        for (let pass = 0; pass < 3 && chosen < 0; pass++) {
+          const jLow = pass < 2 ? Math.max(i + 1, i + minSupports - 1) : i + 1;
+          for (let j = jMax; j >= jLow; j--) {
+            const p = supportAt(j, n, from, to, k0, s);
+            if (pass < 2) {
+              if (p - start < minLength - TOL) break;
+              if (n - j < minSupports || to - p < minLength - TOL) continue;
+              if (pass === 0 && lastJointRow[k0 + j - 1 - kLow] >= r - 3) continue;
+            }
+            chosen = j;
+            if (pass === 1) result.stagger_relaxed++;
+            if (pass === 2) result.forced_short++;
+            break;
           }
-          chosen = j;
-          if (pass === 1) result.stagger_relaxed++;
-          if (pass === 2) result.forced_short++;
-          break;
         }
+        if (chosen < 0) chosen = Math.max(i + 1, jMax);
+        end = supportAt(chosen, n, from, to, k0, s);
+        lastJointRow[k0 + chosen - 1 - kLow] = r;
+        result.joints++;
       }
-      if (chosen < 0) chosen = Math.max(i + 1, jMax);
-      const jointAt = supportAt(chosen, n, from, to, k0, s);
-      lastJointRow[k0 + chosen - 1 - kLow] = r;
-      result.joints++;
-      addPiece(tally, quantity, stock, jointAt - start, row, scratch);
-      if (row) row.joints_mm.push(jointAt);
+      let mm = Math.ceil(end - start - 1e-3);
+      if (mm < 1) mm = 1;
+      if (mm > stockMm) mm = stockMm;
+      if (counts !== null) counts[mm] += quantity;
+      scratch.keep(mm);
+      if (row) row.pieces_mm.push(mm);
+      if (chosen < 0) break;
+      if (row) row.joints_mm.push(end);
       i = chosen;
+      start = end;
     }
     if (rows && row) rows.push(row);
   }
