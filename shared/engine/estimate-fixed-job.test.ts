@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { FACES_PER_HOUSE, SLATE_SYSTEM, generateSchedule } from '../../tests/bench/engine-job';
+import { FACES_PER_HOUSE, PLAIN_TILE_LOWEST_PITCH_DEG, PLAIN_TILE_SYSTEM, SLATE_SYSTEM, generateSchedule } from '../../tests/bench/engine-job';
 import type { RoofSystemInput } from '../schemas/roof-system.schema';
 import { estimate, formatProblem, runEstimateFromCsv } from './estimate';
 import { parseOpeningsCsv } from './openings-parse';
@@ -25,8 +25,8 @@ function fingerprint(result: EngineResult): string {
   return `${text.length}:${h.toString(16)}`;
 }
 
-function run(houses: number, seed: number, prefix: string, system: RoofSystemInput | undefined): EngineResult {
-  const job = generateSchedule(houses, seed, prefix);
+function run(houses: number, seed: number, prefix: string, system: RoofSystemInput | undefined, lowestPitch = 0): EngineResult {
+  const job = generateSchedule(houses, seed, prefix, lowestPitch);
   const out = runEstimateFromCsv(job.schedule, system, job.openings);
   if (!out.ok) throw new Error(out.errors.map(formatProblem).join('\n'));
   expect(out.result.faces).toHaveLength(houses * FACES_PER_HOUSE);
@@ -44,6 +44,22 @@ describe('a fixed job of 40 houses', () => {
     const r = run(20, 2, 'S', SLATE_SYSTEM);
     expect(r.totals).toMatchObject(SLATED_TOTALS);
     expect(fingerprint(r)).toBe(SLATED_FINGERPRINT);
+  });
+
+  it("in plain tiles (double lap) gives the same figures as before, at the plain tile's gauge and lap", () => {
+    const r = run(20, 3, 'P', PLAIN_TILE_SYSTEM, PLAIN_TILE_LOWEST_PITCH_DEG);
+    for (const f of r.faces) {
+      // NHBC Standards 7.2.19, table "Pitch, gauge and lap" (seen): plain tiles 65 mm headlap, 35° at least.
+      expect(f.pitch_deg).toBeGreaterThanOrEqual(35);
+      expect(f.headlap_mm).toBe(65);
+      // Double lap: gauge = (length − headlap) ÷ 2 = (265 − 65) ÷ 2 = 100 mm at most (building
+      // construction textbooks, "Lap and gauge for slates").
+      expect(f.gauge_mm).toBeLessThanOrEqual(100);
+      expect(f.half_tiles).toBe(0);
+    }
+    // Mortar verges and lined valleys (the defaults): no dry verge units, no trough units.
+    expect(r.totals).toMatchObject(PLAIN_TOTALS);
+    expect(fingerprint(r)).toBe(PLAIN_FINGERPRINT);
   });
 
   it('gives the same result from checked faces and openings as from the CSV files', () => {
@@ -102,5 +118,25 @@ const SLATED_TOTALS = {
   dry_verge_units: 3262,
   valley_units: 40,
 };
+// Recorded from engine 1.2.0 when the plain-tiled houses joined the benchmark.
+const PLAIN_TOTALS = {
+  tiles: 326775,
+  tiles_order: 343114,
+  half_tiles: 0,
+  cut_tiles: 17986,
+  batten_m: 53927.91,
+  batten_lengths: 12548,
+  tile_nails: 697992,
+  clips: 0,
+  eaves_tiles: 12131,
+  top_tiles: 7108,
+  tile_and_half: 2982,
+  dry_verge_units: 0,
+  valley_units: 0,
+  ridge_end_caps: 0,
+  pallets: 367,
+  weight_kg: 498455.5,
+};
+const PLAIN_FINGERPRINT = '401306:41788a45';
 const TILED_FINGERPRINT = '319087:d98435ed';
 const SLATED_FINGERPRINT = '308072:43132191';

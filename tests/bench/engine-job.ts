@@ -24,6 +24,26 @@ export const SLATE_SYSTEM: RoofSystemInput = {
   valley: { kind: 'trough' },
 };
 
+/**
+ * An invented clay plain tile, 265 × 165 mm, at 65 mm headlap from 35°, its lowest pitch (NHBC
+ * Standards 7.2.19, table "Pitch, gauge and lap": plain tiles 65 mm headlap, minimum pitch 35°), so a
+ * 100 mm gauge ((length − headlap) ÷ 2) and about 60 tiles a m²; weight and pallet count invented.
+ * Mortar verges and lined valleys (the defaults).
+ */
+export const PLAIN_TILE_SYSTEM: RoofSystemInput = {
+  tile: {
+    kind: 'double_lap',
+    length_mm: 265,
+    width_mm: 165,
+    headlap_mm: [{ from_pitch_deg: 35, min_mm: 65 }],
+    weight_kg: 1.2,
+    per_pallet: 1000,
+  },
+};
+
+/** Lowest pitch a plain tile is laid at (its headlap band above). */
+export const PLAIN_TILE_LOWEST_PITCH_DEG = 35;
+
 /** Small seeded generator (mulberry32), so every run times the same schedule. */
 function rng(seed: number) {
   let a = seed >>> 0;
@@ -36,9 +56,14 @@ function rng(seed: number) {
   };
 }
 
-/** A house: hipped main roof, a wing with valleys, a garage, dormers, a bay, a porch and an outbuilding. */
-export function generateSchedule(houses: number, seed = 1, prefix = 'H'): { schedule: string; openings: string; count: number } {
+/**
+ * A house: hipped main roof, a wing with valleys, a garage, dormers, a bay, a porch and an outbuilding.
+ * `lowestPitch` raises every face below it to it (a plain-tiled house: its porch and lean-to at 35°, not
+ * 25°); the random figures drawn are the same either way.
+ */
+export function generateSchedule(houses: number, seed = 1, prefix = 'H', lowestPitch = 0): { schedule: string; openings: string; count: number } {
   const rand = rng(seed);
+  const pitch = (deg: number) => Math.max(deg, lowestPitch);
   const between = (lo: number, hi: number) => Math.round(lo + rand() * (hi - lo));
   const lines = ['building,face,quantity,pitch_deg,rafter_mm,run_mm,eaves_mm,top_mm,left,right,top,ridge'];
   const openingLines = ['building,face,kind,width_mm,height_mm,quantity'];
@@ -59,7 +84,7 @@ export function generateSchedule(houses: number, seed = 1, prefix = 'H'): { sche
     const opening = (face: string, kind: string, width: number, height: number) => openingLines.push([b, face, kind, width, height, 1].join(','));
 
     // Main hipped roof: two slopes to a ridge and two hip ends, equal pitch, given by run.
-    const p = between(30, 45);
+    const p = pitch(between(30, 45));
     const run = between(3600, 5200);
     const length = 2 * run + between(1200, 5600);
     add('Main front', p, '', run, length, length - 2 * run, 'hip', 'hip', 'ridge');
@@ -67,26 +92,26 @@ export function generateSchedule(houses: number, seed = 1, prefix = 'H'): { sche
     add('Main east', p, '', run, 2 * run, 0, 'hip', 'hip', 'ridge');
     add('Main west', p, '', run, 2 * run, 0, 'hip', 'hip', 'ridge');
     // Rear wing: a gable whose slopes widen upwards into valleys against the main roof.
-    const wp = between(35, 45);
+    const wp = pitch(between(35, 45));
     const wrun = between(2400, 3400);
     const weaves = between(3000, 6000);
     const wrafter = Math.round(wrun / cos(wp));
     add('Wing left', wp, wrafter, wrun, weaves, weaves + wrun, 'verge', 'valley', 'ridge');
     add('Wing right', wp, wrafter, wrun, weaves, weaves + wrun, 'valley', 'verge', 'ridge');
     // Garage gable.
-    const gp = between(30, 40);
+    const gp = pitch(between(30, 40));
     const grafter = between(2600, 3600);
     const geaves = between(5400, 7200);
     add('Garage front', gp, grafter, '', geaves, '', 'verge', 'verge', 'ridge');
     add('Garage back', gp, grafter, '', geaves, '', 'verge', 'verge', 'ridge');
     // Porch lean-to against the front wall.
-    add('Porch', 25, between(1400, 2200), '', between(1800, 3200), '', 'verge', 'verge', 'abutment');
+    add('Porch', pitch(25), between(1400, 2200), '', between(1800, 3200), '', 'verge', 'verge', 'abutment');
     // Two gabled dormers.
     for (const d of ['Dormer 1', 'Dormer 2']) {
       const dr = between(1300, 1900);
       const de = between(1600, 2400);
-      add(`${d} left`, 45, dr, '', de, '', 'verge', 'abutment', 'ridge');
-      add(`${d} right`, 45, dr, '', de, '', 'abutment', 'verge', 'ridge');
+      add(`${d} left`, pitch(45), dr, '', de, '', 'verge', 'abutment', 'ridge');
+      add(`${d} right`, pitch(45), dr, '', de, '', 'abutment', 'verge', 'ridge');
     }
     // Bay window: a hipped canopy against the wall.
     const bayRun = between(700, 1100);
@@ -96,13 +121,13 @@ export function generateSchedule(houses: number, seed = 1, prefix = 'H'): { sche
     add('Bay left', 35, bayRafter, '', bayRun, 0, 'abutment', 'hip', 'abutment');
     add('Bay right', 35, bayRafter, '', bayRun, 0, 'hip', 'abutment', 'abutment');
     // Outbuilding: a small hipped roof and a mono-pitch log store.
-    const op = between(30, 40);
+    const op = pitch(between(30, 40));
     const orun = between(1800, 2600);
     const olen = 2 * orun + between(600, 2400);
     add('Shed front', op, '', orun, olen, olen - 2 * orun, 'hip', 'hip', 'ridge');
     add('Shed back', op, '', orun, olen, olen - 2 * orun, 'hip', 'hip', 'ridge');
     add('Shed end', op, '', orun, 2 * orun, 0, 'hip', 'hip', 'ridge');
-    add('Log store', 25, between(1500, 2100), '', between(2000, 3000), '', 'verge', 'verge', 'mono_ridge');
+    add('Log store', pitch(25), between(1500, 2100), '', between(2000, 3000), '', 'verge', 'verge', 'mono_ridge');
     if (rows.length !== FACES_PER_HOUSE) throw new Error(`house has ${rows.length} faces`);
     lines.push(...rows);
     // Two roof windows at the back, a chimney through the front slope, a hatch on the garage.

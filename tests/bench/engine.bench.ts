@@ -1,9 +1,9 @@
 /**
  * Engine benchmark: a 10,000-face job (500 houses × 20 faces of mixed shapes, with roof windows,
  * chimneys, dormer cheeks and hatches in them) through the whole pipeline (parse + check + estimate).
- * Half the houses are slated (double lap, with eaves and top courses and slate-and-a-half verges) and
- * half are in single-lap tiles, so the job is two schedules, each with its openings file and its own
- * roof system. In the same run papaparse reads the same CSVs alone: as a header-row CSV usually is (the
+ * Half the houses are in single-lap tiles, a quarter slated and a quarter in plain tiles (double lap,
+ * with eaves and top courses and tile-and-a-half verges; the slates with dry verges and trough valleys),
+ * so the job is three schedules, each with its openings file and its own roof system. In the same run papaparse reads the same CSVs alone: as a header-row CSV usually is (the
  * ratio the target applies to), and with the schedule reader's own chunked settings (printed too); the
  * three are warmed up alike and timed interleaved, their order turned from round to round, and each
  * timed run ends with young-generation collections of its own garbage and survivors (see
@@ -24,16 +24,17 @@ import { fileURLToPath } from 'node:url';
 import { PerformanceObserver, type PerformanceEntry } from 'node:perf_hooks';
 import Papa from 'papaparse';
 import { runEstimateFromCsv } from '../../shared/engine/estimate';
+import { parseRoofSystem } from '../../shared/engine/roof-system';
 import { detectDelimiter, papaConfig } from '../../shared/engine/schedule-parse';
 import type { RoofSystemInput } from '../../shared/schemas/roof-system.schema';
-import { FACES_PER_HOUSE, SLATE_SYSTEM, generateSchedule } from './engine-job';
+import { FACES_PER_HOUSE, PLAIN_TILE_LOWEST_PITCH_DEG, PLAIN_TILE_SYSTEM, SLATE_SYSTEM, generateSchedule } from './engine-job';
 
 const HOUSES = 500;
 const RUNS = 9;
 const TARGET_RATIO = 1.5;
 const TARGET_RSS_MB = 120;
 
-/** The job: single-lap houses and slated houses, each schedule with its openings and roof system. */
+/** The job: single-lap, slated and plain-tiled houses, each schedule with its openings and roof system. */
 interface Part {
   schedule: string;
   openings: string;
@@ -121,7 +122,7 @@ function timePart(part: Part): number {
   const ms = performance.now() - t;
   if (!out.ok) throw new Error(`generated schedule rejected: ${JSON.stringify(out.errors.slice(0, 3))}`);
   if (out.result.faces.length !== part.faces) throw new Error('face count mismatch');
-  if (part.doubleLap && out.result.totals.tile_and_half === 0) throw new Error('no slate-and-a-half on the slated houses');
+  if (part.doubleLap && out.result.totals.tile_and_half === 0) throw new Error('no tile-and-a-half on the double-lap houses');
   return ms;
 }
 
@@ -168,15 +169,28 @@ function median(values: number[]): number {
   return s[Math.floor(s.length / 2)];
 }
 
-function makeJob() {
-  const tiled = generateSchedule(HOUSES / 2, 1, 'T');
-  const slated = generateSchedule(HOUSES / 2, 2, 'S');
-  const half = (HOUSES / 2) * FACES_PER_HOUSE;
-  const parts: Part[] = [
-    { schedule: tiled.schedule, openings: tiled.openings, system: undefined, faces: half, openingCount: tiled.count, doubleLap: false },
-    { schedule: slated.schedule, openings: slated.openings, system: SLATE_SYSTEM, faces: half, openingCount: slated.count, doubleLap: true },
-  ];
-  return { tiled, slated, half, parts };
+/** Half the houses in single-lap tiles, a quarter slated, a quarter in plain tiles (steep enough for them). */
+function makeJob(): Part[] {
+  const part = (houses: number, seed: number, prefix: string, system: RoofSystemInput | undefined, lowestPitch = 0): Part => {
+    const job = generateSchedule(houses, seed, prefix, lowestPitch);
+    const parsed = parseRoofSystem(system ?? {});
+    if (!parsed.ok) throw new Error(`benchmark roof system rejected: ${JSON.stringify(parsed.errors)}`);
+    const doubleLap = parsed.system.tile.kind === 'double_lap';
+    return { schedule: job.schedule, openings: job.openings, system, faces: houses * FACES_PER_HOUSE, openingCount: job.count, doubleLap };
+  };
+  return [part(HOUSES / 2, 1, 'T', undefined), part(HOUSES / 4, 2, 'S', SLATE_SYSTEM), part(HOUSES / 4, 3, 'P', PLAIN_TILE_SYSTEM, PLAIN_TILE_LOWEST_PITCH_DEG)];
+}
+
+/** Faces the engine estimated in double lap over the job, counted from its results. */
+function countDoubleLapFaces(parts: readonly Part[]): number {
+  let n = 0;
+  for (const part of parts) {
+    if (!part.doubleLap) continue;
+    const out = runEstimateFromCsv(part.schedule, part.system, part.openings);
+    if (!out.ok) throw new Error('generated schedule rejected');
+    n += out.result.faces.length;
+  }
+  return n;
 }
 
 const WARM_UP = 2;
@@ -201,7 +215,7 @@ function peakRssMb(): number {
  * measure of the ratio, with no other side's runs in between).
  */
 function memoryRun(mode: string) {
-  const { parts } = makeJob();
+  const parts = makeJob();
   const faces = HOUSES * FACES_PER_HOUSE;
   const times: number[] = [];
   for (let i = 0; i < ALONE_WARM_UP + RUNS; i++) {
@@ -221,10 +235,10 @@ function measureApart(mode: string): { peakRssMb: number; timesMs: number[] } {
 }
 
 async function main() {
-  const { tiled, slated, half, parts } = makeJob();
+  const parts = makeJob();
   const faces = HOUSES * FACES_PER_HOUSE;
-  const openings = tiled.count + slated.count;
-  const doubleLapFaces = half;
+  const openings = parts.reduce((n, p) => n + p.openingCount, 0);
+  const doubleLapFaces = countDoubleLapFaces(parts);
   const csvBytes = parts.reduce((s, p) => s + p.schedule.length + p.openings.length, 0);
   const sameAll = (_csv: string) => parseAll(sameSettingsParse, parts);
   const headerAll = (_csv: string) => parseAll(headerParse, parts);
@@ -293,7 +307,9 @@ async function main() {
   const ratioAlone = round2(pipelineAloneMs / parseAloneMs);
   const ms = (list: number[]) => `median ${median(list).toFixed(1)} ms, fastest ${Math.min(...list).toFixed(1)} ms`;
 
-  console.log(`schedule: ${faces} faces (${HOUSES} houses × ${FACES_PER_HOUSE}; ${doubleLapFaces} slated, double lap), ${openings} openings, ${(csvBytes / 1024).toFixed(0)} KiB of CSV, ${RUNS} interleaved rounds`);
+  console.log(
+    `schedule: ${faces} faces (${HOUSES} houses × ${FACES_PER_HOUSE}; ${doubleLapFaces} in double lap: slates and plain tiles), ${openings} openings, ${(csvBytes / 1024).toFixed(0)} KiB of CSV, ${RUNS} interleaved rounds`,
+  );
   console.log(`papaparse alone, header row:           ${ms(headerMs)}`);
   console.log(`papaparse alone, the reader's settings: ${ms(sameMs)} (chunked, no header objects)`);
   console.log(`parse + check + estimate:              ${ms(pipelineMs)}`);
