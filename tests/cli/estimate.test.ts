@@ -105,6 +105,13 @@ describe.concurrent('estimate CLI', () => {
     expect(r.stderr.startsWith(message)).toBe(true);
   });
 
+  it('rejects a ridge named on a face against a wall: nothing on stdout, exit 2', async () => {
+    const r = await run(['--schedule', file('ridge-wall.csv', `${HEADER},ridge\nA,Porch,1,25,1800,,2400,,verge,verge,abutment,Main\n`)]);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim().split('\n')).toEqual(['row 2, column ridge: a face whose top is an abutment meets no ridge: leave ridge blank']);
+  });
+
   it('lists every problem, one line each: duplicate faces and a missing column', async () => {
     const dup = await run(['--schedule', file('dup.csv', `${HEADER}\nA,Front,1,35,4000,,9000,,,,\nA,Front,1,35,4000,,9000,,,,\nA,Back,x,35,4000,,0,,,,\n`)]);
     expect(dup.code).toBe(2);
@@ -145,6 +152,9 @@ describe.concurrent('estimate CLI', () => {
       'system field tile.bond: ',
     ],
     ['a pallet limit below the empty pallet', { truck: { pallet_tare_kg: 25, max_pallet_kg: 20 } }, 'system field truck.max_pallet_kg: '],
+    ['a trough valley whose lap is a whole unit', { valley: { kind: 'trough', unit_length_mm: 3000, lap_mm: 3000 } }, 'system field valley.lap_mm: '],
+    ['an unknown kind of verge', { verge: { kind: 'cloaked' } }, 'system field verge.kind: must be mortar or dry'],
+    ['an unknown kind of valley', { valley: { kind: 'gutter' } }, 'system field valley.kind: must be lined or trough'],
   ])('rejects %s, naming the field: nothing on stdout, exit 2', async (_name, system, start) => {
     const r = await run(['--schedule', file(`sys-${start.length}.csv`, EXAMPLE_SCHEDULE_CSV), '--system', file(`sys-${start.length}.json`, JSON.stringify(system))]);
     expect(r.code).toBe(2);
@@ -176,6 +186,20 @@ describe.concurrent('estimate CLI', () => {
       "openings file, row 3, column face: no face 'Side' in building 'Birch' in the schedule",
       "openings file, row 4, column kind: unknown kind 'skylight': use roof_window, chimney, dormer or hatch",
     ]);
+  });
+
+  it.each([
+    ['an opening taller than its face', 'Birch,Front,roof_window,780,6000,1', "openings file, row 2, column height_mm: 6000 mm is taller than face 'Front' (rafter 5091 mm)"],
+    ['no opening at all', 'Birch,Front,roof_window,780,1180,0', 'openings file, row 2, column quantity: must be a whole number from 1 to 10000'],
+    ['part of an opening', 'Birch,Front,roof_window,780,1180,1.5', 'openings file, row 2, column quantity: must be a whole number from 1 to 10000'],
+    ['metres in an openings column', 'Birch,Front,roof_window,0.78,1180,1', 'openings file, row 2, column width_mm: looks like metres (0.78); give millimetres, e.g. 780'],
+  ])('rejects an openings file with %s: nothing on stdout, exit 2', async (_name, row, message) => {
+    const schedule = file(`open-${message.length}.csv`, EXAMPLE_SCHEDULE_CSV);
+    const openings = file(`bad-open-${message.length}-${row.length}.csv`, `building,face,kind,width_mm,height_mm,quantity\n${row}\n`);
+    const r = await run(['--schedule', schedule, '--openings', openings]);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim().split('\n')).toEqual([message]);
   });
 
   it('rejects a system file that is not JSON', async () => {
