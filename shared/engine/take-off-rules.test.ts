@@ -72,7 +72,7 @@ describe('systems that cannot be laid or loaded are rejected, naming the field',
     expect(parseRoofSystem({ tile: { ...PLAIN_TILE, bond: 'broken' } }).ok).toBe(true);
   });
 
-  it('rejects a max pallet weight below the empty pallet, naming truck.max_pallet_kg', () => {
+  it('rejects a max pallet weight below the empty pallet, naming truck.max_pallet_kg (a pallet must carry at least one tile: common practice, no source)', () => {
     const r = parseRoofSystem({ truck: { pallet_tare_kg: 25, max_pallet_kg: 20 } });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors.map((e) => e.field)).toEqual(['truck.max_pallet_kg']);
@@ -80,14 +80,14 @@ describe('systems that cannot be laid or loaded are rejected, naming the field',
 });
 
 describe('schedule rows that give a wrong roof silently are rejected, naming row and column', () => {
-  it('asks for rafter_mm on a face of 80° and steeper given only by run (run ÷ cos pitch is unreliable there: trigonometry)', () => {
+  it("asks for rafter_mm on a face of 80° and steeper given only by run (slope = plan ÷ cos pitch, trigonometry as in old builders' texts; a small error in the pitch multiplies the rafter there)", () => {
     const r = parseScheduleCsv(`${HEADER}\r\nA,Steep,1,80,,600,3000,,verge,verge,ridge\r\nA,Fine,1,79,,600,3000,,verge,verge,ridge\r\n`);
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors.map(formatProblem)).toEqual(['row 2, column run_mm: give rafter_mm for faces of 80° and steeper']);
     expect(parseScheduleCsv(`${HEADER}\r\nA,Steep,1,80,3455,600,3000,,verge,verge,ridge\r\n`).ok).toBe(true);
   });
 
-  it('requires top_mm beside a hip or valley (0 is a triangular hip end), in a CSV and in JSON', () => {
+  it("requires top_mm beside a hip or valley (0 is a triangular hip end), in a CSV and in JSON (a hip end's top is its apex: common practice, no source)", () => {
     const csv = `${HEADER}\r\nA,Front,1,35,4000,,9000,,hip,hip,ridge\r\nA,End,1,35,4000,,6000,0,hip,hip,ridge\r\nA,Wing,1,35,4000,,6000,,verge,valley,ridge\r\n`;
     const r = parseScheduleCsv(csv);
     expect(r.ok).toBe(false);
@@ -99,7 +99,7 @@ describe('schedule rows that give a wrong roof silently are rejected, naming row
     if (!json.ok) expect(json.errors).toEqual([{ row: 1, column: 'top_mm', message: 'required on a face with a hip or valley edge' }]);
   });
 
-  it('estimates a stored face with a hip and no top as before, with the warning top_assumed', () => {
+  it('estimates a stored face with a hip and no top as before, with the warning top_assumed (common practice, no source)', () => {
     const candidate: FaceCandidate = { building: 'A', face: 'Front', quantity: 1, pitch_deg: 35, rafter_mm: 4_000, eaves_mm: 9_000, left: 'hip', right: 'hip', top: 'ridge' };
     const stored = resolveFace(candidate);
     expect(stored.top_mm).toBe(9_000);
@@ -108,7 +108,7 @@ describe('schedule rows that give a wrong roof silently are rejected, naming row
   });
 });
 
-describe('ridges named in the schedule (common practice: load both slopes of a ridge in step)', () => {
+describe('ridges named in the schedule (spread the load evenly so the structure is never unbalanced: BS 8000-6 guidance as summarised in trade press)', () => {
   const hipped = (ridge: string) =>
     [
       `${HEADER},ridge`,
@@ -173,7 +173,7 @@ describe('plain tiles and slates as laid (double lap)', () => {
     expect(f.cut_tiles).toBe(0);
   });
 
-  it('puts one tile-and-a-half in a broken course with one verge, and keeps the raking cut a cut tile', () => {
+  it('puts one tile-and-a-half in a broken course with one verge, and keeps the raking cut a cut tile (common practice, no source)', () => {
     const course = halfToTileAndHalf(vergeToRakeCourse(3_000, 45, 165, 165, true));
     expect(course).toMatchObject({ halves: 0, tah: 1, cut: 1 });
     const oneVerge = estimate([face({ right: 'abutment' })], system).faces[0];
@@ -181,7 +181,7 @@ describe('plain tiles and slates as laid (double lap)', () => {
     expect(oneVerge.half_tiles).toBe(0);
   });
 
-  it('orders each special piece with the tile waste, puts them on the tile pallets and weighs them (1.5 tiles a tile-and-a-half)', () => {
+  it('orders each special piece with the tile waste, puts them on the tile pallets and weighs them (1.5 tiles a tile-and-a-half: common practice, no source)', () => {
     const r = estimate([face({})], system);
     expect(r.totals).toMatchObject({ eaves_tiles: 40, top_tiles: 40, tile_and_half: 30, eaves_tiles_order: 42, top_tiles_order: 42, tile_and_half_order: 32 });
     expect(r.totals.tiles_order).toBe(Math.ceil(1_155 * 1.05));
@@ -196,7 +196,7 @@ describe('plain tiles and slates as laid (double lap)', () => {
     expect(f.load_kg).toBeCloseTo(1_155 * 1.1 + 80 * 1.1 + 30 * 1.65, 1);
   });
 
-  it('leaves single-lap faces without special pieces', () => {
+  it('leaves single-lap faces without special pieces (an interlocking tile needs no under-eaves course: common practice, no source)', () => {
     const single = ok(runEstimateFromCsv(`${HEADER}\r\nA,F,1,35,3860,,5940,,verge,verge,ridge\r\n`)).faces[0];
     expect([single.eaves_tiles, single.top_tiles, single.tile_and_half]).toEqual([0, 0, 0]);
   });
@@ -249,7 +249,7 @@ describe('openings (the rule is common practice, no source: positions are not gi
     expect(r.totals.flashings.top_abutment_m).toBe(5.94);
   });
 
-  it('reads the openings file, rejecting a face not in the schedule, an opening too big, and a bad kind, naming row and column', () => {
+  it('reads the openings file, rejecting a face not in the schedule, an opening too big, and a bad kind, naming row and column (common practice, no source)', () => {
     const faces = [plain];
     const r = parseOpeningsCsv(
       'building,face,kind,width_mm,height_mm,quantity\r\n1,Main,roof window,780,1180,\r\n1,Nowhere,chimney,600,900,1\r\n1,Main,dormer,7000,900,1\r\n1,Main,skylight,600,900,1\r\n1,Main,hatch,600,4000,1\r\n',
@@ -268,7 +268,7 @@ describe('openings (the rule is common practice, no source: positions are not gi
     expect(good.ok && good.openings).toEqual([{ building: '1', face: 'Main', kind: 'roof_window', width_mm: 780, height_mm: 1_180, quantity: 1 }]);
   });
 
-  it("finds an opening's face by building and name without case or outer spaces when read with its schedule, and names the row of one whose face is missing", () => {
+  it("finds an opening's face by building and name without case or outer spaces when read with its schedule, and names the row of one whose face is missing (common practice, no source)", () => {
     const schedule = 'building,face,pitch_deg,rafter_mm,eaves_mm\r\nAsh,Main front,35,3860,5940\r\nAsh,Main back,35,3860,5940\r\nBirch,Main front,35,3860,5940\r\n';
     const exact = ok(runEstimateFromCsv(schedule, {}, 'building,face,kind,width_mm,height_mm\r\nAsh,Main back,roof_window,780,1180\r\nBirch,Main front,hatch,600,900\r\n'));
     const loose = ok(runEstimateFromCsv(schedule, {}, 'building,face,kind,width_mm,height_mm\r\n ash ,MAIN BACK,roof_window,780,1180\r\nBIRCH,  main Front ,hatch,600,900\r\n'));
