@@ -34,6 +34,9 @@ function renderBuilder(faces: Face[], fetchRoutes: Parameters<typeof stubFetch>[
   return { fetchMock, onCreated };
 }
 
+/** The preview works again after each change (deferred, the whole engine): give a busy machine time. */
+const SLOW = { timeout: 5000 };
+
 const choose = (label: string, value: string) => fireEvent.change(screen.getByLabelText(label), { target: { value } });
 const type = (label: string, value: string) => fireEvent.change(screen.getByLabelText(label), { target: { value } });
 
@@ -72,7 +75,7 @@ describe('EstimateBuilder: a generic system’s verges', () => {
     const courses = estimate([...gable], (parseRoofSystem({}) as { ok: true; system: never }).system).faces.map((f) => f.courses);
     const units = courses.reduce((sum, c) => sum + 2 * c, 0);
     expect(units).toBeGreaterThan(0);
-    await waitFor(() => expect(fitting('Dry verge units')).resolves.toBe(String(units)));
+    await waitFor(() => expect(fitting('Dry verge units')).resolves.toBe(String(units)), SLOW);
     expect(await fitting('Ridge end caps')).toBe('2');
   });
 
@@ -101,16 +104,16 @@ describe('EstimateBuilder: a generic system’s valleys', () => {
     // lapping 150 mm cover 2,850 mm each, so ⌈3878 / 2850⌉ = 2 units (common practice: each unit laps the one below).
     const valley = Math.hypot(RAFTER, RUN);
     expect(Math.round(valley)).toBe(3878);
-    await waitFor(() => expect(fitting('Valley trough units')).resolves.toBe(String(Math.ceil(valley / (3000 - 150)))));
+    await waitFor(() => expect(fitting('Valley trough units')).resolves.toBe(String(Math.ceil(valley / (3000 - 150)))), SLOW);
 
     // Shorter units: ⌈3878 / (1500 − 100)⌉ = 3.
     type('Trough unit length (mm)', '1500');
     type('Lap between units (mm)', '100');
-    await waitFor(() => expect(fitting('Valley trough units')).resolves.toBe('3'));
+    await waitFor(() => expect(fitting('Valley trough units')).resolves.toBe('3'), SLOW);
 
     choose('Valleys', 'lined');
     expect(screen.queryByLabelText('Trough unit length (mm)')).toBeNull();
-    await waitFor(() => expect(fitting('Valley trough units')).resolves.toBeNull());
+    await waitFor(() => expect(fitting('Valley trough units')).resolves.toBeNull(), SLOW);
   });
 
   it('refuses a lap as long as the unit on the lap’s own field, and sends nothing', async () => {
