@@ -36,6 +36,8 @@ function renderBuilder(faces: Face[], fetchRoutes: Parameters<typeof stubFetch>[
 
 /** The preview works again after each change (deferred, the whole engine): give a busy machine time. */
 const SLOW = { timeout: 5000 };
+/** The first test of a file waits for a part loaded after the page (the engine, the import), slow on a busy machine. */
+const LAZY_PARTS = { timeout: 20_000 };
 
 const choose = (label: string, value: string) => fireEvent.change(screen.getByLabelText(label), { target: { value } });
 const type = (label: string, value: string) => fireEvent.change(screen.getByLabelText(label), { target: { value } });
@@ -62,7 +64,7 @@ const postedBody = (fetchMock: ReturnType<typeof stubFetch>) => {
   return post ? (JSON.parse((post[1] as RequestInit).body as string) as { system: Record<string, Record<string, unknown>> }) : null;
 };
 
-describe('EstimateBuilder: a generic system’s verges', () => {
+describe('EstimateBuilder: a generic system’s verges', LAZY_PARTS, () => {
   it('counts dry verge units and ridge end caps once dry verges are chosen, and none with mortar', async () => {
     renderBuilder(gable);
     expect((screen.getByLabelText('Verges') as HTMLSelectElement).value).toBe('mortar');
@@ -91,7 +93,7 @@ describe('EstimateBuilder: a generic system’s verges', () => {
   });
 });
 
-describe('EstimateBuilder: a generic system’s valleys', () => {
+describe('EstimateBuilder: a generic system’s valleys', LAZY_PARTS, () => {
   it('shows the trough unit length and lap only for trough valleys, and counts the units from them', async () => {
     renderBuilder(valleyPair);
     expect(screen.queryByLabelText('Trough unit length (mm)')).toBeNull();
@@ -143,7 +145,7 @@ describe('EstimateBuilder: a generic system’s valleys', () => {
   });
 });
 
-describe('EstimateBuilder: a double-lap tile’s special pieces', () => {
+describe('EstimateBuilder: a double-lap tile’s special pieces', LAZY_PARTS, () => {
   it('shows the three weights only for a double-lap tile, blank, with the weights the engine uses when left blank', async () => {
     renderBuilder(gable);
     expect(screen.queryByLabelText('Eaves tile (kg)')).toBeNull();

@@ -29,6 +29,9 @@ const version = (n: number, openings: StoredOpening[]) => ({
   warnings: [],
 });
 
+/** The first test of a file waits for a part loaded after the page (the engine, the import), slow on a busy machine. */
+const LAZY_PARTS = { timeout: 20_000 };
+
 const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
 /**
@@ -87,7 +90,7 @@ function openingRows(): string[][] {
     );
 }
 
-describe('OpeningsImport', () => {
+describe('OpeningsImport', LAZY_PARTS, () => {
   it('stores a good file as the next version and the openings table shows its rows in place of the old ones', async () => {
     const api = fakeApi();
     const input = await renderSchedule();
