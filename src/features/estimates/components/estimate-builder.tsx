@@ -12,7 +12,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { SkeletonBlock } from '../../../components/ui/skeleton';
 import { useCreateEstimate } from '../api/create-estimate';
 import { useSystems } from '../api/get-systems';
-import { HEADLAP_ROWS, WASTE_FIELDS, estimateFormSchema, headlapField, tileField } from '../lib/estimate-form';
+import { HEADLAP_ROWS, SPECIAL_PIECE_FIELDS, VALLEY_KIND_FIELD, VERGE_KIND_FIELD, WASTE_FIELDS, estimateFormSchema, headlapField, tileField, valleyField } from '../lib/estimate-form';
 import { SystemPicker } from './system-picker';
 
 /** The engine and the face table arrive after the form: the preview says it is loading meanwhile. */
@@ -32,7 +32,25 @@ function readValues(form: HTMLFormElement | null): Record<string, string> {
   return values;
 }
 
-function GenericSystemFields() {
+const SPECIAL_PIECES: Record<(typeof SPECIAL_PIECE_FIELDS)[number], { label: string; share: number; blank: string }> = {
+  eaves_tile_kg: { label: 'Eaves tile (kg)', share: 1, blank: 'as a full tile' },
+  top_tile_kg: { label: 'Top tile (kg)', share: 1, blank: 'as a full tile' },
+  tile_and_half_kg: { label: 'Tile-and-a-half (kg)', share: 1.5, blank: 'one and a half full tiles' },
+};
+
+/** What a special piece left blank weighs: the engine's rule, with the figure for the tile weight typed. */
+function specialPieceHint(field: (typeof SPECIAL_PIECE_FIELDS)[number], tileWeight: string | undefined): string {
+  const piece = SPECIAL_PIECES[field];
+  const text = (tileWeight ?? '').trim().replace(',', '.');
+  const weight = Number(text);
+  const figure = text !== '' && Number.isFinite(weight) && weight > 0 ? ` (${Number((piece.share * weight).toFixed(3))} kg)` : '';
+  return `Blank: ${piece.blank}${figure}`;
+}
+
+/** The generic system's fields; `values` is the form as it stands, for the fields that depend on a choice. */
+function GenericSystemFields({ values }: { values: Record<string, string> }) {
+  const doubleLap = (values[tileField('kind')] ?? DEFAULT_TILE.kind) === 'double_lap';
+  const trough = (values[VALLEY_KIND_FIELD] ?? SYSTEM_DEFAULTS.valley.kind) === 'trough';
   return (
     <div className="space-y-4">
       <p className="text-sm text-ink-700">
@@ -89,6 +107,45 @@ function GenericSystemFields() {
         <TextField name={tileField('nails_per_tile')} label="Nails a tile" inputMode="numeric" hint="Blank: as usual for the kind" />
         <TextField name="system.rafter_spacing_mm" label="Rafter centres (mm)" inputMode="decimal" defaultValue={SYSTEM_DEFAULTS.rafter_spacing_mm} />
       </div>
+      {doubleLap ? (
+        <fieldset>
+          <legend className="mb-1.5 font-medium">Special pieces, for a double-lap tile</legend>
+          <p className="mb-2 text-sm text-ink-600">The weight of one of each, from the data sheet: the eaves and top courses are of short tiles, and a tile-and-a-half keeps the bond at each verge.</p>
+          <div className="grid gap-3 sm:grid-cols-3">
+            {SPECIAL_PIECE_FIELDS.map((field) => (
+              <TextField key={field} name={tileField(field)} label={SPECIAL_PIECES[field].label} inputMode="decimal" hint={specialPieceHint(field, values[tileField('weight_kg')])} />
+            ))}
+          </div>
+        </fieldset>
+      ) : null}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField
+          name={VERGE_KIND_FIELD}
+          label="Verges"
+          defaultValue={SYSTEM_DEFAULTS.verge.kind}
+          hint="Dry verges take a unit on every course and a cap at each ridge end."
+          options={[
+            { value: 'mortar', label: 'Bedded in mortar' },
+            { value: 'dry', label: 'Dry verge units' },
+          ]}
+        />
+        <SelectField
+          name={VALLEY_KIND_FIELD}
+          label="Valleys"
+          defaultValue={SYSTEM_DEFAULTS.valley.kind}
+          hint="A lined valley is ordered by the metre; trough units are counted."
+          options={[
+            { value: 'lined', label: 'Lined (lead or a roll lining)' },
+            { value: 'trough', label: 'Preformed trough units' },
+          ]}
+        />
+      </div>
+      {trough ? (
+        <div className="grid gap-4 sm:grid-cols-2">
+          <TextField name={valleyField('unit_length_mm')} label="Trough unit length (mm)" inputMode="decimal" defaultValue={SYSTEM_DEFAULTS.valley.unit_length_mm} hint="From the trough maker's data sheet" />
+          <TextField name={valleyField('lap_mm')} label="Lap between units (mm)" inputMode="decimal" defaultValue={SYSTEM_DEFAULTS.valley.lap_mm} hint="Less than the unit length" />
+        </div>
+      ) : null}
     </div>
   );
 }
@@ -128,7 +185,10 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
 
   const refresh = useCallback(() => setValues(readValues(wrapper.current?.closest('form') ?? null)), []);
   // Inputs that appear or change their defaults (another system's waste) are read once they are on the page.
-  useEffect(refresh, [refresh, systems.data, source, chosenId]);
+  // So do the fields a choice shows (a double-lap tile's special pieces, trough units' length and lap).
+  const tileKind = values[tileField('kind')];
+  const valleyKind = values[VALLEY_KIND_FIELD];
+  useEffect(refresh, [refresh, systems.data, source, chosenId, tileKind, valleyKind]);
 
   const offers = useMemo(() => systems.data ?? [], [systems.data]);
   const shown = kind === 'all' ? offers : offers.filter((o) => o.tile.kind === kind);
@@ -200,7 +260,7 @@ export function EstimateBuilder({ projectId, faces, openings = NO_OPENINGS, sche
           </div>
 
           <div hidden={source !== 'generic'}>
-            <GenericSystemFields />
+            <GenericSystemFields values={values} />
           </div>
         </Card>
 

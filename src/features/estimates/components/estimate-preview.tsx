@@ -9,6 +9,7 @@ import { previewEstimate } from '../lib/estimate-preview';
 import type { PreviewOutcome } from '../lib/estimate-preview';
 import { placeWarnings } from '../lib/warnings';
 import { FaceBreakdownTable } from './face-breakdown-table';
+import { TakeOffExtras, extraLines } from './ridges-and-fittings';
 
 const n = (v: number, digits = 0) => v.toLocaleString('en-GB', { maximumFractionDigits: digits });
 
@@ -48,6 +49,11 @@ function Preview({ outcome }: { outcome: PreviewOutcome }) {
           </div>
         ))}
       </dl>
+      {extraLines(totals).length > 0 ? (
+        <section aria-label="Special pieces and fittings">
+          <TakeOffExtras totals={totals} />
+        </section>
+      ) : null}
       {outcome.result.warnings.length > 0 ? (
         <Alert tone="caution" title={`${outcome.result.warnings.length} ${outcome.result.warnings.length === 1 ? 'thing' : 'things'} to check`} live={false}>
           <ul className="list-disc space-y-1 pl-5">

@@ -14,6 +14,11 @@ export const WASTE_FIELDS = ['tiles', 'battens', 'underlay', 'ridge_hip'] as con
 export const HEADLAP_ROWS = 3;
 
 export const tileField = (name: string) => `system.tile.${name}`;
+export const VERGE_KIND_FIELD = 'system.verge.kind';
+export const VALLEY_KIND_FIELD = 'system.valley.kind';
+export const valleyField = (name: 'unit_length_mm' | 'lap_mm') => `system.valley.${name}`;
+/** A double-lap tile's special pieces, each weighed on its own; left blank, the engine weighs them from the tile. */
+export const SPECIAL_PIECE_FIELDS = ['eaves_tile_kg', 'top_tile_kg', 'tile_and_half_kg'] as const;
 export const headlapField = (i: number, name: 'from_pitch_deg' | 'min_mm') => `system.tile.headlap_mm.${i}.${name}`;
 
 type Ctx = z.core.$RefinementCtx<unknown>;
@@ -59,6 +64,12 @@ function readGenericSystem(values: Record<string, string>, ctx: Ctx): Record<str
   if (nails !== undefined) tile.nails_per_tile = nails;
   const bond = values[tileField('bond')];
   if (bond === 'broken' || bond === 'straight') tile.bond = bond;
+  if (kind === 'double_lap') {
+    for (const field of SPECIAL_PIECE_FIELDS) {
+      const value = numberAt(values, tileField(field), ctx, false);
+      if (value !== undefined) tile[field] = value;
+    }
+  }
   const cover = ['min', 'nominal', 'max'].map((part) => numberAt(values, tileField(`cover_width_mm.${part}`), ctx, false));
   if (cover.some((v) => v !== undefined)) {
     const [min, nominal, max] = cover;
@@ -78,6 +89,21 @@ function readGenericSystem(values: Record<string, string>, ctx: Ctx): Record<str
   const system: Record<string, unknown> = { tile };
   const spacing = numberAt(values, 'system.rafter_spacing_mm', ctx, false);
   if (spacing !== undefined) system.rafter_spacing_mm = spacing;
+  // The kinds go to the roof-system schema as chosen, so a value it does not know is refused on its field.
+  const verge = values[VERGE_KIND_FIELD] ?? '';
+  if (verge !== '') system.verge = { kind: verge };
+  const valleyKind = values[VALLEY_KIND_FIELD] ?? '';
+  if (valleyKind !== '') {
+    const valley: Record<string, unknown> = { kind: valleyKind };
+    // Unit length and lap belong to trough units; a lined valley is ordered by the metre.
+    if (valleyKind === 'trough') {
+      for (const field of ['unit_length_mm', 'lap_mm'] as const) {
+        const value = numberAt(values, valleyField(field), ctx, false);
+        if (value !== undefined) valley[field] = value;
+      }
+    }
+    system.valley = valley;
+  }
   return system;
 }
 

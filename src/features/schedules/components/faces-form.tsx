@@ -45,6 +45,8 @@ interface FaceRow {
   top: string;
   ridge: string;
   openings: OpeningRow[];
+  /** Stored without a top edge beside a hip or valley: its top was taken as the eaves, so it is asked for again. */
+  topAssumed?: boolean;
 }
 
 const LABELS: Record<'building' | 'face' | NumberColumn | 'left' | 'right' | 'top' | 'ridge', string> = {
@@ -112,11 +114,13 @@ function fromStored(face: StoredFace, key: number, openings: readonly StoredOpen
     // The stored run is worked out from the rafter; sending both would only invite a rounding clash.
     run_mm: '',
     eaves_mm: round(face.eaves_mm),
-    top_mm: bothVerges ? '' : round(face.top_mm),
+    // An assumed top (the eaves, put in by a migration) is not sent back as if someone had given it.
+    top_mm: bothVerges || face.top_assumed ? '' : round(face.top_mm),
     left: face.left,
     right: face.right,
     top: face.top,
     ridge: face.ridge ?? '',
+    ...(face.top_assumed ? { topAssumed: true } : {}),
     openings: openings.map((o) => ({ key: nextKey(), kind: o.kind, width_mm: round(o.width_mm), height_mm: round(o.height_mm), quantity: String(o.quantity) })),
   };
 }
@@ -124,6 +128,8 @@ function fromStored(face: StoredFace, key: number, openings: readonly StoredOpen
 function blankRow(key: number, building = '1'): FaceRow {
   return { key, building, face: '', quantity: '1', pitch_deg: '', rafter_mm: '', run_mm: '', eaves_mm: '', top_mm: '', left: 'verge', right: 'verge', top: 'ridge', ridge: '', openings: [] };
 }
+
+const TOP_ASSUMED_HINT = 'Needed: this face was stored without its top edge, which was taken as the eaves. Give the top edge (0 for a triangular hip end).';
 
 const inputClasses = (error: string | undefined) => `block min-h-tap w-full rounded-md border bg-white px-2 ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`;
 
@@ -243,10 +249,11 @@ function FaceFields({
     const name = `faces.${index}.${column}`;
     const error = form.fieldError(name);
     const id = `${form.id}-${index}-${column}`;
+    const hint = column === 'top_mm' && row.topAssumed && row.top_mm.trim() === '' && (row.left !== 'verge' || row.right !== 'verge') ? TOP_ASSUMED_HINT : null;
     const common = {
       id,
       'aria-invalid': error ? true : undefined,
-      'aria-describedby': error ? `${id}-error` : undefined,
+      'aria-describedby': [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean).join(' ') || undefined,
       className: `block min-h-tap w-full rounded-md border bg-white px-2 ${error ? 'border-brick-600 ring-1 ring-brick-600' : 'border-ink-300'}`,
     } as const;
     const control =
@@ -283,6 +290,11 @@ function FaceFields({
           {LABELS[column]}
         </label>
         {control}
+        {hint ? (
+          <p id={`${id}-hint`} className="mt-1 text-sm font-medium text-brick-700">
+            {hint}
+          </p>
+        ) : null}
         {error ? <FieldMessage id={`${id}-error`}>{error}</FieldMessage> : null}
       </div>
     );
