@@ -11,7 +11,7 @@ import {
   type OpeningProblem,
 } from '../schemas/openings.schema';
 import { SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from '../schemas/schedule.schema';
-import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, readNumber } from './csv-read';
+import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, readNumber, trimCell } from './csv-read';
 import type { InputProblem } from './result';
 import type { ScheduleFaceIndex } from './schedule-parse';
 
@@ -127,7 +127,7 @@ class OpeningsReader {
 
   private text(c: 'building' | 'face', fallback: string | null): string {
     const i = this.col[c];
-    const v = (i >= 0 ? (this.cells[i] ?? '') : '').trim();
+    const v = trimCell(i >= 0 ? (this.cells[i] ?? '') : '');
     if (v === '') {
       if (fallback === null) this.problem(c, SCHEDULE_MESSAGES.required);
       return fallback ?? '';
@@ -163,7 +163,7 @@ class OpeningsReader {
     this.bad = false;
     const building = this.text('building', '1');
     const face = this.text('face', null);
-    const rawKind = (cells[this.col.kind] ?? '').trim();
+    const rawKind = trimCell(cells[this.col.kind] ?? '');
     let kind: OpeningKind | undefined;
     if (rawKind === '') this.problem('kind', SCHEDULE_MESSAGES.required);
     else {
