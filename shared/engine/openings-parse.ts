@@ -67,6 +67,22 @@ class OpeningRow implements Opening {
   }
 }
 
+/** A kind written as the file's own word (no regex needed), or undefined. */
+function knownKind(cell: string): OpeningKind | undefined {
+  switch (cell) {
+    case 'roof_window':
+      return 'roof_window';
+    case 'chimney':
+      return 'chimney';
+    case 'dormer':
+      return 'dormer';
+    case 'hatch':
+      return 'hatch';
+    default:
+      return undefined;
+  }
+}
+
 type OpeningsWarning = { code: 'unknown_column'; building: null; face: null; message: string };
 
 /** The state of one openings file being read, fed by papaparse a chunk of rows at a time. */
@@ -84,6 +100,7 @@ class OpeningsReader {
   private cells: readonly string[] = [];
   private row = 0;
   private bad = false;
+  private lastBuilding = '';
 
   constructor(private readonly decimalComma: boolean) {}
 
@@ -161,16 +178,22 @@ class OpeningsReader {
     this.cells = cells;
     this.row = row;
     this.bad = false;
-    const building = this.text('building', '1');
+    let building = this.text('building', '1');
+    // The openings of a building share one copy of its name.
+    if (building === this.lastBuilding) building = this.lastBuilding;
+    else this.lastBuilding = building;
     const face = this.text('face', null);
     const rawKind = trimCell(cells[this.col.kind] ?? '');
-    let kind: OpeningKind | undefined;
-    if (rawKind === '') this.problem('kind', SCHEDULE_MESSAGES.required);
-    else {
-      const k = normaliseOpeningKind(rawKind);
-      const p = openingKindProblem(k);
-      if (p) this.problem('kind', p.replace(`'${k}'`, `'${rawKind}'`));
-      else kind = k as OpeningKind;
+    // The usual spelling is read without a regex, and the opening keeps the program's own word.
+    let kind = knownKind(rawKind);
+    if (kind === undefined) {
+      if (rawKind === '') this.problem('kind', SCHEDULE_MESSAGES.required);
+      else {
+        const k = normaliseOpeningKind(rawKind);
+        const p = openingKindProblem(k);
+        if (p) this.problem('kind', p.replace(`'${k}'`, `'${rawKind}'`));
+        else kind = k as OpeningKind;
+      }
     }
     const width = this.number('width_mm', true);
     const height = this.number('height_mm', true);

@@ -168,6 +168,10 @@ export function resolveFace(c: FaceCandidate): Face {
   return new ResolvedFace(c);
 }
 
+/** The pitch of the last face resolved and its cosine. */
+let lastPitch = NaN;
+let lastCos = NaN;
+
 /**
  * A checked face. Built by a constructor, not an object literal: V8 moves objects from a literal whose
  * copies all outlive a young-generation collection straight into the old generation from then on, and
@@ -190,7 +194,12 @@ class ResolvedFace {
   declare top_assumed?: boolean;
 
   constructor(c: FaceCandidate) {
-    const cos = Math.cos((c.pitch_deg * Math.PI) / 180);
+    // Faces of one roof mostly share a pitch: its cosine is worked out once for them.
+    if (c.pitch_deg !== lastPitch) {
+      lastPitch = c.pitch_deg;
+      lastCos = Math.cos((c.pitch_deg * Math.PI) / 180);
+    }
+    const cos = lastCos;
     const rafter = c.rafter_mm ?? (c.run_mm as number) / cos;
     const bothVerges = c.left === 'verge' && c.right === 'verge';
     this.building = c.building;
