@@ -65,9 +65,14 @@ function isAsciiSpace(c: number): boolean {
   return c === 32 || (c >= 9 && c <= 13);
 }
 
-/** Hash h carried over the key's characters (a key made by faceKey's rule: no outer spaces, lower case). */
+/**
+ * Hash h carried over a key's characters (a key made by faceKey's rule: no outer spaces, lower case).
+ * Each character is hashed with its 0x20 bit set: lower-casing an ASCII letter sets that bit, so a
+ * plain ASCII name hashes as its key without being lowered (characters that differ only in that bit
+ * merely share a hash, and names are compared in full).
+ */
 function hashChars(h: number, key: string): number {
-  for (let i = 0; i < key.length; i++) h = Math.imul(h ^ key.charCodeAt(i), HASH_PRIME);
+  for (let i = 0; i < key.length; i++) h = Math.imul(h ^ (key.charCodeAt(i) | 32), HASH_PRIME);
   return h;
 }
 
@@ -83,13 +88,13 @@ function hashName(h: number, name: string): number {
   while (start < end && isAsciiSpace(name.charCodeAt(start))) start++;
   while (end > start && isAsciiSpace(name.charCodeAt(end - 1))) end--;
   let x = h;
+  let seen = 0;
   for (let i = start; i < end; i++) {
-    let c = name.charCodeAt(i);
-    if (c >= 128) return hashChars(h, name.trim().toLowerCase());
-    if (c >= 65 && c <= 90) c += 32;
-    x = Math.imul(x ^ c, HASH_PRIME);
+    const c = name.charCodeAt(i);
+    seen |= c;
+    x = Math.imul(x ^ (c | 32), HASH_PRIME);
   }
-  return x;
+  return seen < 128 ? x : hashChars(h, name.trim().toLowerCase());
 }
 
 /** A building's hash carried on to one of its faces. */

@@ -168,9 +168,8 @@ export function resolveFace(c: FaceCandidate): Face {
   return new ResolvedFace(c);
 }
 
-/** The pitch of the last face resolved and its cosine. */
-let lastPitch = NaN;
-let lastCos = NaN;
+/** The pitch of the last face resolved and its cosine (in a typed array: no number boxed per pitch). */
+const lastPitchCos = new Float64Array([NaN, NaN]);
 
 /**
  * A checked face. Built by a constructor, not an object literal: V8 moves objects from a literal whose
@@ -195,11 +194,11 @@ class ResolvedFace {
 
   constructor(c: FaceCandidate) {
     // Faces of one roof mostly share a pitch: its cosine is worked out once for them.
-    if (c.pitch_deg !== lastPitch) {
-      lastPitch = c.pitch_deg;
-      lastCos = Math.cos((c.pitch_deg * Math.PI) / 180);
+    if (c.pitch_deg !== lastPitchCos[0]) {
+      lastPitchCos[0] = c.pitch_deg;
+      lastPitchCos[1] = Math.cos((c.pitch_deg * Math.PI) / 180);
     }
-    const cos = lastCos;
+    const cos = lastPitchCos[1];
     const rafter = c.rafter_mm ?? (c.run_mm as number) / cos;
     const bothVerges = c.left === 'verge' && c.right === 'verge';
     this.building = c.building;
