@@ -217,7 +217,13 @@ class OpeningsReader {
           const o = this.openings[k];
           const at = index.find(o.building, o.face);
           faceOf[k] = at;
-          checkOpeningInFace(o, k, at < 0 ? undefined : faces[at], problems);
+          const face = at < 0 ? undefined : faces[at];
+          // An opening named as its face is keeps the face's copies of the names, not the cells'.
+          if (face !== undefined) {
+            if (o.face === face.face) o.face = face.face;
+            if (o.building === face.building) o.building = face.building;
+          }
+          checkOpeningInFace(o, k, face, problems);
         }
       } else problems = checkOpeningsAgainstFaces(this.openings, faces);
       for (const p of problems) errors.push({ row: this.rowOf[p.index], column: p.column, message: p.message });

@@ -252,6 +252,7 @@ class ScheduleReader {
   readonly names: ScheduleFaceIndex;
   private lastBuilding = '';
   private lastBuildingHash = 0;
+  private lastRidge = '';
   private readonly candidate: FaceCandidate = {
     building: '',
     face: '',
@@ -279,8 +280,8 @@ class ScheduleReader {
     textLength: number,
   ) {
     this.cells = new RowReader(this.col, delimiter !== ',', this.errors);
-    // A schedule's row takes some 40 characters or more.
-    this.names = new ScheduleFaceIndex(this.faces, textLength >> 5);
+    // A schedule's row takes some 30 to 80 characters: the table grows when the guess is short.
+    this.names = new ScheduleFaceIndex(this.faces, textLength >> 6);
   }
 
   chunk(results: Papa.ParseResult<string[]>) {
@@ -377,7 +378,10 @@ class ScheduleReader {
     const left = reader.edge('left', col.left);
     const right = reader.edge('right', col.right);
     const topKind = reader.topEdge(col.top);
-    const ridgeName = col.ridge >= 0 ? reader.text('ridge', col.ridge, '') : '';
+    let ridgeName = col.ridge >= 0 ? reader.text('ridge', col.ridge, '') : '';
+    // Faces meeting one ridge usually follow each other: they share one copy of its name.
+    if (ridgeName === this.lastRidge) ridgeName = this.lastRidge;
+    else this.lastRidge = ridgeName;
 
     // A face name given for the first time is filed at the end of its row, with the face it gave.
     let hash = 0;
