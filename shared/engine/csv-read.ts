@@ -99,9 +99,23 @@ export function normaliseHeader(raw: string): string {
     .replace(/[\s-]+/g, '_');
 }
 
+/** True when a character is printable ASCII other than a space: a cell starting or ending with one needs no trim(). */
+function isPlainEnd(c: number): boolean {
+  return c > 32 && c < 127;
+}
+
+/** A cell without its outer spaces; trim() is called only when an end of the cell may be a space. */
+export function trimCell(cell: string): string {
+  const n = cell.length;
+  return n === 0 || (isPlainEnd(cell.charCodeAt(0)) && isPlainEnd(cell.charCodeAt(n - 1))) ? cell : cell.trim();
+}
+
 /** True when every cell of a row is blank. */
 export function isBlankRow(cells: readonly string[]): boolean {
-  for (let i = 0; i < cells.length; i++) if (cells[i].trim() !== '') return false;
+  for (let i = 0; i < cells.length; i++) {
+    const cell = cells[i];
+    if (cell.length > 0 && (isPlainEnd(cell.charCodeAt(0)) || cell.trim() !== '')) return false;
+  }
   return true;
 }
 
@@ -125,9 +139,22 @@ function isPlainDecimal(s: string, point: number): boolean {
  * only when the delimiter is not a comma (a semicolon-delimited export from a comma-decimal locale).
  */
 export function readNumber(raw: string, decimalComma: boolean): number | null {
+  // Whole millimetres and degrees, the usual cell, are added up digit by digit (exact below 2^53),
+  // before any trim().
+  const n = raw.length;
+  if (n === 0) return null;
+  if (n <= 15) {
+    let v = 0;
+    let i = 0;
+    for (; i < n; i++) {
+      const ch = raw.charCodeAt(i);
+      if (ch < 48 || ch > 57) break;
+      v = v * 10 + (ch - 48);
+    }
+    if (i === n) return v;
+  }
   const s = raw.trim();
   if (s === '') return null;
-  // Whole millimetres and degrees, the usual cell, are added up digit by digit (exact below 2^53).
   if (s.length <= 15) {
     let v = 0;
     let i = 0;

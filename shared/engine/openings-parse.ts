@@ -11,7 +11,7 @@ import {
   type OpeningProblem,
 } from '../schemas/openings.schema';
 import { SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from '../schemas/schedule.schema';
-import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, readNumber } from './csv-read';
+import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, readNumber, trimCell } from './csv-read';
 import type { InputProblem } from './result';
 import type { ScheduleFaceIndex } from './schedule-parse';
 
@@ -67,6 +67,22 @@ class OpeningRow implements Opening {
   }
 }
 
+/** A kind written as the file's own word (no regex needed), or undefined. */
+function knownKind(cell: string): OpeningKind | undefined {
+  switch (cell) {
+    case 'roof_window':
+      return 'roof_window';
+    case 'chimney':
+      return 'chimney';
+    case 'dormer':
+      return 'dormer';
+    case 'hatch':
+      return 'hatch';
+    default:
+      return undefined;
+  }
+}
+
 type OpeningsWarning = { code: 'unknown_column'; building: null; face: null; message: string };
 
 /** The state of one openings file being read, fed by papaparse a chunk of rows at a time. */
@@ -84,6 +100,7 @@ class OpeningsReader {
   private cells: readonly string[] = [];
   private row = 0;
   private bad = false;
+  private lastBuilding = '';
 
   constructor(private readonly decimalComma: boolean) {}
 
@@ -127,7 +144,7 @@ class OpeningsReader {
 
   private text(c: 'building' | 'face', fallback: string | null): string {
     const i = this.col[c];
-    const v = (i >= 0 ? (this.cells[i] ?? '') : '').trim();
+    const v = trimCell(i >= 0 ? (this.cells[i] ?? '') : '');
     if (v === '') {
       if (fallback === null) this.problem(c, SCHEDULE_MESSAGES.required);
       return fallback ?? '';
@@ -161,16 +178,22 @@ class OpeningsReader {
     this.cells = cells;
     this.row = row;
     this.bad = false;
-    const building = this.text('building', '1');
+    let building = this.text('building', '1');
+    // The openings of a building share one copy of its name.
+    if (building === this.lastBuilding) building = this.lastBuilding;
+    else this.lastBuilding = building;
     const face = this.text('face', null);
-    const rawKind = (cells[this.col.kind] ?? '').trim();
-    let kind: OpeningKind | undefined;
-    if (rawKind === '') this.problem('kind', SCHEDULE_MESSAGES.required);
-    else {
-      const k = normaliseOpeningKind(rawKind);
-      const p = openingKindProblem(k);
-      if (p) this.problem('kind', p.replace(`'${k}'`, `'${rawKind}'`));
-      else kind = k as OpeningKind;
+    const rawKind = trimCell(cells[this.col.kind] ?? '');
+    // The usual spelling is read without a regex, and the opening keeps the program's own word.
+    let kind = knownKind(rawKind);
+    if (kind === undefined) {
+      if (rawKind === '') this.problem('kind', SCHEDULE_MESSAGES.required);
+      else {
+        const k = normaliseOpeningKind(rawKind);
+        const p = openingKindProblem(k);
+        if (p) this.problem('kind', p.replace(`'${k}'`, `'${rawKind}'`));
+        else kind = k as OpeningKind;
+      }
     }
     const width = this.number('width_mm', true);
     const height = this.number('height_mm', true);
@@ -194,7 +217,13 @@ class OpeningsReader {
           const o = this.openings[k];
           const at = index.find(o.building, o.face);
           faceOf[k] = at;
-          checkOpeningInFace(o, k, at < 0 ? undefined : faces[at], problems);
+          const face = at < 0 ? undefined : faces[at];
+          // An opening named as its face is keeps the face's copies of the names, not the cells'.
+          if (face !== undefined) {
+            if (o.face === face.face) o.face = face.face;
+            if (o.building === face.building) o.building = face.building;
+          }
+          checkOpeningInFace(o, k, face, problems);
         }
       } else problems = checkOpeningsAgainstFaces(this.openings, faces);
       for (const p of problems) errors.push({ row: this.rowOf[p.index], column: p.column, message: p.message });

@@ -89,3 +89,54 @@ describe('reading a roof system', () => {
     expect(fieldPath(['tile', 'headlap_mm', 2, 'min_mm'])).toBe('tile.headlap_mm[2].min_mm');
   });
 });
+
+describe('reading the same roof system again', () => {
+  const slate = () => ({
+    tile: { kind: 'double_lap', length_mm: 500, width_mm: 250, headlap_mm: [{ from_pitch_deg: 22.5, min_mm: 100 }], weight_kg: 2.2, per_pallet: 600 },
+    verge: { kind: 'dry' },
+  });
+  const systemOf = (input: unknown) => {
+    const r = parseRoofSystem(input);
+    if (!r.ok) throw new Error(JSON.stringify(r.errors));
+    return r.system;
+  };
+
+  it('gives each caller a system of its own, however often the same input is read', () => {
+    const input = slate();
+    const first = systemOf(input);
+    const again = systemOf(input);
+    const likeIt = systemOf(slate());
+    expect(again).toEqual(first);
+    expect(likeIt).toEqual(first);
+    expect(again).not.toBe(first);
+    expect(again.tile.headlap_mm).not.toBe(first.tile.headlap_mm);
+    // A caller changing what it was given changes nothing for the next caller.
+    again.tile.headlap_mm[0].min_mm = 1;
+    again.truck.payload_kg = 1;
+    expect(systemOf(input)).toEqual(first);
+    expect(systemOf(undefined).tile).toEqual(systemOf({}).tile);
+  });
+
+  it('reads an input again after its caller changed it', () => {
+    const input = slate();
+    expect(systemOf(input).tile.length_mm).toBe(500);
+    input.tile.length_mm = 600;
+    expect(systemOf(input).tile.length_mm).toBe(600);
+    input.tile.headlap_mm.push({ from_pitch_deg: 30, min_mm: 75 });
+    expect(systemOf(input).tile.headlap_mm).toEqual([
+      { from_pitch_deg: 22.5, min_mm: 100 },
+      { from_pitch_deg: 30, min_mm: 75 },
+    ]);
+    (input.verge as Record<string, unknown>).unit_kg = -1;
+    expect(parseRoofSystem(input)).toEqual({ ok: false, errors: [{ field: 'verge.unit_kg', message: 'must be 0 or more' }] });
+  });
+
+  it('reads an input that is not plain data through the schema every time', () => {
+    let length = 500;
+    const input = slate();
+    Object.defineProperty(input.tile, 'length_mm', { enumerable: true, get: () => length });
+    expect(systemOf(input).tile.length_mm).toBe(500);
+    length = 450;
+    expect(systemOf(input).tile.length_mm).toBe(450);
+  });
+});

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { roofSystemSchema } from '../schemas/roof-system.schema';
-import { faceSchema } from '../schemas/schedule.schema';
+import { faceKey, faceSchema } from '../schemas/schedule.schema';
 import { EXAMPLE_SCHEDULE_CSV } from './example-schedule';
-import { CSV_CHUNK_CHARS, detectDelimiter, parseScheduleCsv } from './schedule-parse';
+import { parseOpeningsCsv, readOpeningsCsv } from './openings-parse';
+import { CSV_CHUNK_CHARS, detectDelimiter, parseScheduleCsv, readScheduleCsv } from './schedule-parse';
 
 const sys = roofSystemSchema.parse({});
 const HEADER = 'building,face,quantity,pitch_deg,rafter_mm,run_mm,eaves_mm,top_mm,left,right,top';
@@ -185,5 +186,44 @@ describe('rejecting a schedule', () => {
     expect(errorsOf(csv)).toEqual([{ row: n - 7 + 1, column: 'eaves_mm', message: "must be a number, not 'oops'" }]);
     rows[n - 7] = rows[n - 7].replace('oops', '9000');
     expect(facesOf(rows.join('\r\n')).faces).toHaveLength(n);
+  });
+});
+
+// Names that differ only in case or outer spaces, and names whose lower case is not the ASCII rule's:
+// the Kelvin sign lowers to "k", a dotted capital I to "i" and a combining dot, "ß" upper-cases to "SS"
+// but "SS" lowers to "ss", and a no-break space is an outer space to trim().
+const NAMES = ['Front', 'FRONT', ' front\t', '\u00a0Front', 'Kelvin', '\u212aelvin', 'kELVIN', 'İsle', 'i\u0307sle', 'ISLE', 'Straße', 'STRASSE', 'strasse', 'Σ roof', 'σ ROOF', 'Back'];
+const quoted = (s: string) => `"${s}"`;
+
+describe('finding faces by name', () => {
+  it('finds a duplicate face exactly when faceKey gives both the same key, whatever its letters', () => {
+    const rows = NAMES.map((n, i) => `${i % 2 === 0 ? 'Oak' : ' OAK '},${quoted(n)},1,35,4000,,9000,,,,`);
+    const expected: Array<{ row: number; column: string; message: string }> = [];
+    NAMES.forEach((n, j) => {
+      const first = NAMES.findIndex((m) => faceKey('oak', m) === faceKey('oak', n));
+      const building = j % 2 === 0 ? 'Oak' : 'OAK';
+      if (first < j) expected.push({ row: j + 2, column: 'face', message: `duplicate face '${n.trim()}' in building '${building}' (first at row ${first + 2})` });
+    });
+    // Kelvin, İsle, Straße/strasse, Σ and Front each come back more than once.
+    expect(expected.length).toBeGreaterThanOrEqual(8);
+    expect(errorsOf(`${HEADER}\n${rows.join('\n')}\n`)).toEqual(expected);
+  });
+
+  it("finds each opening's face by name as faceKey compares them, through the reader's index and without it", () => {
+    const faces = NAMES.filter((n, i) => NAMES.findIndex((m) => faceKey('oak', m) === faceKey('oak', n)) === i);
+    const csv = `${HEADER}\n${faces.map((n) => `Oak,${quoted(n)},1,35,4000,,9000,,,,`).join('\n')}\n`;
+    const asked = [...NAMES, 'kelvın', 'Stra\u00dfe ', 'Fronts', 'Σ ROOF', 'ς roof'];
+    const read = readScheduleCsv(csv, sys);
+    if (!read.parsed.ok) throw new Error(JSON.stringify(read.parsed.errors));
+    const expected = asked.map((n) => faces.findIndex((f) => faceKey('Oak', f) === faceKey(' oak', n)));
+    expect(expected.filter((at) => at < 0).length).toBe(3);
+    for (const [k, name] of asked.entries()) {
+      const one = `building,face,kind,width_mm,height_mm\n oak ,${quoted(name)},hatch,600,900\n`;
+      const withIndex = readOpeningsCsv(one, read.parsed.faces, read.index);
+      const without = parseOpeningsCsv(one, read.parsed.faces);
+      expect(withIndex.parsed.ok).toBe(expected[k] >= 0);
+      expect(withIndex.parsed).toEqual(without);
+      expect(withIndex.faceOf).toEqual(expected[k] >= 0 ? [expected[k]] : null);
+    }
   });
 });

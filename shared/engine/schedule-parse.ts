@@ -51,43 +51,194 @@ export function readScheduleCsv(text: string, system?: RoofSystem): ScheduleRead
     };
   }
   const delimiter = detectDelimiter(body);
-  const reader = new ScheduleReader(delimiter, system ? lowestPitch(system.tile.headlap_mm) : -Infinity);
+  const reader = new ScheduleReader(delimiter, system ? lowestPitch(system.tile.headlap_mm) : -Infinity, body.length);
   readCsvChunks(body, delimiter, reader);
   const parsed = reader.finish();
-  return { parsed, index: parsed.ok ? new ScheduleFaceIndex(reader.seen, reader.rowOfFace) : null };
+  return { parsed, index: parsed.ok ? reader.names : null };
+}
+
+// FNV-1a over the characters of a name's key.
+const HASH_START = 0x811c9dc5 | 0;
+const HASH_PRIME = 16777619;
+
+function isAsciiSpace(c: number): boolean {
+  return c === 32 || (c >= 9 && c <= 13);
 }
 
 /**
- * The faces of an accepted schedule by building and face name, both without case or outer spaces (as
- * faceKey compares them): the names the reader filed to find duplicates, so nothing is filed twice.
+ * Hash h carried over a key's characters (a key made by faceKey's rule: no outer spaces, lower case).
+ * Each character is hashed with its 0x20 bit set: lower-casing an ASCII letter sets that bit, so a
+ * plain ASCII name hashes as its key without being lowered (characters that differ only in that bit
+ * merely share a hash, and names are compared in full).
+ */
+function hashChars(h: number, key: string): number {
+  for (let i = 0; i < key.length; i++) h = Math.imul(h ^ (key.charCodeAt(i) | 32), HASH_PRIME);
+  return h;
+}
+
+/**
+ * Hash h carried over the key of a name, compared as faceKey compares it (without case or outer
+ * spaces). A plain ASCII name is hashed as it stands, with no key string made; any other goes
+ * through trim() and toLowerCase() themselves, whose rules (Unicode spaces, letters that lower to
+ * ASCII or to two characters) the hash then follows exactly.
+ */
+function hashName(h: number, name: string): number {
+  let start = 0;
+  let end = name.length;
+  while (start < end && isAsciiSpace(name.charCodeAt(start))) start++;
+  while (end > start && isAsciiSpace(name.charCodeAt(end - 1))) end--;
+  let x = h;
+  let seen = 0;
+  for (let i = start; i < end; i++) {
+    const c = name.charCodeAt(i);
+    seen |= c;
+    x = Math.imul(x ^ (c | 32), HASH_PRIME);
+  }
+  return seen < 128 ? x : hashChars(h, name.trim().toLowerCase());
+}
+
+/** A building's hash carried on to one of its faces. */
+function faceHash(buildingHash: number, face: string): number {
+  return hashName(Math.imul(buildingHash ^ 0x1f, HASH_PRIME), face);
+}
+
+function isAscii(s: string): boolean {
+  for (let i = 0; i < s.length; i++) if (s.charCodeAt(i) >= 128) return false;
+  return true;
+}
+
+/** True when two names have the same key (faceKey's rule), without making the keys of plain ASCII names. */
+function sameName(a: string, b: string): boolean {
+  if (a === b) return true;
+  let as = 0;
+  let ae = a.length;
+  let bs = 0;
+  let be = b.length;
+  while (as < ae && isAsciiSpace(a.charCodeAt(as))) as++;
+  while (ae > as && isAsciiSpace(a.charCodeAt(ae - 1))) ae--;
+  while (bs < be && isAsciiSpace(b.charCodeAt(bs))) bs++;
+  while (be > bs && isAsciiSpace(b.charCodeAt(be - 1))) be--;
+  if (ae - as === be - bs) {
+    let i = 0;
+    for (; as + i < ae; i++) {
+      let ca = a.charCodeAt(as + i);
+      let cb = b.charCodeAt(bs + i);
+      if (ca >= 128 || cb >= 128) break;
+      if (ca >= 65 && ca <= 90) ca += 32;
+      if (cb >= 65 && cb <= 90) cb += 32;
+      if (ca !== cb) break;
+    }
+    if (as + i === ae) return true;
+  }
+  if (isAscii(a) && isAscii(b)) return false;
+  return a.trim().toLowerCase() === b.trim().toLowerCase();
+}
+
+/**
+ * The face names of a schedule by building and name, both without case or outer spaces (as faceKey
+ * compares them): the reader files each name once to find duplicates, and the openings are found
+ * through the same entries. An open-addressed table of hashes in typed arrays: no key string, map or
+ * object per face; an entry points at its face (or, for a row that gave none, at its names kept aside).
  */
 export class ScheduleFaceIndex {
+  /** Entry + 1 per slot, 0 when empty; a power of two, at most half full. */
+  private slots: Int32Array;
+  private hashes: Int32Array;
+  private rows: Int32Array;
+  /** The face's index in the schedule's faces, or -1 - k for the k-th row that gave no face. */
+  private refs: Int32Array;
+  private count = 0;
+  /** Building and face name of each filed row that gave no face. */
+  private readonly otherNames: string[] = [];
   private lastBuilding: string | null = null;
-  private lastFaces: Map<string, number> | undefined;
+  private lastHash = 0;
+
   constructor(
-    private readonly seen: ReadonlyMap<string, Map<string, number>>,
-    private readonly rowOfFace: readonly number[],
-  ) {}
+    private readonly faces: readonly Face[],
+    expected: number,
+  ) {
+    let size = 64;
+    while (size < 2 * expected) size *= 2;
+    this.slots = new Int32Array(size);
+    this.hashes = new Int32Array(size >> 1);
+    this.rows = new Int32Array(size >> 1);
+    this.refs = new Int32Array(size >> 1);
+  }
 
   /** The face's index in the schedule's faces, or -1 when the schedule has no such face. */
   find(building: string, face: string): number {
     if (building !== this.lastBuilding) {
       this.lastBuilding = building;
-      this.lastFaces = this.seen.get(building.trim().toLowerCase());
+      this.lastHash = hashName(HASH_START, building);
     }
-    const row = this.lastFaces?.get(face.trim().toLowerCase());
-    if (row === undefined) return -1;
-    // Faces are kept in row order: the face of a row is found by halving.
-    const rows = this.rowOfFace;
-    let lo = 0;
-    let hi = rows.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (rows[mid] < row) lo = mid + 1;
-      else hi = mid;
-    }
-    return lo < rows.length && rows[lo] === row ? lo : -1;
+    const e = this.entry(faceHash(this.lastHash, face), building, face);
+    // An index is given only for a schedule whose every filed row gave a face.
+    return e < 0 || this.refs[e] < 0 ? -1 : this.refs[e];
   }
+
+  /** The entry filed under this building and face name (hash from faceHash), or -1. */
+  entry(hash: number, building: string, face: string): number {
+    const slots = this.slots;
+    const mask = slots.length - 1;
+    for (let s = hash & mask; ; s = (s + 1) & mask) {
+      const e = slots[s] - 1;
+      if (e < 0) return -1;
+      if (this.hashes[e] === hash && sameName(this.buildingOf(e), building) && sameName(this.faceOf(e), face)) return e;
+    }
+  }
+
+  /** The spreadsheet row an entry was first given at. */
+  rowOf(e: number): number {
+    return this.rows[e];
+  }
+
+  /** Files a name not filed before: its face's index, or -1 when its row gave no face. */
+  file(hash: number, row: number, building: string, face: string, faceIndex: number) {
+    if (2 * (this.count + 1) > this.slots.length) this.grow();
+    const e = this.count++;
+    if (e === this.rows.length) {
+      this.hashes = larger(this.hashes);
+      this.rows = larger(this.rows);
+      this.refs = larger(this.refs);
+    }
+    this.hashes[e] = hash;
+    this.rows[e] = row;
+    if (faceIndex >= 0) this.refs[e] = faceIndex;
+    else {
+      this.refs[e] = -1 - (this.otherNames.length >> 1);
+      this.otherNames.push(building, face);
+    }
+    this.place(e, hash);
+  }
+
+  private buildingOf(e: number): string {
+    const ref = this.refs[e];
+    return ref >= 0 ? this.faces[ref].building : this.otherNames[2 * (-1 - ref)];
+  }
+
+  private faceOf(e: number): string {
+    const ref = this.refs[e];
+    return ref >= 0 ? this.faces[ref].face : this.otherNames[2 * (-1 - ref) + 1];
+  }
+
+  private place(e: number, hash: number) {
+    const slots = this.slots;
+    const mask = slots.length - 1;
+    let s = hash & mask;
+    while (slots[s] !== 0) s = (s + 1) & mask;
+    slots[s] = e + 1;
+  }
+
+  private grow() {
+    this.slots = new Int32Array(this.slots.length * 2);
+    for (let e = 0; e < this.count; e++) this.place(e, this.hashes[e]);
+  }
+}
+
+function larger(a: Int32Array): Int32Array {
+  const b = new Int32Array(a.length * 2);
+  b.set(a);
+  return b;
 }
 
 /** The state of one schedule being read, fed by papaparse a chunk of rows at a time. */
@@ -97,12 +248,11 @@ class ScheduleReader {
   readonly faces: Face[] = [];
   private readonly col = Object.fromEntries(SCHEDULE_COLUMNS.map((c) => [c, -1])) as ColumnIndex;
   private readonly cells: RowReader;
-  // Face names by building, both without case, to the row that first gave them.
-  readonly seen = new Map<string, Map<string, number>>();
-  /** The row each face was read from. */
-  readonly rowOfFace: number[] = [];
+  /** Face names by building, both without case, to the row that first gave them. */
+  readonly names: ScheduleFaceIndex;
   private lastBuilding = '';
-  private lastNames: Map<string, number> | null = null;
+  private lastBuildingHash = 0;
+  private lastRidge = '';
   private readonly candidate: FaceCandidate = {
     building: '',
     face: '',
@@ -127,8 +277,11 @@ class ScheduleReader {
   constructor(
     private readonly delimiter: string,
     private readonly lowestPitch: number,
+    textLength: number,
   ) {
     this.cells = new RowReader(this.col, delimiter !== ',', this.errors);
+    // A schedule's row takes some 30 to 80 characters: the table grows when the guess is short.
+    this.names = new ScheduleFaceIndex(this.faces, textLength >> 6);
   }
 
   chunk(results: Papa.ParseResult<string[]>) {
@@ -205,8 +358,12 @@ class ScheduleReader {
     }
 
     let building = reader.text('building', col.building, '1');
-    // The faces of a building share one copy of its name.
+    // The faces of a building share one copy of its name, and its name is hashed once for them all.
     if (building === this.lastBuilding) building = this.lastBuilding;
+    else {
+      this.lastBuilding = building;
+      this.lastBuildingHash = hashName(HASH_START, building);
+    }
     const faceName = reader.text('face', col.face, null);
     const quantity = reader.number('quantity', col.quantity, false, CHECK_QUANTITY) ?? 1;
     let pitch = reader.number('pitch_deg', col.pitch_deg, true, CHECK_PITCH);
@@ -221,54 +378,50 @@ class ScheduleReader {
     const left = reader.edge('left', col.left);
     const right = reader.edge('right', col.right);
     const topKind = reader.topEdge(col.top);
-    const ridgeName = col.ridge >= 0 ? reader.text('ridge', col.ridge, '') : '';
+    let ridgeName = col.ridge >= 0 ? reader.text('ridge', col.ridge, '') : '';
+    // Faces meeting one ridge usually follow each other: they share one copy of its name.
+    if (ridgeName === this.lastRidge) ridgeName = this.lastRidge;
+    else this.lastRidge = ridgeName;
 
+    // A face name given for the first time is filed at the end of its row, with the face it gave.
+    let hash = 0;
+    let fileName = false;
     if (faceName !== '') {
-      // Faces of one building usually follow each other: its names are looked up once for them all.
-      let names = this.lastNames;
-      if (names === null || building !== this.lastBuilding) {
-        const bKey = building.toLowerCase();
-        names = this.seen.get(bKey) ?? null;
-        if (names === null) {
-          names = new Map();
-          this.seen.set(bKey, names);
-        }
-        this.lastBuilding = building;
-        this.lastNames = names;
-      }
-      const fKey = faceName.toLowerCase();
-      const first = names.get(fKey);
-      if (first !== undefined) {
-        reader.bad('face', `duplicate face '${faceName}' in building '${building}' (first at row ${first})`);
-      } else names.set(fKey, row);
+      hash = faceHash(this.lastBuildingHash, faceName);
+      const first = this.names.entry(hash, building, faceName);
+      if (first >= 0) reader.bad('face', `duplicate face '${faceName}' in building '${building}' (first at row ${this.names.rowOf(first)})`);
+      else fileName = true;
     }
 
-    if (reader.rowBad || pitch === undefined || eaves === undefined || faceName === '') return;
-    if (rafter === undefined && run === undefined) {
-      if (reader.present('rafter_mm') || reader.present('run_mm')) reader.bad('rafter_mm', SCHEDULE_MESSAGES.rafterOrRun);
-      return;
+    let faceIndex = -1;
+    if (!reader.rowBad && pitch !== undefined && eaves !== undefined && faceName !== '') {
+      if (rafter === undefined && run === undefined) {
+        if (reader.present('rafter_mm') || reader.present('run_mm')) reader.bad('rafter_mm', SCHEDULE_MESSAGES.rafterOrRun);
+      } else {
+        // One candidate object for the whole file: only the resolved face is kept.
+        const candidate = this.candidate;
+        candidate.building = building;
+        candidate.face = faceName;
+        candidate.quantity = quantity;
+        candidate.pitch_deg = pitch;
+        candidate.rafter_mm = rafter;
+        candidate.run_mm = run;
+        candidate.eaves_mm = eaves;
+        candidate.top_mm = top;
+        candidate.left = left;
+        candidate.right = right;
+        candidate.top = topKind;
+        candidate.ridge = ridgeName === '' ? undefined : ridgeName;
+        const cross = crossCheckFace(candidate);
+        if (cross.length > 0) {
+          for (const p of cross) errors.push({ row, column: p.column, message: p.message });
+        } else {
+          faceIndex = this.faces.length;
+          this.faces.push(resolveFace(candidate));
+        }
+      }
     }
-    // One candidate object for the whole file: only the resolved face is kept.
-    const candidate = this.candidate;
-    candidate.building = building;
-    candidate.face = faceName;
-    candidate.quantity = quantity;
-    candidate.pitch_deg = pitch;
-    candidate.rafter_mm = rafter;
-    candidate.run_mm = run;
-    candidate.eaves_mm = eaves;
-    candidate.top_mm = top;
-    candidate.left = left;
-    candidate.right = right;
-    candidate.top = topKind;
-    candidate.ridge = ridgeName === '' ? undefined : ridgeName;
-    const cross = crossCheckFace(candidate);
-    if (cross.length > 0) {
-      for (const p of cross) errors.push({ row, column: p.column, message: p.message });
-      return;
-    }
-    this.faces.push(resolveFace(candidate));
-    this.rowOfFace.push(row);
+    if (fileName) this.names.file(hash, row, building, faceName, faceIndex);
   }
 
   finish(): ScheduleParse {

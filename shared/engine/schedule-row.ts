@@ -11,7 +11,7 @@ import {
   type ScheduleColumn,
   type TopKind,
 } from '../schemas/schedule.schema';
-import { readNumber } from './csv-read';
+import { readNumber, trimCell } from './csv-read';
 import type { InputProblem } from './result';
 
 /** The cells of one schedule row, read and checked one by one (each problem named by row and column). */
@@ -69,7 +69,7 @@ export class RowReader {
   }
 
   text(c: 'face' | 'building' | 'ridge', i: number, fallback: string | null): string {
-    const v = this.at(i).trim();
+    const v = trimCell(this.at(i));
     if (v === '') {
       if (fallback === null && i >= 0) this.bad(c, SCHEDULE_MESSAGES.required);
       return fallback ?? '';

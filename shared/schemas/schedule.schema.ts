@@ -168,6 +168,9 @@ export function resolveFace(c: FaceCandidate): Face {
   return new ResolvedFace(c);
 }
 
+/** The pitch of the last face resolved and its cosine (in a typed array: no number boxed per pitch). */
+const lastPitchCos = new Float64Array([NaN, NaN]);
+
 /**
  * A checked face. Built by a constructor, not an object literal: V8 moves objects from a literal whose
  * copies all outlive a young-generation collection straight into the old generation from then on, and
@@ -190,7 +193,12 @@ class ResolvedFace {
   declare top_assumed?: boolean;
 
   constructor(c: FaceCandidate) {
-    const cos = Math.cos((c.pitch_deg * Math.PI) / 180);
+    // Faces of one roof mostly share a pitch: its cosine is worked out once for them.
+    if (c.pitch_deg !== lastPitchCos[0]) {
+      lastPitchCos[0] = c.pitch_deg;
+      lastPitchCos[1] = Math.cos((c.pitch_deg * Math.PI) / 180);
+    }
+    const cos = lastPitchCos[1];
     const rafter = c.rafter_mm ?? (c.run_mm as number) / cos;
     const bothVerges = c.left === 'verge' && c.right === 'verge';
     this.building = c.building;
