@@ -458,6 +458,29 @@ export const DEMO_CATALOGUES: DemoMerchant[] = [
 
 const idOf = (row: unknown) => (typeof row === 'object' && row !== null ? (row as { id: number }).id : (row as number));
 
+type Branch = { id: number; priceFactor: number; stockFactor: number };
+type Catalogue = Pick<DemoMerchant, 'products' | 'prices' | 'stock' | 'systems'>;
+
+async function insertProduct(trx: Knex, organisationId: number, p: DemoProduct, now: string): Promise<number> {
+  const [row] = await trx('products')
+    .insert({ organisation_id: organisationId, ...p, technical: JSON.stringify(p.technical), created_at: now, updated_at: now })
+    .returning('id');
+  return idOf(row);
+}
+
+async function sellAt(trx: Knex, b: Branch, merchant: Catalogue, p: DemoProduct, productId: number, now: string): Promise<void> {
+  const [onHand, reorder] = merchant.stock[p.sku];
+  await trx('branch_products').insert({
+    branch_id: b.id,
+    product_id: productId,
+    pack_price: Math.round(merchant.prices[p.sku] * b.priceFactor),
+    on_hand: Math.round(onHand * b.stockFactor),
+    reserved: 0,
+    reorder_level: Math.round(reorder * b.stockFactor),
+    updated_at: now,
+  });
+}
+
 /**
  * Puts one merchant's catalogue into the database: its products, each branch's prices and stock, and
  * every system at every branch given. Returns the ids made, by SKU and by branch.
@@ -465,32 +488,16 @@ const idOf = (row: unknown) => (typeof row === 'object' && row !== null ? (row a
 export async function installCatalogue(
   knex: Knex,
   organisationId: number,
-  branches: { id: number; priceFactor: number; stockFactor: number }[],
-  merchant: Pick<DemoMerchant, 'products' | 'prices' | 'stock' | 'systems'>,
+  branches: Branch[],
+  merchant: Catalogue,
 ): Promise<{ productIds: Map<string, number>; systemIds: { branchId: number; name: string; id: number }[] }> {
   const now = new Date().toISOString();
   return knex.transaction(async (trx) => {
     const productIds = new Map<string, number>();
     const systemIds: { branchId: number; name: string; id: number }[] = [];
-    for (const p of merchant.products) {
-      const [row] = await trx('products')
-        .insert({ organisation_id: organisationId, ...p, technical: JSON.stringify(p.technical), created_at: now, updated_at: now })
-        .returning('id');
-      productIds.set(p.sku, idOf(row));
-    }
+    for (const p of merchant.products) productIds.set(p.sku, await insertProduct(trx, organisationId, p, now));
     for (const b of branches) {
-      for (const p of merchant.products) {
-        const [onHand, reorder] = merchant.stock[p.sku];
-        await trx('branch_products').insert({
-          branch_id: b.id,
-          product_id: productIds.get(p.sku),
-          pack_price: Math.round(merchant.prices[p.sku] * b.priceFactor),
-          on_hand: Math.round(onHand * b.stockFactor),
-          reserved: 0,
-          reorder_level: Math.round(reorder * b.stockFactor),
-          updated_at: now,
-        });
-      }
+      for (const p of merchant.products) await sellAt(trx, b, merchant, p, productIds.get(p.sku)!, now);
       for (const s of merchant.systems) {
         const [sys] = await trx('roof_systems')
           .insert({
@@ -513,16 +520,57 @@ export async function installCatalogue(
   });
 }
 
-/** Safe to run again: a merchant that already has its first product is left as it is. */
+/**
+ * Brings a catalogue seeded from an earlier demo up to this one without touching what it has: the demo
+ * products it lacks (by SKU), sold at its demo branches, and each demo system's parts for roles it has
+ * no product for. Returns how many products and parts were added.
+ */
+export async function addMissingParts(knex: Knex, organisationId: number, branches: Branch[], merchant: Catalogue): Promise<{ products: number; parts: number }> {
+  const now = new Date().toISOString();
+  return knex.transaction(async (trx) => {
+    const rows = (await trx('products').where({ organisation_id: organisationId }).select('id', 'sku')) as { id: number; sku: string }[];
+    const productIds = new Map(rows.map((r) => [r.sku, r.id]));
+    let products = 0;
+    let parts = 0;
+    for (const p of merchant.products) {
+      if (productIds.has(p.sku)) continue;
+      const id = await insertProduct(trx, organisationId, p, now);
+      productIds.set(p.sku, id);
+      for (const b of branches) await sellAt(trx, b, merchant, p, id, now);
+      products++;
+    }
+    for (const b of branches) {
+      for (const s of merchant.systems) {
+        const sys = (await trx('roof_systems').where({ organisation_id: organisationId, branch_id: b.id, name: s.name }).whereNull('archived_at').first('id')) as { id: number } | undefined;
+        if (!sys) continue;
+        const has = new Set(((await trx('roof_system_components').where({ roof_system_id: sys.id }).select('role')) as { role: string }[]).map((r) => r.role));
+        for (const [role, sku] of Object.entries(s.components)) {
+          if (has.has(role)) continue;
+          await trx('roof_system_components').insert({ roof_system_id: sys.id, role, product_id: productIds.get(sku as string) });
+          parts++;
+        }
+      }
+    }
+    return { products, parts };
+  });
+}
+
+/**
+ * Safe to run again: a merchant seeded before keeps everything it has and gains only the demo products
+ * and system parts it lacks (a demo database from before the fittings gets them).
+ */
 export async function seed(knex: Knex): Promise<void> {
   for (const merchant of DEMO_CATALOGUES) {
     const org = await knex('organisations').where({ name: merchant.organisation, kind: 'merchant' }).first();
     if (!org) continue;
-    if (await knex('products').where({ organisation_id: org.id, sku: merchant.products[0].sku }).first()) continue;
-    const branches: { id: number; priceFactor: number; stockFactor: number }[] = [];
+    const branches: Branch[] = [];
     for (const b of merchant.branches) {
       const branch = await knex('branches').where({ organisation_id: org.id, name: b.name }).first();
       if (branch) branches.push({ id: branch.id, priceFactor: b.priceFactor, stockFactor: b.stockFactor });
+    }
+    if (await knex('products').where({ organisation_id: org.id, sku: merchant.products[0].sku }).first()) {
+      await addMissingParts(knex, org.id, branches, merchant);
+      continue;
     }
     await installCatalogue(knex, org.id, branches, merchant);
   }
