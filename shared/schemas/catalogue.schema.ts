@@ -12,6 +12,8 @@ import { roofSystemSchema } from './roof-system.schema';
  * The parts of a roof system; every role but hip, clip, valley and the fittings is needed for a whole
  * roof. A system with a dry verge product has dry verges; one with a valley trough has trough valleys;
  * eaves tiles, top tiles and tiles-and-a-half are priced as their own products when the system names them.
+ * Valley lining, eaves ventilation, verge undercloak and flashing are sold by the metre: they price the
+ * engine's metre totals (`valley_m`, `eaves_m`, `verge_m` with mortar verges, the flashing runs summed).
  */
 export const SYSTEM_ROLES = [
   'tile',
@@ -30,6 +32,9 @@ export const SYSTEM_ROLES = [
   'dry_verge',
   'ridge_end_cap',
   'hip_iron',
+  'eaves_vent',
+  'verge_undercloak',
+  'flashing',
 ] as const;
 export type SystemRole = (typeof SYSTEM_ROLES)[number];
 
@@ -55,6 +60,9 @@ export const CATEGORY_LABELS: Record<ProductCategory, string> = {
   dry_verge: 'Dry verge units',
   ridge_end_cap: 'Ridge end caps',
   hip_iron: 'Hip irons',
+  eaves_vent: 'Eaves ventilation',
+  verge_undercloak: 'Verge undercloak',
+  flashing: 'Flashing',
   accessory: 'Accessories',
 };
 
@@ -77,6 +85,11 @@ export const clipTechnicalSchema = z.object({ clip_g: positive() });
 export const underlayTechnicalSchema = z.object({ roll_width_mm: positive(), roll_length_mm: positive(), roll_kg: positive() });
 /** A valley lining is sold in lengths: its unit is the metre and its pack_size the metres in one length. */
 export const valleyTechnicalSchema = z.object({ weight_kg: positive() });
+/**
+ * A product sold by the metre (eaves ventilation strip or comb filler, verge undercloak strip, flashing):
+ * its unit is the metre, its pack_size the metres in one length or roll, and weight_kg the weight of one.
+ */
+export const byTheMetreTechnicalSchema = z.object({ weight_kg: positive() });
 /** A piece sold by the count whose weight the engine needs (special tiles, fittings). */
 export const pieceTechnicalSchema = z.object({ weight_kg: positive() });
 /** A preformed valley trough unit: its length and the lap onto the next. */
@@ -99,6 +112,9 @@ export const TECHNICAL_SCHEMAS = {
   dry_verge: pieceTechnicalSchema,
   ridge_end_cap: pieceTechnicalSchema,
   hip_iron: pieceTechnicalSchema,
+  eaves_vent: byTheMetreTechnicalSchema,
+  verge_undercloak: byTheMetreTechnicalSchema,
+  flashing: byTheMetreTechnicalSchema,
   accessory: z.catchall(z.object({}), z.unknown()),
 } satisfies Record<ProductCategory, z.ZodMiniType>;
 

@@ -54,6 +54,9 @@ export const ENGINE_FIGURES = [
   'dry_verge_units',
   'ridge_end_caps',
   'hip_irons',
+  'eaves_m',
+  'verge_m',
+  'flashing_m',
 ] as const;
 export type EngineFigure = (typeof ENGINE_FIGURES)[number];
 

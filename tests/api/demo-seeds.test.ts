@@ -228,3 +228,34 @@ describe('the demo seeds on a fresh database', () => {
     expect(runs.some((r) => r.drops.some((d) => d.status === 'delivered'))).toBe(true);
   });
 });
+
+describe('the demo seeds on a database seeded from an earlier demo', () => {
+  it('give a catalogue seeded before the fittings the demo products and system parts it lacks, and leave what it has', async () => {
+    const [TOLLERBECK] = DEMO_CATALOGUES;
+    const org = (await t.db('organisations').where({ name: TOLLERBECK.organisation, kind: 'merchant' }).first()) as { id: number };
+    const ofOrg = () => t.db('roof_systems').where({ organisation_id: org.id }).select('id');
+    // As an earlier demo left it: no product under the flashing's SKU and no flashing part in any system.
+    const old = (await t.db('products').where({ organisation_id: org.id, sku: 'TRS-FLR-6M' }).first()) as { id: number };
+    await t.db('roof_system_components').where({ role: 'flashing' }).whereIn('roof_system_id', ofOrg()).delete();
+    await t.db('products').where({ id: old.id }).update({ sku: 'TRS-OLD-FLASHING' });
+    const products = async () => Number((await t.db('products').where({ organisation_id: org.id }).count({ n: '*' }).first())?.n);
+    const before = await products();
+    const stock = await t.db('branch_products').orderBy(['branch_id', 'product_id']).select('branch_id', 'product_id', 'pack_price', 'on_hand', 'reserved');
+    const parts = Number((await t.db('roof_system_components').whereIn('roof_system_id', ofOrg()).count({ n: '*' }).first())?.n);
+
+    await runSeeds(t.db);
+
+    const added = (await t.db('products').where({ organisation_id: org.id, sku: 'TRS-FLR-6M' }).first()) as { id: number };
+    expect(added.id).not.toBe(old.id);
+    expect(await products()).toBe(before + 1);
+    // Sold at both branches at the demo price and each branch's factor (pence, rounded).
+    const prices = (await t.db('branch_products').where({ product_id: added.id }).select('pack_price')).map((r) => r.pack_price as number);
+    expect(prices.sort((a, b) => a - b)).toEqual(TOLLERBECK.branches.map((b) => Math.round(TOLLERBECK.prices['TRS-FLR-6M'] * b.priceFactor)).sort((a, b) => a - b));
+    // Every demo system at every branch has its flashing again; nothing else was added or changed.
+    const flashing = await t.db('roof_system_components').where({ role: 'flashing' }).whereIn('roof_system_id', ofOrg()).select('product_id');
+    expect(flashing.map((r) => r.product_id)).toEqual(Array(TOLLERBECK.branches.length * TOLLERBECK.systems.length).fill(added.id));
+    expect(Number((await t.db('roof_system_components').whereIn('roof_system_id', ofOrg()).count({ n: '*' }).first())?.n)).toBe(parts + flashing.length);
+    const after = await t.db('branch_products').whereNot({ product_id: added.id }).orderBy(['branch_id', 'product_id']).select('branch_id', 'product_id', 'pack_price', 'on_hand', 'reserved');
+    expect(after).toEqual(stock);
+  });
+});

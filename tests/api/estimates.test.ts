@@ -163,8 +163,13 @@ describe('making an estimate', () => {
     expect(direct.totals.clips).toBeGreaterThan(0);
     expect(line('clip')).toMatchObject({ sku: 'TRS-CLP-FL', quantity: direct.totals.clips, figure: 'clips' });
     expect(line('clip').packs).toBe(Math.ceil(direct.totals.clips / line('clip').pack_size));
-    // The hipped houses need hip irons, which this system does not sell: listed apart, not dropped.
-    expect(e.not_counted.map((n) => n.category)).toEqual(['hip_iron']);
+    // The system sells every fitting the roof needs: hip irons for the hipped houses, eaves ventilation, an
+    // undercloak for the mortar verges and flashing for the porch's wall, each priced by the engine's figure.
+    expect(e.not_counted).toEqual([]);
+    expect(line('hip_iron')).toMatchObject({ sku: 'TRS-HIR-GV', quantity: direct.totals.hip_irons, figure: 'hip_irons', total: direct.totals.hip_irons * 295 });
+    expect(line('eaves_vent')).toMatchObject({ sku: 'TRS-EVC-5M', quantity: direct.totals.eaves_m, unit: 'm', packs: Math.ceil(direct.totals.eaves_m / 5) });
+    expect(line('verge_undercloak')).toMatchObject({ sku: 'TRS-VUC-2M', quantity: direct.totals.verge_m, packs: Math.ceil(direct.totals.verge_m / 2) });
+    expect(line('flashing')).toMatchObject({ sku: 'TRS-FLR-6M', quantity: direct.totals.flashings.top_abutment_m, figure: 'flashing_m' });
   });
 
   it('lays a plain tile roof at no more than the textbook gauge and about 10 m of batten per m²', async () => {

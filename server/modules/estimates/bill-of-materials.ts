@@ -30,12 +30,15 @@ export interface PricedComponent {
   pack_price: number;
 }
 
+/** Metres to the centimetre, as the engine gives them, without the float slips of a sum. */
+const cm = (m: number) => Math.round(m * 100) / 100;
+
 /**
- * Where each line's quantity comes from in the engine's totals, and the unit it is counted in. A
- * product's unit is the same thing counted (a tile or a slate, a ridge piece, a batten length, a
- * nail, a roll, a metre of valley).
+ * Where each line's quantity comes from in the engine's totals (and the system it was worked out with),
+ * and the unit it is counted in. A product's unit is the same thing counted (a tile or a slate, a ridge
+ * piece, a batten length, a nail, a roll, a metre of valley, eaves, verge or flashing).
  */
-const FIGURES: { category: SystemRole; figure: EngineFigure; unit: string; value: (t: Totals) => number }[] = [
+const FIGURES: { category: SystemRole; figure: EngineFigure; unit: string; value: (t: Totals, s: RoofSystem) => number }[] = [
   { category: 'tile', figure: 'tiles_order', unit: 'tile', value: (t) => t.tiles_order },
   { category: 'eaves_tile', figure: 'eaves_tiles_order', unit: 'tile', value: (t) => t.eaves_tiles_order ?? 0 },
   { category: 'top_tile', figure: 'top_tiles_order', unit: 'tile', value: (t) => t.top_tiles_order ?? 0 },
@@ -53,6 +56,16 @@ const FIGURES: { category: SystemRole; figure: EngineFigure; unit: string; value
   { category: 'dry_verge', figure: 'dry_verge_units', unit: 'piece', value: (t) => t.dry_verge_units ?? 0 },
   { category: 'ridge_end_cap', figure: 'ridge_end_caps', unit: 'piece', value: (t) => t.ridge_end_caps ?? 0 },
   { category: 'hip_iron', figure: 'hip_irons', unit: 'piece', value: (t) => t.hip_irons ?? 0 },
+  { category: 'eaves_vent', figure: 'eaves_m', unit: 'm', value: (t) => t.eaves_m ?? 0 },
+  // A mortar verge is bedded on an undercloak strip; a dry verge unit needs none (its units are their own line).
+  { category: 'verge_undercloak', figure: 'verge_m', unit: 'm', value: (t, s) => (s.verge.kind === 'dry' ? 0 : (t.verge_m ?? 0)) },
+  // Side and top abutments, aprons and back gutters: one flashing product by the metre covers the four runs.
+  {
+    category: 'flashing',
+    figure: 'flashing_m',
+    unit: 'm',
+    value: (t) => (t.flashings ? cm(t.flashings.side_abutment_m + t.flashings.top_abutment_m + t.flashings.apron_m + t.flashings.back_gutter_m) : 0),
+  },
 ];
 
 /** Whole packs for a quantity; the small slack keeps 2000 nails in boxes of 1000 at two boxes. */
@@ -83,6 +96,12 @@ function genericDescription(category: SystemRole, s: RoofSystem): string {
       return `Tile-and-a-half, ${mm(s.tile.length_mm)} × ${mm(s.tile.width_mm * 1.5)} mm`;
     case 'valley_trough':
       return `Valley trough unit, ${mm(s.valley.unit_length_mm)} mm (${mm(s.valley.lap_mm)} mm lap)`;
+    case 'eaves_vent':
+      return 'Eaves ventilation strip or comb filler, by the metre along the eaves';
+    case 'verge_undercloak':
+      return 'Verge undercloak strip, by the metre along the mortar verges';
+    case 'flashing':
+      return 'Flashing, by the metre: abutments, aprons and back gutters';
     default:
       return CATEGORY_LABELS[category];
   }
@@ -101,7 +120,7 @@ export function billOfMaterials(result: EngineResult, system: RoofSystem, compon
   const notCounted: NotCounted[] = [];
 
   for (const f of FIGURES) {
-    let quantity = f.value(t);
+    let quantity = f.value(t, system);
     let figure = f.figure;
     if (components && f.category === 'hip' && !components.has('hip')) continue;
     if (components && f.category === 'ridge' && !components.has('hip') && t.hip_tiles > 0) {

@@ -117,7 +117,10 @@ export async function assemble(repo: ReturnType<typeof runsRepository>, rows: Ru
   });
 }
 
-/** The category of the order line each of the engine's pallet items comes from. */
+/**
+ * The category of the order line each of the engine's pallet items comes from; items the engine does not
+ * count (valley lining, eaves ventilation, undercloak, flashing, accessories) travel under their category.
+ */
 const ITEM_CATEGORY: Record<string, string> = {
   underlay_rolls: 'underlay',
   battens: 'batten',
@@ -126,22 +129,31 @@ const ITEM_CATEGORY: Record<string, string> = {
   clips: 'clip',
   ridge_tiles: 'ridge',
   hip_tiles: 'hip',
+  eaves_tiles: 'eaves_tile',
+  top_tiles: 'top_tile',
+  tile_and_half: 'tile_and_half',
+  valley_units: 'valley_trough',
+  hip_irons: 'hip_iron',
+  dry_verge_units: 'dry_verge',
+  ridge_end_caps: 'ridge_end_cap',
 };
 
 export type ProductNames = ReadonlyMap<string, { description: string; unit: string }>;
 
 const plural = (unit: string, n: number) => (n === 1 || /(s|m|kg)$/.test(unit) ? unit : `${unit}s`);
 
-/** What is on a pallet, in words: the order's own product names and units, never the engine's item keys. */
+/**
+ * What is on a pallet, in words: the order's own product names and units, never the engine's item keys.
+ * A tile pallet carries its tiles and, after them, any double-lap special pieces.
+ */
 export function palletItems(p: { kind: string; tiles: number; items: ReadonlyArray<{ item: string; quantity: number }> }, names: ProductNames = new Map()): PalletView['items'] {
-  if (p.kind === 'tiles') {
-    const tile = names.get('tile');
-    return [{ description: tile?.description ?? 'Roof tiles', quantity: p.tiles, unit: plural(tile?.unit ?? 'tile', p.tiles) }];
-  }
-  return p.items.map((it) => {
+  const items = p.items.map((it) => {
     const category = ITEM_CATEGORY[it.item] ?? it.item;
     const known = names.get(category);
     const label = CATEGORY_LABELS[category as ProductCategory] ?? category.replace(/_/g, ' ');
     return { description: known?.description ?? label, quantity: it.quantity, unit: plural(known?.unit ?? 'unit', it.quantity) };
   });
+  if (p.kind !== 'tiles' || (p.tiles === 0 && items.length > 0)) return items;
+  const tile = names.get('tile');
+  return [{ description: tile?.description ?? 'Roof tiles', quantity: p.tiles, unit: plural(tile?.unit ?? 'tile', p.tiles) }, ...items];
 }

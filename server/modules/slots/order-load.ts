@@ -41,7 +41,7 @@ const round1 = (v: number) => Math.round(v * 10) / 10;
  * The engine's delivery plan for what an order sends (not what the estimate once asked for): its tile
  * packs over the estimate's faces, its accessories by their own pack weights, made up into pallets by
  * the estimate's roof system (pallet size, tare, heaviest pallet). Clips, valley linings and other
- * accessories the engine does not count ride on the accessory pallets under their own names. Without
+ * accessories the engine does not count ride on the accessory pallets under their own names (products sold by the metre in metres). Without
  * an estimate the engine's default system makes the pallets.
  */
 export function orderLoad(lines: readonly LoadLine[], estimate: { system_input: RoofSystem; result: EngineResult } | null): OrderLoad {

@@ -229,4 +229,34 @@ describe('ProductForm', () => {
       }),
     );
   });
+
+  it('adds a flashing roll sold by the metre, with its weight as the only technical field', async () => {
+    const fetchMock = stubFetch({ ...csrf, 'POST /api/products': { status: 201, body: productFixture({ sku: 'TRS-FLR-6M', category: 'flashing', unit: 'm', pack_size: 6 }) } });
+    renderWithProviders(<ProductForm />);
+    fillCommon('TRS-FLR-6M', 'Flashing roll 300 mm × 6 m', 'flashing', 'm');
+    type('Pack size (units in one pack)', '6');
+    type('Pack weight (kg)', '4.8');
+    const technical = screen.getByRole('region', { name: 'Technical fields for Flashing' });
+    expect(
+      within(technical)
+        .getAllByRole('textbox')
+        .map((i) => i.getAttribute('name')),
+    ).toEqual(['technical.weight_kg']);
+    type('Weight of one length or roll (kg)', '4.8');
+    fireEvent.click(screen.getByRole('button', { name: 'Add the product' }));
+    await waitFor(() =>
+      expect(sentBody(fetchMock, 'POST', '/api/products')).toEqual({
+        sku: 'TRS-FLR-6M',
+        name: 'Flashing roll 300 mm × 6 m',
+        category: 'flashing',
+        unit: 'm',
+        pack_size: 6,
+        pack_weight_kg: 4.8,
+        tax_rate_bp: 2000,
+        pallet_length_mm: 1200,
+        pallet_width_mm: 1000,
+        technical: { weight_kg: 4.8 },
+      }),
+    );
+  });
 });

@@ -32,6 +32,9 @@ const products = [
   product(6, 'TRS-NT38-1K', 'Tile nails 38 × 3.35 mm', 'tile_nail'),
   product(7, 'TRS-UVP-50', 'Vapour-open underlay, 50 m roll', 'underlay'),
   product(8, 'TRS-OLD-TILE', 'Old tile, no longer sold', 'tile', true),
+  product(9, 'TRS-EVC-5M', 'Eaves vent strip with comb filler, 5 m roll', 'eaves_vent'),
+  product(10, 'TRS-VUC-2M', 'Verge undercloak strip 150 mm, 2 m length', 'verge_undercloak'),
+  product(11, 'TRS-FLR-6M', 'Flashing roll 300 mm × 6 m', 'flashing'),
 ];
 const branch = { id: 3, name: 'Quillsby yard', town: 'Quillsby', merchant: { id: 9, name: 'Stanmoor Roofing Supplies' } };
 const savedSystem = (over: Record<string, unknown> = {}) => ({ id: 40, name: 'Flat tile on 38 × 25', description: '', branch, settings: {}, components: [], offerable: true, problems: [], archived_at: null, ...over });
@@ -126,5 +129,31 @@ describe('RoofSystemForm', () => {
       }),
     );
     expect(await screen.findByText('Flat tile on 38 × 25 is saved; it is not offered yet: has no batten product.')).toBeTruthy();
+  });
+
+  it('offers the products sold by the metre as optional parts and sends the ones chosen', async () => {
+    const fetchMock = stubFetch({ ...csrf, 'POST /api/roof-systems': { status: 201, body: savedSystem() } });
+    renderWithProviders(<RoofSystemForm branchId={3} products={products} />);
+    expect(
+      within(screen.getByLabelText('Flashing (by the metre) (optional)'))
+        .getAllByRole('option')
+        .map((o) => o.textContent),
+    ).toEqual(['None', 'TRS-FLR-6M · Flashing roll 300 mm × 6 m']);
+    fireEvent.change(screen.getByLabelText('Name'), { target: { value: 'Flat tile on 38 × 25' } });
+    choose('Tile', '1');
+    choose('Ridge tile', '3');
+    choose('Batten', '4');
+    choose('Batten nail', '5');
+    choose('Tile nail', '6');
+    choose('Underlay', '7');
+    choose('Eaves ventilation (by the metre) (optional)', '9');
+    choose('Verge undercloak (by the metre) (optional)', '10');
+    choose('Flashing (by the metre) (optional)', '11');
+    fireEvent.click(screen.getByRole('button', { name: 'Add the roof system' }));
+    await waitFor(() =>
+      expect(sentBody(fetchMock, 'POST', '/api/roof-systems')).toMatchObject({
+        components: { tile: 1, ridge: 3, batten: 4, batten_nail: 5, tile_nail: 6, underlay: 7, eaves_vent: 9, verge_undercloak: 10, flashing: 11 },
+      }),
+    );
   });
 });

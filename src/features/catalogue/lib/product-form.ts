@@ -53,6 +53,17 @@ export const TECHNICAL_FIELDS: Record<Exclude<ProductCategory, 'tile'>, readonly
   dry_verge: [{ key: 'weight_kg', label: 'Weight of one unit (kg)', hint: 'A roof system with a dry verge product has dry verges: one unit a course on each verge.' }],
   ridge_end_cap: [weightEach],
   hip_iron: [weightEach],
+  eaves_vent: [{ key: 'weight_kg', label: 'Weight of one length or roll (kg)', hint: 'Sold by the metre: its unit is the metre and its pack size the metres in one length or roll. Priced on the length of every eaves.' }],
+  verge_undercloak: [
+    { key: 'weight_kg', label: 'Weight of one length (kg)', hint: 'Sold by the metre: its unit is the metre and its pack size the metres in one length. Priced on the raking length of mortar verges only.' },
+  ],
+  flashing: [
+    {
+      key: 'weight_kg',
+      label: 'Weight of one length or roll (kg)',
+      hint: 'Sold by the metre: its unit is the metre and its pack size the metres in one length or roll. Priced on side and top abutments, aprons and back gutters together.',
+    },
+  ],
   accessory: [],
 };
 

@@ -22,6 +22,9 @@ export const ROLE_WORDS: Record<SystemRole, string> = {
   dry_verge: 'Dry verge unit',
   ridge_end_cap: 'Ridge end cap',
   hip_iron: 'Hip iron',
+  eaves_vent: 'Eaves ventilation (by the metre)',
+  verge_undercloak: 'Verge undercloak (by the metre)',
+  flashing: 'Flashing (by the metre)',
 };
 
 /** Field name of a component's product picker: server details name `components.<role>`. */

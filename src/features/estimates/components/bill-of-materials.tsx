@@ -33,6 +33,9 @@ const FIGURE_WORDS: Record<BillLine['figure'], string> = {
   dry_verge_units: 'one unit a course on each verge',
   ridge_end_caps: 'one at each ridge end that finishes at a verge',
   hip_irons: 'one at the foot of each hip',
+  eaves_m: 'length of every eaves',
+  verge_m: 'raking length of every mortar verge',
+  flashing_m: 'side and top abutments, aprons and back gutters, summed',
 };
 
 const helper = dataTableColumns<BillRow>();
