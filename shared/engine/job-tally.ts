@@ -65,7 +65,7 @@ export class JobTally {
   readonly buildings: number[] = [];
   readonly buildingNames: string[] = [];
   /** Each building's ridge, hip and valley edges, summed face by face. */
-  readonly edges = new EdgeTally();
+  readonly edges = EdgeTally.forJob();
   /** The faces meeting a ridge, with what their ridge needs of them, taken while each face is at hand. */
   readonly ridgeFaces = RidgeFaces.forJob();
   private readonly byBuilding = new Map<string, number>();

@@ -87,7 +87,8 @@ function grownI32(a: Int32Array, n: number): Int32Array {
  * Running sums of the edges of every building of a job, face by face (what buildingEdges does, without
  * keeping the faces), in flat arrays: no objects per building. A building's sums are kept for each
  * quantity met, one copy's lengths, in the order first met (a building has one or a few): "groups",
- * chained building by building through `next`.
+ * chained building by building through `next`. The estimate reuses one from job to job (`forJob`), so
+ * its arrays are not grown again for every job; they hold numbers only.
  */
 export class EdgeTally {
   private buildings = 0;
@@ -101,6 +102,13 @@ export class EdgeTally {
   private hip = new Float64Array(16);
   private valley = new Float64Array(16);
   private next = new Int32Array(16);
+
+  /** The one tally, emptied for a new job (an estimate runs to its end before another starts). */
+  static forJob(): EdgeTally {
+    JOB_EDGES.buildings = 0;
+    JOB_EDGES.groups = 0;
+    return JOB_EDGES;
+  }
 
   /** A new building with nothing added yet; returns its number (0, 1, …). */
   addBuilding(): number {
@@ -177,3 +185,5 @@ export class EdgeTally {
     return out;
   }
 }
+
+const JOB_EDGES = new EdgeTally();
