@@ -27,7 +27,8 @@ export function orderQuantity(net: number, wastePct: number): number {
 
 /**
  * Running totals of a job, face by face (a face's figures times its quantity), kept in fields of one
- * object so the loop over a big schedule stays small and allocates nothing per face.
+ * object so the loop over a big schedule stays small and allocates nothing per face. Its edge tally and
+ * ridge faces are the ones reused from job to job (DEVELOPERS.md, decision 40): one job at a time.
  */
 export class JobTally {
   slope = 0;

@@ -5,7 +5,7 @@ import type { JobTally } from './job-tally';
 import { pairRidgeFaces, type RidgeBalance, type RidgeSide } from './loading';
 import { Notice, warnBuilding } from './notices';
 import type { EngineWarning, FaceResult } from './result';
-import { BuildingEdgeSums } from './ridge-hip';
+import { BuildingEdgeSums, grownF64, grownI32 } from './ridge-hip';
 
 /** Each building's ridges, hips and valleys: faces grouped by the ridge they name, ridge loads and their warnings. */
 
@@ -21,19 +21,6 @@ function checkBalance(warnings: EngineWarning[], building: string, ridge: RidgeB
       `${named}faces ${ridge.faces.join(', ')} carry ${ridge.load_kg.join(', ')} kg: load the slopes in step and finish the lighter one early, so the roof is never loaded on one side`,
     );
   }
-}
-
-/** A flat array twice as long (at least `n`), with the old one's values. */
-function grownI32(a: Int32Array, n: number): Int32Array {
-  const b = new Int32Array(Math.max(n, 2 * a.length));
-  b.set(a);
-  return b;
-}
-
-function grownF64(a: Float64Array, n: number): Float64Array {
-  const b = new Float64Array(Math.max(n, 2 * a.length));
-  b.set(a);
-  return b;
 }
 
 /**

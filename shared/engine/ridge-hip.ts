@@ -71,13 +71,13 @@ export class BuildingEdgeSums implements BuildingEdges {
 }
 
 /** A flat array twice as long (at least `n`), with the old one's values. */
-function grownF64(a: Float64Array, n: number): Float64Array {
+export function grownF64(a: Float64Array, n: number) {
   const b = new Float64Array(Math.max(n, 2 * a.length));
   b.set(a);
   return b;
 }
 
-function grownI32(a: Int32Array, n: number): Int32Array {
+export function grownI32(a: Int32Array, n: number) {
   const b = new Int32Array(Math.max(n, 2 * a.length));
   b.set(a);
   return b;
