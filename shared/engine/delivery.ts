@@ -236,24 +236,56 @@ function packAccessories(items: readonly Accessory[], capacityKg: number, build:
   return { pallets: p.pallets, count: p.count };
 }
 
-/** Accessory pallets for `items`, numbered on from the pallets already listed. */
-function addAccessoryPallets(pallets: Pallet[], items: readonly Accessory[], capacity: number, tare: number) {
+/** Accessory pallets for `items`, numbered on from the pallets already listed, each put on a lorry load. */
+function addAccessoryPallets(pallets: Pallet[], items: readonly Accessory[], capacity: number, tare: number, loads: LoadFiller) {
   const packed = packAccessories(items, capacity, true).pallets;
   for (let k = 0; k < packed.length; k++) {
     const content = packed[k];
     let kg = 0;
     for (let j = 0; j < content.length; j++) kg += content[j].weight_kg;
     kg += tare;
-    pallets.push(new PalletRecord(pallets.length + 1, 'accessories', 0, round1(kg), NO_FACES, content));
+    const weightKg = round1(kg);
+    pallets.push(new PalletRecord(pallets.length + 1, 'accessories', 0, weightKg, NO_FACES, content));
+    loads.add(pallets.length, weightKg);
   }
 }
 
-/** Closes the load being filled: its pallets in loading order (the first off goes on last). */
-function closeLoad(loads: Load[], onLoad: readonly Pallet[], loadKg: number) {
-  if (onLoad.length === 0) return;
-  const order = new Array<number>(onLoad.length);
-  for (let k = 0; k < onLoad.length; k++) order[k] = onLoad[onLoad.length - 1 - k].n;
-  loads.push(new LorryLoad(loads.length + 1, order, round1(loadKg)));
+/**
+ * Lorry loads filled pallet by pallet in the order they come off, up to the payload and the pallet
+ * slots (a class, not closures: see AccessoryPacker). The open load is pallets `from` … `from + count − 1`.
+ */
+class LoadFiller {
+  readonly loads: Load[] = [];
+  from = 1;
+  count = 0;
+  kg = 0;
+  overPayload = 0;
+  constructor(
+    readonly slots: number,
+    readonly payloadKg: number,
+  ) {}
+
+  /** Pallet `n` (the one after the last added), weighing `weightKg`. */
+  add(n: number, weightKg: number) {
+    if (this.count > 0 && (this.count >= this.slots || this.kg + weightKg > this.payloadKg + 1e-9)) {
+      this.close();
+      this.from = n;
+      this.count = 0;
+      this.kg = 0;
+    }
+    if (weightKg > this.payloadKg) this.overPayload++;
+    this.count++;
+    this.kg += weightKg;
+  }
+
+  /** Closes the load being filled: its pallets in loading order (the first off goes on last). */
+  close() {
+    if (this.count === 0) return;
+    const order = new Array<number>(this.count);
+    const last = this.from + this.count - 1;
+    for (let k = 0; k < this.count; k++) order[k] = last - k;
+    this.loads.push(new LorryLoad(this.loads.length + 1, order, round1(this.kg)));
+  }
 }
 
 /**
@@ -310,7 +342,8 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
   }
 
   const pallets: Pallet[] = [];
-  addAccessoryPallets(pallets, input.firstOff, capacity, tare);
+  const filler = new LoadFiller(truck.pallet_slots, truck.payload_kg);
+  addAccessoryPallets(pallets, input.firstOff, capacity, tare, filler);
 
   // Stream the faces' tiles onto pallets, then the spare tiles.
   const sources = input.faces;
@@ -363,30 +396,17 @@ export function planDelivery(input: DeliveryInput, system: RoofSystem, maxPallet
       spareLeft -= take;
     }
     // The faces as an exact-size copy: a big job holds one of these per pallet.
-    pallets.push(new PalletRecord(pallets.length + 1, 'tiles', count, round1(count * tile.weight_kg + itemsKg + tare), palletFaces.slice(0, served), items));
+    const weightKg = round1(count * tile.weight_kg + itemsKg + tare);
+    pallets.push(new PalletRecord(pallets.length + 1, 'tiles', count, weightKg, palletFaces.slice(0, served), items));
+    filler.add(pallets.length, weightKg);
   }
-  addAccessoryPallets(pallets, input.lastOff, capacity, tare);
-
-  const loads: Load[] = [];
-  const onLoad: Pallet[] = [];
-  let loadKg = 0;
-  let overPayload = 0;
-  for (let k = 0; k < pallets.length; k++) {
-    const p = pallets[k];
-    if (onLoad.length > 0 && (onLoad.length >= truck.pallet_slots || loadKg + p.weight_kg > truck.payload_kg + 1e-9)) {
-      closeLoad(loads, onLoad, loadKg);
-      onLoad.length = 0;
-      loadKg = 0;
-    }
-    if (p.weight_kg > truck.payload_kg) overPayload++;
-    onLoad.push(p);
-    loadKg += p.weight_kg;
-  }
-  closeLoad(loads, onLoad, loadKg);
-  if (overPayload > 0) {
+  addAccessoryPallets(pallets, input.lastOff, capacity, tare, filler);
+  filler.close();
+  const loads = filler.loads;
+  if (filler.overPayload > 0) {
     issues.push({
       code: 'pallet_over_payload',
-      message: `${overPayload} pallet(s) weigh more than the lorry's ${truck.payload_kg} kg payload and travel alone, over the limit: use a bigger lorry`,
+      message: `${filler.overPayload} pallet(s) weigh more than the lorry's ${truck.payload_kg} kg payload and travel alone, over the limit: use a bigger lorry`,
     });
   }
   return {

@@ -8,7 +8,8 @@ import { rakingEdgeLength } from './geometry';
 import type { RidgeBalance } from './loading';
 import { Notice } from './notices';
 import type { EngineResult, EngineWarning, FaceResult, Flashings } from './result';
-import { BuildingEdgeTally } from './ridge-hip';
+import { RidgeFaces } from './ridge-groups';
+import { EdgeTally } from './ridge-hip';
 import { r1, r2 } from './round';
 import { ENGINE_VERSION } from './version';
 
@@ -24,16 +25,10 @@ export function orderQuantity(net: number, wastePct: number): number {
   return Math.ceil(Math.round(raw * 1e6) / 1e6);
 }
 
-/** Faces of one building: its ridge, hip and valley edges, and the faces that meet a ridge. */
-export interface BuildingFaces {
-  name: string;
-  edges: BuildingEdgeTally;
-  ridgeFaces: number[];
-}
-
 /**
  * Running totals of a job, face by face (a face's figures times its quantity), kept in fields of one
- * object so the loop over a big schedule stays small and allocates nothing per face.
+ * object so the loop over a big schedule stays small and allocates nothing per face. Its edge tally and
+ * ridge faces are the ones reused from job to job (DEVELOPERS.md, decision 40): one job at a time.
  */
 export class JobTally {
   slope = 0;
@@ -67,9 +62,16 @@ export class JobTally {
   valleyMm = 0;
   ridgeTiles = 0;
   hipTiles = 0;
-  readonly buildings: BuildingFaces[] = [];
-  private readonly byBuilding = new Map<string, BuildingFaces>();
-  private last: BuildingFaces | null = null;
+  /** The job's buildings by number (0, 1, …), in the order they first appear; their names in `buildingNames`. */
+  readonly buildings: number[] = [];
+  readonly buildingNames: string[] = [];
+  /** Each building's ridge, hip and valley edges, summed face by face. */
+  readonly edges = EdgeTally.forJob();
+  /** The faces meeting a ridge, with what their ridge needs of them, taken while each face is at hand. */
+  readonly ridgeFaces = RidgeFaces.forJob();
+  private readonly byBuilding = new Map<string, number>();
+  private lastName: string | null = null;
+  private lastBuilding = -1;
   private readonly dryVerges: boolean;
   private readonly troughValleys: boolean;
   private readonly troughCover: number;
@@ -80,7 +82,7 @@ export class JobTally {
     this.troughCover = system.valley.unit_length_mm - system.valley.lap_mm;
   }
 
-  add(face: Face, f: FaceResult, scratch: Scratch, i: number) {
+  add(face: Face, f: FaceResult, scratch: Scratch, index: number) {
     const q = face.quantity;
     // Totals come from the unrounded areas and lengths, so rounding a face never shifts the job.
     this.slope += scratch.net_slope_m2 * q;
@@ -120,21 +122,23 @@ export class JobTally {
     }
 
     const b = this.building(face.building);
-    b.edges.addFace(q, face.rafter_mm, face.top_mm, face.top, face.left, face.right, scratch.inset.left, scratch.inset.right);
-    if (face.top === 'ridge' || (face.top === 'mono_ridge' && face.ridge !== undefined)) b.ridgeFaces.push(i);
+    this.edges.addFace(b, q, face.rafter_mm, face.top_mm, face.top, face.left, face.right, scratch.inset.left, scratch.inset.right);
+    if (face.top === 'ridge') this.ridgeFaces.add(b, index, face.top_mm, false, f.load_kg);
+    else if (face.top === 'mono_ridge' && face.ridge !== undefined) this.ridgeFaces.add(b, index, face.top_mm, true, f.load_kg);
   }
 
-  /** The building's tally, in the order buildings first appear; faces of one building usually follow each other. */
-  private building(name: string): BuildingFaces {
-    const last = this.last;
-    if (last !== null && last.name === name) return last;
+  /** The building's number, in the order buildings first appear; faces of one building usually follow each other. */
+  private building(name: string): number {
+    if (name === this.lastName) return this.lastBuilding;
     let b = this.byBuilding.get(name);
-    if (!b) {
-      b = { name, edges: new BuildingEdgeTally(), ridgeFaces: [] };
+    if (b === undefined) {
+      b = this.edges.addBuilding();
       this.byBuilding.set(name, b);
       this.buildings.push(b);
+      this.buildingNames.push(name);
     }
-    this.last = b;
+    this.lastName = name;
+    this.lastBuilding = b;
     return b;
   }
 }
