@@ -110,6 +110,22 @@ export function trimCell(cell: string): string {
   return n === 0 || (isPlainEnd(cell.charCodeAt(0)) && isPlainEnd(cell.charCodeAt(n - 1))) ? cell : cell.trim();
 }
 
+const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
+
+/**
+ * A row with values past its header's last column: `null` when those cells are blank (a spreadsheet's
+ * trailing delimiters), else the problem, which names the delimiter a value must be quoted for.
+ */
+export function tooManyValues(cells: readonly string[], width: number, delimiter: string): string | null {
+  if (cells.length <= width) return null;
+  for (let i = width; i < cells.length; i++) if (cells[i].trim() !== '') return tooManyValuesMessage(cells.length, width, delimiter);
+  return null;
+}
+
+export function tooManyValuesMessage(values: number, width: number, delimiter: string): string {
+  return `has ${values} values but the header has ${width} columns; a value with a ${DELIMITER_NAMES[delimiter]} in it needs quotes`;
+}
+
 /** True when every cell of a row is blank. */
 export function isBlankRow(cells: readonly string[]): boolean {
   for (let i = 0; i < cells.length; i++) {

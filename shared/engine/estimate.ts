@@ -97,7 +97,7 @@ function estimateChecked(schedule: Schedule, system: RoofSystem, openings: reado
 
   const ridges: RidgeBalance[] = [];
   const groups = newRidgeGroups();
-  for (const b of job.buildings) finishBuilding(b, schedule, faces, system, job, ridges, warnings, groups);
+  for (const b of job.buildings) finishBuilding(b, schedule, system, job, ridges, warnings, groups);
   return finishJob(faces, system, tally, job, ridges, warnings);
 }
 

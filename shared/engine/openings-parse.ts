@@ -11,7 +11,7 @@ import {
   type OpeningProblem,
 } from '../schemas/openings.schema';
 import { SCHEDULE_LIMITS, SCHEDULE_MESSAGES, millimetreProblem, quantityProblem, type Face } from '../schemas/schedule.schema';
-import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, readNumber, trimCell } from './csv-read';
+import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, readNumber, tooManyValues, trimCell } from './csv-read';
 import type { InputProblem } from './result';
 import type { ScheduleFaceIndex } from './schedule-parse';
 
@@ -44,7 +44,7 @@ export function readOpeningsCsv(text: string, faces: readonly Face[] | undefined
   const delimiter = detectDelimiter(body);
   // Read chunk by chunk, like the schedule: a whole-file parse keeps every row of the file reachable
   // from papaparse until the next full collection.
-  const reader = new OpeningsReader(delimiter !== ',');
+  const reader = new OpeningsReader(delimiter);
   readCsvChunks(body, delimiter, reader);
   return reader.finish(faces, index);
 }
@@ -101,8 +101,13 @@ class OpeningsReader {
   private row = 0;
   private bad = false;
   private lastBuilding = '';
+  /** Columns of the header row: a row with values past them is refused. */
+  private width = 0;
+  private readonly decimalComma: boolean;
 
-  constructor(private readonly decimalComma: boolean) {}
+  constructor(private readonly delimiter: string) {
+    this.decimalComma = delimiter !== ',';
+  }
 
   chunk(results: Papa.ParseResult<string[]>) {
     addPapaProblems(results, this.rowsBefore, this.fileErrors);
@@ -120,6 +125,7 @@ class OpeningsReader {
 
   private readHeader(raw: readonly string[]) {
     this.headerDone = true;
+    this.width = raw.length;
     const col = this.col;
     for (let i = 0; i < raw.length; i++) {
       const name = normaliseHeader(raw[i]);
@@ -178,6 +184,11 @@ class OpeningsReader {
     this.cells = cells;
     this.row = row;
     this.bad = false;
+    const extra = tooManyValues(cells, this.width, this.delimiter);
+    if (extra !== null) {
+      this.rowErrors.push({ row, message: extra });
+      this.bad = true;
+    }
     let building = this.text('building', '1');
     // The openings of a building share one copy of its name.
     if (building === this.lastBuilding) building = this.lastBuilding;

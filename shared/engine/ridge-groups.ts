@@ -4,7 +4,7 @@ import { RIDGE_BALANCE_TOLERANCE } from './defaults';
 import type { JobTally } from './job-tally';
 import { pairRidgeFaces, type RidgeBalance, type RidgeSide } from './loading';
 import { Notice, warnBuilding } from './notices';
-import type { EngineWarning, FaceResult } from './result';
+import type { EngineWarning } from './result';
 import { BuildingEdgeSums, grownF64, grownI32 } from './ridge-hip';
 
 /** Each building's ridges, hips and valleys: faces grouped by the ridge they name, ridge loads and their warnings. */
@@ -265,7 +265,7 @@ class RidgeLoad implements RidgeBalance {
  * warnings, from what the tally kept of its faces (their results are not read again; of the schedule,
  * the names of the faces that meet a ridge).
  */
-export function finishBuilding(b: number, schedule: Schedule, _faces: readonly FaceResult[], system: RoofSystem, job: JobTally, ridges: RidgeBalance[], warnings: EngineWarning[], scratch: RidgeGroups) {
+export function finishBuilding(b: number, schedule: Schedule, system: RoofSystem, job: JobTally, ridges: RidgeBalance[], warnings: EngineWarning[], scratch: RidgeGroups) {
   const building = job.buildingNames[b];
   const edges = job.edges.finish(b, system.ridge.cover_mm, system.hip.cover_mm, scratch.edges);
   job.ridgeMm += edges.ridge_mm;

@@ -2,7 +2,7 @@ import type Papa from 'papaparse';
 import type { RoofSystem } from '../schemas/roof-system.schema';
 import { SCHEDULE_COLUMNS, SCHEDULE_MESSAGES, crossCheckFace, resolveFace, type Face, type FaceCandidate, type ScheduleColumn } from '../schemas/schedule.schema';
 import { lowestPitch } from './courses';
-import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks } from './csv-read';
+import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, tooManyValuesMessage } from './csv-read';
 import type { InputProblem } from './result';
 import { CHECK_MM, CHECK_MM_OR_ZERO, CHECK_PITCH, CHECK_QUANTITY, RowReader, type ColumnIndex } from './schedule-row';
 
@@ -17,8 +17,6 @@ export interface ScheduleWarning {
 }
 
 export type ScheduleParse = { ok: true; faces: Face[]; warnings: ScheduleWarning[]; delimiter: string } | { ok: false; errors: InputProblem[]; warnings: ScheduleWarning[] };
-
-const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
 
 /**
  * Reads a roof schedule from CSV text as spreadsheets export it: UTF-8 with or without a BOM, comma,
@@ -351,7 +349,7 @@ class ScheduleReader {
       if (extra) {
         errors.push({
           row,
-          message: `has ${cells.length} values but the header has ${this.width} columns; a value with a ${DELIMITER_NAMES[this.delimiter]} in it needs quotes`,
+          message: tooManyValuesMessage(cells.length, this.width, this.delimiter),
         });
         reader.rowBad = true;
       }

@@ -264,6 +264,10 @@ describe('openings (the rule is common practice, no source: positions are not gi
         "row 6, column height_mm: 4000 mm is taller than face 'Main' (rafter 3860 mm)",
       ]);
     }
+    // A value past the header's last column (an unquoted comma inside a value) is refused, as in the
+    // schedule; blank cells there (a spreadsheet's trailing delimiters) are not.
+    const extra = parseOpeningsCsv('face,kind,width_mm,height_mm\r\nMain,hatch,600,900,2\r\nMain,hatch,600,900,,\r\n', faces);
+    expect(!extra.ok && extra.errors.map(formatProblem)).toEqual(['row 2: has 5 values but the header has 4 columns; a value with a comma in it needs quotes']);
     const good = parseOpeningsCsv('face,kind,width_mm,height_mm\r\nMain,Roof window,780,1180\r\n', faces);
     expect(good.ok && good.openings).toEqual([{ building: '1', face: 'Main', kind: 'roof_window', width_mm: 780, height_mm: 1_180, quantity: 1 }]);
   });

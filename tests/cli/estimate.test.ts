@@ -193,6 +193,7 @@ describe.concurrent('estimate CLI', () => {
     ['no opening at all', 'Birch,Front,roof_window,780,1180,0', 'openings file, row 2, column quantity: must be a whole number from 1 to 10000'],
     ['part of an opening', 'Birch,Front,roof_window,780,1180,1.5', 'openings file, row 2, column quantity: must be a whole number from 1 to 10000'],
     ['metres in an openings column', 'Birch,Front,roof_window,0.78,1180,1', 'openings file, row 2, column width_mm: looks like metres (0.78); give millimetres, e.g. 780'],
+    ['a value past the last column', 'Birch,Front,roof_window,780,1180,1,9', 'openings file, row 2: has 7 values but the header has 6 columns; a value with a comma in it needs quotes'],
   ])('rejects an openings file with %s: nothing on stdout, exit 2', async (_name, row, message) => {
     const schedule = file(`open-${message.length}.csv`, EXAMPLE_SCHEDULE_CSV);
     const openings = file(`bad-open-${message.length}-${row.length}.csv`, `building,face,kind,width_mm,height_mm,quantity\n${row}\n`);
