@@ -76,6 +76,14 @@ describe('systems that cannot be laid or loaded are rejected, naming the field',
     const r = parseRoofSystem({ truck: { pallet_tare_kg: 25, max_pallet_kg: 20 } });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors.map((e) => e.field)).toEqual(['truck.max_pallet_kg']);
+    // Reported beside a tile's own problem too, not only once the tile is put right.
+    const both = parseRoofSystem({ tile: { ...PLAIN_TILE, bond: 'straight' }, truck: { pallet_tare_kg: 25, max_pallet_kg: 20 } });
+    expect(!both.ok && both.errors.map((e) => e.field).sort()).toEqual(['tile.bond', 'truck.max_pallet_kg']);
+    // Above the empty pallet but under it and one tile: the whole-system check, which names the tile's weight.
+    const oneTile = parseRoofSystem({ tile: PLAIN_TILE, truck: { pallet_tare_kg: 25, max_pallet_kg: 25.5 } });
+    expect(!oneTile.ok && oneTile.errors.map((e) => `${e.field}: ${e.message}`)).toEqual([
+      `truck.max_pallet_kg: must be at least the empty pallet (pallet_tare_kg, 25 kg) and one tile (${PLAIN_TILE.weight_kg} kg): a lighter limit leaves a pallet that cannot hold a tile`,
+    ]);
   });
 });
 

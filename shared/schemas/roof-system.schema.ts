@@ -231,12 +231,21 @@ export const roofSystemSchema = z
       {},
     ),
     truck: z.prefault(
-      z.strictObject({
-        payload_kg: z._default(positive(), d.truck.payload_kg),
-        pallet_slots: z._default(wholeAtLeast(1), d.truck.pallet_slots),
-        pallet_tare_kg: z._default(nonNegative(), d.truck.pallet_tare_kg),
-        max_pallet_kg: z._default(positive(), d.truck.max_pallet_kg),
-      }),
+      z
+        .strictObject({
+          payload_kg: z._default(positive(), d.truck.payload_kg),
+          pallet_slots: z._default(wholeAtLeast(1), d.truck.pallet_slots),
+          pallet_tare_kg: z._default(nonNegative(), d.truck.pallet_tare_kg),
+          max_pallet_kg: z._default(positive(), d.truck.max_pallet_kg),
+        })
+        // Checked here as well as with the tile below, so a pallet limit at or under the empty pallet is
+        // reported even when the tile has problems of its own (the whole-system check waits for a valid tile).
+        .check(
+          z.refine((t) => t.max_pallet_kg > t.pallet_tare_kg, {
+            error: (issue) => `must be more than the empty pallet (pallet_tare_kg, ${(issue.input as { pallet_tare_kg: number }).pallet_tare_kg} kg): such a pallet cannot hold a tile`,
+            path: ['max_pallet_kg'],
+          }),
+        ),
       {},
     ),
   })
@@ -257,7 +266,8 @@ export const roofSystemSchema = z
           message: `must be at least the minimum batten length (${s.batten.min_length_mm} mm)`,
         });
       }
-      if (s.truck.max_pallet_kg < s.truck.pallet_tare_kg + s.tile.weight_kg) {
+      // At or under the empty pallet it is reported by the truck's own check.
+      if (s.truck.max_pallet_kg > s.truck.pallet_tare_kg && s.truck.max_pallet_kg < s.truck.pallet_tare_kg + s.tile.weight_kg) {
         ctx.addIssue({
           code: 'custom',
           path: ['truck', 'max_pallet_kg'],
