@@ -122,7 +122,7 @@ export function tooManyValues(cells: readonly string[], width: number, delimiter
   return null;
 }
 
-export function tooManyValuesMessage(values: number, width: number, delimiter: string): string {
+function tooManyValuesMessage(values: number, width: number, delimiter: string): string {
   return `has ${values} values but the header has ${width} columns; a value with a ${DELIMITER_NAMES[delimiter]} in it needs quotes`;
 }
 

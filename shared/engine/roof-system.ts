@@ -33,19 +33,6 @@ function isPlainData(v: unknown, depth: number): boolean {
   return true;
 }
 
-/** A deep copy of plain data (isPlainData): new objects and arrays, the same keys in the same order. */
-function copyData<T>(v: T): T {
-  if (typeof v !== 'object' || v === null) return v;
-  if (Array.isArray(v)) {
-    const out = new Array<unknown>(v.length);
-    for (let i = 0; i < v.length; i++) out[i] = copyData(v[i]);
-    return out as T;
-  }
-  const out: Record<string, unknown> = {};
-  for (const key of Object.keys(v)) out[key] = copyData((v as Record<string, unknown>)[key]);
-  return out as T;
-}
-
 /** True when `given` is the same data as `kept` (plain data): same keys in the same order, same values (Object.is). */
 function sameData(kept: unknown, given: unknown, depth: number): boolean {
   if (typeof kept !== 'object' || kept === null) return Object.is(kept, given);
@@ -87,12 +74,12 @@ const recentlyRead: ReadSystem[] = [];
 export function parseRoofSystem(input: unknown): { ok: true; system: RoofSystem } | { ok: false; errors: InputProblem[] } {
   const given = input ?? {};
   for (let i = 0; i < recentlyRead.length; i++) {
-    if (sameData(recentlyRead[i].input, given, 0)) return { ok: true, system: copyData(recentlyRead[i].system) };
+    if (sameData(recentlyRead[i].input, given, 0)) return { ok: true, system: structuredClone(recentlyRead[i].system) };
   }
   const parsed = roofSystemSchema.safeParse(given);
   if (parsed.success) {
     if (isPlainData(given, 0)) {
-      recentlyRead.unshift(new ReadSystem(copyData(given), copyData(parsed.data)));
+      recentlyRead.unshift(new ReadSystem(structuredClone(given), structuredClone(parsed.data)));
       if (recentlyRead.length > REMEMBERED) recentlyRead.pop();
     }
     return { ok: true, system: parsed.data };

@@ -2,7 +2,7 @@ import type Papa from 'papaparse';
 import type { RoofSystem } from '../schemas/roof-system.schema';
 import { SCHEDULE_COLUMNS, SCHEDULE_MESSAGES, crossCheckFace, resolveFace, type Face, type FaceCandidate, type ScheduleColumn } from '../schemas/schedule.schema';
 import { lowestPitch } from './courses';
-import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, tooManyValuesMessage } from './csv-read';
+import { addPapaProblems, detectDelimiter, isBlankRow, normaliseHeader, readCsvChunks, tooManyValues } from './csv-read';
 import type { InputProblem } from './result';
 import { CHECK_MM, CHECK_MM_OR_ZERO, CHECK_PITCH, CHECK_QUANTITY, RowReader, type ColumnIndex } from './schedule-row';
 
@@ -343,16 +343,10 @@ class ScheduleReader {
     const reader = this.cells;
     const errors = this.errors;
     reader.start(row, cells);
-    if (cells.length > this.width) {
-      let extra = false;
-      for (let i = this.width; i < cells.length; i++) if (cells[i].trim() !== '') extra = true;
-      if (extra) {
-        errors.push({
-          row,
-          message: tooManyValuesMessage(cells.length, this.width, this.delimiter),
-        });
-        reader.rowBad = true;
-      }
+    const extra = tooManyValues(cells, this.width, this.delimiter);
+    if (extra !== null) {
+      errors.push({ row, message: extra });
+      reader.rowBad = true;
     }
 
     let building = reader.text('building', col.building, '1');

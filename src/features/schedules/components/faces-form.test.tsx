@@ -3,6 +3,7 @@ import { describe, expect, it, vi } from 'vitest';
 import { SCHEDULE_MESSAGES } from '../../../../shared/schemas/schedule.schema';
 import type { StoredFace, StoredOpening } from '../../../../shared/schemas/schedule-upload.schema';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
+import { scheduleFixture } from '../../../test-utils/schedule-fixture';
 import { FacesForm } from './faces-form';
 
 /** Invented faces of one house type: a hipped front stored before a top was required, and a gabled back. */
@@ -44,19 +45,7 @@ const storedFaces: StoredFace[] = [
   },
 ];
 
-const stored = (faces: StoredFace[], openings: StoredOpening[] = []) => ({
-  id: 12,
-  project_id: 4,
-  version: 3,
-  source: 'form',
-  filename: null,
-  face_count: faces.length,
-  created_at: '2026-12-05T10:00:00.000Z',
-  created_by: { id: 2, name: 'Idris Venmore' },
-  faces,
-  openings,
-  warnings: [],
-});
+const stored = (faces: StoredFace[], openings: StoredOpening[] = []) => scheduleFixture(faces, openings);
 
 const face = (name: string) => screen.getByRole('group', { name: new RegExp(`^Face \\d+: ${name}$`) });
 const input = (group: HTMLElement, label: string) => within(group).getByLabelText(label) as HTMLInputElement;

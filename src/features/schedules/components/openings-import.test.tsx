@@ -7,6 +7,7 @@ import { parseScheduleCsv } from '../../../../shared/engine/schedule-parse';
 import { engineFace } from '../../../../shared/domain/stored-schedule';
 import type { StoredFace, StoredOpening } from '../../../../shared/schemas/schedule-upload.schema';
 import { renderWithProviders } from '../../../test-utils/render-with-providers';
+import { scheduleFixture } from '../../../test-utils/schedule-fixture';
 import { CurrentSchedule } from './current-schedule';
 
 const parsed = parseScheduleCsv(EXAMPLE_SCHEDULE_CSV);
@@ -15,19 +16,7 @@ if (!parsed.ok) throw new Error('the example schedule no longer reads');
 const faces: StoredFace[] = parsed.faces.map((f, i) => ({ ...f, id: i + 1, position: i + 1, ridge: f.ridge ?? null, top_assumed: false }));
 const firstOpenings: StoredOpening[] = [{ id: 1, position: 1, building: 'Birch', face: 'Porch', kind: 'hatch', width_mm: 600, height_mm: 900, quantity: 1 }];
 
-const version = (n: number, openings: StoredOpening[]) => ({
-  id: 10 + n,
-  project_id: 4,
-  version: n,
-  source: 'csv',
-  filename: 'roof-schedule.csv',
-  face_count: faces.length,
-  created_at: '2026-12-05T10:00:00.000Z',
-  created_by: { id: 2, name: 'Idris Venmore' },
-  faces,
-  openings,
-  warnings: [],
-});
+const version = (n: number, openings: StoredOpening[]) => scheduleFixture(faces, openings, { id: 10 + n, version: n, source: 'csv', filename: 'roof-schedule.csv' });
 
 /** The first test of a file waits for a part loaded after the page (the engine, the import), slow on a busy machine. */
 const LAZY_PARTS = { timeout: 20_000 };

@@ -2,6 +2,7 @@ import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
 import { EXAMPLE_SCHEDULE_CSV } from '../../../../shared/engine/example-schedule';
 import { renderWithProviders, stubFetch } from '../../../test-utils/render-with-providers';
+import { scheduleFixture } from '../../../test-utils/schedule-fixture';
 import { ScheduleImport } from './schedule-import';
 
 /** The example schedule with one cell changed; lines[0] is the header (spreadsheet row 1). */
@@ -18,19 +19,12 @@ function chooseFile(text: string, name = 'roof-schedule.csv') {
   fireEvent.change(screen.getByLabelText('Choose a CSV file'), { target: { files: [file] } });
 }
 
-const storedSchedule = (faces: unknown[]) => ({
-  id: 9,
-  project_id: 4,
-  version: 2,
-  source: 'form',
-  filename: null,
-  face_count: faces.length,
-  created_at: '2026-12-01T10:00:00.000Z',
-  created_by: { id: 2, name: 'Idris Venmore' },
-  faces: faces.map((f, i) => ({ id: i + 1, position: i + 1, ridge: null, top_assumed: false, ...(f as object) })),
-  openings: [],
-  warnings: [],
-});
+const storedSchedule = (faces: unknown[]) =>
+  scheduleFixture(
+    faces.map((f, i) => ({ id: i + 1, position: i + 1, ridge: null, top_assumed: false, ...(f as object) })),
+    [],
+    { id: 9, version: 2, created_at: '2026-12-01T10:00:00.000Z' },
+  );
 
 describe('ScheduleImport', () => {
   it('marks the one rejected cell with the reader’s message, naming its spreadsheet row and column', async () => {
